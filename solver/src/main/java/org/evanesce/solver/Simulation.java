@@ -1,0 +1,379 @@
+package org.evanesce.solver;
+
+import java.util.ArrayList;
+import java.util.EnumMap;
+import java.util.List;
+import java.util.Map;
+import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.solver.boundary.Boundary;
+import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.grid.Precision;
+import org.evanesce.solver.grid.Side;
+import org.evanesce.solver.kernel.Engine;
+import org.evanesce.solver.monitor.StepListener;
+import org.evanesce.solver.monitor.StepView;
+import org.evanesce.solver.parallel.BandTeam;
+import org.evanesce.solver.source.Source;
+
+/**
+ * A planned 2D Yee-grid run: fields, coefficients, boundaries, sources and threads, stepped on
+ * demand. Everything that can be computed before stepping is computed by {@link Builder#build()}.
+ *
+ * <p>Conventions: the time step is Δt = SΔ/c0 with S the Courant number; after step n the
+ * electric field is at nΔt and the magnetic field (stored as η0·H) at (n − ½)Δt.
+ * Electric sources act as currents at (n + ½)Δt, magnetic sources at nΔt.
+ *
+ * <p>Close the simulation to stop its worker threads.
+ */
+public final class Simulation implements StepView, AutoCloseable {
+
+    /** The 2D Courant limit of the Yee scheme on a square grid, 1/√2 (Taflove &amp; Hagness ch. 4). */
+    public static final double COURANT_LIMIT_2D = 1.0 / Math.sqrt(2.0);
+
+    private final Engine engine;
+    private final BandTeam team;
+    private final double dt;
+    private final double cellSize;
+    private final double courant;
+    private final Polarization polarization;
+    private final Precision precision;
+    private final Source[] sources;
+    private final int[] sourceTermStart;
+    private final int flushInterval;
+    private final double divergenceLimit;
+    private final List<StepListener> listeners;
+    private final BandTeam.Phase plain;
+    private final BandTeam.Phase flushing;
+    private long step;
+
+    private Simulation(Builder b, double dt) {
+        MaterialGrid g = b.grid;
+        this.dt = dt;
+        this.cellSize = g.cellSize();
+        this.courant = b.courant;
+        this.polarization = b.polarization;
+        this.precision = b.precision;
+        this.sources = b.sources.toArray(new Source[0]);
+        this.flushInterval = b.flushInterval;
+        this.listeners = new ArrayList<>(b.listeners);
+        engine = Engine.create(g, b.polarization, b.precision, b.courant, dt, b.sides);
+        sourceTermStart = new int[sources.length + 1];
+        int n = 0;
+        double amplitudeSum = 0;
+        for (int q = 0; q < sources.length; q++) {
+            sourceTermStart[q] = n;
+            n += sources[q].cells().length;
+            for (double a : sources[q].amplitudes()) {
+                amplitudeSum += Math.abs(a);
+            }
+        }
+        sourceTermStart[sources.length] = n;
+        int[] cells = new int[n];
+        Component[] comps = new Component[n];
+        for (int q = 0; q < sources.length; q++) {
+            int[] c = sources[q].cells();
+            System.arraycopy(c, 0, cells, sourceTermStart[q], c.length);
+            java.util.Arrays.fill(comps, sourceTermStart[q], sourceTermStart[q + 1], sources[q].component());
+        }
+        engine.setSources(cells, comps);
+        divergenceLimit = b.divergenceLimit > 0 ? b.divergenceLimit : 1e15 * Math.max(1.0, amplitudeSum);
+        team = new BandTeam(g.ny(), b.effectiveThreads(), "evanesce-band");
+        plain = (j0, j1, phase) -> engine.sweep(j0, j1, phase, false);
+        flushing = (j0, j1, phase) -> engine.sweep(j0, j1, phase, true);
+    }
+
+    public static Builder builder(MaterialGrid grid) {
+        return new Builder(grid);
+    }
+
+    /** Advances one time step: magnetic half-step, electric half-step, then the listeners. */
+    public void step() {
+        double tH = step * dt;
+        double tE = (step + 0.5) * dt;
+        for (int q = 0; q < sources.length; q++) {
+            Source s = sources[q];
+            double g = s.signal().value(s.component().electric ? tE : tH);
+            double[] amp = s.amplitudes();
+            for (int t = 0; t < amp.length; t++) {
+                engine.sourceValue(sourceTermStart[q] + t, amp[t] * g);
+            }
+        }
+        boolean flush = (step + 1) % flushInterval == 0;
+        double max = team.step(flush ? flushing : plain);
+        step++;
+        if (flush && !(max <= divergenceLimit)) {
+            throw diverged(max);
+        }
+        for (StepListener l : listeners) {
+            l.afterStep(this);
+        }
+    }
+
+    /** Advances {@code steps} time steps. */
+    public void run(long steps) {
+        for (long s = 0; s < steps; s++) {
+            step();
+        }
+    }
+
+    private DivergenceException diverged(double max) {
+        Component worst = null;
+        int wi = -1;
+        int wj = -1;
+        double wv = -1;
+        outer:
+        for (Component c : polarization.components()) {
+            for (int j = 0; j < engine.ny(); j++) {
+                for (int i = 0; i < engine.nx(); i++) {
+                    double v = Math.abs(engine.get(c, j * engine.nx() + i));
+                    if (!(v <= wv)) {
+                        wv = v;
+                        worst = c;
+                        wi = i;
+                        wj = j;
+                        if (Double.isNaN(v)) {
+                            break outer;
+                        }
+                    }
+                }
+            }
+        }
+        String what = Double.isFinite(wv) ? String.format("|%s| = %g exceeds the divergence limit %g", worst, wv, divergenceLimit)
+                : String.format("%s = %s", worst, wv);
+        return new DivergenceException(String.format(
+                "run diverged by step %d (t = %g s): %s at cell (%d, %d) (largest field met: %g). "
+                        + "Check the Courant number (%g), materials with gain (negative conductivity), and sources.",
+                step, time(), what, wi, wj, max, courant), step);
+    }
+
+    /** Adds a listener called after every step. */
+    public void addListener(StepListener l) {
+        listeners.add(l);
+    }
+
+    @Override
+    public long stepCount() {
+        return step;
+    }
+
+    @Override
+    public double dt() {
+        return dt;
+    }
+
+    @Override
+    public int nx() {
+        return engine.nx();
+    }
+
+    @Override
+    public int ny() {
+        return engine.ny();
+    }
+
+    @Override
+    public double cellSize() {
+        return cellSize;
+    }
+
+    public double courant() {
+        return courant;
+    }
+
+    public Polarization polarization() {
+        return polarization;
+    }
+
+    public Precision precision() {
+        return precision;
+    }
+
+    /** Number of threads actually stepping (small grids run on one). */
+    public int threads() {
+        return team.threads();
+    }
+
+    @Override
+    public double field(Component c, int i, int j) {
+        return engine.get(c, j * engine.nx() + i);
+    }
+
+    /** Overwrites one value (initial conditions). */
+    public void setField(Component c, int i, int j, double v) {
+        engine.set(c, j * engine.nx() + i, v);
+    }
+
+    @Override
+    public double energy(int i0, int j0, int i1, int j1) {
+        return 0.5 * PhysicalConstants.EPS0 * cellSize * cellSize * engine.energy(i0, j0, i1, j1);
+    }
+
+    /** Bytes held by field, coefficient and CPML arrays. */
+    public long bytes() {
+        return engine.bytes();
+    }
+
+    /** Bytes per cell of the arrays that span the whole grid (outside the PML). */
+    public int bytesPerCell() {
+        return engine.bytesPerCell();
+    }
+
+    @Override
+    public void close() {
+        team.close();
+    }
+
+    /** Collects and validates everything a run needs; {@link #build()} refuses inconsistent requests. */
+    public static final class Builder {
+        private final MaterialGrid grid;
+        private Polarization polarization = Polarization.S;
+        private Precision precision = Precision.FLOAT;
+        private double courant = 0.5;
+        private final Map<Side, Boundary> sides = new EnumMap<>(Side.class);
+        private int threads = Runtime.getRuntime().availableProcessors();
+        private int minRowsCellsPerThread = 1 << 15;
+        private final List<Source> sources = new ArrayList<>();
+        private final List<StepListener> listeners = new ArrayList<>();
+        private int flushInterval = 16;
+        private double divergenceLimit;
+
+        private Builder(MaterialGrid grid) {
+            this.grid = grid;
+            for (Side s : Side.values()) {
+                sides.put(s, Boundary.pml(12));
+            }
+        }
+
+        public Builder polarization(Polarization p) {
+            polarization = p;
+            return this;
+        }
+
+        public Builder precision(Precision p) {
+            precision = p;
+            return this;
+        }
+
+        /** Courant number S = c0Δt/Δ; must lie below the 2D limit 1/√2 (scaled by √εr,min where εr,min &lt; 1). */
+        public Builder courant(double s) {
+            courant = s;
+            return this;
+        }
+
+        public Builder boundary(Side side, Boundary b) {
+            sides.put(side, b);
+            return this;
+        }
+
+        /** The same boundary on all four sides. */
+        public Builder boundaries(Boundary b) {
+            for (Side s : Side.values()) {
+                sides.put(s, b);
+            }
+            return this;
+        }
+
+        /** Requested threads (default: available processors). Small grids run on fewer. */
+        public Builder threads(int t) {
+            threads = t;
+            return this;
+        }
+
+        /** Fewest cells a thread must have before another thread is used (default 32768; tests lower it). */
+        public Builder minCellsPerThread(int cells) {
+            minRowsCellsPerThread = cells;
+            return this;
+        }
+
+        public Builder source(Source s) {
+            sources.add(s);
+            return this;
+        }
+
+        public Builder listener(StepListener l) {
+            listeners.add(l);
+            return this;
+        }
+
+        /** Steps between flushes of tiny values (subnormal guard) and divergence checks (default 16). */
+        public Builder flushInterval(int steps) {
+            flushInterval = steps;
+            return this;
+        }
+
+        /** Field magnitude above which the run is declared diverged (default 1e15 × the sum of source amplitudes, at least 1e15). */
+        public Builder divergenceLimit(double limit) {
+            divergenceLimit = limit;
+            return this;
+        }
+
+        int effectiveThreads() {
+            long cells = (long) grid.nx() * grid.ny();
+            long byCells = Math.max(1, cells / Math.max(1, minRowsCellsPerThread));
+            return (int) Math.max(1, Math.min(Math.min(threads, byCells), grid.ny() / 2));
+        }
+
+        /** The largest stable Courant number for this grid's materials. */
+        public double courantLimit() {
+            return COURANT_LIMIT_2D * Math.sqrt(Math.min(1.0, grid.minPermittivity()));
+        }
+
+        /**
+         * Validates the request and plans the run.
+         *
+         * @throws IllegalArgumentException naming the parameter, its value and the bound
+         */
+        public Simulation build() {
+            List<String> errors = new ArrayList<>();
+            double limit = courantLimit();
+            if (!(courant > 0) || !(courant < limit)) {
+                errors.add(String.format("Courant number %g must lie in (0, %g): the 2D Yee limit 1/sqrt(2)%s",
+                        courant, limit, limit < COURANT_LIMIT_2D
+                                ? String.format(" scaled by sqrt(%g), the smallest permittivity", grid.minPermittivity()) : ""));
+            }
+            if (threads < 1) {
+                errors.add("threads " + threads + " must be >= 1");
+            }
+            if (flushInterval < 1) {
+                errors.add("flush interval " + flushInterval + " steps must be >= 1");
+            }
+            int nx = grid.nx();
+            int ny = grid.ny();
+            int xl = layers(Side.LEFT) + layers(Side.RIGHT);
+            int yl = layers(Side.BOTTOM) + layers(Side.TOP);
+            if (xl > nx - 3) {
+                errors.add(String.format("PML layers left + right = %d leave no interior in a grid %d nodes wide (need <= %d)",
+                        xl, nx, nx - 3));
+            }
+            if (yl > ny - 3) {
+                errors.add(String.format("PML layers bottom + top = %d leave no interior in a grid %d nodes tall (need <= %d)",
+                        yl, ny, ny - 3));
+            }
+            for (Source s : sources) {
+                if (s.component().polarization != polarization) {
+                    errors.add(String.format("source component %s does not belong to the %s polarization (%s)",
+                            s.component(), polarization, java.util.Arrays.toString(polarization.components())));
+                }
+                for (int k : s.cells()) {
+                    int i = k % nx;
+                    int j = k / nx;
+                    if (k < 0 || j >= ny || i < 1 || i > nx - 2 || j < 1 || j > ny - 2) {
+                        errors.add(String.format("source cell (%d, %d) must lie inside the walls: 1 <= i <= %d, 1 <= j <= %d",
+                                i, j, nx - 2, ny - 2));
+                        break;
+                    }
+                }
+            }
+            if (!errors.isEmpty()) {
+                throw new IllegalArgumentException(String.join("\n", errors));
+            }
+            double dt = courant * grid.cellSize() / PhysicalConstants.C0;
+            return new Simulation(this, dt);
+        }
+
+        private int layers(Side s) {
+            return sides.get(s) instanceof Boundary.Pml p ? p.parameters().layers() : 0;
+        }
+    }
+}

@@ -1,0 +1,237 @@
+package org.evanesce.solver.kernel;
+
+import jdk.incubator.vector.DoubleVector;
+import jdk.incubator.vector.VectorMask;
+import jdk.incubator.vector.VectorOperators;
+import jdk.incubator.vector.VectorSpecies;
+
+/**
+ * Double-precision Yee update kernels, one grid row at a time. Arrays are row-major,
+ * {@code f[j*nx + i]}, all of length nx·ny, and are modified in place. Units are normalised:
+ * s = cΔt/Δ (Courant number), H is η0·H, and the electric update is e ← ca·e + cb·curl with the
+ * per-cell ca = (1 − L)/(1 + L), cb = s/(εr (1 + L)), L = σΔt/(2ε0εr).
+ *
+ * <p>Vector and scalar parts use the same operations in the same order (no fused multiply-add),
+ * so every cell gets the same bits whichever part computes it. {@link FloatKernels} is the same
+ * code in single precision; change both together.
+ */
+final class DoubleKernels {
+
+    static final VectorSpecies<Double> SP = Lanes.doubleSpecies();
+    private static final int VL = SP.length();
+    /** Values below this magnitude are flushed to zero: 8 orders above the subnormal range (about 2.2e-308). */
+    static final double TINY = 1e-300;
+
+    private DoubleKernels() {
+    }
+
+    /** s: Hx(i,j) −= s·(Ez(i,j+1) − Ez(i,j)) for j ≤ ny−2, all i; Hy(i,j) += s·(Ez(i+1,j) − Ez(i,j)) for i ≤ nx−2. */
+    static void sH(double[] ez, double[] hx, double[] hy, int nx, int ny, int j, double s) {
+        int r = j * nx;
+        int n = nx - 1;
+        int i = 0;
+        DoubleVector vs = DoubleVector.broadcast(SP, s);
+        if (j < ny - 1) {
+            for (; i <= n - VL; i += VL) {
+                int k = r + i;
+                DoubleVector e0 = DoubleVector.fromArray(SP, ez, k);
+                DoubleVector e1 = DoubleVector.fromArray(SP, ez, k + 1);
+                DoubleVector en = DoubleVector.fromArray(SP, ez, k + nx);
+                DoubleVector.fromArray(SP, hx, k).sub(vs.mul(en.sub(e0))).intoArray(hx, k);
+                DoubleVector.fromArray(SP, hy, k).add(vs.mul(e1.sub(e0))).intoArray(hy, k);
+            }
+            for (; i < n; i++) {
+                int k = r + i;
+                hx[k] -= s * (ez[k + nx] - ez[k]);
+                hy[k] += s * (ez[k + 1] - ez[k]);
+            }
+            int k = r + n;
+            hx[k] -= s * (ez[k + nx] - ez[k]);
+        } else {
+            for (; i <= n - VL; i += VL) {
+                int k = r + i;
+                DoubleVector e0 = DoubleVector.fromArray(SP, ez, k);
+                DoubleVector e1 = DoubleVector.fromArray(SP, ez, k + 1);
+                DoubleVector.fromArray(SP, hy, k).add(vs.mul(e1.sub(e0))).intoArray(hy, k);
+            }
+            for (; i < n; i++) {
+                int k = r + i;
+                hy[k] += s * (ez[k + 1] - ez[k]);
+            }
+        }
+    }
+
+    /** s, interior row 1 ≤ j ≤ ny−2, columns 1..nx−2: Ez ← ca·Ez + cb·((Hy(i) − Hy(i−1)) − (Hx(j) − Hx(j−1))). */
+    static void sE(double[] ez, double[] hx, double[] hy, double[] ca, double[] cb, int nx, int j) {
+        int r = j * nx;
+        int end = nx - 1;
+        int i = 1;
+        for (; i <= end - VL; i += VL) {
+            int k = r + i;
+            DoubleVector curl = DoubleVector.fromArray(SP, hy, k).sub(DoubleVector.fromArray(SP, hy, k - 1))
+                    .sub(DoubleVector.fromArray(SP, hx, k).sub(DoubleVector.fromArray(SP, hx, k - nx)));
+            DoubleVector.fromArray(SP, ca, k).mul(DoubleVector.fromArray(SP, ez, k))
+                    .add(DoubleVector.fromArray(SP, cb, k).mul(curl)).intoArray(ez, k);
+        }
+        for (; i < end; i++) {
+            int k = r + i;
+            double curl = (hy[k] - hy[k - 1]) - (hx[k] - hx[k - nx]);
+            ez[k] = ca[k] * ez[k] + cb[k] * curl;
+        }
+    }
+
+    /** s, a cell on a PMC wall: the same update with the H beyond the wall taken as zero. */
+    static void sEdge(double[] ez, double[] hx, double[] hy, double[] ca, double[] cb, int nx, int i, int j) {
+        int k = j * nx + i;
+        double hyW = i > 0 ? hy[k - 1] : 0.0;
+        double hxS = j > 0 ? hx[k - nx] : 0.0;
+        double curl = (hy[k] - hyW) - (hx[k] - hxS);
+        ez[k] = ca[k] * ez[k] + cb[k] * curl;
+    }
+
+    /** p, row j ≤ ny−2, columns 0..nx−2: Hz += s·((Ex(j+1) − Ex(j)) − (Ey(i+1) − Ey(i))). */
+    static void pH(double[] hz, double[] ex, double[] ey, int nx, int j, double s) {
+        int r = j * nx;
+        int n = nx - 1;
+        int i = 0;
+        DoubleVector vs = DoubleVector.broadcast(SP, s);
+        for (; i <= n - VL; i += VL) {
+            int k = r + i;
+            DoubleVector dEx = DoubleVector.fromArray(SP, ex, k + nx).sub(DoubleVector.fromArray(SP, ex, k));
+            DoubleVector dEy = DoubleVector.fromArray(SP, ey, k + 1).sub(DoubleVector.fromArray(SP, ey, k));
+            DoubleVector.fromArray(SP, hz, k).add(vs.mul(dEx.sub(dEy))).intoArray(hz, k);
+        }
+        for (; i < n; i++) {
+            int k = r + i;
+            hz[k] += s * ((ex[k + nx] - ex[k]) - (ey[k + 1] - ey[k]));
+        }
+    }
+
+    /** p, interior row 1 ≤ j ≤ ny−2, columns 0..nx−2: Ex ← cax·Ex + cbx·(Hz(j) − Hz(j−1)). */
+    static void pEx(double[] hz, double[] ex, double[] ca, double[] cb, int nx, int j) {
+        int r = j * nx;
+        int n = nx - 1;
+        int i = 0;
+        for (; i <= n - VL; i += VL) {
+            int k = r + i;
+            DoubleVector d = DoubleVector.fromArray(SP, hz, k).sub(DoubleVector.fromArray(SP, hz, k - nx));
+            DoubleVector.fromArray(SP, ca, k).mul(DoubleVector.fromArray(SP, ex, k))
+                    .add(DoubleVector.fromArray(SP, cb, k).mul(d)).intoArray(ex, k);
+        }
+        for (; i < n; i++) {
+            int k = r + i;
+            ex[k] = ca[k] * ex[k] + cb[k] * (hz[k] - hz[k - nx]);
+        }
+    }
+
+    /** p, row j ≤ ny−2, columns 1..nx−2: Ey ← cay·Ey − cby·(Hz(i) − Hz(i−1)). */
+    static void pEy(double[] hz, double[] ey, double[] ca, double[] cb, int nx, int j) {
+        int r = j * nx;
+        int end = nx - 1;
+        int i = 1;
+        for (; i <= end - VL; i += VL) {
+            int k = r + i;
+            DoubleVector d = DoubleVector.fromArray(SP, hz, k).sub(DoubleVector.fromArray(SP, hz, k - 1));
+            DoubleVector.fromArray(SP, ca, k).mul(DoubleVector.fromArray(SP, ey, k))
+                    .sub(DoubleVector.fromArray(SP, cb, k).mul(d)).intoArray(ey, k);
+        }
+        for (; i < end; i++) {
+            int k = r + i;
+            ey[k] = ca[k] * ey[k] - cb[k] * (hz[k] - hz[k - 1]);
+        }
+    }
+
+    /** p, Ex on a PMC wall row (j = 0 or ny−1), with Hz beyond the wall taken as zero. */
+    static void pExEdge(double[] hz, double[] ex, double[] ca, double[] cb, int nx, int i, int j) {
+        int k = j * nx + i;
+        double hzS = j > 0 ? hz[k - nx] : 0.0;
+        ex[k] = ca[k] * ex[k] + cb[k] * (hz[k] - hzS);
+    }
+
+    /** p, Ey on a PMC wall column (i = 0 or nx−1), with Hz beyond the wall taken as zero. */
+    static void pEyEdge(double[] hz, double[] ey, double[] ca, double[] cb, int nx, int i, int j) {
+        int k = j * nx + i;
+        double hzW = i > 0 ? hz[k - 1] : 0.0;
+        ey[k] = ca[k] * ey[k] - cb[k] * (hz[k] - hzW);
+    }
+
+    /**
+     * CPML correction along x of row j, cells i = start + ii for ii in [ii0, ii1):
+     * ψ ← bψ + c·d, f += sign·coef·(kappaTerm·d + ψ), with d = g(i+1) − g(i) when {@code forward}
+     * (magnetic update, coef = s) or g(i) − g(i−1) otherwise (electric update, coef = cb(i)).
+     * ψ is indexed {@code psi[j*layers + ii]}.
+     */
+    static void pmlAlongX(double[] f, double[] g, double[] cb, double s, double sign, boolean forward,
+                          int nx, int j, DoubleStrip st, double[] psi, int ii0, int ii1) {
+        int base = j * nx + st.start;
+        int pb = j * st.layers;
+        double[] b = forward ? st.bH : st.bE;
+        double[] c = forward ? st.cH : st.cE;
+        double[] kt = forward ? st.kH : st.kE;
+        for (int ii = ii0; ii < ii1; ii++) {
+            int k = base + ii;
+            double d = forward ? g[k + 1] - g[k] : g[k] - g[k - 1];
+            int p = pb + ii;
+            double ps = b[ii] * psi[p] + c[ii] * d;
+            if (Math.abs(ps) < TINY) {
+                ps = 0.0;
+            }
+            psi[p] = ps;
+            double coef = cb == null ? s : cb[k];
+            f[k] += sign * (coef * (kt[ii] * d + ps));
+        }
+    }
+
+    /**
+     * CPML correction along y of row j = start + jj, cells i in [i0, i1): as {@link #pmlAlongX}
+     * with differences across rows; ψ is indexed {@code psi[jj*nx + i]}.
+     */
+    static void pmlAlongY(double[] f, double[] g, double[] cb, double s, double sign, boolean forward,
+                          int nx, int jj, DoubleStrip st, double[] psi, int i0, int i1) {
+        int r = (st.start + jj) * nx;
+        int pb = jj * nx;
+        double b = forward ? st.bH[jj] : st.bE[jj];
+        double c = forward ? st.cH[jj] : st.cE[jj];
+        double kt = forward ? st.kH[jj] : st.kE[jj];
+        for (int i = i0; i < i1; i++) {
+            int k = r + i;
+            double d = forward ? g[k + nx] - g[k] : g[k] - g[k - nx];
+            int p = pb + i;
+            double ps = b * psi[p] + c * d;
+            if (Math.abs(ps) < TINY) {
+                ps = 0.0;
+            }
+            psi[p] = ps;
+            double coef = cb == null ? s : cb[k];
+            f[k] += sign * (coef * (kt * d + ps));
+        }
+    }
+
+    /**
+     * Sets every value of a[from, to) with magnitude below {@link #TINY} to zero, so decaying runs
+     * never compute on subnormal numbers, and returns the largest magnitude seen (NaN if any value
+     * is NaN).
+     */
+    static double flush(double[] a, int from, int to) {
+        DoubleVector vmax = DoubleVector.zero(SP);
+        int i = from;
+        for (; i <= to - VL; i += VL) {
+            DoubleVector v = DoubleVector.fromArray(SP, a, i);
+            DoubleVector av = v.abs();
+            VectorMask<Double> small = av.lt(TINY).and(av.compare(VectorOperators.NE, 0.0));
+            if (small.anyTrue()) {
+                v.blend(0.0, small).intoArray(a, i);
+            }
+            vmax = vmax.max(av);
+        }
+        double m = vmax.reduceLanes(VectorOperators.MAX);
+        for (; i < to; i++) {
+            double av = Math.abs(a[i]);
+            if (av < TINY) {
+                a[i] = 0.0;
+            }
+            m = Math.max(m, av);
+        }
+        return m;
+    }
+}

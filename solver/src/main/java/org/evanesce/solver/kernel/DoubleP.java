@@ -1,0 +1,169 @@
+package org.evanesce.solver.kernel;
+
+import java.util.Map;
+import org.evanesce.geometry.FieldSite;
+import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.solver.boundary.Boundary;
+import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Side;
+
+/**
+ * p polarization (Hz, Ex, Ey) in double precision. Ex and Ey have their own coefficients, so the
+ * per-component permittivities of subpixel smoothing apply. {@link FloatP} is the same in
+ * single precision; change both together.
+ */
+final class DoubleP extends Engine {
+
+    final double[] hz, ex, ey, cax, cbx, cay, cby;
+    private final double s;
+    /** x strips correct Hz (ψH) and Ey (ψE); y strips correct Hz (ψH) and Ex (ψE). */
+    private final DoubleStrip[] xs, ys;
+
+    DoubleP(MaterialGrid grid, double courant, double dt, Map<Side, Boundary> sides) {
+        super(grid.nx(), grid.ny(), courant, sides);
+        int n = nx * ny;
+        s = courant;
+        hz = new double[n];
+        ex = new double[n];
+        ey = new double[n];
+        double[][] cx = coefficients(grid, FieldSite.EX, courant, dt);
+        double[][] cy = coefficients(grid, FieldSite.EY, courant, dt);
+        cax = cx[0];
+        cbx = cx[1];
+        cay = cy[0];
+        cby = cy[1];
+        xs = new DoubleStrip[xProfiles.length];
+        for (int q = 0; q < xs.length; q++) {
+            xs[q] = new DoubleStrip(xProfiles[q], ny * xProfiles[q].layers);
+        }
+        ys = new DoubleStrip[yProfiles.length];
+        for (int q = 0; q < ys.length; q++) {
+            ys[q] = new DoubleStrip(yProfiles[q], nx * yProfiles[q].layers);
+        }
+    }
+
+    @Override
+    protected void hRow(int j) {
+        if (j >= ny - 1) {
+            return;
+        }
+        DoubleKernels.pH(hz, ex, ey, nx, j, s);
+        for (DoubleStrip x : xs) {
+            DoubleKernels.pmlAlongX(hz, ey, null, s, -1.0, true, nx, j, x, x.psiH, 0, x.layers);
+        }
+        int q = yStripOfRow[j];
+        if (q >= 0) {
+            DoubleStrip y = ys[q];
+            DoubleKernels.pmlAlongY(hz, ex, null, s, 1.0, true, nx, j - y.start, y, y.psiH, 0, nx - 1);
+        }
+    }
+
+    @Override
+    protected void eRow(int j) {
+        boolean wallRow = j == 0 || j == ny - 1;
+        // Ex: interior rows, or a PMC wall row
+        if (!wallRow) {
+            DoubleKernels.pEx(hz, ex, cax, cbx, nx, j);
+        } else if (j == 0 ? pmcBottom : pmcTop) {
+            for (int i = 0; i < nx - 1; i++) {
+                DoubleKernels.pExEdge(hz, ex, cax, cbx, nx, i, j);
+            }
+        }
+        boolean exUpdated = !wallRow || (j == 0 ? pmcBottom : pmcTop);
+        int q = yStripOfRow[j];
+        if (exUpdated && q >= 0) {
+            DoubleStrip y = ys[q];
+            int jj = j - y.start;
+            if (jj >= 1) {
+                DoubleKernels.pmlAlongY(ex, hz, cbx, 0.0, 1.0, false, nx, jj, y, y.psiE, 0, nx - 1);
+            }
+        }
+        // Ey: rows 0..ny-2
+        if (j < ny - 1) {
+            DoubleKernels.pEy(hz, ey, cay, cby, nx, j);
+            if (pmcLeft) {
+                DoubleKernels.pEyEdge(hz, ey, cay, cby, nx, 0, j);
+            }
+            if (pmcRight) {
+                DoubleKernels.pEyEdge(hz, ey, cay, cby, nx, nx - 1, j);
+            }
+            for (DoubleStrip x : xs) {
+                DoubleKernels.pmlAlongX(ey, hz, cby, 0.0, -1.0, false, nx, j, x, x.psiE, 1, x.layers);
+            }
+        }
+    }
+
+    @Override
+    protected void addSource(Component c, int k, double v) {
+        switch (c) {
+            case EX -> ex[k] -= (cbx[k] * v);
+            case EY -> ey[k] -= (cby[k] * v);
+            case HZ -> hz[k] -= (s * v);
+            default -> throw new IllegalArgumentException(c + " is not a p-polarization component");
+        }
+    }
+
+    @Override
+    protected double flushH(int j) {
+        int r = j * nx;
+        return DoubleKernels.flush(hz, r, r + nx);
+    }
+
+    @Override
+    protected double flushE(int j) {
+        int r = j * nx;
+        return maxOf(DoubleKernels.flush(ex, r, r + nx), DoubleKernels.flush(ey, r, r + nx));
+    }
+
+    private double[] array(Component c) {
+        return switch (c) {
+            case HZ -> hz;
+            case EX -> ex;
+            case EY -> ey;
+            default -> throw new IllegalArgumentException(c + " is not a p-polarization component");
+        };
+    }
+
+    @Override
+    public double get(Component c, int k) {
+        return array(c)[k];
+    }
+
+    @Override
+    public void set(Component c, int k, double v) {
+        array(c)[k] = v;
+    }
+
+    @Override
+    public double energy(int i0, int j0, int i1, int j1) {
+        double w = 0;
+        for (int j = j0; j < j1; j++) {
+            for (int i = i0; i < i1; i++) {
+                int k = j * nx + i;
+                double epsX = courant * (1.0 + cax[k]) / (2.0 * cbx[k]);
+                double epsY = courant * (1.0 + cay[k]) / (2.0 * cby[k]);
+                double hzNext = i < nx - 1 && j < ny - 1
+                        ? hz[k] + s * ((ex[k + nx] - ex[k]) - (ey[k + 1] - ey[k])) : 0.0;
+                w += epsX * ex[k] * ex[k] + epsY * ey[k] * ey[k] + hz[k] * hzNext;
+            }
+        }
+        return w;
+    }
+
+    @Override
+    public long bytes() {
+        long b = 7L * 8 * nx * ny;
+        for (DoubleStrip x : xs) {
+            b += 16L * x.psiH.length;
+        }
+        for (DoubleStrip y : ys) {
+            b += 16L * y.psiH.length;
+        }
+        return b;
+    }
+
+    @Override
+    public int bytesPerCell() {
+        return 7 * 8;
+    }
+}

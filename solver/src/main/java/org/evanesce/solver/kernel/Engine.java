@@ -1,0 +1,264 @@
+package org.evanesce.solver.kernel;
+
+import java.util.EnumMap;
+import java.util.Map;
+import org.evanesce.geometry.FieldSite;
+import org.evanesce.geometry.Material;
+import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.solver.boundary.Boundary;
+import org.evanesce.solver.boundary.PmlProfile;
+import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.grid.Precision;
+import org.evanesce.solver.grid.Side;
+
+/**
+ * The field state of one run and its row-by-row update. One leapfrog step is the magnetic
+ * half-step followed by the electric half-step; they are fused row by row (magnetic row j, then
+ * electric row j, which needs magnetic rows j and j−1), so each row is streamed from memory once.
+ *
+ * <p>Threads split the rows into bands. Because the magnetic update of a band's last row reads
+ * the first electric row of the next band, each step runs in two phases separated by a barrier:
+ * phase 0 updates the magnetic field of the band's last row, phase 1 does the rest of the band.
+ * Every cell is computed by the same code in every partition, so results do not depend on the
+ * number of threads.
+ *
+ * <p>Sources are soft: after its row's update, an electric source subtracts cb·v (a current
+ * density) and a magnetic source subtracts s·v (a magnetic current density), v in normalised units.
+ */
+public abstract class Engine {
+
+    protected final int nx;
+    protected final int ny;
+    protected final double courant;
+    /** Walls: true where the side is a PMC (the update then runs on the wall nodes too). */
+    protected final boolean pmcLeft, pmcRight, pmcBottom, pmcTop;
+    /** CPML profiles present on each axis (0, 1 or 2 of them). */
+    protected final PmlProfile[] xProfiles, yProfiles;
+    /** For each row, the index into {@link #yProfiles} of the strip containing it, or −1. */
+    protected final int[] yStripOfRow;
+
+    private int[] eRowStart = new int[0], hRowStart = new int[0];
+    private int[] eCell = new int[0], hCell = new int[0];
+    private Component[] eComp = new Component[0], hComp = new Component[0];
+    private double[] eValue = new double[0], hValue = new double[0];
+
+    protected Engine(int nx, int ny, double courant, Map<Side, Boundary> sides) {
+        this.nx = nx;
+        this.ny = ny;
+        this.courant = courant;
+        pmcLeft = sides.get(Side.LEFT) instanceof Boundary.Pmc;
+        pmcRight = sides.get(Side.RIGHT) instanceof Boundary.Pmc;
+        pmcBottom = sides.get(Side.BOTTOM) instanceof Boundary.Pmc;
+        pmcTop = sides.get(Side.TOP) instanceof Boundary.Pmc;
+        xProfiles = profiles(sides, Side.LEFT, Side.RIGHT, nx, courant);
+        yProfiles = profiles(sides, Side.BOTTOM, Side.TOP, ny, courant);
+        yStripOfRow = new int[ny];
+        java.util.Arrays.fill(yStripOfRow, -1);
+        for (int s = 0; s < yProfiles.length; s++) {
+            for (int jj = 0; jj < yProfiles[s].layers; jj++) {
+                yStripOfRow[yProfiles[s].start + jj] = s;
+            }
+        }
+    }
+
+    private static PmlProfile[] profiles(Map<Side, Boundary> sides, Side lo, Side hi, int nodes, double s) {
+        java.util.List<PmlProfile> l = new java.util.ArrayList<>();
+        for (Side side : new Side[] {lo, hi}) {
+            if (sides.get(side) instanceof Boundary.Pml p) {
+                l.add(PmlProfile.of(side, p.parameters(), nodes, s));
+            }
+        }
+        return l.toArray(new PmlProfile[0]);
+    }
+
+    /** Creates the engine for a polarization and precision, with coefficients from the material grid. */
+    public static Engine create(MaterialGrid grid, Polarization pol, Precision precision, double courant, double dt,
+                                Map<Side, Boundary> sides) {
+        Map<Side, Boundary> all = new EnumMap<>(sides);
+        for (Side s : Side.values()) {
+            if (!all.containsKey(s)) {
+                throw new IllegalArgumentException("no boundary given for side " + s);
+            }
+        }
+        return switch (precision) {
+            case FLOAT -> pol == Polarization.S ? new FloatS(grid, courant, dt, all) : new FloatP(grid, courant, dt, all);
+            case DOUBLE -> pol == Polarization.S ? new DoubleS(grid, courant, dt, all) : new DoubleP(grid, courant, dt, all);
+        };
+    }
+
+    /**
+     * The electric update coefficients of every cell at one site, in double:
+     * {@code out[0][k] = ca = (1 − L)/(1 + L)}, {@code out[1][k] = cb = s/(εr(1 + L))}, L = σΔt/(2ε0εr)
+     * (Taflove &amp; Hagness ch. 3, lossy-dielectric form).
+     */
+    static double[][] coefficients(MaterialGrid grid, FieldSite site, double courant, double dt) {
+        final double eps0 = 8.8541878128e-12;
+        int nx = grid.nx();
+        int ny = grid.ny();
+        int nm = grid.materials().size();
+        double[] caOf = new double[nm];
+        double[] cbOf = new double[nm];
+        for (int m = 0; m < nm; m++) {
+            Material mat = grid.materials().get(m);
+            double l = mat.conductivity() * dt / (2 * eps0 * mat.relativePermittivity());
+            caOf[m] = (1 - l) / (1 + l);
+            cbOf[m] = courant / (mat.relativePermittivity() * (1 + l));
+        }
+        double[][] out = new double[2][nx * ny];
+        for (int j = 0; j < ny; j++) {
+            for (int i = 0; i < nx; i++) {
+                int m = grid.id(site, i, j);
+                out[0][j * nx + i] = caOf[m];
+                out[1][j * nx + i] = cbOf[m];
+            }
+        }
+        return out;
+    }
+
+    public final int nx() {
+        return nx;
+    }
+
+    public final int ny() {
+        return ny;
+    }
+
+    /**
+     * Installs the source terms, sorted into rows: {@code cells[t]} is the flat cell index of
+     * term t and {@code comps[t]} its component. Values are set each step with {@link #sourceValues}.
+     */
+    public final void setSources(int[] cells, Component[] comps) {
+        int n = cells.length;
+        eRowStart = new int[ny + 1];
+        hRowStart = new int[ny + 1];
+        for (int t = 0; t < n; t++) {
+            (comps[t].electric ? eRowStart : hRowStart)[cells[t] / nx + 1]++;
+        }
+        for (int j = 0; j < ny; j++) {
+            eRowStart[j + 1] += eRowStart[j];
+            hRowStart[j + 1] += hRowStart[j];
+        }
+        int ne = eRowStart[ny];
+        eCell = new int[ne];
+        eComp = new Component[ne];
+        eValue = new double[ne];
+        hCell = new int[n - ne];
+        hComp = new Component[n - ne];
+        hValue = new double[n - ne];
+        int[] eNext = java.util.Arrays.copyOf(eRowStart, ny);
+        int[] hNext = java.util.Arrays.copyOf(hRowStart, ny);
+        termOrder = new int[n];
+        for (int t = 0; t < n; t++) {
+            int j = cells[t] / nx;
+            if (comps[t].electric) {
+                int e = eNext[j]++;
+                termOrder[t] = e;
+                eCell[e] = cells[t];
+                eComp[e] = comps[t];
+            } else {
+                int h = hNext[j]++;
+                termOrder[t] = -1 - h;
+                hCell[h] = cells[t];
+                hComp[h] = comps[t];
+            }
+        }
+    }
+
+    private int[] termOrder = new int[0];
+
+    /** Sets the value of source term t (in the order given to {@link #setSources}) for the coming step. */
+    public final void sourceValue(int t, double v) {
+        int o = termOrder[t];
+        if (o >= 0) {
+            eValue[o] = v;
+        } else {
+            hValue[-1 - o] = v;
+        }
+    }
+
+    /** Convenience: sets all source values at once. */
+    public final void sourceValues(double[] v) {
+        for (int t = 0; t < v.length; t++) {
+            sourceValue(t, v[t]);
+        }
+    }
+
+    /**
+     * Runs one phase of one step over the band of rows [j0, j1).
+     *
+     * @param flush when true, values below the flush threshold are set to zero in every row the
+     *              phase updates, and the largest field magnitude met is returned (NaN if any)
+     * @return the largest magnitude met when flushing, else 0
+     */
+    public final double sweep(int j0, int j1, int phase, boolean flush) {
+        double max = 0;
+        if (phase == 0) {
+            max = hRowFull(j1 - 1, flush, max);
+        } else {
+            for (int j = j0; j < j1; j++) {
+                if (j < j1 - 1) {
+                    max = hRowFull(j, flush, max);
+                }
+                eRow(j);
+                for (int t = eRowStart[j]; t < eRowStart[j + 1]; t++) {
+                    addSource(eComp[t], eCell[t], eValue[t]);
+                }
+                if (flush) {
+                    max = maxOf(max, flushE(j));
+                }
+            }
+        }
+        return max;
+    }
+
+    private double hRowFull(int j, boolean flush, double max) {
+        hRow(j);
+        for (int t = hRowStart[j]; t < hRowStart[j + 1]; t++) {
+            addSource(hComp[t], hCell[t], hValue[t]);
+        }
+        return flush ? maxOf(max, flushH(j)) : max;
+    }
+
+    /** Max that propagates NaN. */
+    static double maxOf(double a, double b) {
+        return Math.max(a, b);
+    }
+
+    /** Magnetic update of row j, including CPML corrections. */
+    protected abstract void hRow(int j);
+
+    /** Electric update of row j, including walls and CPML corrections. */
+    protected abstract void eRow(int j);
+
+    /** Applies a soft source term to one cell. */
+    protected abstract void addSource(Component c, int k, double v);
+
+    /** Flushes tiny magnetic values of row j; returns the largest magnitude in the row. */
+    protected abstract double flushH(int j);
+
+    /** Flushes tiny electric values of row j; returns the largest magnitude in the row. */
+    protected abstract double flushE(int j);
+
+    /** The value of a component at flat cell index k. */
+    public abstract double get(Component c, int k);
+
+    /** Overwrites a component at flat cell index k (for initial conditions and tests). */
+    public abstract void set(Component c, int k, double v);
+
+    /**
+     * Electromagnetic energy in the cells i0 ≤ i &lt; i1, j0 ≤ j &lt; j1, in units of ε0Δ²/2 times
+     * (V/m)²: Σ εr E² + H·H', with H' the magnetic field half a step later computed from the
+     * current E without changing the state. This staggered product is the quantity the Yee scheme
+     * conserves exactly in a closed lossless cavity (Taflove &amp; Hagness ch. 4, energy
+     * argument; verified by EnergyConservationTest). Cells inside a PML are counted without the
+     * stretching, so keep the region outside it.
+     */
+    public abstract double energy(int i0, int j0, int i1, int j1);
+
+    /** Bytes of field, coefficient and auxiliary arrays held. */
+    public abstract long bytes();
+
+    /** Bytes of the arrays that exist in every cell (fields and coefficients), per cell. */
+    public abstract int bytesPerCell();
+}

@@ -1,0 +1,169 @@
+package org.evanesce.solver.kernel;
+
+import java.util.Map;
+import org.evanesce.geometry.FieldSite;
+import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.solver.boundary.Boundary;
+import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Side;
+
+/**
+ * p polarization (Hz, Ex, Ey) in single precision. Ex and Ey have their own coefficients, so the
+ * per-component permittivities of subpixel smoothing apply. {@link DoubleP} is the same in
+ * double; change both together.
+ */
+final class FloatP extends Engine {
+
+    final float[] hz, ex, ey, cax, cbx, cay, cby;
+    private final float s;
+    /** x strips correct Hz (ψH) and Ey (ψE); y strips correct Hz (ψH) and Ex (ψE). */
+    private final FloatStrip[] xs, ys;
+
+    FloatP(MaterialGrid grid, double courant, double dt, Map<Side, Boundary> sides) {
+        super(grid.nx(), grid.ny(), courant, sides);
+        int n = nx * ny;
+        s = (float) courant;
+        hz = new float[n];
+        ex = new float[n];
+        ey = new float[n];
+        double[][] cx = coefficients(grid, FieldSite.EX, courant, dt);
+        double[][] cy = coefficients(grid, FieldSite.EY, courant, dt);
+        cax = FloatS.toFloat(cx[0]);
+        cbx = FloatS.toFloat(cx[1]);
+        cay = FloatS.toFloat(cy[0]);
+        cby = FloatS.toFloat(cy[1]);
+        xs = new FloatStrip[xProfiles.length];
+        for (int q = 0; q < xs.length; q++) {
+            xs[q] = new FloatStrip(xProfiles[q], ny * xProfiles[q].layers);
+        }
+        ys = new FloatStrip[yProfiles.length];
+        for (int q = 0; q < ys.length; q++) {
+            ys[q] = new FloatStrip(yProfiles[q], nx * yProfiles[q].layers);
+        }
+    }
+
+    @Override
+    protected void hRow(int j) {
+        if (j >= ny - 1) {
+            return;
+        }
+        FloatKernels.pH(hz, ex, ey, nx, j, s);
+        for (FloatStrip x : xs) {
+            FloatKernels.pmlAlongX(hz, ey, null, s, -1f, true, nx, j, x, x.psiH, 0, x.layers);
+        }
+        int q = yStripOfRow[j];
+        if (q >= 0) {
+            FloatStrip y = ys[q];
+            FloatKernels.pmlAlongY(hz, ex, null, s, 1f, true, nx, j - y.start, y, y.psiH, 0, nx - 1);
+        }
+    }
+
+    @Override
+    protected void eRow(int j) {
+        boolean wallRow = j == 0 || j == ny - 1;
+        // Ex: interior rows, or a PMC wall row
+        if (!wallRow) {
+            FloatKernels.pEx(hz, ex, cax, cbx, nx, j);
+        } else if (j == 0 ? pmcBottom : pmcTop) {
+            for (int i = 0; i < nx - 1; i++) {
+                FloatKernels.pExEdge(hz, ex, cax, cbx, nx, i, j);
+            }
+        }
+        boolean exUpdated = !wallRow || (j == 0 ? pmcBottom : pmcTop);
+        int q = yStripOfRow[j];
+        if (exUpdated && q >= 0) {
+            FloatStrip y = ys[q];
+            int jj = j - y.start;
+            if (jj >= 1) {
+                FloatKernels.pmlAlongY(ex, hz, cbx, 0f, 1f, false, nx, jj, y, y.psiE, 0, nx - 1);
+            }
+        }
+        // Ey: rows 0..ny-2
+        if (j < ny - 1) {
+            FloatKernels.pEy(hz, ey, cay, cby, nx, j);
+            if (pmcLeft) {
+                FloatKernels.pEyEdge(hz, ey, cay, cby, nx, 0, j);
+            }
+            if (pmcRight) {
+                FloatKernels.pEyEdge(hz, ey, cay, cby, nx, nx - 1, j);
+            }
+            for (FloatStrip x : xs) {
+                FloatKernels.pmlAlongX(ey, hz, cby, 0f, -1f, false, nx, j, x, x.psiE, 1, x.layers);
+            }
+        }
+    }
+
+    @Override
+    protected void addSource(Component c, int k, double v) {
+        switch (c) {
+            case EX -> ex[k] -= (float) (cbx[k] * v);
+            case EY -> ey[k] -= (float) (cby[k] * v);
+            case HZ -> hz[k] -= (float) (s * v);
+            default -> throw new IllegalArgumentException(c + " is not a p-polarization component");
+        }
+    }
+
+    @Override
+    protected double flushH(int j) {
+        int r = j * nx;
+        return FloatKernels.flush(hz, r, r + nx);
+    }
+
+    @Override
+    protected double flushE(int j) {
+        int r = j * nx;
+        return maxOf(FloatKernels.flush(ex, r, r + nx), FloatKernels.flush(ey, r, r + nx));
+    }
+
+    private float[] array(Component c) {
+        return switch (c) {
+            case HZ -> hz;
+            case EX -> ex;
+            case EY -> ey;
+            default -> throw new IllegalArgumentException(c + " is not a p-polarization component");
+        };
+    }
+
+    @Override
+    public double get(Component c, int k) {
+        return array(c)[k];
+    }
+
+    @Override
+    public void set(Component c, int k, double v) {
+        array(c)[k] = (float) v;
+    }
+
+    @Override
+    public double energy(int i0, int j0, int i1, int j1) {
+        double w = 0;
+        for (int j = j0; j < j1; j++) {
+            for (int i = i0; i < i1; i++) {
+                int k = j * nx + i;
+                double epsX = courant * (1.0 + cax[k]) / (2.0 * cbx[k]);
+                double epsY = courant * (1.0 + cay[k]) / (2.0 * cby[k]);
+                double hzNext = i < nx - 1 && j < ny - 1
+                        ? hz[k] + s * ((ex[k + nx] - ex[k]) - (ey[k + 1] - ey[k])) : 0.0;
+                w += epsX * ex[k] * ex[k] + epsY * ey[k] * ey[k] + hz[k] * hzNext;
+            }
+        }
+        return w;
+    }
+
+    @Override
+    public long bytes() {
+        long b = 7L * 4 * nx * ny;
+        for (FloatStrip x : xs) {
+            b += 8L * x.psiH.length;
+        }
+        for (FloatStrip y : ys) {
+            b += 8L * y.psiH.length;
+        }
+        return b;
+    }
+
+    @Override
+    public int bytesPerCell() {
+        return 7 * 4;
+    }
+}

@@ -1,0 +1,164 @@
+package org.evanesce.solver.kernel;
+
+import java.util.Map;
+import org.evanesce.geometry.FieldSite;
+import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.solver.boundary.Boundary;
+import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Side;
+
+/** s polarization (Ez, Hx, Hy) in single precision. {@link DoubleS} is the same in double; change both together. */
+final class FloatS extends Engine {
+
+    final float[] ez, hx, hy, ca, cb;
+    private final float s;
+    /** x strips correct Hy (ψH) and Ez (ψE); y strips correct Hx (ψH) and Ez (ψE). */
+    private final FloatStrip[] xs, ys;
+
+    FloatS(MaterialGrid grid, double courant, double dt, Map<Side, Boundary> sides) {
+        super(grid.nx(), grid.ny(), courant, sides);
+        int n = nx * ny;
+        s = (float) courant;
+        ez = new float[n];
+        hx = new float[n];
+        hy = new float[n];
+        double[][] c = coefficients(grid, FieldSite.EZ, courant, dt);
+        ca = toFloat(c[0]);
+        cb = toFloat(c[1]);
+        xs = new FloatStrip[xProfiles.length];
+        for (int q = 0; q < xs.length; q++) {
+            xs[q] = new FloatStrip(xProfiles[q], ny * xProfiles[q].layers);
+        }
+        ys = new FloatStrip[yProfiles.length];
+        for (int q = 0; q < ys.length; q++) {
+            ys[q] = new FloatStrip(yProfiles[q], nx * yProfiles[q].layers);
+        }
+    }
+
+    static float[] toFloat(double[] a) {
+        float[] f = new float[a.length];
+        for (int i = 0; i < a.length; i++) {
+            f[i] = (float) a[i];
+        }
+        return f;
+    }
+
+    @Override
+    protected void hRow(int j) {
+        FloatKernels.sH(ez, hx, hy, nx, ny, j, s);
+        for (FloatStrip x : xs) {
+            FloatKernels.pmlAlongX(hy, ez, null, s, 1f, true, nx, j, x, x.psiH, 0, x.layers);
+        }
+        int q = yStripOfRow[j];
+        if (q >= 0) {
+            FloatStrip y = ys[q];
+            FloatKernels.pmlAlongY(hx, ez, null, s, -1f, true, nx, j - y.start, y, y.psiH, 0, nx);
+        }
+    }
+
+    @Override
+    protected void eRow(int j) {
+        boolean wallRow = j == 0 || j == ny - 1;
+        if (!wallRow) {
+            FloatKernels.sE(ez, hx, hy, ca, cb, nx, j);
+            if (pmcLeft) {
+                FloatKernels.sEdge(ez, hx, hy, ca, cb, nx, 0, j);
+            }
+            if (pmcRight) {
+                FloatKernels.sEdge(ez, hx, hy, ca, cb, nx, nx - 1, j);
+            }
+        } else if (j == 0 ? pmcBottom : pmcTop) {
+            for (int i = pmcLeft ? 0 : 1; i <= (pmcRight ? nx - 1 : nx - 2); i++) {
+                FloatKernels.sEdge(ez, hx, hy, ca, cb, nx, i, j);
+            }
+        } else {
+            return;
+        }
+        for (FloatStrip x : xs) {
+            FloatKernels.pmlAlongX(ez, hy, cb, 0f, 1f, false, nx, j, x, x.psiE, 1, x.layers);
+        }
+        int q = yStripOfRow[j];
+        if (q >= 0) {
+            FloatStrip y = ys[q];
+            int jj = j - y.start;
+            if (jj >= 1) {
+                FloatKernels.pmlAlongY(ez, hx, cb, 0f, -1f, false, nx, jj, y, y.psiE,
+                        pmcLeft ? 0 : 1, pmcRight ? nx : nx - 1);
+            }
+        }
+    }
+
+    @Override
+    protected void addSource(Component c, int k, double v) {
+        switch (c) {
+            case EZ -> ez[k] -= (float) (cb[k] * v);
+            case HX -> hx[k] -= (float) (s * v);
+            case HY -> hy[k] -= (float) (s * v);
+            default -> throw new IllegalArgumentException(c + " is not an s-polarization component");
+        }
+    }
+
+    @Override
+    protected double flushH(int j) {
+        int r = j * nx;
+        return maxOf(FloatKernels.flush(hx, r, r + nx), FloatKernels.flush(hy, r, r + nx));
+    }
+
+    @Override
+    protected double flushE(int j) {
+        int r = j * nx;
+        return FloatKernels.flush(ez, r, r + nx);
+    }
+
+    private float[] array(Component c) {
+        return switch (c) {
+            case EZ -> ez;
+            case HX -> hx;
+            case HY -> hy;
+            default -> throw new IllegalArgumentException(c + " is not an s-polarization component");
+        };
+    }
+
+    @Override
+    public double get(Component c, int k) {
+        return array(c)[k];
+    }
+
+    @Override
+    public void set(Component c, int k, double v) {
+        array(c)[k] = (float) v;
+    }
+
+    @Override
+    public double energy(int i0, int j0, int i1, int j1) {
+        double w = 0;
+        for (int j = j0; j < j1; j++) {
+            for (int i = i0; i < i1; i++) {
+                int k = j * nx + i;
+                double e = ez[k];
+                double eps = courant * (1.0 + ca[k]) / (2.0 * cb[k]);
+                double hxNext = j < ny - 1 ? hx[k] - s * (ez[k + nx] - e) : 0.0;
+                double hyNext = i < nx - 1 ? hy[k] + s * (ez[k + 1] - e) : 0.0;
+                w += eps * e * e + hx[k] * hxNext + hy[k] * hyNext;
+            }
+        }
+        return w;
+    }
+
+    @Override
+    public long bytes() {
+        long b = 5L * 4 * nx * ny;
+        for (FloatStrip x : xs) {
+            b += 8L * x.psiH.length;
+        }
+        for (FloatStrip y : ys) {
+            b += 8L * y.psiH.length;
+        }
+        return b;
+    }
+
+    @Override
+    public int bytesPerCell() {
+        return 5 * 4;
+    }
+}

@@ -1,0 +1,33 @@
+package org.evanesce.solver.kernel;
+
+import org.evanesce.solver.boundary.PmlProfile;
+
+/** One side's CPML coefficients in single precision, with the auxiliary ψ of the two components it corrects. */
+final class FloatStrip {
+    final int start;
+    final int layers;
+    final float[] bE, cE, kE, bH, cH, kH;
+    /** ψ of the magnetic and electric component this strip corrects; sized to the strip only. */
+    final float[] psiH, psiE;
+
+    FloatStrip(PmlProfile p, int psiLength) {
+        start = p.start;
+        layers = p.layers;
+        bE = toFloat(p.bE);
+        cE = toFloat(p.cE);
+        kE = toFloat(p.kappaTermE);
+        bH = toFloat(p.bH);
+        cH = toFloat(p.cH);
+        kH = toFloat(p.kappaTermH);
+        psiH = new float[psiLength];
+        psiE = new float[psiLength];
+    }
+
+    private static float[] toFloat(double[] a) {
+        float[] f = new float[a.length];
+        for (int i = 0; i < a.length; i++) {
+            f[i] = (float) a[i];
+        }
+        return f;
+    }
+}

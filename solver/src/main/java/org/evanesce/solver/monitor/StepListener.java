@@ -1,0 +1,8 @@
+package org.evanesce.solver.monitor;
+
+/** Observes a run: called on the run's thread after every completed step. Must not keep the view. */
+@FunctionalInterface
+public interface StepListener {
+
+    void afterStep(StepView view);
+}

@@ -1,0 +1,42 @@
+package org.evanesce.solver.monitor;
+
+import org.evanesce.solver.grid.Component;
+
+/**
+ * What a step listener may read of a running simulation, between steps. After step n the
+ * electric field is at time nΔt and the magnetic field at (n − ½)Δt.
+ */
+public interface StepView {
+
+    /** Steps completed. */
+    long stepCount();
+
+    /** Time step Δt, seconds. */
+    double dt();
+
+    /** Time of the electric field now, nΔt. */
+    default double time() {
+        return stepCount() * dt();
+    }
+
+    /** Time at which a component's current values hold. */
+    default double time(Component c) {
+        return c.electric ? time() : time() - 0.5 * dt();
+    }
+
+    int nx();
+
+    int ny();
+
+    /** Cell size Δ, metres. */
+    double cellSize();
+
+    /** A component's value at node (i, j) (its site is offset per {@link Component}). */
+    double field(Component c, int i, int j);
+
+    /**
+     * Electromagnetic energy per unit length along z (J/m) in the cells i0 ≤ i &lt; i1,
+     * j0 ≤ j &lt; j1, in the staggered form the Yee scheme conserves; see the solver's documentation.
+     */
+    double energy(int i0, int j0, int i1, int j1);
+}
