@@ -356,11 +356,10 @@ public final class Simulation implements StepView, AutoCloseable {
                             s.component(), polarization, java.util.Arrays.toString(polarization.components())));
                 }
                 for (int k : s.cells()) {
-                    int i = k % nx;
-                    int j = k / nx;
-                    if (k < 0 || j >= ny || i < 1 || i > nx - 2 || j < 1 || j > ny - 2) {
-                        errors.add(String.format("source cell (%d, %d) must lie inside the walls: 1 <= i <= %d, 1 <= j <= %d",
-                                i, j, nx - 2, ny - 2));
+                    if (k < 0 || !Engine.wouldUpdate(sides, nx, ny, s.component(), k % nx, k / nx)) {
+                        errors.add(String.format("source cell (%d, %d) of %s is not a site the update changes "
+                                + "(outside the grid, on a PEC wall, or a ghost site beyond the last node)",
+                                k % nx, k / nx, s.component()));
                         break;
                     }
                 }

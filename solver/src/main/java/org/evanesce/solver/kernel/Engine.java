@@ -116,6 +116,28 @@ public abstract class Engine {
         return out;
     }
 
+    /**
+     * Whether the update ever changes component c at node (i, j): false outside the grid, on PEC
+     * walls, and on the sites beyond the last node that only serve as zero ghosts.
+     */
+    public static boolean wouldUpdate(Map<Side, Boundary> sides, int nx, int ny, Component c, int i, int j) {
+        if (i < 0 || j < 0 || i >= nx || j >= ny) {
+            return false;
+        }
+        boolean iIn = i >= (sides.get(Side.LEFT) instanceof Boundary.Pmc ? 0 : 1)
+                && i <= (sides.get(Side.RIGHT) instanceof Boundary.Pmc ? nx - 1 : nx - 2);
+        boolean jIn = j >= (sides.get(Side.BOTTOM) instanceof Boundary.Pmc ? 0 : 1)
+                && j <= (sides.get(Side.TOP) instanceof Boundary.Pmc ? ny - 1 : ny - 2);
+        return switch (c) {
+            case EZ -> iIn && jIn;
+            case HX -> j <= ny - 2;
+            case HY -> i <= nx - 2;
+            case HZ -> i <= nx - 2 && j <= ny - 2;
+            case EX -> i <= nx - 2 && jIn;
+            case EY -> j <= ny - 2 && iIn;
+        };
+    }
+
     public final int nx() {
         return nx;
     }
