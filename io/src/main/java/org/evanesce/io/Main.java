@@ -1,0 +1,109 @@
+package org.evanesce.io;
+
+import java.io.PrintStream;
+import java.io.PrintWriter;
+import java.util.concurrent.Callable;
+import org.evanesce.io.cli.BenchCommand;
+import org.evanesce.io.cli.VersionProvider;
+import org.evanesce.solver.DivergenceException;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.ParameterException;
+import picocli.CommandLine.Spec;
+
+/**
+ * The {@code evanesce} command line. Each subcommand is a {@link Callable} returning its exit code.
+ *
+ * <p>Exit codes:
+ * <ul>
+ * <li>{@value #OK}: success (also for {@code --help} and {@code --version});</li>
+ * <li>{@value #USAGE}: bad input or usage: unknown option, a value out of range, a missing
+ *     subcommand. One line on stderr says why;</li>
+ * <li>{@value #RUN_FAILED}: the run failed: the solver diverged ({@link DivergenceException}) or a
+ *     command gave up for a reason outside its input ({@link RunFailedException}, e.g. the grid did
+ *     not fit in memory);</li>
+ * <li>{@value #INTERNAL}: an unexpected internal error (a bug): the stack trace goes to stderr.</li>
+ * </ul>
+ */
+@Command(name = "evanesce", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
+        description = "2D FDTD field simulator for optical tunnelling and near-field geometries.",
+        subcommands = {BenchCommand.class},
+        exitCodeListHeading = "%nExit codes:%n",
+        exitCodeList = {
+            "0:success",
+            "2:bad input or usage",
+            "3:run failed (e.g. the solver diverged, or out of memory)",
+            "1:unexpected internal error"})
+public final class Main implements Callable<Integer> {
+
+    public static final int OK = 0;
+    public static final int INTERNAL = 1;
+    public static final int USAGE = 2;
+    public static final int RUN_FAILED = 3;
+
+    @Spec
+    private CommandSpec spec;
+
+    @Override
+    public Integer call() {
+        throw new ParameterException(spec.commandLine(), "missing command: choose one of "
+                + String.join(", ", spec.subcommands().keySet()));
+    }
+
+    public static void main(String[] args) {
+        System.exit(run(args, System.out, System.err));
+    }
+
+    /**
+     * Runs the command line in-process.
+     *
+     * @param out receives the commands' output (flushed before returning)
+     * @param err receives error messages
+     * @return the exit code (see the class comment)
+     */
+    public static int run(String[] args, PrintStream out, PrintStream err) {
+        PrintWriter o = new PrintWriter(out, true);
+        PrintWriter e = new PrintWriter(err, true);
+        CommandLine cl = new CommandLine(new Main())
+                .setOut(o)
+                .setErr(e)
+                .setCaseInsensitiveEnumValuesAllowed(true)
+                .setParameterExceptionHandler(Main::usageError)
+                .setExecutionExceptionHandler(Main::runError);
+        try {
+            return cl.execute(args);
+        } finally {
+            o.flush();
+            e.flush();
+        }
+    }
+
+    /** A usage error: one line naming the command and the reason, then exit 2. */
+    private static int usageError(ParameterException ex, String[] args) {
+        CommandLine cl = ex.getCommandLine();
+        String name = cl.getCommandSpec().qualifiedName();
+        cl.getErr().printf("%s: %s (see '%s --help')%n", name, oneLine(ex.getMessage()), name);
+        return USAGE;
+    }
+
+    private static int runError(Exception ex, CommandLine cl, CommandLine.ParseResult parsed) {
+        String name = cl.getCommandSpec().qualifiedName();
+        PrintWriter err = cl.getErr();
+        if (ex instanceof DivergenceException) {
+            err.printf("%s: run failed: %s%n", name, ex.getMessage());
+            return RUN_FAILED;
+        }
+        if (ex instanceof RunFailedException) {
+            err.printf("%s: run failed: %s%n", name, ex.getMessage());
+            return RUN_FAILED;
+        }
+        err.printf("%s: internal error: %s%n", name, ex);
+        ex.printStackTrace(err);
+        return INTERNAL;
+    }
+
+    private static String oneLine(String s) {
+        return s == null ? "invalid input" : s.strip().replaceAll("\\s*\\R\\s*", "; ");
+    }
+}

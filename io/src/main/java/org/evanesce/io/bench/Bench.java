@@ -1,0 +1,154 @@
+package org.evanesce.io.bench;
+
+import java.lang.management.CompilationMXBean;
+import java.lang.management.ManagementFactory;
+import java.util.Arrays;
+import org.evanesce.geometry.Material;
+import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.solver.PhysicalConstants;
+import org.evanesce.solver.Simulation;
+import org.evanesce.solver.boundary.Boundary;
+import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.source.Source;
+import org.evanesce.solver.source.TimeSignal;
+
+/**
+ * Times whole solver steps on a vacuum grid with a CPML on all sides and a continuous point
+ * source at the centre. The source keeps the fields from decaying, so the timing never meets
+ * subnormal numbers (which the solver guards against anyway).
+ *
+ * <p>Method: step for the warm-up time and until the step rate has settled and the JIT compiler
+ * has gone quiet, estimate the step time from the last warm-up chunk, then time {@code repeats} runs of the same number of steps, together lasting about the
+ * requested seconds, and report the median rate and the spread.
+ */
+public final class Bench {
+
+    /** CPML thickness on each side, in cells. */
+    public static final int PML_LAYERS = 12;
+    /** Cell size, in metres: the source's 1 µm vacuum wavelength spans 20 cells. */
+    public static final double CELL_SIZE = 50e-9;
+    /** Source wavelength in vacuum, in metres. */
+    public static final double WAVELENGTH = 1e-6;
+    /** Source ramp-up, in periods of the source (common practice: several periods). */
+    private static final double RAMP_PERIODS = 5;
+
+    /**
+     * How long to measure.
+     *
+     * @param warmUpSeconds untimed stepping before the measurement, in seconds (≥ 0)
+     * @param seconds       approximate total timed stepping, in seconds (&gt; 0)
+     * @param repeats       number of timed repeats whose median is reported (≥ 1)
+     */
+    public record Timing(double warmUpSeconds, double seconds, int repeats) {
+        public Timing {
+            if (!(warmUpSeconds >= 0) || Double.isInfinite(warmUpSeconds)) {
+                throw new IllegalArgumentException(String.format("warm-up %g s must be finite and >= 0", warmUpSeconds));
+            }
+            if (!(seconds > 0) || Double.isInfinite(seconds)) {
+                throw new IllegalArgumentException(String.format("timed seconds %g must be finite and > 0", seconds));
+            }
+            if (repeats < 1) {
+                throw new IllegalArgumentException("repeats " + repeats + " must be >= 1");
+            }
+        }
+    }
+
+    /**
+     * Two successive warm-up chunks whose step times differ by less than this fraction count as
+     * settled (with the JIT quiet, see {@link #JIT_QUIET_FRACTION}): before the kernels are
+     * compiled the Vector API code runs up to thousands of times slower, and successive
+     * interpreted chunks can agree too. 10% sits above the chunk-to-chunk noise of a quiet machine
+     * (common practice).
+     */
+    public static final double SETTLED_TOLERANCE = 0.10;
+    /**
+     * A warm-up chunk counts as free of JIT compilation when the compilers spent less than this
+     * fraction of the chunk's wall time (the JVM's total compilation time). Compiling the Vector
+     * API kernels takes the order of a second; while it runs the step rate is meaningless.
+     */
+    public static final double JIT_QUIET_FRACTION = 0.02;
+    /** Shortest warm-up chunk, in seconds, so that a chunk spans many steps on small grids. */
+    private static final double MIN_CHUNK_SECONDS = 0.1;
+
+    private Bench() {
+    }
+
+    /** The longest a warm-up may last waiting to settle: 4 × the requested warm-up, at least 3 s. */
+    public static double maxWarmUpSeconds(Timing t) {
+        return Math.max(3.0, 4 * t.warmUpSeconds());
+    }
+
+    /** Plans the benchmark run for one case; the caller closes it. */
+    public static Simulation simulation(BenchCase c) {
+        int n = c.size();
+        MaterialGrid grid = MaterialGrid.builder(n, n, CELL_SIZE, Material.VACUUM).build();
+        double f = PhysicalConstants.C0 / WAVELENGTH;
+        Component driven = c.polarization() == Polarization.S ? Component.EZ : Component.HZ;
+        Simulation.Builder b = Simulation.builder(grid)
+                .polarization(c.polarization())
+                .precision(c.precision())
+                .boundaries(Boundary.pml(PML_LAYERS))
+                .threads(c.threads())
+                .source(Source.point(driven, n, n / 2, n / 2, 1.0, TimeSignal.rampedContinuous(f, RAMP_PERIODS / f)));
+        if (c.minCellsPerThread() != BenchCase.SOLVER_DEFAULT) {
+            b.minCellsPerThread(c.minCellsPerThread());
+        }
+        return b.build();
+    }
+
+    /**
+     * Builds, warms up and times one case. The warm-up runs in chunks for at least the requested
+     * time and then until it has settled: two successive chunks with the JIT compiler quiet (under
+     * {@link #JIT_QUIET_FRACTION} of the chunk spent compiling) whose step times agree within
+     * {@link #SETTLED_TOLERANCE}; but no longer than {@link #maxWarmUpSeconds}.
+     */
+    public static BenchResult measure(BenchCase c, Timing t) {
+        CompilationMXBean jit = ManagementFactory.getCompilationMXBean();
+        boolean jitVisible = jit != null && jit.isCompilationTimeMonitoringSupported();
+        try (Simulation sim = simulation(c)) {
+            double chunk = Math.max(MIN_CHUNK_SECONDS, t.warmUpSeconds() / 5);
+            double cap = maxWarmUpSeconds(t);
+            long start = System.nanoTime();
+            double previous = Double.NaN;
+            boolean previousQuiet = false;
+            double stepSeconds;
+            boolean settled;
+            while (true) {
+                long jit0 = jitVisible ? jit.getTotalCompilationTime() : 0;
+                long c0 = System.nanoTime();
+                long steps = 0;
+                do {
+                    sim.step();
+                    steps++;
+                } while ((System.nanoTime() - c0) * 1e-9 < chunk);
+                double chunkSeconds = (System.nanoTime() - c0) * 1e-9;
+                stepSeconds = chunkSeconds / steps;
+                boolean quiet = !jitVisible
+                        || (jit.getTotalCompilationTime() - jit0) * 1e-3 <= JIT_QUIET_FRACTION * chunkSeconds;
+                double elapsed = (System.nanoTime() - start) * 1e-9;
+                settled = quiet && previousQuiet
+                        && Math.abs(stepSeconds - previous) <= SETTLED_TOLERANCE * Math.max(stepSeconds, previous);
+                if (elapsed >= t.warmUpSeconds() && settled || elapsed >= cap) {
+                    break;
+                }
+                previous = stepSeconds;
+                previousQuiet = quiet;
+            }
+            double warmUp = (System.nanoTime() - start) * 1e-9;
+            long perRepeat = Math.max(1, Math.round(t.seconds() / t.repeats() / stepSeconds));
+            double[] rate = new double[t.repeats()];
+            for (int r = 0; r < rate.length; r++) {
+                long t0 = System.nanoTime();
+                sim.run(perRepeat);
+                long elapsed = Math.max(1, System.nanoTime() - t0);
+                rate[r] = c.cells() * perRepeat / (elapsed * 1e-9);
+            }
+            Arrays.sort(rate);
+            int m = rate.length / 2;
+            double median = rate.length % 2 == 1 ? rate[m] : 0.5 * (rate[m - 1] + rate[m]);
+            return new BenchResult(c, sim.threads(), warmUp, settled, perRepeat, rate.length, median, rate[0],
+                    rate[rate.length - 1], sim.bytesPerCell(), sim.bytes());
+        }
+    }
+}

@@ -1,0 +1,90 @@
+package org.evanesce.io.bench;
+
+import java.io.PrintWriter;
+import java.util.Locale;
+
+/**
+ * Writes benchmark results row by row as they arrive, either as an aligned table for people or
+ * as CSV (one header row, no comments) for programs.
+ */
+public final class BenchReport {
+
+    /** How the rows are written. */
+    public enum Format {
+        TABLE, CSV
+    }
+
+    private static final String TABLE_HEAD = String.format(Locale.ROOT,
+            "%11s %4s %6s %7s %4s %9s %9s %8s %7s %6s %9s",
+            "grid", "pol", "prec", "threads", "used", "steps/s", "Mcell/s", "ns/cell", "spread", "B/cell", "MiB");
+    private static final String TABLE_ROW = "%11s %4s %6s %7d %4d %9.1f %9.1f %8.3f %6.1f%% %6d %9.1f%s%n";
+    private static final String CSV_HEAD = "size,polarization,precision,threads_requested,threads_used,steps_per_repeat,"
+            + "warm_up_s,settled,repeats,steps_per_s,mcells_per_s,ns_per_cell,spread_percent,bytes_per_cell,bytes,java,cores,jvm_preferred_vector_bits";
+
+    private final PrintWriter out;
+    private final Format format;
+    private final MachineInfo machine;
+    private double maxWarmUp;
+    private boolean anyUnsettled;
+
+    public BenchReport(PrintWriter out, Format format, MachineInfo machine) {
+        this.out = out;
+        this.format = format;
+        this.machine = machine;
+    }
+
+    /**
+     * Writes the header: for a table, the program and machine, what is measured and the column
+     * heads; for CSV, the header row only.
+     */
+    public void header(String programVersion, Bench.Timing timing, int cases) {
+        maxWarmUp = Bench.maxWarmUpSeconds(timing);
+        if (format == Format.CSV) {
+            out.println(CSV_HEAD);
+            out.flush();
+            return;
+        }
+        out.printf(Locale.ROOT, "evanesce %s bench: %s%n", programVersion, machine.describe());
+        out.printf(Locale.ROOT, "vacuum N x N grid, %d nm cells, %d-cell CPML on all sides, continuous point source at the centre%n",
+                Math.round(Bench.CELL_SIZE * 1e9), Bench.PML_LAYERS);
+        out.printf(Locale.ROOT, "%d case(s): at least %.2g s warm-up (until the rate settles), then the median of %d timed repeats over about %.2g s each case%n",
+                cases, timing.warmUpSeconds(), timing.repeats(), timing.seconds());
+        out.println("cell update = one cell's 3 field components, once; ns/cell is wall time with all threads; "
+                + "spread = (fastest - slowest) / median");
+        out.println();
+        out.println(TABLE_HEAD);
+        out.flush();
+    }
+
+    /** Writes one result. */
+    public void row(BenchResult r) {
+        BenchCase c = r.benchCase();
+        String pol = c.polarization().name().toLowerCase(Locale.ROOT);
+        String prec = c.precision().name().toLowerCase(Locale.ROOT);
+        if (format == Format.CSV) {
+            out.printf(Locale.ROOT, "%d,%s,%s,%d,%d,%d,%.3g,%b,%d,%.6g,%.6g,%.6g,%.3g,%d,%d,%s,%d,%d%n",
+                    c.size(), pol, prec, c.threads(), r.threadsUsed(), r.stepsPerRepeat(), r.warmUpSeconds(), r.settled(),
+                    r.repeats(), r.stepsPerSecond(), r.megacellsPerSecond(), r.nanosPerCell(), r.spreadPercent(),
+                    r.bytesPerCell(), r.bytes(), csvText(machine.java()), machine.cores(), machine.preferredVectorBits());
+        } else {
+            out.printf(Locale.ROOT, TABLE_ROW, c.size() + "x" + c.size(), pol, prec, c.threads(), r.threadsUsed(),
+                    r.stepsPerSecond(), r.megacellsPerSecond(), r.nanosPerCell(), r.spreadPercent(),
+                    r.bytesPerCell(), r.mebibytes(), r.settled() ? "" : " *");
+        }
+        anyUnsettled |= !r.settled();
+        out.flush();
+    }
+
+    /** Ends the report: for a table, a note under rows whose warm-up did not settle. */
+    public void footer() {
+        if (format == Format.TABLE && anyUnsettled) {
+            out.printf(Locale.ROOT, "* the step rate had not settled after %.2g s of warm-up: the machine is busy "
+                    + "or the JIT still compiling; rerun on a quiet machine or with a longer --warm-up%n", maxWarmUp);
+        }
+        out.flush();
+    }
+
+    private static String csvText(String s) {
+        return s.contains(",") || s.contains("\"") ? "\"" + s.replace("\"", "\"\"") + "\"" : s;
+    }
+}

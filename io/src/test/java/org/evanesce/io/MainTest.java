@@ -1,0 +1,101 @@
+package org.evanesce.io;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.ByteArrayOutputStream;
+import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import org.junit.jupiter.api.Test;
+
+/** Runs the command line in-process and checks exit codes and output. */
+class MainTest {
+
+    /** The exit code and what a command printed. */
+    private record Outcome(int code, String out, String err) {
+        @Override
+        public String toString() {
+            return "exit " + code + "\n--- stdout ---\n" + out + "--- stderr ---\n" + err;
+        }
+    }
+
+    private static Outcome run(String... args) {
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        ByteArrayOutputStream err = new ByteArrayOutputStream();
+        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
+                new PrintStream(err, true, StandardCharsets.UTF_8));
+        return new Outcome(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
+    }
+
+    @Test
+    void versionPrintsTheMavenVersion() {
+        Outcome o = run("--version");
+        assertEquals(Main.OK, o.code(), o::toString);
+        assertTrue(o.out().startsWith("evanesce 0."), o::toString);
+        assertTrue(!o.out().contains("unknown") && !o.out().contains("${"), "version not filtered by Maven: " + o);
+    }
+
+    @Test
+    void unknownOptionIsAUsageErrorOnOneLine() {
+        Outcome o = run("bench", "--no-such-option");
+        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals("", o.out(), o::toString);
+        assertEquals(1, o.err().lines().count(), o::toString);
+        assertTrue(o.err().contains("--no-such-option"), o::toString);
+    }
+
+    @Test
+    void missingCommandIsAUsageError() {
+        Outcome o = run();
+        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(1, o.err().lines().count(), o::toString);
+    }
+
+    @Test
+    void unknownPrecisionIsAUsageError() {
+        Outcome o = run("bench", "--precision", "quadruple");
+        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(1, o.err().lines().count(), o::toString);
+        assertTrue(o.err().contains("quadruple"), o::toString);
+    }
+
+    @Test
+    void outOfRangeValuesAreUsageErrorsBeforeAnythingRuns() {
+        for (String[] args : new String[][] {
+            {"bench", "--size", "10"}, {"bench", "--threads", "0"}, {"bench", "--seconds", "0"},
+            {"bench", "--repeats", "0"}, {"bench", "--min-cells-per-thread", "0"}, {"bench", "--threads", "many"}}) {
+            Outcome o = run(args);
+            assertEquals(Main.USAGE, o.code(), () -> String.join(" ", args) + ": " + o);
+            assertEquals("", o.out(), () -> String.join(" ", args) + ": " + o);
+            assertEquals(1, o.err().lines().count(), () -> String.join(" ", args) + ": " + o);
+        }
+    }
+
+    @Test
+    void benchReportsAPositiveRate() {
+        Outcome o = run("bench", "--size", "64", "--threads", "1", "--seconds", "0.2", "--warm-up", "0.2");
+        assertEquals(Main.OK, o.code(), o::toString);
+        Matcher m = Pattern.compile("(?m)^\\s+64x64\\s+s\\s+float\\s+1\\s+1\\s+\\S+\\s+(\\S+)\\s").matcher(o.out());
+        assertTrue(o.out().contains("Mcell/s") && m.find(), o::toString);
+        assertTrue(Double.parseDouble(m.group(1)) > 0, o::toString);
+    }
+
+    @Test
+    void benchCsvHasOneRowPerCase() {
+        Outcome o = run("bench", "--csv", "--size", "48", "--size", "64", "--threads", "1", "--seconds", "0.05",
+                "--warm-up", "0", "--repeats", "1");
+        assertEquals(Main.OK, o.code(), o::toString);
+        String[] lines = o.out().split("\\R");
+        assertEquals(3, lines.length, o::toString);
+        String[] head = lines[0].split(",");
+        int mcells = java.util.Arrays.asList(head).indexOf("mcells_per_s");
+        for (int r = 1; r < lines.length; r++) {
+            String[] cells = lines[r].split(",");
+            assertEquals(head.length, cells.length, o::toString);
+            assertTrue(Double.parseDouble(cells[mcells]) > 0, o::toString);
+        }
+        assertTrue(lines[1].startsWith("48,s,float,1,1,") && lines[2].startsWith("64,s,float,1,1,"), o::toString);
+    }
+}
