@@ -61,11 +61,28 @@ final class DoubleKernels {
         }
     }
 
-    /** s, interior row 1 ≤ j ≤ ny−2, columns 1..nx−2: Ez ← ca·Ez + cb·((Hy(i) − Hy(i−1)) − (Hx(j) − Hx(j−1))). */
+    /**
+     * s, interior row 1 ≤ j ≤ ny−2, columns 1..nx−2: Ez ← ca·Ez + cb·((Hy(i) − Hy(i−1)) − (Hx(j) − Hx(j−1))).
+     * {@code ca == null} means ca = 1 everywhere (no conductivity): one array less to stream.
+     */
     static void sE(double[] ez, double[] hx, double[] hy, double[] ca, double[] cb, int nx, int j) {
         int r = j * nx;
         int end = nx - 1;
         int i = 1;
+        if (ca == null) {
+            for (; i <= end - VL; i += VL) {
+                int k = r + i;
+                DoubleVector curl = DoubleVector.fromArray(SP, hy, k).sub(DoubleVector.fromArray(SP, hy, k - 1))
+                        .sub(DoubleVector.fromArray(SP, hx, k).sub(DoubleVector.fromArray(SP, hx, k - nx)));
+                DoubleVector.fromArray(SP, ez, k).add(DoubleVector.fromArray(SP, cb, k).mul(curl)).intoArray(ez, k);
+            }
+            for (; i < end; i++) {
+                int k = r + i;
+                double curl = (hy[k] - hy[k - 1]) - (hx[k] - hx[k - nx]);
+                ez[k] = ez[k] + cb[k] * curl;
+            }
+            return;
+        }
         for (; i <= end - VL; i += VL) {
             int k = r + i;
             DoubleVector curl = DoubleVector.fromArray(SP, hy, k).sub(DoubleVector.fromArray(SP, hy, k - 1))
@@ -86,7 +103,7 @@ final class DoubleKernels {
         double hyW = i > 0 ? hy[k - 1] : 0.0;
         double hxS = j > 0 ? hx[k - nx] : 0.0;
         double curl = (hy[k] - hyW) - (hx[k] - hxS);
-        ez[k] = ca[k] * ez[k] + cb[k] * curl;
+        ez[k] = (ca == null ? ez[k] : ca[k] * ez[k]) + cb[k] * curl;
     }
 
     /** p, row j ≤ ny−2, columns 0..nx−2: Hz += s·((Ex(j+1) − Ex(j)) − (Ey(i+1) − Ey(i))). */
@@ -107,11 +124,23 @@ final class DoubleKernels {
         }
     }
 
-    /** p, interior row 1 ≤ j ≤ ny−2, columns 0..nx−2: Ex ← cax·Ex + cbx·(Hz(j) − Hz(j−1)). */
+    /** p, interior row 1 ≤ j ≤ ny−2, columns 0..nx−2: Ex ← cax·Ex + cbx·(Hz(j) − Hz(j−1)); {@code ca == null} means 1. */
     static void pEx(double[] hz, double[] ex, double[] ca, double[] cb, int nx, int j) {
         int r = j * nx;
         int n = nx - 1;
         int i = 0;
+        if (ca == null) {
+            for (; i <= n - VL; i += VL) {
+                int k = r + i;
+                DoubleVector d = DoubleVector.fromArray(SP, hz, k).sub(DoubleVector.fromArray(SP, hz, k - nx));
+                DoubleVector.fromArray(SP, ex, k).add(DoubleVector.fromArray(SP, cb, k).mul(d)).intoArray(ex, k);
+            }
+            for (; i < n; i++) {
+                int k = r + i;
+                ex[k] = ex[k] + cb[k] * (hz[k] - hz[k - nx]);
+            }
+            return;
+        }
         for (; i <= n - VL; i += VL) {
             int k = r + i;
             DoubleVector d = DoubleVector.fromArray(SP, hz, k).sub(DoubleVector.fromArray(SP, hz, k - nx));
@@ -124,11 +153,23 @@ final class DoubleKernels {
         }
     }
 
-    /** p, row j ≤ ny−2, columns 1..nx−2: Ey ← cay·Ey − cby·(Hz(i) − Hz(i−1)). */
+    /** p, row j ≤ ny−2, columns 1..nx−2: Ey ← cay·Ey − cby·(Hz(i) − Hz(i−1)); {@code ca == null} means 1. */
     static void pEy(double[] hz, double[] ey, double[] ca, double[] cb, int nx, int j) {
         int r = j * nx;
         int end = nx - 1;
         int i = 1;
+        if (ca == null) {
+            for (; i <= end - VL; i += VL) {
+                int k = r + i;
+                DoubleVector d = DoubleVector.fromArray(SP, hz, k).sub(DoubleVector.fromArray(SP, hz, k - 1));
+                DoubleVector.fromArray(SP, ey, k).sub(DoubleVector.fromArray(SP, cb, k).mul(d)).intoArray(ey, k);
+            }
+            for (; i < end; i++) {
+                int k = r + i;
+                ey[k] = ey[k] - cb[k] * (hz[k] - hz[k - 1]);
+            }
+            return;
+        }
         for (; i <= end - VL; i += VL) {
             int k = r + i;
             DoubleVector d = DoubleVector.fromArray(SP, hz, k).sub(DoubleVector.fromArray(SP, hz, k - 1));
@@ -145,65 +186,152 @@ final class DoubleKernels {
     static void pExEdge(double[] hz, double[] ex, double[] ca, double[] cb, int nx, int i, int j) {
         int k = j * nx + i;
         double hzS = j > 0 ? hz[k - nx] : 0.0;
-        ex[k] = ca[k] * ex[k] + cb[k] * (hz[k] - hzS);
+        ex[k] = (ca == null ? ex[k] : ca[k] * ex[k]) + cb[k] * (hz[k] - hzS);
     }
 
     /** p, Ey on a PMC wall column (i = 0 or nx−1), with Hz beyond the wall taken as zero. */
     static void pEyEdge(double[] hz, double[] ey, double[] ca, double[] cb, int nx, int i, int j) {
         int k = j * nx + i;
         double hzW = i > 0 ? hz[k - 1] : 0.0;
-        ey[k] = ca[k] * ey[k] - cb[k] * (hz[k] - hzW);
+        ey[k] = (ca == null ? ey[k] : ca[k] * ey[k]) - cb[k] * (hz[k] - hzW);
     }
 
     /**
-     * CPML correction along x of row j, cells i = start + ii for ii in [ii0, ii1):
-     * ψ ← bψ + c·d, f += sign·coef·(kappaTerm·d + ψ), with d = g(i+1) − g(i) when {@code forward}
-     * (magnetic update, coef = s) or g(i) − g(i−1) otherwise (electric update, coef = cb(i)).
-     * ψ is indexed {@code psi[j*layers + ii]}.
+     * CPML correction of a magnetic component along x in row j, cells i = start + ii for ii in
+     * [0, layers): with d = g(i+1) − g(i), ψ ← bψ + c·d and f += coef·(kappaTerm·d + ψ), where
+     * coef is ±s. ψ is indexed {@code psi[j*layers + ii]}; values of ψ below {@link #TINY} are set to zero.
      */
-    static void pmlAlongX(double[] f, double[] g, double[] cb, double s, double sign, boolean forward,
-                          int nx, int j, DoubleStrip st, double[] psi, int ii0, int ii1) {
+    static void pmlXH(double[] f, double[] g, double coef, int nx, int j, DoubleStrip st, double[] psi) {
         int base = j * nx + st.start;
         int pb = j * st.layers;
-        double[] b = forward ? st.bH : st.bE;
-        double[] c = forward ? st.cH : st.cE;
-        double[] kt = forward ? st.kH : st.kE;
-        for (int ii = ii0; ii < ii1; ii++) {
+        int n = st.layers;
+        DoubleVector vc = DoubleVector.broadcast(SP, coef);
+        int ii = 0;
+        for (; ii <= n - VL; ii += VL) {
             int k = base + ii;
-            double d = forward ? g[k + 1] - g[k] : g[k] - g[k - 1];
-            int p = pb + ii;
-            double ps = b[ii] * psi[p] + c[ii] * d;
+            DoubleVector d = DoubleVector.fromArray(SP, g, k + 1).sub(DoubleVector.fromArray(SP, g, k));
+            DoubleVector ps = DoubleVector.fromArray(SP, st.bH, ii).mul(DoubleVector.fromArray(SP, psi, pb + ii))
+                    .add(DoubleVector.fromArray(SP, st.cH, ii).mul(d));
+            ps = ps.blend(0.0, ps.abs().lt(TINY));
+            ps.intoArray(psi, pb + ii);
+            DoubleVector.fromArray(SP, f, k).add(vc.mul(DoubleVector.fromArray(SP, st.kH, ii).mul(d).add(ps))).intoArray(f, k);
+        }
+        for (; ii < n; ii++) {
+            int k = base + ii;
+            double d = g[k + 1] - g[k];
+            double ps = st.bH[ii] * psi[pb + ii] + st.cH[ii] * d;
             if (Math.abs(ps) < TINY) {
                 ps = 0.0;
             }
-            psi[p] = ps;
-            double coef = cb == null ? s : cb[k];
-            f[k] += sign * (coef * (kt[ii] * d + ps));
+            psi[pb + ii] = ps;
+            f[k] = f[k] + coef * (st.kH[ii] * d + ps);
         }
     }
 
     /**
-     * CPML correction along y of row j = start + jj, cells i in [i0, i1): as {@link #pmlAlongX}
-     * with differences across rows; ψ is indexed {@code psi[jj*nx + i]}.
+     * CPML correction of an electric component along x in row j, cells i = start + ii for ii in
+     * [1, layers): with d = g(i) − g(i−1), ψ ← bψ + c·d and f ± = cb(i)·(kappaTerm·d + ψ)
+     * (subtracted when {@code subtract}). ψ is indexed {@code psi[j*layers + ii]}.
      */
-    static void pmlAlongY(double[] f, double[] g, double[] cb, double s, double sign, boolean forward,
-                          int nx, int jj, DoubleStrip st, double[] psi, int i0, int i1) {
-        int r = (st.start + jj) * nx;
-        int pb = jj * nx;
-        double b = forward ? st.bH[jj] : st.bE[jj];
-        double c = forward ? st.cH[jj] : st.cE[jj];
-        double kt = forward ? st.kH[jj] : st.kE[jj];
-        for (int i = i0; i < i1; i++) {
-            int k = r + i;
-            double d = forward ? g[k + nx] - g[k] : g[k] - g[k - nx];
-            int p = pb + i;
-            double ps = b * psi[p] + c * d;
+    static void pmlXE(double[] f, double[] g, double[] cb, boolean subtract, int nx, int j, DoubleStrip st, double[] psi) {
+        int base = j * nx + st.start;
+        int pb = j * st.layers;
+        int n = st.layers;
+        int ii = 1;
+        for (; ii <= n - VL; ii += VL) {
+            int k = base + ii;
+            DoubleVector d = DoubleVector.fromArray(SP, g, k).sub(DoubleVector.fromArray(SP, g, k - 1));
+            DoubleVector ps = DoubleVector.fromArray(SP, st.bE, ii).mul(DoubleVector.fromArray(SP, psi, pb + ii))
+                    .add(DoubleVector.fromArray(SP, st.cE, ii).mul(d));
+            ps = ps.blend(0.0, ps.abs().lt(TINY));
+            ps.intoArray(psi, pb + ii);
+            DoubleVector t = DoubleVector.fromArray(SP, cb, k).mul(DoubleVector.fromArray(SP, st.kE, ii).mul(d).add(ps));
+            DoubleVector fv = DoubleVector.fromArray(SP, f, k);
+            (subtract ? fv.sub(t) : fv.add(t)).intoArray(f, k);
+        }
+        for (; ii < n; ii++) {
+            int k = base + ii;
+            double d = g[k] - g[k - 1];
+            double ps = st.bE[ii] * psi[pb + ii] + st.cE[ii] * d;
             if (Math.abs(ps) < TINY) {
                 ps = 0.0;
             }
-            psi[p] = ps;
-            double coef = cb == null ? s : cb[k];
-            f[k] += sign * (coef * (kt * d + ps));
+            psi[pb + ii] = ps;
+            double t = cb[k] * (st.kE[ii] * d + ps);
+            f[k] = subtract ? f[k] - t : f[k] + t;
+        }
+    }
+
+    /**
+     * CPML correction of a magnetic component along y in row j = start + jj, cells i in [0, i1):
+     * d = g(j+1) − g(j), otherwise as {@link #pmlXH}; ψ is indexed {@code psi[jj*nx + i]}.
+     */
+    static void pmlYH(double[] f, double[] g, double coef, int nx, int jj, DoubleStrip st, double[] psi, int i1) {
+        int r = (st.start + jj) * nx;
+        int pb = jj * nx;
+        double b = st.bH[jj];
+        double c = st.cH[jj];
+        double kt = st.kH[jj];
+        DoubleVector vb = DoubleVector.broadcast(SP, b);
+        DoubleVector vcc = DoubleVector.broadcast(SP, c);
+        DoubleVector vk = DoubleVector.broadcast(SP, kt);
+        DoubleVector vc = DoubleVector.broadcast(SP, coef);
+        int i = 0;
+        for (; i <= i1 - VL; i += VL) {
+            int k = r + i;
+            DoubleVector d = DoubleVector.fromArray(SP, g, k + nx).sub(DoubleVector.fromArray(SP, g, k));
+            DoubleVector ps = vb.mul(DoubleVector.fromArray(SP, psi, pb + i)).add(vcc.mul(d));
+            ps = ps.blend(0.0, ps.abs().lt(TINY));
+            ps.intoArray(psi, pb + i);
+            DoubleVector.fromArray(SP, f, k).add(vc.mul(vk.mul(d).add(ps))).intoArray(f, k);
+        }
+        for (; i < i1; i++) {
+            int k = r + i;
+            double d = g[k + nx] - g[k];
+            double ps = b * psi[pb + i] + c * d;
+            if (Math.abs(ps) < TINY) {
+                ps = 0.0;
+            }
+            psi[pb + i] = ps;
+            f[k] = f[k] + coef * (kt * d + ps);
+        }
+    }
+
+    /**
+     * CPML correction of an electric component along y in row j = start + jj, cells i in [i0, i1):
+     * d = g(j) − g(j−1), otherwise as {@link #pmlXE}; ψ is indexed {@code psi[jj*nx + i]}.
+     */
+    static void pmlYE(double[] f, double[] g, double[] cb, boolean subtract, int nx, int jj, DoubleStrip st, double[] psi,
+                      int i0, int i1) {
+        int r = (st.start + jj) * nx;
+        int pb = jj * nx;
+        double b = st.bE[jj];
+        double c = st.cE[jj];
+        double kt = st.kE[jj];
+        DoubleVector vb = DoubleVector.broadcast(SP, b);
+        DoubleVector vcc = DoubleVector.broadcast(SP, c);
+        DoubleVector vk = DoubleVector.broadcast(SP, kt);
+        int i = i0;
+        for (; i <= i1 - VL; i += VL) {
+            int k = r + i;
+            DoubleVector d = DoubleVector.fromArray(SP, g, k).sub(DoubleVector.fromArray(SP, g, k - nx));
+            DoubleVector ps = vb.mul(DoubleVector.fromArray(SP, psi, pb + i)).add(vcc.mul(d));
+            ps = ps.blend(0.0, ps.abs().lt(TINY));
+            ps.intoArray(psi, pb + i);
+            DoubleVector t = DoubleVector.fromArray(SP, cb, k).mul(vk.mul(d).add(ps));
+            DoubleVector fv = DoubleVector.fromArray(SP, f, k);
+            (subtract ? fv.sub(t) : fv.add(t)).intoArray(f, k);
+        }
+        for (; i < i1; i++) {
+            int k = r + i;
+            double d = g[k] - g[k - nx];
+            double ps = b * psi[pb + i] + c * d;
+            if (Math.abs(ps) < TINY) {
+                ps = 0.0;
+            }
+            psi[pb + i] = ps;
+            double t = cb[k] * (kt * d + ps);
+            f[k] = subtract ? f[k] - t : f[k] + t;
         }
     }
 

@@ -14,7 +14,9 @@ import org.evanesce.solver.grid.Side;
  */
 final class DoubleP extends Engine {
 
-    final double[] hz, ex, ey, cax, cbx, cay, cby;
+    final double[] hz, ex, ey, cbx, cby;
+    /** ca per cell, or null when every cell at that site is lossless (ca = 1). */
+    final double[] cax, cay;
     private final double s;
     /** x strips correct Hz (ψH) and Ey (ψE); y strips correct Hz (ψH) and Ex (ψE). */
     private final DoubleStrip[] xs, ys;
@@ -28,9 +30,9 @@ final class DoubleP extends Engine {
         ey = new double[n];
         double[][] cx = coefficients(grid, FieldSite.EX, courant, dt);
         double[][] cy = coefficients(grid, FieldSite.EY, courant, dt);
-        cax = cx[0];
+        cax = Engine.allOnes(cx[0]) ? null : cx[0];
         cbx = cx[1];
-        cay = cy[0];
+        cay = Engine.allOnes(cy[0]) ? null : cy[0];
         cby = cy[1];
         xs = new DoubleStrip[xProfiles.length];
         for (int q = 0; q < xs.length; q++) {
@@ -49,12 +51,12 @@ final class DoubleP extends Engine {
         }
         DoubleKernels.pH(hz, ex, ey, nx, j, s);
         for (DoubleStrip x : xs) {
-            DoubleKernels.pmlAlongX(hz, ey, null, s, -1.0, true, nx, j, x, x.psiH, 0, x.layers);
+            DoubleKernels.pmlXH(hz, ey, -s, nx, j, x, x.psiH);
         }
         int q = yStripOfRow[j];
         if (q >= 0) {
             DoubleStrip y = ys[q];
-            DoubleKernels.pmlAlongY(hz, ex, null, s, 1.0, true, nx, j - y.start, y, y.psiH, 0, nx - 1);
+            DoubleKernels.pmlYH(hz, ex, s, nx, j - y.start, y, y.psiH, nx - 1);
         }
     }
 
@@ -75,7 +77,7 @@ final class DoubleP extends Engine {
             DoubleStrip y = ys[q];
             int jj = j - y.start;
             if (jj >= 1) {
-                DoubleKernels.pmlAlongY(ex, hz, cbx, 0.0, 1.0, false, nx, jj, y, y.psiE, 0, nx - 1);
+                DoubleKernels.pmlYE(ex, hz, cbx, false, nx, jj, y, y.psiE, 0, nx - 1);
             }
         }
         // Ey: rows 0..ny-2
@@ -88,7 +90,7 @@ final class DoubleP extends Engine {
                 DoubleKernels.pEyEdge(hz, ey, cay, cby, nx, nx - 1, j);
             }
             for (DoubleStrip x : xs) {
-                DoubleKernels.pmlAlongX(ey, hz, cby, 0.0, -1.0, false, nx, j, x, x.psiE, 1, x.layers);
+                DoubleKernels.pmlXE(ey, hz, cby, true, nx, j, x, x.psiE);
             }
         }
     }
@@ -140,8 +142,8 @@ final class DoubleP extends Engine {
         for (int j = j0; j < j1; j++) {
             for (int i = i0; i < i1; i++) {
                 int k = j * nx + i;
-                double epsX = courant * (1.0 + cax[k]) / (2.0 * cbx[k]);
-                double epsY = courant * (1.0 + cay[k]) / (2.0 * cby[k]);
+                double epsX = courant * (1.0 + (cax == null ? 1.0 : cax[k])) / (2.0 * cbx[k]);
+                double epsY = courant * (1.0 + (cay == null ? 1.0 : cay[k])) / (2.0 * cby[k]);
                 double hzNext = i < nx - 1 && j < ny - 1
                         ? hz[k] + s * ((ex[k + nx] - ex[k]) - (ey[k + 1] - ey[k])) : 0.0;
                 w += epsX * ex[k] * ex[k] + epsY * ey[k] * ey[k] + hz[k] * hzNext;
@@ -152,7 +154,7 @@ final class DoubleP extends Engine {
 
     @Override
     public long bytes() {
-        long b = 7L * 8 * nx * ny;
+        long b = bytesPerCell() * (long) nx * ny;
         for (DoubleStrip x : xs) {
             b += 16L * x.psiH.length;
         }
@@ -164,6 +166,6 @@ final class DoubleP extends Engine {
 
     @Override
     public int bytesPerCell() {
-        return 7 * 8;
+        return (5 + (cax == null ? 0 : 1) + (cay == null ? 0 : 1)) * 8;
     }
 }

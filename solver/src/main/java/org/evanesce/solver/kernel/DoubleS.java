@@ -10,7 +10,9 @@ import org.evanesce.solver.grid.Side;
 /** s polarization (Ez, Hx, Hy) in double precision. {@link FloatS} is the same in single precision; change both together. */
 final class DoubleS extends Engine {
 
-    final double[] ez, hx, hy, ca, cb;
+    final double[] ez, hx, hy, cb;
+    /** ca per cell, or null when every cell is lossless (ca = 1). */
+    final double[] ca;
     private final double s;
     /** x strips correct Hy (ψH) and Ez (ψE); y strips correct Hx (ψH) and Ez (ψE). */
     private final DoubleStrip[] xs, ys;
@@ -23,7 +25,7 @@ final class DoubleS extends Engine {
         hx = new double[n];
         hy = new double[n];
         double[][] c = coefficients(grid, FieldSite.EZ, courant, dt);
-        ca = c[0];
+        ca = Engine.allOnes(c[0]) ? null : c[0];
         cb = c[1];
         xs = new DoubleStrip[xProfiles.length];
         for (int q = 0; q < xs.length; q++) {
@@ -40,12 +42,12 @@ final class DoubleS extends Engine {
     protected void hRow(int j) {
         DoubleKernels.sH(ez, hx, hy, nx, ny, j, s);
         for (DoubleStrip x : xs) {
-            DoubleKernels.pmlAlongX(hy, ez, null, s, 1.0, true, nx, j, x, x.psiH, 0, x.layers);
+            DoubleKernels.pmlXH(hy, ez, s, nx, j, x, x.psiH);
         }
         int q = yStripOfRow[j];
         if (q >= 0) {
             DoubleStrip y = ys[q];
-            DoubleKernels.pmlAlongY(hx, ez, null, s, -1.0, true, nx, j - y.start, y, y.psiH, 0, nx);
+            DoubleKernels.pmlYH(hx, ez, -s, nx, j - y.start, y, y.psiH, nx);
         }
     }
 
@@ -68,14 +70,14 @@ final class DoubleS extends Engine {
             return;
         }
         for (DoubleStrip x : xs) {
-            DoubleKernels.pmlAlongX(ez, hy, cb, 0.0, 1.0, false, nx, j, x, x.psiE, 1, x.layers);
+            DoubleKernels.pmlXE(ez, hy, cb, false, nx, j, x, x.psiE);
         }
         int q = yStripOfRow[j];
         if (q >= 0) {
             DoubleStrip y = ys[q];
             int jj = j - y.start;
             if (jj >= 1) {
-                DoubleKernels.pmlAlongY(ez, hx, cb, 0.0, -1.0, false, nx, jj, y, y.psiE,
+                DoubleKernels.pmlYE(ez, hx, cb, true, nx, jj, y, y.psiE,
                         pmcLeft ? 0 : 1, pmcRight ? nx : nx - 1);
             }
         }
@@ -129,7 +131,7 @@ final class DoubleS extends Engine {
             for (int i = i0; i < i1; i++) {
                 int k = j * nx + i;
                 double e = ez[k];
-                double eps = courant * (1.0 + ca[k]) / (2.0 * cb[k]);
+                double eps = courant * (1.0 + (ca == null ? 1.0 : ca[k])) / (2.0 * cb[k]);
                 double hxNext = j < ny - 1 ? hx[k] - s * (ez[k + nx] - e) : 0.0;
                 double hyNext = i < nx - 1 ? hy[k] + s * (ez[k + 1] - e) : 0.0;
                 w += eps * e * e + hx[k] * hxNext + hy[k] * hyNext;
@@ -140,7 +142,7 @@ final class DoubleS extends Engine {
 
     @Override
     public long bytes() {
-        long b = 5L * 8 * nx * ny;
+        long b = bytesPerCell() * (long) nx * ny;
         for (DoubleStrip x : xs) {
             b += 16L * x.psiH.length;
         }
@@ -152,6 +154,6 @@ final class DoubleS extends Engine {
 
     @Override
     public int bytesPerCell() {
-        return 5 * 8;
+        return (ca == null ? 4 : 5) * 8;
     }
 }

@@ -138,6 +138,16 @@ public abstract class Engine {
         };
     }
 
+    /** True when every value is exactly 1 (no conductivity anywhere): the kernels then skip ca. */
+    static boolean allOnes(double[] a) {
+        for (double v : a) {
+            if (v != 1.0) {
+                return false;
+            }
+        }
+        return true;
+    }
+
     public final int nx() {
         return nx;
     }

@@ -61,11 +61,28 @@ final class FloatKernels {
         }
     }
 
-    /** s, interior row 1 ≤ j ≤ ny−2, columns 1..nx−2: Ez ← ca·Ez + cb·((Hy(i) − Hy(i−1)) − (Hx(j) − Hx(j−1))). */
+    /**
+     * s, interior row 1 ≤ j ≤ ny−2, columns 1..nx−2: Ez ← ca·Ez + cb·((Hy(i) − Hy(i−1)) − (Hx(j) − Hx(j−1))).
+     * {@code ca == null} means ca = 1 everywhere (no conductivity): one array less to stream.
+     */
     static void sE(float[] ez, float[] hx, float[] hy, float[] ca, float[] cb, int nx, int j) {
         int r = j * nx;
         int end = nx - 1;
         int i = 1;
+        if (ca == null) {
+            for (; i <= end - VL; i += VL) {
+                int k = r + i;
+                FloatVector curl = FloatVector.fromArray(SP, hy, k).sub(FloatVector.fromArray(SP, hy, k - 1))
+                        .sub(FloatVector.fromArray(SP, hx, k).sub(FloatVector.fromArray(SP, hx, k - nx)));
+                FloatVector.fromArray(SP, ez, k).add(FloatVector.fromArray(SP, cb, k).mul(curl)).intoArray(ez, k);
+            }
+            for (; i < end; i++) {
+                int k = r + i;
+                float curl = (hy[k] - hy[k - 1]) - (hx[k] - hx[k - nx]);
+                ez[k] = ez[k] + cb[k] * curl;
+            }
+            return;
+        }
         for (; i <= end - VL; i += VL) {
             int k = r + i;
             FloatVector curl = FloatVector.fromArray(SP, hy, k).sub(FloatVector.fromArray(SP, hy, k - 1))
@@ -86,7 +103,7 @@ final class FloatKernels {
         float hyW = i > 0 ? hy[k - 1] : 0f;
         float hxS = j > 0 ? hx[k - nx] : 0f;
         float curl = (hy[k] - hyW) - (hx[k] - hxS);
-        ez[k] = ca[k] * ez[k] + cb[k] * curl;
+        ez[k] = (ca == null ? ez[k] : ca[k] * ez[k]) + cb[k] * curl;
     }
 
     /** p, row j ≤ ny−2, columns 0..nx−2: Hz += s·((Ex(j+1) − Ex(j)) − (Ey(i+1) − Ey(i))). */
@@ -107,11 +124,23 @@ final class FloatKernels {
         }
     }
 
-    /** p, interior row 1 ≤ j ≤ ny−2, columns 0..nx−2: Ex ← cax·Ex + cbx·(Hz(j) − Hz(j−1)). */
+    /** p, interior row 1 ≤ j ≤ ny−2, columns 0..nx−2: Ex ← cax·Ex + cbx·(Hz(j) − Hz(j−1)); {@code ca == null} means 1. */
     static void pEx(float[] hz, float[] ex, float[] ca, float[] cb, int nx, int j) {
         int r = j * nx;
         int n = nx - 1;
         int i = 0;
+        if (ca == null) {
+            for (; i <= n - VL; i += VL) {
+                int k = r + i;
+                FloatVector d = FloatVector.fromArray(SP, hz, k).sub(FloatVector.fromArray(SP, hz, k - nx));
+                FloatVector.fromArray(SP, ex, k).add(FloatVector.fromArray(SP, cb, k).mul(d)).intoArray(ex, k);
+            }
+            for (; i < n; i++) {
+                int k = r + i;
+                ex[k] = ex[k] + cb[k] * (hz[k] - hz[k - nx]);
+            }
+            return;
+        }
         for (; i <= n - VL; i += VL) {
             int k = r + i;
             FloatVector d = FloatVector.fromArray(SP, hz, k).sub(FloatVector.fromArray(SP, hz, k - nx));
@@ -124,11 +153,23 @@ final class FloatKernels {
         }
     }
 
-    /** p, row j ≤ ny−2, columns 1..nx−2: Ey ← cay·Ey − cby·(Hz(i) − Hz(i−1)). */
+    /** p, row j ≤ ny−2, columns 1..nx−2: Ey ← cay·Ey − cby·(Hz(i) − Hz(i−1)); {@code ca == null} means 1. */
     static void pEy(float[] hz, float[] ey, float[] ca, float[] cb, int nx, int j) {
         int r = j * nx;
         int end = nx - 1;
         int i = 1;
+        if (ca == null) {
+            for (; i <= end - VL; i += VL) {
+                int k = r + i;
+                FloatVector d = FloatVector.fromArray(SP, hz, k).sub(FloatVector.fromArray(SP, hz, k - 1));
+                FloatVector.fromArray(SP, ey, k).sub(FloatVector.fromArray(SP, cb, k).mul(d)).intoArray(ey, k);
+            }
+            for (; i < end; i++) {
+                int k = r + i;
+                ey[k] = ey[k] - cb[k] * (hz[k] - hz[k - 1]);
+            }
+            return;
+        }
         for (; i <= end - VL; i += VL) {
             int k = r + i;
             FloatVector d = FloatVector.fromArray(SP, hz, k).sub(FloatVector.fromArray(SP, hz, k - 1));
@@ -145,65 +186,152 @@ final class FloatKernels {
     static void pExEdge(float[] hz, float[] ex, float[] ca, float[] cb, int nx, int i, int j) {
         int k = j * nx + i;
         float hzS = j > 0 ? hz[k - nx] : 0f;
-        ex[k] = ca[k] * ex[k] + cb[k] * (hz[k] - hzS);
+        ex[k] = (ca == null ? ex[k] : ca[k] * ex[k]) + cb[k] * (hz[k] - hzS);
     }
 
     /** p, Ey on a PMC wall column (i = 0 or nx−1), with Hz beyond the wall taken as zero. */
     static void pEyEdge(float[] hz, float[] ey, float[] ca, float[] cb, int nx, int i, int j) {
         int k = j * nx + i;
         float hzW = i > 0 ? hz[k - 1] : 0f;
-        ey[k] = ca[k] * ey[k] - cb[k] * (hz[k] - hzW);
+        ey[k] = (ca == null ? ey[k] : ca[k] * ey[k]) - cb[k] * (hz[k] - hzW);
     }
 
     /**
-     * CPML correction along x of row j, cells i = start + ii for ii in [ii0, ii1):
-     * ψ ← bψ + c·d, f += sign·coef·(kappaTerm·d + ψ), with d = g(i+1) − g(i) when {@code forward}
-     * (magnetic update, coef = s) or g(i) − g(i−1) otherwise (electric update, coef = cb(i)).
-     * ψ is indexed {@code psi[j*layers + ii]}.
+     * CPML correction of a magnetic component along x in row j, cells i = start + ii for ii in
+     * [0, layers): with d = g(i+1) − g(i), ψ ← bψ + c·d and f += coef·(kappaTerm·d + ψ), where
+     * coef is ±s. ψ is indexed {@code psi[j*layers + ii]}; values of ψ below {@link #TINY} are set to zero.
      */
-    static void pmlAlongX(float[] f, float[] g, float[] cb, float s, float sign, boolean forward,
-                          int nx, int j, FloatStrip st, float[] psi, int ii0, int ii1) {
+    static void pmlXH(float[] f, float[] g, float coef, int nx, int j, FloatStrip st, float[] psi) {
         int base = j * nx + st.start;
         int pb = j * st.layers;
-        float[] b = forward ? st.bH : st.bE;
-        float[] c = forward ? st.cH : st.cE;
-        float[] kt = forward ? st.kH : st.kE;
-        for (int ii = ii0; ii < ii1; ii++) {
+        int n = st.layers;
+        FloatVector vc = FloatVector.broadcast(SP, coef);
+        int ii = 0;
+        for (; ii <= n - VL; ii += VL) {
             int k = base + ii;
-            float d = forward ? g[k + 1] - g[k] : g[k] - g[k - 1];
-            int p = pb + ii;
-            float ps = b[ii] * psi[p] + c[ii] * d;
+            FloatVector d = FloatVector.fromArray(SP, g, k + 1).sub(FloatVector.fromArray(SP, g, k));
+            FloatVector ps = FloatVector.fromArray(SP, st.bH, ii).mul(FloatVector.fromArray(SP, psi, pb + ii))
+                    .add(FloatVector.fromArray(SP, st.cH, ii).mul(d));
+            ps = ps.blend(0f, ps.abs().lt(TINY));
+            ps.intoArray(psi, pb + ii);
+            FloatVector.fromArray(SP, f, k).add(vc.mul(FloatVector.fromArray(SP, st.kH, ii).mul(d).add(ps))).intoArray(f, k);
+        }
+        for (; ii < n; ii++) {
+            int k = base + ii;
+            float d = g[k + 1] - g[k];
+            float ps = st.bH[ii] * psi[pb + ii] + st.cH[ii] * d;
             if (Math.abs(ps) < TINY) {
                 ps = 0f;
             }
-            psi[p] = ps;
-            float coef = cb == null ? s : cb[k];
-            f[k] += sign * (coef * (kt[ii] * d + ps));
+            psi[pb + ii] = ps;
+            f[k] = f[k] + coef * (st.kH[ii] * d + ps);
         }
     }
 
     /**
-     * CPML correction along y of row j = start + jj, cells i in [i0, i1): as {@link #pmlAlongX}
-     * with differences across rows; ψ is indexed {@code psi[jj*nx + i]}.
+     * CPML correction of an electric component along x in row j, cells i = start + ii for ii in
+     * [1, layers): with d = g(i) − g(i−1), ψ ← bψ + c·d and f ± = cb(i)·(kappaTerm·d + ψ)
+     * (subtracted when {@code subtract}). ψ is indexed {@code psi[j*layers + ii]}.
      */
-    static void pmlAlongY(float[] f, float[] g, float[] cb, float s, float sign, boolean forward,
-                          int nx, int jj, FloatStrip st, float[] psi, int i0, int i1) {
-        int r = (st.start + jj) * nx;
-        int pb = jj * nx;
-        float b = forward ? st.bH[jj] : st.bE[jj];
-        float c = forward ? st.cH[jj] : st.cE[jj];
-        float kt = forward ? st.kH[jj] : st.kE[jj];
-        for (int i = i0; i < i1; i++) {
-            int k = r + i;
-            float d = forward ? g[k + nx] - g[k] : g[k] - g[k - nx];
-            int p = pb + i;
-            float ps = b * psi[p] + c * d;
+    static void pmlXE(float[] f, float[] g, float[] cb, boolean subtract, int nx, int j, FloatStrip st, float[] psi) {
+        int base = j * nx + st.start;
+        int pb = j * st.layers;
+        int n = st.layers;
+        int ii = 1;
+        for (; ii <= n - VL; ii += VL) {
+            int k = base + ii;
+            FloatVector d = FloatVector.fromArray(SP, g, k).sub(FloatVector.fromArray(SP, g, k - 1));
+            FloatVector ps = FloatVector.fromArray(SP, st.bE, ii).mul(FloatVector.fromArray(SP, psi, pb + ii))
+                    .add(FloatVector.fromArray(SP, st.cE, ii).mul(d));
+            ps = ps.blend(0f, ps.abs().lt(TINY));
+            ps.intoArray(psi, pb + ii);
+            FloatVector t = FloatVector.fromArray(SP, cb, k).mul(FloatVector.fromArray(SP, st.kE, ii).mul(d).add(ps));
+            FloatVector fv = FloatVector.fromArray(SP, f, k);
+            (subtract ? fv.sub(t) : fv.add(t)).intoArray(f, k);
+        }
+        for (; ii < n; ii++) {
+            int k = base + ii;
+            float d = g[k] - g[k - 1];
+            float ps = st.bE[ii] * psi[pb + ii] + st.cE[ii] * d;
             if (Math.abs(ps) < TINY) {
                 ps = 0f;
             }
-            psi[p] = ps;
-            float coef = cb == null ? s : cb[k];
-            f[k] += sign * (coef * (kt * d + ps));
+            psi[pb + ii] = ps;
+            float t = cb[k] * (st.kE[ii] * d + ps);
+            f[k] = subtract ? f[k] - t : f[k] + t;
+        }
+    }
+
+    /**
+     * CPML correction of a magnetic component along y in row j = start + jj, cells i in [0, i1):
+     * d = g(j+1) − g(j), otherwise as {@link #pmlXH}; ψ is indexed {@code psi[jj*nx + i]}.
+     */
+    static void pmlYH(float[] f, float[] g, float coef, int nx, int jj, FloatStrip st, float[] psi, int i1) {
+        int r = (st.start + jj) * nx;
+        int pb = jj * nx;
+        float b = st.bH[jj];
+        float c = st.cH[jj];
+        float kt = st.kH[jj];
+        FloatVector vb = FloatVector.broadcast(SP, b);
+        FloatVector vcc = FloatVector.broadcast(SP, c);
+        FloatVector vk = FloatVector.broadcast(SP, kt);
+        FloatVector vc = FloatVector.broadcast(SP, coef);
+        int i = 0;
+        for (; i <= i1 - VL; i += VL) {
+            int k = r + i;
+            FloatVector d = FloatVector.fromArray(SP, g, k + nx).sub(FloatVector.fromArray(SP, g, k));
+            FloatVector ps = vb.mul(FloatVector.fromArray(SP, psi, pb + i)).add(vcc.mul(d));
+            ps = ps.blend(0f, ps.abs().lt(TINY));
+            ps.intoArray(psi, pb + i);
+            FloatVector.fromArray(SP, f, k).add(vc.mul(vk.mul(d).add(ps))).intoArray(f, k);
+        }
+        for (; i < i1; i++) {
+            int k = r + i;
+            float d = g[k + nx] - g[k];
+            float ps = b * psi[pb + i] + c * d;
+            if (Math.abs(ps) < TINY) {
+                ps = 0f;
+            }
+            psi[pb + i] = ps;
+            f[k] = f[k] + coef * (kt * d + ps);
+        }
+    }
+
+    /**
+     * CPML correction of an electric component along y in row j = start + jj, cells i in [i0, i1):
+     * d = g(j) − g(j−1), otherwise as {@link #pmlXE}; ψ is indexed {@code psi[jj*nx + i]}.
+     */
+    static void pmlYE(float[] f, float[] g, float[] cb, boolean subtract, int nx, int jj, FloatStrip st, float[] psi,
+                      int i0, int i1) {
+        int r = (st.start + jj) * nx;
+        int pb = jj * nx;
+        float b = st.bE[jj];
+        float c = st.cE[jj];
+        float kt = st.kE[jj];
+        FloatVector vb = FloatVector.broadcast(SP, b);
+        FloatVector vcc = FloatVector.broadcast(SP, c);
+        FloatVector vk = FloatVector.broadcast(SP, kt);
+        int i = i0;
+        for (; i <= i1 - VL; i += VL) {
+            int k = r + i;
+            FloatVector d = FloatVector.fromArray(SP, g, k).sub(FloatVector.fromArray(SP, g, k - nx));
+            FloatVector ps = vb.mul(FloatVector.fromArray(SP, psi, pb + i)).add(vcc.mul(d));
+            ps = ps.blend(0f, ps.abs().lt(TINY));
+            ps.intoArray(psi, pb + i);
+            FloatVector t = FloatVector.fromArray(SP, cb, k).mul(vk.mul(d).add(ps));
+            FloatVector fv = FloatVector.fromArray(SP, f, k);
+            (subtract ? fv.sub(t) : fv.add(t)).intoArray(f, k);
+        }
+        for (; i < i1; i++) {
+            int k = r + i;
+            float d = g[k] - g[k - nx];
+            float ps = b * psi[pb + i] + c * d;
+            if (Math.abs(ps) < TINY) {
+                ps = 0f;
+            }
+            psi[pb + i] = ps;
+            float t = cb[k] * (kt * d + ps);
+            f[k] = subtract ? f[k] - t : f[k] + t;
         }
     }
 

@@ -14,7 +14,9 @@ import org.evanesce.solver.grid.Side;
  */
 final class FloatP extends Engine {
 
-    final float[] hz, ex, ey, cax, cbx, cay, cby;
+    final float[] hz, ex, ey, cbx, cby;
+    /** ca per cell, or null when every cell at that site is lossless (ca = 1). */
+    final float[] cax, cay;
     private final float s;
     /** x strips correct Hz (ψH) and Ey (ψE); y strips correct Hz (ψH) and Ex (ψE). */
     private final FloatStrip[] xs, ys;
@@ -28,9 +30,9 @@ final class FloatP extends Engine {
         ey = new float[n];
         double[][] cx = coefficients(grid, FieldSite.EX, courant, dt);
         double[][] cy = coefficients(grid, FieldSite.EY, courant, dt);
-        cax = FloatS.toFloat(cx[0]);
+        cax = Engine.allOnes(cx[0]) ? null : FloatS.toFloat(cx[0]);
         cbx = FloatS.toFloat(cx[1]);
-        cay = FloatS.toFloat(cy[0]);
+        cay = Engine.allOnes(cy[0]) ? null : FloatS.toFloat(cy[0]);
         cby = FloatS.toFloat(cy[1]);
         xs = new FloatStrip[xProfiles.length];
         for (int q = 0; q < xs.length; q++) {
@@ -49,12 +51,12 @@ final class FloatP extends Engine {
         }
         FloatKernels.pH(hz, ex, ey, nx, j, s);
         for (FloatStrip x : xs) {
-            FloatKernels.pmlAlongX(hz, ey, null, s, -1f, true, nx, j, x, x.psiH, 0, x.layers);
+            FloatKernels.pmlXH(hz, ey, -s, nx, j, x, x.psiH);
         }
         int q = yStripOfRow[j];
         if (q >= 0) {
             FloatStrip y = ys[q];
-            FloatKernels.pmlAlongY(hz, ex, null, s, 1f, true, nx, j - y.start, y, y.psiH, 0, nx - 1);
+            FloatKernels.pmlYH(hz, ex, s, nx, j - y.start, y, y.psiH, nx - 1);
         }
     }
 
@@ -75,7 +77,7 @@ final class FloatP extends Engine {
             FloatStrip y = ys[q];
             int jj = j - y.start;
             if (jj >= 1) {
-                FloatKernels.pmlAlongY(ex, hz, cbx, 0f, 1f, false, nx, jj, y, y.psiE, 0, nx - 1);
+                FloatKernels.pmlYE(ex, hz, cbx, false, nx, jj, y, y.psiE, 0, nx - 1);
             }
         }
         // Ey: rows 0..ny-2
@@ -88,7 +90,7 @@ final class FloatP extends Engine {
                 FloatKernels.pEyEdge(hz, ey, cay, cby, nx, nx - 1, j);
             }
             for (FloatStrip x : xs) {
-                FloatKernels.pmlAlongX(ey, hz, cby, 0f, -1f, false, nx, j, x, x.psiE, 1, x.layers);
+                FloatKernels.pmlXE(ey, hz, cby, true, nx, j, x, x.psiE);
             }
         }
     }
@@ -140,8 +142,8 @@ final class FloatP extends Engine {
         for (int j = j0; j < j1; j++) {
             for (int i = i0; i < i1; i++) {
                 int k = j * nx + i;
-                double epsX = courant * (1.0 + cax[k]) / (2.0 * cbx[k]);
-                double epsY = courant * (1.0 + cay[k]) / (2.0 * cby[k]);
+                double epsX = courant * (1.0 + (cax == null ? 1.0 : cax[k])) / (2.0 * cbx[k]);
+                double epsY = courant * (1.0 + (cay == null ? 1.0 : cay[k])) / (2.0 * cby[k]);
                 double hzNext = i < nx - 1 && j < ny - 1
                         ? hz[k] + s * ((ex[k + nx] - ex[k]) - (ey[k + 1] - ey[k])) : 0.0;
                 w += epsX * ex[k] * ex[k] + epsY * ey[k] * ey[k] + hz[k] * hzNext;
@@ -152,7 +154,7 @@ final class FloatP extends Engine {
 
     @Override
     public long bytes() {
-        long b = 7L * 4 * nx * ny;
+        long b = bytesPerCell() * (long) nx * ny;
         for (FloatStrip x : xs) {
             b += 8L * x.psiH.length;
         }
@@ -164,6 +166,6 @@ final class FloatP extends Engine {
 
     @Override
     public int bytesPerCell() {
-        return 7 * 4;
+        return (5 + (cax == null ? 0 : 1) + (cay == null ? 0 : 1)) * 4;
     }
 }

@@ -10,7 +10,9 @@ import org.evanesce.solver.grid.Side;
 /** s polarization (Ez, Hx, Hy) in single precision. {@link DoubleS} is the same in double; change both together. */
 final class FloatS extends Engine {
 
-    final float[] ez, hx, hy, ca, cb;
+    final float[] ez, hx, hy, cb;
+    /** ca per cell, or null when every cell is lossless (ca = 1). */
+    final float[] ca;
     private final float s;
     /** x strips correct Hy (ψH) and Ez (ψE); y strips correct Hx (ψH) and Ez (ψE). */
     private final FloatStrip[] xs, ys;
@@ -23,7 +25,7 @@ final class FloatS extends Engine {
         hx = new float[n];
         hy = new float[n];
         double[][] c = coefficients(grid, FieldSite.EZ, courant, dt);
-        ca = toFloat(c[0]);
+        ca = Engine.allOnes(c[0]) ? null : toFloat(c[0]);
         cb = toFloat(c[1]);
         xs = new FloatStrip[xProfiles.length];
         for (int q = 0; q < xs.length; q++) {
@@ -47,12 +49,12 @@ final class FloatS extends Engine {
     protected void hRow(int j) {
         FloatKernels.sH(ez, hx, hy, nx, ny, j, s);
         for (FloatStrip x : xs) {
-            FloatKernels.pmlAlongX(hy, ez, null, s, 1f, true, nx, j, x, x.psiH, 0, x.layers);
+            FloatKernels.pmlXH(hy, ez, s, nx, j, x, x.psiH);
         }
         int q = yStripOfRow[j];
         if (q >= 0) {
             FloatStrip y = ys[q];
-            FloatKernels.pmlAlongY(hx, ez, null, s, -1f, true, nx, j - y.start, y, y.psiH, 0, nx);
+            FloatKernels.pmlYH(hx, ez, -s, nx, j - y.start, y, y.psiH, nx);
         }
     }
 
@@ -75,14 +77,14 @@ final class FloatS extends Engine {
             return;
         }
         for (FloatStrip x : xs) {
-            FloatKernels.pmlAlongX(ez, hy, cb, 0f, 1f, false, nx, j, x, x.psiE, 1, x.layers);
+            FloatKernels.pmlXE(ez, hy, cb, false, nx, j, x, x.psiE);
         }
         int q = yStripOfRow[j];
         if (q >= 0) {
             FloatStrip y = ys[q];
             int jj = j - y.start;
             if (jj >= 1) {
-                FloatKernels.pmlAlongY(ez, hx, cb, 0f, -1f, false, nx, jj, y, y.psiE,
+                FloatKernels.pmlYE(ez, hx, cb, true, nx, jj, y, y.psiE,
                         pmcLeft ? 0 : 1, pmcRight ? nx : nx - 1);
             }
         }
@@ -136,7 +138,7 @@ final class FloatS extends Engine {
             for (int i = i0; i < i1; i++) {
                 int k = j * nx + i;
                 double e = ez[k];
-                double eps = courant * (1.0 + ca[k]) / (2.0 * cb[k]);
+                double eps = courant * (1.0 + (ca == null ? 1.0 : ca[k])) / (2.0 * cb[k]);
                 double hxNext = j < ny - 1 ? hx[k] - s * (ez[k + nx] - e) : 0.0;
                 double hyNext = i < nx - 1 ? hy[k] + s * (ez[k + 1] - e) : 0.0;
                 w += eps * e * e + hx[k] * hxNext + hy[k] * hyNext;
@@ -147,7 +149,7 @@ final class FloatS extends Engine {
 
     @Override
     public long bytes() {
-        long b = 5L * 4 * nx * ny;
+        long b = bytesPerCell() * (long) nx * ny;
         for (FloatStrip x : xs) {
             b += 8L * x.psiH.length;
         }
@@ -159,6 +161,6 @@ final class FloatS extends Engine {
 
     @Override
     public int bytesPerCell() {
-        return 5 * 4;
+        return (ca == null ? 4 : 5) * 4;
     }
 }
