@@ -189,6 +189,11 @@ public final class Simulation implements StepView, AutoCloseable {
         return precision;
     }
 
+    /** Width in bits of the vectors the update kernels use on this JVM. */
+    public static int kernelVectorBits() {
+        return Engine.vectorBits();
+    }
+
     /** Number of threads actually stepping (small grids run on one). */
     public int threads() {
         return team.threads();

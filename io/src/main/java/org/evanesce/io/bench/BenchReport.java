@@ -19,7 +19,7 @@ public final class BenchReport {
             "grid", "pol", "prec", "threads", "used", "steps/s", "Mcell/s", "ns/cell", "spread", "B/cell", "MiB");
     private static final String TABLE_ROW = "%11s %4s %6s %7d %4d %9.1f %9.1f %8.3f %6.1f%% %6d %9.1f%s%n";
     private static final String CSV_HEAD = "size,polarization,precision,threads_requested,threads_used,steps_per_repeat,"
-            + "warm_up_s,settled,repeats,steps_per_s,mcells_per_s,ns_per_cell,spread_percent,bytes_per_cell,bytes,java,cores,jvm_preferred_vector_bits";
+            + "warm_up_s,settled,repeats,steps_per_s,mcells_per_s,ns_per_cell,spread_percent,bytes_per_cell,bytes,java,cores,jvm_preferred_vector_bits,kernel_vector_bits";
 
     private final PrintWriter out;
     private final Format format;
@@ -62,10 +62,11 @@ public final class BenchReport {
         String pol = c.polarization().name().toLowerCase(Locale.ROOT);
         String prec = c.precision().name().toLowerCase(Locale.ROOT);
         if (format == Format.CSV) {
-            out.printf(Locale.ROOT, "%d,%s,%s,%d,%d,%d,%.3g,%b,%d,%.6g,%.6g,%.6g,%.3g,%d,%d,%s,%d,%d%n",
+            out.printf(Locale.ROOT, "%d,%s,%s,%d,%d,%d,%.3g,%b,%d,%.6g,%.6g,%.6g,%.3g,%d,%d,%s,%d,%d,%d%n",
                     c.size(), pol, prec, c.threads(), r.threadsUsed(), r.stepsPerRepeat(), r.warmUpSeconds(), r.settled(),
                     r.repeats(), r.stepsPerSecond(), r.megacellsPerSecond(), r.nanosPerCell(), r.spreadPercent(),
-                    r.bytesPerCell(), r.bytes(), csvText(machine.java()), machine.cores(), machine.preferredVectorBits());
+                    r.bytesPerCell(), r.bytes(), csvText(machine.java()), machine.cores(), machine.preferredVectorBits(),
+                    machine.kernelVectorBits());
         } else {
             out.printf(Locale.ROOT, TABLE_ROW, c.size() + "x" + c.size(), pol, prec, c.threads(), r.threadsUsed(),
                     r.stepsPerSecond(), r.megacellsPerSecond(), r.nanosPerCell(), r.spreadPercent(),

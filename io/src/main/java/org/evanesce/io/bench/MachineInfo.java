@@ -2,6 +2,7 @@ package org.evanesce.io.bench;
 
 import java.util.Locale;
 import jdk.incubator.vector.VectorShape;
+import org.evanesce.solver.Simulation;
 
 /**
  * What a benchmark ran on: JVM, operating system, processors, heap and the Vector API width
@@ -15,9 +16,10 @@ import jdk.incubator.vector.VectorShape;
  * @param preferredVectorBits the JVM's preferred vector width in bits, or 0 when the Vector API
  *                           module is not loaded
  * @param vectorBitsOverride  the {@code evanesce.vectorBits} system property, or null if unset
+ * @param kernelVectorBits    the width the solver's kernels use, or 0 when the module is not loaded
  */
 public record MachineInfo(String java, String vm, String os, int cores, long maxHeapBytes,
-                          int preferredVectorBits, String vectorBitsOverride) {
+                          int preferredVectorBits, String vectorBitsOverride, int kernelVectorBits) {
 
     /** The name of the Vector API's incubator module. */
     public static final String VECTOR_MODULE = "jdk.incubator.vector";
@@ -37,13 +39,14 @@ public record MachineInfo(String java, String vm, String os, int cores, long max
                 Runtime.getRuntime().availableProcessors(),
                 Runtime.getRuntime().maxMemory(),
                 bits,
-                System.getProperty("evanesce.vectorBits"));
+                System.getProperty("evanesce.vectorBits"),
+                vectorModuleLoaded() ? Simulation.kernelVectorBits() : 0);
     }
 
     /** One line for a report header. */
     public String describe() {
         String vector = preferredVectorBits == 0 ? "Vector API not loaded"
-                : "JVM prefers " + preferredVectorBits + "-bit vectors"
+                : "kernels use " + kernelVectorBits + "-bit vectors (JVM prefers " + preferredVectorBits + ")"
                         + (vectorBitsOverride == null ? "" : ", -Devanesce.vectorBits=" + vectorBitsOverride);
         return String.format(Locale.ROOT, "Java %s (%s); %s; %d cores; max heap %.1f GiB; %s",
                 java, vm, os, cores, maxHeapBytes / (1024.0 * 1024 * 1024), vector);

@@ -138,6 +138,11 @@ public abstract class Engine {
         };
     }
 
+    /** Width in bits of the vectors the kernels use on this JVM (DESIGN.md: capped at 256 by measurement). */
+    public static int vectorBits() {
+        return Lanes.bits();
+    }
+
     /** True when every value is exactly 1 (no conductivity anywhere): the kernels then skip ca. */
     static boolean allOnes(double[] a) {
         for (double v : a) {
