@@ -51,7 +51,7 @@ class ThreadEqualityTest {
         double f = PhysicalConstants.C0 / (20 * 40e-9);
         Component[] c = pol.components();
         Simulation.Builder b = Simulation.builder(grid).polarization(pol).precision(precision)
-                .boundary(Side.LEFT, Boundary.pml(8)).boundary(Side.RIGHT, Boundary.pmc())
+                .boundary(Side.LEFT, Boundary.pml(10)).boundary(Side.RIGHT, Boundary.pmc())
                 .boundary(Side.BOTTOM, Boundary.pml(6)).boundary(Side.TOP, Boundary.pec())
                 .threads(threads).minCellsPerThread(1)
                 .source(Source.point(c[0], NX, 30, 18, 1.0, TimeSignal.gaussianPulse(f, f / 3)))

@@ -25,6 +25,11 @@ final class DoubleKernels {
     private DoubleKernels() {
     }
 
+    /** n rounded up to a whole number of vectors. */
+    static int roundUpToLanes(int n) {
+        return (n + VL - 1) / VL * VL;
+    }
+
     /** s: Hx(i,j) −= s·(Ez(i,j+1) − Ez(i,j)) for j ≤ ny−2, all i; Hy(i,j) += s·(Ez(i+1,j) − Ez(i,j)) for i ≤ nx−2. */
     static void sH(double[] ez, double[] hx, double[] hy, int nx, int ny, int j, double s) {
         int r = j * nx;
@@ -198,13 +203,13 @@ final class DoubleKernels {
 
     /**
      * CPML correction of a magnetic component along x in row j, cells i = start + ii for ii in
-     * [0, layers): with d = g(i+1) − g(i), ψ ← bψ + c·d and f += coef·(kappaTerm·d + ψ), where
-     * coef is ±s. ψ is indexed {@code psi[j*layers + ii]}; values of ψ below {@link #TINY} are set to zero.
+     * [0, width): with d = g(i+1) − g(i), ψ ← bψ + c·d and f += coef·(kappaTerm·d + ψ), where
+     * coef is ±s. ψ is indexed {@code psi[j*width + ii]}; values of ψ below {@link #TINY} are set to zero.
      */
     static void pmlXH(double[] f, double[] g, double coef, int nx, int j, DoubleStrip st, double[] psi) {
         int base = j * nx + st.start;
-        int pb = j * st.layers;
-        int n = st.layers;
+        int pb = j * st.width;
+        int n = st.width;
         DoubleVector vc = DoubleVector.broadcast(SP, coef);
         int ii = 0;
         for (; ii <= n - VL; ii += VL) {
@@ -230,14 +235,14 @@ final class DoubleKernels {
 
     /**
      * CPML correction of an electric component along x in row j, cells i = start + ii for ii in
-     * [1, layers): with d = g(i) − g(i−1), ψ ← bψ + c·d and f ± = cb(i)·(kappaTerm·d + ψ)
-     * (subtracted when {@code subtract}). ψ is indexed {@code psi[j*layers + ii]}.
+     * [eFrom, eTo): with d = g(i) − g(i−1), ψ ← bψ + c·d and f ± = cb(i)·(kappaTerm·d + ψ)
+     * (subtracted when {@code subtract}). ψ is indexed {@code psi[j*width + ii]}.
      */
     static void pmlXE(double[] f, double[] g, double[] cb, boolean subtract, int nx, int j, DoubleStrip st, double[] psi) {
         int base = j * nx + st.start;
-        int pb = j * st.layers;
-        int n = st.layers;
-        int ii = 1;
+        int pb = j * st.width;
+        int n = st.eTo;
+        int ii = st.eFrom;
         for (; ii <= n - VL; ii += VL) {
             int k = base + ii;
             DoubleVector d = DoubleVector.fromArray(SP, g, k).sub(DoubleVector.fromArray(SP, g, k - 1));

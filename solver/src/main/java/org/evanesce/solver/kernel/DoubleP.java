@@ -4,6 +4,7 @@ import java.util.Map;
 import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.solver.boundary.Boundary;
+import org.evanesce.solver.boundary.PmlProfile;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Side;
 
@@ -36,7 +37,9 @@ final class DoubleP extends Engine {
         cby = cy[1];
         xs = new DoubleStrip[xProfiles.length];
         for (int q = 0; q < xs.length; q++) {
-            xs[q] = new DoubleStrip(xProfiles[q], ny * xProfiles[q].layers);
+            // widened to whole vectors so the per-row corrections have no scalar remainder
+            PmlProfile p = xProfiles[q].padded(DoubleKernels.roundUpToLanes(xProfiles[q].layers), nx);
+            xs[q] = new DoubleStrip(p, ny * p.width);
         }
         ys = new DoubleStrip[yProfiles.length];
         for (int q = 0; q < ys.length; q++) {

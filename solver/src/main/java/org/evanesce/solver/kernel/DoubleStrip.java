@@ -5,14 +5,19 @@ import org.evanesce.solver.boundary.PmlProfile;
 /** One side's CPML coefficients in double precision, with the auxiliary ψ of the two components it corrects. */
 final class DoubleStrip {
     final int start;
-    final int layers;
+    /** Cells per row (x strips) or rows (y strips) covered; ψ is {@code width} wide along the axis. */
+    final int width;
+    /** Electric local indices corrected: [eFrom, eTo). */
+    final int eFrom, eTo;
     final double[] bE, cE, kE, bH, cH, kH;
     /** ψ of the magnetic and electric component this strip corrects; sized to the strip only. */
     final double[] psiH, psiE;
 
     DoubleStrip(PmlProfile p, int psiLength) {
         start = p.start;
-        layers = p.layers;
+        width = p.width;
+        eFrom = p.eFrom;
+        eTo = p.eTo;
         bE = p.bE.clone();
         cE = p.cE.clone();
         kE = p.kappaTermE.clone();

@@ -25,6 +25,11 @@ final class FloatKernels {
     private FloatKernels() {
     }
 
+    /** n rounded up to a whole number of vectors. */
+    static int roundUpToLanes(int n) {
+        return (n + VL - 1) / VL * VL;
+    }
+
     /** s: Hx(i,j) −= s·(Ez(i,j+1) − Ez(i,j)) for j ≤ ny−2, all i; Hy(i,j) += s·(Ez(i+1,j) − Ez(i,j)) for i ≤ nx−2. */
     static void sH(float[] ez, float[] hx, float[] hy, int nx, int ny, int j, float s) {
         int r = j * nx;
@@ -198,13 +203,13 @@ final class FloatKernels {
 
     /**
      * CPML correction of a magnetic component along x in row j, cells i = start + ii for ii in
-     * [0, layers): with d = g(i+1) − g(i), ψ ← bψ + c·d and f += coef·(kappaTerm·d + ψ), where
-     * coef is ±s. ψ is indexed {@code psi[j*layers + ii]}; values of ψ below {@link #TINY} are set to zero.
+     * [0, width): with d = g(i+1) − g(i), ψ ← bψ + c·d and f += coef·(kappaTerm·d + ψ), where
+     * coef is ±s. ψ is indexed {@code psi[j*width + ii]}; values of ψ below {@link #TINY} are set to zero.
      */
     static void pmlXH(float[] f, float[] g, float coef, int nx, int j, FloatStrip st, float[] psi) {
         int base = j * nx + st.start;
-        int pb = j * st.layers;
-        int n = st.layers;
+        int pb = j * st.width;
+        int n = st.width;
         FloatVector vc = FloatVector.broadcast(SP, coef);
         int ii = 0;
         for (; ii <= n - VL; ii += VL) {
@@ -230,14 +235,14 @@ final class FloatKernels {
 
     /**
      * CPML correction of an electric component along x in row j, cells i = start + ii for ii in
-     * [1, layers): with d = g(i) − g(i−1), ψ ← bψ + c·d and f ± = cb(i)·(kappaTerm·d + ψ)
-     * (subtracted when {@code subtract}). ψ is indexed {@code psi[j*layers + ii]}.
+     * [eFrom, eTo): with d = g(i) − g(i−1), ψ ← bψ + c·d and f ± = cb(i)·(kappaTerm·d + ψ)
+     * (subtracted when {@code subtract}). ψ is indexed {@code psi[j*width + ii]}.
      */
     static void pmlXE(float[] f, float[] g, float[] cb, boolean subtract, int nx, int j, FloatStrip st, float[] psi) {
         int base = j * nx + st.start;
-        int pb = j * st.layers;
-        int n = st.layers;
-        int ii = 1;
+        int pb = j * st.width;
+        int n = st.eTo;
+        int ii = st.eFrom;
         for (; ii <= n - VL; ii += VL) {
             int k = base + ii;
             FloatVector d = FloatVector.fromArray(SP, g, k).sub(FloatVector.fromArray(SP, g, k - 1));

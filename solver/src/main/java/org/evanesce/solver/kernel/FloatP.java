@@ -4,6 +4,7 @@ import java.util.Map;
 import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.solver.boundary.Boundary;
+import org.evanesce.solver.boundary.PmlProfile;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Side;
 
@@ -36,7 +37,9 @@ final class FloatP extends Engine {
         cby = FloatS.toFloat(cy[1]);
         xs = new FloatStrip[xProfiles.length];
         for (int q = 0; q < xs.length; q++) {
-            xs[q] = new FloatStrip(xProfiles[q], ny * xProfiles[q].layers);
+            // widened to whole vectors so the per-row corrections have no scalar remainder
+            PmlProfile p = xProfiles[q].padded(FloatKernels.roundUpToLanes(xProfiles[q].layers), nx);
+            xs[q] = new FloatStrip(p, ny * p.width);
         }
         ys = new FloatStrip[yProfiles.length];
         for (int q = 0; q < ys.length; q++) {
