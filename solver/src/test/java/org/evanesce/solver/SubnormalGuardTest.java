@@ -14,10 +14,12 @@ import org.junit.jupiter.params.provider.EnumSource;
 
 /**
  * Decaying fields pass through the subnormal range, where arithmetic is many times slower on
- * x86 (common practice: flush values far below any physical level to zero). A quiet region
- * holding only a residue of a decayed field is the case that costs: without the guard the residue
- * lingers there for the rest of the run. With it, every value below 1e-30 is set to zero at the
- * next flush (every 16 steps), so nothing lingers.
+ * x86 (common practice: flush values far below any physical level to zero). In float, a field
+ * that decays by loss or by leaving through a PML stalls at a rounding floor near 1e-8 of its
+ * peak (the updates fall below the ulp of what is left), so the values that reach the subnormal
+ * range are the residues: far ahead of a front, or left behind in a region the field has
+ * deserted. Without the guard such a residue lingers there for the rest of the run. With it,
+ * every value below 1e-30 is set to zero at the next flush (every 16 steps), so nothing lingers.
  */
 class SubnormalGuardTest {
 
