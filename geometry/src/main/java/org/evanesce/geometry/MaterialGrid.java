@@ -2,46 +2,67 @@ package org.evanesce.geometry;
 
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.EnumMap;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 
 /**
  * The materials of a scene sampled on an nx × ny Yee grid: for each electric field site
- * ({@link FieldSite}) a small material index per cell, {@code id[j*nx + i]}, into a table of
- * materials. Cells cut by an interface may carry their own (smoothed) table entry.
+ * ({@link FieldSite}) a material index per cell, {@code id[j*nx + i]}, into a table of
+ * materials. Cells cut by an interface may carry their own (smoothed) table entry; equal materials
+ * share one entry.
+ *
+ * <p>Ids are stored in 16 bits (2 bytes per site) while the table holds at most 65 536
+ * materials and in 32 bits beyond that, so smoothed grids with long interfaces fit.
  *
  * <p>Immutable; build it with {@link #builder}.
  */
 public final class MaterialGrid {
 
-    private final int nx;
-    private final int ny;
-    private final double cellSize;
-    private final List<Material> table;
-    private final Map<FieldSite, short[]> ids;
+    /** Most materials whose ids fit the 16-bit storage. */
+    static final int NARROW_LIMIT = 1 << 16;
 
-    private MaterialGrid(int nx, int ny, double cellSize, List<Material> table, Map<FieldSite, short[]> ids) {
-        this.nx = nx;
-        this.ny = ny;
-        this.cellSize = cellSize;
+    private final GridSpec spec;
+    private final List<Material> table;
+    /** Per site (by ordinal): 16-bit ids, or null when {@link #wide} is used. */
+    private final char[][] narrow;
+    private final int[][] wide;
+
+    private MaterialGrid(GridSpec spec, List<Material> table, char[][] narrow, int[][] wide) {
+        this.spec = spec;
         this.table = List.copyOf(table);
-        this.ids = ids;
+        this.narrow = narrow;
+        this.wide = wide;
     }
 
     /** Number of nodes along x. */
     public int nx() {
-        return nx;
+        return spec.nx();
     }
 
     /** Number of nodes along y. */
     public int ny() {
-        return ny;
+        return spec.ny();
     }
 
     /** Cell size Δ (equal along x and y), in metres. */
     public double cellSize() {
-        return cellSize;
+        return spec.cellSize();
+    }
+
+    /** x of node (0, 0), m (0 unless the grid was built from a {@link GridSpec} that says otherwise). */
+    public double x0() {
+        return spec.x0();
+    }
+
+    /** y of node (0, 0), m. */
+    public double y0() {
+        return spec.y0();
+    }
+
+    /** Origin, cell size and node counts. */
+    public GridSpec spec() {
+        return spec;
     }
 
     /** The distinct materials referenced by the grid, indexed by material id. */
@@ -51,12 +72,26 @@ public final class MaterialGrid {
 
     /** Material id at a site of cell (i, j). */
     public int id(FieldSite site, int i, int j) {
-        return ids.get(site)[j * nx + i];
+        int k = j * spec.nx() + i;
+        return narrow != null ? narrow[site.ordinal()][k] : wide[site.ordinal()][k];
     }
 
     /** Material at a site of cell (i, j). */
     public Material material(FieldSite site, int i, int j) {
         return table.get(id(site, i, j));
+    }
+
+    /** A copy of the ids at one site, {@code ids[j*nx + i]}. */
+    public int[] ids(FieldSite site) {
+        if (narrow == null) {
+            return wide[site.ordinal()].clone();
+        }
+        char[] a = narrow[site.ordinal()];
+        int[] out = new int[a.length];
+        for (int k = 0; k < a.length; k++) {
+            out[k] = a[k];
+        }
+        return out;
     }
 
     /** The smallest relative permittivity anywhere on the grid (it sets the stability limit). */
@@ -68,50 +103,52 @@ public final class MaterialGrid {
         return m;
     }
 
-    /** A builder whose every site starts as {@code background}. */
+    /** A builder with node (0, 0) at the origin whose every site starts as {@code background}. */
     public static Builder builder(int nx, int ny, double cellSize, Material background) {
-        return new Builder(nx, ny, cellSize, background);
+        if (nx < 3 || ny < 3) {
+            throw new IllegalArgumentException(String.format(
+                    "grid %d × %d: need at least 3 nodes along each axis", nx, ny));
+        }
+        return new Builder(new GridSpec(0, 0, cellSize, nx, ny), background);
+    }
+
+    /** A builder on the given grid whose every site starts as {@code background}. */
+    public static Builder builder(GridSpec spec, Material background) {
+        return new Builder(spec, background);
     }
 
     /** Paints materials site by site; later paints win. */
     public static final class Builder {
+        private final GridSpec spec;
         private final int nx;
         private final int ny;
-        private final double cellSize;
         private final List<Material> table = new ArrayList<>();
-        private final Map<FieldSite, short[]> ids = new EnumMap<>(FieldSite.class);
+        private final Map<Material, Integer> index = new HashMap<>();
+        private char[][] narrow = new char[FieldSite.values().length][];
+        private int[][] wide;
 
-        private Builder(int nx, int ny, double cellSize, Material background) {
-            if (nx < 3 || ny < 3) {
-                throw new IllegalArgumentException(String.format(
-                        "grid %d × %d: need at least 3 nodes along each axis", nx, ny));
+        private Builder(GridSpec spec, Material background) {
+            if (background == null) {
+                throw new IllegalArgumentException("background material must be given");
             }
-            if ((long) nx * ny > Integer.MAX_VALUE - 64) {
-                throw new IllegalArgumentException(String.format(
-                        "grid %d × %d has more cells than one Java array can index (%d)", nx, ny, Integer.MAX_VALUE));
-            }
-            if (!(cellSize > 0) || Double.isInfinite(cellSize)) {
-                throw new IllegalArgumentException(String.format("cell size %g m must be finite and > 0", cellSize));
-            }
-            this.nx = nx;
-            this.ny = ny;
-            this.cellSize = cellSize;
-            table.add(background);
-            for (FieldSite s : FieldSite.values()) {
-                ids.put(s, new short[nx * ny]);
+            this.spec = spec;
+            this.nx = spec.nx();
+            this.ny = spec.ny();
+            idOf(background);
+            for (int s = 0; s < narrow.length; s++) {
+                narrow[s] = new char[nx * ny];
             }
         }
 
         /** Sets every site whose position (in cell units) lies in {@code region} to {@code material}. */
         public Builder paint(CellRegion region, Material material) {
-            short id = idOf(material);
+            int id = idOf(material);
             for (FieldSite s : FieldSite.values()) {
-                short[] a = ids.get(s);
                 for (int j = 0; j < ny; j++) {
                     int row = j * nx;
                     for (int i = 0; i < nx; i++) {
                         if (region.contains(i + s.dx, j + s.dy)) {
-                            a[row + i] = id;
+                            put(s, row + i, id);
                         }
                     }
                 }
@@ -124,26 +161,81 @@ public final class MaterialGrid {
             if (i < 0 || i >= nx || j < 0 || j >= ny) {
                 throw new IndexOutOfBoundsException(String.format("cell (%d, %d) outside %d × %d", i, j, nx, ny));
             }
-            ids.get(site)[j * nx + i] = idOf(material);
+            put(site, j * nx + i, idOf(material));
             return this;
         }
 
-        private short idOf(Material m) {
-            int k = table.indexOf(m);
-            if (k < 0) {
-                if (table.size() > Short.MAX_VALUE) {
-                    throw new IllegalStateException("more than " + Short.MAX_VALUE + " distinct materials");
-                }
-                table.add(m);
-                k = table.size() - 1;
+        /** The table index of {@code m}, adding it if new (equal materials share one index). */
+        int idOf(Material m) {
+            Integer k = index.get(m);
+            if (k != null) {
+                return k;
             }
-            return (short) k;
+            if (table.size() == Integer.MAX_VALUE) {
+                throw new IllegalStateException("more than " + Integer.MAX_VALUE + " distinct materials");
+            }
+            int id = table.size();
+            table.add(m);
+            index.put(m, id);
+            if (id >= NARROW_LIMIT && wide == null) {
+                widen();
+            }
+            return id;
+        }
+
+        private void widen() {
+            wide = new int[narrow.length][];
+            for (int s = 0; s < narrow.length; s++) {
+                char[] a = narrow[s];
+                int[] w = new int[a.length];
+                for (int k = 0; k < a.length; k++) {
+                    w[k] = a[k];
+                }
+                wide[s] = w;
+                narrow[s] = null;
+            }
+            narrow = null;
+        }
+
+        /** Sets the id of one site, index {@code k = j*nx + i}. */
+        void put(FieldSite site, int k, int id) {
+            if (wide != null) {
+                wide[site.ordinal()][k] = id;
+            } else {
+                narrow[site.ordinal()][k] = (char) id;
+            }
+        }
+
+        /** Sets the ids of sites {@code from} (inclusive) to {@code to} (exclusive) of the flat index. */
+        void fill(FieldSite site, int from, int to, int id) {
+            if (wide != null) {
+                Arrays.fill(wide[site.ordinal()], from, to, id);
+            } else {
+                Arrays.fill(narrow[site.ordinal()], from, to, (char) id);
+            }
         }
 
         public MaterialGrid build() {
-            Map<FieldSite, short[]> copy = new EnumMap<>(FieldSite.class);
-            ids.forEach((s, a) -> copy.put(s, Arrays.copyOf(a, a.length)));
-            return new MaterialGrid(nx, ny, cellSize, table, copy);
+            if (wide != null) {
+                int[][] w = new int[wide.length][];
+                for (int s = 0; s < w.length; s++) {
+                    w[s] = wide[s].clone();
+                }
+                return new MaterialGrid(spec, table, null, w);
+            }
+            char[][] c = new char[narrow.length][];
+            for (int s = 0; s < c.length; s++) {
+                c[s] = narrow[s].clone();
+            }
+            return new MaterialGrid(spec, table, c, null);
+        }
+
+        /** Builds without copying the id arrays; the builder must not be used afterwards. */
+        MaterialGrid buildAndRelease() {
+            MaterialGrid g = new MaterialGrid(spec, table, narrow, wide);
+            narrow = null;
+            wide = null;
+            return g;
         }
     }
 }
