@@ -1,0 +1,47 @@
+package org.evanesce.io.casefile;
+
+import java.util.Optional;
+import org.evanesce.solver.grid.Precision;
+
+/**
+ * The Yee grid the case asks for. The domain is covered by whole cells: nx − 1 cells of size Δ
+ * along x, at least the domain's width, centred on the origin (the domain grows symmetrically
+ * when its width is not a whole number of cells); likewise along y. Node (i, j) lies at
+ * ({@link #x}(i), {@link #y}(j)), so the geometry module's grid is
+ * {@code new GridSpec(x(0), y(0), cellSize, nx, ny)}; nx and ny are at least 3.
+ *
+ * @param cellSize           Δ in metres, given or picked by the program
+ * @param nx                 nodes along x (the solver's array width)
+ * @param ny                 nodes along y
+ * @param cellsPerWavelength the rule the cell size was picked by, when it was not given
+ */
+public record ResolutionSpec(Value cellSize, int nx, int ny, Optional<Value> cellsPerWavelength) {
+
+    /**
+     * Estimated bytes per cell of a run, field and coefficient arrays together: 28 in float (the
+     * largest case, p polarization with lossy cells; a lossless s run needs about 16) and twice that
+     * in double. The estimate ignores the PML strips, which are small against the grid.
+     */
+    public static int bytesPerCell(Precision precision) {
+        return precision == Precision.FLOAT ? 28 : 56;
+    }
+
+    public long cells() {
+        return (long) nx * ny;
+    }
+
+    /** Memory the fields and coefficients will need, bytes. */
+    public double estimatedBytes(Precision precision) {
+        return (double) nx * ny * bytesPerCell(precision);
+    }
+
+    /** x of node column i, metres. */
+    public double x(int i) {
+        return (i - (nx - 1) / 2.0) * cellSize.si();
+    }
+
+    /** y of node row j, metres. */
+    public double y(int j) {
+        return (j - (ny - 1) / 2.0) * cellSize.si();
+    }
+}

@@ -1,0 +1,66 @@
+package org.evanesce.io.casefile;
+
+import java.util.List;
+
+/**
+ * The keys each section of a case file accepts. The reader refuses any other key, and
+ * {@code docs/case-file.md} has one table per section with exactly these keys (a test compares
+ * them), so the reference cannot drift from what the reader accepts.
+ *
+ * <p>Section ids are the headings of the reference: a key path with {@code []} for "each entry
+ * of a list" and {@code NAME} for a name the user chooses.
+ */
+final class Schema {
+
+    /** One section of the file: a mapping with a fixed set of keys. */
+    record Section(String id, List<String> keys) {
+
+        boolean accepts(String key) {
+            return keys.contains(key);
+        }
+    }
+
+    static final Section ROOT = new Section("(top level)", List.of("title", "parameters", "design_wavelength",
+            "design_frequency", "polarization", "domain", "resolution", "materials", "shapes", "boundaries", "sources",
+            "probes", "output", "stop", "numerics"));
+    static final Section DOMAIN = new Section("domain", List.of("width", "height", "background"));
+    static final Section RESOLUTION = new Section("resolution", List.of("cell", "cells_per_wavelength"));
+    static final Section MATERIAL = new Section("materials.NAME", List.of("index", "permittivity", "library", "conductivity"));
+
+    /** The kinds of shape: each list entry has one of these as its only key. */
+    static final Section SHAPES = new Section("shapes[]", List.of("rectangle", "polygon", "disk", "ellipse",
+            "half_plane", "layer_stack"));
+    static final Section RECTANGLE = new Section("shapes[].rectangle", List.of("centre", "size", "rotation", "material"));
+    static final Section POLYGON = new Section("shapes[].polygon", List.of("corners", "rotation", "pivot", "material"));
+    static final Section DISK = new Section("shapes[].disk", List.of("centre", "radius", "material"));
+    static final Section ELLIPSE = new Section("shapes[].ellipse", List.of("centre", "radii", "rotation", "material"));
+    static final Section HALF_PLANE = new Section("shapes[].half_plane", List.of("through", "fill", "rotation", "material"));
+    static final Section LAYER_STACK = new Section("shapes[].layer_stack", List.of("start", "rotation", "layers"));
+    static final Section LAYER = new Section("shapes[].layer_stack.layers[]", List.of("material", "thickness"));
+
+    static final Section BOUNDARIES = new Section("boundaries", List.of("all", "left", "right", "bottom", "top"));
+
+    /** The kinds of source. */
+    static final Section SOURCES = new Section("sources[]", List.of("point", "line"));
+    static final Section POINT_SOURCE = new Section("sources[].point", List.of("at", "component", "amplitude", "signal"));
+    static final Section LINE_SOURCE = new Section("sources[].line", List.of("from", "to", "component", "amplitude",
+            "angle", "waist", "signal"));
+
+    /** The kinds of signal. */
+    static final Section SIGNAL = new Section("signal", List.of("pulse", "ramped_wave", "gaussian_derivative"));
+    static final Section PULSE = new Section("signal.pulse", List.of("wavelength", "frequency", "bandwidth"));
+    static final Section RAMPED_WAVE = new Section("signal.ramped_wave", List.of("wavelength", "frequency", "ramp"));
+    static final Section GAUSSIAN_DERIVATIVE = new Section("signal.gaussian_derivative", List.of("wavelength", "frequency"));
+
+    static final Section PROBE = new Section("probes[]", List.of("name", "at", "component"));
+    static final Section OUTPUT = new Section("output", List.of("folder", "write", "frame_interval"));
+    static final Section STOP = new Section("stop", List.of("time", "steps", "decay", "limit"));
+    static final Section NUMERICS = new Section("numerics", List.of("precision", "threads", "courant"));
+
+    static final List<Section> ALL = List.of(ROOT, DOMAIN, RESOLUTION, MATERIAL, SHAPES, RECTANGLE, POLYGON, DISK,
+            ELLIPSE, HALF_PLANE, LAYER_STACK, LAYER, BOUNDARIES, SOURCES, POINT_SOURCE, LINE_SOURCE, SIGNAL, PULSE,
+            RAMPED_WAVE, GAUSSIAN_DERIVATIVE, PROBE, OUTPUT, STOP, NUMERICS);
+
+    private Schema() {
+    }
+}

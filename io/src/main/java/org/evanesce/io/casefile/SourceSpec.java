@@ -1,0 +1,70 @@
+package org.evanesce.io.casefile;
+
+import java.util.Optional;
+import org.evanesce.solver.grid.Component;
+
+/** A soft current source that drives one field component. */
+public sealed interface SourceSpec {
+
+    Located<Component> component();
+
+    /** Peak amplitude of the driving current, a plain number (normalised units). */
+    Value amplitude();
+
+    SignalSpec signal();
+
+    /** Where the source's entry starts. */
+    SourcePosition at();
+
+    /** The case-file kind, e.g. {@code point}. */
+    String kind();
+
+    /** The source's middle, metres. */
+    double[] centre();
+
+    /** A source at one point. */
+    record PointSource(Point location, Located<Component> component, Value amplitude, SignalSpec signal,
+            SourcePosition at) implements SourceSpec {
+
+        @Override
+        public String kind() {
+            return "point";
+        }
+
+        @Override
+        public double[] centre() {
+            return new double[] {location.x().si(), location.y().si()};
+        }
+    }
+
+    /**
+     * A source along a horizontal or vertical segment from {@code from} to {@code to}.
+     * {@code angle} tilts the launched wavefront: the wave leaves at this angle from the segment's
+     * normal, turned towards the direction from {@code from} to {@code to}, in the material at the
+     * segment's middle; a delay along the segment produces the tilt. {@code waist}, if given, gives
+     * the amplitude the profile exp(−(s/waist)²) with s the distance from the middle; otherwise
+     * the amplitude is uniform.
+     */
+    record LineSource(Point from, Point to, Located<Component> component, Value amplitude, Value angle,
+            Optional<Value> waist, SignalSpec signal, SourcePosition at) implements SourceSpec {
+
+        @Override
+        public String kind() {
+            return "line";
+        }
+
+        @Override
+        public double[] centre() {
+            return new double[] {(from.x().si() + to.x().si()) / 2, (from.y().si() + to.y().si()) / 2};
+        }
+
+        /** True when the segment runs along x. */
+        public boolean horizontal() {
+            return from.y().si() == to.y().si();
+        }
+
+        public double length() {
+            return Math.hypot(to.x().si() - from.x().si(), to.y().si() - from.y().si());
+        }
+    }
+}

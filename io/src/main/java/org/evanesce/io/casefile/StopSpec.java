@@ -1,0 +1,18 @@
+package org.evanesce.io.casefile;
+
+/** When a run ends. */
+public sealed interface StopSpec {
+
+    /** After a simulated time, seconds. */
+    record AfterTime(Value time) implements StopSpec { }
+
+    /** After a number of time steps. */
+    record AfterSteps(Located<Long> steps) implements StopSpec { }
+
+    /**
+     * When the field energy in the domain has fallen below {@code fraction} of its largest value
+     * (checked only once every source has faded), or at {@code limit} seconds of simulated time,
+     * whichever comes first.
+     */
+    record WhenDecayed(Value fraction, Value limit) implements StopSpec { }
+}

@@ -1,0 +1,121 @@
+package org.evanesce.io.casefile.expr;
+
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.Locale;
+import java.util.Map;
+
+/**
+ * The units a case file may write after a number, and the formatting of quantities for messages.
+ * A unit name on its own is also a value: {@code 5e6 S/m} is (5e6 S) divided by one metre.
+ */
+public final class Units {
+
+    private static final Map<String, Quantity> UNITS;
+
+    static {
+        Map<String, Quantity> u = new LinkedHashMap<>();
+        u.put("nm", new Quantity(1e-9, Dimension.LENGTH));
+        u.put("um", new Quantity(1e-6, Dimension.LENGTH));
+        u.put("mm", new Quantity(1e-3, Dimension.LENGTH));
+        u.put("m", new Quantity(1.0, Dimension.LENGTH));
+        u.put("fs", new Quantity(1e-15, Dimension.TIME));
+        u.put("ps", new Quantity(1e-12, Dimension.TIME));
+        u.put("ns", new Quantity(1e-9, Dimension.TIME));
+        u.put("s", new Quantity(1.0, Dimension.TIME));
+        u.put("Hz", new Quantity(1.0, Dimension.FREQUENCY));
+        u.put("GHz", new Quantity(1e9, Dimension.FREQUENCY));
+        u.put("THz", new Quantity(1e12, Dimension.FREQUENCY));
+        u.put("PHz", new Quantity(1e15, Dimension.FREQUENCY));
+        u.put("deg", new Quantity(Math.PI / 180.0, Dimension.ANGLE));
+        u.put("rad", new Quantity(1.0, Dimension.ANGLE));
+        u.put("S", new Quantity(1.0, new Dimension(0, 0, 0, 1)));
+        UNITS = Collections.unmodifiableMap(u);
+    }
+
+    private Units() {
+    }
+
+    /** Every unit name, in the order documented. */
+    public static Map<String, Quantity> all() {
+        return UNITS;
+    }
+
+    public static boolean isUnit(String name) {
+        return UNITS.containsKey(name);
+    }
+
+    /**
+     * {@code number} of unit {@code name} in SI, rounded once: a unit below 1 divides by its exact
+     * reciprocal (so that {@code 10 um} is the double nearest 1e-5, not 10 × 1e-6), degrees use π/180.
+     */
+    public static Quantity times(double number, String name) {
+        Quantity u = UNITS.get(name);
+        double v;
+        if (name.equals("deg")) {
+            v = number * Math.PI / 180.0;
+        } else if (u.value() < 1) {
+            v = number / Math.rint(1.0 / u.value());
+        } else {
+            v = number * u.value();
+        }
+        return new Quantity(v, u.dimension());
+    }
+
+    /** The value of one of {@code name}, or null when it is not a unit. */
+    public static Quantity unit(String name) {
+        return UNITS.get(name);
+    }
+
+    /**
+     * A quantity for people: lengths in nm, um, mm or m, times in fs, ps, ns or s, frequencies in
+     * THz (or Hz, GHz, PHz when far from optical), angles in degrees, conductivity in S/m, other
+     * kinds in SI base units. Numbers have up to six significant digits without trailing zeros.
+     */
+    public static String format(double si, Dimension d) {
+        if (d.isNone()) {
+            return number(si);
+        }
+        double a = Math.abs(si);
+        if (d.equals(Dimension.LENGTH)) {
+            return a == 0 ? "0 um" : a < 1e-6 ? number(si / 1e-9) + " nm" : a < 1e-3 ? number(si / 1e-6) + " um"
+                    : a < 1.0 ? number(si / 1e-3) + " mm" : number(si) + " m";
+        } else if (d.equals(Dimension.TIME)) {
+            return a == 0 ? "0 fs" : a < 1e-12 ? number(si / 1e-15) + " fs" : a < 1e-9 ? number(si / 1e-12) + " ps"
+                    : a < 1e-6 ? number(si / 1e-9) + " ns" : number(si) + " s";
+        } else if (d.equals(Dimension.FREQUENCY)) {
+            return a == 0 ? "0 THz" : a < 1e9 ? number(si) + " Hz" : a < 1e12 ? number(si / 1e9) + " GHz"
+                    : a < 1e15 ? number(si / 1e12) + " THz" : number(si / 1e15) + " PHz";
+        } else if (d.equals(Dimension.ANGLE)) {
+            return number(Math.toDegrees(si)) + " deg";
+        } else if (d.equals(Dimension.CONDUCTIVITY)) {
+            return number(si) + " S/m";
+        }
+        return number(si) + " " + d.siUnit();
+    }
+
+    /** A number with up to six significant digits, trailing zeros removed ({@code %g} style). */
+    public static String number(double v) {
+        if (v == 0) {
+            return "0";
+        }
+        if (!Double.isFinite(v)) {
+            return Double.toString(v);
+        }
+        String s = String.format(Locale.ROOT, "%.6g", v);
+        int e = s.indexOf('e');
+        String mantissa = e < 0 ? s : s.substring(0, e);
+        String exponent = e < 0 ? "" : s.substring(e);
+        if (mantissa.indexOf('.') >= 0) {
+            mantissa = mantissa.replaceAll("0+$", "");
+            if (mantissa.endsWith(".")) {
+                mantissa = mantissa.substring(0, mantissa.length() - 1);
+            }
+        }
+        if (!exponent.isEmpty()) {
+            // e+05 -> e+5, e-07 -> e-7
+            exponent = exponent.replaceFirst("e([+-])0*(\\d)", "e$1$2");
+        }
+        return mantissa + exponent;
+    }
+}

@@ -1,0 +1,78 @@
+package org.evanesce.io.output;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.file.FileAlreadyExistsException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+class RunFolderTest {
+
+    @TempDir
+    Path tmp;
+
+    @Test
+    void aFinishedFolderAppearsOnlyOnCommit() throws Exception {
+        Path out = tmp.resolve("run1");
+        try (RunFolder f = RunFolder.begin(out, false)) {
+            f.writeText("a.txt", "hello");
+            assertFalse(Files.exists(out), "nothing under the final name before commit");
+            f.commit();
+        }
+        assertEquals("hello", Files.readString(out.resolve("a.txt")));
+        assertEquals(List.of("run1"), names(tmp), "no temporary folder left behind");
+    }
+
+    @Test
+    void anUnfinishedRunLeavesNothing() throws Exception {
+        Path out = tmp.resolve("run2");
+        try (RunFolder f = RunFolder.begin(out, false)) {
+            f.writeText("a.txt", "partial");
+        }
+        assertFalse(Files.exists(out));
+        assertTrue(names(tmp).isEmpty(), "temporary folder removed: " + names(tmp));
+    }
+
+    @Test
+    void aFinishedFolderIsNeverOverwrittenSilently() throws Exception {
+        Path out = tmp.resolve("run3");
+        try (RunFolder f = RunFolder.begin(out, false)) {
+            f.writeText("a.txt", "first");
+            f.commit();
+        }
+        assertThrows(FileAlreadyExistsException.class, () -> RunFolder.begin(out, false));
+        try (RunFolder f = RunFolder.begin(out, true)) {
+            f.writeText("a.txt", "second");
+            assertEquals("first", Files.readString(out.resolve("a.txt")), "old result kept until the new one is complete");
+            f.commit();
+        }
+        assertEquals("second", Files.readString(out.resolve("a.txt")));
+        assertEquals(List.of("run3"), names(tmp));
+    }
+
+    @Test
+    void jsonEscapesAndKeepsOrder() {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("name", "a \"b\"\n");
+        m.put("x", 1.5e-9);
+        m.put("nan", Double.NaN);
+        m.put("list", List.of(1, true));
+        assertEquals("{\n  \"name\": \"a \\\"b\\\"\\n\",\n  \"x\": 1.5e-9,\n  \"nan\": null,\n  \"list\": [\n    1,\n    true\n  ]\n}\n",
+                Json.write(m));
+    }
+
+    private static List<String> names(Path dir) throws Exception {
+        try (Stream<Path> s = Files.list(dir)) {
+            return s.map(p -> p.getFileName().toString()).sorted().toList();
+        }
+    }
+}
