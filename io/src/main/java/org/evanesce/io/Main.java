@@ -4,6 +4,8 @@ import java.io.PrintStream;
 import java.io.PrintWriter;
 import java.util.concurrent.Callable;
 import org.evanesce.io.cli.BenchCommand;
+import org.evanesce.io.cli.CheckCommand;
+import org.evanesce.io.cli.RunCommand;
 import org.evanesce.io.cli.VersionProvider;
 import org.evanesce.solver.DivergenceException;
 import picocli.CommandLine;
@@ -28,7 +30,7 @@ import picocli.CommandLine.Spec;
  */
 @Command(name = "evanesce", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
         description = "2D FDTD field simulator for optical tunnelling and near-field geometries.",
-        subcommands = {BenchCommand.class},
+        subcommands = {RunCommand.class, CheckCommand.class, BenchCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
             "0:success",

@@ -1,0 +1,90 @@
+package org.evanesce.io.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import org.evanesce.io.Main;
+import org.evanesce.io.plan.CasePlan;
+import org.evanesce.io.run.JitWarmUp;
+import org.evanesce.io.run.RunOutputs;
+import org.evanesce.solver.Simulation;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ParameterException;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code evanesce check CASE}: validates and plans a case, prints its size, steps, memory and a
+ * run-time estimate from a short timed trial, and writes the geometry preview. Runs nothing else.
+ */
+@Command(name = "check", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class, sortOptions = false,
+        description = {"Validate a case file and estimate its run: cells, steps, memory, and the run time measured by "
+                + "a short trial on this machine. Writes the rasterised permittivity as a PNG preview."})
+public final class CheckCommand implements Callable<Integer> {
+
+    @Spec
+    private CommandSpec spec;
+
+    @Mixin
+    private CaseOptions options;
+
+    @Option(names = "--preview", paramLabel = "FILE",
+            description = "Where to write the preview PNG (default: CASE's name with -preview.png, beside it).")
+    private Path preview;
+
+    @Option(names = "--trial-seconds", paramLabel = "S", defaultValue = "1",
+            description = "Wall time of the timed trial (default: ${DEFAULT-VALUE}; 0 skips it).")
+    private double trialSeconds;
+
+    @Override
+    public Integer call() throws IOException {
+        PrintWriter err = spec.commandLine().getErr();
+        PrintWriter o = spec.commandLine().getOut();
+        CaseOptions.Loaded l;
+        try {
+            l = options.load(err);
+        } catch (CaseOptions.BadInput e) {
+            throw new ParameterException(spec.commandLine(), e.getMessage());
+        }
+        CasePlan plan = l.plan();
+        long cells = (long) plan.grid().nx() * plan.grid().ny();
+        long maxSteps = plan.stop().maxSteps();
+        o.printf(Locale.ROOT, "%s: valid (%d warning(s))%n", l.loaded().spec().source(), l.loaded().warnings().size());
+        o.printf(Locale.ROOT, "grid: %d x %d = %d cells of %.4g nm; %d materials after smoothing%n",
+                plan.grid().nx(), plan.grid().ny(), cells, plan.grid().cellSize() * 1e9, plan.materials().materials().size());
+        o.printf(Locale.ROOT, "time step: %.4g fs; steps: %s%d%n", plan.dt() * 1e15,
+                plan.stop() instanceof CasePlan.Stop.Decay ? "at most " : "", maxSteps);
+        try (Simulation sim = plan.builder().build()) {
+            o.printf(Locale.ROOT, "memory: %.1f MiB of field, coefficient and PML arrays (%d bytes per cell), %d threads%n",
+                    sim.bytes() / 1048576.0, sim.bytesPerCell(), sim.threads());
+            if (trialSeconds > 0) {
+                JitWarmUp.run(plan.spec().polarization().value(), plan.spec().numerics().precision().value());
+                long t0 = System.nanoTime();
+                long steps = 0;
+                while ((System.nanoTime() - t0) * 1e-9 < trialSeconds && steps < maxSteps) {
+                    sim.run(Math.min(10, maxSteps - steps));
+                    steps += Math.min(10, maxSteps - steps);
+                }
+                double sec = (System.nanoTime() - t0) * 1e-9;
+                double rate = steps / sec;
+                o.printf(Locale.ROOT, "trial: %d steps in %.2f s (%.0f Mcell/s); estimated run time "
+                        + "%.0f s%s%n", steps, sec, rate * cells / 1e6, maxSteps / rate,
+                        plan.stop() instanceof CasePlan.Stop.Decay ? " at most" : "");
+            }
+        }
+        Path png = preview != null ? preview : defaultPreview(options.caseFile);
+        RunOutputs.preview(plan, png);
+        o.println("preview: " + png.toAbsolutePath());
+        return Main.OK;
+    }
+
+    static Path defaultPreview(Path caseFile) {
+        String name = caseFile.getFileName().toString();
+        int dot = name.lastIndexOf('.');
+        return caseFile.toAbsolutePath().resolveSibling((dot > 0 ? name.substring(0, dot) : name) + "-preview.png");
+    }
+}

@@ -1,0 +1,346 @@
+package org.evanesce.io.output.image;
+
+import java.awt.image.BufferedImage;
+import java.io.IOException;
+import java.io.OutputStream;
+import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.nio.file.StandardOpenOption;
+import java.util.Iterator;
+import java.util.concurrent.ThreadLocalRandom;
+import javax.imageio.ImageIO;
+import javax.imageio.ImageWriter;
+import javax.imageio.stream.ImageOutputStream;
+import javax.imageio.stream.MemoryCacheImageOutputStream;
+import org.evanesce.geometry.GridSpec;
+
+/**
+ * A quick-look picture of a scalar on the grid: the values as coloured cells, x and y axes with
+ * lengths in a display unit, a colour bar with its own ticks and label, and a title line.
+ *
+ * <p>Values are row-major, {@code v[j*nx + i]}: i along x, j along y, y up, so row j = 0 is drawn
+ * at the bottom. Value (i, j) is the sample at (x0 + iΔ, y0 + jΔ) metres and is drawn as the
+ * Δ × Δ square centred there, so the picture spans [x0 − Δ/2, x0 + (nx − ½)Δ] along x.
+ *
+ * <p>Pixel size: grids whose longer side is at most {@value #MAX_PLOT_SIDE} cells are drawn with
+ * every cell an s × s block of pixels, s a whole number chosen to bring the longer side near
+ * {@value #TARGET_PLOT_SIDE} pixels (nearest-neighbour upscaling, so cells stay visible); larger
+ * grids are reduced by a whole factor k so that the longer side fits, each pixel showing a k × k
+ * block of cells by its {@link Downsampling}. Cells are always square.
+ *
+ * <p>Colour: the value range is given, or taken from the finite values (minimum to maximum for a
+ * {@linkplain ColourMap.Kind#SEQUENTIAL sequential} map, ±max|v| for a
+ * {@linkplain ColourMap.Kind#DIVERGING diverging} one). Values beyond the range take the end
+ * colours; NaN takes the map's missing colour and the bar then shows a swatch with the count of NaN
+ * cells. If every finite value is equal the picture is one colour (the map's middle) and the bar
+ * has a single tick.
+ *
+ * <p>Text is drawn with {@link PixelFont}, so nothing depends on installed fonts; the picture is
+ * built in a {@link BufferedImage} of type {@code TYPE_INT_RGB} and written with
+ * {@link javax.imageio} only, which work with {@code -Djava.awt.headless=true}.
+ *
+ * <p>Immutable once built. The value array is <em>not</em> copied (field arrays can be large):
+ * do not change it while the heat map is in use.
+ */
+public final class Heatmap {
+
+    /** How one pixel shows a block of cells when a large grid is reduced. */
+    public enum Downsampling {
+        /** The mean of the block; NaN if any cell of the block is NaN. */
+        MEAN,
+        /** The value of largest magnitude, sign kept (keeps peaks of oscillating fields); NaN as for MEAN. */
+        LARGEST_MAGNITUDE
+    }
+
+    /** Longer side, in pixels, that small grids are upscaled towards. */
+    public static final int TARGET_PLOT_SIDE = 640;
+    /** Longer side, in pixels, beyond which grids are reduced. */
+    public static final int MAX_PLOT_SIDE = 1000;
+
+    private final double[] doubles;
+    private final float[] floats;
+    private final int nx;
+    private final int ny;
+    private final double x0;
+    private final double y0;
+    private final double cellSize;
+    private final DisplayUnit unit;
+    private final String title;
+    private final String barLabel;
+    private final ColourMap colourMap;
+    private final double rangeLow;
+    private final double rangeHigh;
+    private final Downsampling downsampling;
+
+    private Heatmap(Builder b) {
+        doubles = b.doubles;
+        floats = b.floats;
+        nx = b.nx;
+        ny = b.ny;
+        x0 = b.x0;
+        y0 = b.y0;
+        cellSize = b.cellSize;
+        unit = b.unit != null ? b.unit : DisplayUnit.forExtent(Math.max(nx, ny) * cellSize);
+        title = b.title;
+        barLabel = b.barLabel;
+        colourMap = b.colourMap;
+        rangeLow = b.rangeLow;
+        rangeHigh = b.rangeHigh;
+        downsampling = b.downsampling;
+    }
+
+    /**
+     * Starts a heat map of {@code values[j*nx + i]} (not copied, not modified).
+     *
+     * @throws IllegalArgumentException if nx or ny is below 1 or the array length is not nx·ny
+     */
+    public static Builder builder(double[] values, int nx, int ny) {
+        checkSize(values.length, nx, ny);
+        return new Builder(values, null, nx, ny);
+    }
+
+    /** As {@link #builder(double[], int, int)}, for single-precision fields. */
+    public static Builder builder(float[] values, int nx, int ny) {
+        checkSize(values.length, nx, ny);
+        return new Builder(null, values, nx, ny);
+    }
+
+    private static void checkSize(int length, int nx, int ny) {
+        if (nx < 1 || ny < 1 || (long) nx * ny != length) {
+            throw new IllegalArgumentException(String.format(
+                    "heat map of %d × %d cells needs nx, ny ≥ 1 and an array of nx·ny values, but it has %d",
+                    nx, ny, length));
+        }
+    }
+
+    /** Value (i, j). */
+    double value(int i, int j) {
+        int k = j * nx + i;
+        return doubles != null ? doubles[k] : floats[k];
+    }
+
+    /** Cells along x. */
+    public int nx() {
+        return nx;
+    }
+
+    /** Cells along y. */
+    public int ny() {
+        return ny;
+    }
+
+    /** x of value (0, 0), m. */
+    public double x0() {
+        return x0;
+    }
+
+    /** y of value (0, 0), m. */
+    public double y0() {
+        return y0;
+    }
+
+    /** Δ, m. */
+    public double cellSize() {
+        return cellSize;
+    }
+
+    /** The unit of the axis labels (chosen from the extent unless one was given). */
+    public DisplayUnit unit() {
+        return unit;
+    }
+
+    /** The title line; empty for none. */
+    public String title() {
+        return title;
+    }
+
+    /** The colour bar's label; empty for none. */
+    public String colourBarLabel() {
+        return barLabel;
+    }
+
+    /** The colour map. */
+    public ColourMap colourMap() {
+        return colourMap;
+    }
+
+    /** How large grids are reduced. */
+    public Downsampling downsampling() {
+        return downsampling;
+    }
+
+    /** The given lower end of the colour range, or NaN when it comes from the data. */
+    double rangeLow() {
+        return rangeLow;
+    }
+
+    /** The given upper end of the colour range, or NaN when it comes from the data. */
+    double rangeHigh() {
+        return rangeHigh;
+    }
+
+    /** Where everything goes; package-private for tests. */
+    HeatmapLayout layout() {
+        return new HeatmapLayout(this);
+    }
+
+    /** Draws the picture. */
+    public BufferedImage render() {
+        return layout().draw().toImage();
+    }
+
+    /**
+     * Writes the picture as a PNG file, atomically: it is written under a temporary name in the
+     * same folder and renamed onto {@code file} when complete, replacing an earlier file of that
+     * name; after a failure no temporary file is left. Missing parent folders are created.
+     *
+     * @return the absolute path written
+     */
+    public Path writePng(Path file) throws IOException {
+        BufferedImage img = render();
+        Path target = file.toAbsolutePath().normalize();
+        Path dir = target.getParent();
+        Files.createDirectories(dir);
+        Path tmp = dir.resolve("." + target.getFileName() + "."
+                + Long.toHexString(ThreadLocalRandom.current().nextLong() & Long.MAX_VALUE) + ".tmp");
+        try {
+            Iterator<ImageWriter> writers = ImageIO.getImageWritersByFormatName("png");
+            if (!writers.hasNext()) {
+                throw new IOException("no PNG writer in this Java runtime; cannot write " + target);
+            }
+            ImageWriter writer = writers.next();
+            try (OutputStream out = Files.newOutputStream(tmp, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE);
+                    ImageOutputStream ios = new MemoryCacheImageOutputStream(out)) {
+                writer.setOutput(ios);
+                writer.write(img);
+            } finally {
+                writer.dispose();
+            }
+            try {
+                Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
+            } catch (AtomicMoveNotSupportedException e) {
+                Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
+            }
+        } finally {
+            Files.deleteIfExists(tmp);
+        }
+        return target;
+    }
+
+    /** Collects the settings of a heat map; only the cell size must be given. */
+    public static final class Builder {
+        private final double[] doubles;
+        private final float[] floats;
+        private final int nx;
+        private final int ny;
+        private double x0;
+        private double y0;
+        private double cellSize = Double.NaN;
+        private DisplayUnit unit;
+        private String title = "";
+        private String barLabel = "";
+        private ColourMap colourMap = ColourMap.LUMEN;
+        private double rangeLow = Double.NaN;
+        private double rangeHigh = Double.NaN;
+        private Downsampling downsampling = Downsampling.MEAN;
+
+        private Builder(double[] doubles, float[] floats, int nx, int ny) {
+            this.doubles = doubles;
+            this.floats = floats;
+            this.nx = nx;
+            this.ny = ny;
+        }
+
+        /** Position of value (0, 0), m; default (0, 0). */
+        public Builder origin(double x, double y) {
+            if (!Double.isFinite(x) || !Double.isFinite(y)) {
+                throw new IllegalArgumentException(String.format("heat map origin (%g, %g) m must be finite", x, y));
+            }
+            x0 = x;
+            y0 = y;
+            return this;
+        }
+
+        /** Δ, the spacing of the values along x and y, m; finite and &gt; 0. */
+        public Builder cellSize(double metres) {
+            if (!(metres > 0) || Double.isInfinite(metres)) {
+                throw new IllegalArgumentException(String.format(
+                        "heat map cell size %g m must be finite and > 0", metres));
+            }
+            cellSize = metres;
+            return this;
+        }
+
+        /**
+         * Origin and cell size of {@code grid}, for values at its nodes (the Ez site); add the site
+         * offset to the origin for other sites.
+         *
+         * @throws IllegalArgumentException if the grid's node counts are not nx × ny
+         */
+        public Builder grid(GridSpec grid) {
+            if (grid.nx() != nx || grid.ny() != ny) {
+                throw new IllegalArgumentException(String.format(
+                        "grid of %d × %d nodes does not match the %d × %d values", grid.nx(), grid.ny(), nx, ny));
+            }
+            origin(grid.x0(), grid.y0());
+            return cellSize(grid.cellSize());
+        }
+
+        /** The unit of the axis labels; by default chosen from the extent ({@link DisplayUnit#forExtent}). */
+        public Builder unit(DisplayUnit u) {
+            unit = u;
+            return this;
+        }
+
+        /** The title line; empty (the default) for none. */
+        public Builder title(String text) {
+            title = text == null ? "" : text.strip();
+            return this;
+        }
+
+        /** The colour bar's label, e.g. "relative permittivity (Ez site)"; empty for none. */
+        public Builder colourBarLabel(String text) {
+            barLabel = text == null ? "" : text.strip();
+            return this;
+        }
+
+        /** The colour map; default {@link ColourMap#LUMEN}. */
+        public Builder colourMap(ColourMap map) {
+            if (map == null) {
+                throw new IllegalArgumentException("heat map colour map must be given");
+            }
+            colourMap = map;
+            return this;
+        }
+
+        /** A fixed colour range instead of one from the data; finite with low &lt; high. */
+        public Builder range(double low, double high) {
+            if (!Double.isFinite(low) || !Double.isFinite(high) || !(high > low)) {
+                throw new IllegalArgumentException(String.format(
+                        "heat map colour range [%g, %g]: need finite ends with the upper above the lower", low, high));
+            }
+            rangeLow = low;
+            rangeHigh = high;
+            return this;
+        }
+
+        /** How large grids are reduced; default {@link Downsampling#MEAN}. */
+        public Builder downsampling(Downsampling d) {
+            if (d == null) {
+                throw new IllegalArgumentException("heat map downsampling must be given");
+            }
+            downsampling = d;
+            return this;
+        }
+
+        /** @throws IllegalStateException if no cell size was given */
+        public Heatmap build() {
+            if (Double.isNaN(cellSize)) {
+                throw new IllegalStateException("heat map: the cell size was not given");
+            }
+            return new Heatmap(this);
+        }
+    }
+}

@@ -1,0 +1,46 @@
+package org.evanesce.io.plan;
+
+import java.util.List;
+import org.evanesce.geometry.GridSpec;
+import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.io.casefile.CaseSpec;
+import org.evanesce.solver.Simulation;
+import org.evanesce.solver.monitor.Probe;
+
+/**
+ * A case mapped onto the solver: the rasterised materials, a configured simulation builder, the
+ * probes with their names, and when to stop.
+ *
+ * @param spec        the validated case
+ * @param grid        where the nodes lie
+ * @param materials   the rasterised (smoothed) materials
+ * @param builder     the simulation, ready to build (sources, boundaries, numerics set)
+ * @param probes      named probes, already registered as listeners on the builder
+ * @param stop        when the run ends
+ * @param dt          the time step, s
+ * @param interior    the cells outside every PML, {i0, j0, i1, j1} (i1, j1 exclusive), for the energy
+ */
+public record CasePlan(CaseSpec spec, GridSpec grid, MaterialGrid materials, Simulation.Builder builder,
+                       List<NamedProbe> probes, Stop stop, double dt, int[] interior) {
+
+    /** A probe with the name the case gave it and the node it samples. */
+    public record NamedProbe(String name, Probe probe, int i, int j) { }
+
+    /** When a run ends. */
+    public sealed interface Stop {
+        /** After a fixed number of steps. */
+        record Steps(long steps) implements Stop { }
+
+        /**
+         * When the field energy inside the PMLs falls below {@code fraction} of its largest value,
+         * checked every {@code checkInterval} steps once the sources have faded (after
+         * {@code fadeSteps}), and at the latest after {@code limitSteps}.
+         */
+        record Decay(double fraction, long fadeSteps, long limitSteps, int checkInterval) implements Stop { }
+
+        /** The most steps the run can take. */
+        default long maxSteps() {
+            return this instanceof Steps s ? s.steps() : ((Decay) this).limitSteps();
+        }
+    }
+}

@@ -1,0 +1,310 @@
+package org.evanesce.io.plan;
+
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import org.evanesce.geometry.GridSpec;
+import org.evanesce.geometry.LayerStack;
+import org.evanesce.geometry.Material;
+import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.Rasterizer;
+import org.evanesce.geometry.Scene;
+import org.evanesce.geometry.Smoothing;
+import org.evanesce.geometry.shape.Ellipse;
+import org.evanesce.geometry.shape.HalfPlane;
+import org.evanesce.geometry.shape.Polygon;
+import org.evanesce.geometry.shape.Rectangle;
+import org.evanesce.geometry.shape.Shape;
+import org.evanesce.io.casefile.BoundarySpec;
+import org.evanesce.io.casefile.CaseSpec;
+import org.evanesce.io.casefile.Diagnostic;
+import org.evanesce.io.casefile.MaterialSpec;
+import org.evanesce.io.casefile.OutputSpec;
+import org.evanesce.io.casefile.ProbeSpec;
+import org.evanesce.io.casefile.ResolutionSpec;
+import org.evanesce.io.casefile.ShapeSpec;
+import org.evanesce.io.casefile.SignalSpec;
+import org.evanesce.io.casefile.SourcePosition;
+import org.evanesce.io.casefile.SourceSpec;
+import org.evanesce.io.casefile.StopSpec;
+import org.evanesce.solver.PhysicalConstants;
+import org.evanesce.solver.Simulation;
+import org.evanesce.solver.boundary.Boundary;
+import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Side;
+import org.evanesce.solver.kernel.Engine;
+import org.evanesce.solver.monitor.Probe;
+import org.evanesce.solver.source.GaussianPulse;
+import org.evanesce.solver.source.Source;
+import org.evanesce.solver.source.TimeSignal;
+
+/**
+ * Maps a validated {@link CaseSpec} onto the geometry and the solver (DESIGN.md: CaseSpec →
+ * Scene + GridSpec → MaterialGrid → the solver's plan). Whatever the file format allows but this
+ * version cannot run is refused here with the case file's position.
+ */
+public final class CasePlanner {
+
+    /** Steps between energy checks of a run that stops on decay: about one step's cost every 32 steps. */
+    static final int DECAY_CHECK_INTERVAL = 32;
+    /** The solver's default Courant number, used when the case gives none. */
+    public static final double DEFAULT_COURANT = 0.5;
+
+    private final CaseSpec spec;
+    private final List<Diagnostic> errors = new ArrayList<>();
+
+    private CasePlanner(CaseSpec spec) {
+        this.spec = spec;
+    }
+
+    /**
+     * Plans a case.
+     *
+     * @param threads the command line's thread count, which wins over the case's; null to use the case's
+     * @throws PlanException listing everything that cannot be planned, with positions
+     */
+    public static CasePlan plan(CaseSpec spec, Integer threads) throws PlanException {
+        return new CasePlanner(spec).plan(threads);
+    }
+
+    private CasePlan plan(Integer threads) throws PlanException {
+        checkOutputs();
+        ResolutionSpec r = spec.resolution();
+        double dx = r.cellSize().si();
+        GridSpec grid = new GridSpec(r.x(0), r.y(0), dx, r.nx(), r.ny());
+        Map<String, Material> materials = materials();
+        Scene scene = scene(materials);
+        double courant = spec.numerics().courant().map(v -> v.si()).orElse(DEFAULT_COURANT);
+        double dt = courant * dx / PhysicalConstants.C0;
+        Map<Side, Boundary> sides = boundaries();
+        List<Source> sources = new ArrayList<>();
+        double fade = 0;
+        for (int k = 0; k < spec.sources().size(); k++) {
+            SourceSpec s = spec.sources().get(k);
+            Source src = source(s, k, grid, sides);
+            if (src != null) {
+                sources.add(src);
+                fade = Math.max(fade, fadeTime(src.signal()));
+            }
+        }
+        List<CasePlan.NamedProbe> probes = new ArrayList<>();
+        for (int k = 0; k < spec.probes().size(); k++) {
+            CasePlan.NamedProbe p = probe(spec.probes().get(k), k, grid, sides);
+            if (p != null) {
+                probes.add(p);
+            }
+        }
+        CasePlan.Stop stop = stop(dt, fade);
+        if (!errors.isEmpty()) {
+            throw new PlanException(errors);
+        }
+        MaterialGrid mg = Rasterizer.rasterize(scene, grid, Smoothing.ANISOTROPIC);
+        Simulation.Builder b = Simulation.builder(mg).polarization(spec.polarization().value())
+                .precision(spec.numerics().precision().value()).courant(courant);
+        sides.forEach(b::boundary);
+        Integer t = threads != null ? threads : spec.numerics().threads().map(l -> l.value()).orElse(null);
+        if (t != null) {
+            b.threads(t);
+        }
+        sources.forEach(b::source);
+        probes.forEach(p -> b.listener(p.probe()));
+        return new CasePlan(spec, grid, mg, b, List.copyOf(probes), stop, dt, interior(sides, grid));
+    }
+
+    private void error(SourcePosition at, String path, String message) {
+        errors.add(new Diagnostic(Diagnostic.Severity.ERROR, at, path, message));
+    }
+
+    private void checkOutputs() {
+        for (var item : spec.output().write()) {
+            OutputSpec.Item it = item.value();
+            if (it == OutputSpec.Item.FIELDS || it == OutputSpec.Item.FIELD_FRAMES || it == OutputSpec.Item.PERMITTIVITY) {
+                error(item.at(), "output.write", String.format("'%s' (HDF5 + XDMF field output) is not available in this "
+                        + "version yet; expected one of: probes, preview", it.caseName()));
+            }
+        }
+    }
+
+    private Map<String, Material> materials() {
+        Map<String, Material> out = new HashMap<>();
+        for (MaterialSpec m : spec.materials().values()) {
+            out.put(m.name(), new Material(m.name(), m.relativePermittivity().si(), m.conductivity().si()));
+        }
+        return out;
+    }
+
+    private Scene scene(Map<String, Material> materials) {
+        Scene.Builder sb = Scene.builder(materials.get(spec.domain().background().value()));
+        for (int k = 0; k < spec.shapes().size(); k++) {
+            ShapeSpec s = spec.shapes().get(k);
+            String path = "shapes[" + k + "]." + s.kind();
+            try {
+                if (s instanceof ShapeSpec.LayerStack ls) {
+                    double a = ls.rotation().si();
+                    List<LayerStack.Layer> layers = ls.layers().stream()
+                            .map(l -> new LayerStack.Layer(materials.get(l.material().value()), l.thickness().si())).toList();
+                    sb.add(new LayerStack(ls.start().x().si(), ls.start().y().si(), -Math.sin(a), Math.cos(a), layers));
+                } else {
+                    sb.add(shape(s), materials.get(s.materials().get(0).value()));
+                }
+            } catch (IllegalArgumentException e) {
+                error(s.at(), path, e.getMessage());
+            }
+        }
+        return sb.build();
+    }
+
+    private static Shape shape(ShapeSpec s) {
+        if (s instanceof ShapeSpec.Rectangle r) {
+            return new Rectangle(r.centre().x().si(), r.centre().y().si(), r.width().si(), r.height().si(), r.rotation().si());
+        }
+        if (s instanceof ShapeSpec.Polygon p) {
+            double[][] c = p.placedCorners();
+            double[] xs = new double[c.length];
+            double[] ys = new double[c.length];
+            for (int k = 0; k < c.length; k++) {
+                xs[k] = c[k][0];
+                ys[k] = c[k][1];
+            }
+            return new Polygon(xs, ys);
+        }
+        if (s instanceof ShapeSpec.Disk d) {
+            return Ellipse.disk(d.centre().x().si(), d.centre().y().si(), d.radius().si());
+        }
+        if (s instanceof ShapeSpec.Ellipse e) {
+            return new Ellipse(e.centre().x().si(), e.centre().y().si(), e.radiusX().si(), e.radiusY().si(), e.rotation().si());
+        }
+        if (s instanceof ShapeSpec.HalfPlane h) {
+            // the case gives the direction into the filled side; the shape takes the outward normal
+            return new HalfPlane(h.through().x().si(), h.through().y().si(), -Math.cos(h.inward().si()), -Math.sin(h.inward().si()));
+        }
+        throw new IllegalStateException("unexpected shape kind " + s.kind());
+    }
+
+    private Map<Side, Boundary> boundaries() {
+        Map<Side, Boundary> out = new java.util.EnumMap<>(Side.class);
+        for (Side side : Side.values()) {
+            BoundarySpec b = spec.boundary(side);
+            out.put(side, b instanceof BoundarySpec.Pml p ? Boundary.pml(p.cells())
+                    : b instanceof BoundarySpec.Pmc ? Boundary.pmc() : Boundary.pec());
+        }
+        return out;
+    }
+
+    /** Nearest node index of a component's site to coordinate v along an axis. */
+    private static int nearest(double v, double origin, double dx, double siteOffset) {
+        return (int) Math.round((v - origin) / dx - siteOffset);
+    }
+
+    private Source source(SourceSpec s, int k, GridSpec g, Map<Side, Boundary> sides) {
+        String path = "sources[" + k + "]." + s.kind();
+        double dx = g.cellSize();
+        TimeSignal signal = signal(s.signal());
+        if (s instanceof SourceSpec.PointSource p) {
+                Component c = p.component().value();
+                int i = nearest(p.location().x().si(), g.x0(), dx, c.dx);
+                int j = nearest(p.location().y().si(), g.y0(), dx, c.dy);
+                if (!Engine.wouldUpdate(sides, g.nx(), g.ny(), c, i, j)) {
+                    error(p.at(), path + ".at", String.format("the nearest %s site, node (%d, %d), is on a wall or outside "
+                            + "the grid; expected a point inside the domain's walls", c, i, j));
+                    return null;
+                }
+                return Source.point(c, g.nx(), i, j, p.amplitude().si(), signal);
+        }
+        SourceSpec.LineSource l = (SourceSpec.LineSource) s;
+        {
+                Component c = l.component().value();
+                if (Math.abs(l.angle().si()) > 0 || l.waist().isPresent()) {
+                    error(l.at(), path, "tilted or beam-shaped line sources (angle, waist) are not available in this "
+                            + "version yet; expected a line source with neither");
+                    return null;
+                }
+                int i0 = nearest(l.from().x().si(), g.x0(), dx, c.dx);
+                int j0 = nearest(l.from().y().si(), g.y0(), dx, c.dy);
+                int i1 = nearest(l.to().x().si(), g.x0(), dx, c.dx);
+                int j1 = nearest(l.to().y().si(), g.y0(), dx, c.dy);
+                if (i0 != i1 && j0 != j1) {
+                    error(l.at(), path, String.format("the line from node (%d, %d) to (%d, %d) is neither horizontal nor "
+                            + "vertical; expected a line along x or y", i0, j0, i1, j1));
+                    return null;
+                }
+                int ia = Math.min(i0, i1);
+                int ib = Math.max(i0, i1);
+                int ja = Math.min(j0, j1);
+                int jb = Math.max(j0, j1);
+                List<Integer> cells = new ArrayList<>();
+                for (int j = ja; j <= jb; j++) {
+                    for (int i = ia; i <= ib; i++) {
+                        // cells that fall on a wall are left out: a line may run from wall to wall
+                        if (Engine.wouldUpdate(sides, g.nx(), g.ny(), c, i, j)) {
+                            cells.add(j * g.nx() + i);
+                        }
+                    }
+                }
+                if (cells.isEmpty()) {
+                    error(l.at(), path, "the line has no site inside the domain's walls");
+                    return null;
+                }
+                double[] amp = new double[cells.size()];
+                java.util.Arrays.fill(amp, l.amplitude().si());
+                return new Source(c, cells.stream().mapToInt(Integer::intValue).toArray(), amp, signal);
+        }
+    }
+
+    private static TimeSignal signal(SignalSpec s) {
+        if (s instanceof SignalSpec.Pulse p) {
+            return TimeSignal.gaussianPulse(p.frequency().si(), p.spectrumSigma());
+        }
+        if (s instanceof SignalSpec.RampedWave w) {
+            return TimeSignal.rampedContinuous(w.frequency().si(), w.rampTime().si());
+        }
+        return TimeSignal.differentiatedGaussian(((SignalSpec.GaussianDerivative) s).width());
+    }
+
+    /** When a signal has faded to e^−18 of its peak; infinite for a continuous wave. */
+    static double fadeTime(TimeSignal s) {
+        if (s instanceof GaussianPulse p) {
+            return 2 * p.delay();
+        }
+        if (s instanceof org.evanesce.solver.source.DifferentiatedGaussian d) {
+            return 12 * d.width();
+        }
+        return Double.POSITIVE_INFINITY;
+    }
+
+    private CasePlan.NamedProbe probe(ProbeSpec p, int k, GridSpec g, Map<Side, Boundary> sides) {
+        Component c = p.component().value();
+        int i = nearest(p.location().x().si(), g.x0(), g.cellSize(), c.dx);
+        int j = nearest(p.location().y().si(), g.y0(), g.cellSize(), c.dy);
+        if (i < 0 || j < 0 || i >= g.nx() || j >= g.ny()) {
+            error(p.at(), "probes[" + k + "].at", String.format("node (%d, %d) is outside the grid (%d × %d nodes)",
+                    i, j, g.nx(), g.ny()));
+            return null;
+        }
+        return new CasePlan.NamedProbe(p.name().value(), new Probe(c, i, j), i, j);
+    }
+
+    private CasePlan.Stop stop(double dt, double fade) {
+        StopSpec st = spec.stop();
+        if (st instanceof StopSpec.AfterSteps s) {
+            return new CasePlan.Stop.Steps(s.steps().value());
+        }
+        if (st instanceof StopSpec.AfterTime t) {
+            return new CasePlan.Stop.Steps((long) Math.ceil(t.time().si() / dt));
+        }
+        StopSpec.WhenDecayed d = (StopSpec.WhenDecayed) st;
+        long limit = (long) Math.ceil(d.limit().si() / dt);
+        long fadeSteps = Double.isFinite(fade) ? (long) Math.ceil(fade / dt) : limit;
+        return new CasePlan.Stop.Decay(d.fraction().si(), Math.min(fadeSteps, limit), limit, DECAY_CHECK_INTERVAL);
+    }
+
+    private static int[] interior(Map<Side, Boundary> sides, GridSpec g) {
+        return new int[] {layers(sides.get(Side.LEFT)), layers(sides.get(Side.BOTTOM)),
+            g.nx() - layers(sides.get(Side.RIGHT)), g.ny() - layers(sides.get(Side.TOP))};
+    }
+
+    private static int layers(Boundary b) {
+        return b instanceof Boundary.Pml p ? p.parameters().layers() : 0;
+    }
+}

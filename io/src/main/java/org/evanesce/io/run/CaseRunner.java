@@ -1,0 +1,82 @@
+package org.evanesce.io.run;
+
+import java.util.function.Consumer;
+import org.evanesce.io.plan.CasePlan;
+import org.evanesce.solver.Simulation;
+import org.evanesce.solver.monitor.Progress;
+
+/**
+ * Steps a planned case to its stopping rule: a fixed number of steps, or until the field energy
+ * inside the PMLs has decayed to a fraction of its largest value (checked every few steps once
+ * the sources have faded), at the latest at the time limit.
+ */
+public final class CaseRunner {
+
+    /**
+     * What a finished run measured.
+     *
+     * @param steps          steps taken
+     * @param wallSeconds    wall time of the stepping
+     * @param threads        threads that stepped
+     * @param stopReason     why the run ended, in words
+     * @param finalEnergy    energy inside the PMLs at the end, J/m (NaN if never measured)
+     * @param peakEnergy     largest energy measured, J/m (NaN if never measured)
+     * @param bytes          bytes of field, coefficient and PML arrays
+     */
+    public record Result(long steps, double wallSeconds, int threads, String stopReason, double finalEnergy,
+                         double peakEnergy, long bytes) {
+
+        /** Cell updates per second of wall time. */
+        public double cellUpdatesPerSecond(long cells) {
+            return wallSeconds > 0 ? cells * (double) steps / wallSeconds : Double.NaN;
+        }
+    }
+
+    private CaseRunner() {
+    }
+
+    /**
+     * Builds the simulation, steps it to the plan's stopping rule and closes it.
+     *
+     * @param progress        receives progress reports (on this thread), or null
+     * @param progressSeconds least wall time between reports
+     */
+    public static Result run(CasePlan plan, Consumer<Progress.Report> progress, double progressSeconds) {
+        JitWarmUp.run(plan.spec().polarization().value(), plan.spec().numerics().precision().value());
+        try (Simulation sim = plan.builder().build()) {
+            if (progress != null) {
+                sim.addListener(new Progress(plan.stop().maxSteps(), progressSeconds, progress));
+            }
+            long t0 = System.nanoTime();
+            String reason;
+            double energy = Double.NaN;
+            double peak = Double.NaN;
+            if (plan.stop() instanceof CasePlan.Stop.Steps s) {
+                sim.run(s.steps());
+                reason = "ran the requested " + s.steps() + " steps";
+            } else {
+                CasePlan.Stop.Decay d = (CasePlan.Stop.Decay) plan.stop();
+                int[] r = plan.interior();
+                peak = 0;
+                reason = null;
+                while (sim.stepCount() < d.limitSteps()) {
+                    long chunk = Math.min(d.checkInterval(), d.limitSteps() - sim.stepCount());
+                    sim.run(chunk);
+                    energy = sim.energy(r[0], r[1], r[2], r[3]);
+                    peak = Math.max(peak, energy);
+                    if (sim.stepCount() >= d.fadeSteps() && energy <= d.fraction() * peak) {
+                        reason = String.format("the field energy decayed to %.3g of its largest value (asked: %.3g)",
+                                peak > 0 ? energy / peak : 0.0, d.fraction());
+                        break;
+                    }
+                }
+                if (reason == null) {
+                    reason = String.format("reached the time limit (%d steps) before the energy decayed to %.3g of its "
+                            + "largest value (now %.3g)", d.limitSteps(), d.fraction(), peak > 0 ? energy / peak : 0.0);
+                }
+            }
+            double wall = (System.nanoTime() - t0) * 1e-9;
+            return new Result(sim.stepCount(), wall, sim.threads(), reason, energy, peak, sim.bytes());
+        }
+    }
+}

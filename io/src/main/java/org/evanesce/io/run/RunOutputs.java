@@ -1,0 +1,144 @@
+package org.evanesce.io.run;
+
+import java.io.IOException;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.evanesce.geometry.FieldSite;
+import org.evanesce.io.casefile.BoundarySpec;
+import org.evanesce.io.casefile.CaseSpec;
+import org.evanesce.io.casefile.Diagnostic;
+import org.evanesce.io.casefile.MaterialSpec;
+import org.evanesce.io.casefile.Parameter;
+import org.evanesce.io.output.Json;
+import org.evanesce.io.output.RunFolder;
+import org.evanesce.io.output.image.DisplayUnit;
+import org.evanesce.io.output.image.PermittivityMap;
+import org.evanesce.io.plan.CasePlan;
+import org.evanesce.solver.grid.Polarization;
+
+/** Writes a run's results into its folder: probes.csv, preview.png and run.json. */
+public final class RunOutputs {
+
+    /** Shown in run.json and by the commands: results feed real optical set-ups. */
+    public static final String CAUTION = "Simulated results are not a certification of a part or system; verify by "
+            + "measurement. Follow local laser-safety standards and codes and licensed laser-safety practice when "
+            + "setting up lasers and optics.";
+
+    private RunOutputs() {
+    }
+
+    /**
+     * The probes' time series as CSV: one row per step, for each probe its time and value.
+     * Electric components are in V/m at whole steps; magnetic components are η0·H in V/m at half steps.
+     */
+    public static String probesCsv(List<CasePlan.NamedProbe> probes) {
+        StringBuilder sb = new StringBuilder("step");
+        int n = Integer.MAX_VALUE;
+        for (CasePlan.NamedProbe p : probes) {
+            String c = p.probe().component().name().toLowerCase(Locale.ROOT);
+            sb.append(',').append(p.name()).append(" time (s)");
+            sb.append(',').append(p.name()).append(' ').append(c).append(c.startsWith("h") ? " (eta0*H, V/m)" : " (V/m)");
+            n = Math.min(n, p.probe().values().length);
+        }
+        sb.append('\n');
+        if (probes.isEmpty()) {
+            return sb.toString();
+        }
+        double[][] t = new double[probes.size()][];
+        double[][] v = new double[probes.size()][];
+        for (int q = 0; q < probes.size(); q++) {
+            t[q] = probes.get(q).probe().times();
+            v[q] = probes.get(q).probe().values();
+        }
+        for (int s = 0; s < n; s++) {
+            sb.append(s + 1);
+            for (int q = 0; q < probes.size(); q++) {
+                sb.append(',').append(String.format(Locale.ROOT, "%.9e", t[q][s]));
+                sb.append(',').append(String.format(Locale.ROOT, "%.9e", v[q][s]));
+            }
+            sb.append('\n');
+        }
+        return sb.toString();
+    }
+
+    /** Writes the permittivity preview of the plan's grid to a PNG file. */
+    public static void preview(CasePlan plan, java.nio.file.Path file) throws IOException {
+        FieldSite site = plan.spec().polarization().value() == Polarization.S ? FieldSite.EZ : FieldSite.EX;
+        double extent = Math.max(plan.grid().nx(), plan.grid().ny()) * plan.grid().cellSize();
+        PermittivityMap.builder(plan.materials(), site)
+                .unit(DisplayUnit.forExtent(extent))
+                .title(plan.spec().title().orElse(plan.spec().source()))
+                .build().writePng(file);
+    }
+
+    /** The run record (DESIGN.md: version, case hash, resolved case, grid, steps, threads, wall time, rate, warnings). */
+    public static Map<String, Object> runRecord(String version, String caseHash, CasePlan plan, CaseRunner.Result r,
+                                                List<Diagnostic> warnings, Map<String, String> overrides) {
+        CaseSpec s = plan.spec();
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("program", "evanesce");
+        m.put("version", version);
+        m.put("case_file", s.source());
+        m.put("case_sha256", caseHash);
+        m.put("overrides", new LinkedHashMap<>(overrides));
+        m.put("caution", CAUTION);
+        Map<String, Object> resolved = new LinkedHashMap<>();
+        resolved.put("title", s.title().orElse(null));
+        Map<String, Object> params = new LinkedHashMap<>();
+        for (Parameter p : s.parameters().values()) {
+            params.put(p.name(), p.value().toString());
+        }
+        resolved.put("parameters", params);
+        resolved.put("polarization", s.polarization().value().name().toLowerCase(Locale.ROOT));
+        resolved.put("design_wavelength_m", s.designWavelength().si());
+        Map<String, Object> mats = new LinkedHashMap<>();
+        for (MaterialSpec ms : s.materials().values()) {
+            Map<String, Object> e = new LinkedHashMap<>();
+            e.put("relative_permittivity", ms.relativePermittivity().si());
+            e.put("conductivity_s_per_m", ms.conductivity().si());
+            e.put("library", ms.library().map(Object::toString).orElse(null));
+            mats.put(ms.name(), e);
+        }
+        resolved.put("materials", mats);
+        Map<String, Object> sides = new LinkedHashMap<>();
+        s.boundaries().forEach((side, b) -> sides.put(side.name().toLowerCase(Locale.ROOT),
+                b instanceof BoundarySpec.Pml p ? "pml " + p.cells() + " cells" : b instanceof BoundarySpec.Pmc ? "pmc" : "pec"));
+        resolved.put("boundaries", sides);
+        resolved.put("shapes", s.shapes().size());
+        resolved.put("sources", s.sources().size());
+        resolved.put("probes", plan.probes().stream().map(p -> p.name() + " " + p.probe().component() + " at node ("
+                + p.i() + ", " + p.j() + ")").toList());
+        m.put("resolved_case", resolved);
+        Map<String, Object> grid = new LinkedHashMap<>();
+        grid.put("nx", plan.grid().nx());
+        grid.put("ny", plan.grid().ny());
+        grid.put("cell_size_m", plan.grid().cellSize());
+        grid.put("x0_m", plan.grid().x0());
+        grid.put("y0_m", plan.grid().y0());
+        grid.put("time_step_s", plan.dt());
+        grid.put("precision", s.numerics().precision().value().name().toLowerCase(Locale.ROOT));
+        grid.put("materials_after_smoothing", plan.materials().materials().size());
+        m.put("grid", grid);
+        long cells = (long) plan.grid().nx() * plan.grid().ny();
+        Map<String, Object> run = new LinkedHashMap<>();
+        run.put("steps", r.steps());
+        run.put("simulated_time_s", r.steps() * plan.dt());
+        run.put("stop_reason", r.stopReason());
+        run.put("threads", r.threads());
+        run.put("wall_time_s", r.wallSeconds());
+        run.put("cell_updates_per_second", r.cellUpdatesPerSecond(cells));
+        run.put("memory_bytes", r.bytes());
+        run.put("final_energy_j_per_m", r.finalEnergy());
+        run.put("peak_energy_j_per_m", r.peakEnergy());
+        m.put("run", run);
+        m.put("warnings", warnings.stream().map(Diagnostic::toString).toList());
+        return m;
+    }
+
+    /** Writes run.json into the folder. */
+    public static void writeRunRecord(RunFolder folder, Map<String, Object> record) throws IOException {
+        folder.writeText("run.json", Json.write(record));
+    }
+}
