@@ -96,6 +96,10 @@ public final class Main implements Callable<Integer> {
             err.printf("%s: run failed: %s%n", name, ex.getMessage());
             return RUN_FAILED;
         }
+        if (ex instanceof org.evanesce.io.run.CaseRunner.RefusedException) {
+            err.printf("%s: %s%n", name, oneLine(ex.getMessage()));
+            return USAGE;
+        }
         if (ex instanceof RunFailedException) {
             err.printf("%s: run failed: %s%n", name, ex.getMessage());
             return RUN_FAILED;

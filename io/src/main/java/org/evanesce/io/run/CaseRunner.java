@@ -35,6 +35,25 @@ public final class CaseRunner {
     private CaseRunner() {
     }
 
+    /** The solver refused the planned case (e.g. PML layers that leave no interior); exit code 2. */
+    public static final class RefusedException extends RuntimeException {
+        private static final long serialVersionUID = 1L;
+
+        RefusedException(String message, Throwable cause) {
+            super(message, cause);
+        }
+    }
+
+    /** Builds the planned simulation; the solver's refusals become {@link RefusedException}s naming the case file. */
+    public static Simulation build(CasePlan plan) {
+        try {
+            return plan.builder().build();
+        } catch (IllegalArgumentException e) {
+            throw new RefusedException(plan.spec().source() + ": the solver refused the case: "
+                    + e.getMessage().replace("\n", "; "), e);
+        }
+    }
+
     /**
      * Builds the simulation, steps it to the plan's stopping rule and closes it.
      *
@@ -43,7 +62,7 @@ public final class CaseRunner {
      */
     public static Result run(CasePlan plan, Consumer<Progress.Report> progress, double progressSeconds) {
         JitWarmUp.run(plan.spec().polarization().value(), plan.spec().numerics().precision().value());
-        try (Simulation sim = plan.builder().build()) {
+        try (Simulation sim = build(plan)) {
             if (progress != null) {
                 sim.addListener(new Progress(plan.stop().maxSteps(), progressSeconds, progress));
             }
