@@ -17,7 +17,9 @@ import org.evanesce.io.casefile.LoadedCase;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.CasePlanner;
 import org.evanesce.io.plan.PlanException;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
+import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Parameters;
 
 /** What the case commands share: the case file, parameter overrides and threads, and reading + planning. */
@@ -41,6 +43,18 @@ final class CaseOptions {
 
     @Option(names = "--threads", paramLabel = "N", description = "Worker threads (wins over the case file's).")
     Integer threads;
+
+    /**
+     * Reads, validates and plans the case, printing its findings to the command's error stream;
+     * bad input becomes a usage error (exit 2).
+     */
+    Loaded load(CommandSpec spec) {
+        try {
+            return load(spec.commandLine().getErr());
+        } catch (BadInput e) {
+            throw new ParameterException(spec.commandLine(), e.getMessage());
+        }
+    }
 
     /** Reads, validates and plans the case, printing warnings to {@code err}. */
     Loaded load(PrintWriter err) throws BadInput {

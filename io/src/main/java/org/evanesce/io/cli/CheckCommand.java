@@ -15,7 +15,6 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
 
 /**
@@ -43,14 +42,8 @@ public final class CheckCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
-        PrintWriter err = spec.commandLine().getErr();
         PrintWriter o = spec.commandLine().getOut();
-        CaseOptions.Loaded l;
-        try {
-            l = options.load(err);
-        } catch (CaseOptions.BadInput e) {
-            throw new ParameterException(spec.commandLine(), e.getMessage());
-        }
+        CaseOptions.Loaded l = options.load(spec);
         CasePlan plan = l.plan();
         long cells = (long) plan.grid().nx() * plan.grid().ny();
         long maxSteps = plan.stop().maxSteps();

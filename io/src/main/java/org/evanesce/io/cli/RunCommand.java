@@ -48,14 +48,8 @@ public final class RunCommand implements Callable<Integer> {
 
     @Override
     public Integer call() throws IOException {
-        PrintWriter err = spec.commandLine().getErr();
         PrintWriter o = spec.commandLine().getOut();
-        CaseOptions.Loaded l;
-        try {
-            l = options.load(err);
-        } catch (CaseOptions.BadInput e) {
-            throw new ParameterException(spec.commandLine(), e.getMessage());
-        }
+        CaseOptions.Loaded l = options.load(spec);
         CasePlan plan = l.plan();
         CaseSpec s = plan.spec();
         Path folder = out != null ? out : defaultFolder(options.caseFile, s);
