@@ -117,7 +117,7 @@ final class DoubleP extends Engine {
     @Override
     protected double flushE(int j) {
         int r = j * nx;
-        return maxOf(DoubleKernels.flush(ex, r, r + nx), DoubleKernels.flush(ey, r, r + nx));
+        return Math.max(DoubleKernels.flush(ex, r, r + nx), DoubleKernels.flush(ey, r, r + nx));
     }
 
     private double[] array(Component c) {

@@ -99,7 +99,7 @@ final class DoubleS extends Engine {
     @Override
     protected double flushH(int j) {
         int r = j * nx;
-        return maxOf(DoubleKernels.flush(hx, r, r + nx), DoubleKernels.flush(hy, r, r + nx));
+        return Math.max(DoubleKernels.flush(hx, r, r + nx), DoubleKernels.flush(hy, r, r + nx));
     }
 
     @Override

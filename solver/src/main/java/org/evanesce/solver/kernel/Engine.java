@@ -42,6 +42,8 @@ public abstract class Engine {
     private int[] eCell = new int[0], hCell = new int[0];
     private Component[] eComp = new Component[0], hComp = new Component[0];
     private double[] eValue = new double[0], hValue = new double[0];
+    /** For source term t: its index among electric terms (≥ 0) or −1 − its index among magnetic terms. */
+    private int[] termOrder = new int[0];
 
     protected Engine(int nx, int ny, double courant, Map<Side, Boundary> sides) {
         this.nx = nx;
@@ -163,7 +165,7 @@ public abstract class Engine {
 
     /**
      * Installs the source terms, sorted into rows: {@code cells[t]} is the flat cell index of
-     * term t and {@code comps[t]} its component. Values are set each step with {@link #sourceValues}.
+     * term t and {@code comps[t]} its component. Values are set each step with {@link #sourceValue}.
      */
     public final void setSources(int[] cells, Component[] comps) {
         int n = cells.length;
@@ -202,8 +204,6 @@ public abstract class Engine {
         }
     }
 
-    private int[] termOrder = new int[0];
-
     /** Sets the value of source term t (in the order given to {@link #setSources}) for the coming step. */
     public final void sourceValue(int t, double v) {
         int o = termOrder[t];
@@ -211,13 +211,6 @@ public abstract class Engine {
             eValue[o] = v;
         } else {
             hValue[-1 - o] = v;
-        }
-    }
-
-    /** Convenience: sets all source values at once. */
-    public final void sourceValues(double[] v) {
-        for (int t = 0; t < v.length; t++) {
-            sourceValue(t, v[t]);
         }
     }
 
@@ -242,7 +235,7 @@ public abstract class Engine {
                     addSource(eComp[t], eCell[t], eValue[t]);
                 }
                 if (flush) {
-                    max = maxOf(max, flushE(j));
+                    max = Math.max(max, flushE(j));
                 }
             }
         }
@@ -254,12 +247,7 @@ public abstract class Engine {
         for (int t = hRowStart[j]; t < hRowStart[j + 1]; t++) {
             addSource(hComp[t], hCell[t], hValue[t]);
         }
-        return flush ? maxOf(max, flushH(j)) : max;
-    }
-
-    /** Max that propagates NaN. */
-    static double maxOf(double a, double b) {
-        return Math.max(a, b);
+        return flush ? Math.max(max, flushH(j)) : max;
     }
 
     /** Magnetic update of row j, including CPML corrections. */

@@ -117,7 +117,7 @@ final class FloatP extends Engine {
     @Override
     protected double flushE(int j) {
         int r = j * nx;
-        return maxOf(FloatKernels.flush(ex, r, r + nx), FloatKernels.flush(ey, r, r + nx));
+        return Math.max(FloatKernels.flush(ex, r, r + nx), FloatKernels.flush(ey, r, r + nx));
     }
 
     private float[] array(Component c) {

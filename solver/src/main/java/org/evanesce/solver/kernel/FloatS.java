@@ -106,7 +106,7 @@ final class FloatS extends Engine {
     @Override
     protected double flushH(int j) {
         int r = j * nx;
-        return maxOf(FloatKernels.flush(hx, r, r + nx), FloatKernels.flush(hy, r, r + nx));
+        return Math.max(FloatKernels.flush(hx, r, r + nx), FloatKernels.flush(hy, r, r + nx));
     }
 
     @Override
