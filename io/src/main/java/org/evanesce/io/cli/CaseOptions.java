@@ -41,7 +41,7 @@ final class CaseOptions {
             description = "Override a parameter of the case, e.g. --set gap=0.25um; repeat for several.")
     Map<String, String> overrides = new LinkedHashMap<>();
 
-    @Option(names = "--threads", paramLabel = "N", description = "Worker threads (wins over the case file's).")
+    @Option(names = "--threads", paramLabel = "N", description = "Worker threads (wins over the case file's; grids too small to share run on fewer).")
     Integer threads;
 
     /**

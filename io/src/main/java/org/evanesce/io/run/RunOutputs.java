@@ -39,7 +39,7 @@ public final class RunOutputs {
         for (CasePlan.NamedProbe p : probes) {
             String c = p.probe().component().name().toLowerCase(Locale.ROOT);
             sb.append(',').append(p.name()).append(" time (s)");
-            sb.append(',').append(p.name()).append(' ').append(c).append(c.startsWith("h") ? " (eta0*H, V/m)" : " (V/m)");
+            sb.append(',').append(p.name()).append(' ').append(c).append(c.startsWith("h") ? " (eta0*H in V/m)" : " (V/m)");
             n = Math.min(n, p.probe().values().length);
         }
         sb.append('\n');

@@ -1,0 +1,198 @@
+package org.evanesce.io;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * The contract of {@code evanesce run} and {@code check} (README exit codes, DESIGN.md output
+ * conventions): a finished folder is never overwritten without {@code --force}; a case with errors
+ * reports each at file:line:column, exits 2 and writes nothing; a run that diverges exits 3 and
+ * leaves no folder; {@code --set} of a parameter the case does not define exits 2.
+ */
+class CaseCommandsTest {
+
+    @TempDir
+    Path tmp;
+
+    /** A tiny vacuum case that runs in a fraction of a second. */
+    private static final String TINY = """
+            title: tiny
+            parameters:
+              wl: 633 nm
+            design_wavelength: wl
+            polarization: s
+            domain: {width: 2 um, height: 2 um}
+            resolution: {cell: 40 nm}
+            sources:
+              - point: {at: [0, 0], signal: {pulse: {wavelength: wl, bandwidth: 100 nm}}}
+            probes:
+              - {name: p, at: [0.3 um, 0]}
+            output:
+              write: [probes]
+            stop: {steps: 40}
+            """;
+
+    /** Errors on lines 6 and 9 (counted from 1): a negative width and a misspelt parameter. */
+    private static final String BROKEN = """
+            parameters:
+              wl: 633 nm
+              gap: 100 nm
+            design_wavelength: wl
+            polarization: s
+            domain: {width: -2 um, height: 2 um}
+            resolution: {cell: 40 nm}
+            shapes:
+              - disk: {centre: [0, 0], radius: gapp, material: vacuum}
+            sources:
+              - point: {at: [0, 0], signal: {pulse: {wavelength: wl, bandwidth: 100 nm}}}
+            stop: {steps: 40}
+            """;
+
+    /**
+     * A block with a large negative conductivity (gain) around the source: the electric update
+     * factor (1 − σΔt/2ε)/(1 + σΔt/2ε) is about 1.5 per step there, so the fields pass the
+     * solver's divergence limit within a few hundred steps.
+     */
+    private static final String GAIN = """
+            design_wavelength: 633 nm
+            polarization: s
+            domain: {width: 2 um, height: 2 um}
+            resolution: {cell: 35 nm}
+            materials:
+              gain: {index: 1.5, conductivity: -2e5 S/m}
+            shapes:
+              - rectangle: {centre: [0, 0], size: [1 um, 1 um], material: gain}
+            sources:
+              - point: {at: [0, 0], signal: {pulse: {wavelength: 633 nm, bandwidth: 100 nm}}}
+            output:
+              write: [probes, preview]
+            stop: {steps: 5000}
+            """;
+
+    private record Outcome(int code, String out, String err) {
+        @Override
+        public String toString() {
+            return "exit " + code + "\n--- stdout ---\n" + out + "--- stderr ---\n" + err;
+        }
+    }
+
+    private static Outcome run(String... args) {
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        ByteArrayOutputStream err = new ByteArrayOutputStream();
+        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
+                new PrintStream(err, true, StandardCharsets.UTF_8));
+        return new Outcome(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
+    }
+
+    private Path write(String name, String text) throws IOException {
+        return Files.writeString(tmp.resolve(name), text);
+    }
+
+    private List<String> names(Path dir) throws IOException {
+        try (Stream<Path> s = Files.list(dir)) {
+            return s.map(p -> p.getFileName().toString()).sorted().toList();
+        }
+    }
+
+    @Test
+    void aFinishedFolderIsNotOverwrittenWithoutForce() throws IOException {
+        Path c = write("tiny.yaml", TINY);
+        Path out = tmp.resolve("out");
+        Outcome first = run("run", c.toString(), "--out", out.toString());
+        assertEquals(Main.OK, first.code(), first::toString);
+        String record = Files.readString(out.resolve("run.json"));
+        String probes = Files.readString(out.resolve("probes.csv"));
+        Files.writeString(out.resolve("my-notes.txt"), "keep me");
+
+        Outcome again = run("run", c.toString(), "--out", out.toString(), "--set", "wl=800 nm");
+        assertEquals(Main.USAGE, again.code(), again::toString);
+        assertTrue(again.err().contains("--force"), () -> "the message should say how to replace it: " + again);
+        assertEquals(record, Files.readString(out.resolve("run.json")), "run.json changed");
+        assertEquals(probes, Files.readString(out.resolve("probes.csv")), "probes.csv changed");
+        assertEquals("keep me", Files.readString(out.resolve("my-notes.txt")));
+        assertEquals(List.of("out", "tiny.yaml"), names(tmp), "leftovers of the refused run");
+
+        Outcome forced = run("run", c.toString(), "--out", out.toString(), "--set", "wl=800 nm", "--force");
+        assertEquals(Main.OK, forced.code(), forced::toString);
+        assertTrue(Files.readString(out.resolve("run.json")).contains("800 nm"), "--force did not replace run.json");
+        assertFalse(Files.exists(out.resolve("my-notes.txt")), "--force replaces the whole folder");
+        assertEquals(List.of("out", "tiny.yaml"), names(tmp), "leftovers of the replaced run");
+    }
+
+    @Test
+    void aCaseWithErrorsReportsPositionsExits2AndWritesNothing() throws IOException {
+        Path c = write("broken.yaml", BROKEN);
+        Path out = tmp.resolve("out");
+        Path png = tmp.resolve("preview.png");
+        for (String[] args : new String[][] {
+            {"run", c.toString(), "--out", out.toString()},
+            {"check", c.toString(), "--trial-seconds", "0", "--preview", png.toString()}}) {
+            Outcome o = run(args);
+            assertEquals(Main.USAGE, o.code(), o::toString);
+            Matcher width = Pattern.compile("(?m)^" + Pattern.quote(c.toString()) + ":6:(\\d+): domain\\.width: .*-2 um")
+                    .matcher(o.err());
+            assertTrue(width.find(), () -> "no file:line:column line for the negative width: " + o);
+            Matcher radius = Pattern.compile("(?m)^" + Pattern.quote(c.toString()) + ":9:(\\d+): shapes\\[0]\\.disk\\.radius: .*gapp")
+                    .matcher(o.err());
+            assertTrue(radius.find(), () -> "no file:line:column line for the misspelt parameter: " + o);
+            assertTrue(o.err().contains("2 error(s)"), o::toString);
+            assertEquals(List.of("broken.yaml"), names(tmp), () -> args[0] + " wrote something: " + o);
+        }
+    }
+
+    @Test
+    void aDivergingRunExits3AndLeavesNoFolder() throws IOException {
+        Path c = write("gain.yaml", GAIN);
+        Path out = tmp.resolve("out");
+        Outcome o = run("run", c.toString(), "--out", out.toString());
+        assertEquals(Main.RUN_FAILED, o.code(), o::toString);
+        assertTrue(o.err().contains("diverged"), o::toString);
+        assertFalse(Files.exists(out), "a failed run left its folder");
+        assertEquals(List.of("gain.yaml"), names(tmp), "a failed run left files behind");
+    }
+
+    @Test
+    void settingAnUnknownParameterIsAUsageError() throws IOException {
+        Path c = write("tiny.yaml", TINY);
+        Path out = tmp.resolve("out");
+        Path png = tmp.resolve("preview.png");
+        for (String[] args : new String[][] {
+            {"run", c.toString(), "--out", out.toString(), "--set", "wavelength=700 nm"},
+            {"check", c.toString(), "--trial-seconds", "0", "--preview", png.toString(), "--set", "wavelength=700 nm"}}) {
+            Outcome o = run(args);
+            assertEquals(Main.USAGE, o.code(), o::toString);
+            assertTrue(o.err().contains("'wavelength'"), () -> "the message should name the parameter: " + o);
+            assertEquals(List.of("tiny.yaml"), names(tmp), () -> args[0] + " wrote something: " + o);
+        }
+    }
+
+    @Test
+    void settingAParameterToTheWrongKindIsAUsageError() throws IOException {
+        Path c = write("tiny.yaml", TINY);
+        Outcome o = run("run", c.toString(), "--out", tmp.resolve("out").toString(), "--set", "wl=3");
+        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertTrue(o.err().contains("wl"), o::toString);
+        assertEquals(List.of("tiny.yaml"), names(tmp), "nothing should be written: " + o);
+    }
+
+    @Test
+    void aMissingCaseFileIsAUsageError() {
+        Outcome o = run("run", tmp.resolve("nowhere.yaml").toString(), "--out", tmp.resolve("out").toString());
+        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertTrue(o.err().contains("nowhere.yaml"), o::toString);
+    }
+}

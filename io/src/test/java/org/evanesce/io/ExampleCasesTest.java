@@ -1,0 +1,150 @@
+package org.evanesce.io;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertInstanceOf;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.junit.jupiter.api.Assertions.fail;
+
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.regex.Pattern;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.MethodSource;
+import org.snakeyaml.engine.v2.api.Load;
+import org.snakeyaml.engine.v2.api.LoadSettings;
+
+/**
+ * Every example in {@code cases/} checks and runs. The examples follow a convention (cases/README.md):
+ * each declares the parameters {@code cpw} (used as {@code resolution.cells_per_wavelength}) and
+ * {@code duration} (used as the stop time or the decay limit), so that this test can run it
+ * coarsely and briefly whatever its full size.
+ */
+class ExampleCasesTest {
+
+    /** The examples, seen from the io module's folder, where its tests run. */
+    static final Path CASES = Path.of("..", "cases");
+    /** Coarse enough that every example's grid has a few ten thousand cells at most. */
+    static final String COARSE_CPW = "6";
+    /** Long enough for every source to have started and fields to reach the probes' neighbourhood. */
+    static final String SHORT_DURATION = "50 fs";
+    /** The output files each {@code output.write} item asks for (only these exist in this version). */
+    static final Map<String, String> WRITTEN = Map.of("probes", "probes.csv", "preview", "preview.png");
+
+    private record Outcome(int code, String out, String err) {
+        @Override
+        public String toString() {
+            return "exit " + code + "\n--- stdout ---\n" + out + "--- stderr ---\n" + err;
+        }
+    }
+
+    private static Outcome run(String... args) {
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        ByteArrayOutputStream err = new ByteArrayOutputStream();
+        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
+                new PrintStream(err, true, StandardCharsets.UTF_8));
+        return new Outcome(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
+    }
+
+    static List<Path> examples() throws IOException {
+        try (Stream<Path> s = Files.list(CASES)) {
+            return s.filter(p -> p.getFileName().toString().endsWith(".yaml")).sorted().toList();
+        }
+    }
+
+    @Test
+    void thereAreExamples() throws IOException {
+        assertTrue(Files.isDirectory(CASES), "no cases folder at " + CASES.toAbsolutePath());
+        assertTrue(examples().size() >= 4, "expected at least four examples in " + CASES.toAbsolutePath() + ": " + examples());
+    }
+
+    /** The raw YAML of an example, as a mapping. */
+    private static Map<?, ?> yaml(Path example) throws IOException {
+        Object doc = new Load(LoadSettings.builder().build()).loadFromString(Files.readString(example));
+        return assertInstanceOf(Map.class, doc, example + ": the file is not a YAML mapping");
+    }
+
+    private static boolean mentions(Object expression, String name) {
+        return expression != null && Pattern.compile("\\b" + name + "\\b").matcher(String.valueOf(expression)).find();
+    }
+
+    @ParameterizedTest(name = "{0}")
+    @MethodSource("examples")
+    void followsTheTestConvention(Path example) throws IOException {
+        Map<?, ?> doc = yaml(example);
+        String how = example.getFileName() + " does not follow the examples' convention (see cases/README.md): ";
+        if (!(doc.get("parameters") instanceof Map<?, ?> params)) {
+            fail(how + "it has no 'parameters'; declare cpw (cells per wavelength) and duration (stop time or decay limit)");
+            return;
+        }
+        List<String> problems = new ArrayList<>();
+        if (!params.containsKey("cpw")) {
+            problems.add("no parameter 'cpw' (cells per wavelength)");
+        }
+        if (!params.containsKey("duration")) {
+            problems.add("no parameter 'duration' (the stop time or the decay limit)");
+        }
+        Object cpwUse = doc.get("resolution") instanceof Map<?, ?> r ? r.get("cells_per_wavelength") : null;
+        if (!mentions(cpwUse, "cpw")) {
+            problems.add("resolution.cells_per_wavelength should be cpw, found " + cpwUse);
+        }
+        Object stop = doc.get("stop");
+        Object durationUse = stop instanceof Map<?, ?> s ? (s.containsKey("time") ? s.get("time") : s.get("limit")) : null;
+        if (!mentions(durationUse, "duration")) {
+            problems.add("stop.time (or stop.limit with decay) should be duration, found " + durationUse);
+        }
+        assertTrue(problems.isEmpty(), () -> how + String.join("; ", problems));
+    }
+
+    @ParameterizedTest(name = "{0}")
+    @MethodSource("examples")
+    void checks(Path example, @TempDir Path tmp) {
+        Path png = tmp.resolve("preview.png");
+        Outcome o = run("check", example.toString(), "--trial-seconds", "0", "--preview", png.toString());
+        assertEquals(Main.OK, o.code(), o::toString);
+        assertTrue(o.out().contains("valid"), o::toString);
+        assertFalse(o.err().lines().anyMatch(l -> l.matches(".*:\\d+:\\d+: warning:.*")),
+                () -> "an example at its own resolution should raise no warnings:\n" + o);
+        assertTrue(Files.isRegularFile(png) && png.toFile().length() > 0, "no preview written: " + o);
+    }
+
+    @ParameterizedTest(name = "{0}")
+    @MethodSource("examples")
+    void runsCoarsely(Path example, @TempDir Path tmp) throws IOException {
+        followsTheTestConvention(example);
+        Path out = tmp.resolve("results");
+        Outcome o = run("run", example.toString(), "--set", "cpw=" + COARSE_CPW, "--set", "duration=" + SHORT_DURATION,
+                "--out", out.toString());
+        assertEquals(Main.OK, o.code(), o::toString);
+        Path record = out.resolve("run.json");
+        assertTrue(Files.isRegularFile(record), "no run.json: " + o);
+        String json = Files.readString(record);
+        assertTrue(json.contains("\"cpw\": \"" + COARSE_CPW + "\""), "the override is not in run.json: " + json);
+        Object write = yaml(example).get("output") instanceof Map<?, ?> m ? m.get("write") : null;
+        List<?> items = write instanceof List<?> l ? l : List.of("probes");
+        for (Object item : items) {
+            String file = WRITTEN.get(String.valueOf(item));
+            assertTrue(file != null, example + ": output.write asks for '" + item + "', which this test does not know");
+            Path f = out.resolve(file);
+            assertTrue(Files.isRegularFile(f) && f.toFile().length() > 0, "no " + file + " in " + out + ": " + o);
+        }
+        if (items.contains("probes")) {
+            List<String> rows = Files.readAllLines(out.resolve("probes.csv"));
+            assertTrue(rows.size() > 10, "probes.csv has almost no rows: " + rows.size());
+            assertTrue(rows.get(rows.size() - 1).split(",").length > 1, "probes.csv has no probe columns");
+        }
+        try (Stream<Path> s = Files.list(tmp)) {
+            assertEquals(List.of("results"), s.map(p -> p.getFileName().toString()).toList(), "leftovers beside the run folder");
+        }
+    }
+}
