@@ -40,6 +40,8 @@ public final class Simulation implements StepView, AutoCloseable {
     private final Precision precision;
     private final Source[] sources;
     private final int[] sourceTermStart;
+    /** Per source: real and imaginary amplitudes, copied once (the step loop must not allocate). */
+    private final double[][] sourceRe, sourceIm;
     private final int flushInterval;
     private final double divergenceLimit;
     private final List<StepListener> listeners;
@@ -69,6 +71,12 @@ public final class Simulation implements StepView, AutoCloseable {
             }
         }
         sourceTermStart[sources.length] = n;
+        sourceRe = new double[sources.length][];
+        sourceIm = new double[sources.length][];
+        for (int q = 0; q < sources.length; q++) {
+            sourceRe[q] = sources[q].amplitudes();
+            sourceIm[q] = sources[q].imagAmplitudes();
+        }
         int[] cells = new int[n];
         Component[] comps = new Component[n];
         for (int q = 0; q < sources.length; q++) {
@@ -94,9 +102,10 @@ public final class Simulation implements StepView, AutoCloseable {
         for (int q = 0; q < sources.length; q++) {
             Source s = sources[q];
             double g = s.signal().value(s.component().electric ? tE : tH);
-            double[] amp = s.amplitudes();
+            double[] amp = sourceRe[q];
+            double[] ampIm = sourceIm[q];
             for (int t = 0; t < amp.length; t++) {
-                engine.sourceValue(sourceTermStart[q] + t, amp[t] * g);
+                engine.sourceValue(sourceTermStart[q] + t, amp[t] * g, ampIm[t] * g);
             }
         }
         boolean flush = (step + 1) % flushInterval == 0;
@@ -202,6 +211,11 @@ public final class Simulation implements StepView, AutoCloseable {
     @Override
     public double field(Component c, int i, int j) {
         return engine.get(c, j * engine.nx() + i);
+    }
+
+    @Override
+    public double fieldImag(Component c, int i, int j) {
+        return engine.getImag(c, j * engine.nx() + i);
     }
 
     /** Overwrites one value (initial conditions). */
@@ -345,6 +359,17 @@ public final class Simulation implements StepView, AutoCloseable {
             }
             int nx = grid.nx();
             int ny = grid.ny();
+            boolean blochLeft = sides.get(Side.LEFT) instanceof Boundary.Bloch;
+            boolean blochRight = sides.get(Side.RIGHT) instanceof Boundary.Bloch;
+            if (blochLeft != blochRight || blochLeft
+                    && ((Boundary.Bloch) sides.get(Side.LEFT)).wavenumber() != ((Boundary.Bloch) sides.get(Side.RIGHT)).wavenumber()) {
+                errors.add(String.format("Bloch-periodic boundaries must be given on both the left and the right side with "
+                        + "the same wavenumber; got left %s, right %s", sides.get(Side.LEFT), sides.get(Side.RIGHT)));
+            }
+            if (sides.get(Side.BOTTOM) instanceof Boundary.Bloch || sides.get(Side.TOP) instanceof Boundary.Bloch) {
+                errors.add("Bloch-periodic boundaries are supported along x (left and right) only; "
+                        + "bottom and top take a PML, PEC or PMC");
+            }
             int xl = layers(Side.LEFT) + layers(Side.RIGHT);
             int yl = layers(Side.BOTTOM) + layers(Side.TOP);
             if (xl > nx - 3) {
@@ -356,6 +381,9 @@ public final class Simulation implements StepView, AutoCloseable {
                         yl, ny, ny - 3));
             }
             for (Source s : sources) {
+                if (s.isComplex() && !blochLeft) {
+                    errors.add(String.format("%s has complex amplitudes, which need Bloch-periodic boundaries", s));
+                }
                 if (s.component().polarization != polarization) {
                     errors.add(String.format("source component %s does not belong to the %s polarization (%s)",
                             s.component(), polarization, java.util.Arrays.toString(polarization.components())));

@@ -102,10 +102,13 @@ final class DoubleKernels {
         }
     }
 
-    /** s, a cell on a PMC wall: the same update with the H beyond the wall taken as zero. */
-    static void sEdge(double[] ez, double[] hx, double[] hy, double[] ca, double[] cb, int nx, int i, int j) {
+    /**
+     * s, a cell the vector kernel leaves out (a PMC wall, or a Bloch seam): the same update, with the
+     * Hy west of column 0 taken as {@code west} (zero for a PMC wall) and the Hx below row 0 as zero.
+     */
+    static void sEdge(double[] ez, double[] hx, double[] hy, double[] ca, double[] cb, int nx, int i, int j, double west) {
         int k = j * nx + i;
-        double hyW = i > 0 ? hy[k - 1] : 0.0;
+        double hyW = i > 0 ? hy[k - 1] : west;
         double hxS = j > 0 ? hx[k - nx] : 0.0;
         double curl = (hy[k] - hyW) - (hx[k] - hxS);
         ez[k] = (ca == null ? ez[k] : ca[k] * ez[k]) + cb[k] * curl;
@@ -187,17 +190,17 @@ final class DoubleKernels {
         }
     }
 
-    /** p, Ex on a PMC wall row (j = 0 or ny−1), with Hz beyond the wall taken as zero. */
+    /** p, Ex on a PMC wall row (j = 0 or ny−1) or in the last column of a Bloch run, with Hz below row 0 taken as zero. */
     static void pExEdge(double[] hz, double[] ex, double[] ca, double[] cb, int nx, int i, int j) {
         int k = j * nx + i;
         double hzS = j > 0 ? hz[k - nx] : 0.0;
         ex[k] = (ca == null ? ex[k] : ca[k] * ex[k]) + cb[k] * (hz[k] - hzS);
     }
 
-    /** p, Ey on a PMC wall column (i = 0 or nx−1), with Hz beyond the wall taken as zero. */
-    static void pEyEdge(double[] hz, double[] ey, double[] ca, double[] cb, int nx, int i, int j) {
+    /** p, Ey in column 0 or nx−1 (a PMC wall or a Bloch seam), with the Hz west of column 0 taken as {@code west}. */
+    static void pEyEdge(double[] hz, double[] ey, double[] ca, double[] cb, int nx, int i, int j, double west) {
         int k = j * nx + i;
-        double hzW = i > 0 ? hz[k - 1] : 0.0;
+        double hzW = i > 0 ? hz[k - 1] : west;
         ey[k] = (ca == null ? ey[k] : ca[k] * ey[k]) - cb[k] * (hz[k] - hzW);
     }
 

@@ -53,24 +53,32 @@ final class DoubleP extends Engine {
             return;
         }
         DoubleKernels.pH(hz, ex, ey, nx, j, s);
+        if (blochX) {
+            int k = j * nx + nx - 1;
+            hz[k] += s * ((ex[k + nx] - ex[k]) - (ghostE[j] - ey[k]));
+        }
         for (DoubleStrip x : xs) {
             DoubleKernels.pmlXH(hz, ey, -s, nx, j, x, x.psiH);
         }
         int q = yStripOfRow[j];
         if (q >= 0) {
             DoubleStrip y = ys[q];
-            DoubleKernels.pmlYH(hz, ex, s, nx, j - y.start, y, y.psiH, nx - 1);
+            DoubleKernels.pmlYH(hz, ex, s, nx, j - y.start, y, y.psiH, blochX ? nx : nx - 1);
         }
     }
 
     @Override
     protected void eRow(int j) {
         boolean wallRow = j == 0 || j == ny - 1;
-        // Ex: interior rows, or a PMC wall row
+        // Ex: interior rows, or a PMC wall row; with Bloch boundaries the last column too
+        int exEnd = blochX ? nx : nx - 1;
         if (!wallRow) {
             DoubleKernels.pEx(hz, ex, cax, cbx, nx, j);
+            if (blochX) {
+                DoubleKernels.pExEdge(hz, ex, cax, cbx, nx, nx - 1, j);
+            }
         } else if (j == 0 ? pmcBottom : pmcTop) {
-            for (int i = 0; i < nx - 1; i++) {
+            for (int i = 0; i < exEnd; i++) {
                 DoubleKernels.pExEdge(hz, ex, cax, cbx, nx, i, j);
             }
         }
@@ -80,17 +88,17 @@ final class DoubleP extends Engine {
             DoubleStrip y = ys[q];
             int jj = j - y.start;
             if (jj >= 1) {
-                DoubleKernels.pmlYE(ex, hz, cbx, false, nx, jj, y, y.psiE, 0, nx - 1);
+                DoubleKernels.pmlYE(ex, hz, cbx, false, nx, jj, y, y.psiE, 0, exEnd);
             }
         }
         // Ey: rows 0..ny-2
         if (j < ny - 1) {
             DoubleKernels.pEy(hz, ey, cay, cby, nx, j);
-            if (pmcLeft) {
-                DoubleKernels.pEyEdge(hz, ey, cay, cby, nx, 0, j);
+            if (pmcLeft || blochX) {
+                DoubleKernels.pEyEdge(hz, ey, cay, cby, nx, 0, j, blochX ? ghostW[j] : 0.0);
             }
-            if (pmcRight) {
-                DoubleKernels.pEyEdge(hz, ey, cay, cby, nx, nx - 1, j);
+            if (pmcRight || blochX) {
+                DoubleKernels.pEyEdge(hz, ey, cay, cby, nx, nx - 1, j, 0.0);
             }
             for (DoubleStrip x : xs) {
                 DoubleKernels.pmlXE(ey, hz, cby, true, nx, j, x, x.psiE);

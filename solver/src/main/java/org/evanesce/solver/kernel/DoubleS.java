@@ -44,6 +44,10 @@ final class DoubleS extends Engine {
     @Override
     protected void hRow(int j) {
         DoubleKernels.sH(ez, hx, hy, nx, ny, j, s);
+        if (blochX) {
+            int k = j * nx + nx - 1;
+            hy[k] += s * (ghostE[j] - ez[k]);
+        }
         for (DoubleStrip x : xs) {
             DoubleKernels.pmlXH(hy, ez, s, nx, j, x, x.psiH);
         }
@@ -57,17 +61,20 @@ final class DoubleS extends Engine {
     @Override
     protected void eRow(int j) {
         boolean wallRow = j == 0 || j == ny - 1;
+        boolean first = pmcLeft || blochX;
+        boolean last = pmcRight || blochX;
+        double west = blochX ? ghostW[j] : 0.0;
         if (!wallRow) {
             DoubleKernels.sE(ez, hx, hy, ca, cb, nx, j);
-            if (pmcLeft) {
-                DoubleKernels.sEdge(ez, hx, hy, ca, cb, nx, 0, j);
+            if (first) {
+                DoubleKernels.sEdge(ez, hx, hy, ca, cb, nx, 0, j, west);
             }
-            if (pmcRight) {
-                DoubleKernels.sEdge(ez, hx, hy, ca, cb, nx, nx - 1, j);
+            if (last) {
+                DoubleKernels.sEdge(ez, hx, hy, ca, cb, nx, nx - 1, j, west);
             }
         } else if (j == 0 ? pmcBottom : pmcTop) {
-            for (int i = pmcLeft ? 0 : 1; i <= (pmcRight ? nx - 1 : nx - 2); i++) {
-                DoubleKernels.sEdge(ez, hx, hy, ca, cb, nx, i, j);
+            for (int i = first ? 0 : 1; i <= (last ? nx - 1 : nx - 2); i++) {
+                DoubleKernels.sEdge(ez, hx, hy, ca, cb, nx, i, j, west);
             }
         } else {
             return;
@@ -80,8 +87,7 @@ final class DoubleS extends Engine {
             DoubleStrip y = ys[q];
             int jj = j - y.start;
             if (jj >= 1) {
-                DoubleKernels.pmlYE(ez, hx, cb, true, nx, jj, y, y.psiE,
-                        pmcLeft ? 0 : 1, pmcRight ? nx : nx - 1);
+                DoubleKernels.pmlYE(ez, hx, cb, true, nx, jj, y, y.psiE, first ? 0 : 1, last ? nx : nx - 1);
             }
         }
     }

@@ -33,6 +33,17 @@ public abstract class Engine {
     protected final double courant;
     /** Walls: true where the side is a PMC (the update then runs on the wall nodes too). */
     protected final boolean pmcLeft, pmcRight, pmcBottom, pmcTop;
+    /**
+     * Bloch-periodic along x: column 0 is updated with the magnetic value west of it taken from
+     * {@link #ghostW}, the last column is updated like an interior one, and the magnetic update of
+     * the last column takes the electric value east of it from {@link #ghostE}. {@link BlochPair}
+     * fills both ghosts, per row, from the other column and the other (real or imaginary) part.
+     */
+    protected final boolean blochX;
+    /** Per row: the electric field one node east of the last column (Bloch seam). */
+    final double[] ghostE;
+    /** Per row: the magnetic field half a cell west of column 0 (Bloch seam). */
+    final double[] ghostW;
     /** CPML profiles present on each axis (0, 1 or 2 of them). */
     protected final PmlProfile[] xProfiles, yProfiles;
     /** For each row, the index into {@link #yProfiles} of the strip containing it, or −1. */
@@ -53,6 +64,9 @@ public abstract class Engine {
         pmcRight = sides.get(Side.RIGHT) instanceof Boundary.Pmc;
         pmcBottom = sides.get(Side.BOTTOM) instanceof Boundary.Pmc;
         pmcTop = sides.get(Side.TOP) instanceof Boundary.Pmc;
+        blochX = sides.get(Side.LEFT) instanceof Boundary.Bloch;
+        ghostE = new double[blochX ? ny : 0];
+        ghostW = new double[blochX ? ny : 0];
         xProfiles = profiles(sides, Side.LEFT, Side.RIGHT, nx, courant);
         yProfiles = profiles(sides, Side.BOTTOM, Side.TOP, ny, courant);
         yStripOfRow = new int[ny];
@@ -83,6 +97,16 @@ public abstract class Engine {
                 throw new IllegalArgumentException("no boundary given for side " + s);
             }
         }
+        if (all.get(Side.LEFT) instanceof Boundary.Bloch b) {
+            double phase = b.wavenumber() * grid.nx() * grid.cellSize();
+            return new BlochPair(real(grid, pol, precision, courant, dt, all), real(grid, pol, precision, courant, dt, all),
+                    pol, phase);
+        }
+        return real(grid, pol, precision, courant, dt, all);
+    }
+
+    private static Engine real(MaterialGrid grid, Polarization pol, Precision precision, double courant, double dt,
+                               Map<Side, Boundary> all) {
         return switch (precision) {
             case FLOAT -> pol == Polarization.S ? new FloatS(grid, courant, dt, all) : new FloatP(grid, courant, dt, all);
             case DOUBLE -> pol == Polarization.S ? new DoubleS(grid, courant, dt, all) : new DoubleP(grid, courant, dt, all);
@@ -126,16 +150,17 @@ public abstract class Engine {
         if (i < 0 || j < 0 || i >= nx || j >= ny) {
             return false;
         }
-        boolean iIn = i >= (sides.get(Side.LEFT) instanceof Boundary.Pmc ? 0 : 1)
-                && i <= (sides.get(Side.RIGHT) instanceof Boundary.Pmc ? nx - 1 : nx - 2);
+        boolean bloch = sides.get(Side.LEFT) instanceof Boundary.Bloch;
+        boolean iIn = i >= (bloch || sides.get(Side.LEFT) instanceof Boundary.Pmc ? 0 : 1)
+                && i <= (bloch || sides.get(Side.RIGHT) instanceof Boundary.Pmc ? nx - 1 : nx - 2);
         boolean jIn = j >= (sides.get(Side.BOTTOM) instanceof Boundary.Pmc ? 0 : 1)
                 && j <= (sides.get(Side.TOP) instanceof Boundary.Pmc ? ny - 1 : ny - 2);
         return switch (c) {
             case EZ -> iIn && jIn;
             case HX -> j <= ny - 2;
-            case HY -> i <= nx - 2;
-            case HZ -> i <= nx - 2 && j <= ny - 2;
-            case EX -> i <= nx - 2 && jIn;
+            case HY -> bloch || i <= nx - 2;
+            case HZ -> (bloch || i <= nx - 2) && j <= ny - 2;
+            case EX -> (bloch || i <= nx - 2) && jIn;
             case EY -> j <= ny - 2 && iIn;
         };
     }
@@ -167,7 +192,7 @@ public abstract class Engine {
      * Installs the source terms, sorted into rows: {@code cells[t]} is the flat cell index of
      * term t and {@code comps[t]} its component. Values are set each step with {@link #sourceValue}.
      */
-    public final void setSources(int[] cells, Component[] comps) {
+    public void setSources(int[] cells, Component[] comps) {
         int n = cells.length;
         eRowStart = new int[ny + 1];
         hRowStart = new int[ny + 1];
@@ -204,8 +229,19 @@ public abstract class Engine {
         }
     }
 
+    /**
+     * Sets the complex value of source term t for the coming step. A real engine holds real fields
+     * only: the imaginary part must be zero (complex sources need Bloch-periodic boundaries).
+     */
+    public void sourceValue(int t, double re, double im) {
+        if (im != 0) {
+            throw new IllegalStateException("a complex source value needs Bloch-periodic boundaries");
+        }
+        sourceValue(t, re);
+    }
+
     /** Sets the value of source term t (in the order given to {@link #setSources}) for the coming step. */
-    public final void sourceValue(int t, double v) {
+    public void sourceValue(int t, double v) {
         int o = termOrder[t];
         if (o >= 0) {
             eValue[o] = v;
@@ -224,30 +260,37 @@ public abstract class Engine {
     public final double sweep(int j0, int j1, int phase, boolean flush) {
         double max = 0;
         if (phase == 0) {
-            max = hRowFull(j1 - 1, flush, max);
+            max = hRowFull(j1 - 1, flush);
         } else {
             for (int j = j0; j < j1; j++) {
                 if (j < j1 - 1) {
-                    max = hRowFull(j, flush, max);
+                    max = Math.max(max, hRowFull(j, flush));
                 }
-                eRow(j);
-                for (int t = eRowStart[j]; t < eRowStart[j + 1]; t++) {
-                    addSource(eComp[t], eCell[t], eValue[t]);
-                }
-                if (flush) {
-                    max = Math.max(max, flushE(j));
-                }
+                max = Math.max(max, eRowFull(j, flush));
             }
         }
         return max;
     }
 
-    private double hRowFull(int j, boolean flush, double max) {
+    /**
+     * The magnetic update of row j with its sources, and the flush when asked; returns the largest
+     * magnitude flushed (Math.max propagates NaN), else 0.
+     */
+    protected double hRowFull(int j, boolean flush) {
         hRow(j);
         for (int t = hRowStart[j]; t < hRowStart[j + 1]; t++) {
             addSource(hComp[t], hCell[t], hValue[t]);
         }
-        return flush ? Math.max(max, flushH(j)) : max;
+        return flush ? flushH(j) : 0;
+    }
+
+    /** The electric update of row j with its sources, and the flush when asked; as {@link #hRowFull}. */
+    protected double eRowFull(int j, boolean flush) {
+        eRow(j);
+        for (int t = eRowStart[j]; t < eRowStart[j + 1]; t++) {
+            addSource(eComp[t], eCell[t], eValue[t]);
+        }
+        return flush ? flushE(j) : 0;
     }
 
     /** Magnetic update of row j, including CPML corrections. */
@@ -270,6 +313,16 @@ public abstract class Engine {
 
     /** Overwrites a component at flat cell index k (for initial conditions and tests). */
     public abstract void set(Component c, int k, double v);
+
+    /** The imaginary part of a component at flat cell index k: zero for a real engine. */
+    public double getImag(Component c, int k) {
+        return 0.0;
+    }
+
+    /** Overwrites the imaginary part (Bloch-periodic runs only). */
+    public void setImag(Component c, int k, double v) {
+        throw new IllegalStateException("imaginary parts exist only with Bloch-periodic boundaries");
+    }
 
     /**
      * Electromagnetic energy in the cells i0 ≤ i &lt; i1, j0 ≤ j &lt; j1, in units of ε0Δ²/2 times

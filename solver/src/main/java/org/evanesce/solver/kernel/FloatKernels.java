@@ -102,10 +102,13 @@ final class FloatKernels {
         }
     }
 
-    /** s, a cell on a PMC wall: the same update with the H beyond the wall taken as zero. */
-    static void sEdge(float[] ez, float[] hx, float[] hy, float[] ca, float[] cb, int nx, int i, int j) {
+    /**
+     * s, a cell the vector kernel leaves out (a PMC wall, or a Bloch seam): the same update, with the
+     * Hy west of column 0 taken as {@code west} (zero for a PMC wall) and the Hx below row 0 as zero.
+     */
+    static void sEdge(float[] ez, float[] hx, float[] hy, float[] ca, float[] cb, int nx, int i, int j, float west) {
         int k = j * nx + i;
-        float hyW = i > 0 ? hy[k - 1] : 0f;
+        float hyW = i > 0 ? hy[k - 1] : west;
         float hxS = j > 0 ? hx[k - nx] : 0f;
         float curl = (hy[k] - hyW) - (hx[k] - hxS);
         ez[k] = (ca == null ? ez[k] : ca[k] * ez[k]) + cb[k] * curl;
@@ -187,17 +190,17 @@ final class FloatKernels {
         }
     }
 
-    /** p, Ex on a PMC wall row (j = 0 or ny−1), with Hz beyond the wall taken as zero. */
+    /** p, Ex on a PMC wall row (j = 0 or ny−1) or in the last column of a Bloch run, with Hz below row 0 taken as zero. */
     static void pExEdge(float[] hz, float[] ex, float[] ca, float[] cb, int nx, int i, int j) {
         int k = j * nx + i;
         float hzS = j > 0 ? hz[k - nx] : 0f;
         ex[k] = (ca == null ? ex[k] : ca[k] * ex[k]) + cb[k] * (hz[k] - hzS);
     }
 
-    /** p, Ey on a PMC wall column (i = 0 or nx−1), with Hz beyond the wall taken as zero. */
-    static void pEyEdge(float[] hz, float[] ey, float[] ca, float[] cb, int nx, int i, int j) {
+    /** p, Ey in column 0 or nx−1 (a PMC wall or a Bloch seam), with the Hz west of column 0 taken as {@code west}. */
+    static void pEyEdge(float[] hz, float[] ey, float[] ca, float[] cb, int nx, int i, int j, float west) {
         int k = j * nx + i;
-        float hzW = i > 0 ? hz[k - 1] : 0f;
+        float hzW = i > 0 ? hz[k - 1] : west;
         ey[k] = (ca == null ? ey[k] : ca[k] * ey[k]) - cb[k] * (hz[k] - hzW);
     }
 

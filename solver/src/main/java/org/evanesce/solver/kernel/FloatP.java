@@ -53,24 +53,32 @@ final class FloatP extends Engine {
             return;
         }
         FloatKernels.pH(hz, ex, ey, nx, j, s);
+        if (blochX) {
+            int k = j * nx + nx - 1;
+            hz[k] += s * ((ex[k + nx] - ex[k]) - ((float) ghostE[j] - ey[k]));
+        }
         for (FloatStrip x : xs) {
             FloatKernels.pmlXH(hz, ey, -s, nx, j, x, x.psiH);
         }
         int q = yStripOfRow[j];
         if (q >= 0) {
             FloatStrip y = ys[q];
-            FloatKernels.pmlYH(hz, ex, s, nx, j - y.start, y, y.psiH, nx - 1);
+            FloatKernels.pmlYH(hz, ex, s, nx, j - y.start, y, y.psiH, blochX ? nx : nx - 1);
         }
     }
 
     @Override
     protected void eRow(int j) {
         boolean wallRow = j == 0 || j == ny - 1;
-        // Ex: interior rows, or a PMC wall row
+        // Ex: interior rows, or a PMC wall row; with Bloch boundaries the last column too
+        int exEnd = blochX ? nx : nx - 1;
         if (!wallRow) {
             FloatKernels.pEx(hz, ex, cax, cbx, nx, j);
+            if (blochX) {
+                FloatKernels.pExEdge(hz, ex, cax, cbx, nx, nx - 1, j);
+            }
         } else if (j == 0 ? pmcBottom : pmcTop) {
-            for (int i = 0; i < nx - 1; i++) {
+            for (int i = 0; i < exEnd; i++) {
                 FloatKernels.pExEdge(hz, ex, cax, cbx, nx, i, j);
             }
         }
@@ -80,17 +88,17 @@ final class FloatP extends Engine {
             FloatStrip y = ys[q];
             int jj = j - y.start;
             if (jj >= 1) {
-                FloatKernels.pmlYE(ex, hz, cbx, false, nx, jj, y, y.psiE, 0, nx - 1);
+                FloatKernels.pmlYE(ex, hz, cbx, false, nx, jj, y, y.psiE, 0, exEnd);
             }
         }
         // Ey: rows 0..ny-2
         if (j < ny - 1) {
             FloatKernels.pEy(hz, ey, cay, cby, nx, j);
-            if (pmcLeft) {
-                FloatKernels.pEyEdge(hz, ey, cay, cby, nx, 0, j);
+            if (pmcLeft || blochX) {
+                FloatKernels.pEyEdge(hz, ey, cay, cby, nx, 0, j, blochX ? (float) ghostW[j] : 0f);
             }
-            if (pmcRight) {
-                FloatKernels.pEyEdge(hz, ey, cay, cby, nx, nx - 1, j);
+            if (pmcRight || blochX) {
+                FloatKernels.pEyEdge(hz, ey, cay, cby, nx, nx - 1, j, 0f);
             }
             for (FloatStrip x : xs) {
                 FloatKernels.pmlXE(ey, hz, cby, true, nx, j, x, x.psiE);

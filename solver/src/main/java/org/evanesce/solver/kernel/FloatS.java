@@ -51,6 +51,10 @@ final class FloatS extends Engine {
     @Override
     protected void hRow(int j) {
         FloatKernels.sH(ez, hx, hy, nx, ny, j, s);
+        if (blochX) {
+            int k = j * nx + nx - 1;
+            hy[k] += s * ((float) ghostE[j] - ez[k]);
+        }
         for (FloatStrip x : xs) {
             FloatKernels.pmlXH(hy, ez, s, nx, j, x, x.psiH);
         }
@@ -64,17 +68,20 @@ final class FloatS extends Engine {
     @Override
     protected void eRow(int j) {
         boolean wallRow = j == 0 || j == ny - 1;
+        boolean first = pmcLeft || blochX;
+        boolean last = pmcRight || blochX;
+        float west = blochX ? (float) ghostW[j] : 0f;
         if (!wallRow) {
             FloatKernels.sE(ez, hx, hy, ca, cb, nx, j);
-            if (pmcLeft) {
-                FloatKernels.sEdge(ez, hx, hy, ca, cb, nx, 0, j);
+            if (first) {
+                FloatKernels.sEdge(ez, hx, hy, ca, cb, nx, 0, j, west);
             }
-            if (pmcRight) {
-                FloatKernels.sEdge(ez, hx, hy, ca, cb, nx, nx - 1, j);
+            if (last) {
+                FloatKernels.sEdge(ez, hx, hy, ca, cb, nx, nx - 1, j, west);
             }
         } else if (j == 0 ? pmcBottom : pmcTop) {
-            for (int i = pmcLeft ? 0 : 1; i <= (pmcRight ? nx - 1 : nx - 2); i++) {
-                FloatKernels.sEdge(ez, hx, hy, ca, cb, nx, i, j);
+            for (int i = first ? 0 : 1; i <= (last ? nx - 1 : nx - 2); i++) {
+                FloatKernels.sEdge(ez, hx, hy, ca, cb, nx, i, j, west);
             }
         } else {
             return;
@@ -87,8 +94,7 @@ final class FloatS extends Engine {
             FloatStrip y = ys[q];
             int jj = j - y.start;
             if (jj >= 1) {
-                FloatKernels.pmlYE(ez, hx, cb, true, nx, jj, y, y.psiE,
-                        pmcLeft ? 0 : 1, pmcRight ? nx : nx - 1);
+                FloatKernels.pmlYE(ez, hx, cb, true, nx, jj, y, y.psiE, first ? 0 : 1, last ? nx : nx - 1);
             }
         }
     }

@@ -31,8 +31,13 @@ public interface StepView {
     /** Cell size Δ, metres. */
     double cellSize();
 
-    /** A component's value at node (i, j) (its site is offset per {@link Component}). */
+    /** A component's value at node (i, j) (its site is offset per {@link Component}); the real part if complex. */
     double field(Component c, int i, int j);
+
+    /** The imaginary part of a component at node (i, j): zero unless the run has Bloch-periodic boundaries. */
+    default double fieldImag(Component c, int i, int j) {
+        return 0.0;
+    }
 
     /**
      * Electromagnetic energy per unit length along z (J/m) in the cells i0 ≤ i &lt; i1,

@@ -10,27 +10,66 @@ import org.evanesce.solver.grid.Component;
  * A point source has one cell; a line source lists the cells along its line, each with its own
  * amplitude, which is how spatial profiles such as a beam's are imposed.
  *
- * @param component  the field component driven
- * @param cells      flat cell indices j·nx + i
- * @param amplitudes one amplitude per cell
- * @param signal     the time dependence
+ * <p>With Bloch-periodic boundaries the fields are complex and so may the amplitudes be: a line
+ * source with amplitudes e^{i kx x} launches a plane wave with in-plane wavenumber kx.
+ *
+ * @param component       the field component driven
+ * @param cells           flat cell indices j·nx + i
+ * @param amplitudes      one amplitude per cell (the real part)
+ * @param imagAmplitudes  the imaginary parts, one per cell (all zero for a real source)
+ * @param signal          the time dependence
  */
-public record Source(Component component, int[] cells, double[] amplitudes, TimeSignal signal) {
+public record Source(Component component, int[] cells, double[] amplitudes, double[] imagAmplitudes, TimeSignal signal) {
+
+    /** A real source. */
+    public Source(Component component, int[] cells, double[] amplitudes, TimeSignal signal) {
+        this(component, cells, amplitudes, new double[amplitudes.length], signal);
+    }
 
     public Source {
-        if (cells.length != amplitudes.length) {
-            throw new IllegalArgumentException("source has " + cells.length + " cells but " + amplitudes.length + " amplitudes");
+        if (cells.length != amplitudes.length || cells.length != imagAmplitudes.length) {
+            throw new IllegalArgumentException("source has " + cells.length + " cells but " + amplitudes.length
+                    + " amplitudes and " + imagAmplitudes.length + " imaginary parts");
         }
         if (cells.length == 0) {
             throw new IllegalArgumentException("source has no cells");
         }
-        for (double a : amplitudes) {
-            if (!Double.isFinite(a)) {
-                throw new IllegalArgumentException("source amplitude " + a + " is not finite");
+        for (int t = 0; t < cells.length; t++) {
+            if (!Double.isFinite(amplitudes[t]) || !Double.isFinite(imagAmplitudes[t])) {
+                throw new IllegalArgumentException("source amplitude " + amplitudes[t] + " + " + imagAmplitudes[t]
+                        + "i is not finite");
             }
         }
         cells = cells.clone();
         amplitudes = amplitudes.clone();
+        imagAmplitudes = imagAmplitudes.clone();
+    }
+
+    /** Whether any amplitude has an imaginary part. */
+    public boolean isComplex() {
+        for (double a : imagAmplitudes) {
+            if (a != 0) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    /**
+     * A plane-wave line source along x at row j for a Bloch-periodic run: amplitude e^{i kx x} at
+     * every node of the row (x = x0 + iΔ, with the component's site offset).
+     */
+    public static Source blochRow(Component c, int nx, int j, double x0, double cellSize, double kx, TimeSignal g) {
+        int[] cells = new int[nx];
+        double[] re = new double[nx];
+        double[] im = new double[nx];
+        for (int i = 0; i < nx; i++) {
+            double x = x0 + (i + c.dx) * cellSize;
+            cells[i] = j * nx + i;
+            re[i] = Math.cos(kx * x);
+            im[i] = Math.sin(kx * x);
+        }
+        return new Source(c, cells, re, im, g);
     }
 
     /** A point source of amplitude a at node (i, j) of a grid nx wide. */
@@ -73,9 +112,15 @@ public record Source(Component component, int[] cells, double[] amplitudes, Time
     }
 
     @Override
+    public double[] imagAmplitudes() {
+        return imagAmplitudes.clone();
+    }
+
+    @Override
     public boolean equals(Object o) {
         return o instanceof Source s && s.component == component && Arrays.equals(s.cells, cells)
-                && Arrays.equals(s.amplitudes, amplitudes) && s.signal.equals(signal);
+                && Arrays.equals(s.amplitudes, amplitudes) && Arrays.equals(s.imagAmplitudes, imagAmplitudes)
+                && s.signal.equals(signal);
     }
 
     @Override

@@ -1,0 +1,144 @@
+package org.evanesce.solver.kernel;
+
+import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Polarization;
+
+/**
+ * Complex fields for Bloch-periodic boundaries along x, as two real engines (the real and the
+ * imaginary part) that step in lockstep row by row. The Yee update is real and linear, so the
+ * parts are independent except at the seam, where a field one period away is the field here times
+ * e^{±iφ}, φ = kx·P (the period P = nx·Δ):
+ * <pre>
+ *   E(nx, j)  = e^{+iφ} E(0, j)        read by the magnetic update of the last column
+ *   H(−1, j)  = e^{−iφ} H(nx − 1, j)   read by the electric update of column 0
+ * </pre>
+ * with E = Ez, H = Hy for s and E = Ey, H = Hz for p (J. A. Roden et al., IEEE Trans. Microwave
+ * Theory Tech. 46, 420 (1998), constant transverse wavenumber). Before each row's magnetic update
+ * the seam value east of the last column is formed from the old E of column 0 of both parts; before
+ * each row's electric update the value west of column 0 from the new H of the last column. Both
+ * are row-local, so the row bands and the thread-independence of results carry over.
+ */
+final class BlochPair extends Engine {
+
+    private final Engine re;
+    private final Engine im;
+    private final double cos;
+    private final double sin;
+    private final Component seamE;
+    private final Component seamH;
+
+    BlochPair(Engine re, Engine im, Polarization pol, double phase) {
+        super(re.nx, re.ny, re.courant, java.util.Map.of(
+                org.evanesce.solver.grid.Side.LEFT, new org.evanesce.solver.boundary.Boundary.Pec(),
+                org.evanesce.solver.grid.Side.RIGHT, new org.evanesce.solver.boundary.Boundary.Pec(),
+                org.evanesce.solver.grid.Side.BOTTOM, new org.evanesce.solver.boundary.Boundary.Pec(),
+                org.evanesce.solver.grid.Side.TOP, new org.evanesce.solver.boundary.Boundary.Pec()));
+        if (!re.blochX || !im.blochX) {
+            throw new IllegalArgumentException("both parts must have Bloch-periodic x sides");
+        }
+        this.re = re;
+        this.im = im;
+        cos = Math.cos(phase);
+        sin = Math.sin(phase);
+        seamE = pol == Polarization.S ? Component.EZ : Component.EY;
+        seamH = pol == Polarization.S ? Component.HY : Component.HZ;
+    }
+
+    @Override
+    protected double hRowFull(int j, boolean flush) {
+        int k = j * nx;
+        double a = re.get(seamE, k);
+        double b = im.get(seamE, k);
+        re.ghostE[j] = cos * a - sin * b;
+        im.ghostE[j] = sin * a + cos * b;
+        return Math.max(re.hRowFull(j, flush), im.hRowFull(j, flush));
+    }
+
+    @Override
+    protected double eRowFull(int j, boolean flush) {
+        int k = j * nx + nx - 1;
+        double a = re.get(seamH, k);
+        double b = im.get(seamH, k);
+        re.ghostW[j] = cos * a + sin * b;
+        im.ghostW[j] = -sin * a + cos * b;
+        return Math.max(re.eRowFull(j, flush), im.eRowFull(j, flush));
+    }
+
+    @Override
+    public void setSources(int[] cells, Component[] comps) {
+        re.setSources(cells, comps);
+        im.setSources(cells, comps);
+    }
+
+    @Override
+    public void sourceValue(int t, double vr, double vi) {
+        re.sourceValue(t, vr);
+        im.sourceValue(t, vi);
+    }
+
+    @Override
+    public void sourceValue(int t, double v) {
+        sourceValue(t, v, 0.0);
+    }
+
+    @Override
+    protected void hRow(int j) {
+        throw new UnsupportedOperationException("the parts update their rows");
+    }
+
+    @Override
+    protected void eRow(int j) {
+        throw new UnsupportedOperationException("the parts update their rows");
+    }
+
+    @Override
+    protected void addSource(Component c, int k, double v) {
+        throw new UnsupportedOperationException("the parts hold the sources");
+    }
+
+    @Override
+    protected double flushH(int j) {
+        throw new UnsupportedOperationException("the parts flush their rows");
+    }
+
+    @Override
+    protected double flushE(int j) {
+        throw new UnsupportedOperationException("the parts flush their rows");
+    }
+
+    @Override
+    public double get(Component c, int k) {
+        return re.get(c, k);
+    }
+
+    @Override
+    public void set(Component c, int k, double v) {
+        re.set(c, k, v);
+    }
+
+    @Override
+    public double getImag(Component c, int k) {
+        return im.get(c, k);
+    }
+
+    @Override
+    public void setImag(Component c, int k, double v) {
+        im.set(c, k, v);
+    }
+
+    /** |E|² and H·H' summed over both parts; the seam cells are counted without the periodic neighbour. */
+    @Override
+    public double energy(int i0, int j0, int i1, int j1) {
+        return re.energy(i0, j0, i1, j1) + im.energy(i0, j0, i1, j1);
+    }
+
+    @Override
+    public long bytes() {
+        return re.bytes() + im.bytes();
+    }
+
+    @Override
+    public int bytesPerCell() {
+        return re.bytesPerCell() + im.bytesPerCell();
+    }
+}
