@@ -1,0 +1,432 @@
+package org.evanesce.io.cli;
+
+import java.io.PrintWriter;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import java.util.function.ToDoubleFunction;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import org.evanesce.io.Main;
+import org.evanesce.io.casefile.expr.Dimension;
+import org.evanesce.io.casefile.expr.Units;
+import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.reference.Complex;
+import org.evanesce.solver.reference.Evanescent;
+import org.evanesce.solver.reference.PlanarStack;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.ITypeConverter;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ParameterException;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.TypeConversionException;
+
+/**
+ * {@code evanesce stack}: a designer's calculator for the exact plane-wave reflectance, transmittance and
+ * absorptance of a layer stack ({@link PlanarStack}), over a range of angles, one layer's thickness, or
+ * wavelengths. Numbers only; nothing is written to disk.
+ */
+@Command(name = "stack", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class, sortOptions = false,
+        description = {
+            "Plane-wave R, T and A of a stack of layers between two media, exact (characteristic matrix), at any angle "
+                    + "including beyond the critical angle, for s and p polarization.",
+            "Indices are n (1.5), n+ki (1.5+0.01i) or n,k (0.2,3.4), with k >= 0 for absorption; lengths carry a unit "
+                    + "(nm, um, mm, m). One of --angle, --wavelength or --thickness may be a range FROM:TO:STEP.",
+            "Columns: the swept value; per polarization R, T, A and the phases of r and t in degrees (r and t are "
+                    + "amplitude ratios of E for s and of H for p; r at the first interface, t from the first interface "
+                    + "to the last); depth_nm, the 1/e amplitude depth of the evanescent field in the first layer (or "
+                    + "the exit medium) when beyond the critical angle."})
+public final class StackCommand implements Callable<Integer> {
+
+    /** Width of a table column: the longest header, phase_r_s_deg. */
+    private static final int COLUMN = 13;
+
+    /** A sweep longer than this is almost certainly a mistyped step. */
+    static final int MAX_ROWS = 100_000;
+
+    /** Which polarizations to print. */
+    enum Choice {
+        S, P, BOTH
+    }
+
+    @Spec
+    private CommandSpec spec;
+
+    @Option(names = "--incident", required = true, paramLabel = "INDEX", converter = IndexConverter.class,
+            description = "Index of the incidence medium (transparent: a real index).")
+    private Complex incident;
+
+    @Option(names = "--layer", paramLabel = "INDEX:THICKNESS", converter = LayerConverter.class,
+            description = "A layer, e.g. 1.0:200nm; repeat for more, from the incidence side. Layers are numbered from 1.")
+    private List<PlanarStack.Layer> layers = new ArrayList<>();
+
+    @Option(names = "--exit", required = true, paramLabel = "INDEX", converter = IndexConverter.class,
+            description = "Index of the exit medium (may absorb).")
+    private Complex exit;
+
+    @Option(names = "--wavelength", required = true, paramLabel = "LENGTH|FROM:TO:STEP", converter = LengthSweep.class,
+            description = "Vacuum wavelength, e.g. 633nm, or a range 400nm:800nm:10nm (indices are taken as constant "
+                    + "over it).")
+    private Sweep wavelength;
+
+    @Option(names = "--angle", paramLabel = "DEG|FROM:TO:STEP", converter = AngleSweep.class, defaultValue = "0",
+            description = "Angle of incidence in the incidence medium, degrees in [0, 90), or a range 40:70:1 "
+                    + "(default: ${DEFAULT-VALUE}).")
+    private Sweep angle;
+
+    @Option(names = "--thickness", paramLabel = "LAYER:FROM:TO:STEP", converter = ThicknessSweep.class,
+            description = "Sweep the thickness of layer LAYER (from 1), e.g. 1:0:1um:10nm; it replaces that "
+                    + "layer's thickness.")
+    private ThicknessRange thickness;
+
+    @Option(names = "--polarization", paramLabel = "s|p|both", defaultValue = "both",
+            description = "s (E normal to the plane of incidence), p (H normal to it) or both (default: ${DEFAULT-VALUE}).")
+    private Choice polarization;
+
+    @Option(names = "--csv", description = "Print CSV (one header row) instead of a table.")
+    private boolean csv;
+
+    /** The values of a swept (or single) quantity, in SI (m or rad). */
+    record Sweep(String text, List<Double> values) {
+        boolean isRange() {
+            return text.contains(":");
+        }
+    }
+
+    /** A thickness sweep of layer {@code layer} (from 1). */
+    record ThicknessRange(String text, int layer, List<Double> values) {
+    }
+
+    private enum Variable {
+        ANGLE("angle_deg"), WAVELENGTH("wavelength_nm"), THICKNESS("thickness_nm");
+
+        final String column;
+
+        Variable(String column) {
+            this.column = column;
+        }
+    }
+
+    @Override
+    public Integer call() {
+        PrintWriter out = spec.commandLine().getOut();
+        if (incident.im() != 0) {
+            throw usage("--incident " + incident + ": the incidence medium must be transparent (a real index, k = 0): "
+                    + "an angle of incidence and an incident power are only defined there");
+        }
+        int ranges = (angle.isRange() ? 1 : 0) + (wavelength.isRange() ? 1 : 0) + (thickness != null ? 1 : 0);
+        if (ranges > 1) {
+            throw usage("more than one range given (--angle " + angle.text() + ", --wavelength " + wavelength.text()
+                    + (thickness != null ? ", --thickness " + thickness.text() : "")
+                    + "): sweep one of them and give the others single values");
+        }
+        for (double a : angle.values()) {
+            if (!(a >= 0 && a < Math.PI / 2)) {
+                throw usage(String.format(Locale.ROOT, "--angle %s: %s deg is outside [0, 90) deg", angle.text(),
+                        Units.number(Math.toDegrees(a))));
+            }
+        }
+        for (double w : wavelength.values()) {
+            if (!(w > 0)) {
+                throw usage("--wavelength " + wavelength.text() + ": a wavelength must be a length > 0");
+            }
+        }
+        if (thickness != null && thickness.layer() > layers.size()) {
+            throw usage(String.format(Locale.ROOT, "--thickness %s: there is no layer %d; the stack has %d layer(s) "
+                    + "(--layer), numbered from 1", thickness.text(), thickness.layer(), layers.size()));
+        }
+        PlanarStack stack = new PlanarStack(incident.re(), layers, exit);
+        Variable variable = thickness != null ? Variable.THICKNESS : wavelength.isRange() ? Variable.WAVELENGTH
+                : Variable.ANGLE;
+        List<Double> values = switch (variable) {
+            case THICKNESS -> thickness.values();
+            case WAVELENGTH -> wavelength.values();
+            case ANGLE -> angle.values();
+        };
+        List<Polarization> pols = switch (polarization) {
+            case S -> List.of(Polarization.S);
+            case P -> List.of(Polarization.P);
+            case BOTH -> List.of(Polarization.S, Polarization.P);
+        };
+        Complex gap = stack.index(1); // the first layer, or the exit medium when there are none
+        boolean gapTransparent = gap.im() == 0;
+
+        List<String> head = new ArrayList<>();
+        head.add(variable.column);
+        for (Polarization p : pols) {
+            String s = p == Polarization.S ? "s" : "p";
+            head.addAll(List.of("R_" + s, "T_" + s, "A_" + s, "phase_r_" + s + "_deg", "phase_t_" + s + "_deg"));
+        }
+        head.add("depth_nm");
+        if (csv) {
+            out.println(String.join(",", head));
+        } else {
+            printHeader(out, stack, gap);
+            out.println(tableRow(head));
+        }
+        for (double value : values) {
+            PlanarStack st = variable == Variable.THICKNESS ? stack.withThickness(thickness.layer() - 1, value) : stack;
+            double lambda = variable == Variable.WAVELENGTH ? value : wavelength.values().get(0);
+            double theta = variable == Variable.ANGLE ? value : angle.values().get(0);
+            List<String> row = new ArrayList<>();
+            row.add(csv ? csvNumber(shown(variable, value)) : Units.number(shown(variable, value)));
+            for (Polarization p : pols) {
+                PlanarStack.Response resp = st.atAngle(p, lambda, theta);
+                double phaseR = Math.toDegrees(resp.r().arg());
+                double phaseT = Math.toDegrees(resp.t().arg());
+                if (csv) {
+                    row.addAll(List.of(csvNumber(resp.reflectance()), csvNumber(resp.transmittance()),
+                            csvNumber(resp.absorptance()), csvNumber(phaseR), csvNumber(phaseT)));
+                } else {
+                    row.addAll(List.of(cell("%.6g", resp.reflectance()), cell("%.6g", resp.transmittance()),
+                            cell("%.6f", resp.absorptance()), cell("%.3f", phaseR), cell("%.3f", phaseT)));
+                }
+            }
+            boolean beyond = gapTransparent && Evanescent.isBeyondCritical(incident.re(), gap.re(), theta);
+            double depth = beyond ? Evanescent.amplitudeDepth(incident.re(), gap.re(), theta, lambda) : Double.NaN;
+            row.add(beyond ? (csv ? csvNumber(depth * 1e9) : cell("%.2f", depth * 1e9)) : csv ? "" : "-");
+            out.println(csv ? String.join(",", row) : tableRow(row));
+        }
+        return Main.OK;
+    }
+
+    private void printHeader(PrintWriter out, PlanarStack stack, Complex gap) {
+        StringBuilder s = new StringBuilder("stack: incident n = ").append(index(Complex.real(stack.incidentIndex())));
+        for (int k = 0; k < stack.layers().size(); k++) {
+            PlanarStack.Layer l = stack.layers().get(k);
+            s.append(" | layer ").append(k + 1).append(": n = ").append(index(l.index())).append(", ");
+            s.append(thickness != null && thickness.layer() == k + 1 ? "swept"
+                    : Units.format(l.thickness(), Dimension.LENGTH));
+        }
+        s.append(" | exit n = ").append(index(stack.exitIndex()));
+        out.println(s);
+        StringBuilder w = new StringBuilder();
+        if (!wavelength.isRange()) {
+            w.append("wavelength ").append(Units.format(wavelength.values().get(0), Dimension.LENGTH)).append("; ");
+        }
+        if (!angle.isRange()) {
+            w.append("angle ").append(Units.number(Math.toDegrees(angle.values().get(0)))).append(" deg; ");
+        }
+        String into = stack.layers().isEmpty() ? "the exit medium" : "layer 1";
+        if (gap.im() == 0 && gap.re() < stack.incidentIndex()) {
+            w.append("critical angle into ").append(into).append(": ")
+                    .append(Units.number(Math.toDegrees(Evanescent.criticalAngle(stack.incidentIndex(), gap.re()))))
+                    .append(" deg");
+        } else {
+            w.append("no critical angle into ").append(into);
+        }
+        out.println(w);
+        out.println("r, t: amplitude ratios of E (s) and H (p); r at the first interface, t from the first interface "
+                + "to the last; phases in degrees");
+    }
+
+    /** Columns of at least {@value #COLUMN} characters, right-aligned but the first, two spaces apart. */
+    private static String tableRow(List<String> cells) {
+        StringBuilder line = new StringBuilder(String.format(Locale.ROOT, "%-" + COLUMN + "s", cells.get(0)));
+        for (int c = 1; c < cells.size(); c++) {
+            line.append("  ").append(String.format(Locale.ROOT, "%" + COLUMN + "s", cells.get(c)));
+        }
+        return line.toString().stripTrailing();
+    }
+
+    private static String index(Complex n) {
+        return n.im() == 0 ? Units.number(n.re()) : Units.number(n.re()) + "+" + Units.number(n.im()) + "i";
+    }
+
+    private static double shown(Variable v, double si) {
+        return v == Variable.ANGLE ? Math.toDegrees(si) : si * 1e9;
+    }
+
+    /** A table cell; a rounding-sized negative value never prints as "-0.000". */
+    private static String cell(String format, double v) {
+        String s = String.format(Locale.ROOT, format, v);
+        return s.matches("-0\\.0*") ? s.substring(1) : s;
+    }
+
+    /** Up to 15 significant digits, trailing zeros removed: what a program reading the CSV needs. */
+    static String csvNumber(double v) {
+        if (v == 0) {
+            return "0";
+        }
+        String s = String.format(Locale.ROOT, "%.15g", v);
+        int e = s.indexOf('e');
+        String mantissa = e < 0 ? s : s.substring(0, e);
+        String exponent = e < 0 ? "" : s.substring(e).replaceFirst("e([+-])0*(\\d)", "e$1$2");
+        if (mantissa.indexOf('.') >= 0) {
+            mantissa = mantissa.replaceAll("0+$", "").replaceAll("\\.$", "");
+        }
+        return mantissa + exponent;
+    }
+
+    private ParameterException usage(String message) {
+        return new ParameterException(spec.commandLine(), message);
+    }
+
+    // ---- parsing: each converter's message names the value and what was expected; picocli adds the option
+
+    private static final String NUMBER = "(?:\\d+(?:\\.\\d*)?|\\.\\d+)(?:[eE][+-]?\\d+)?";
+    private static final Pattern REAL = Pattern.compile("\\s*([+-]?" + NUMBER + ")\\s*");
+    private static final Pattern N_PLUS_KI = Pattern.compile("\\s*([+-]?" + NUMBER + ")\\s*([+-])\\s*(" + NUMBER + ")\\s*[iI]\\s*");
+    private static final Pattern N_COMMA_K = Pattern.compile("\\s*([+-]?" + NUMBER + ")\\s*,\\s*([+-]?" + NUMBER + ")\\s*");
+    private static final Pattern LENGTH = Pattern.compile("\\s*(" + NUMBER + ")\\s*(nm|um|µm|mm|m)\\s*");
+    private static final Pattern ANGLE = Pattern.compile("\\s*([+-]?" + NUMBER + ")\\s*(?:deg)?\\s*");
+
+    /** A complex index: {@code 1.5}, {@code 1.5+0.01i} or {@code 1.5,0.01} (n, k), with n, k ≥ 0 and not both zero. */
+    static Complex parseIndex(String text) {
+        double n;
+        double k;
+        Matcher m;
+        if ((m = REAL.matcher(text)).matches()) {
+            n = Double.parseDouble(m.group(1));
+            k = 0;
+        } else if ((m = N_PLUS_KI.matcher(text)).matches()) {
+            n = Double.parseDouble(m.group(1));
+            k = Double.parseDouble(m.group(3)) * (m.group(2).equals("-") ? -1 : 1);
+        } else if ((m = N_COMMA_K.matcher(text)).matches()) {
+            n = Double.parseDouble(m.group(1));
+            k = Double.parseDouble(m.group(2));
+        } else {
+            throw new TypeConversionException("'" + text + "' is not an index; expected n (1.5), n+ki (1.5+0.01i) or n,k (0.2,3.4)");
+        }
+        if (!Double.isFinite(n) || !Double.isFinite(k) || n < 0 || k < 0 || (n == 0 && k == 0)) {
+            throw new TypeConversionException("'" + text + "': expected an index n + ki with n >= 0 and k >= 0 "
+                    + "(k > 0 absorbs; gain is not supported), not zero");
+        }
+        return Complex.of(n, k);
+    }
+
+    /** A length with a unit (nm, um, µm, mm, m), or a bare 0; SI metres. */
+    static double parseLength(String text) {
+        Matcher m = LENGTH.matcher(text);
+        if (m.matches()) {
+            double v = Units.times(Double.parseDouble(m.group(1)), m.group(2).equals("µm") ? "um" : m.group(2)).value();
+            if (Double.isFinite(v)) {
+                return v;
+            }
+        } else if (REAL.matcher(text).matches() && Double.parseDouble(text.strip()) == 0) {
+            return 0;
+        }
+        throw new TypeConversionException("'" + text + "' is not a length; expected a number with a unit "
+                + "(nm, um, mm, m), e.g. 200nm");
+    }
+
+    /** An angle in degrees (an optional {@code deg} suffix), in radians. */
+    static double parseAngle(String text) {
+        Matcher m = ANGLE.matcher(text);
+        if (!m.matches()) {
+            throw new TypeConversionException("'" + text + "' is not an angle; expected degrees, e.g. 45 or 45deg");
+        }
+        return Math.toRadians(Double.parseDouble(m.group(1)));
+    }
+
+    /** FROM:TO:STEP (or a single value) with the given element parser; STEP > 0, at most {@link #MAX_ROWS} values. */
+    static List<Double> parseRange(String text, ToDoubleFunction<String> element, String unitHint) {
+        String[] parts = text.split(":", -1);
+        if (parts.length == 1) {
+            return List.of(element.applyAsDouble(parts[0]));
+        }
+        if (parts.length != 3) {
+            throw new TypeConversionException("'" + text + "' is neither a single value nor a range FROM:TO:STEP"
+                    + unitHint);
+        }
+        double from = part(text, parts[0], element);
+        double to = part(text, parts[1], element);
+        double step = part(text, parts[2], element);
+        if (!(step > 0)) {
+            throw new TypeConversionException("'" + text + "': the step '" + parts[2] + "' must be > 0" + unitHint);
+        }
+        double span = Math.abs(to - from);
+        double count = Math.floor(span / step * (1 + 1e-12)) + 1;
+        if (count > MAX_ROWS) {
+            throw new TypeConversionException(String.format(Locale.ROOT,
+                    "'%s' has %.0f values; at most %d (a larger step?)", text, count, MAX_ROWS));
+        }
+        double sign = to >= from ? 1 : -1;
+        List<Double> values = new ArrayList<>();
+        for (int i = 0; i < (int) count; i++) {
+            values.add(i == count - 1 && Math.abs(from + sign * i * step - to) <= 1e-9 * step ? to : from + sign * i * step);
+        }
+        return List.copyOf(values);
+    }
+
+    /** One part of a compound value, its message prefixed by the whole value. */
+    private static double part(String whole, String part, ToDoubleFunction<String> parser) {
+        try {
+            return parser.applyAsDouble(part);
+        } catch (TypeConversionException e) {
+            throw new TypeConversionException("'" + whole + "': " + e.getMessage());
+        }
+    }
+
+    static final class IndexConverter implements ITypeConverter<Complex> {
+        @Override
+        public Complex convert(String value) {
+            return parseIndex(value);
+        }
+    }
+
+    static final class LayerConverter implements ITypeConverter<PlanarStack.Layer> {
+        @Override
+        public PlanarStack.Layer convert(String value) {
+            String[] parts = value.split(":", -1);
+            if (parts.length != 2) {
+                throw new TypeConversionException("'" + value + "' is not a layer; expected INDEX:THICKNESS, e.g. 1.0:200nm "
+                        + "or 0.2,3.4:50nm");
+            }
+            Complex index;
+            try {
+                index = parseIndex(parts[0]);
+            } catch (TypeConversionException e) {
+                throw new TypeConversionException("'" + value + "': " + e.getMessage());
+            }
+            return new PlanarStack.Layer(index, part(value, parts[1], StackCommand::parseLength));
+        }
+    }
+
+    static final class LengthSweep implements ITypeConverter<Sweep> {
+        @Override
+        public Sweep convert(String value) {
+            return new Sweep(value, parseRange(value, StackCommand::parseLength, " (lengths with a unit, e.g. 400nm:800nm:10nm)"));
+        }
+    }
+
+    static final class AngleSweep implements ITypeConverter<Sweep> {
+        @Override
+        public Sweep convert(String value) {
+            return new Sweep(value, parseRange(value, StackCommand::parseAngle, " (degrees, e.g. 40:70:1)"));
+        }
+    }
+
+    static final class ThicknessSweep implements ITypeConverter<ThicknessRange> {
+        @Override
+        public ThicknessRange convert(String value) {
+            int colon = value.indexOf(':');
+            String hint = "expected LAYER:FROM:TO:STEP with the layer number from 1 and lengths with a unit, "
+                    + "e.g. 1:0:1um:10nm";
+            if (colon < 0 || value.split(":", -1).length != 4) {
+                throw new TypeConversionException("'" + value + "' is not a thickness sweep; " + hint);
+            }
+            int layer;
+            try {
+                layer = Integer.parseInt(value.substring(0, colon).strip());
+            } catch (NumberFormatException e) {
+                throw new TypeConversionException("'" + value + "': '" + value.substring(0, colon) + "' is not a layer "
+                        + "number; " + hint);
+            }
+            if (layer < 1) {
+                throw new TypeConversionException("'" + value + "': layer " + layer + " must be >= 1; " + hint);
+            }
+            try {
+                return new ThicknessRange(value, layer,
+                        parseRange(value.substring(colon + 1), StackCommand::parseLength, " (" + hint + ")"));
+            } catch (TypeConversionException e) {
+                String inner = "'" + value.substring(colon + 1) + "'";
+                String m = e.getMessage();
+                throw new TypeConversionException("'" + value + "'" + (m.startsWith(inner) ? m.substring(inner.length())
+                        : ": " + m));
+            }
+        }
+    }
+}
