@@ -254,7 +254,7 @@ public final class Simulation implements StepView, AutoCloseable {
         private int minRowsCellsPerThread = 1 << 15;
         private final List<Source> sources = new ArrayList<>();
         private final List<StepListener> listeners = new ArrayList<>();
-        private int flushInterval = 16;
+        private int flushInterval = 64;
         private double divergenceLimit;
 
         private Builder(MaterialGrid grid) {
@@ -315,7 +315,10 @@ public final class Simulation implements StepView, AutoCloseable {
             return this;
         }
 
-        /** Steps between flushes of tiny values (subnormal guard) and divergence checks (default 16). */
+        /**
+         * Steps between flushes of tiny values (subnormal guard) and divergence checks. Default 64:
+         * the flush pass costs about one step's time, so about 1.5 % of the run (16 measured 6 %).
+         */
         public Builder flushInterval(int steps) {
             flushInterval = steps;
             return this;
