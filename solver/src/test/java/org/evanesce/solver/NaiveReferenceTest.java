@@ -16,7 +16,7 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 
 /**
- * The vectorised, row-fused, banded kernels against a plain transcription of the Yee equations
+ * The vectorised, row-fused, banded kernels against plain two-index loops of the Yee equations
  * (Yee, IEEE TAP 14, 302 (1966); Taflove &amp; Hagness ch. 3), written here with two-index loops,
  * one field at a time, with PEC walls on two sides and PMC walls (zero H half a cell outside) on
  * the other two. In double precision the operations are the same, so the bits must agree; the
@@ -35,7 +35,7 @@ class NaiveReferenceTest {
     /** With a lossy block the kernels stream ca; without one they take the lossless path (ca = 1). */
     @ParameterizedTest(name = "{0}, lossy block: {1}")
     @CsvSource({"S, true", "P, true", "S, false", "P, false"})
-    void enginesMatchAPlainTranscription(Polarization pol, boolean lossy) {
+    void enginesMatchPlainLoopsOfTheYeeEquations(Polarization pol, boolean lossy) {
         MaterialGrid.Builder gb = MaterialGrid.builder(NX, NY, DX, Material.VACUUM)
                 .paint(CellRegion.box(10.5, 5.5, 30.2, 20.7), new Material("glass", 2.4, 0.0));
         if (lossy) {
