@@ -17,7 +17,7 @@ import org.junit.jupiter.params.provider.CsvSource;
 
 /**
  * The vectorised, row-fused, banded kernels against plain two-index loops of the Yee equations
- * (Yee, IEEE TAP 14, 302 (1966); Taflove &amp; Hagness ch. 3), written here with two-index loops,
+ * (Yee, IEEE TAP 14, 302 (1966); Taflove &amp; Hagness ch. 3), written out here
  * one field at a time, with PEC walls on two sides and PMC walls (zero H half a cell outside) on
  * the other two. In double precision the operations are the same, so the bits must agree; the
  * float engine must agree to float rounding.
