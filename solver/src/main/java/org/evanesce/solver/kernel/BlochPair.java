@@ -1,7 +1,10 @@
 package org.evanesce.solver.kernel;
 
+import java.util.Map;
+import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.grid.Side;
 
 /**
  * Complex fields for Bloch-periodic boundaries along x, as two real engines (the real and the
@@ -28,11 +31,9 @@ final class BlochPair extends Engine {
     private final Component seamH;
 
     BlochPair(Engine re, Engine im, Polarization pol, double phase) {
-        super(re.nx, re.ny, re.courant, java.util.Map.of(
-                org.evanesce.solver.grid.Side.LEFT, new org.evanesce.solver.boundary.Boundary.Pec(),
-                org.evanesce.solver.grid.Side.RIGHT, new org.evanesce.solver.boundary.Boundary.Pec(),
-                org.evanesce.solver.grid.Side.BOTTOM, new org.evanesce.solver.boundary.Boundary.Pec(),
-                org.evanesce.solver.grid.Side.TOP, new org.evanesce.solver.boundary.Boundary.Pec()));
+        // the pair only schedules its parts; its own walls, strips and sources are never used
+        super(re.nx, re.ny, re.courant, Map.of(Side.LEFT, Boundary.pec(), Side.RIGHT, Boundary.pec(),
+                Side.BOTTOM, Boundary.pec(), Side.TOP, Boundary.pec()));
         if (!re.blochX || !im.blochX) {
             throw new IllegalArgumentException("both parts must have Bloch-periodic x sides");
         }
