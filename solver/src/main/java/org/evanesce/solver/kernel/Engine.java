@@ -119,7 +119,7 @@ public abstract class Engine {
      * (Taflove &amp; Hagness ch. 3, lossy-dielectric form).
      */
     static double[][] coefficients(MaterialGrid grid, FieldSite site, double courant, double dt) {
-        final double eps0 = 8.8541878128e-12;
+        final double eps0 = 8.8541878128e-12; // = PhysicalConstants.EPS0; kernel does not depend on the facade package
         int nx = grid.nx();
         int ny = grid.ny();
         int nm = grid.materials().size();
