@@ -151,16 +151,16 @@ final class HeatmapLayout {
         double yBottom = map.y0() - 0.5 * d;
 
         // x axis
-        Axis xa = Axis.of(xLeft / u, (xLeft + nx * d) / u, u * perMetre, Math.max(1, pw / X_TICK_SPACING), true);
-        xTicks = xa.values;
+        TickAxis xa = TickAxis.of(xLeft / u, (xLeft + nx * d) / u, u * perMetre, Math.max(1, pw / X_TICK_SPACING), true);
+        xTicks = xa.values();
         int xLabelTop = ph + 1 + TICK + 6;
         int belowRight = pw;
-        for (int q = 0; q < xa.values.length; q++) {
-            int col = clamp((int) Math.floor((xa.values[q] * u - xLeft) * perMetre), 0, pw - 1);
+        for (int q = 0; q < xa.values().length; q++) {
+            int col = clamp((int) Math.floor((xa.values()[q] * u - xLeft) * perMetre), 0, pw - 1);
             ticks.add(new Box(col, ph + 1, 1, TICK));
-            int w = PixelFont.width(xa.labels[q], SCALE);
+            int w = PixelFont.width(xa.labels()[q], SCALE);
             Box b = new Box(col - w / 2, xLabelTop, w, LINE);
-            texts.add(new Text(xa.labels[q], b, Canvas.Direction.ACROSS));
+            texts.add(new Text(xa.labels()[q], b, Canvas.Direction.ACROSS));
             belowRight = Math.max(belowRight, b.right());
         }
         String xTitle = "x (" + map.unit().symbol + ")";
@@ -170,16 +170,16 @@ final class HeatmapLayout {
         belowRight = Math.max(belowRight, xtb.right());
 
         // y axis
-        Axis ya = Axis.of(yBottom / u, (yBottom + ny * d) / u, u * perMetre, Math.max(1, ph / Y_TICK_SPACING), false);
-        yTicks = ya.values;
+        TickAxis ya = TickAxis.of(yBottom / u, (yBottom + ny * d) / u, u * perMetre, Math.max(1, ph / Y_TICK_SPACING), false);
+        yTicks = ya.values();
         int yLabelRight = -1 - TICK - 5;
         int yLabelWidth = 0;
-        for (int q = 0; q < ya.values.length; q++) {
-            int row = ph - 1 - clamp((int) Math.floor((ya.values[q] * u - yBottom) * perMetre), 0, ph - 1);
+        for (int q = 0; q < ya.values().length; q++) {
+            int row = ph - 1 - clamp((int) Math.floor((ya.values()[q] * u - yBottom) * perMetre), 0, ph - 1);
             ticks.add(new Box(-1 - TICK, row, TICK, 1));
-            int w = PixelFont.width(ya.labels[q], SCALE);
+            int w = PixelFont.width(ya.labels()[q], SCALE);
             yLabelWidth = Math.max(yLabelWidth, w);
-            texts.add(new Text(ya.labels[q], new Box(yLabelRight - w, row - CAP / 2, w, LINE), Canvas.Direction.ACROSS));
+            texts.add(new Text(ya.labels()[q], new Box(yLabelRight - w, row - CAP / 2, w, LINE), Canvas.Direction.ACROSS));
         }
         String yTitle = "y (" + map.unit().symbol + ")";
         int ytl = PixelFont.width(yTitle, SCALE);
@@ -208,15 +208,15 @@ final class HeatmapLayout {
             barLabelWidth = PixelFont.width(s, SCALE);
             texts.add(new Text(s, new Box(barLabelLeft, row - CAP / 2, barLabelWidth, LINE), Canvas.Direction.ACROSS));
         } else {
-            Axis ba = Axis.of(low, high, (barHeight - 1) / (high - low), Math.max(1, barHeight / BAR_TICK_SPACING), false);
-            barTicks = ba.values;
-            for (int q = 0; q < ba.values.length; q++) {
-                int row = barTop + (int) Math.round((high - ba.values[q]) / (high - low) * (barHeight - 1));
+            TickAxis ba = TickAxis.of(low, high, (barHeight - 1) / (high - low), Math.max(1, barHeight / BAR_TICK_SPACING), false);
+            barTicks = ba.values();
+            for (int q = 0; q < ba.values().length; q++) {
+                int row = barTop + (int) Math.round((high - ba.values()[q]) / (high - low) * (barHeight - 1));
                 ticks.add(new Box(barLeft + BAR_WIDTH + 1, row, 5, 1));
-                int w = PixelFont.width(ba.labels[q], SCALE);
+                int w = PixelFont.width(ba.labels()[q], SCALE);
                 barLabelWidth = Math.max(barLabelWidth, w);
                 Box b = new Box(barLabelLeft, row - CAP / 2, w, LINE);
-                texts.add(new Text(ba.labels[q], b, Canvas.Direction.ACROSS));
+                texts.add(new Text(ba.labels()[q], b, Canvas.Direction.ACROSS));
                 columnBottom = Math.max(columnBottom, b.bottom());
             }
         }
@@ -349,38 +349,4 @@ final class HeatmapLayout {
         return c;
     }
 
-    /** Tick values and labels along one axis or the bar. */
-    private record Axis(double[] values, String[] labels) {
-
-        /**
-         * The nicest ticks on [lo, hi] with at most {@code maxCount} of them whose labels do not
-         * crowd each other.
-         *
-         * @param pixelsPerUnit pixels per unit of the values
-         * @param across        labels side by side (x axis) rather than stacked (y axis, bar)
-         */
-        static Axis of(double lo, double hi, double pixelsPerUnit, int maxCount, boolean across) {
-            double step = Ticks.step(lo, hi, maxCount);
-            while (true) {
-                double[] v = Ticks.values(lo, hi, step);
-                if (v.length == 0) {
-                    double[] one = Ticks.nearestMiddle(lo, hi, step);
-                    return new Axis(one, new String[] {Ticks.single(one[0])});
-                }
-                String[] labels = Ticks.labels(v, step);
-                int need = CAP + 16;
-                if (across) {
-                    int w = 0;
-                    for (String s : labels) {
-                        w = Math.max(w, PixelFont.width(s, SCALE));
-                    }
-                    need = w + 2 * PixelFont.ADVANCE * SCALE;
-                }
-                if (v.length == 1 || step * pixelsPerUnit >= need) {
-                    return new Axis(v, labels);
-                }
-                step = Ticks.next(step);
-            }
-        }
-    }
 }

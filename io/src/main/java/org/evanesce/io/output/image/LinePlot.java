@@ -2,20 +2,9 @@ package org.evanesce.io.output.image;
 
 import java.awt.image.BufferedImage;
 import java.io.IOException;
-import java.io.OutputStream;
-import java.nio.file.AtomicMoveNotSupportedException;
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
-import java.nio.file.StandardOpenOption;
 import java.util.ArrayList;
-import java.util.Iterator;
 import java.util.List;
-import java.util.concurrent.ThreadLocalRandom;
-import javax.imageio.ImageIO;
-import javax.imageio.ImageWriter;
-import javax.imageio.stream.ImageOutputStream;
-import javax.imageio.stream.MemoryCacheImageOutputStream;
 
 /**
  * A line plot: several named series of (x, y) points drawn as straight segments between
@@ -196,14 +185,14 @@ public final class LinePlot {
     }
 
     /** Where the parts go, in image pixels (y down). */
-    private record Layout(Axis xa, Axis ya, int left, int top, int legendLeft, int legendWidth, int legendHeight,
+    private record Layout(TickAxis xa, TickAxis ya, int left, int top, int legendLeft, int legendWidth, int legendHeight,
                           int xLabelTop, int width, int height) { }
 
     private Layout layout() {
-        Axis xa = Axis.of(xLow, xHigh, (plotWidth - 1) / (xHigh - xLow), Math.max(2, plotWidth / X_TICK_SPACING), true);
-        Axis ya = Axis.of(yLow, yHigh, (plotHeight - 1) / (yHigh - yLow), Math.max(2, plotHeight / Y_TICK_SPACING), false);
+        TickAxis xa = TickAxis.of(xLow, xHigh, (plotWidth - 1) / (xHigh - xLow), Math.max(2, plotWidth / X_TICK_SPACING), true);
+        TickAxis ya = TickAxis.of(yLow, yHigh, (plotHeight - 1) / (yHigh - yLow), Math.max(2, plotHeight / Y_TICK_SPACING), false);
         int yLabelWidth = 0;
-        for (String s : ya.labels) {
+        for (String s : ya.labels()) {
             yLabelWidth = Math.max(yLabelWidth, PixelFont.width(s, SCALE));
         }
         int left = MARGIN + (yTitle.isEmpty() ? 0 : LINE + 12) + yLabelWidth + 5 + TICK + 1;
@@ -215,7 +204,7 @@ public final class LinePlot {
         }
         legendWidth += series.isEmpty() ? 0 : 20;
         int legendHeight = series.isEmpty() ? 0 : series.size() * (LINE + 8) + 12;
-        int lastLabelHalf = PixelFont.width(xa.labels[xa.values.length - 1], SCALE) / 2;
+        int lastLabelHalf = PixelFont.width(xa.labels()[xa.values().length - 1], SCALE) / 2;
         int right = Math.max(series.isEmpty() ? 0 : legendLeft + legendWidth, left + plotWidth + lastLabelHalf);
         int xLabelTop = top + plotHeight + 1 + TICK + 6;
         int bottom = xLabelTop + LINE + (xTitle.isEmpty() ? 0 : 6 + LINE);
@@ -239,8 +228,8 @@ public final class LinePlot {
     /** Draws everything. */
     Canvas draw() {
         Layout l = layout();
-        Axis xa = l.xa;
-        Axis ya = l.ya;
+        TickAxis xa = l.xa;
+        TickAxis ya = l.ya;
         int left = l.left;
         int top = l.top;
         int legendLeft = l.legendLeft;
@@ -252,12 +241,12 @@ public final class LinePlot {
 
         Canvas c = new Canvas(width, height, BACKGROUND);
         // grid lines and ticks
-        for (double v : xa.values) {
+        for (double v : xa.values()) {
             int col = left + (int) Math.round(column(v));
             c.fill(col, top, 1, plotHeight, GRID);
             c.fill(col, top + plotHeight + 1, 1, TICK, FRAME);
         }
-        for (double v : ya.values) {
+        for (double v : ya.values()) {
             int r = top + (int) Math.round(row(v));
             c.fill(left, r, plotWidth, 1, GRID);
             c.fill(left - 1 - TICK, r, TICK, 1, FRAME);
@@ -286,15 +275,15 @@ public final class LinePlot {
         }
         c.frame(left, top, plotWidth, plotHeight, FRAME);
         // tick labels and titles
-        for (int q = 0; q < xa.values.length; q++) {
-            int col = left + (int) Math.round(column(xa.values[q]));
-            int w = PixelFont.width(xa.labels[q], SCALE);
-            c.text(xa.labels[q], col - w / 2, xLabelTop, SCALE, INK, Canvas.Direction.ACROSS);
+        for (int q = 0; q < xa.values().length; q++) {
+            int col = left + (int) Math.round(column(xa.values()[q]));
+            int w = PixelFont.width(xa.labels()[q], SCALE);
+            c.text(xa.labels()[q], col - w / 2, xLabelTop, SCALE, INK, Canvas.Direction.ACROSS);
         }
-        for (int q = 0; q < ya.values.length; q++) {
-            int r = top + (int) Math.round(row(ya.values[q]));
-            int w = PixelFont.width(ya.labels[q], SCALE);
-            c.text(ya.labels[q], left - 1 - TICK - 5 - w, r - CAP / 2, SCALE, INK, Canvas.Direction.ACROSS);
+        for (int q = 0; q < ya.values().length; q++) {
+            int r = top + (int) Math.round(row(ya.values()[q]));
+            int w = PixelFont.width(ya.labels()[q], SCALE);
+            c.text(ya.labels()[q], left - 1 - TICK - 5 - w, r - CAP / 2, SCALE, INK, Canvas.Direction.ACROSS);
         }
         if (!xTitle.isEmpty()) {
             int w = PixelFont.width(xTitle, SCALE);
@@ -421,66 +410,12 @@ public final class LinePlot {
      * @return the absolute path written
      */
     public Path writePng(Path file) throws IOException {
-        BufferedImage img = render();
-        Path target = file.toAbsolutePath().normalize();
-        Path dir = target.getParent();
-        Files.createDirectories(dir);
-        Path tmp = dir.resolve("." + target.getFileName() + "."
-                + Long.toHexString(ThreadLocalRandom.current().nextLong() & Long.MAX_VALUE) + ".tmp");
-        try {
-            Iterator<ImageWriter> writers = ImageIO.getImageWritersByFormatName("png");
-            if (!writers.hasNext()) {
-                throw new IOException("no PNG writer in this Java runtime; cannot write " + target);
-            }
-            ImageWriter writer = writers.next();
-            try (OutputStream out = Files.newOutputStream(tmp, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE);
-                    ImageOutputStream ios = new MemoryCacheImageOutputStream(out)) {
-                writer.setOutput(ios);
-                writer.write(img);
-            } finally {
-                writer.dispose();
-            }
-            try {
-                Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
-            } catch (AtomicMoveNotSupportedException e) {
-                Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
-            }
-        } finally {
-            Files.deleteIfExists(tmp);
-        }
-        return target;
+        return PngFile.write(render(), file);
     }
 
     private static int oklch(double lightness, double chroma, double hueDegrees) {
         double h = Math.toRadians(hueDegrees);
         return Oklab.pack(Oklab.toSrgb(lightness, chroma * Math.cos(h), chroma * Math.sin(h)));
-    }
-
-    /** Tick values and labels along one axis, not crowding each other. */
-    private record Axis(double[] values, String[] labels) {
-        static Axis of(double lo, double hi, double pixelsPerUnit, int maxCount, boolean across) {
-            double step = Ticks.step(lo, hi, maxCount);
-            while (true) {
-                double[] v = Ticks.values(lo, hi, step);
-                if (v.length == 0) {
-                    double[] one = Ticks.nearestMiddle(lo, hi, step);
-                    return new Axis(one, new String[] {Ticks.single(one[0])});
-                }
-                String[] labels = Ticks.labels(v, step);
-                int need = CAP + 16;
-                if (across) {
-                    int w = 0;
-                    for (String s : labels) {
-                        w = Math.max(w, PixelFont.width(s, SCALE));
-                    }
-                    need = w + 2 * PixelFont.ADVANCE * SCALE;
-                }
-                if (v.length == 1 || step * pixelsPerUnit >= need) {
-                    return new Axis(v, labels);
-                }
-                step = Ticks.next(step);
-            }
-        }
     }
 
     /** Collects the series and settings of a plot. */
