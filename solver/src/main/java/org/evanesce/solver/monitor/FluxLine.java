@@ -29,6 +29,8 @@ public final class FluxLine implements StepListener {
     private final double[] omega;
     /** DFT accumulators [frequency][cell], real and imaginary parts. */
     private final double[][] eRe, eIm, hRe, hIm;
+    /** This step's fields on the line (E averaged onto it), real and imaginary parts. */
+    private final double[] ea, eb, ha, hb;
 
     /**
      * @param pol         the run's polarization
@@ -57,10 +59,22 @@ public final class FluxLine implements StepListener {
         eIm = new double[omega.length][n];
         hRe = new double[omega.length][n];
         hIm = new double[omega.length][n];
+        ea = new double[n];
+        eb = new double[n];
+        ha = new double[n];
+        hb = new double[n];
     }
 
     @Override
     public void afterStep(StepView v) {
+        // read the line once per step, then accumulate every frequency from the copies
+        for (int i = i0; i < i1; i++) {
+            int k = i - i0;
+            ea[k] = 0.5 * (v.field(e, i, row) + v.field(e, i, row + 1));
+            eb[k] = 0.5 * (v.fieldImag(e, i, row) + v.fieldImag(e, i, row + 1));
+            ha[k] = v.field(h, i, row);
+            hb[k] = v.fieldImag(h, i, row);
+        }
         double te = v.time(e);
         double th = v.time(h);
         double dt = v.dt();
@@ -73,16 +87,11 @@ public final class FluxLine implements StepListener {
             double[] ei = eIm[q];
             double[] hr = hRe[q];
             double[] hi = hIm[q];
-            for (int i = i0; i < i1; i++) {
-                double a = 0.5 * (v.field(e, i, row) + v.field(e, i, row + 1));
-                double b = 0.5 * (v.fieldImag(e, i, row) + v.fieldImag(e, i, row + 1));
-                double c = v.field(h, i, row);
-                double d = v.fieldImag(h, i, row);
-                int k = i - i0;
-                er[k] += a * ce - b * se;
-                ei[k] += a * se + b * ce;
-                hr[k] += c * ch - d * sh;
-                hi[k] += c * sh + d * ch;
+            for (int k = 0; k < ea.length; k++) {
+                er[k] += ea[k] * ce - eb[k] * se;
+                ei[k] += ea[k] * se + eb[k] * ce;
+                hr[k] += ha[k] * ch - hb[k] * sh;
+                hi[k] += ha[k] * sh + hb[k] * ch;
             }
         }
     }
