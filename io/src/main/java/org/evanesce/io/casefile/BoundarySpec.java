@@ -19,4 +19,19 @@ public sealed interface BoundarySpec {
      * @param thickness the same in metres (cells × Δ)
      */
     record Pml(int cells, Value thickness, SourcePosition at) implements BoundarySpec { }
+
+    /**
+     * Bloch-periodic, on the left and right sides together: the domain's width is one period, and a
+     * field one period to the right is the field here times e^{i kx W}, with kx the in-plane
+     * wavenumber of the case's plane wave (0 without one).
+     */
+    record Periodic(SourcePosition at) implements BoundarySpec { }
+
+    /** How the side is written in the run record. */
+    default String describe() {
+        if (this instanceof Pml p) {
+            return "pml " + p.cells() + " cells";
+        }
+        return this instanceof Pmc ? "pmc" : this instanceof Periodic ? "periodic" : "pec";
+    }
 }

@@ -53,6 +53,9 @@ final class CaseChecks {
             memory();
         }
         decayWithContinuousWave();
+        if (p.boundaries.size() == Side.values().length) {
+            new PlaneWaveChecks(ctx, p, this).run();
+        }
     }
 
     private String fmt(double metres) {
@@ -130,6 +133,9 @@ final class CaseChecks {
             String path = p.sourcePaths.get(k);
             if (s instanceof SourceSpec.PointSource ps) {
                 place(ps.location(), path + ".at", "the source");
+            } else if (s instanceof SourceSpec.PlaneWave w && p.domain.contains(0, w.y().si()) && pmlAt(0, w.y().si()) != null) {
+                ctx.warn(w.y().at(), path + ".y", String.format("the launching line at y = %s lies inside the %s; sources belong in "
+                        + "the interior (%s)", fmt(w.y().si()), pmlAt(0, w.y().si()), interiorText()));
             } else if (s instanceof SourceSpec.LineSource ls) {
                 // both ends inside the interior keep the whole segment there (the interior is convex)
                 place(ls.from(), path + ".from", "the line's start");
@@ -157,7 +163,8 @@ final class CaseChecks {
         return true;
     }
 
-    private double[] interior() {
+    /** The interior (outside every PML) as {xmin, ymin, xmax, ymax}, metres. */
+    double[] interior() {
         double d = p.resolution.cellSize().si();
         return new double[] {p.resolution.x(0) + pmlCells(Side.LEFT) * d, p.resolution.y(0) + pmlCells(Side.BOTTOM) * d,
             p.resolution.x(p.resolution.nx() - 1) - pmlCells(Side.RIGHT) * d, p.resolution.y(p.resolution.ny() - 1) - pmlCells(Side.TOP) * d};

@@ -72,6 +72,8 @@ final class CaseParser {
     final List<String> shapePaths = new ArrayList<>();
     boolean shapesComplete = true;
     ResolutionSpec resolution;
+    /** The resolution as written is multiplied by this (an accuracy study's finer levels); 1 normally. */
+    double resolutionScale = 1;
     SourcePosition resolutionAt;
     /** The key the cell size came from: resolution.cell or resolution.cells_per_wavelength. */
     String resolutionPath = "resolution";
@@ -82,6 +84,7 @@ final class CaseParser {
     final List<ProbeSpec> probes = new ArrayList<>();
     final List<String> probePaths = new ArrayList<>();
     final Map<Side, String> boundaryPaths = new EnumMap<>(Side.class);
+    FluxSpec flux;
     OutputSpec output;
     StopSpec stop;
     NumericsSpec numerics;
@@ -134,6 +137,7 @@ final class CaseParser {
         }
         readBoundaries(top.get("boundaries"), top.has("boundaries") ? top.keyAt("boundaries") : top.at());
         readProbes(top.get("probes"));
+        flux = new FluxReader(ctx).read(top.get("flux"), top.has("flux") ? top.keyAt("flux") : top.at(), centreFrequency());
         Node o = top.get("output");
         readOutput(o == null ? null : MapView.of(ctx, o, Schema.OUTPUT, "output", top.keyAt("output")));
         Node s = top.require("stop", "a mapping with time, steps or decay");
@@ -359,11 +363,15 @@ final class CaseParser {
         Optional<Value> perWavelength = Optional.empty();
         if ("cell".equals(how)) {
             cell = ctx.positive(v.get("cell"), v.path("cell"), Expect.LENGTH);
+            if (cell != null && resolutionScale != 1) {
+                cell = new Value(cell.si() / resolutionScale, cell.at());
+            }
         } else if ("cells_per_wavelength".equals(how)) {
             Value n = ctx.positive(v.get("cells_per_wavelength"), v.path("cells_per_wavelength"), Expect.PLAIN);
             if (n == null || designWavelength == null || !materialsComplete || used.isEmpty()) {
                 return;
             }
+            n = new Value(n.si() * resolutionScale, n.at());
             MaterialSpec densest = used.values().stream().max((a, b) -> Double.compare(a.index(), b.index())).orElseThrow();
             cell = new Value(designWavelength.si() / (densest.index() * n.si()), n.at());
             perWavelength = Optional.of(n);
@@ -446,15 +454,39 @@ final class CaseParser {
                 }
             }
         }
+        if (sides.size() == Side.values().length && !periodicPairs(sides, paths)) {
+            return;
+        }
         if (sides.size() == Side.values().length) {
             boundaries.putAll(sides);
             boundaryPaths.putAll(paths);
         }
     }
 
+    /** Periodic sides come as the left and right pair; false (errors reported) otherwise. */
+    private boolean periodicPairs(Map<Side, BoundarySpec> sides, Map<Side, String> paths) {
+        boolean ok = true;
+        for (Side side : new Side[] {Side.BOTTOM, Side.TOP}) {
+            if (sides.get(side) instanceof BoundarySpec.Periodic p) {
+                ctx.error(p.at(), paths.get(side), "the " + side.name().toLowerCase(Locale.ROOT) + " side cannot be periodic: "
+                        + "periodic sides are the left and right pair, along the interfaces; expected pec, pmc or pml here");
+                ok = false;
+            }
+        }
+        boolean left = sides.get(Side.LEFT) instanceof BoundarySpec.Periodic;
+        boolean right = sides.get(Side.RIGHT) instanceof BoundarySpec.Periodic;
+        if (left != right) {
+            Side lone = left ? Side.LEFT : Side.RIGHT;
+            ctx.error(sides.get(lone).at(), paths.get(lone), "a periodic side needs its partner: make both left and right "
+                    + "periodic, or neither");
+            ok = false;
+        }
+        return ok;
+    }
+
     /** {@code pec}, {@code pmc}, {@code pml}, {@code pml 20} (cells) or {@code pml 1.2 um}. */
     private BoundarySpec boundary(Node node, String path) {
-        Scalar s = ctx.scalar(node, path, "pec, pmc, pml, 'pml 20' (cells) or 'pml 1 um'");
+        Scalar s = ctx.scalar(node, path, "pec, pmc, pml, 'pml 20' (cells), 'pml 1 um' or periodic");
         if (s == null) {
             return null;
         }
@@ -466,6 +498,12 @@ final class CaseParser {
         String word = text.substring(0, space);
         String rest = text.substring(space).strip();
         switch (word) {
+            case "periodic":
+                if (!rest.isEmpty()) {
+                    ctx.error(s.positionAt(space), path, "periodic takes no thickness, got '" + rest + "'");
+                    return null;
+                }
+                return new BoundarySpec.Periodic(s.start());
             case "pec":
             case "pmc":
                 if (!rest.isEmpty()) {
@@ -512,8 +550,8 @@ final class CaseParser {
                 return new BoundarySpec.Pml(cells, new Value(cells * resolution.cellSize().si(), thick.start()), s.start());
             }
             default:
-                ctx.error(s.start(), path, "unknown boundary '" + word + "'" + Suggest.didYouMean(word, List.of("pec", "pmc", "pml"))
-                        + ", expected pec, pmc, pml, 'pml 20' (cells) or 'pml 1 um'");
+                ctx.error(s.start(), path, "unknown boundary '" + word + "'" + Suggest.didYouMean(word, List.of("pec", "pmc", "pml", "periodic"))
+                        + ", expected pec, pmc, pml, 'pml 20' (cells), 'pml 1 um' or periodic (left and right)");
                 return null;
         }
     }
@@ -547,6 +585,9 @@ final class CaseParser {
     }
 
     private SourceSpec readSource(KindEntry e) {
+        if (e.kind().equals("plane_wave")) {
+            return readPlaneWave(e);
+        }
         boolean line = e.kind().equals("line");
         MapView v = e.view(ctx, line ? Schema.LINE_SOURCE : Schema.POINT_SOURCE);
         if (v == null) {
@@ -594,6 +635,59 @@ final class CaseParser {
             return null;
         }
         return new SourceSpec.LineSource(from, to, comp, amp, angle, Optional.ofNullable(waist), signal, e.at());
+    }
+
+    private static final Map<String, SourceSpec.Direction> DIRECTIONS = ordered("up", SourceSpec.Direction.UP, "down",
+            SourceSpec.Direction.DOWN);
+
+    private SourceSpec readPlaneWave(KindEntry e) {
+        MapView v = e.view(ctx, Schema.PLANE_WAVE);
+        if (v == null) {
+            return null;
+        }
+        Node yn = v.require("y", "the height of the launching line, a length such as -2 um");
+        Value y = yn == null ? null : ctx.value(yn, v.path("y"), Expect.LENGTH);
+        Node angn = v.get("angle");
+        Value angle = angn == null ? new Value(0, v.at()) : ctx.value(angn, v.path("angle"), Expect.ANGLE);
+        if (angle != null && !(Math.abs(angle.si()) < Math.PI / 2)) {
+            ctx.error(angle.at(), v.path("angle"), "must lie strictly between -90 deg and 90 deg, got "
+                    + Units.format(angle.si(), Dimension.ANGLE));
+            angle = null;
+        }
+        Node dn = v.get("direction");
+        Located<SourceSpec.Direction> direction = new Located<>(SourceSpec.Direction.UP, v.at());
+        if (dn != null) {
+            SourceSpec.Direction d = ctx.choice(dn, v.path("direction"), DIRECTIONS);
+            direction = d == null ? null : new Located<>(d, ctx.pos(dn));
+        }
+        Node an = v.get("amplitude");
+        Value amp = an == null ? new Value(1, v.at()) : ctx.value(an, v.path("amplitude"), Expect.PLAIN);
+        Node sn = v.require("signal", "a signal such as 'pulse: {wavelength: 633 nm, bandwidth: 20 nm}'");
+        SignalSpec signal = null;
+        if (sn != null) {
+            KindEntry se = KindEntry.read(ctx, sn, Schema.SIGNAL, v.path("signal"));
+            signal = se == null ? null : signalReader.read(se);
+        }
+        // a plane wave drives the z component: Ez for s, Hz for p
+        Located<Component> comp = polarization == null ? null
+                : new Located<>(polarization == Polarization.S ? Component.EZ : Component.HZ, v.at());
+        if (signal instanceof SignalSpec.GaussianDerivative) {
+            ctx.error(signal.at(), v.path("signal"), "a plane wave needs a narrow-band signal so that its in-plane wavenumber "
+                    + "means one angle near its centre; expected pulse or ramped_wave");
+            return null;
+        }
+        return y == null || angle == null || direction == null || amp == null || signal == null || comp == null ? null
+                : new SourceSpec.PlaneWave(y, angle, direction, comp, amp, signal, e.at());
+    }
+
+    /** The centre frequency of the case's plane wave, else of its first source; null when unknown. */
+    private Value centreFrequency() {
+        for (SourceSpec s : sources) {
+            if (s instanceof SourceSpec.PlaneWave) {
+                return s.signal().frequency();
+            }
+        }
+        return sources.isEmpty() ? null : sources.get(0).signal().frequency();
     }
 
     /** A field component of the case's polarization; the z component when absent. */

@@ -77,6 +77,7 @@ public final class CaseReader {
             return new Reading(null, ctx);
         }
         CaseParser parser = new CaseParser(ctx);
+        parser.resolutionScale = options.resolutionScale();
         parser.parse(root, overrides);
         new CaseChecks(ctx, parser, options).run();
         if (ctx.hasErrors()) {
@@ -125,7 +126,7 @@ public final class CaseReader {
         }
         return new CaseSpec(ctx.source, Optional.ofNullable(p.title), ctx.parameters.resolved(),
                 new Located<>(p.polarization, p.polarizationAt), p.designWavelength, p.domain, p.resolution, p.used, p.shapes,
-                p.boundaries, p.sources, p.probes, p.output, p.stop, p.numerics);
+                p.boundaries, p.sources, p.probes, Optional.ofNullable(p.flux), p.output, p.stop, p.numerics);
     }
 
     private static void check(List<String> missing, Object part, String name) {

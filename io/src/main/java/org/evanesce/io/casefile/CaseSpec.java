@@ -25,6 +25,7 @@ import org.evanesce.solver.grid.Side;
  * @param boundaries       all four sides
  * @param sources          at least one
  * @param probes           possibly none
+ * @param flux             frequency-domain power through lines, when the case asks for it
  * @param output           what to write
  * @param stop             when to stop
  * @param numerics         precision, threads, Courant number
@@ -32,7 +33,7 @@ import org.evanesce.solver.grid.Side;
 public record CaseSpec(String source, Optional<String> title, Map<String, Parameter> parameters,
         Located<Polarization> polarization, Value designWavelength, DomainSpec domain, ResolutionSpec resolution,
         Map<String, MaterialSpec> materials, List<ShapeSpec> shapes, Map<Side, BoundarySpec> boundaries,
-        List<SourceSpec> sources, List<ProbeSpec> probes, OutputSpec output, StopSpec stop, NumericsSpec numerics) {
+        List<SourceSpec> sources, List<ProbeSpec> probes, Optional<FluxSpec> flux, OutputSpec output, StopSpec stop, NumericsSpec numerics) {
 
     public CaseSpec {
         parameters = Collections.unmodifiableMap(new LinkedHashMap<>(parameters));

@@ -22,7 +22,7 @@ final class Schema {
 
     static final Section ROOT = new Section("(top level)", List.of("title", "parameters", "design_wavelength",
             "design_frequency", "polarization", "domain", "resolution", "materials", "shapes", "boundaries", "sources",
-            "probes", "output", "stop", "numerics"));
+            "probes", "flux", "output", "stop", "numerics"));
     static final Section DOMAIN = new Section("domain", List.of("width", "height", "background"));
     static final Section RESOLUTION = new Section("resolution", List.of("cell", "cells_per_wavelength"));
     static final Section MATERIAL = new Section("materials.NAME", List.of("index", "permittivity", "library", "conductivity"));
@@ -41,10 +41,12 @@ final class Schema {
     static final Section BOUNDARIES = new Section("boundaries", List.of("all", "left", "right", "bottom", "top"));
 
     /** The kinds of source. */
-    static final Section SOURCES = new Section("sources[]", List.of("point", "line"));
+    static final Section SOURCES = new Section("sources[]", List.of("point", "line", "plane_wave"));
     static final Section POINT_SOURCE = new Section("sources[].point", List.of("at", "component", "amplitude", "signal"));
     static final Section LINE_SOURCE = new Section("sources[].line", List.of("from", "to", "component", "amplitude",
             "angle", "waist", "signal"));
+    static final Section PLANE_WAVE = new Section("sources[].plane_wave", List.of("y", "angle", "direction", "amplitude",
+            "signal"));
 
     /** The kinds of signal. */
     static final Section SIGNAL = new Section("signal", List.of("pulse", "ramped_wave", "gaussian_derivative"));
@@ -53,13 +55,18 @@ final class Schema {
     static final Section GAUSSIAN_DERIVATIVE = new Section("signal.gaussian_derivative", List.of("wavelength", "frequency"));
 
     static final Section PROBE = new Section("probes[]", List.of("name", "at", "component"));
+    static final Section FLUX = new Section("flux", List.of("wavelengths", "frequencies", "lines", "transfer_matrix"));
+    static final Section WAVELENGTH_RANGE = new Section("flux.wavelengths", List.of("from", "to", "count"));
+    static final Section FREQUENCY_RANGE = new Section("flux.frequencies", List.of("from", "to", "count"));
+    static final Section FLUX_LINE = new Section("flux.lines[]", List.of("name", "y", "measures"));
     static final Section OUTPUT = new Section("output", List.of("folder", "write", "frame_interval"));
     static final Section STOP = new Section("stop", List.of("time", "steps", "decay", "limit"));
     static final Section NUMERICS = new Section("numerics", List.of("precision", "threads", "courant"));
 
     static final List<Section> ALL = List.of(ROOT, DOMAIN, RESOLUTION, MATERIAL, SHAPES, RECTANGLE, POLYGON, DISK,
-            ELLIPSE, HALF_PLANE, LAYER_STACK, LAYER, BOUNDARIES, SOURCES, POINT_SOURCE, LINE_SOURCE, SIGNAL, PULSE,
-            RAMPED_WAVE, GAUSSIAN_DERIVATIVE, PROBE, OUTPUT, STOP, NUMERICS);
+            ELLIPSE, HALF_PLANE, LAYER_STACK, LAYER, BOUNDARIES, SOURCES, POINT_SOURCE, LINE_SOURCE, PLANE_WAVE, SIGNAL,
+            PULSE, RAMPED_WAVE, GAUSSIAN_DERIVATIVE, PROBE, FLUX, WAVELENGTH_RANGE, FREQUENCY_RANGE, FLUX_LINE, OUTPUT, STOP,
+            NUMERICS);
 
     private Schema() {
     }

@@ -67,4 +67,39 @@ public sealed interface SourceSpec {
             return Math.hypot(to.x().si() - from.x().si(), to.y().si() - from.y().si());
         }
     }
+
+    /** Which way a plane wave's incident half travels. */
+    enum Direction {
+        /** Towards +y. */
+        UP,
+        /** Towards −y. */
+        DOWN;
+
+        /** +1 for up, −1 for down. */
+        public int sign() {
+            return this == UP ? 1 : -1;
+        }
+    }
+
+    /**
+     * A plane wave launched from a horizontal line across the whole (periodic) width at height
+     * {@code y}: a current sheet driving Ez (s) or Hz (p) with the phase e^{i kx x}, kx = n k0 sin θ at
+     * the signal's centre frequency in the material at the line (n its index). The sheet radiates
+     * both ways; the incident wave is the half travelling in {@code direction}, at {@code angle}
+     * from that direction's normal, turned towards +x. With a pulse every frequency f has its own
+     * angle, sin θ(f) = kx c0 / (2π f n).
+     */
+    record PlaneWave(Value y, Value angle, Located<Direction> direction, Located<Component> component, Value amplitude,
+            SignalSpec signal, SourcePosition at) implements SourceSpec {
+
+        @Override
+        public String kind() {
+            return "plane_wave";
+        }
+
+        @Override
+        public double[] centre() {
+            return new double[] {0, y.si()};
+        }
+    }
 }

@@ -3,16 +3,34 @@ package org.evanesce.io.casefile;
 /** When a run ends. */
 public sealed interface StopSpec {
 
+    /** Where the stopping rule was written. */
+    SourcePosition at();
+
     /** After a simulated time, seconds. */
-    record AfterTime(Value time) implements StopSpec { }
+    record AfterTime(Value time) implements StopSpec {
+        @Override
+        public SourcePosition at() {
+            return time.at();
+        }
+    }
 
     /** After a number of time steps. */
-    record AfterSteps(Located<Long> steps) implements StopSpec { }
+    record AfterSteps(Located<Long> steps) implements StopSpec {
+        @Override
+        public SourcePosition at() {
+            return steps.at();
+        }
+    }
 
     /**
      * When the field energy in the domain has fallen below {@code fraction} of its largest value
      * (checked only once every source has faded), or at {@code limit} seconds of simulated time,
      * whichever comes first.
      */
-    record WhenDecayed(Value fraction, Value limit) implements StopSpec { }
+    record WhenDecayed(Value fraction, Value limit) implements StopSpec {
+        @Override
+        public SourcePosition at() {
+            return limit.at();
+        }
+    }
 }

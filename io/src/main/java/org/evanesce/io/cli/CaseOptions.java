@@ -14,6 +14,7 @@ import org.evanesce.io.casefile.CaseFileException;
 import org.evanesce.io.casefile.CaseReader;
 import org.evanesce.io.casefile.Diagnostic;
 import org.evanesce.io.casefile.LoadedCase;
+import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.CasePlanner;
 import org.evanesce.io.plan.PlanException;
@@ -58,12 +59,17 @@ final class CaseOptions {
 
     /** Reads, validates and plans the case, printing warnings to {@code err}. */
     Loaded load(PrintWriter err) throws BadInput {
+        return load(err, ReadOptions.defaults());
+    }
+
+    /** The same with reading options (e.g. a finer resolution for an accuracy study). */
+    Loaded load(PrintWriter err, ReadOptions read) throws BadInput {
         if (threads != null && threads < 1) {
             throw new BadInput("--threads " + threads + " must be >= 1");
         }
         LoadedCase loaded;
         try {
-            loaded = CaseReader.read(caseFile, overrides);
+            loaded = CaseReader.read(caseFile, overrides, read);
         } catch (NoSuchFileException e) {
             throw new BadInput(caseFile + ": no such file");
         } catch (IOException e) {

@@ -4,6 +4,8 @@ import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Optional;
+import java.util.function.Function;
 import org.evanesce.geometry.GridSpec;
 import org.evanesce.geometry.LayerStack;
 import org.evanesce.geometry.Material;
@@ -72,12 +74,14 @@ public final class CasePlanner {
         checkOutputs();
         ResolutionSpec r = spec.resolution();
         double dx = r.cellSize().si();
-        GridSpec grid = new GridSpec(r.x(0), r.y(0), dx, r.nx(), r.ny());
+        // periodic sides: the width is one period, so the node at x = +W/2 is the image of the one at −W/2
+        boolean periodic = spec.boundary(Side.LEFT) instanceof BoundarySpec.Periodic;
+        GridSpec grid = new GridSpec(r.x(0), r.y(0), dx, periodic ? r.nx() - 1 : r.nx(), r.ny());
         Map<String, Material> materials = materials();
         Scene scene = scene(materials);
         double courant = spec.numerics().courant().map(v -> v.si()).orElse(DEFAULT_COURANT);
         double dt = courant * dx / PhysicalConstants.C0;
-        Map<Side, Boundary> sides = boundaries();
+        Map<Side, Boundary> sides = boundaries(PlaneWaves.kx(spec));
         List<Source> sources = new ArrayList<>();
         double fade = 0;
         for (int k = 0; k < spec.sources().size(); k++) {
@@ -99,17 +103,28 @@ public final class CasePlanner {
         if (!errors.isEmpty()) {
             throw new PlanException(errors);
         }
-        MaterialGrid mg = Rasterizer.rasterize(scene, grid, Smoothing.ANISOTROPIC);
-        Simulation.Builder b = Simulation.builder(mg).polarization(spec.polarization().value())
-                .precision(spec.numerics().precision().value()).courant(courant);
-        sides.forEach(b::boundary);
         Integer t = threads != null ? threads : spec.numerics().threads().map(l -> l.value()).orElse(null);
-        if (t != null) {
-            b.threads(t);
-        }
-        sources.forEach(b::source);
+        Function<MaterialGrid, Simulation.Builder> configured = m -> {
+            Simulation.Builder sb = Simulation.builder(m).polarization(spec.polarization().value())
+                    .precision(spec.numerics().precision().value()).courant(courant);
+            sides.forEach(sb::boundary);
+            if (t != null) {
+                sb.threads(t);
+            }
+            sources.forEach(sb::source);
+            return sb;
+        };
+        MaterialGrid mg = Rasterizer.rasterize(scene, grid, Smoothing.ANISOTROPIC);
+        Simulation.Builder b = configured.apply(mg);
         probes.forEach(p -> b.listener(p.probe()));
-        return new CasePlan(spec, grid, mg, b, List.copyOf(probes), stop, dt, interior(sides, grid));
+        Optional<FluxPlan> flux = Optional.empty();
+        if (spec.flux().isPresent()) {
+            flux = Optional.of(FluxPlanner.plan(spec, grid, interior(sides, grid), materials, b, configured, stop, dt, errors));
+            if (!errors.isEmpty()) {
+                throw new PlanException(errors);
+            }
+        }
+        return new CasePlan(spec, grid, mg, b, List.copyOf(probes), stop, dt, interior(sides, grid), flux);
     }
 
     private void error(SourcePosition at, String path, String message) {
@@ -182,18 +197,20 @@ public final class CasePlanner {
         throw new IllegalStateException("unexpected shape kind " + s.kind());
     }
 
-    private Map<Side, Boundary> boundaries() {
+    /** The solver's sides; periodic ones carry the plane wave's in-plane wavenumber kx (rad/m). */
+    private Map<Side, Boundary> boundaries(double kx) {
         Map<Side, Boundary> out = new java.util.EnumMap<>(Side.class);
         for (Side side : Side.values()) {
             BoundarySpec b = spec.boundary(side);
             out.put(side, b instanceof BoundarySpec.Pml p ? Boundary.pml(p.cells())
-                    : b instanceof BoundarySpec.Pmc ? Boundary.pmc() : Boundary.pec());
+                    : b instanceof BoundarySpec.Pmc ? Boundary.pmc()
+                    : b instanceof BoundarySpec.Periodic ? Boundary.bloch(kx) : Boundary.pec());
         }
         return out;
     }
 
     /** Nearest node index of a component's site to coordinate v along an axis. */
-    private static int nearest(double v, double origin, double dx, double siteOffset) {
+    static int nearest(double v, double origin, double dx, double siteOffset) {
         return (int) Math.round((v - origin) / dx - siteOffset);
     }
 
@@ -201,6 +218,16 @@ public final class CasePlanner {
         String path = "sources[" + k + "]." + s.kind();
         double dx = g.cellSize();
         TimeSignal signal = signal(s.signal());
+        if (s instanceof SourceSpec.PlaneWave w) {
+            Component c = w.component().value();
+            int j = nearest(w.y().si(), g.y0(), dx, c.dy);
+            if (!Engine.wouldUpdate(sides, g.nx(), g.ny(), c, 0, j)) {
+                error(w.at(), path + ".y", String.format("the nearest %s row, %d, is on a wall or outside the grid; expected a "
+                        + "height inside the domain's walls", c, j));
+                return null;
+            }
+            return Source.blochRow(c, g.nx(), j, g.x0(), dx, PlaneWaves.kx(spec), w.amplitude().si(), signal);
+        }
         if (s instanceof SourceSpec.PointSource p) {
                 Component c = p.component().value();
                 int i = nearest(p.location().x().si(), g.x0(), dx, c.dx);

@@ -22,9 +22,10 @@ public final class CaseRunner {
      * @param finalEnergy    energy inside the PMLs at the end, J/m (NaN if never measured)
      * @param peakEnergy     largest energy measured, J/m (NaN if never measured)
      * @param bytes          bytes of field, coefficient and PML arrays
+     * @param referenceWallSeconds wall time of the flux normalisation's reference run (0 when there is none)
      */
     public record Result(long steps, double wallSeconds, int threads, String stopReason, double finalEnergy,
-                         double peakEnergy, long bytes) {
+                         double peakEnergy, long bytes, double referenceWallSeconds) {
 
         /** Cell updates per second of wall time. */
         public double cellUpdatesPerSecond(long cells) {
@@ -95,7 +96,37 @@ public final class CaseRunner {
                 }
             }
             double wall = (System.nanoTime() - t0) * 1e-9;
-            return new Result(sim.stepCount(), wall, sim.threads(), reason, energy, peak, sim.bytes());
+            double referenceWall = 0;
+            if (plan.flux().isPresent()) {
+                referenceWall = runReference(plan, sim.stepCount(), progress, progressSeconds);
+                reason += "; the reference run (for the incident power) took the same number of steps";
+            }
+            return new Result(sim.stepCount(), wall, sim.threads(), reason, energy, peak, sim.bytes(), referenceWall);
+        }
+    }
+
+    /**
+     * Runs the flux normalisation's reference (the case's grid filled with the plane wave's medium) for
+     * exactly as many steps as the case's run, so both transforms cover the same time window.
+     *
+     * @return its wall time, s
+     */
+    private static double runReference(CasePlan plan, long steps, Consumer<Progress.Report> progress, double progressSeconds) {
+        Simulation.Builder b = plan.flux().orElseThrow().reference();
+        Simulation ref;
+        try {
+            ref = b.build();
+        } catch (IllegalArgumentException e) {
+            throw new RefusedException(plan.spec().source() + ": the solver refused the reference run: "
+                    + e.getMessage().replace("\n", "; "), e);
+        }
+        try (ref) {
+            if (progress != null) {
+                ref.addListener(new Progress(steps, progressSeconds, progress));
+            }
+            long t0 = System.nanoTime();
+            ref.run(steps);
+            return (System.nanoTime() - t0) * 1e-9;
         }
     }
 }

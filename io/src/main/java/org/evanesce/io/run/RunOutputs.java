@@ -6,7 +6,6 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import org.evanesce.geometry.FieldSite;
-import org.evanesce.io.casefile.BoundarySpec;
 import org.evanesce.io.casefile.CaseSpec;
 import org.evanesce.io.casefile.Diagnostic;
 import org.evanesce.io.casefile.MaterialSpec;
@@ -103,8 +102,7 @@ public final class RunOutputs {
         }
         resolved.put("materials", mats);
         Map<String, Object> sides = new LinkedHashMap<>();
-        s.boundaries().forEach((side, b) -> sides.put(side.name().toLowerCase(Locale.ROOT),
-                b instanceof BoundarySpec.Pml p ? "pml " + p.cells() + " cells" : b instanceof BoundarySpec.Pmc ? "pmc" : "pec"));
+        s.boundaries().forEach((side, b) -> sides.put(side.name().toLowerCase(Locale.ROOT), b.describe()));
         resolved.put("boundaries", sides);
         resolved.put("shapes", s.shapes().size());
         resolved.put("sources", s.sources().size());
@@ -130,10 +128,29 @@ public final class RunOutputs {
         run.put("wall_time_s", r.wallSeconds());
         run.put("cell_updates_per_second", r.cellUpdatesPerSecond(cells));
         run.put("memory_bytes", r.bytes());
+        if (plan.flux().isPresent()) {
+            run.put("reference_run_wall_time_s", r.referenceWallSeconds());
+        }
         run.put("final_energy_j_per_m", r.finalEnergy());
         run.put("peak_energy_j_per_m", r.peakEnergy());
         m.put("run", run);
         m.put("warnings", warnings.stream().map(Diagnostic::toString).toList());
+        return m;
+    }
+
+    /** summary.json: the results for programs (documented in docs/outputs.md). */
+    public static Map<String, Object> summary(CasePlan plan, FluxResults flux) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("program", "evanesce");
+        m.put("schema", "evanesce-summary-1");
+        m.put("case_file", plan.spec().source());
+        m.put("title", plan.spec().title().orElse(null));
+        m.put("polarization", plan.spec().polarization().value().name().toLowerCase(Locale.ROOT));
+        m.put("cell_size_m", plan.grid().cellSize());
+        m.put("caution", CAUTION);
+        if (flux != null) {
+            m.put("flux", flux.summary(plan.flux().orElseThrow()));
+        }
         return m;
     }
 

@@ -52,7 +52,7 @@ class CaseErrorsTest {
         assertEquals(List.of(
                 "case.yaml:1:1: domain: missing, expected a mapping with width and height",
                 "case.yaml:2:1: domian: unknown key (did you mean 'domain'?), expected one of title, parameters, design_wavelength, "
-                        + "design_frequency, polarization, domain, resolution, materials, shapes, boundaries, sources, probes, output, "
+                        + "design_frequency, polarization, domain, resolution, materials, shapes, boundaries, sources, probes, flux, output, "
                         + "stop, numerics"),
                 errors(replace("domain:", "domian:")));
         assertEquals(List.of("case.yaml:2:37: domain.centre: unknown key, expected one of width, height, background"),
@@ -185,7 +185,7 @@ class CaseErrorsTest {
         assertEquals(List.of("case.yaml:1:1: the file is empty; a case needs at least polarization, domain, resolution, sources and stop"),
                 errors("# nothing here\n"));
         assertEquals(List.of("case.yaml:1:1: expected a mapping with keys such as title, parameters, design_wavelength, design_frequency, "
-                + "polarization, domain, resolution, materials, shapes, boundaries, sources, probes, output, stop, numerics, got a list"),
+                + "polarization, domain, resolution, materials, shapes, boundaries, sources, probes, flux, output, stop, numerics, got a list"),
                 errors("- polarization: s\n"));
         String flat = """
                 polarization: s
@@ -197,7 +197,7 @@ class CaseErrorsTest {
                     signal: {pulse: {wavelength: 633 nm, bandwidth: 40 nm}}
                 stop: {time: 100 fs}
                 """;
-        assertEquals(List.of("case.yaml:6:5: sources[0]: an entry has exactly one key, its kind (one of point, line); found point, at, "
+        assertEquals(List.of("case.yaml:6:5: sources[0]: an entry has exactly one key, its kind (one of point, line, plane_wave); found point, at, "
                 + "signal (indent the settings under 'point:')"), errors(flat));
     }
 

@@ -31,6 +31,9 @@ public final class FluxLine implements StepListener {
     private final double[][] eRe, eIm, hRe, hIm;
     /** This step's fields on the line (E averaged onto it), real and imaginary parts. */
     private final double[] ea, eb, ha, hb;
+    /** Only field samples at times in [windowStart, windowEnd) are transformed. */
+    private double windowStart = Double.NEGATIVE_INFINITY;
+    private double windowEnd = Double.POSITIVE_INFINITY;
 
     /**
      * @param pol         the run's polarization
@@ -65,8 +68,29 @@ public final class FluxLine implements StepListener {
         hb = new double[n];
     }
 
+    /**
+     * Transforms only the samples taken at times in [start, end), s: for a continuous wave, a window of
+     * whole periods after the fields have settled gives the steady-state phasors without the switch-on.
+     * Each component keeps its own sample times, so E and H windows differ by at most one step.
+     */
+    public FluxLine window(double start, double end) {
+        if (!(end > start)) {
+            throw new IllegalArgumentException("flux window [" + start + ", " + end + ") s is empty");
+        }
+        windowStart = start;
+        windowEnd = end;
+        return this;
+    }
+
     @Override
     public void afterStep(StepView v) {
+        double te = v.time(e);
+        double th = v.time(h);
+        boolean eIn = te >= windowStart && te < windowEnd;
+        boolean hIn = th >= windowStart && th < windowEnd;
+        if (!eIn && !hIn) {
+            return;
+        }
         // read the line once per step, then accumulate every frequency from the copies
         for (int i = i0; i < i1; i++) {
             int k = i - i0;
@@ -75,14 +99,14 @@ public final class FluxLine implements StepListener {
             ha[k] = v.field(h, i, row);
             hb[k] = v.fieldImag(h, i, row);
         }
-        double te = v.time(e);
-        double th = v.time(h);
         double dt = v.dt();
+        double we = eIn ? dt : 0;
+        double wh = hIn ? dt : 0;
         for (int q = 0; q < omega.length; q++) {
-            double ce = Math.cos(omega[q] * te) * dt;
-            double se = Math.sin(omega[q] * te) * dt;
-            double ch = Math.cos(omega[q] * th) * dt;
-            double sh = Math.sin(omega[q] * th) * dt;
+            double ce = Math.cos(omega[q] * te) * we;
+            double se = Math.sin(omega[q] * te) * we;
+            double ch = Math.cos(omega[q] * th) * wh;
+            double sh = Math.sin(omega[q] * th) * wh;
             double[] er = eRe[q];
             double[] ei = eIm[q];
             double[] hr = hRe[q];

@@ -60,14 +60,19 @@ public record Source(Component component, int[] cells, double[] amplitudes, doub
      * every node of the row (x = x0 + iΔ, with the component's site offset).
      */
     public static Source blochRow(Component c, int nx, int j, double x0, double cellSize, double kx, TimeSignal g) {
+        return blochRow(c, nx, j, x0, cellSize, kx, 1.0, g);
+    }
+
+    /** {@link #blochRow(Component, int, int, double, double, double, TimeSignal)} with amplitude a e^{i kx x}. */
+    public static Source blochRow(Component c, int nx, int j, double x0, double cellSize, double kx, double a, TimeSignal g) {
         int[] cells = new int[nx];
         double[] re = new double[nx];
         double[] im = new double[nx];
         for (int i = 0; i < nx; i++) {
             double x = x0 + (i + c.dx) * cellSize;
             cells[i] = j * nx + i;
-            re[i] = Math.cos(kx * x);
-            im[i] = Math.sin(kx * x);
+            re[i] = a * Math.cos(kx * x);
+            im[i] = a * Math.sin(kx * x);
         }
         return new Source(c, cells, re, im, g);
     }

@@ -1,0 +1,61 @@
+package org.evanesce.io.plan;
+
+import java.util.List;
+import java.util.Optional;
+import java.util.function.DoubleFunction;
+import org.evanesce.io.casefile.FluxSpec;
+import org.evanesce.solver.PhysicalConstants;
+import org.evanesce.solver.Simulation;
+import org.evanesce.solver.monitor.FluxLine;
+import org.evanesce.solver.reference.PlanarStack;
+
+/**
+ * The frequency-domain flux of a plane-wave case and how it is normalised: the same lines are
+ * recorded in the case's run and in a reference run of the same grid, source and boundaries with
+ * the whole domain filled with the plane wave's medium. The incident power is the reference run's
+ * flux through a line a few cells ahead of the source; a reflected line reports the flux of the
+ * difference of the two runs' fields (the scattered field, which there is the reflected wave).
+ *
+ * @param frequencies    Hz
+ * @param kx             the plane wave's in-plane wavenumber, rad/m
+ * @param medium         the material the plane wave is launched in
+ * @param mediumIndex    its index
+ * @param direction      +1 when the incident wave travels towards +y, −1 towards −y
+ * @param lines          the case's lines, in its order
+ * @param incident       the reference run's line just ahead of the source
+ * @param incidentY      where that line lies, m
+ * @param reference      the reference run, ready to build (lines registered)
+ * @param cellSize       Δ, m
+ * @param transferMatrix for a layered scene: the exact stack at a vacuum wavelength, from the source's medium
+ *                       towards {@code direction}
+ */
+public record FluxPlan(double[] frequencies, double kx, String medium, double mediumIndex, int direction, List<Line> lines,
+                       FluxLine incident, double incidentY, Simulation.Builder reference, double cellSize,
+                       Optional<DoubleFunction<PlanarStack>> transferMatrix) {
+
+    public FluxPlan {
+        frequencies = frequencies.clone();
+        lines = List.copyOf(lines);
+    }
+
+    /**
+     * One line.
+     *
+     * @param spec      as the case gave it
+     * @param row       the grid row it follows: the line is at y = y0 + (row + ½)Δ
+     * @param y         that height, m
+     * @param run       the line in the case's run
+     * @param reference the same line in the reference run
+     */
+    public record Line(FluxSpec.Line spec, int row, double y, FluxLine run, FluxLine reference) { }
+
+    /** The angle of incidence in the plane wave's medium at frequency number q, radians: sin θ = kx c0 / (2π f n). */
+    public double angle(int q) {
+        return Math.asin(kx * PhysicalConstants.C0 / (2 * Math.PI * frequencies[q] * mediumIndex));
+    }
+
+    /** The vacuum wavelength at frequency number q, m. */
+    public double wavelength(int q) {
+        return PhysicalConstants.C0 / frequencies[q];
+    }
+}

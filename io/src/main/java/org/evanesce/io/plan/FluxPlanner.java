@@ -1,0 +1,170 @@
+package org.evanesce.io.plan;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.function.DoubleFunction;
+import java.util.function.Function;
+import org.evanesce.geometry.GridSpec;
+import org.evanesce.geometry.Material;
+import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.Rasterizer;
+import org.evanesce.geometry.Scene;
+import org.evanesce.geometry.Smoothing;
+import org.evanesce.io.casefile.CaseSpec;
+import org.evanesce.io.casefile.Diagnostic;
+import org.evanesce.io.casefile.FluxSpec;
+import org.evanesce.io.casefile.MaterialSpec;
+import org.evanesce.io.casefile.SignalSpec;
+import org.evanesce.io.casefile.SourceSpec;
+import org.evanesce.io.casefile.expr.Dimension;
+import org.evanesce.io.casefile.expr.Units;
+import org.evanesce.solver.PhysicalConstants;
+import org.evanesce.solver.Simulation;
+import org.evanesce.solver.monitor.FluxLine;
+import org.evanesce.solver.reference.PlanarStack;
+
+/** Plans a case's flux lines, the reference run that normalises them and, for a layered scene, the exact stack. */
+final class FluxPlanner {
+
+    /** The incident power is read this many cells ahead of the launching line (clear of the source row's own cells). */
+    static final int INCIDENT_OFFSET = 3;
+
+    private FluxPlanner() {
+    }
+
+    /**
+     * @param interior   the nodes outside every PML, {i0, j0, i1, j1} (i1, j1 exclusive)
+     * @param run        the case's run, to which the lines are added
+     * @param configured makes a builder with the case's sources, sides and numerics for a material grid
+     * @param stop       when the run ends (a continuous wave's window ends there)
+     * @param dt         the time step, s
+     * @param errors     receives what cannot be planned
+     */
+    static FluxPlan plan(CaseSpec spec, GridSpec grid, int[] interior, Map<String, Material> materials,
+                         Simulation.Builder run, Function<MaterialGrid, Simulation.Builder> configured,
+                         CasePlan.Stop stop, double dt, List<Diagnostic> errors) {
+        FluxSpec f = spec.flux().orElseThrow();
+        SourceSpec.PlaneWave w = PlaneWaves.of(spec).orElseThrow();
+        MaterialSpec medium = PlaneWaves.medium(spec, w);
+        double[] freqs = f.frequencies().stream().mapToDouble(v -> v.si()).toArray();
+        double dx = grid.cellSize();
+        int dir = w.direction().value().sign();
+        var pol = spec.polarization().value();
+        MaterialGrid homogeneous = Rasterizer.rasterize(Scene.builder(materials.get(medium.name())).build(), grid,
+                Smoothing.ANISOTROPIC);
+        Simulation.Builder reference = configured.apply(homogeneous);
+        double[] window = w.signal() instanceof SignalSpec.RampedWave rw
+                ? continuousWindow(spec, grid, rw, w, stop.maxSteps() * dt, errors) : null;
+        List<FluxPlan.Line> lines = new ArrayList<>();
+        for (FluxSpec.Line l : f.lines()) {
+            int row = CasePlanner.nearest(l.y().si(), grid.y0(), dx, 0.5);
+            FluxLine a = windowed(new FluxLine(pol, row, 0, grid.nx(), freqs), window);
+            FluxLine b = windowed(new FluxLine(pol, row, 0, grid.nx(), freqs), window);
+            run.listener(a);
+            reference.listener(b);
+            lines.add(new FluxPlan.Line(l, row, grid.y0() + (row + 0.5) * dx, a, b));
+        }
+        int sourceRow = CasePlanner.nearest(w.y().si(), grid.y0(), dx, w.component().value().dy);
+        // the line at (row + ½)Δ lies INCIDENT_OFFSET cells from the source row in the direction of travel
+        int incidentRow = dir > 0 ? sourceRow + INCIDENT_OFFSET - 1 : sourceRow - INCIDENT_OFFSET;
+        if (incidentRow < 1 || incidentRow + 2 >= grid.ny()) {
+            errors.add(new Diagnostic(Diagnostic.Severity.ERROR, w.at(), "sources", String.format("the incident power is "
+                    + "read %d cells ahead of the plane wave, which is outside the grid; move the launching line away from "
+                    + "the %s edge", INCIDENT_OFFSET, dir > 0 ? "top" : "bottom")));
+        }
+        FluxLine incident = windowed(new FluxLine(pol, Math.max(0, incidentRow), 0, grid.nx(), freqs), window);
+        reference.listener(incident);
+        Optional<DoubleFunction<PlanarStack>> tmm = f.transferMatrix().value()
+                ? transferMatrix(spec, grid, w, interior, errors) : Optional.empty();
+        return new FluxPlan(freqs, PlaneWaves.kx(spec), medium.name(), medium.index(), dir, lines, incident,
+                grid.y0() + (incidentRow + 0.5) * dx, reference, dx, tmm);
+    }
+
+    private static FluxLine windowed(FluxLine l, double[] window) {
+        return window == null ? l : l.window(window[0], window[1]);
+    }
+
+    /**
+     * A continuous wave's flux is transformed over the last whole periods of the run once the fields
+     * have settled (after three ramps and two crossings of the domain's height at the slowest speed), so
+     * the switch-on and the different arrival times at different lines do not bias the ratios.
+     *
+     * @return {start, end} in s, or null (error reported) when fewer than {@value #MIN_PERIODS} periods remain
+     */
+    private static double[] continuousWindow(CaseSpec spec, GridSpec grid, SignalSpec.RampedWave rw, SourceSpec.PlaneWave w,
+                                             double end, List<Diagnostic> errors) {
+        double nMax = 1;
+        for (MaterialSpec m : spec.materials().values()) {
+            nMax = Math.max(nMax, m.index());
+        }
+        double settle = 3 * rw.rampTime().si() + 2 * grid.ny() * grid.cellSize() * nMax / PhysicalConstants.C0;
+        double period = 1 / rw.frequency().si();
+        long periods = (long) Math.floor((end - settle) / period);
+        if (periods < MIN_PERIODS) {
+            errors.add(new Diagnostic(Diagnostic.Severity.ERROR, spec.stop().at(), "stop", String.format(java.util.Locale.ROOT,
+                    "a continuous wave's flux is read over whole periods after the fields have settled (%s: three ramps and "
+                            + "two crossings of the domain); the run ends at %s, leaving %d periods, fewer than %d; run until at "
+                            + "least %s (or use a pulse)", Units.format(settle, Dimension.TIME), Units.format(end, Dimension.TIME),
+                    Math.max(0, periods), MIN_PERIODS, Units.format(settle + MIN_PERIODS * period, Dimension.TIME))));
+            return null;
+        }
+        return new double[] {end - periods * period, end + 1e-6 * period};
+    }
+
+    /** Fewest whole periods a continuous wave's flux is transformed over. */
+    static final int MIN_PERIODS = 10;
+
+    /**
+     * The exact stack of a layered scene, lit from the plane wave's side: the scene must be the same at
+     * every x over the interior, the plane wave's medium must reach back to the interior's edge behind
+     * it, transmitted lines must lie in the last medium and reflected ones in the first.
+     */
+    private static Optional<DoubleFunction<PlanarStack>> transferMatrix(CaseSpec spec, GridSpec grid, SourceSpec.PlaneWave w,
+                                                                      int[] interior, List<Diagnostic> errors) {
+        FluxSpec f = spec.flux().orElseThrow();
+        double dx = grid.cellSize();
+        double yLow = grid.y0() + interior[1] * dx;
+        double yHigh = grid.y0() + (interior[3] - 1) * dx;
+        LayeredProfile.Result r = LayeredProfile.of(spec, grid.x0(), grid.x0() + grid.nx() * dx, yLow, yHigh, dx);
+        String path = "flux.transfer_matrix";
+        if (!r.isLayered()) {
+            errors.add(new Diagnostic(Diagnostic.Severity.ERROR, f.transferMatrix().at(), path, "the exact plane-wave answer "
+                    + "needs a layered scene, the same at every x across the domain, but " + r.whyNot()
+                    + "; expected horizontal layers (half_plane, layer_stack, or full-width rectangles)"));
+            return Optional.empty();
+        }
+        List<LayeredProfile.Band> bands = r.bands().orElseThrow();
+        boolean up = w.direction().value() == SourceSpec.Direction.UP;
+        LayeredProfile.Band first = up ? bands.get(0) : bands.get(bands.size() - 1);
+        LayeredProfile.Band last = up ? bands.get(bands.size() - 1) : bands.get(0);
+        double ys = w.y().si();
+        if (ys < first.yLow() || ys > first.yHigh()) {
+            double edge = up ? first.yHigh() : first.yLow();
+            errors.add(new Diagnostic(Diagnostic.Severity.ERROR, w.y().at(), path, String.format("the plane wave at y = %s "
+                    + "has an interface behind it (at y = %s, %s meets %s); the exact answer is for a stack lit from one side: "
+                    + "launch the wave in the outermost medium", len(ys), len(edge), first.material(),
+                    bands.get(up ? 1 : bands.size() - 2).material())));
+            return Optional.empty();
+        }
+        for (int k = 0; k < f.lines().size(); k++) {
+            FluxSpec.Line l = f.lines().get(k);
+            boolean t = l.measures().value() == FluxSpec.Measure.TRANSMITTED;
+            LayeredProfile.Band b = t ? last : first;
+            double y = l.y().si();
+            if (y < b.yLow() || y > b.yHigh() || bands.size() == 1 && t != (up == y > ys)) {
+                errors.add(new Diagnostic(Diagnostic.Severity.ERROR, l.y().at(), "flux.lines[" + k + "].y", String.format(
+                        "compared with the exact answer, a %s line belongs in the %s medium (%s, y from %s to %s); it is at y = %s",
+                        l.measures().value().caseName(), t ? "exit" : "incident", b.material(), len(b.yLow()), len(b.yHigh()),
+                        len(y))));
+            }
+        }
+        LayeredProfile.Direction dir = up ? LayeredProfile.Direction.UP : LayeredProfile.Direction.DOWN;
+        return Optional.of(wl -> LayeredProfile.stack(bands, spec.materials(), wl, dir));
+    }
+
+    private static String len(double metres) {
+        return Units.format(metres, Dimension.LENGTH);
+    }
+}

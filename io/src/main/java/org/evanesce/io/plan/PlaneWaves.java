@@ -1,0 +1,30 @@
+package org.evanesce.io.plan;
+
+import java.util.Optional;
+import org.evanesce.io.casefile.CaseSpec;
+import org.evanesce.io.casefile.MaterialSpec;
+import org.evanesce.io.casefile.SourceSpec;
+import org.evanesce.solver.PhysicalConstants;
+
+/** The case's plane wave (at most one, the case file's checks ensure) and the quantities derived from it. */
+final class PlaneWaves {
+
+    private PlaneWaves() {
+    }
+
+    static Optional<SourceSpec.PlaneWave> of(CaseSpec spec) {
+        return spec.sources().stream().filter(s -> s instanceof SourceSpec.PlaneWave).map(s -> (SourceSpec.PlaneWave) s)
+                .findFirst();
+    }
+
+    /** The material along the launching line. */
+    static MaterialSpec medium(CaseSpec spec, SourceSpec.PlaneWave w) {
+        return spec.materials().get(spec.materialAt(0, w.y().si()));
+    }
+
+    /** kx = n k0 sin θ at the signal's centre frequency, rad/m; 0 without a plane wave. */
+    static double kx(CaseSpec spec) {
+        return of(spec).map(w -> 2 * Math.PI * w.signal().frequency().si() / PhysicalConstants.C0
+                * medium(spec, w).index() * Math.sin(w.angle().si())).orElse(0.0);
+    }
+}

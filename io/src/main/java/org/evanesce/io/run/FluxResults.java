@@ -1,0 +1,162 @@
+package org.evanesce.io.run;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.evanesce.io.casefile.FluxSpec;
+import org.evanesce.io.plan.FluxPlan;
+import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.reference.PlanarStack;
+
+/**
+ * Normalised flux per frequency from a finished run and its reference run: T through each
+ * transmitted line, R through each reflected line, the absorptance A = 1 − R − T when there is one
+ * line of each, and, for a layered scene, the transfer-matrix values beside them with the difference.
+ *
+ * @param columns the value columns after wavelength, frequency and angle, in order
+ * @param rows    one per frequency
+ */
+public record FluxResults(List<String> columns, List<Row> rows) {
+
+    /** Where the normalisation comes from, written into summary.json and the command's output. */
+    public static final String METHOD = "T = flux of the run's fields through the line in the incident direction / incident "
+            + "power; R = flux of (run's fields − reference run's fields) against the incident direction / incident power; "
+            + "the incident power is the reference run's flux through a line just ahead of the source; the reference run "
+            + "is the same grid, source, boundaries and number of steps with the whole domain filled with the plane wave's "
+            + "medium. A = 1 − R − T.";
+
+    /**
+     * @param frequency     Hz
+     * @param wavelength    vacuum wavelength, m
+     * @param angleDegrees  angle of incidence in the plane wave's medium at this frequency
+     * @param incidentPower the reference run's flux through the incident line, W per metre of z (source units squared)
+     * @param values        the value columns in order (NaN where not defined)
+     */
+    public record Row(double frequency, double wavelength, double angleDegrees, double incidentPower, double[] values) { }
+
+    /** Computes the table. */
+    public static FluxResults of(FluxPlan plan, Polarization pol) {
+        List<String> columns = new ArrayList<>();
+        int transmitted = 0;
+        int reflected = 0;
+        for (FluxPlan.Line l : plan.lines()) {
+            boolean t = l.spec().measures().value() == FluxSpec.Measure.TRANSMITTED;
+            transmitted += t ? 1 : 0;
+            reflected += t ? 0 : 1;
+        }
+        boolean absorptance = transmitted == 1 && reflected == 1;
+        boolean exact = plan.transferMatrix().isPresent();
+        for (FluxPlan.Line l : plan.lines()) {
+            String c = label(l);
+            columns.add(c);
+            if (exact) {
+                columns.add(c + "_exact");
+                columns.add(c + "_diff");
+            }
+        }
+        if (absorptance) {
+            columns.add("A");
+            if (exact) {
+                columns.add("A_exact");
+                columns.add("A_diff");
+            }
+        }
+        List<Row> rows = new ArrayList<>();
+        double dx = plan.cellSize();
+        int dir = plan.direction();
+        for (int q = 0; q < plan.frequencies().length; q++) {
+            double incident = dir * plan.incident().flux(q, dx);
+            PlanarStack.Response r = exact ? plan.transferMatrix().get().apply(plan.wavelength(q))
+                    .atTransverseWavenumber(pol, plan.wavelength(q), plan.kx()) : null;
+            double[] v = new double[columns.size()];
+            int k = 0;
+            double sum = 0;
+            for (FluxPlan.Line l : plan.lines()) {
+                boolean t = l.spec().measures().value() == FluxSpec.Measure.TRANSMITTED;
+                double value = t ? dir * l.run().flux(q, dx) / incident
+                        : -dir * l.run().flux(q, dx, l.reference()) / incident;
+                sum += value;
+                v[k++] = value;
+                if (exact) {
+                    double e = t ? r.transmittance() : r.reflectance();
+                    v[k++] = e;
+                    v[k++] = value - e;
+                }
+            }
+            if (absorptance) {
+                v[k++] = 1 - sum;
+                if (exact) {
+                    v[k++] = r.absorptance();
+                    v[k++] = 1 - sum - r.absorptance();
+                }
+            }
+            rows.add(new Row(plan.frequencies()[q], plan.wavelength(q), Math.toDegrees(plan.angle(q)), incident, v));
+        }
+        return new FluxResults(List.copyOf(columns), List.copyOf(rows));
+    }
+
+    /** T_name for a transmitted line, R_name for a reflected one. */
+    static String label(FluxPlan.Line l) {
+        return (l.spec().measures().value() == FluxSpec.Measure.TRANSMITTED ? "T_" : "R_") + l.spec().name().value();
+    }
+
+    /** flux.csv: a header row, then one row per frequency. */
+    public String csv() {
+        StringBuilder sb = new StringBuilder("wavelength_nm,frequency_thz,angle_deg");
+        for (String c : columns) {
+            sb.append(',').append(c);
+        }
+        sb.append(",incident_power\n");
+        for (Row r : rows) {
+            sb.append(String.format(Locale.ROOT, "%.6f,%.6f,%.6f", r.wavelength() * 1e9, r.frequency() * 1e-12, r.angleDegrees()));
+            for (double x : r.values()) {
+                sb.append(',').append(Double.isFinite(x) ? String.format(Locale.ROOT, "%.9f", x) : "");
+            }
+            sb.append(String.format(Locale.ROOT, ",%.9e%n", r.incidentPower()));
+        }
+        return sb.toString();
+    }
+
+    /** The "flux" part of summary.json. */
+    public Map<String, Object> summary(FluxPlan plan) {
+        Map<String, Object> m = new LinkedHashMap<>();
+        m.put("method", METHOD);
+        Map<String, Object> wave = new LinkedHashMap<>();
+        wave.put("medium", plan.medium());
+        wave.put("medium_index", plan.mediumIndex());
+        wave.put("direction", plan.direction() > 0 ? "up" : "down");
+        wave.put("in_plane_wavenumber_rad_per_m", plan.kx());
+        m.put("plane_wave", wave);
+        m.put("incident_line_y_m", plan.incidentY());
+        List<Object> lines = new ArrayList<>();
+        for (FluxPlan.Line l : plan.lines()) {
+            Map<String, Object> e = new LinkedHashMap<>();
+            e.put("name", l.spec().name().value());
+            e.put("measures", l.spec().measures().value().caseName());
+            e.put("column", label(l));
+            e.put("y_m", l.y());
+            lines.add(e);
+        }
+        m.put("lines", lines);
+        m.put("transfer_matrix", plan.transferMatrix().isPresent()
+                ? "the exact plane-wave values of the layered scene (characteristic matrix, Born & Wolf sec. 1.6) with the "
+                        + "same materials, evaluated at each frequency's in-plane wavenumber; *_diff = simulated − exact"
+                : null);
+        List<Object> rowsOut = new ArrayList<>();
+        for (Row r : rows) {
+            Map<String, Object> e = new LinkedHashMap<>();
+            e.put("wavelength_m", r.wavelength());
+            e.put("frequency_hz", r.frequency());
+            e.put("angle_deg", r.angleDegrees());
+            for (int k = 0; k < columns.size(); k++) {
+                e.put(columns.get(k), r.values()[k]);
+            }
+            e.put("incident_power", r.incidentPower());
+            rowsOut.add(e);
+        }
+        m.put("frequencies", rowsOut);
+        return m;
+    }
+}
