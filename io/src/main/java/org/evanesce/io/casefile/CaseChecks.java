@@ -128,6 +128,10 @@ final class CaseChecks {
 
     /** Sources and probes: outside the domain is an error, inside a PML a warning. */
     private void placement() {
+        double[] in = interior();
+        if (in[0] >= in[2] || in[1] >= in[3]) {
+            return; // the PMLs leave no interior, already an error
+        }
         for (int k = 0; k < p.sources.size(); k++) {
             SourceSpec s = p.sources.get(k);
             String path = p.sourcePaths.get(k);

@@ -854,7 +854,7 @@ final class CaseParser {
 
     private void readNumerics(MapView v, SourcePosition top) {
         if (v == null) {
-            numerics = new NumericsSpec(new Located<>(Precision.FLOAT, top), Optional.empty(), Optional.empty());
+            numerics = new NumericsSpec(new Located<>(Precision.FLOAT, top), Optional.empty(), Optional.empty(), Optional.empty());
             return;
         }
         Node pn = v.get("precision");
@@ -886,8 +886,20 @@ final class CaseParser {
             ok &= s != null;
             courant = Optional.ofNullable(s);
         }
+        Node dn = v.get("dispersion_correction");
+        Optional<Located<Boolean>> correction = Optional.empty();
+        if (dn != null) {
+            Boolean b = ctx.choice(dn, v.path("dispersion_correction"), FluxReader.BOOLEANS);
+            ok &= b != null;
+            correction = b == null ? Optional.empty() : Optional.of(new Located<>(b, ctx.pos(dn)));
+            if (Boolean.TRUE.equals(b) && sources.stream().noneMatch(x -> x instanceof SourceSpec.PlaneWave) && sourcesComplete) {
+                ctx.error(ctx.pos(dn), v.path("dispersion_correction"), "the correction is made for a plane wave's frequency "
+                        + "and in-plane wavenumber, and the case has no plane_wave source; expected false or a plane wave");
+                ok = false;
+            }
+        }
         if (precision != null && ok) {
-            numerics = new NumericsSpec(precision, threads, courant);
+            numerics = new NumericsSpec(precision, threads, courant, correction);
         }
     }
 }

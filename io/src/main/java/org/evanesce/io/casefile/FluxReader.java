@@ -17,7 +17,7 @@ final class FluxReader {
     static final int MAX_FREQUENCIES = 1000;
 
     private static final Map<String, FluxSpec.Measure> MEASURES = new LinkedHashMap<>();
-    private static final Map<String, Boolean> BOOLEANS = new LinkedHashMap<>();
+    static final Map<String, Boolean> BOOLEANS = new LinkedHashMap<>();
 
     static {
         for (FluxSpec.Measure m : FluxSpec.Measure.values()) {

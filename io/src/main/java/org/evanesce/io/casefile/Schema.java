@@ -61,7 +61,8 @@ final class Schema {
     static final Section FLUX_LINE = new Section("flux.lines[]", List.of("name", "y", "measures"));
     static final Section OUTPUT = new Section("output", List.of("folder", "write", "frame_interval"));
     static final Section STOP = new Section("stop", List.of("time", "steps", "decay", "limit"));
-    static final Section NUMERICS = new Section("numerics", List.of("precision", "threads", "courant"));
+    static final Section NUMERICS = new Section("numerics", List.of("precision", "threads", "courant",
+            "dispersion_correction"));
 
     static final List<Section> ALL = List.of(ROOT, DOMAIN, RESOLUTION, MATERIAL, SHAPES, RECTANGLE, POLYGON, DISK,
             ELLIPSE, HALF_PLANE, LAYER_STACK, LAYER, BOUNDARIES, SOURCES, POINT_SOURCE, LINE_SOURCE, PLANE_WAVE, SIGNAL,

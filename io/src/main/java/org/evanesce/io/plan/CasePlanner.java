@@ -21,6 +21,7 @@ import org.evanesce.geometry.shape.Shape;
 import org.evanesce.io.casefile.BoundarySpec;
 import org.evanesce.io.casefile.CaseSpec;
 import org.evanesce.io.casefile.Diagnostic;
+import org.evanesce.io.casefile.Located;
 import org.evanesce.io.casefile.MaterialSpec;
 import org.evanesce.io.casefile.OutputSpec;
 import org.evanesce.io.casefile.ProbeSpec;
@@ -30,6 +31,7 @@ import org.evanesce.io.casefile.SignalSpec;
 import org.evanesce.io.casefile.SourcePosition;
 import org.evanesce.io.casefile.SourceSpec;
 import org.evanesce.io.casefile.StopSpec;
+import org.evanesce.solver.DispersionCorrection;
 import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.boundary.Boundary;
@@ -77,10 +79,10 @@ public final class CasePlanner {
         // periodic sides: the width is one period, so the node at x = +W/2 is the image of the one at −W/2
         boolean periodic = spec.boundary(Side.LEFT) instanceof BoundarySpec.Periodic;
         GridSpec grid = new GridSpec(r.x(0), r.y(0), dx, periodic ? r.nx() - 1 : r.nx(), r.ny());
-        Map<String, Material> materials = materials();
-        Scene scene = scene(materials);
         double courant = spec.numerics().courant().map(v -> v.si()).orElse(DEFAULT_COURANT);
         double dt = courant * dx / PhysicalConstants.C0;
+        Map<String, Material> materials = materials(dx, dt);
+        Scene scene = scene(materials);
         Map<Side, Boundary> sides = boundaries(PlaneWaves.kx(spec));
         List<Source> sources = new ArrayList<>();
         double fade = 0;
@@ -124,7 +126,9 @@ public final class CasePlanner {
                 throw new PlanException(errors);
             }
         }
-        return new CasePlan(spec, grid, mg, b, List.copyOf(probes), stop, dt, interior(sides, grid), flux);
+        Map<String, Double> eps = new java.util.TreeMap<>();
+        materials.forEach((name, m) -> eps.put(name, m.relativePermittivity()));
+        return new CasePlan(spec, grid, mg, b, List.copyOf(probes), stop, dt, interior(sides, grid), flux, eps);
     }
 
     private void error(SourcePosition at, String path, String message) {
@@ -141,10 +145,27 @@ public final class CasePlanner {
         }
     }
 
-    private Map<String, Material> materials() {
+    /**
+     * The materials as the grid uses them: with the dispersion correction (a plane-wave case, unless
+     * the case turns it off) each lossless material's permittivity is the one for which the grid's
+     * normal wavenumber is exact at the plane wave's centre frequency and kx.
+     */
+    private Map<String, Material> materials(double dx, double dt) {
+        Optional<SourceSpec.PlaneWave> wave = PlaneWaves.of(spec);
+        boolean correct = spec.numerics().correctsDispersion(wave.isPresent());
         Map<String, Material> out = new HashMap<>();
         for (MaterialSpec m : spec.materials().values()) {
-            out.put(m.name(), new Material(m.name(), m.relativePermittivity().si(), m.conductivity().si()));
+            double eps = m.relativePermittivity().si();
+            if (correct && m.conductivity().si() == 0) {
+                double omega = 2 * Math.PI * wave.orElseThrow().signal().frequency().si();
+                try {
+                    eps = DispersionCorrection.permittivity(eps, PlaneWaves.kx(spec), omega, dx, dt);
+                } catch (IllegalArgumentException e) {
+                    error(spec.numerics().dispersionCorrection().map(Located::at).orElse(wave.get().at()),
+                            "numerics.dispersion_correction", "material " + m.name() + ": " + e.getMessage());
+                }
+            }
+            out.put(m.name(), new Material(m.name(), eps, m.conductivity().si()));
         }
         return out;
     }

@@ -130,9 +130,10 @@ final class FluxPlanner {
         LayeredProfile.Result r = LayeredProfile.of(spec, grid.x0(), grid.x0() + grid.nx() * dx, yLow, yHigh, dx);
         String path = "flux.transfer_matrix";
         if (!r.isLayered()) {
-            errors.add(new Diagnostic(Diagnostic.Severity.ERROR, f.transferMatrix().at(), path, "the exact plane-wave answer "
-                    + "needs a layered scene, the same at every x across the domain, but " + r.whyNot()
-                    + "; expected horizontal layers (half_plane, layer_stack, or full-width rectangles)"));
+            errors.add(new Diagnostic(Diagnostic.Severity.ERROR, f.transferMatrix().at(), path, "the scene is not layered (the "
+                    + "same at every x across the domain), so it has no exact plane-wave answer: " + r.whyNot()
+                    + "; expected horizontal layers (half_plane, layer_stack, or full-width rectangles) or "
+                    + "transfer_matrix: false"));
             return Optional.empty();
         }
         List<LayeredProfile.Band> bands = r.bands().orElseThrow();

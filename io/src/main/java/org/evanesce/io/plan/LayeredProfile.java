@@ -38,9 +38,8 @@ public final class LayeredProfile {
     /** Samples per cell along y before bisection: finds layers down to 1/64 of a cell. */
     static final int SAMPLES_PER_CELL = 64;
     /**
-     * Bisection stops when an edge is bracketed to this fraction of a cell. Columns are compared with the
-     * same tolerance: an edge that is the same at every x is bisected from the same sample grid in every
-     * column, so its estimates differ by at most one final bracket (1/64 / 2^14 = 9.5e-7 of a cell).
+     * Columns are compared with this tolerance, a fraction of a cell: edges are bisected to adjacent
+     * doubles, but a shape's inside test may round differently at different x.
      */
     static final double EDGE_RESOLUTION = 1e-6;
     /** Ends of the x range moved inwards by this fraction of its width. */
@@ -248,7 +247,6 @@ public final class LayeredProfile {
     /** The bands along the column x from yFrom to yTo, bottom first. */
     static List<Band> bandsAt(CaseSpec spec, double x, double yFrom, double yTo, double cellSize) {
         double step = cellSize / SAMPLES_PER_CELL;
-        double resolution = EDGE_RESOLUTION * cellSize;
         long samples = (long) Math.ceil((yTo - yFrom) / step);
         List<Band> bands = new ArrayList<>();
         String current = spec.materialAt(x, yFrom);
@@ -262,7 +260,8 @@ public final class LayeredProfile {
                 // current at lo, something else at y: bisect to the first change above lo
                 double a = lo;
                 double b = y;
-                while (b - a > resolution) {
+                while (true) {
+                    // down to adjacent doubles: the transfer matrix then sees the written thickness to round-off
                     double mid = 0.5 * (a + b);
                     if (mid <= a || mid >= b) {
                         break; // the bracket is down to adjacent doubles
