@@ -74,6 +74,8 @@ final class CaseParser {
     ResolutionSpec resolution;
     /** The resolution as written is multiplied by this (an accuracy study's finer levels); 1 normally. */
     double resolutionScale = 1;
+    /** The grid's nodes are moved by this fraction of a cell (an accuracy study's offset runs); 0 normally. */
+    double gridOffset;
     SourcePosition resolutionAt;
     /** The key the cell size came from: resolution.cell or resolution.cells_per_wavelength. */
     String resolutionPath = "resolution";
@@ -395,7 +397,7 @@ final class CaseParser {
                     fmtLength(cell.si())));
             return;
         }
-        resolution = new ResolutionSpec(cell, (int) cx + 1, (int) cy + 1, perWavelength);
+        resolution = new ResolutionSpec(cell, (int) cx + 1, (int) cy + 1, perWavelength, gridOffset);
         double slack = 1e-6 * cell.si();
         if (cx * cell.si() > domain.width().si() + slack || cy * cell.si() > domain.height().si() + slack) {
             ctx.note(cell.at(), v.path(how), String.format("the domain (%s x %s) is not a whole number of %s cells; the grid covers %s x %s (%d x %d cells) about the same centre",

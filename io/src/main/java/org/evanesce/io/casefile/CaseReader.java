@@ -78,6 +78,7 @@ public final class CaseReader {
         }
         CaseParser parser = new CaseParser(ctx);
         parser.resolutionScale = options.resolutionScale();
+        parser.gridOffset = options.gridOffset();
         parser.parse(root, overrides);
         new CaseChecks(ctx, parser, options).run();
         if (ctx.hasErrors()) {

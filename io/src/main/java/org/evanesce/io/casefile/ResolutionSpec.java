@@ -14,8 +14,10 @@ import org.evanesce.solver.grid.Precision;
  * @param nx                 nodes along x (the solver's array width)
  * @param ny                 nodes along y
  * @param cellsPerWavelength the rule the cell size was picked by, when it was not given
+ * @param offset             the nodes are moved by this fraction of a cell along x and y from the centred
+ *                           position (0 normally; an accuracy study's offset runs), in [0, 1)
  */
-public record ResolutionSpec(Value cellSize, int nx, int ny, Optional<Value> cellsPerWavelength) {
+public record ResolutionSpec(Value cellSize, int nx, int ny, Optional<Value> cellsPerWavelength, double offset) {
 
     /**
      * Estimated bytes per cell of a run, field and coefficient arrays together: 28 in float (the
@@ -37,11 +39,11 @@ public record ResolutionSpec(Value cellSize, int nx, int ny, Optional<Value> cel
 
     /** x of node column i, metres. */
     public double x(int i) {
-        return (i - (nx - 1) / 2.0) * cellSize.si();
+        return (i - (nx - 1) / 2.0 + offset) * cellSize.si();
     }
 
     /** y of node row j, metres. */
     public double y(int j) {
-        return (j - (ny - 1) / 2.0) * cellSize.si();
+        return (j - (ny - 1) / 2.0 + offset) * cellSize.si();
     }
 }

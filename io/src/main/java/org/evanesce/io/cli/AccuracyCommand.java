@@ -49,6 +49,12 @@ public final class AccuracyCommand implements Callable<Integer> {
                     + "${DEFAULT-VALUE}).")
     private double ratio;
 
+    @Option(names = "--offsets", paramLabel = "N", defaultValue = "4",
+            description = "Runs per level with the grid moved by k/N of a cell (default: ${DEFAULT-VALUE}); the levels' "
+                    + "means extrapolate smoothly where single runs need not, and their spread shows how much where "
+                    + "interfaces fall between nodes matters. 1 runs each level once.")
+    private int offsets;
+
     @Option(names = "--out", paramLabel = "DIR", description = "Study folder (default: the case's output folder + '-accuracy').")
     private Path out;
 
@@ -64,37 +70,64 @@ public final class AccuracyCommand implements Callable<Integer> {
         if (levels < 2 || levels > 3) {
             throw new ParameterException(spec.commandLine(), "--levels " + levels + ": expected 2 or 3");
         }
+        if (offsets < 1 || offsets > 16) {
+            throw new ParameterException(spec.commandLine(), "--offsets " + offsets + ": expected 1 to 16");
+        }
         if (!(ratio >= 1.1 && ratio <= 4)) {
             throw new ParameterException(spec.commandLine(), "--ratio " + ratio + ": expected a refinement between 1.1 and 4");
         }
         PrintWriter o = spec.commandLine().getOut();
-        List<CaseOptions.Loaded> loaded = new ArrayList<>();
+        // every level and offset is read and planned before anything runs, so a bad one costs nothing;
+        // warnings and notes are printed once, for the case as written
+        List<List<CaseOptions.Loaded>> loaded = new ArrayList<>();
+        PrintWriter quiet = new PrintWriter(java.io.Writer.nullWriter());
         for (int l = 0; l < levels; l++) {
-            // every level is read and planned before anything runs, so a bad level costs nothing
-            try {
-                loaded.add(options.load(spec.commandLine().getErr(),
-                        ReadOptions.defaults().withResolutionScale(Math.pow(ratio, l))));
-            } catch (CaseOptions.BadInput e) {
-                throw new ParameterException(spec.commandLine(), (l > 0 ? "level " + (l + 1) + ": " : "") + e.getMessage());
+            List<CaseOptions.Loaded> level = new ArrayList<>();
+            for (int k = 0; k < offsets; k++) {
+                try {
+                    level.add(options.load(l == 0 && k == 0 ? spec.commandLine().getErr() : quiet,
+                            ReadOptions.defaults().withResolutionScale(Math.pow(ratio, l)).withGridOffset((double) k / offsets)));
+                } catch (CaseOptions.BadInput e) {
+                    if (l == 0 && k == 0) {
+                        throw new ParameterException(spec.commandLine(), e.getMessage());
+                    }
+                    // repeat the reading with messages, so the user sees why this level failed
+                    try {
+                        options.load(spec.commandLine().getErr(), ReadOptions.defaults()
+                                .withResolutionScale(Math.pow(ratio, l)).withGridOffset((double) k / offsets));
+                    } catch (CaseOptions.BadInput again) {
+                        // reported above
+                    }
+                    throw new ParameterException(spec.commandLine(), String.format("level %d (offset %d/%d): %s", l + 1, k,
+                            offsets, e.getMessage()));
+                }
             }
+            loaded.add(level);
         }
-        if (loaded.get(0).plan().flux().isEmpty()) {
+        if (loaded.get(0).get(0).plan().flux().isEmpty()) {
             throw new ParameterException(spec.commandLine(), options.caseFile + ": an accuracy study extrapolates the flux "
                     + "table; the case has no flux section");
         }
-        Path base = RunCommand.defaultFolder(options.caseFile, loaded.get(0).plan().spec());
+        Path base = RunCommand.defaultFolder(options.caseFile, loaded.get(0).get(0).plan().spec());
         Path folder = out != null ? out : base.resolveSibling(base.getFileName() + "-accuracy");
         try (RunFolder study = RunFolder.begin(folder, force)) {
-            List<FluxResults> tables = new ArrayList<>();
+            List<List<FluxResults>> tables = new ArrayList<>();
             double[] cells = new double[levels];
             for (int l = 0; l < levels; l++) {
-                CaseOptions.Loaded c = loaded.get(l);
-                cells[l] = c.plan().grid().cellSize();
-                o.printf(Locale.ROOT, "level %d of %d: cell %.4g nm%n", l + 1, levels, cells[l] * 1e9);
-                try (RunFolder rf = RunFolder.begin(study.dir().resolve("level" + (l + 1)), false)) {
-                    tables.add(CaseExecution.run(c, options.overrides, rf, o, progressSeconds).flux());
-                    rf.commit();
+                cells[l] = loaded.get(l).get(0).plan().grid().cellSize();
+                List<FluxResults> level = new ArrayList<>();
+                for (int k = 0; k < offsets; k++) {
+                    CaseOptions.Loaded c = loaded.get(l).get(k);
+                    o.printf(Locale.ROOT, "level %d of %d: cell %.4g nm, grid offset %d/%d of a cell%n", l + 1, levels,
+                            cells[l] * 1e9, k, offsets);
+                    Path dir = study.dir().resolve("level" + (l + 1));
+                    java.nio.file.Files.createDirectories(dir);
+                    try (RunFolder rf = RunFolder.begin(offsets == 1 ? dir.resolve("run") : dir.resolve("offset" + k), false)) {
+                        level.add(CaseExecution.run(c, options.overrides, rf, o, progressSeconds, false).flux());
+                        rf.commit();
+                    }
                 }
+                tables.add(level);
             }
             AccuracyStudy s = AccuracyStudy.of(tables, cells[0] / cells[1], cells);
             study.writeText("accuracy.csv", s.csv());
@@ -120,7 +153,7 @@ public final class AccuracyCommand implements Callable<Integer> {
         for (int l = 0; l < s.cellSizes().length; l++) {
             h.append(String.format(Locale.ROOT, " %10s", "level" + (l + 1)));
         }
-        h.append(String.format(Locale.ROOT, " %12s %10s %6s", "extrapolated", "± estimate", "order"));
+        h.append(String.format(Locale.ROOT, " %10s %12s %10s %6s", "spread", "extrapolated", "± estimate", "order"));
         if (s.hasExact()) {
             h.append(String.format(Locale.ROOT, " %10s %10s", "exact", "extr-exact"));
         }
@@ -133,7 +166,9 @@ public final class AccuracyCommand implements Callable<Integer> {
                     sb.append(String.format(Locale.ROOT, " %10.6f", v));
                 }
                 Richardson.Estimate e = r.estimates()[k];
-                sb.append(String.format(Locale.ROOT, " %12.6f %10.2e %6.2f", e.extrapolated(), e.errorEstimate(), e.order()));
+                double[] spread = r.spreads()[k];
+                sb.append(String.format(Locale.ROOT, " %10.2e %12.6f %10.2e %6.2f", spread[spread.length - 1], e.extrapolated(),
+                        e.errorEstimate(), e.order()));
                 if (s.hasExact()) {
                     sb.append(String.format(Locale.ROOT, " %10.6f %+10.2e", r.exact()[k], e.extrapolated() - r.exact()[k]));
                 }

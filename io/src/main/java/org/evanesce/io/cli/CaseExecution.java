@@ -26,9 +26,10 @@ final class CaseExecution {
 
     /**
      * @param progressSeconds least wall time between progress lines when the output is not a terminal
+     * @param table           print the flux table when the run has one
      */
     static Finished run(CaseOptions.Loaded l, Map<String, String> overrides, RunFolder rf, PrintWriter o,
-                        double progressSeconds) throws IOException {
+                        double progressSeconds, boolean table) throws IOException {
         CasePlan plan = l.plan();
         CaseSpec s = plan.spec();
         boolean terminal = System.console() != null;
@@ -61,7 +62,7 @@ final class CaseExecution {
                 r.cellUpdatesPerSecond(cells) / 1e6, r.threads(),
                 plan.flux().isPresent() ? String.format(Locale.ROOT, ", reference run %.1f s", r.referenceWallSeconds()) : "",
                 r.stopReason());
-        if (flux != null) {
+        if (flux != null && table) {
             FluxTable.print(o, flux);
         }
         return new Finished(r, flux);

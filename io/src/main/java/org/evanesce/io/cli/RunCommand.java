@@ -47,7 +47,7 @@ public final class RunCommand implements Callable<Integer> {
         CaseOptions.Loaded l = options.load(spec);
         Path folder = out != null ? out : defaultFolder(options.caseFile, l.plan().spec());
         try (RunFolder rf = RunFolder.begin(folder, force)) {
-            CaseExecution.run(l, options.overrides, rf, o, progressSeconds);
+            CaseExecution.run(l, options.overrides, rf, o, progressSeconds, true);
             rf.commit();
             o.println("results: " + rf.target());
             o.println("Caution: " + RunOutputs.CAUTION);
