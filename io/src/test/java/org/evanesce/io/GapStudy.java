@@ -8,6 +8,7 @@ import org.evanesce.geometry.Rasterizer;
 import org.evanesce.geometry.Scene;
 import org.evanesce.geometry.Smoothing;
 import org.evanesce.geometry.shape.Slab;
+import org.evanesce.solver.DispersionCorrection;
 import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.boundary.Boundary;
@@ -31,8 +32,12 @@ import org.evanesce.solver.source.TimeSignal;
  * runs' fields below the gap. The exact answer is the transfer matrix of the same stack
  * ({@link PlanarStack}).
  *
- * <p>One instance is one polarization, angle and resolution; {@link #measure} may be called from
- * several threads (each run is single-threaded and independent).
+ * <p>With {@code corrected} the glass and the gap get the permittivities of the solver's
+ * {@code DispersionCorrection} for this kx and frequency, as case files with a plane wave do by
+ * default; without it the materials are as written.
+ *
+ * <p>One instance is one polarization, angle, resolution and choice of correction; {@link #measure}
+ * may be called from several threads (each run is single-threaded and independent).
  */
 final class GapStudy {
 
@@ -54,16 +59,18 @@ final class GapStudy {
     final Polarization pol;
     final double degrees;
     final int cellsPerWavelength;
+    final boolean corrected;
     /** Cell size, m: {@code cellsPerWavelength} cells per wavelength in the glass. */
     final double dx;
     private final double kx;
     private final double f;
     private Run reference;
 
-    GapStudy(Polarization pol, double degrees, int cellsPerWavelength) {
+    GapStudy(Polarization pol, double degrees, int cellsPerWavelength, boolean corrected) {
         this.pol = pol;
         this.degrees = degrees;
         this.cellsPerWavelength = cellsPerWavelength;
+        this.corrected = corrected;
         this.dx = WAVELENGTH / (N_GLASS * cellsPerWavelength);
         this.kx = 2 * Math.PI / WAVELENGTH * N_GLASS * Math.sin(Math.toRadians(degrees));
         this.f = PhysicalConstants.C0 / WAVELENGTH;
@@ -101,9 +108,16 @@ final class GapStudy {
         int gapCells = (int) Math.ceil(d / dx);
         int topLine = (int) gapStart + gapCells + 30;
         int ny = topLine + 20 + PML;
-        Scene.Builder sb = Scene.builder(Material.ofIndex("glass", N_GLASS));
+        double dt = COURANT * dx / PhysicalConstants.C0;
+        double omega = 2 * Math.PI * f;
+        Material glass = corrected
+                ? new Material("glass", DispersionCorrection.permittivity(N_GLASS * N_GLASS, kx, omega, dx, dt), 0)
+                : Material.ofIndex("glass", N_GLASS);
+        Material gap = corrected ? new Material("gap", DispersionCorrection.permittivity(1.0, kx, omega, dx, dt), 0)
+                : Material.VACUUM;
+        Scene.Builder sb = Scene.builder(glass);
         if (d > 0) {
-            sb.add(new Slab(0, gapStart * dx, 0, 1, d), Material.VACUUM);
+            sb.add(new Slab(0, gapStart * dx, 0, 1, d), gap);
         }
         MaterialGrid grid = Rasterizer.rasterize(sb.build(), new GridSpec(0, 0, dx, NX, ny), Smoothing.ANISOTROPIC);
         Component c = pol == Polarization.S ? Component.EZ : Component.HZ;
