@@ -152,4 +152,51 @@ public final class FluxLine implements StepListener {
     public double[] electric(int q, int i) {
         return new double[] {eRe[q][i - i0], eIm[q][i - i0]};
     }
+
+    /** First cell of the line (inclusive). */
+    public int firstCell() {
+        return i0;
+    }
+
+    /** Number of cells on the line, i1 − i0. */
+    public int cells() {
+        return i1 - i0;
+    }
+
+    /** The line lies at y = (row + ½)Δ. */
+    public int row() {
+        return row;
+    }
+
+    /** The electric component transformed; its site's x offset ({@link Component#dx}) places cell i at x = (i + dx)Δ. */
+    public Component electricComponent() {
+        return e;
+    }
+
+    /** Frequency number q, Hz. */
+    public double frequency(int q) {
+        return omega[q] / (2 * Math.PI);
+    }
+
+    /** A copy of the transformed electric field (averaged onto the line) at frequency q on every cell: {re[], im[]}. */
+    public double[][] electricTransform(int q) {
+        return new double[][] {eRe[q].clone(), eIm[q].clone()};
+    }
+
+    /** A copy of the transformed magnetic field (η0·H as stored) at frequency q on every cell: {re[], im[]}. */
+    public double[][] magneticTransform(int q) {
+        return new double[][] {hRe[q].clone(), hIm[q].clone()};
+    }
+
+    /**
+     * The flux density along +y at frequency q on every cell, W/m² (times the source's units squared), with the
+     * sign and normalisation of {@link #flux(int, double)}: its sum times the cell size is the flux.
+     */
+    public double[] fluxDensity(int q) {
+        double[] s = new double[eRe[q].length];
+        for (int k = 0; k < s.length; k++) {
+            s[k] = sign * 0.5 * (eRe[q][k] * hRe[q][k] + eIm[q][k] * hIm[q][k]) / PhysicalConstants.ETA0;
+        }
+        return s;
+    }
 }
