@@ -1,0 +1,291 @@
+package org.evanesce.solver.reference;
+
+import org.evanesce.solver.grid.Polarization;
+import org.jtransforms.fft.DoubleFFT_1D;
+
+/**
+ * The finite-beam plane-wave reference (issue #5): a 2D Gaussian beam decomposed into plane waves, each passed
+ * through the transfer matrix of a {@link PlanarStack}, and recombined by FFT. It gives the reflected profile along
+ * the first interface, the transmitted profile along the last, the beam's total R and T, and the lateral shifts of
+ * both beams, with no edges and no grid.
+ *
+ * <h2>Geometry</h2>
+ * The stack's own axes (see {@link PlanarStack}): z normal, the incidence medium (real index n1) at z &lt; 0, the
+ * first interface at z = 0 and the last at z = L (the sum of the layer thicknesses); x along the interfaces. The
+ * field U is the stack's tangential scalar, E_y for s and H_y for p, so r and t apply to it unchanged. Time
+ * dependence exp(−iωt). Along a line z = const every field is a sum of plane waves
+ * <pre>
+ *     U(x) = ∫ A(kx) exp(i kx x) dkx / 2π,
+ * </pre>
+ * the incident one on z = 0 with spectrum A, the reflected one on z = 0 with r(kx)·A, the transmitted one on z = L
+ * with t(kx)·A. The reflected beam runs along +x like the incident one, so no profile is mirrored.
+ *
+ * <h2>The incident spectrum, built exactly</h2>
+ * Rather than sampling the tilted beam on z = 0 and transforming it (which needs the beam off its waist plane),
+ * the spectrum is written down. In the beam's own frame (ξ across, ζ along the axis, the axis at angle θ from z
+ * and meeting the first interface at x = 0) the beam is a sum of plane waves with transverse wavenumber k_t:
+ * <pre>
+ *     U(ξ, ζ) = ∫ a(k_t) exp(i(k_t ξ + k_ζ ζ)) dk_t / 2π,   a(k_t) = w0 √π exp(−w0² k_t² / 4),   k_ζ = sqrt(k² − k_t²),
+ * </pre>
+ * k = n1 k0, |k_t| &lt; k, which is exactly exp(−ξ²/w0²) (unit amplitude) on the waist plane ζ = 0 up to the
+ * truncation at |k_t| = k (a relative exp(−k²w0²/4), nothing for w0 above a wavelength). The component at angle ψ
+ * from the axis (k_t = k sin ψ) has kx = k sin(θ + ψ); the change of variable from k_t to kx gives
+ * <pre>
+ *     A(kx) = a(k sin ψ) · (dk_t/dkx) · exp(i k_ζ s) = a(k sin ψ) · (cos ψ / cos(θ + ψ)) · exp(i k s cos ψ),
+ *     ψ = arcsin(kx / k) − θ,
+ * </pre>
+ * with s the distance along the axis from the waist to the interface (the plane-wave phase from the waist to the
+ * origin). Components with θ + ψ outside (−90°, 90°) never reach the interface and are left out (their share of
+ * the power is of order exp(−(k w0 cos θ)²/2)); an in-plane wavenumber whose ψ would exceed 90° belongs to no
+ * forward component of the beam and gets A = 0. The Jacobian cos ψ / cos(θ + ψ) is what makes the beam Gaussian on its waist plane rather than
+ * merely along the interface; it matters at small waists (for w0 → ∞ it is 1/cos θ, a constant).
+ *
+ * <h2>Sampling</h2>
+ * The spectrum is sampled on kx_m = (m − c)·Δk, m = 0 … N − 1, c = ⌊N/2⌋, Δk = 2π/W, and the profiles come out
+ * at x_j = −W/2 + j·Δx, Δx = W/N, by one inverse DFT each (JTransforms):
+ * U(x_j) = (Δk/2π) Σ_m A_m exp(i kx_m x_j). That is the profile made periodic with period W, so the window W must
+ * hold the beams (several footprints w0/cos θ, plus the shifts), and Δx ≤ λ0/(2 n1) so that the kx range holds
+ * every propagating incident component (|kx| &lt; n1 k0). Only components with |kx| &lt; n1 k0 and a nonzero A
+ * are passed through the stack.
+ *
+ * <h2>Powers (time-averaged Poynting flux along z, per unit length along y)</h2>
+ * For s, U = E_y and Faraday's law (∇×E = iωμ0 H) gives H_x = −(kz/(ωμ0))·U for each plane wave; for p, U = H_y
+ * and Ampère's (∇×H = −iωε0 ε E) gives E_x = (kz/(ωε0 ε))·U. The flux through a line z = const of a field made of
+ * waves all running one way is ∫ S_z dx with S_z = ½ Re(E_x H_y* − E_y H_x*), and Parseval's theorem turns the
+ * product of two fields that share the factor exp(i kx x) into a single integral over kx, with no cross terms
+ * between different kx:
+ * <pre>
+ *     s:  P = (1/(2ωμ0)) ∫ Re(kz)      |U(kx)|² dkx/2π        p:  P = (1/(2ωε0)) ∫ Re(kz/ε) |U(kx)|² dkx/2π,
+ * </pre>
+ * i.e. P ∝ ∫ Re(Q) |U|² with the stack's admittance Q (kz/k0 for s, kz/(k0 ε) for p), the same constant on both
+ * sides. Hence, as sums over the sampled spectrum,
+ * <pre>
+ *     P_inc = Σ Q1 |A|²,   R = Σ Q1 |r A|² / P_inc,   T = Σ Re(Qe) |t A|² / P_inc.
+ * </pre>
+ * In the incidence medium the incident and reflected waves of one kx carry their fluxes separately because Q1 is
+ * real there (every incident component propagates). Components evanescent in the exit medium have Re(Qe) = 0 and
+ * carry no power; in a lossy exit medium T is what enters it. The discrete sums are the trapezoidal rule for a
+ * smooth spectrum that vanishes at the ends, and by the discrete Parseval identity also equal the flux summed over
+ * the sampled, periodic profiles.
+ *
+ * <h2>Shifts</h2>
+ * The lateral shift of a beam is the centroid Σ x_j |U_j|² / Σ |U_j|² of its profile minus that of the incident
+ * profile; for the reflected beam beyond the critical angle it tends to Artmann's −d(arg r)/dkx
+ * ({@link PlanarStack#goosHanchenShift}) as the waist grows.
+ */
+public final class AngularSpectrum {
+
+    private AngularSpectrum() {
+    }
+
+    /**
+     * A 2D Gaussian beam in the incidence medium of a stack, its axis meeting the first interface at x = 0.
+     *
+     * @param waist         w0, m: the 1/e half-width of the field amplitude on the waist plane; finite, &gt; 0
+     * @param angle         θ, rad: the axis's angle from the stack normal, in the incidence medium; |θ| &lt; π/2
+     * @param wavelength    λ0, m: the vacuum wavelength; finite, &gt; 0
+     * @param waistDistance s, m: the distance along the axis from the waist to the interface; 0 puts the waist on
+     *                      the interface, positive before it, negative beyond it (a virtual waist); finite
+     */
+    public record GaussianBeam(double waist, double angle, double wavelength, double waistDistance) {
+        public GaussianBeam {
+            if (!(waist > 0) || Double.isInfinite(waist)) {
+                throw new IllegalArgumentException(String.format("beam waist %g m must be finite and > 0", waist));
+            }
+            if (!(Math.abs(angle) < Math.PI / 2)) {
+                throw new IllegalArgumentException(String.format(
+                        "beam angle of incidence %g deg must be within (-90, 90) deg", Math.toDegrees(angle)));
+            }
+            if (!(wavelength > 0) || Double.isInfinite(wavelength)) {
+                throw new IllegalArgumentException(String.format("beam wavelength %g m must be finite and > 0", wavelength));
+            }
+            if (!Double.isFinite(waistDistance)) {
+                throw new IllegalArgumentException(String.format("beam waist distance %g m must be finite", waistDistance));
+            }
+        }
+
+        /** A beam with its waist on the first interface. */
+        public GaussianBeam(double waist, double angle, double wavelength) {
+            this(waist, angle, wavelength, 0);
+        }
+
+        /** w0 / |cos θ|, m: the 1/e amplitude half-width of the beam's footprint along the interface. */
+        public double footprint() {
+            return waist / Math.cos(angle);
+        }
+    }
+
+    /**
+     * What the reference gives. Profiles are complex U (E_y for s, H_y for p) at x_j = start + j·spacing,
+     * j = 0 … samples − 1, interleaved: {@code profile[2*j]} is Re U(x_j), {@code profile[2*j + 1]} Im U(x_j); the
+     * incident and reflected ones on the first interface (z = 0), the transmitted one on the last (z = L), all in
+     * units of the incident beam's amplitude at its waist centre. The array accessors return copies.
+     *
+     * @param start            x_0, m
+     * @param spacing          Δx, m
+     * @param incident         the incident profile on z = 0
+     * @param reflected        the reflected profile on z = 0
+     * @param transmitted      the transmitted profile on z = L
+     * @param reflectance      R: reflected over incident power
+     * @param transmittance    T: power into the exit medium over incident power
+     * @param incidentCentroid centroid of |U|² of the incident profile, m
+     * @param reflectedShift   centroid of the reflected |U|² minus the incident one, m (NaN with no reflected beam)
+     * @param transmittedShift centroid of the transmitted |U|² minus the incident one, m (NaN with no transmitted beam)
+     */
+    public record Result(double start, double spacing, double[] incident, double[] reflected, double[] transmitted,
+                         double reflectance, double transmittance, double incidentCentroid, double reflectedShift,
+                         double transmittedShift) {
+        public Result {
+            incident = incident.clone();
+            reflected = reflected.clone();
+            transmitted = transmitted.clone();
+        }
+
+        @Override
+        public double[] incident() {
+            return incident.clone();
+        }
+
+        @Override
+        public double[] reflected() {
+            return reflected.clone();
+        }
+
+        @Override
+        public double[] transmitted() {
+            return transmitted.clone();
+        }
+
+        /** The number of samples in each profile. */
+        public int samples() {
+            return incident.length / 2;
+        }
+
+        /** x_j, m. */
+        public double x(int j) {
+            return start + j * spacing;
+        }
+    }
+
+    /**
+     * The beam's response to the stack (see the class comment for the method).
+     *
+     * @param stack        the layered geometry; the beam travels in its incidence medium
+     * @param polarization s (U = E_y) or p (U = H_y)
+     * @param beam         the incident beam
+     * @param samples      N, the number of samples of the spectrum and the profiles; ≥ 2 (a product of small
+     *                     primes is fastest)
+     * @param window       W, m: the period of the profiles; at least 4 footprints, and Δx = W/N at most λ0/(2 n1)
+     * @throws IllegalArgumentException if the window or the sampling cannot hold the beam
+     */
+    public static Result of(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples, double window) {
+        double n1 = stack.incidentIndex();
+        double lambda = beam.wavelength();
+        double dx = window / samples;
+        if (samples < 2) {
+            throw new IllegalArgumentException(String.format("samples %d must be >= 2", samples));
+        }
+        if (!(window >= 4 * beam.footprint()) || Double.isInfinite(window)) {
+            throw new IllegalArgumentException(String.format(
+                    "window %g m must be finite and at least 4 beam footprints w0/cos(theta) = %g m", window,
+                    4 * beam.footprint()));
+        }
+        if (!(dx <= lambda / (2 * n1))) {
+            throw new IllegalArgumentException(String.format(
+                    "sample spacing window/samples = %g m must be at most lambda0/(2 n1) = %g m, so that every "
+                            + "propagating plane wave (|kx| < n1 k0) is sampled", dx, lambda / (2 * n1)));
+        }
+        double k0 = 2 * Math.PI / lambda;
+        double k = n1 * k0;
+        double dk = 2 * Math.PI / window;
+        int c = samples / 2;
+        int lastMedium = stack.media() - 1;
+        double f1 = polarization == Polarization.S ? 1 : n1 * n1;
+        Complex fe = polarization == Polarization.S ? Complex.ONE : stack.exitIndex().square();
+
+        double[] inc = new double[2 * samples];
+        double[] ref = new double[2 * samples];
+        double[] tra = new double[2 * samples];
+        double pInc = 0;
+        double pRef = 0;
+        double pTra = 0;
+        for (int m = 0; m < samples; m++) {
+            double kx = (m - c) * dk;
+            if (!(Math.abs(kx) < k)) {
+                continue;
+            }
+            double psi = Math.asin(kx / k) - beam.angle();
+            double cosPsi = Math.cos(psi);
+            if (!(cosPsi > 0)) {
+                continue; // a backward wave in the beam's frame: not part of the beam
+            }
+            double kt = k * Math.sin(psi);
+            double kz1 = Math.sqrt((k - kx) * (k + kx));
+            double w = beam.waist();
+            double mag = w * Math.sqrt(Math.PI) * Math.exp(-w * w * kt * kt / 4) * (k * cosPsi / kz1);
+            if (mag == 0) {
+                continue;
+            }
+            Complex a = Complex.polar(mag, k * cosPsi * beam.waistDistance());
+            // (−1)^(m−c) moves the profile's origin to x_0 = −W/2 (see shiftToWindow)
+            if (((m - c) & 1) != 0) {
+                a = a.negate();
+            }
+            PlanarStack.Response resp = stack.atTransverseWavenumber(polarization, lambda, kx);
+            Complex r = a.times(resp.r());
+            Complex t = a.times(resp.t());
+            put(inc, m, a);
+            put(ref, m, r);
+            put(tra, m, t);
+            double q1 = kz1 / (k0 * f1);
+            double qe = stack.normalWavenumber(lastMedium, lambda, kx).divide(fe.times(k0)).re();
+            pInc += q1 * a.norm();
+            pRef += q1 * r.norm();
+            pTra += qe * t.norm();
+        }
+        DoubleFFT_1D fft = new DoubleFFT_1D(samples);
+        double scale = dk / (2 * Math.PI);
+        for (double[] u : new double[][] {inc, ref, tra}) {
+            fft.complexInverse(u, false);
+            shiftToWindow(u, samples, c, scale);
+        }
+        double start = -window / 2;
+        double incCentroid = centroid(inc, start, dx);
+        return new Result(start, dx, inc, ref, tra, pRef / pInc, pTra / pInc, incCentroid,
+                centroid(ref, start, dx) - incCentroid, centroid(tra, start, dx) - incCentroid);
+    }
+
+    private static void put(double[] u, int m, Complex z) {
+        u[2 * m] = z.re();
+        u[2 * m + 1] = z.im();
+    }
+
+    /**
+     * Turns F_j = Σ_m B_m exp(2πi mj/N), with B_m = (−1)^(m−c) A_m, into U(x_j) = scale · exp(−2πi c j/N) · F_j,
+     * since kx_m x_j = −π(m − c) + 2π mj/N − 2π cj/N. The phase c·j is reduced mod N first so that it stays exact.
+     * Modifies {@code u} in place.
+     */
+    private static void shiftToWindow(double[] u, int n, int c, double scale) {
+        for (int j = 0; j < n; j++) {
+            double phi = -2 * Math.PI * (int) (((long) c * j) % n) / n;
+            double cs = Math.cos(phi) * scale;
+            double sn = Math.sin(phi) * scale;
+            double re = u[2 * j];
+            double im = u[2 * j + 1];
+            u[2 * j] = re * cs - im * sn;
+            u[2 * j + 1] = re * sn + im * cs;
+        }
+    }
+
+    /** Σ x_j |U_j|² / Σ |U_j|², m; NaN for a zero profile. */
+    private static double centroid(double[] u, double start, double dx) {
+        double sum = 0;
+        double moment = 0;
+        for (int j = 0; j < u.length / 2; j++) {
+            double p = u[2 * j] * u[2 * j] + u[2 * j + 1] * u[2 * j + 1];
+            sum += p;
+            moment += (start + j * dx) * p;
+        }
+        return sum > 0 ? moment / sum : Double.NaN;
+    }
+}
