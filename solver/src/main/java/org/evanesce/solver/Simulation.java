@@ -14,6 +14,7 @@ import org.evanesce.solver.kernel.Engine;
 import org.evanesce.solver.monitor.StepListener;
 import org.evanesce.solver.monitor.StepView;
 import org.evanesce.solver.parallel.BandTeam;
+import org.evanesce.solver.source.IncidentSheet;
 import org.evanesce.solver.source.Source;
 
 /**
@@ -42,6 +43,9 @@ public final class Simulation implements StepView, AutoCloseable {
     private final int[] sourceTermStart;
     /** Per source: real and imaginary amplitudes, copied once (the step loop must not allocate). */
     private final double[][] sourceRe, sourceIm;
+    /** Incident-field sheets (beams), their terms after the plain sources'. */
+    private final IncidentSheet[] sheets;
+    private final int[] sheetTermStart;
     private final int flushInterval;
     private final double divergenceLimit;
     private final List<StepListener> listeners;
@@ -71,6 +75,15 @@ public final class Simulation implements StepView, AutoCloseable {
             }
         }
         sourceTermStart[sources.length] = n;
+        sheets = b.sheets.toArray(new IncidentSheet[0]);
+        sheetTermStart = new int[sheets.length];
+        for (int q = 0; q < sheets.length; q++) {
+            sheetTermStart[q] = n;
+            n += sheets[q].cells().length;
+            for (int t = 0; t < sheets[q].cells().length; t++) {
+                amplitudeSum += Math.hypot(sheets[q].re()[t], sheets[q].im()[t]);
+            }
+        }
         sourceRe = new double[sources.length][];
         sourceIm = new double[sources.length][];
         for (int q = 0; q < sources.length; q++) {
@@ -83,6 +96,11 @@ public final class Simulation implements StepView, AutoCloseable {
             int[] c = sources[q].cells();
             System.arraycopy(c, 0, cells, sourceTermStart[q], c.length);
             java.util.Arrays.fill(comps, sourceTermStart[q], sourceTermStart[q + 1], sources[q].component());
+        }
+        for (int q = 0; q < sheets.length; q++) {
+            int[] c = sheets[q].cells();
+            System.arraycopy(c, 0, cells, sheetTermStart[q], c.length);
+            java.util.Arrays.fill(comps, sheetTermStart[q], sheetTermStart[q] + c.length, sheets[q].component());
         }
         engine.setSources(cells, comps);
         divergenceLimit = b.divergenceLimit > 0 ? b.divergenceLimit : 1e15 * Math.max(1.0, amplitudeSum);
@@ -106,6 +124,21 @@ public final class Simulation implements StepView, AutoCloseable {
             double[] ampIm = sourceIm[q];
             for (int t = 0; t < amp.length; t++) {
                 engine.sourceValue(sourceTermStart[q] + t, amp[t] * g, ampIm[t] * g);
+            }
+        }
+        for (int q = 0; q < sheets.length; q++) {
+            IncidentSheet sh = sheets[q];
+            double time = sh.component().electric ? tE : tH;
+            double phase = 2 * Math.PI * sh.signal().carrierFrequency() * (time - sh.signal().carrierOrigin());
+            double c = Math.cos(phase);
+            double sn = Math.sin(phase);
+            double[] re = sh.re();
+            double[] im = sh.im();
+            double[] delay = sh.delays();
+            int base = sheetTermStart[q];
+            for (int t = 0; t < re.length; t++) {
+                double env = sh.signal().envelope(time - delay[t]);
+                engine.sourceValue(base + t, env == 0 ? 0 : env * (re[t] * c + im[t] * sn));
             }
         }
         boolean flush = (step + 1) % flushInterval == 0;
@@ -253,6 +286,7 @@ public final class Simulation implements StepView, AutoCloseable {
         private int threads = Runtime.getRuntime().availableProcessors();
         private int minRowsCellsPerThread = 1 << 15;
         private final List<Source> sources = new ArrayList<>();
+        private final List<IncidentSheet> sheets = new ArrayList<>();
         private final List<StepListener> listeners = new ArrayList<>();
         private int flushInterval = 64;
         private double divergenceLimit;
@@ -302,6 +336,12 @@ public final class Simulation implements StepView, AutoCloseable {
         /** Fewest cells a thread must have before another thread is used (default 32768; tests lower it). */
         public Builder minCellsPerThread(int cells) {
             minRowsCellsPerThread = cells;
+            return this;
+        }
+
+        /** Adds an incident-field sheet (e.g. one of a {@link org.evanesce.solver.source.GaussianBeam}'s pair). */
+        public Builder incident(IncidentSheet s) {
+            sheets.add(s);
             return this;
         }
 
@@ -395,6 +435,19 @@ public final class Simulation implements StepView, AutoCloseable {
                     if (k < 0 || !Engine.wouldUpdate(sides, nx, ny, s.component(), k % nx, k / nx)) {
                         errors.add(String.format("source cell (%d, %d) of %s is not a site the update changes "
                                 + "(outside the grid, on a PEC wall, or a ghost site beyond the last node)",
+                                k % nx, k / nx, s.component()));
+                        break;
+                    }
+                }
+            }
+            for (IncidentSheet s : sheets) {
+                if (s.component().polarization != polarization) {
+                    errors.add(String.format("incident sheet component %s does not belong to the %s polarization",
+                            s.component(), polarization));
+                }
+                for (int k : s.cells()) {
+                    if (k < 0 || !Engine.wouldUpdate(sides, nx, ny, s.component(), k % nx, k / nx)) {
+                        errors.add(String.format("incident sheet cell (%d, %d) of %s is not a site the update changes",
                                 k % nx, k / nx, s.component()));
                         break;
                     }

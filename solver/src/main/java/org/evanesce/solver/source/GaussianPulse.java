@@ -1,7 +1,7 @@
 package org.evanesce.solver.source;
 
 /** See {@link TimeSignal#gaussianPulse}. */
-public record GaussianPulse(double centreFrequency, double frequencyWidth) implements TimeSignal {
+public record GaussianPulse(double centreFrequency, double frequencyWidth) implements CarrierSignal {
 
     public GaussianPulse {
         if (!(centreFrequency >= 0) || Double.isInfinite(centreFrequency)) {
@@ -26,5 +26,21 @@ public record GaussianPulse(double centreFrequency, double frequencyWidth) imple
     public double value(double t) {
         double u = (t - delay()) / tau();
         return Math.exp(-0.5 * u * u) * Math.sin(2 * Math.PI * centreFrequency * (t - delay()));
+    }
+
+    @Override
+    public double carrierFrequency() {
+        return centreFrequency;
+    }
+
+    @Override
+    public double envelope(double t) {
+        double u = (t - delay()) / tau();
+        return Math.exp(-0.5 * u * u);
+    }
+
+    @Override
+    public double carrierOrigin() {
+        return delay();
     }
 }
