@@ -30,7 +30,10 @@ import org.jtransforms.fft.DoubleFFT_1D;
  * sin(ωΔt/2))·η0Hz from the Ex update), which tends to k_y/k0 as Δ → 0. At the carrier frequency
  * the scattered-field side then receives nothing; a pulse is the carrier times an envelope that
  * crosses each cell at the wave's arrival time (narrow-band approximation), so what leaks is of
- * the order of the envelope's relative bandwidth times the dispersion over it.
+ * the order of the envelope's relative bandwidth times the dispersion over it. A continuous
+ * (ramped) wave ramps up along the whole line at once instead: its steady state is the same, and
+ * a wide tilted beam settles without waiting for the ramp to sweep across it (what leaks is
+ * transient).
  *
  * <p>Which side is total field: for an upward beam the rows from {@code row} up; for a downward
  * beam the rows from {@code row} down. The corrections: the magnetic row just outside the total
@@ -103,10 +106,13 @@ public final class GaussianBeam {
         double[] eIm = new double[m];
         double[] hRe = new double[m];
         double[] hIm = new double[m];
+        // a continuous wave ramps up along the whole line at once: its steady state is the same, and the
+        // fields settle without waiting for the ramp to sweep across a wide, tilted beam
+        boolean continuous = !(b.signal() instanceof GaussianPulse);
         for (int t = 0; t < m; t++) {
             int i = cells.get(t);
-            dE[t] -= earliest;
-            dH[t] -= earliest;
+            dE[t] = continuous ? 0 : dE[t] - earliest;
+            dH[t] = continuous ? 0 : dH[t] - earliest;
             // the magnetic row receives the incident E of the electric row, and the reverse
             hCells[t] = hRow * nx + i;
             hRe[t] = sign * uE[0][i];
