@@ -587,8 +587,8 @@ final class CaseParser {
     }
 
     private SourceSpec readSource(KindEntry e) {
-        if (e.kind().equals("plane_wave")) {
-            return readPlaneWave(e);
+        if (e.kind().equals("plane_wave") || e.kind().equals("gaussian_beam")) {
+            return new LaunchReader(ctx, signalReader).read(e, polarization);
         }
         boolean line = e.kind().equals("line");
         MapView v = e.view(ctx, line ? Schema.LINE_SOURCE : Schema.POINT_SOURCE);
@@ -639,53 +639,10 @@ final class CaseParser {
         return new SourceSpec.LineSource(from, to, comp, amp, angle, Optional.ofNullable(waist), signal, e.at());
     }
 
-    private static final Map<String, SourceSpec.Direction> DIRECTIONS = ordered("up", SourceSpec.Direction.UP, "down",
-            SourceSpec.Direction.DOWN);
-
-    private SourceSpec readPlaneWave(KindEntry e) {
-        MapView v = e.view(ctx, Schema.PLANE_WAVE);
-        if (v == null) {
-            return null;
-        }
-        Node yn = v.require("y", "the height of the launching line, a length such as -2 um");
-        Value y = yn == null ? null : ctx.value(yn, v.path("y"), Expect.LENGTH);
-        Node angn = v.get("angle");
-        Value angle = angn == null ? new Value(0, v.at()) : ctx.value(angn, v.path("angle"), Expect.ANGLE);
-        if (angle != null && !(Math.abs(angle.si()) < Math.PI / 2)) {
-            ctx.error(angle.at(), v.path("angle"), "must lie strictly between -90 deg and 90 deg, got "
-                    + Units.format(angle.si(), Dimension.ANGLE));
-            angle = null;
-        }
-        Node dn = v.get("direction");
-        Located<SourceSpec.Direction> direction = new Located<>(SourceSpec.Direction.UP, v.at());
-        if (dn != null) {
-            SourceSpec.Direction d = ctx.choice(dn, v.path("direction"), DIRECTIONS);
-            direction = d == null ? null : new Located<>(d, ctx.pos(dn));
-        }
-        Node an = v.get("amplitude");
-        Value amp = an == null ? new Value(1, v.at()) : ctx.value(an, v.path("amplitude"), Expect.PLAIN);
-        Node sn = v.require("signal", "a signal such as 'pulse: {wavelength: 633 nm, bandwidth: 20 nm}'");
-        SignalSpec signal = null;
-        if (sn != null) {
-            KindEntry se = KindEntry.read(ctx, sn, Schema.SIGNAL, v.path("signal"));
-            signal = se == null ? null : signalReader.read(se);
-        }
-        // a plane wave drives the z component: Ez for s, Hz for p
-        Located<Component> comp = polarization == null ? null
-                : new Located<>(polarization == Polarization.S ? Component.EZ : Component.HZ, v.at());
-        if (signal instanceof SignalSpec.GaussianDerivative) {
-            ctx.error(signal.at(), v.path("signal"), "a plane wave needs a narrow-band signal so that its in-plane wavenumber "
-                    + "means one angle near its centre; expected pulse or ramped_wave");
-            return null;
-        }
-        return y == null || angle == null || direction == null || amp == null || signal == null || comp == null ? null
-                : new SourceSpec.PlaneWave(y, angle, direction, comp, amp, signal, e.at());
-    }
-
-    /** The centre frequency of the case's plane wave, else of its first source; null when unknown. */
+    /** The centre frequency of the case's plane wave or beam, else of its first source; null when unknown. */
     private Value centreFrequency() {
         for (SourceSpec s : sources) {
-            if (s instanceof SourceSpec.PlaneWave) {
+            if (s instanceof SourceSpec.Launched) {
                 return s.signal().frequency();
             }
         }

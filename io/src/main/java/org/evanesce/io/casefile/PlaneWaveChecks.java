@@ -7,10 +7,11 @@ import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.solver.grid.Side;
 
 /**
- * Checks of a plane wave and the flux lines normalised by it: periodic sides, one transparent
- * material along the launching line, one plane wave as the only source when flux is asked for,
- * lines inside the interior and off the launching row, and frequencies at which the plane wave
- * propagates in its medium and carries power.
+ * Checks of a launched source (plane wave or Gaussian beam) and the flux lines normalised by it:
+ * periodic sides for a plane wave and none for a beam, one transparent material along the
+ * launching line (for a beam, along the part of it the beam crosses), one launched source as the
+ * only source when flux is asked for, lines inside the interior and off the launching row, and
+ * frequencies at which the wave propagates in its medium and carries power.
  */
 final class PlaneWaveChecks {
 
@@ -36,41 +37,45 @@ final class PlaneWaveChecks {
     void run() {
         List<Integer> waves = new ArrayList<>();
         for (int k = 0; k < p.sources.size(); k++) {
-            if (p.sources.get(k) instanceof SourceSpec.PlaneWave) {
+            if (p.sources.get(k) instanceof SourceSpec.Launched) {
                 waves.add(k);
             }
         }
         boolean periodic = p.boundaries.get(Side.LEFT) instanceof BoundarySpec.Periodic;
         for (int n = 0; n < waves.size(); n++) {
             int k = waves.get(n);
-            SourceSpec.PlaneWave w = (SourceSpec.PlaneWave) p.sources.get(k);
-            if (!periodic) {
+            SourceSpec.Launched w = (SourceSpec.Launched) p.sources.get(k);
+            if (w instanceof SourceSpec.PlaneWave && !periodic) {
                 ctx.error(w.at(), p.sourcePaths.get(k), "a plane wave spans the whole width and needs periodic left and right "
                         + "sides; expected boundaries: {left: periodic, right: periodic}");
             }
+            if (w instanceof SourceSpec.GaussianBeamSource && periodic) {
+                ctx.error(w.at(), p.sourcePaths.get(k), "periodic sides would repeat the beam side by side; a Gaussian beam "
+                        + "needs absorbing (pml) or mirror (pec, pmc) left and right sides");
+            }
             if (n > 0) {
-                ctx.error(w.at(), p.sourcePaths.get(k), "a case has at most one plane wave: its in-plane wavenumber sets the "
-                        + "periodic sides' phase; the first is " + p.sourcePaths.get(waves.get(0)));
+                ctx.error(w.at(), p.sourcePaths.get(k), "a case has at most one plane wave or Gaussian beam (it sets the "
+                        + "incident power and angle); the first is " + p.sourcePaths.get(waves.get(0)));
             }
         }
         MaterialSpec medium = null;
-        SourceSpec.PlaneWave wave = null;
+        SourceSpec.Launched wave = null;
         if (!waves.isEmpty()) {
-            wave = (SourceSpec.PlaneWave) p.sources.get(waves.get(0));
+            wave = (SourceSpec.Launched) p.sources.get(waves.get(0));
             medium = launchMedium(wave, p.sourcePaths.get(waves.get(0)));
         }
         if (p.flux == null) {
             return;
         }
         if (wave == null) {
-            ctx.error(p.flux.at(), "flux", "flux lines are normalised by the incident power of a plane wave; add a "
-                    + "plane_wave source (finite beams are not normalised in this version)");
+            ctx.error(p.flux.at(), "flux", "flux lines are normalised by the incident power of a plane wave or a Gaussian "
+                    + "beam; add a plane_wave or gaussian_beam source");
             return;
         }
         for (int k = 0; k < p.sources.size(); k++) {
-            if (!(p.sources.get(k) instanceof SourceSpec.PlaneWave)) {
-                ctx.error(p.sources.get(k).at(), p.sourcePaths.get(k), "with flux lines the plane wave must be the only "
-                        + "source: the incident power is measured from it alone");
+            if (!(p.sources.get(k) instanceof SourceSpec.Launched)) {
+                ctx.error(p.sources.get(k).at(), p.sourcePaths.get(k), "with flux lines the plane wave or beam must be the "
+                        + "only source: the incident power is measured from it alone");
             }
         }
         lines(wave);
@@ -79,8 +84,11 @@ final class PlaneWaveChecks {
         }
     }
 
-    /** The one transparent material along the launching line, or null (errors reported). */
-    private MaterialSpec launchMedium(SourceSpec.PlaneWave w, String path) {
+    /**
+     * The one transparent material along the launching line (a beam's: over
+     * {@link SourceSpec.GaussianBeamSource#reach()} either side of its axis), or null (errors reported).
+     */
+    private MaterialSpec launchMedium(SourceSpec.Launched w, String path) {
         if (p.domain == null || !p.shapesComplete || !p.materialsComplete) {
             return null;
         }
@@ -90,15 +98,30 @@ final class PlaneWaveChecks {
                     + "to %s)", fmt(y), fmt(p.domain.yMin()), fmt(p.domain.yMax())));
             return null;
         }
+        double from = p.domain.xMin();
+        double to = p.domain.xMax();
+        if (w instanceof SourceSpec.GaussianBeamSource b) {
+            double reach = b.reach();
+            from = Math.max(from, b.axisAtLine() - reach);
+            to = Math.min(to, b.axisAtLine() + reach);
+            if (!(from < to)) {
+                ctx.error(b.waistAt().at(), path + ".waist_at", String.format("the beam's axis crosses its launching line at "
+                        + "x = %s, outside the domain (x from %s to %s)", fmt(b.axisAtLine()), fmt(p.domain.xMin()),
+                        fmt(p.domain.xMax())));
+                return null;
+            }
+        }
         String first = null;
         for (int q = 0; q < LINE_SAMPLES; q++) {
-            double x = p.domain.xMin() + (p.domain.xMax() - p.domain.xMin()) * q / (LINE_SAMPLES - 1);
+            double x = from + (to - from) * q / (LINE_SAMPLES - 1);
             String m = CaseSpec.materialAt(p.shapes, p.domain.background().value(), x, y);
             if (first == null) {
                 first = m;
             } else if (!m.equals(first)) {
                 ctx.error(w.y().at(), path + ".y", String.format("the launching line at y = %s crosses %s (at x = %s) and %s "
-                        + "(at x = %s); it must lie in one material", fmt(y), first, fmt(p.domain.xMin()), m, fmt(x)));
+                        + "(at x = %s)%s; it must lie in one material", fmt(y), first, fmt(from), m, fmt(x),
+                        w instanceof SourceSpec.GaussianBeamSource ? String.format(" within %s beam footprints of the axis",
+                                Units.number(SourceSpec.GaussianBeamSource.SPAN_FOOTPRINTS)) : ""));
                 return null;
             }
         }
@@ -112,7 +135,7 @@ final class PlaneWaveChecks {
         return m;
     }
 
-    private void lines(SourceSpec.PlaneWave w) {
+    private void lines(SourceSpec.Launched w) {
         if (p.resolution == null || p.domain == null || p.boundaries.size() != Side.values().length) {
             return;
         }
@@ -133,14 +156,14 @@ final class PlaneWaveChecks {
                         + "launching line at y = %s; move it at least %s away", fmt(y), fmt(1.5 * cell), fmt(w.y().si()),
                         fmt(2 * cell)));
             } else if (gap < 0 && line.measures().value() == FluxSpec.Measure.TRANSMITTED) {
-                ctx.warn(line.y().at(), path, String.format("the line at y = %s lies behind the plane wave (launched %s from y = %s) "
+                ctx.warn(line.y().at(), path, String.format("the line at y = %s lies behind the source (launched %s from y = %s) "
                         + "but measures 'transmitted'; it sees the wave the source sends backwards (did you mean 'reflected'?)",
                         fmt(y), w.direction().value().name().toLowerCase(java.util.Locale.ROOT), fmt(w.y().si())));
             }
         }
     }
 
-    private void frequencies(SourceSpec.PlaneWave w, MaterialSpec medium) {
+    private void frequencies(SourceSpec.Launched w, MaterialSpec medium) {
         double n = medium.index();
         double centre = w.signal().frequency().si();
         double sin = Math.sin(w.angle().si());
@@ -149,7 +172,7 @@ final class PlaneWaveChecks {
             double s = sin * centre / f.si();
             String what = String.format("%s (%s)", Units.format(SignalSpec.SPEED_OF_LIGHT / f.si(), Dimension.LENGTH),
                     Units.format(f.si(), Dimension.FREQUENCY));
-            if (Math.abs(s) >= 1) {
+            if (w instanceof SourceSpec.PlaneWave && Math.abs(s) >= 1) {
                 double fMin = Math.abs(sin) * centre;
                 ctx.error(f.at(), "flux", String.format("at %s the plane wave's in-plane wavenumber exceeds the wavenumber in %s "
                         + "(n = %s): no incident wave propagates there; expected frequencies above %s (wavelengths below %s)",

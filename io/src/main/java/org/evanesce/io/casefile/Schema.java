@@ -41,12 +41,14 @@ final class Schema {
     static final Section BOUNDARIES = new Section("boundaries", List.of("all", "left", "right", "bottom", "top"));
 
     /** The kinds of source. */
-    static final Section SOURCES = new Section("sources[]", List.of("point", "line", "plane_wave"));
+    static final Section SOURCES = new Section("sources[]", List.of("point", "line", "plane_wave", "gaussian_beam"));
     static final Section POINT_SOURCE = new Section("sources[].point", List.of("at", "component", "amplitude", "signal"));
     static final Section LINE_SOURCE = new Section("sources[].line", List.of("from", "to", "component", "amplitude",
             "angle", "waist", "signal"));
     static final Section PLANE_WAVE = new Section("sources[].plane_wave", List.of("y", "angle", "direction", "amplitude",
             "signal"));
+    static final Section GAUSSIAN_BEAM = new Section("sources[].gaussian_beam", List.of("y", "waist", "waist_at", "angle",
+            "direction", "amplitude", "signal"));
 
     /** The kinds of signal. */
     static final Section SIGNAL = new Section("signal", List.of("pulse", "ramped_wave", "gaussian_derivative"));
@@ -65,7 +67,7 @@ final class Schema {
             "dispersion_correction"));
 
     static final List<Section> ALL = List.of(ROOT, DOMAIN, RESOLUTION, MATERIAL, SHAPES, RECTANGLE, POLYGON, DISK,
-            ELLIPSE, HALF_PLANE, LAYER_STACK, LAYER, BOUNDARIES, SOURCES, POINT_SOURCE, LINE_SOURCE, PLANE_WAVE, SIGNAL,
+            ELLIPSE, HALF_PLANE, LAYER_STACK, LAYER, BOUNDARIES, SOURCES, POINT_SOURCE, LINE_SOURCE, PLANE_WAVE, GAUSSIAN_BEAM, SIGNAL,
             PULSE, RAMPED_WAVE, GAUSSIAN_DERIVATIVE, PROBE, FLUX, WAVELENGTH_RANGE, FREQUENCY_RANGE, FLUX_LINE, OUTPUT, STOP,
             NUMERICS);
 

@@ -82,6 +82,21 @@ public sealed interface SourceSpec {
     }
 
     /**
+     * A wave launched one way from a horizontal line at height {@link #y}: travelling in
+     * {@link #direction}, at {@link #angle} from that direction's normal, turned towards +x, in the
+     * material at the line.
+     */
+    sealed interface Launched extends SourceSpec {
+        /** The launching line's height, m. */
+        Value y();
+
+        /** The angle of incidence at the centre frequency, rad. */
+        Value angle();
+
+        Located<Direction> direction();
+    }
+
+    /**
      * A plane wave launched from a horizontal line across the whole (periodic) width at height
      * {@code y}: a current sheet driving Ez (s) or Hz (p) with the phase e^{i kx x}, kx = n k0 sin θ at
      * the signal's centre frequency in the material at the line (n its index). The sheet radiates
@@ -90,7 +105,7 @@ public sealed interface SourceSpec {
      * angle, sin θ(f) = kx c0 / (2π f n).
      */
     record PlaneWave(Value y, Value angle, Located<Direction> direction, Located<Component> component, Value amplitude,
-            SignalSpec signal, SourcePosition at) implements SourceSpec {
+            SignalSpec signal, SourcePosition at) implements Launched {
 
         @Override
         public String kind() {
@@ -100,6 +115,45 @@ public sealed interface SourceSpec {
         @Override
         public double[] centre() {
             return new double[] {0, y.si()};
+        }
+    }
+
+    /**
+     * A 2D Gaussian beam injected one way through a total-field/scattered-field line at height
+     * {@code y} (the total field lies on the side the beam travels to): waist radius {@code waist}
+     * (the field falls to 1/e at that distance from the axis at the waist), waist centre
+     * {@code waistAt}, travelling in {@code direction} at {@code angle} from its normal, turned
+     * towards +x. The line lies in one lossless material; the z component (Ez for s, η0Hz for p) is
+     * {@code amplitude} at the waist centre.
+     */
+    record GaussianBeamSource(Value y, Value waist, Point waistAt, Value angle, Located<Direction> direction,
+            Located<Component> component, Value amplitude, SignalSpec signal, SourcePosition at) implements Launched {
+
+        @Override
+        public String kind() {
+            return "gaussian_beam";
+        }
+
+        @Override
+        public double[] centre() {
+            return new double[] {waistAt.x().si(), waistAt.y().si()};
+        }
+
+        /**
+         * The launching line is used, and must lie in one material, this many footprints (waist / cos θ)
+         * either side of the axis: there the field is e^−16 of its peak.
+         */
+        public static final double SPAN_FOOTPRINTS = 4;
+
+        /** Half the used length of the launching line, m. */
+        public double reach() {
+            return SPAN_FOOTPRINTS * waist.si() / Math.cos(angle.si());
+        }
+
+        /** Where the beam's axis crosses the launching line, x in m. */
+        public double axisAtLine() {
+            double dy = y.si() - waistAt.y().si();
+            return waistAt.x().si() + dy * Math.tan(angle.si()) * direction.value().sign();
         }
     }
 }

@@ -39,7 +39,10 @@ import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Side;
 import org.evanesce.solver.kernel.Engine;
 import org.evanesce.solver.monitor.Probe;
+import org.evanesce.solver.source.CarrierSignal;
+import org.evanesce.solver.source.GaussianBeam;
 import org.evanesce.solver.source.GaussianPulse;
+import org.evanesce.solver.source.IncidentSheet;
 import org.evanesce.solver.source.Source;
 import org.evanesce.solver.source.TimeSignal;
 
@@ -85,9 +88,17 @@ public final class CasePlanner {
         Scene scene = scene(materials);
         Map<Side, Boundary> sides = boundaries(PlaneWaves.kx(spec));
         List<Source> sources = new ArrayList<>();
+        List<IncidentSheet> sheets = new ArrayList<>();
         double fade = 0;
         for (int k = 0; k < spec.sources().size(); k++) {
             SourceSpec s = spec.sources().get(k);
+            if (s instanceof SourceSpec.GaussianBeamSource beam) {
+                List<IncidentSheet> pair = beam(beam, k, grid, sides, materials, dt);
+                sheets.addAll(pair);
+                double latest = pair.stream().flatMapToDouble(p -> java.util.Arrays.stream(p.delays())).max().orElse(0);
+                fade = Math.max(fade, fadeTime(signal(beam.signal())) + latest);
+                continue;
+            }
             Source src = source(s, k, grid, sides);
             if (src != null) {
                 sources.add(src);
@@ -114,6 +125,7 @@ public final class CasePlanner {
                 sb.threads(t);
             }
             sources.forEach(sb::source);
+            sheets.forEach(sb::incident);
             return sb;
         };
         MaterialGrid mg = Rasterizer.rasterize(scene, grid, Smoothing.ANISOTROPIC);
@@ -297,6 +309,26 @@ public final class CasePlanner {
                 double[] amp = new double[cells.size()];
                 java.util.Arrays.fill(amp, l.amplitude().si());
                 return new Source(c, cells.stream().mapToInt(Integer::intValue).toArray(), amp, signal);
+        }
+    }
+
+    /** The pair of total-field/scattered-field sheets of a Gaussian beam (GaussianBeam), or none (error reported). */
+    private List<IncidentSheet> beam(SourceSpec.GaussianBeamSource b, int k, GridSpec g, Map<Side, Boundary> sides,
+                                     Map<String, Material> materials, double dt) {
+        String path = "sources[" + k + "].gaussian_beam";
+        Material medium = materials.get(spec.materialAt(b.axisAtLine(), b.y().si()));
+        double reach = b.reach();
+        Component c = b.component().value() == Component.EZ ? Component.EZ : Component.EX;
+        int row = nearest(b.y().si(), g.y0(), g.cellSize(), c.dy);
+        GaussianBeam.Spec beam = new GaussianBeam.Spec(spec.polarization().value(), b.waist().si(), b.waistAt().x().si(),
+                b.waistAt().y().si(), b.angle().si(), b.direction().value() == SourceSpec.Direction.UP,
+                medium.relativePermittivity(), b.amplitude().si(), (CarrierSignal) signal(b.signal()));
+        try {
+            return GaussianBeam.sheets(beam, sides, g.nx(), g.ny(), g.x0(), g.y0(), g.cellSize(), dt, row,
+                    b.axisAtLine() - reach, b.axisAtLine() + reach);
+        } catch (IllegalArgumentException e) {
+            error(b.at(), path + ".y", e.getMessage());
+            return List.of();
         }
     }
 

@@ -4,6 +4,7 @@ import java.util.List;
 import java.util.Optional;
 import java.util.function.DoubleFunction;
 import org.evanesce.io.casefile.FluxSpec;
+import org.evanesce.io.casefile.SourceSpec;
 import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.monitor.FluxLine;
@@ -26,12 +27,24 @@ import org.evanesce.solver.reference.PlanarStack;
  * @param incidentY      where that line lies, m
  * @param reference      the reference run, ready to build (lines registered)
  * @param cellSize       Δ, m
- * @param transferMatrix for a layered scene: the exact stack at a vacuum wavelength, from the source's medium
- *                       towards {@code direction}
+ * @param exact          the exact reference when asked for: the stack at a vacuum wavelength, from the source's
+ *                       medium towards {@code direction} (for a beam, the stack under it)
+ * @param beam           the Gaussian beam, when the source is one (else a plane wave)
+ * @param gridX0         x of node column 0, m
  */
 public record FluxPlan(double[] frequencies, double kx, String medium, double mediumIndex, int direction, List<Line> lines,
                        FluxLine incident, double incidentY, Simulation.Builder reference, double cellSize,
-                       Optional<DoubleFunction<PlanarStack>> transferMatrix) {
+                       Optional<Exact> exact, Optional<SourceSpec.GaussianBeamSource> beam, double gridX0) {
+
+    /**
+     * The exact reference.
+     *
+     * @param stack          the stack at a vacuum wavelength (m)
+     * @param firstInterface y of the first interface the wave meets, m
+     * @param column         x of the vertical the stack was read along (a beam's axis meets the first interface
+     *                       there; 0 for a plane wave)
+     */
+    public record Exact(DoubleFunction<PlanarStack> stack, double firstInterface, double column) { }
 
     public FluxPlan {
         frequencies = frequencies.clone();
@@ -49,8 +62,14 @@ public record FluxPlan(double[] frequencies, double kx, String medium, double me
      */
     public record Line(FluxSpec.Line spec, int row, double y, FluxLine run, FluxLine reference) { }
 
-    /** The angle of incidence in the plane wave's medium at frequency number q, radians: sin θ = kx c0 / (2π f n). */
+    /**
+     * The angle of incidence in the source's medium at frequency number q, radians: for a plane wave
+     * sin θ = kx c0 / (2π f n); a beam keeps its axis at every frequency.
+     */
     public double angle(int q) {
+        if (beam.isPresent()) {
+            return beam.get().angle().si();
+        }
         return Math.asin(kx * PhysicalConstants.C0 / (2 * Math.PI * frequencies[q] * mediumIndex));
     }
 

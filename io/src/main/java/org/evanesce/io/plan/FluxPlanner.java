@@ -4,7 +4,6 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
-import java.util.function.DoubleFunction;
 import java.util.function.Function;
 import org.evanesce.geometry.GridSpec;
 import org.evanesce.geometry.Material;
@@ -23,7 +22,6 @@ import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.monitor.FluxLine;
-import org.evanesce.solver.reference.PlanarStack;
 
 /** Plans a case's flux lines, the reference run that normalises them and, for a layered scene, the exact stack. */
 final class FluxPlanner {
@@ -46,7 +44,11 @@ final class FluxPlanner {
                          Simulation.Builder run, Function<MaterialGrid, Simulation.Builder> configured,
                          CasePlan.Stop stop, double dt, List<Diagnostic> errors) {
         FluxSpec f = spec.flux().orElseThrow();
-        SourceSpec.PlaneWave w = PlaneWaves.of(spec).orElseThrow();
+        SourceSpec.Launched w = PlaneWaves.launched(spec).orElseThrow();
+        // lines span the whole width with periodic sides, else the interior between the side PMLs
+        boolean periodic = w instanceof SourceSpec.PlaneWave;
+        int i0 = periodic ? 0 : interior[0];
+        int i1 = periodic ? grid.nx() : interior[2];
         MaterialSpec medium = PlaneWaves.medium(spec, w);
         double[] freqs = f.frequencies().stream().mapToDouble(v -> v.si()).toArray();
         double dx = grid.cellSize();
@@ -60,8 +62,8 @@ final class FluxPlanner {
         List<FluxPlan.Line> lines = new ArrayList<>();
         for (FluxSpec.Line l : f.lines()) {
             int row = CasePlanner.nearest(l.y().si(), grid.y0(), dx, 0.5);
-            FluxLine a = windowed(new FluxLine(pol, row, 0, grid.nx(), freqs), window);
-            FluxLine b = windowed(new FluxLine(pol, row, 0, grid.nx(), freqs), window);
+            FluxLine a = windowed(new FluxLine(pol, row, i0, i1, freqs), window);
+            FluxLine b = windowed(new FluxLine(pol, row, i0, i1, freqs), window);
             run.listener(a);
             reference.listener(b);
             lines.add(new FluxPlan.Line(l, row, grid.y0() + (row + 0.5) * dx, a, b));
@@ -71,15 +73,17 @@ final class FluxPlanner {
         int incidentRow = dir > 0 ? sourceRow + INCIDENT_OFFSET - 1 : sourceRow - INCIDENT_OFFSET;
         if (incidentRow < 1 || incidentRow + 2 >= grid.ny()) {
             errors.add(new Diagnostic(Diagnostic.Severity.ERROR, w.at(), "sources", String.format("the incident power is "
-                    + "read %d cells ahead of the plane wave, which is outside the grid; move the launching line away from "
+                    + "read %d cells ahead of the launching line, which is outside the grid; move the line away from "
                     + "the %s edge", INCIDENT_OFFSET, dir > 0 ? "top" : "bottom")));
         }
-        FluxLine incident = windowed(new FluxLine(pol, Math.max(0, incidentRow), 0, grid.nx(), freqs), window);
+        FluxLine incident = windowed(new FluxLine(pol, Math.max(0, incidentRow), i0, i1, freqs), window);
         reference.listener(incident);
-        Optional<DoubleFunction<PlanarStack>> tmm = f.transferMatrix().value()
+        Optional<FluxPlan.Exact> exact = f.transferMatrix().value()
                 ? transferMatrix(spec, grid, w, interior, errors) : Optional.empty();
+        Optional<SourceSpec.GaussianBeamSource> beam = w instanceof SourceSpec.GaussianBeamSource b
+                ? Optional.of(b) : Optional.empty();
         return new FluxPlan(freqs, PlaneWaves.kx(spec), medium.name(), medium.index(), dir, lines, incident,
-                grid.y0() + (incidentRow + 0.5) * dx, reference, dx, tmm);
+                grid.y0() + (incidentRow + 0.5) * dx, reference, dx, exact, beam, grid.x0());
     }
 
     private static FluxLine windowed(FluxLine l, double[] window) {
@@ -93,7 +97,7 @@ final class FluxPlanner {
      *
      * @return {start, end} in s, or null (error reported) when fewer than {@value #MIN_PERIODS} periods remain
      */
-    private static double[] continuousWindow(CaseSpec spec, GridSpec grid, SignalSpec.RampedWave rw, SourceSpec.PlaneWave w,
+    private static double[] continuousWindow(CaseSpec spec, GridSpec grid, SignalSpec.RampedWave rw, SourceSpec.Launched w,
                                              double end, List<Diagnostic> errors) {
         double nMax = 1;
         for (MaterialSpec m : spec.materials().values()) {
@@ -117,36 +121,46 @@ final class FluxPlanner {
     static final int MIN_PERIODS = 10;
 
     /**
-     * The exact stack of a layered scene, lit from the plane wave's side: the scene must be the same at
-     * every x over the interior, the plane wave's medium must reach back to the interior's edge behind
-     * it, transmitted lines must lie in the last medium and reflected ones in the first.
+     * The exact reference. For a plane wave the scene must be layered (the same at every x over the
+     * interior). For a Gaussian beam it is the stack under the beam: the bands along the vertical
+     * through the point where the beam's axis meets the first interface, whatever lies elsewhere (the
+     * edges are what the simulation adds). Either way the wave must be launched in the outermost
+     * medium, transmitted lines lie in the last medium and reflected ones in the first.
      */
-    private static Optional<DoubleFunction<PlanarStack>> transferMatrix(CaseSpec spec, GridSpec grid, SourceSpec.PlaneWave w,
-                                                                      int[] interior, List<Diagnostic> errors) {
+    private static Optional<FluxPlan.Exact> transferMatrix(CaseSpec spec, GridSpec grid, SourceSpec.Launched w,
+                                                          int[] interior, List<Diagnostic> errors) {
         FluxSpec f = spec.flux().orElseThrow();
         double dx = grid.cellSize();
         double yLow = grid.y0() + interior[1] * dx;
         double yHigh = grid.y0() + (interior[3] - 1) * dx;
-        LayeredProfile.Result r = LayeredProfile.of(spec, grid.x0(), grid.x0() + grid.nx() * dx, yLow, yHigh, dx);
         String path = "flux.transfer_matrix";
-        if (!r.isLayered()) {
-            errors.add(new Diagnostic(Diagnostic.Severity.ERROR, f.transferMatrix().at(), path, "the scene is not layered (the "
-                    + "same at every x across the domain), so it has no exact plane-wave answer: " + r.whyNot()
-                    + "; expected horizontal layers (half_plane, layer_stack, or full-width rectangles) or "
-                    + "transfer_matrix: false"));
-            return Optional.empty();
-        }
-        List<LayeredProfile.Band> bands = r.bands().orElseThrow();
         boolean up = w.direction().value() == SourceSpec.Direction.UP;
+        List<LayeredProfile.Band> bands;
+        double column = 0;
+        if (w instanceof SourceSpec.GaussianBeamSource b) {
+            column = axisHit(spec, b, up ? yHigh : yLow, dx);
+            bands = LayeredProfile.bandsAt(spec, column, yLow, yHigh, dx);
+        } else {
+            LayeredProfile.Result r = LayeredProfile.of(spec, grid.x0(), grid.x0() + grid.nx() * dx, yLow, yHigh, dx);
+            if (!r.isLayered()) {
+                errors.add(new Diagnostic(Diagnostic.Severity.ERROR, f.transferMatrix().at(), path, "the scene is not layered (the "
+                        + "same at every x across the domain), so it has no exact plane-wave answer: " + r.whyNot()
+                        + "; expected horizontal layers (half_plane, layer_stack, or full-width rectangles) or "
+                        + "transfer_matrix: false"));
+                return Optional.empty();
+            }
+            bands = r.bands().orElseThrow();
+        }
         LayeredProfile.Band first = up ? bands.get(0) : bands.get(bands.size() - 1);
         LayeredProfile.Band last = up ? bands.get(bands.size() - 1) : bands.get(0);
         double ys = w.y().si();
         if (ys < first.yLow() || ys > first.yHigh()) {
             double edge = up ? first.yHigh() : first.yLow();
-            errors.add(new Diagnostic(Diagnostic.Severity.ERROR, w.y().at(), path, String.format("the plane wave at y = %s "
-                    + "has an interface behind it (at y = %s, %s meets %s); the exact answer is for a stack lit from one side: "
-                    + "launch the wave in the outermost medium", len(ys), len(edge), first.material(),
-                    bands.get(up ? 1 : bands.size() - 2).material())));
+            errors.add(new Diagnostic(Diagnostic.Severity.ERROR, w.y().at(), path, String.format("the source at y = %s "
+                    + "has an interface behind it (at y = %s, %s meets %s%s); the exact answer is for a stack lit from one "
+                    + "side: launch the wave in the outermost medium", len(ys), len(edge), first.material(),
+                    bands.get(up ? 1 : bands.size() - 2).material(),
+                    w instanceof SourceSpec.GaussianBeamSource ? ", under the beam at x = " + len(column) : "")));
             return Optional.empty();
         }
         for (int k = 0; k < f.lines().size(); k++) {
@@ -162,7 +176,46 @@ final class FluxPlanner {
             }
         }
         LayeredProfile.Direction dir = up ? LayeredProfile.Direction.UP : LayeredProfile.Direction.DOWN;
-        return Optional.of(wl -> LayeredProfile.stack(bands, spec.materials(), wl, dir));
+        double firstInterface = up ? first.yHigh() : first.yLow();
+        return Optional.of(new FluxPlan.Exact(wl -> LayeredProfile.stack(bands, spec.materials(), wl, dir), firstInterface,
+                column));
+    }
+
+    /**
+     * x where a beam's axis, followed from its launching line in its direction, first meets another
+     * material (bisected to 1e-6 of a cell); the axis's crossing of {@code yEnd} when it meets none.
+     */
+    static double axisHit(CaseSpec spec, SourceSpec.GaussianBeamSource b, double yEnd, double cell) {
+        double x0 = b.axisAtLine();
+        double y0 = b.y().si();
+        double tan = Math.tan(b.angle().si()) * b.direction().value().sign();
+        String start = spec.materialAt(x0, y0);
+        double length = Math.abs(yEnd - y0);
+        double step = cell / 8;
+        double prev = 0;
+        for (double d = step; d <= length + step; d += step) {
+            double s = Math.min(d, length);
+            double y = y0 + s * b.direction().value().sign();
+            if (!spec.materialAt(x0 + (y - y0) * tan, y).equals(start)) {
+                double a = prev;
+                double c = s;
+                while (c - a > 1e-6 * cell) {
+                    double m = 0.5 * (a + c);
+                    double ym = y0 + m * b.direction().value().sign();
+                    if (spec.materialAt(x0 + (ym - y0) * tan, ym).equals(start)) {
+                        a = m;
+                    } else {
+                        c = m;
+                    }
+                }
+                return x0 + c * b.direction().value().sign() * tan;
+            }
+            prev = s;
+            if (s == length) {
+                break;
+            }
+        }
+        return x0 + (yEnd - y0) * tan;
     }
 
     private static String len(double metres) {

@@ -17,9 +17,16 @@ final class PlaneWaves {
                 .findFirst();
     }
 
-    /** The material along the launching line. */
-    static MaterialSpec medium(CaseSpec spec, SourceSpec.PlaneWave w) {
-        return spec.materials().get(spec.materialAt(0, w.y().si()));
+    /** The case's plane wave or Gaussian beam (at most one). */
+    static Optional<SourceSpec.Launched> launched(CaseSpec spec) {
+        return spec.sources().stream().filter(s -> s instanceof SourceSpec.Launched).map(s -> (SourceSpec.Launched) s)
+                .findFirst();
+    }
+
+    /** The material along the launching line (for a beam, where its axis crosses it). */
+    static MaterialSpec medium(CaseSpec spec, SourceSpec.Launched w) {
+        double x = w instanceof SourceSpec.GaussianBeamSource b ? b.axisAtLine() : 0;
+        return spec.materials().get(spec.materialAt(x, w.y().si()));
     }
 
     /** kx = n k0 sin θ at the signal's centre frequency, rad/m; 0 without a plane wave. */

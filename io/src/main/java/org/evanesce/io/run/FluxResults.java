@@ -8,6 +8,8 @@ import java.util.Map;
 import org.evanesce.io.casefile.FluxSpec;
 import org.evanesce.io.plan.FluxPlan;
 import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.monitor.BeamProfile;
+import org.evanesce.solver.reference.AngularSpectrum;
 import org.evanesce.solver.reference.PlanarStack;
 
 /**
@@ -36,6 +38,9 @@ public record FluxResults(List<String> columns, List<Row> rows) {
      */
     public record Row(double frequency, double wavelength, double angleDegrees, double incidentPower, double[] values) { }
 
+    /** A line carrying less than this fraction of the incident power gets no centroid or width. */
+    static final double MIN_BEAM_POWER = 1e-3;
+
     /** Computes the table. */
     public static FluxResults of(FluxPlan plan, Polarization pol) {
         List<String> columns = new ArrayList<>();
@@ -47,29 +52,40 @@ public record FluxResults(List<String> columns, List<Row> rows) {
             reflected += t ? 0 : 1;
         }
         boolean absorptance = transmitted == 1 && reflected == 1;
-        boolean exact = plan.transferMatrix().isPresent();
+        boolean exact = plan.exact().isPresent();
+        boolean beam = plan.beam().isPresent();
+        // a plane wave: value, exact, diff; a beam: value, plane wave at its axis's angle, the beam (angular
+        // spectrum), diff against the beam
+        List<String> suffixes = !exact ? List.of() : beam ? List.of("_plane_wave", "_beam", "_diff") : List.of("_exact", "_diff");
         for (FluxPlan.Line l : plan.lines()) {
             String c = label(l);
             columns.add(c);
-            if (exact) {
-                columns.add(c + "_exact");
-                columns.add(c + "_diff");
-            }
+            suffixes.forEach(x -> columns.add(c + x));
         }
         if (absorptance) {
             columns.add("A");
-            if (exact) {
-                columns.add("A_exact");
-                columns.add("A_diff");
+            suffixes.forEach(x -> columns.add("A" + x));
+        }
+        if (beam) {
+            for (FluxPlan.Line l : plan.lines()) {
+                columns.add("centroid_" + l.spec().name().value() + "_um");
+                columns.add("width_" + l.spec().name().value() + "_um");
+                if (exact && l.spec().measures().value() == FluxSpec.Measure.REFLECTED) {
+                    columns.add("shift_" + l.spec().name().value() + "_um");
+                    columns.add("shift_" + l.spec().name().value() + "_beam_um");
+                }
             }
         }
         List<Row> rows = new ArrayList<>();
         double dx = plan.cellSize();
         int dir = plan.direction();
         for (int q = 0; q < plan.frequencies().length; q++) {
+            double wl = plan.wavelength(q);
             double incident = dir * plan.incident().flux(q, dx);
-            PlanarStack.Response r = exact ? plan.transferMatrix().get().apply(plan.wavelength(q))
-                    .atTransverseWavenumber(pol, plan.wavelength(q), plan.kx()) : null;
+            PlanarStack stack = exact ? plan.exact().get().stack().apply(wl) : null;
+            PlanarStack.Response r = !exact ? null : beam ? stack.atAngle(pol, wl, plan.angle(q))
+                    : stack.atTransverseWavenumber(pol, wl, plan.kx());
+            AngularSpectrum.Result as = exact && beam ? BeamReference.of(plan, stack, pol, wl) : null;
             double[] v = new double[columns.size()];
             int k = 0;
             double sum = 0;
@@ -82,6 +98,11 @@ public record FluxResults(List<String> columns, List<Row> rows) {
                 if (exact) {
                     double e = t ? r.transmittance() : r.reflectance();
                     v[k++] = e;
+                    if (beam) {
+                        double b = t ? as.transmittance() : as.reflectance();
+                        v[k++] = b;
+                        e = b;
+                    }
                     v[k++] = value - e;
                 }
             }
@@ -89,10 +110,29 @@ public record FluxResults(List<String> columns, List<Row> rows) {
                 v[k++] = 1 - sum;
                 if (exact) {
                     v[k++] = r.absorptance();
-                    v[k++] = 1 - sum - r.absorptance();
+                    double e = r.absorptance();
+                    if (beam) {
+                        e = 1 - as.reflectance() - as.transmittance();
+                        v[k++] = e;
+                    }
+                    v[k++] = 1 - sum - e;
                 }
             }
-            rows.add(new Row(plan.frequencies()[q], plan.wavelength(q), Math.toDegrees(plan.angle(q)), incident, v));
+            if (beam) {
+                for (FluxPlan.Line l : plan.lines()) {
+                    boolean t = l.spec().measures().value() == FluxSpec.Measure.TRANSMITTED;
+                    BeamProfile p = BeamProfile.of(l.run(), t ? null : l.reference(), q, dx, plan.gridX0());
+                    // a line that sees next to no power (an evanescent tail) has no beam to locate
+                    boolean seen = Math.abs(p.total()) > MIN_BEAM_POWER * Math.abs(incident);
+                    v[k++] = seen ? p.centroid() * 1e6 : Double.NaN;
+                    v[k++] = seen ? p.width() * 1e6 : Double.NaN;
+                    if (exact && !t) {
+                        v[k++] = seen ? (p.centroid() - BeamReference.specular(plan, l.y())) * 1e6 : Double.NaN;
+                        v[k++] = as.reflectedShift() * 1e6;
+                    }
+                }
+            }
+            rows.add(new Row(plan.frequencies()[q], wl, Math.toDegrees(plan.angle(q)), incident, v));
         }
         return new FluxResults(List.copyOf(columns), List.copyOf(rows));
     }
@@ -127,8 +167,24 @@ public record FluxResults(List<String> columns, List<Row> rows) {
         wave.put("medium", plan.medium());
         wave.put("medium_index", plan.mediumIndex());
         wave.put("direction", plan.direction() > 0 ? "up" : "down");
-        wave.put("in_plane_wavenumber_rad_per_m", plan.kx());
-        m.put("plane_wave", wave);
+        if (plan.beam().isPresent()) {
+            var b = plan.beam().get();
+            wave.put("waist_m", b.waist().si());
+            wave.put("waist_at_m", new double[] {b.waistAt().x().si(), b.waistAt().y().si()});
+            wave.put("angle_deg", Math.toDegrees(b.angle().si()));
+            m.put("gaussian_beam", wave);
+            if (plan.exact().isPresent()) {
+                m.put("beam_reference", "X_plane_wave: the plane wave at the beam's angle through the stack under the beam "
+                        + "(read along x = " + plan.exact().get().column() + " m, where the axis meets the first interface); "
+                        + "X_beam: the same beam through that stack by its angular spectrum (no edges); X_diff = simulated − "
+                        + "X_beam. X_beam − X_plane_wave is the part due to the beam's angular spread, X_diff the part due to "
+                        + "edges and geometry (and the grid). shift_name_um: the simulated reflected centroid minus the "
+                        + "specular one; shift_name_beam_um: the angular spectrum's");
+            }
+        } else {
+            wave.put("in_plane_wavenumber_rad_per_m", plan.kx());
+            m.put("plane_wave", wave);
+        }
         m.put("incident_line_y_m", plan.incidentY());
         List<Object> lines = new ArrayList<>();
         for (FluxPlan.Line l : plan.lines()) {
@@ -140,7 +196,7 @@ public record FluxResults(List<String> columns, List<Row> rows) {
             lines.add(e);
         }
         m.put("lines", lines);
-        m.put("transfer_matrix", plan.transferMatrix().isPresent()
+        m.put("transfer_matrix", plan.exact().isPresent()
                 ? "the exact plane-wave values of the layered scene (characteristic matrix, Born & Wolf sec. 1.6) with the "
                         + "same materials, evaluated at each frequency's in-plane wavenumber; *_diff = simulated − exact"
                 : null);

@@ -84,6 +84,11 @@ public record BeamProfile(double total, double centroid, double width, double[] 
         return fromFluxDensity(firstSite(line, cellSize, originX), cellSize, line.fluxDensity(q));
     }
 
+    /** The profile of the difference of {@code line}'s fields and {@code reference}'s (the scattered beam). */
+    public static BeamProfile of(FluxLine line, FluxLine reference, int q, double cellSize, double originX) {
+        return fromFluxDensity(firstSite(line, cellSize, originX), cellSize, line.fluxDensity(q, reference));
+    }
+
     /** Where the first cell's electric field sits, metres. */
     static double firstSite(FluxLine line, double cellSize, double originX) {
         return originX + (line.firstCell() + line.electricComponent().dx) * cellSize;

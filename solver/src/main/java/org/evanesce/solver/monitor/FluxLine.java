@@ -193,9 +193,24 @@ public final class FluxLine implements StepListener {
      * sign and normalisation of {@link #flux(int, double)}: its sum times the cell size is the flux.
      */
     public double[] fluxDensity(int q) {
+        return fluxDensity(q, null);
+    }
+
+    /** The per-cell flux density of the difference of this line's transforms and {@code reference}'s (as {@link #flux(int, double, FluxLine)}). */
+    public double[] fluxDensity(int q, FluxLine reference) {
         double[] s = new double[eRe[q].length];
         for (int k = 0; k < s.length; k++) {
-            s[k] = sign * 0.5 * (eRe[q][k] * hRe[q][k] + eIm[q][k] * hIm[q][k]) / PhysicalConstants.ETA0;
+            double er = eRe[q][k];
+            double ei = eIm[q][k];
+            double hr = hRe[q][k];
+            double hi = hIm[q][k];
+            if (reference != null) {
+                er -= reference.eRe[q][k];
+                ei -= reference.eIm[q][k];
+                hr -= reference.hRe[q][k];
+                hi -= reference.hIm[q][k];
+            }
+            s[k] = sign * 0.5 * (er * hr + ei * hi) / PhysicalConstants.ETA0;
         }
         return s;
     }

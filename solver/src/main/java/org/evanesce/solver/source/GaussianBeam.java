@@ -60,13 +60,23 @@ public final class GaussianBeam {
     }
 
     /**
-     * The two sheets that inject the beam on the line at {@code row}.
+     * The two sheets that inject the beam on the line at {@code row}, across the whole grid.
      *
      * @param x0 x of node column 0, m
      * @param y0 y of node row 0, m
      */
     public static List<IncidentSheet> sheets(Spec b, Map<Side, Boundary> sides, int nx, int ny, double x0, double y0,
                                              double dx, double dt, int row) {
+        return sheets(b, sides, nx, ny, x0, y0, dx, dt, row, Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY);
+    }
+
+    /**
+     * The same on the part of the line from x = {@code xFrom} to {@code xTo} (m): the medium need be
+     * homogeneous only there, and the beam's field beyond should be negligible (at four footprints
+     * w0/cos θ from the axis it is e^−16 of its peak).
+     */
+    public static List<IncidentSheet> sheets(Spec b, Map<Side, Boundary> sides, int nx, int ny, double x0, double y0,
+                                             double dx, double dt, int row, double xFrom, double xTo) {
         boolean s = b.polarization() == Polarization.S;
         Component eComp = s ? Component.EZ : Component.EX;
         Component hComp = s ? Component.HX : Component.HZ;
@@ -83,7 +93,9 @@ public final class GaussianBeam {
         double cos = Math.cos(b.angle()) * (b.up() ? 1 : -1);
         List<Integer> cells = new ArrayList<>();
         for (int i = 0; i < nx; i++) {
-            if (Engine.wouldUpdate(sides, nx, ny, eComp, i, row) && Engine.wouldUpdate(sides, nx, ny, hComp, i, hRow)) {
+            double x = x0 + (i + offset) * dx;
+            if (x >= xFrom && x <= xTo && Engine.wouldUpdate(sides, nx, ny, eComp, i, row)
+                    && Engine.wouldUpdate(sides, nx, ny, hComp, i, hRow)) {
                 cells.add(i);
             }
         }

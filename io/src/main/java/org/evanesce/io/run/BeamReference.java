@@ -1,0 +1,45 @@
+package org.evanesce.io.run;
+
+import org.evanesce.io.casefile.SourceSpec;
+import org.evanesce.io.plan.FluxPlan;
+import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.reference.AngularSpectrum;
+import org.evanesce.solver.reference.PlanarStack;
+
+/** The finite-beam reference of a beam case: the angular spectrum of the case's beam through the stack under it. */
+final class BeamReference {
+
+    /** The spectrum's window, in footprints (waist / cos θ): the beams and their shifts fit with room to spare. */
+    static final double WINDOW_FOOTPRINTS = 24;
+    /** Samples per wavelength in the source's medium: twice what holds every propagating component. */
+    static final double SAMPLES_PER_WAVELENGTH = 4;
+
+    private BeamReference() {
+    }
+
+    /** The angular-spectrum result of the plan's beam at vacuum wavelength {@code wl} (m). */
+    static AngularSpectrum.Result of(FluxPlan plan, PlanarStack stack, Polarization pol, double wl) {
+        SourceSpec.GaussianBeamSource b = plan.beam().orElseThrow();
+        double theta = b.angle().si();
+        // along the axis from the waist to where the axis meets the first interface
+        double distance = (plan.exact().orElseThrow().firstInterface() - b.waistAt().y().si()) * plan.direction()
+                / Math.cos(theta);
+        AngularSpectrum.GaussianBeam beam = new AngularSpectrum.GaussianBeam(b.waist().si(), theta, wl, distance);
+        double window = WINDOW_FOOTPRINTS * beam.footprint();
+        long needed = (long) Math.ceil(window / (wl / (SAMPLES_PER_WAVELENGTH * plan.mediumIndex())));
+        int samples = Integer.highestOneBit((int) Math.min(needed, 1 << 24) - 1) << 1;
+        return AngularSpectrum.of(stack, pol, beam, samples, window);
+    }
+
+    /**
+     * x where the specularly reflected axis crosses height y, m: the axis meets the first interface at
+     * x_hit and leaves it mirrored.
+     */
+    static double specular(FluxPlan plan, double y) {
+        SourceSpec.GaussianBeamSource b = plan.beam().orElseThrow();
+        double interfaceY = plan.exact().orElseThrow().firstInterface();
+        double tan = Math.tan(b.angle().si());
+        double hit = b.waistAt().x().si() + (interfaceY - b.waistAt().y().si()) * plan.direction() * tan;
+        return hit + Math.abs(interfaceY - y) * tan;
+    }
+}
