@@ -9,6 +9,8 @@ import org.evanesce.io.casefile.OutputSpec;
 import org.evanesce.io.output.Json;
 import org.evanesce.io.output.RunFolder;
 import org.evanesce.io.plan.CasePlan;
+import org.evanesce.io.plan.FluxPlan;
+import org.evanesce.io.run.BeamPlots;
 import org.evanesce.io.run.CaseRunner;
 import org.evanesce.io.run.FluxResults;
 import org.evanesce.io.run.FluxTable;
@@ -48,6 +50,8 @@ final class CaseExecution {
         if (flux != null) {
             rf.writeText("flux.csv", flux.csv());
             rf.writeText("summary.json", Json.write(RunOutputs.summary(plan, flux)));
+            FluxPlan f = plan.flux().get();
+            BeamPlots.write(f, s.polarization().value(), f.closest(s.sources().get(0).signal().frequency().si()), rf.dir());
         }
         if (s.output().writes(OutputSpec.Item.PROBES)) {
             rf.writeText("probes.csv", RunOutputs.probesCsv(plan.probes()));

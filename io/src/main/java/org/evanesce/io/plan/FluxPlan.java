@@ -73,6 +73,17 @@ public record FluxPlan(double[] frequencies, double kx, String medium, double me
         return Math.asin(kx * PhysicalConstants.C0 / (2 * Math.PI * frequencies[q] * mediumIndex));
     }
 
+    /** The number of the frequency closest to f (Hz). */
+    public int closest(double f) {
+        int best = 0;
+        for (int q = 1; q < frequencies.length; q++) {
+            if (Math.abs(frequencies[q] - f) < Math.abs(frequencies[best] - f)) {
+                best = q;
+            }
+        }
+        return best;
+    }
+
     /** The vacuum wavelength at frequency number q, m. */
     public double wavelength(int q) {
         return PhysicalConstants.C0 / frequencies[q];

@@ -1,0 +1,94 @@
+package org.evanesce.io.run;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.Locale;
+import org.evanesce.io.casefile.FluxSpec;
+import org.evanesce.io.output.image.LinePlot;
+import org.evanesce.io.plan.FluxPlan;
+import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.monitor.BeamProfile;
+import org.evanesce.solver.reference.AngularSpectrum;
+import org.evanesce.solver.reference.PlanarStack;
+
+/**
+ * The beam profiles of a beam case as PNG plots, one per flux line: the simulated flux density
+ * across the line (the scattered part for a reflected line), each normalised to its peak, and,
+ * with a reference, the angular-spectrum profile of the same beam through the stack under it,
+ * carried from the interface to the line along the specular direction (reflected lines). Lines that
+ * see less than {@link FluxResults#MIN_BEAM_POWER} of the incident power are not drawn.
+ */
+public final class BeamPlots {
+
+    private BeamPlots() {
+    }
+
+    /**
+     * Writes {@code beam-NAME.png} into {@code dir} for each line, at frequency number q.
+     *
+     * @return the number of files written
+     */
+    public static int write(FluxPlan plan, Polarization pol, int q, Path dir) throws IOException {
+        if (plan.beam().isEmpty()) {
+            return 0;
+        }
+        double dx = plan.cellSize();
+        double wl = plan.wavelength(q);
+        AngularSpectrum.Result as = null;
+        if (plan.exact().isPresent()) {
+            PlanarStack stack = plan.exact().get().stack().apply(wl);
+            as = BeamReference.of(plan, stack, pol, wl);
+        }
+        int written = 0;
+        double incident = Math.abs(plan.incident().flux(q, dx));
+        for (FluxPlan.Line l : plan.lines()) {
+            boolean t = l.spec().measures().value() == FluxSpec.Measure.TRANSMITTED;
+            BeamProfile p = BeamProfile.of(l.run(), t ? null : l.reference(), q, dx, plan.gridX0());
+            if (!(Math.abs(p.total()) > FluxResults.MIN_BEAM_POWER * incident)) {
+                continue; // next to no power crosses this line (an evanescent tail): no beam to draw
+            }
+            double[] x = p.x().clone();
+            double[] y = normalised(p.weight());
+            for (int k = 0; k < x.length; k++) {
+                x[k] *= 1e6;
+            }
+            String name = l.spec().name().value();
+            LinePlot.Builder b = LinePlot.builder()
+                    .title(String.format(Locale.ROOT, "%s line '%s' at y = %.4g um, %.1f nm", t ? "transmitted" : "reflected",
+                            name, l.y() * 1e6, wl * 1e9))
+                    .xTitle("x (um)").yTitle("flux density (peak = 1)")
+                    .series("simulated", x, y, LinePlot.Style.LINES);
+            if (as != null && !t) {
+                // the reflected profile on the interface, moved to the line along the specular direction
+                double offset = BeamReference.specular(plan, l.y()) - BeamReference.specular(plan,
+                        plan.exact().get().firstInterface());
+                double hit = BeamReference.specular(plan, plan.exact().get().firstInterface());
+                double[] u = as.reflected();
+                double[] rx = new double[as.samples()];
+                double[] ry = new double[as.samples()];
+                for (int j = 0; j < rx.length; j++) {
+                    rx[j] = (hit + offset + as.x(j)) * 1e6;
+                    ry[j] = u[2 * j] * u[2 * j] + u[2 * j + 1] * u[2 * j + 1];
+                }
+                b.series("angular spectrum (no edges)", rx, normalised(ry), LinePlot.Style.LINES);
+            }
+            double span = x[x.length - 1] - x[0];
+            b.xRange(x[0], x[0] + span);
+            b.build().writePng(dir.resolve("beam-" + name + ".png"));
+            written++;
+        }
+        return written;
+    }
+
+    private static double[] normalised(double[] v) {
+        double peak = 0;
+        for (double a : v) {
+            peak = Math.max(peak, Math.abs(a));
+        }
+        double[] out = new double[v.length];
+        for (int k = 0; k < v.length; k++) {
+            out[k] = peak > 0 ? Math.abs(v[k]) / peak : 0;
+        }
+        return out;
+    }
+}
