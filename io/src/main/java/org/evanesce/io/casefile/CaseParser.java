@@ -851,9 +851,10 @@ final class CaseParser {
             Boolean b = ctx.choice(dn, v.path("dispersion_correction"), FluxReader.BOOLEANS);
             ok &= b != null;
             correction = b == null ? Optional.empty() : Optional.of(new Located<>(b, ctx.pos(dn)));
-            if (Boolean.TRUE.equals(b) && sources.stream().noneMatch(x -> x instanceof SourceSpec.PlaneWave) && sourcesComplete) {
-                ctx.error(ctx.pos(dn), v.path("dispersion_correction"), "the correction is made for a plane wave's frequency "
-                        + "and in-plane wavenumber, and the case has no plane_wave source; expected false or a plane wave");
+            if (Boolean.TRUE.equals(b) && sources.stream().noneMatch(x -> x instanceof SourceSpec.Launched) && sourcesComplete) {
+                ctx.error(ctx.pos(dn), v.path("dispersion_correction"), "the correction is made for the frequency and in-plane "
+                        + "wavenumber of a plane wave or a beam's axis, and the case has neither; expected false, or a "
+                        + "plane_wave or gaussian_beam source");
                 ok = false;
             }
         }

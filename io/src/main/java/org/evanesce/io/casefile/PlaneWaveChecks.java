@@ -102,6 +102,15 @@ final class PlaneWaveChecks {
         double to = p.domain.xMax();
         if (w instanceof SourceSpec.GaussianBeamSource b) {
             double reach = b.reach();
+            if (p.resolution != null && p.boundaries.size() == Side.values().length) {
+                double[] in = checks.interior();
+                if (b.axisAtLine() - reach < in[0] || b.axisAtLine() + reach > in[2]) {
+                    ctx.warn(b.waistAt().at(), path, String.format("the beam meets its launching line at x = %s and reaches "
+                            + "%s either side (%s footprints), beyond the interior (x from %s to %s): the beam is cut "
+                            + "where the line ends; widen the domain or move the beam", fmt(b.axisAtLine()), fmt(reach),
+                            Units.number(SourceSpec.GaussianBeamSource.SPAN_FOOTPRINTS), fmt(in[0]), fmt(in[2])));
+                }
+            }
             from = Math.max(from, b.axisAtLine() - reach);
             to = Math.min(to, b.axisAtLine() + reach);
             if (!(from < to)) {

@@ -141,9 +141,9 @@ public sealed interface SourceSpec {
 
         /**
          * The launching line is used, and must lie in one material, this many footprints (waist / cos θ)
-         * either side of the axis: there the field is e^−16 of its peak.
+         * either side of the axis: there the field is e^−9 of its peak (1e-8 of the peak power).
          */
-        public static final double SPAN_FOOTPRINTS = 4;
+        public static final double SPAN_FOOTPRINTS = 3;
 
         /** Half the used length of the launching line, m. */
         public double reach() {

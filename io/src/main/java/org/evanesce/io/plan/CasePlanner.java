@@ -158,12 +158,13 @@ public final class CasePlanner {
     }
 
     /**
-     * The materials as the grid uses them: with the dispersion correction (a plane-wave case, unless
-     * the case turns it off) each lossless material's permittivity is the one for which the grid's
-     * normal wavenumber is exact at the plane wave's centre frequency and kx.
+     * The materials as the grid uses them: with the dispersion correction (a plane-wave or beam case,
+     * unless the case turns it off) each lossless material's permittivity is the one for which the
+     * grid's normal wavenumber is exact at the centre frequency and kx of the plane wave (of a beam's
+     * axis).
      */
     private Map<String, Material> materials(double dx, double dt) {
-        Optional<SourceSpec.PlaneWave> wave = PlaneWaves.of(spec);
+        Optional<SourceSpec.Launched> wave = PlaneWaves.launched(spec);
         boolean correct = spec.numerics().correctsDispersion(wave.isPresent());
         Map<String, Material> out = new HashMap<>();
         for (MaterialSpec m : spec.materials().values()) {
@@ -171,7 +172,7 @@ public final class CasePlanner {
             if (correct && m.conductivity().si() == 0) {
                 double omega = 2 * Math.PI * wave.orElseThrow().signal().frequency().si();
                 try {
-                    eps = DispersionCorrection.permittivity(eps, PlaneWaves.kx(spec), omega, dx, dt);
+                    eps = DispersionCorrection.permittivity(eps, PlaneWaves.launchedKx(spec), omega, dx, dt);
                 } catch (IllegalArgumentException e) {
                     error(spec.numerics().dispersionCorrection().map(Located::at).orElse(wave.get().at()),
                             "numerics.dispersion_correction", "material " + m.name() + ": " + e.getMessage());
@@ -316,13 +317,15 @@ public final class CasePlanner {
     private List<IncidentSheet> beam(SourceSpec.GaussianBeamSource b, int k, GridSpec g, Map<Side, Boundary> sides,
                                      Map<String, Material> materials, double dt) {
         String path = "sources[" + k + "].gaussian_beam";
-        Material medium = materials.get(spec.materialAt(b.axisAtLine(), b.y().si()));
+        String name = spec.materialAt(b.axisAtLine(), b.y().si());
+        Material medium = materials.get(name);
         double reach = b.reach();
         Component c = b.component().value() == Component.EZ ? Component.EZ : Component.EX;
         int row = nearest(b.y().si(), g.y0(), g.cellSize(), c.dy);
         GaussianBeam.Spec beam = new GaussianBeam.Spec(spec.polarization().value(), b.waist().si(), b.waistAt().x().si(),
                 b.waistAt().y().si(), b.angle().si(), b.direction().value() == SourceSpec.Direction.UP,
-                medium.relativePermittivity(), b.amplitude().si(), (CarrierSignal) signal(b.signal()));
+                spec.materials().get(name).relativePermittivity().si(), medium.relativePermittivity(), b.amplitude().si(),
+                (CarrierSignal) signal(b.signal()));
         try {
             return GaussianBeam.sheets(beam, sides, g.nx(), g.ny(), g.x0(), g.y0(), g.cellSize(), dt, row,
                     b.axisAtLine() - reach, b.axisAtLine() + reach);

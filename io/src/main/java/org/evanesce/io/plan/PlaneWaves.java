@@ -29,6 +29,12 @@ final class PlaneWaves {
         return spec.materials().get(spec.materialAt(x, w.y().si()));
     }
 
+    /** The in-plane wavenumber of the case's plane wave or beam (its axis), n k0 sin θ at the centre frequency, rad/m. */
+    static double launchedKx(CaseSpec spec) {
+        return launched(spec).map(w -> 2 * Math.PI * w.signal().frequency().si() / PhysicalConstants.C0
+                * medium(spec, w).index() * Math.sin(w.angle().si())).orElse(0.0);
+    }
+
     /** kx = n k0 sin θ at the signal's centre frequency, rad/m; 0 without a plane wave. */
     static double kx(CaseSpec spec) {
         return of(spec).map(w -> 2 * Math.PI * w.signal().frequency().si() / PhysicalConstants.C0

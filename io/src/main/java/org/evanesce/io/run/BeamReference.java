@@ -32,6 +32,22 @@ final class BeamReference {
     }
 
     /**
+     * The angular spectrum's lateral shift of the reflected beam on the line at height y, m: its
+     * flux-weighted centroid there minus the specular position (see {@link #specular}).
+     */
+    static double reflectedShift(FluxPlan plan, PlanarStack stack, Polarization pol, double wl, double y) {
+        SourceSpec.GaussianBeamSource b = plan.beam().orElseThrow();
+        AngularSpectrum.Result r = of(plan, stack, pol, wl);
+        double d = Math.abs(plan.exact().orElseThrow().firstInterface() - y);
+        double window = r.samples() * r.spacing();
+        double theta = b.angle().si();
+        double distance = (plan.exact().orElseThrow().firstInterface() - b.waistAt().y().si()) * plan.direction()
+                / Math.cos(theta);
+        AngularSpectrum.GaussianBeam beam = new AngularSpectrum.GaussianBeam(b.waist().si(), theta, wl, distance);
+        return AngularSpectrum.reflectedCentroid(stack, pol, beam, r.samples(), window, d) - d * Math.tan(theta);
+    }
+
+    /**
      * x where the specularly reflected axis crosses height y, m: the axis meets the first interface at
      * x_hit and leaves it mirrored.
      */

@@ -128,7 +128,7 @@ public record FluxResults(List<String> columns, List<Row> rows) {
                     v[k++] = seen ? p.width() * 1e6 : Double.NaN;
                     if (exact && !t) {
                         v[k++] = seen ? (p.centroid() - BeamReference.specular(plan, l.y())) * 1e6 : Double.NaN;
-                        v[k++] = as.reflectedShift() * 1e6;
+                        v[k++] = BeamReference.reflectedShift(plan, stack, pol, wl, l.y()) * 1e6;
                     }
                 }
             }
@@ -179,7 +179,9 @@ public record FluxResults(List<String> columns, List<Row> rows) {
                         + "X_beam: the same beam through that stack by its angular spectrum (no edges); X_diff = simulated − "
                         + "X_beam. X_beam − X_plane_wave is the part due to the beam's angular spread, X_diff the part due to "
                         + "edges and geometry (and the grid). shift_name_um: the simulated reflected centroid minus the "
-                        + "specular one; shift_name_beam_um: the angular spectrum's");
+                        + "specular one; shift_name_beam_um: the angular spectrum's on the same line (flux-weighted, carried from "
+                        + "the interface to the line, so a reflected beam leaving at a slightly different mean angle is "
+                        + "compared where it is measured)");
             }
         } else {
             wave.put("in_plane_wavenumber_rad_per_m", plan.kx());

@@ -48,14 +48,28 @@ public final class GaussianBeam {
     private GaussianBeam() {
     }
 
-    /** The beam and its medium. */
+    /**
+     * The beam and its medium.
+     *
+     * @param epsilon     the medium's relative permittivity: sets k = √ε k0, so the beam's angles and waist
+     * @param gridEpsilon the permittivity the grid has there (differs from {@code epsilon} under a dispersion
+     *                    correction): sets the grid's normal wavenumbers and wave impedance
+     */
     public record Spec(Polarization polarization, double waist, double waistX, double waistY, double angle, boolean up,
-                       double epsilon, double amplitude, CarrierSignal signal) {
+                       double epsilon, double gridEpsilon, double amplitude, CarrierSignal signal) {
         public Spec {
-            if (!(waist > 0) || !(epsilon > 0) || !(Math.abs(angle) < Math.PI / 2) || !Double.isFinite(amplitude)) {
-                throw new IllegalArgumentException(String.format("Gaussian beam: waist %g m and ε %g must be positive, the "
-                        + "angle %g° within ±90°, the amplitude finite", waist, epsilon, Math.toDegrees(angle)));
+            if (!(waist > 0) || !(epsilon > 0) || !(gridEpsilon > 0) || !(Math.abs(angle) < Math.PI / 2)
+                    || !Double.isFinite(amplitude)) {
+                throw new IllegalArgumentException(String.format("Gaussian beam: waist %g m, ε %g and grid ε %g must be "
+                        + "positive, the angle %g° within ±90°, the amplitude finite", waist, epsilon, gridEpsilon,
+                        Math.toDegrees(angle)));
             }
+        }
+
+        /** A beam in a medium the grid holds as it is. */
+        public Spec(Polarization polarization, double waist, double waistX, double waistY, double angle, boolean up,
+                    double epsilon, double amplitude, CarrierSignal signal) {
+            this(polarization, waist, waistX, waistY, angle, up, epsilon, epsilon, amplitude, signal);
         }
     }
 
@@ -149,7 +163,7 @@ public final class GaussianBeam {
         double k = Math.sqrt(b.epsilon()) * 2 * Math.PI * b.signal().carrierFrequency() / PhysicalConstants.C0;
         double courant = PhysicalConstants.C0 * dt / dx;
         double sinW = Math.sin(Math.PI * b.signal().carrierFrequency() * dt);
-        double dispersion = b.epsilon() * sinW * sinW / (courant * courant);
+        double dispersion = b.gridEpsilon() * sinW * sinW / (courant * courant);
         boolean zComponent = (f == Field.ELECTRIC) == (b.polarization() == Polarization.S);
         double[] spectrum = new double[2 * size];
         double total = 0;
@@ -170,7 +184,7 @@ public final class GaussianBeam {
             double factor = 1;
             if (!zComponent) {
                 double h = courant * Math.sin(ky * dx / 2) / sinW;
-                factor = b.polarization() == Polarization.S ? h : -h / b.epsilon();
+                factor = b.polarization() == Polarization.S ? h : -h / b.gridEpsilon();
             }
             // propagate from the waist and move the origin from the waist to xStart
             double phase = ky * (y - b.waistY()) + kx * (xStart - b.waistX());
