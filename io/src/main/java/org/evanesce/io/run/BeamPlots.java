@@ -15,8 +15,10 @@ import org.evanesce.solver.reference.PlanarStack;
  * The beam profiles of a beam case as PNG plots, one per flux line: the simulated flux density
  * across the line (the scattered part for a reflected line), each normalised to its peak, and,
  * with a reference, the angular-spectrum profile of the same beam through the stack under it,
- * carried from the interface to the line along the specular direction (reflected lines). Lines that
- * see less than {@link FluxResults#MIN_BEAM_POWER} of the incident power are not drawn.
+ * carried from the interface to the line along the specular (reflected lines) or refracted
+ * (transmitted lines) direction: a geometric move for the eye, without the diffraction over that
+ * distance. Lines that see less than {@link FluxResults#MIN_BEAM_POWER} of the incident power are not
+ * drawn. {@code beam-incident.png} shows the incident beam on the reference run's incident line.
  */
 public final class BeamPlots {
 
@@ -58,26 +60,50 @@ public final class BeamPlots {
                             name, l.y() * 1e6, wl * 1e9))
                     .xTitle("x (um)").yTitle("flux density (peak = 1)")
                     .series("simulated", x, y, LinePlot.Style.LINES);
-            if (as != null && !t) {
-                // the reflected profile on the interface, moved to the line along the specular direction
-                double offset = BeamReference.specular(plan, l.y()) - BeamReference.specular(plan,
-                        plan.exact().get().firstInterface());
-                double hit = BeamReference.specular(plan, plan.exact().get().firstInterface());
-                double[] u = as.reflected();
-                double[] rx = new double[as.samples()];
-                double[] ry = new double[as.samples()];
-                for (int j = 0; j < rx.length; j++) {
-                    rx[j] = (hit + offset + as.x(j)) * 1e6;
-                    ry[j] = u[2 * j] * u[2 * j] + u[2 * j + 1] * u[2 * j + 1];
+            if (as != null) {
+                double interfaceY = plan.exact().get().firstInterface();
+                double hit = BeamReference.specular(plan, interfaceY);
+                double shift;
+                double[] u;
+                if (t) {
+                    // the transmitted profile on the last interface, carried to the line along the refracted axis
+                    PlanarStack stack = plan.exact().get().stack().apply(wl);
+                    double sinT = plan.mediumIndex() * Math.sin(plan.angle(q)) / stack.exitIndex().re();
+                    double thickness = stack.layers().stream().mapToDouble(PlanarStack.Layer::thickness).sum();
+                    double lastInterface = interfaceY + plan.direction() * thickness;
+                    shift = Math.abs(sinT) < 1 ? Math.abs(l.y() - lastInterface) * sinT / Math.sqrt(1 - sinT * sinT) : Double.NaN;
+                    u = as.transmitted();
+                } else {
+                    // the reflected profile on the interface, moved to the line along the specular direction
+                    shift = BeamReference.specular(plan, l.y()) - hit;
+                    u = as.reflected();
                 }
-                b.series("angular spectrum (no edges)", rx, normalised(ry), LinePlot.Style.LINES);
+                if (Double.isFinite(shift)) {
+                    double[] rx = new double[as.samples()];
+                    double[] ry = new double[as.samples()];
+                    for (int j = 0; j < rx.length; j++) {
+                        rx[j] = (hit + shift + as.x(j)) * 1e6;
+                        ry[j] = u[2 * j] * u[2 * j] + u[2 * j + 1] * u[2 * j + 1];
+                    }
+                    b.series("angular spectrum (no edges)", rx, normalised(ry), LinePlot.Style.LINES);
+                }
             }
             double span = x[x.length - 1] - x[0];
             b.xRange(x[0], x[0] + span);
             b.build().writePng(dir.resolve("beam-" + name + ".png"));
             written++;
         }
-        return written;
+        BeamProfile in = BeamProfile.of(plan.incident(), q, dx, plan.gridX0());
+        double[] ix = in.x().clone();
+        for (int k = 0; k < ix.length; k++) {
+            ix[k] *= 1e6;
+        }
+        LinePlot.builder().title(String.format(Locale.ROOT, "incident beam at y = %.4g um (reference run), %.1f nm",
+                        plan.incidentY() * 1e6, wl * 1e9))
+                .xTitle("x (um)").yTitle("flux density (peak = 1)")
+                .series("simulated", ix, normalised(in.weight()), LinePlot.Style.LINES)
+                .xRange(ix[0], ix[ix.length - 1]).build().writePng(dir.resolve("beam-incident.png"));
+        return written + 1;
     }
 
     private static double[] normalised(double[] v) {
