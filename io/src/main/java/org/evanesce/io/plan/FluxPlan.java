@@ -31,10 +31,13 @@ import org.evanesce.solver.reference.PlanarStack;
  *                       medium towards {@code direction} (for a beam, the stack under it)
  * @param beam           the Gaussian beam, when the source is one (else a plane wave)
  * @param gridX0         x of node column 0, m
+ * @param indexAt        the case's refractive index at (x, y), m (the real part, as the grid has it before any
+ *                       dispersion correction)
  */
 public record FluxPlan(double[] frequencies, double kx, String medium, double mediumIndex, int direction, List<Line> lines,
                        FluxLine incident, double incidentY, Simulation.Builder reference, double cellSize,
-                       Optional<Exact> exact, Optional<SourceSpec.GaussianBeamSource> beam, double gridX0) {
+                       Optional<Exact> exact, Optional<SourceSpec.GaussianBeamSource> beam, double gridX0,
+                       java.util.function.DoubleBinaryOperator indexAt) {
 
     /**
      * The exact reference.

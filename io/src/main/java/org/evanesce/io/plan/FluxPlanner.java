@@ -83,7 +83,8 @@ final class FluxPlanner {
         Optional<SourceSpec.GaussianBeamSource> beam = w instanceof SourceSpec.GaussianBeamSource b
                 ? Optional.of(b) : Optional.empty();
         return new FluxPlan(freqs, PlaneWaves.kx(spec), medium.name(), medium.index(), dir, lines, incident,
-                grid.y0() + (incidentRow + 0.5) * dx, reference, dx, exact, beam, grid.x0());
+                grid.y0() + (incidentRow + 0.5) * dx, reference, dx, exact, beam, grid.x0(),
+                (x, y) -> spec.materials().get(spec.materialAt(x, y)).index());
     }
 
     private static FluxLine windowed(FluxLine l, double[] window) {

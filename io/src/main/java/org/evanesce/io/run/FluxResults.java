@@ -70,6 +70,7 @@ public record FluxResults(List<String> columns, List<Row> rows) {
             for (FluxPlan.Line l : plan.lines()) {
                 columns.add("centroid_" + l.spec().name().value() + "_um");
                 columns.add("width_" + l.spec().name().value() + "_um");
+                columns.add("angle_" + l.spec().name().value() + "_deg");
                 if (exact && l.spec().measures().value() == FluxSpec.Measure.REFLECTED) {
                     columns.add("shift_" + l.spec().name().value() + "_um");
                     columns.add("shift_" + l.spec().name().value() + "_beam_um");
@@ -126,6 +127,7 @@ public record FluxResults(List<String> columns, List<Row> rows) {
                     boolean seen = Math.abs(p.total()) > MIN_BEAM_POWER * Math.abs(incident);
                     v[k++] = seen ? p.centroid() * 1e6 : Double.NaN;
                     v[k++] = seen ? p.width() * 1e6 : Double.NaN;
+                    v[k++] = seen ? outgoingAngle(plan, l, t, q, p.centroid()) : Double.NaN;
                     if (exact && !t) {
                         v[k++] = seen ? (p.centroid() - BeamReference.specular(plan, l.y())) * 1e6 : Double.NaN;
                         v[k++] = BeamReference.reflectedShift(plan, stack, pol, wl, l.y()) * 1e6;
@@ -135,6 +137,30 @@ public record FluxResults(List<String> columns, List<Row> rows) {
             rows.add(new Row(plan.frequencies()[q], wl, Math.toDegrees(plan.angle(q)), incident, v));
         }
         return new FluxResults(List.copyOf(columns), List.copyOf(rows));
+    }
+
+    /** Zero padding of a line's field before its plane-wave spectrum is taken: a finer kx grid for the mean. */
+    static final int SPECTRUM_OVERSAMPLING = 4;
+
+    /**
+     * The beam's mean direction on a line, degrees from the normal towards +x: the power-weighted mean
+     * kx of the line's angular spectrum (the FFT of its transformed E, the scattered part for a
+     * reflected line) over n k0 in the material at the beam's centroid.
+     */
+    static double outgoingAngle(FluxPlan plan, FluxPlan.Line l, boolean transmitted, int q, double centroid) {
+        double[][] e = l.run().electricTransform(q);
+        if (!transmitted) {
+            double[][] r = l.reference().electricTransform(q);
+            for (int k = 0; k < e[0].length; k++) {
+                e[0][k] -= r[0][k];
+                e[1][k] -= r[1][k];
+            }
+        }
+        double dx = plan.cellSize();
+        double first = plan.gridX0() + (l.run().firstCell() + l.run().electricComponent().dx) * dx;
+        double kx = BeamProfile.PlaneWaveSpectrum.finiteLine(first, dx, e[0], e[1], SPECTRUM_OVERSAMPLING).meanWavenumber();
+        double k = plan.indexAt().applyAsDouble(centroid, l.y()) * 2 * Math.PI / plan.wavelength(q);
+        return Math.abs(kx) < k ? Math.toDegrees(Math.asin(kx / k)) : Double.NaN;
     }
 
     /** T_name for a transmitted line, R_name for a reflected one. */
