@@ -23,7 +23,6 @@ import org.evanesce.solver.grid.Side;
 import org.snakeyaml.engine.v2.nodes.MappingNode;
 import org.snakeyaml.engine.v2.nodes.Node;
 import org.snakeyaml.engine.v2.nodes.ScalarNode;
-import org.snakeyaml.engine.v2.nodes.SequenceNode;
 
 /**
  * Walks a composed case file section by section into the spec records. Problems are collected in
@@ -40,14 +39,10 @@ final class CaseParser {
     private static final Map<String, Polarization> POLARIZATIONS = ordered("s", Polarization.S, "p", Polarization.P);
     private static final Map<String, Precision> PRECISIONS = ordered("float", Precision.FLOAT, "double", Precision.DOUBLE);
     private static final Map<String, Component> COMPONENTS = new LinkedHashMap<>();
-    private static final Map<String, OutputSpec.Item> ITEMS = new LinkedHashMap<>();
 
     static {
         for (Component c : Component.values()) {
             COMPONENTS.put(c.name().toLowerCase(Locale.ROOT), c);
-        }
-        for (OutputSpec.Item i : OutputSpec.Item.values()) {
-            ITEMS.put(i.caseName(), i);
         }
     }
 
@@ -87,6 +82,8 @@ final class CaseParser {
     final List<String> probePaths = new ArrayList<>();
     final Map<Side, String> boundaryPaths = new EnumMap<>(Side.class);
     FluxSpec flux;
+    MapsSpec maps;
+    boolean mapsFailed;
     OutputSpec output;
     StopSpec stop;
     NumericsSpec numerics;
@@ -140,6 +137,8 @@ final class CaseParser {
         readBoundaries(top.get("boundaries"), top.has("boundaries") ? top.keyAt("boundaries") : top.at());
         readProbes(top.get("probes"));
         flux = new FluxReader(ctx).read(top.get("flux"), top.has("flux") ? top.keyAt("flux") : top.at(), centreFrequency());
+        maps = new OutputReader(ctx).readMaps(top.get("maps"), top.has("maps") ? top.keyAt("maps") : top.at(), centreFrequency());
+        mapsFailed = top.has("maps") && maps == null;
         Node o = top.get("output");
         readOutput(o == null ? null : MapView.of(ctx, o, Schema.OUTPUT, "output", top.keyAt("output")));
         Node s = top.require("stop", "a mapping with time, steps or decay");
@@ -722,54 +721,7 @@ final class CaseParser {
     }
 
     private void readOutput(MapView v) {
-        if (v == null) {
-            output = new OutputSpec(Optional.empty(), List.of(new Located<>(OutputSpec.Item.PROBES, new SourcePosition(ctx.source, 1, 1))),
-                    Optional.empty());
-            return;
-        }
-        Node fn = v.get("folder");
-        Optional<Located<String>> folder = Optional.empty();
-        boolean ok = true;
-        if (fn != null) {
-            String f = ctx.text(fn, v.path("folder"));
-            ok &= f != null;
-            folder = f == null ? Optional.empty() : Optional.of(new Located<>(f, ctx.pos(fn)));
-        }
-        List<Located<OutputSpec.Item>> write = new ArrayList<>();
-        Node wn = v.get("write");
-        if (wn == null) {
-            write.add(new Located<>(OutputSpec.Item.PROBES, v.at()));
-        } else {
-            List<Node> items = wn instanceof SequenceNode ? ctx.list(wn, v.path("write"), "") : List.of(wn);
-            for (int k = 0; k < items.size(); k++) {
-                String path = v.path("write") + (wn instanceof SequenceNode ? "[" + k + "]" : "");
-                OutputSpec.Item item = ctx.choice(items.get(k), path, ITEMS);
-                if (item == null) {
-                    ok = false;
-                } else if (write.stream().anyMatch(l -> l.value() == item)) {
-                    ctx.warn(ctx.pos(items.get(k)), path, item.caseName() + " is listed twice");
-                } else {
-                    write.add(new Located<>(item, ctx.pos(items.get(k))));
-                }
-            }
-        }
-        Node in = v.get("frame_interval");
-        Value interval = in == null ? null : ctx.positive(in, v.path("frame_interval"), Expect.TIME);
-        ok &= in == null || interval != null;
-        if (wn != null && probes.isEmpty() && write.stream().anyMatch(l -> l.value() == OutputSpec.Item.PROBES)) {
-            ctx.warn(write.stream().filter(l -> l.value() == OutputSpec.Item.PROBES).findFirst().orElseThrow().at(),
-                    v.path("write"), "probes is listed but the case defines no probes");
-        }
-        boolean frames = write.stream().anyMatch(l -> l.value() == OutputSpec.Item.FIELD_FRAMES);
-        if (frames && in == null) {
-            ctx.error(v.at(), v.path("frame_interval"), "missing, expected a time such as 5 fs: field_frames needs the time between frames");
-            ok = false;
-        } else if (!frames && interval != null) {
-            ctx.warn(interval.at(), v.path("frame_interval"), "ignored: write does not list field_frames");
-        }
-        if (ok) {
-            output = new OutputSpec(folder, write, Optional.ofNullable(interval));
-        }
+        output = new OutputReader(ctx).readOutput(v, !probes.isEmpty(), polarization);
     }
 
     private void readStop(MapView v) {

@@ -26,6 +26,7 @@ import org.evanesce.solver.grid.Side;
  * @param sources          at least one
  * @param probes           possibly none
  * @param flux             frequency-domain power through lines, when the case asks for it
+ * @param maps             frequency-domain field maps and decay fits, when the case asks for them
  * @param output           what to write
  * @param stop             when to stop
  * @param numerics         precision, threads, Courant number
@@ -33,7 +34,7 @@ import org.evanesce.solver.grid.Side;
 public record CaseSpec(String source, Optional<String> title, Map<String, Parameter> parameters,
         Located<Polarization> polarization, Value designWavelength, DomainSpec domain, ResolutionSpec resolution,
         Map<String, MaterialSpec> materials, List<ShapeSpec> shapes, Map<Side, BoundarySpec> boundaries,
-        List<SourceSpec> sources, List<ProbeSpec> probes, Optional<FluxSpec> flux, OutputSpec output, StopSpec stop, NumericsSpec numerics) {
+        List<SourceSpec> sources, List<ProbeSpec> probes, Optional<FluxSpec> flux, Optional<MapsSpec> maps, OutputSpec output, StopSpec stop, NumericsSpec numerics) {
 
     public CaseSpec {
         parameters = Collections.unmodifiableMap(new LinkedHashMap<>(parameters));

@@ -76,6 +76,11 @@ final class FluxReader {
 
     /** One value, a list, or {from, to, count}; returned as frequencies in Hz. */
     private List<Value> spectrum(Node node, String path, boolean wavelengths) {
+        return spectrum(ctx, node, path, wavelengths, wavelengths ? Schema.WAVELENGTH_RANGE : Schema.FREQUENCY_RANGE);
+    }
+
+    /** The same for any section that takes wavelengths or frequencies, with its own range section. */
+    static List<Value> spectrum(Context ctx, Node node, String path, boolean wavelengths, Schema.Section rangeSection) {
         Expect kind = wavelengths ? Expect.LENGTH : Expect.FREQUENCY;
         List<Value> given = new ArrayList<>();
         if (node instanceof SequenceNode s) {
@@ -93,7 +98,7 @@ final class FluxReader {
                 return null;
             }
         } else if (node instanceof MappingNode) {
-            MapView r = MapView.of(ctx, node, wavelengths ? Schema.WAVELENGTH_RANGE : Schema.FREQUENCY_RANGE, path, ctx.pos(node));
+            MapView r = MapView.of(ctx, node, rangeSection, path, ctx.pos(node));
             if (r == null) {
                 return null;
             }

@@ -22,7 +22,7 @@ final class Schema {
 
     static final Section ROOT = new Section("(top level)", List.of("title", "parameters", "design_wavelength",
             "design_frequency", "polarization", "domain", "resolution", "materials", "shapes", "boundaries", "sources",
-            "probes", "flux", "output", "stop", "numerics"));
+            "probes", "flux", "maps", "output", "stop", "numerics"));
     static final Section DOMAIN = new Section("domain", List.of("width", "height", "background"));
     static final Section RESOLUTION = new Section("resolution", List.of("cell", "cells_per_wavelength"));
     static final Section MATERIAL = new Section("materials.NAME", List.of("index", "permittivity", "library", "conductivity"));
@@ -61,14 +61,21 @@ final class Schema {
     static final Section WAVELENGTH_RANGE = new Section("flux.wavelengths", List.of("from", "to", "count"));
     static final Section FREQUENCY_RANGE = new Section("flux.frequencies", List.of("from", "to", "count"));
     static final Section FLUX_LINE = new Section("flux.lines[]", List.of("name", "y", "measures"));
-    static final Section OUTPUT = new Section("output", List.of("folder", "write", "frame_interval"));
+    static final Section OUTPUT = new Section("output", List.of("folder", "write", "frame_interval", "frame_times",
+            "components", "region"));
+    static final Section REGION = new Section("output.region", List.of("from", "to"));
+    static final Section MAPS = new Section("maps", List.of("wavelengths", "frequencies", "region", "log_decades", "decay"));
+    static final Section MAP_WAVELENGTH_RANGE = new Section("maps.wavelengths", List.of("from", "to", "count"));
+    static final Section MAP_FREQUENCY_RANGE = new Section("maps.frequencies", List.of("from", "to", "count"));
+    static final Section DECAY_LINE = new Section("maps.decay[]", List.of("name", "from", "to"));
     static final Section STOP = new Section("stop", List.of("time", "steps", "decay", "limit"));
     static final Section NUMERICS = new Section("numerics", List.of("precision", "threads", "courant",
             "dispersion_correction"));
 
     static final List<Section> ALL = List.of(ROOT, DOMAIN, RESOLUTION, MATERIAL, SHAPES, RECTANGLE, POLYGON, DISK,
             ELLIPSE, HALF_PLANE, LAYER_STACK, LAYER, BOUNDARIES, SOURCES, POINT_SOURCE, LINE_SOURCE, PLANE_WAVE, GAUSSIAN_BEAM, SIGNAL,
-            PULSE, RAMPED_WAVE, GAUSSIAN_DERIVATIVE, PROBE, FLUX, WAVELENGTH_RANGE, FREQUENCY_RANGE, FLUX_LINE, OUTPUT, STOP,
+            PULSE, RAMPED_WAVE, GAUSSIAN_DERIVATIVE, PROBE, FLUX, WAVELENGTH_RANGE, FREQUENCY_RANGE, FLUX_LINE, MAPS, MAP_WAVELENGTH_RANGE,
+            MAP_FREQUENCY_RANGE, DECAY_LINE, OUTPUT, REGION, STOP,
             NUMERICS);
 
     private Schema() {
