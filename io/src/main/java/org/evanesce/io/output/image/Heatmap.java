@@ -3,7 +3,9 @@ package org.evanesce.io.output.image;
 import java.awt.image.BufferedImage;
 import java.io.IOException;
 import java.nio.file.Path;
+import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.GridSpec;
+import org.evanesce.geometry.MaterialGrid;
 
 /**
  * A quick-look picture of a scalar on the grid: the values as coloured cells, x and y axes with
@@ -26,6 +28,24 @@ import org.evanesce.geometry.GridSpec;
  * cells. If every finite value is equal the picture is one colour (the map's middle) and the bar
  * has a single tick.
  *
+ * <p>Log scale ({@link Builder#logScale}): the picture shows log10|v| over the top d decades below
+ * the largest finite |v|, on a sequential map: t = (log10|v| − (log10 max|v| − d)) / d, so
+ * 10<sup>−k</sup>·max|v| sits at t = 1 − k/d. Zero and magnitudes below the floor take the bottom
+ * colour; NaN is drawn as above. The colour bar is ticked at powers of ten (labels such as "1e-3",
+ * or plain "0.01" … "1000" when every tick lies in that span). When a large grid is reduced, MEAN
+ * averages |v| over the block before the logarithm. A field that is zero everywhere is drawn in the
+ * floor colour with an empty bar.
+ *
+ * <p>Material outlines ({@link Builder#outlines}): given one material id per value, a line is drawn
+ * over the cells along every edge shared by two neighbouring cells (along x or y) of different ids.
+ * The line is one pixel wide and lies on the cell on the +x side of the edge (for edges across x)
+ * or on the +y side (for edges across y): with s × s pixels per cell, in that cell's leftmost
+ * pixel column or bottom pixel row. On reduced grids a pixel is outlined when any cell of its
+ * k × k block has a left or lower neighbour of another id (boundaries along the block's own left
+ * and bottom sides included), so a straight boundary is still a one-pixel line. Each outline pixel
+ * is dark over light colours and light over dark ones ({@link #outlineColour}), so it reads on both
+ * ends of every map.
+ *
  * <p>Text is drawn with {@link PixelFont}, so nothing depends on installed fonts; the picture is
  * built in a {@link BufferedImage} of type {@code TYPE_INT_RGB} and written with
  * {@link javax.imageio} only, which work with {@code -Djava.awt.headless=true}.
@@ -47,6 +67,12 @@ public final class Heatmap {
     public static final int TARGET_PLOT_SIDE = 640;
     /** Longer side, in pixels, beyond which grids are reduced. */
     public static final int MAX_PLOT_SIDE = 1000;
+    /** Oklab lightness of a drawn colour from which its outline is dark rather than light. */
+    static final double OUTLINE_SWITCH = 0.6;
+    /** Outline over light colours. */
+    static final int OUTLINE_DARK = 0x141414;
+    /** Outline over dark colours. */
+    static final int OUTLINE_LIGHT = 0xffffff;
 
     private final double[] doubles;
     private final float[] floats;
@@ -62,6 +88,8 @@ public final class Heatmap {
     private final double rangeLow;
     private final double rangeHigh;
     private final Downsampling downsampling;
+    private final int[] outlineIds;
+    private final double logDecades;
 
     private Heatmap(Builder b) {
         doubles = b.doubles;
@@ -78,6 +106,8 @@ public final class Heatmap {
         rangeLow = b.rangeLow;
         rangeHigh = b.rangeHigh;
         downsampling = b.downsampling;
+        outlineIds = b.outlineIds;
+        logDecades = b.logDecades;
     }
 
     /**
@@ -170,6 +200,31 @@ public final class Heatmap {
         return rangeHigh;
     }
 
+    /** The material id of cell (i, j); only when {@link #hasOutlines()}. */
+    int outlineId(int i, int j) {
+        return outlineIds[j * nx + i];
+    }
+
+    /** Whether material outlines are drawn. */
+    public boolean hasOutlines() {
+        return outlineIds != null;
+    }
+
+    /** Whether the picture shows log10|v| ({@link Builder#logScale}). */
+    public boolean isLogScale() {
+        return !Double.isNaN(logDecades);
+    }
+
+    /** Decades shown below the maximum on a log scale; NaN on a linear one. */
+    public double logDecades() {
+        return logDecades;
+    }
+
+    /** The outline colour drawn over a pixel of colour {@code under} (0xRRGGBB). */
+    static int outlineColour(int under) {
+        return Oklab.fromRgb(under)[0] >= OUTLINE_SWITCH ? OUTLINE_DARK : OUTLINE_LIGHT;
+    }
+
     /** Where everything goes; package-private for tests. */
     HeatmapLayout layout() {
         return new HeatmapLayout(this);
@@ -207,6 +262,8 @@ public final class Heatmap {
         private double rangeLow = Double.NaN;
         private double rangeHigh = Double.NaN;
         private Downsampling downsampling = Downsampling.MEAN;
+        private int[] outlineIds;
+        private double logDecades = Double.NaN;
 
         private Builder(double[] doubles, float[] floats, int nx, int ny) {
             this.doubles = doubles;
@@ -297,10 +354,68 @@ public final class Heatmap {
             return this;
         }
 
-        /** @throws IllegalStateException if no cell size was given */
+        /**
+         * Draws material outlines from {@code materialIds[j*nx + i]}, one id per value (not copied,
+         * not modified; only equality of ids matters); null for none (the default).
+         *
+         * @throws IllegalArgumentException if the array length is not nx·ny
+         */
+        public Builder outlines(int[] materialIds) {
+            if (materialIds != null && materialIds.length != (long) nx * ny) {
+                throw new IllegalArgumentException(String.format(
+                        "heat map of %d × %d cells: outline ids need nx·ny = %d values, but there are %d",
+                        nx, ny, (long) nx * ny, materialIds.length));
+            }
+            outlineIds = materialIds;
+            return this;
+        }
+
+        /**
+         * Outlines from the material ids of {@code materials} at {@code site}; pick the site of the
+         * field shown (Ez, Ex or Ey), or the nearest one for other components.
+         *
+         * @throws IllegalArgumentException if the grid's node counts are not nx × ny
+         */
+        public Builder outlines(MaterialGrid materials, FieldSite site) {
+            if (materials.nx() != nx || materials.ny() != ny) {
+                throw new IllegalArgumentException(String.format(
+                        "material grid of %d × %d nodes does not match the %d × %d values",
+                        materials.nx(), materials.ny(), nx, ny));
+            }
+            return outlines(materials.ids(site));
+        }
+
+        /**
+         * Shows log10|v| over the top {@code decades} decades below the largest finite |v| (see
+         * the class comment); needs a sequential map and no fixed {@link #range}.
+         *
+         * @param decades finite, &gt; 0 and at most 300
+         */
+        public Builder logScale(double decades) {
+            if (!(decades > 0 && decades <= 300)) {
+                throw new IllegalArgumentException(String.format(
+                        "heat map log scale of %g decades: need a number > 0 and at most 300", decades));
+            }
+            logDecades = decades;
+            return this;
+        }
+
+        /**
+         * @throws IllegalStateException if no cell size was given, or a log scale was asked for
+         *                               with a diverging map or a fixed range
+         */
         public Heatmap build() {
             if (Double.isNaN(cellSize)) {
                 throw new IllegalStateException("heat map: the cell size was not given");
+            }
+            if (!Double.isNaN(logDecades) && colourMap.kind() != ColourMap.Kind.SEQUENTIAL) {
+                throw new IllegalStateException("heat map: a log scale shows magnitudes and needs a sequential map, not "
+                        + colourMap);
+            }
+            if (!Double.isNaN(logDecades) && !Double.isNaN(rangeLow)) {
+                throw new IllegalStateException(String.format(
+                        "heat map: a log scale takes its top from the data; a fixed range [%g, %g] cannot be combined with it",
+                        rangeLow, rangeHigh));
             }
             return new Heatmap(this);
         }

@@ -1,5 +1,6 @@
 package org.evanesce.io.output.image;
 
+import java.math.BigDecimal;
 import java.util.ArrayList;
 import java.util.List;
 
@@ -69,7 +70,13 @@ final class HeatmapLayout {
     final int down;
     final int plotWidth;
     final int plotHeight;
-    /** Colour range; NaN when there are no finite values and no range was given. */
+    /** Whether values are shown as log10|v| ({@link Heatmap#isLogScale()}). */
+    final boolean log;
+    /**
+     * Colour range; NaN when there are no finite values and no range was given, or on a log scale
+     * when no finite value is non-zero. On a log scale these are exponents: log10 max|v| − d and
+     * log10 max|v|.
+     */
     final double low;
     final double high;
     final boolean constant;
@@ -82,7 +89,7 @@ final class HeatmapLayout {
     final List<Text> texts = new ArrayList<>();
     /** Tick marks, in image pixels. */
     final List<Box> ticks = new ArrayList<>();
-    /** Values of the ticks, in the display unit for the axes. */
+    /** Values of the ticks, in the display unit for the axes; on a log-scale bar, exponents of ten. */
     final double[] xTicks;
     final double[] yTicks;
     final double[] barTicks;
@@ -91,6 +98,7 @@ final class HeatmapLayout {
 
     HeatmapLayout(Heatmap map) {
         this.map = map;
+        log = map.isLogScale();
         int nx = map.nx();
         int ny = map.ny();
         double d = map.cellSize();
@@ -110,7 +118,11 @@ final class HeatmapLayout {
             }
         }
         nanCount = nan;
-        if (!Double.isNaN(map.rangeLow())) {
+        double maxAbs = min > max ? 0 : Math.max(Math.abs(min), Math.abs(max));
+        if (log) {
+            high = maxAbs > 0 ? Math.log10(maxAbs) : Double.NaN;
+            low = high - map.logDecades();
+        } else if (!Double.isNaN(map.rangeLow())) {
             low = map.rangeLow();
             high = map.rangeHigh();
         } else if (min > max) {
@@ -208,7 +220,10 @@ final class HeatmapLayout {
             barLabelWidth = PixelFont.width(s, SCALE);
             texts.add(new Text(s, new Box(barLabelLeft, row - CAP / 2, barLabelWidth, LINE), Canvas.Direction.ACROSS));
         } else {
-            TickAxis ba = TickAxis.of(low, high, (barHeight - 1) / (high - low), Math.max(1, barHeight / BAR_TICK_SPACING), false);
+            double pixelsPerUnit = (barHeight - 1) / (high - low);
+            int maxCount = Math.max(1, barHeight / BAR_TICK_SPACING);
+            TickAxis ba = log ? powersOfTen(low, high, pixelsPerUnit, maxCount)
+                    : TickAxis.of(low, high, pixelsPerUnit, maxCount, false);
             barTicks = ba.values();
             for (int q = 0; q < ba.values().length; q++) {
                 int row = barTop + (int) Math.round((high - ba.values()[q]) / (high - low) * (barHeight - 1));
@@ -274,12 +289,72 @@ final class HeatmapLayout {
         return out;
     }
 
+    /** Exponents within this of a whole number count as whole: rounding slack of log10. */
+    private static final double EXPONENT_SLACK = 1e-9;
+
+    /**
+     * Ticks for a log-scale bar from 10^lo to 10^hi: whole exponents spaced 1, 2, 5, 10, ...
+     * decades apart (the smallest spacing with at most {@code maxCount} ticks and room for the
+     * labels), at multiples of the spacing. Labels are plain ("0.01" … "1000") when every tick
+     * lies in that span, else "1e-6". When no whole exponent lies in [lo, hi], one tick at hi
+     * labelled with 10^hi.
+     *
+     * @param pixelsPerDecade bar pixels per unit of the exponent
+     */
+    static TickAxis powersOfTen(double lo, double hi, double pixelsPerDecade, int maxCount) {
+        long e0 = (long) Math.ceil(lo - EXPONENT_SLACK);
+        long e1 = (long) Math.floor(hi + EXPONENT_SLACK);
+        if (e1 < e0) {
+            return new TickAxis(new double[] {hi}, new String[] {Ticks.single(Math.pow(10, hi))});
+        }
+        long step = 1;
+        while (multiples(e0, e1, step) > maxCount || step * pixelsPerDecade < CAP + 16) {
+            if (multiples(e0, e1, step) <= 1) {
+                break;
+            }
+            step = Math.round(Ticks.next(step));
+        }
+        long first = Math.floorDiv(e0 + step - 1, step) * step;
+        int n = (int) Math.max(1, multiples(e0, e1, step));
+        double[] v = new double[n];
+        if (first > e1) {
+            v[0] = e1; // no multiple of the step inside: the top exponent alone
+        } else {
+            for (int q = 0; q < n; q++) {
+                v[q] = first + q * step;
+            }
+        }
+        boolean plain = v[0] >= -2 && v[n - 1] <= 3;
+        String[] labels = new String[n];
+        for (int q = 0; q < n; q++) {
+            int e = (int) v[q];
+            labels[q] = plain ? BigDecimal.ONE.scaleByPowerOfTen(e).toPlainString() : "1e" + e;
+        }
+        return new TickAxis(v, labels);
+    }
+
+    /** How many multiples of step lie in [e0, e1]. */
+    private static long multiples(long e0, long e1, long step) {
+        return Math.floorDiv(e1, step) - Math.floorDiv(e0 + step - 1, step) + 1;
+    }
+
     private static int clamp(int v, int lo, int hi) {
         return Math.max(lo, Math.min(hi, v));
     }
 
-    /** Position in [0, 1] along the colour map of value v; NaN for NaN or when there is no range. */
+    /**
+     * Position along the colour map of value v: in [0, 1] for values in the range, beyond it for
+     * values outside (the map clamps); NaN for NaN or, on a linear scale, when there is no range.
+     * On a log scale (log10|v| − low) / (high − low), −∞ for zero, and 0 for every finite value
+     * when no value is non-zero.
+     */
     double position(double v) {
+        if (log) {
+            if (Double.isNaN(v) || Double.isNaN(high)) {
+                return Double.isNaN(v) ? Double.NaN : 0;
+            }
+            return (Math.log10(Math.abs(v)) - low) / (high - low);
+        }
         if (constant) {
             return Double.isNaN(v) ? Double.NaN : 0.5;
         }
@@ -304,13 +379,55 @@ final class HeatmapLayout {
                 if (Double.isNaN(v)) {
                     return Double.NaN;
                 }
-                sum += v;
+                sum += log ? Math.abs(v) : v;
                 if (Math.abs(v) > Math.abs(pick)) {
                     pick = v;
                 }
             }
         }
         return map.downsampling() == Heatmap.Downsampling.MEAN ? sum / ((i1 - i0) * (j1 - j0)) : pick;
+    }
+
+    /**
+     * The plot pixels covered by material outlines, {@code mask[py*plotWidth + px]} with py down
+     * from the top; null without outlines. A cell whose left (i − 1) or lower (j − 1) neighbour
+     * has another id marks its leftmost pixel column or bottom pixel row; on a reduced grid, the
+     * pixel that shows it.
+     */
+    boolean[] outlineMask() {
+        if (!map.hasOutlines()) {
+            return null;
+        }
+        boolean[] mask = new boolean[plotWidth * plotHeight];
+        int nx = map.nx();
+        int ny = map.ny();
+        for (int j = 0; j < ny; j++) {
+            for (int i = 0; i < nx; i++) {
+                int id = map.outlineId(i, j);
+                boolean left = i > 0 && map.outlineId(i - 1, j) != id;
+                boolean below = j > 0 && map.outlineId(i, j - 1) != id;
+                if (!left && !below) {
+                    continue;
+                }
+                if (down > 1) {
+                    mask[(plotHeight - 1 - j / down) * plotWidth + i / down] = true;
+                    continue;
+                }
+                int px0 = i * up;
+                int bottomRow = (plotHeight - 1 - j * up) * plotWidth;
+                if (left) {
+                    for (int r = 0; r < up; r++) {
+                        mask[bottomRow - r * plotWidth + px0] = true;
+                    }
+                }
+                if (below) {
+                    for (int q = 0; q < up; q++) {
+                        mask[bottomRow + px0 + q] = true;
+                    }
+                }
+            }
+        }
+        return mask;
     }
 
     /** Draws everything. */
@@ -320,6 +437,19 @@ final class HeatmapLayout {
         for (int py = 0; py < plotHeight; py++) {
             for (int px = 0; px < plotWidth; px++) {
                 c.set(plot.x() + px, plot.y() + py, cm.rgb(position(pixelValue(px, py))));
+            }
+        }
+        boolean[] outline = outlineMask();
+        if (outline != null) {
+            for (int py = 0; py < plotHeight; py++) {
+                int row = py * plotWidth;
+                for (int px = 0; px < plotWidth; px++) {
+                    if (outline[row + px]) {
+                        int x = plot.x() + px;
+                        int y = plot.y() + py;
+                        c.set(x, y, Heatmap.outlineColour(c.get(x, y)));
+                    }
+                }
             }
         }
         c.frame(plot.x(), plot.y(), plot.w(), plot.h(), FRAME);
