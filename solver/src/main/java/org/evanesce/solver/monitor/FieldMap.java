@@ -1,0 +1,244 @@
+package org.evanesce.solver.monitor;
+
+import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Polarization;
+
+/**
+ * Running discrete Fourier transforms of every field component of a run's polarization (s: Ez, Hx, Hy;
+ * p: Hz, Ex, Ey) on a rectangle of cells [i0, i1) × [j0, j1), at a few frequencies (time dependence
+ * exp(−iωt), DESIGN.md).
+ *
+ * <p>Each component is transformed at its own sample time (E at nΔt, H at (n − ½)Δt, as {@link FluxLine}):
+ * X(f) = Σ F(t) e^{i2πft} Δt, with complex (Bloch-periodic) fields taken as re + i·im. Node (i, j) of a
+ * component stands for its site on the Yee cell ({@link Component#dx}, {@link Component#dy}); no
+ * averaging onto common points is done. Each step reads every cell of the rectangle once per component
+ * and accumulates all frequencies from that reading.
+ *
+ * <p>Memory: the accumulators hold 2 doubles (re, im) per cell per component per frequency, so
+ * {@link #bytes()} = 16 · w · h · 3 · F bytes for a w × h rectangle and F frequencies (e.g. 16 × 200
+ * cells at 2 frequencies: 307 200 bytes). The per-row scratch (6w doubles) and the frequency tables
+ * (4F doubles) are not counted. The accumulators are double; a float variant is not offered, its
+ * accuracy over runs of thousands of steps not having been measured.
+ */
+public final class FieldMap implements StepListener {
+
+    private final Component[] components;
+    private final int i0;
+    private final int j0;
+    private final int i1;
+    private final int j1;
+    private final double[] omega;
+    /** DFT accumulators [component][frequency][(j − j0)·w + (i − i0)], real and imaginary parts. */
+    private final double[][][] re;
+    private final double[][][] im;
+    /** This step's row of every component, real and imaginary parts: [component][i − i0]. */
+    private final double[][] rowRe;
+    private final double[][] rowIm;
+    /** This step's e^{iωt}Δt per frequency, for the electric and the magnetic sample times. */
+    private final double[] cosE, sinE, cosH, sinH;
+    private double windowStart = Double.NEGATIVE_INFINITY;
+    private double windowEnd = Double.POSITIVE_INFINITY;
+    private boolean checked;
+
+    /**
+     * @param pol         the run's polarization: which three components are transformed
+     * @param i0          first column (inclusive), ≥ 0
+     * @param j0          first row (inclusive), ≥ 0
+     * @param i1          last column (exclusive), &gt; i0 and ≤ the grid's nx (checked at the first step)
+     * @param j1          last row (exclusive), &gt; j0 and ≤ the grid's ny (checked at the first step)
+     * @param frequencies in Hz, at least one; not modified
+     */
+    public FieldMap(Polarization pol, int i0, int j0, int i1, int j1, double... frequencies) {
+        if (i0 < 0 || j0 < 0 || i1 <= i0 || j1 <= j0) {
+            throw new IllegalArgumentException(String.format(
+                    "field map cells [%d, %d) × [%d, %d): need 0 <= i0 < i1 and 0 <= j0 < j1", i0, i1, j0, j1));
+        }
+        if (frequencies.length == 0) {
+            throw new IllegalArgumentException("field map needs at least one frequency");
+        }
+        for (double f : frequencies) {
+            if (!Double.isFinite(f)) {
+                throw new IllegalArgumentException(String.format("field map frequency %g Hz is not finite", f));
+            }
+        }
+        components = pol.components();
+        this.i0 = i0;
+        this.j0 = j0;
+        this.i1 = i1;
+        this.j1 = j1;
+        int nf = frequencies.length;
+        omega = new double[nf];
+        for (int q = 0; q < nf; q++) {
+            omega[q] = 2 * Math.PI * frequencies[q];
+        }
+        int w = i1 - i0;
+        int cells = w * (j1 - j0);
+        re = new double[components.length][nf][cells];
+        im = new double[components.length][nf][cells];
+        rowRe = new double[components.length][w];
+        rowIm = new double[components.length][w];
+        cosE = new double[nf];
+        sinE = new double[nf];
+        cosH = new double[nf];
+        sinH = new double[nf];
+    }
+
+    /**
+     * Transforms only the samples taken at times in [start, end), s (see {@link FluxLine#window}). Each
+     * component keeps its own sample times, so E and H windows differ by at most one step.
+     */
+    public FieldMap window(double start, double end) {
+        if (!(end > start)) {
+            throw new IllegalArgumentException(String.format("field map window [%g, %g) s is empty", start, end));
+        }
+        windowStart = start;
+        windowEnd = end;
+        return this;
+    }
+
+    @Override
+    public void afterStep(StepView v) {
+        if (!checked) {
+            if (i1 > v.nx() || j1 > v.ny()) {
+                throw new IllegalStateException(String.format(
+                        "field map cells [%d, %d) × [%d, %d) exceed the %d × %d grid", i0, i1, j0, j1, v.nx(), v.ny()));
+            }
+            checked = true;
+        }
+        double te = v.time();
+        double th = te - 0.5 * v.dt();
+        double we = te >= windowStart && te < windowEnd ? v.dt() : 0;
+        double wh = th >= windowStart && th < windowEnd ? v.dt() : 0;
+        if (we == 0 && wh == 0) {
+            return;
+        }
+        for (int q = 0; q < omega.length; q++) {
+            cosE[q] = Math.cos(omega[q] * te) * we;
+            sinE[q] = Math.sin(omega[q] * te) * we;
+            cosH[q] = Math.cos(omega[q] * th) * wh;
+            sinH[q] = Math.sin(omega[q] * th) * wh;
+        }
+        int w = i1 - i0;
+        for (int j = j0; j < j1; j++) {
+            int row = (j - j0) * w;
+            for (int c = 0; c < components.length; c++) {
+                Component comp = components[c];
+                double[] a = rowRe[c];
+                double[] b = rowIm[c];
+                for (int i = i0; i < i1; i++) {
+                    a[i - i0] = v.field(comp, i, j);
+                    b[i - i0] = v.fieldImag(comp, i, j);
+                }
+            }
+            for (int c = 0; c < components.length; c++) {
+                boolean electric = components[c].electric;
+                double[] a = rowRe[c];
+                double[] b = rowIm[c];
+                for (int q = 0; q < omega.length; q++) {
+                    double cs = electric ? cosE[q] : cosH[q];
+                    double sn = electric ? sinE[q] : sinH[q];
+                    if (cs == 0 && sn == 0) {
+                        continue;
+                    }
+                    double[] xr = re[c][q];
+                    double[] xi = im[c][q];
+                    for (int k = 0; k < w; k++) {
+                        xr[row + k] += a[k] * cs - b[k] * sn;
+                        xi[row + k] += a[k] * sn + b[k] * cs;
+                    }
+                }
+            }
+        }
+    }
+
+    /**
+     * A copy of the transform of component c at frequency number q: {re[], im[]}, row-major within the
+     * rectangle, cell (i, j) at index (j − j0)·w + (i − i0); units V/m·s (η0·H for magnetic components).
+     *
+     * @throws IllegalArgumentException if c is not a component of this map's polarization
+     */
+    public double[][] transform(Component c, int q) {
+        int k = index(c);
+        return new double[][] {re[k][q].clone(), im[k][q].clone()};
+    }
+
+    /** The transform of component c at frequency q and cell (i, j): {re, im}. */
+    public double[] transform(Component c, int q, int i, int j) {
+        if (i < i0 || i >= i1 || j < j0 || j >= j1) {
+            throw new IllegalArgumentException(String.format("cell (%d, %d) is outside the field map [%d, %d) × [%d, %d)",
+                    i, j, i0, i1, j0, j1));
+        }
+        int k = index(c);
+        int t = (j - j0) * (i1 - i0) + (i - i0);
+        return new double[] {re[k][q][t], im[k][q][t]};
+    }
+
+    private int index(Component c) {
+        for (int k = 0; k < components.length; k++) {
+            if (components[k] == c) {
+                return k;
+            }
+        }
+        throw new IllegalArgumentException(String.format("component %s is not transformed by this %s field map", c,
+                components[0].polarization));
+    }
+
+    /** The three components transformed (a copy). */
+    public Component[] components() {
+        return components.clone();
+    }
+
+    /** First column (inclusive). */
+    public int firstColumn() {
+        return i0;
+    }
+
+    /** First row (inclusive). */
+    public int firstRow() {
+        return j0;
+    }
+
+    /** Last column (exclusive). */
+    public int endColumn() {
+        return i1;
+    }
+
+    /** Last row (exclusive). */
+    public int endRow() {
+        return j1;
+    }
+
+    /** Width w = i1 − i0, cells. */
+    public int width() {
+        return i1 - i0;
+    }
+
+    /** Height h = j1 − j0, cells. */
+    public int height() {
+        return j1 - j0;
+    }
+
+    /** Number of frequencies F. */
+    public int frequencyCount() {
+        return omega.length;
+    }
+
+    /** Frequency number q, Hz. */
+    public double frequency(int q) {
+        return omega[q] / (2 * Math.PI);
+    }
+
+    /** The frequencies, Hz (a copy). */
+    public double[] frequencies() {
+        double[] f = new double[omega.length];
+        for (int q = 0; q < f.length; q++) {
+            f[q] = frequency(q);
+        }
+        return f;
+    }
+
+    /** Bytes held by the accumulators: 16 · w · h · 3 · F (2 doubles per cell, component and frequency). */
+    public long bytes() {
+        return 2L * Double.BYTES * width() * height() * components.length * omega.length;
+    }
+}
