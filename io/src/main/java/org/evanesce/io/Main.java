@@ -31,7 +31,7 @@ import picocli.CommandLine.Spec;
 @Command(name = "evanesce", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
         description = "2D FDTD field simulator for optical tunnelling and near-field geometries.",
         subcommands = {RunCommand.class, CheckCommand.class, BenchCommand.class, org.evanesce.io.cli.StackCommand.class,
-            org.evanesce.io.cli.AccuracyCommand.class},
+            org.evanesce.io.cli.AccuracyCommand.class, org.evanesce.io.cli.RenderCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
             "0:success",

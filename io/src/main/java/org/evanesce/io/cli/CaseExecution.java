@@ -10,7 +10,15 @@ import org.evanesce.io.output.Json;
 import org.evanesce.io.output.RunFolder;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.FluxPlan;
+import java.io.UncheckedIOException;
+import java.util.ArrayList;
+import java.util.List;
+import org.evanesce.io.output.hdf5.Xdmf;
 import org.evanesce.io.run.BeamPlots;
+import org.evanesce.io.run.FieldOutputs;
+import org.evanesce.io.run.MapOutputs;
+import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.monitor.Snapshots;
 import org.evanesce.io.run.CaseRunner;
 import org.evanesce.io.run.FluxResults;
 import org.evanesce.io.run.FluxTable;
@@ -40,18 +48,40 @@ final class CaseExecution {
                 s.polarization().value().name().toLowerCase(Locale.ROOT),
                 plan.flux().isPresent() ? ", then a reference run for the incident power" : "", rf.target());
         ProgressLine progress = new ProgressLine(o, terminal, plan.dt());
+        List<Xdmf.Grid> frames = new ArrayList<>();
+        if (plan.fields().frameSteps().length > 0) {
+            int[] b = plan.fields().box();
+            plan.builder().listener(new Snapshots(plan.fields().components().toArray(new Component[0]), b[0], b[1], b[2], b[3],
+                    plan.fields().frameSteps(), FieldOutputs.periodic(plan), FieldOutputs.frameSink(plan, rf.dir(), frames)));
+        }
+        if (s.output().writes(OutputSpec.Item.PERMITTIVITY)) {
+            FieldOutputs.writePermittivity(plan, rf.dir());
+        }
         CaseRunner.Result r;
         try {
-            r = CaseRunner.run(plan, progress, terminal ? 0.5 : progressSeconds);
+            r = CaseRunner.run(plan, progress, terminal ? 0.5 : progressSeconds, !s.output().writes(OutputSpec.Item.FIELDS)
+                    ? null : view -> {
+                        try {
+                            FieldOutputs.writeFields(plan, view, rf.dir());
+                        } catch (IOException e) {
+                            throw new UncheckedIOException("writing the fields at the end of the run: " + e.getMessage(), e);
+                        }
+                    });
+        } catch (UncheckedIOException e) {
+            throw e.getCause();
         } finally {
             progress.finish();
         }
+        FieldOutputs.writeFrameIndex(rf.dir(), frames);
+        List<MapOutputs.Decay> decays = plan.fields().maps().isPresent() ? MapOutputs.write(plan, rf.dir()) : List.of();
         FluxResults flux = plan.flux().map(f -> FluxResults.of(f, s.polarization().value())).orElse(null);
         if (flux != null) {
             rf.writeText("flux.csv", flux.csv());
-            rf.writeText("summary.json", Json.write(RunOutputs.summary(plan, flux)));
             FluxPlan f = plan.flux().get();
             BeamPlots.write(f, s.polarization().value(), f.closest(s.sources().get(0).signal().frequency().si()), rf.dir());
+        }
+        if (flux != null || !decays.isEmpty()) {
+            rf.writeText("summary.json", Json.write(RunOutputs.summary(plan, flux, decays)));
         }
         if (s.output().writes(OutputSpec.Item.PROBES)) {
             rf.writeText("probes.csv", RunOutputs.probesCsv(plan.probes()));
@@ -68,6 +98,14 @@ final class CaseExecution {
                 r.stopReason());
         if (flux != null && table) {
             FluxTable.print(o, flux);
+        }
+        for (MapOutputs.Decay d : decays) {
+            o.println(d.fit() == null ? String.format(Locale.ROOT, "decay %s at %.2f nm: no fit (%s)", d.name(),
+                    d.wavelength() * 1e9, d.problem())
+                    : String.format(Locale.ROOT, "decay %s at %.2f nm: L = %.5g nm ± %.2g nm%s", d.name(), d.wavelength() * 1e9,
+                    d.fit().length() * 1e9, d.fit().lengthUncertainty() * 1e9, Double.isFinite(d.planeWave())
+                            ? String.format(Locale.ROOT, " (plane-wave value %.5g nm, %+.2f %%)", d.planeWave() * 1e9,
+                            100 * (d.fit().length() / d.planeWave() - 1)) : ""));
         }
         return new Finished(r, flux);
     }

@@ -22,10 +22,12 @@ import org.evanesce.solver.monitor.Probe;
  * @param flux        the flux lines and their normalisation, when the case asks for flux
  * @param gridPermittivity the relative permittivity each material has on the grid (differs from the case's
  *                    where the dispersion correction applies), by name
+ * @param fields      the field files, frames and maps the run writes
  */
 public record CasePlan(CaseSpec spec, GridSpec grid, MaterialGrid materials, Simulation.Builder builder,
                        List<NamedProbe> probes, Stop stop, double dt, int[] interior,
-                       java.util.Optional<FluxPlan> flux, java.util.Map<String, Double> gridPermittivity) {
+                       java.util.Optional<FluxPlan> flux, java.util.Map<String, Double> gridPermittivity,
+                       FieldPlan fields) {
 
     /** A probe with the name the case gave it and the node it samples. */
     public record NamedProbe(String name, Probe probe, int i, int j) { }

@@ -21,9 +21,9 @@ import org.evanesce.geometry.shape.Shape;
 import org.evanesce.io.casefile.BoundarySpec;
 import org.evanesce.io.casefile.CaseSpec;
 import org.evanesce.io.casefile.Diagnostic;
+import org.evanesce.io.casefile.OutputSpec;
 import org.evanesce.io.casefile.Located;
 import org.evanesce.io.casefile.MaterialSpec;
-import org.evanesce.io.casefile.OutputSpec;
 import org.evanesce.io.casefile.ProbeSpec;
 import org.evanesce.io.casefile.ResolutionSpec;
 import org.evanesce.io.casefile.ShapeSpec;
@@ -140,7 +140,11 @@ public final class CasePlanner {
         }
         Map<String, Double> eps = new java.util.TreeMap<>();
         materials.forEach((name, m) -> eps.put(name, m.relativePermittivity()));
-        return new CasePlan(spec, grid, mg, b, List.copyOf(probes), stop, dt, interior(sides, grid), flux, eps);
+        FieldPlan fields = fieldPlan(grid, interior(sides, grid), stop, dt, b, sides);
+        if (!errors.isEmpty()) {
+            throw new PlanException(errors);
+        }
+        return new CasePlan(spec, grid, mg, b, List.copyOf(probes), stop, dt, interior(sides, grid), flux, eps, fields);
     }
 
     private void error(SourcePosition at, String path, String message) {
@@ -148,13 +152,78 @@ public final class CasePlanner {
     }
 
     private void checkOutputs() {
-        for (var item : spec.output().write()) {
-            OutputSpec.Item it = item.value();
-            if (it == OutputSpec.Item.FIELDS || it == OutputSpec.Item.FIELD_FRAMES || it == OutputSpec.Item.PERMITTIVITY) {
-                error(item.at(), "output.write", String.format("'%s' (HDF5 + XDMF field output) is not available in this "
-                        + "version yet; expected one of: probes, preview", it.caseName()));
+        // every output item is available in this version
+    }
+
+    /** The node box of a region (nodes inside it), or the interior; null (error reported) when it holds no node. */
+    private int[] box(Optional<OutputSpec.Region> region, String path, GridSpec g, int[] interior) {
+        if (region.isEmpty()) {
+            return interior.clone();
+        }
+        OutputSpec.Region r = region.get();
+        double d = g.cellSize();
+        int i0 = Math.max(0, (int) Math.ceil((r.xMin() - g.x0()) / d - 1e-9));
+        int i1 = Math.min(g.nx(), (int) Math.floor((r.xMax() - g.x0()) / d + 1e-9) + 1);
+        int j0 = Math.max(0, (int) Math.ceil((r.yMin() - g.y0()) / d - 1e-9));
+        int j1 = Math.min(g.ny(), (int) Math.floor((r.yMax() - g.y0()) / d + 1e-9) + 1);
+        if (i1 - i0 < 2 || j1 - j0 < 2) {
+            error(r.at(), path, String.format("the region holds %d x %d grid nodes; it must hold at least 2 x 2 inside the grid "
+                    + "(x from %.4g um to %.4g um, y from %.4g um to %.4g um)", Math.max(0, i1 - i0), Math.max(0, j1 - j0),
+                    g.x0() * 1e6, (g.x0() + (g.nx() - 1) * d) * 1e6, g.y0() * 1e6, (g.y0() + (g.ny() - 1) * d) * 1e6));
+            return null;
+        }
+        return new int[] {i0, j0, i1, j1};
+    }
+
+    /** Field files, frames and maps; maps are registered on the run. */
+    private FieldPlan fieldPlan(GridSpec g, int[] interior, CasePlan.Stop stop, double dt, Simulation.Builder run,
+                                Map<Side, Boundary> sides) {
+        OutputSpec out = spec.output();
+        int[] box = box(out.region(), "output.region", g, interior);
+        List<Component> comps = out.components().isEmpty()
+                ? List.of(spec.polarization().value().components())
+                : out.components().stream().map(l -> l.value()).toList();
+        long[] frames = new long[0];
+        if (out.writes(OutputSpec.Item.FIELD_FRAMES)) {
+            long last = stop.maxSteps();
+            if (out.frameInterval().isPresent()) {
+                long every = Math.max(1, Math.round(out.frameInterval().get().si() / dt));
+                long count = last / every;
+                if (count > 100_000) {
+                    error(out.frameInterval().get().at(), "output.frame_interval", String.format("%d frames (one file each) is too "
+                            + "many; expected an interval giving at most 100000 frames over the run's %d steps", count, last));
+                } else {
+                    frames = java.util.stream.LongStream.rangeClosed(1, count).map(k -> k * every).toArray();
+                }
+            } else {
+                frames = out.frameTimes().stream().mapToLong(t -> Math.max(1, Math.round(t.si() / dt))).toArray();
             }
         }
+        Optional<FieldPlan.Maps> maps = Optional.empty();
+        if (spec.maps().isPresent()) {
+            var m = spec.maps().get();
+            int[] mbox = box(m.region().isPresent() ? m.region() : out.region(), m.region().isPresent() ? "maps.region"
+                    : "output.region", g, interior);
+            if (mbox != null) {
+                double[] f = m.frequencies().stream().mapToDouble(v -> v.si()).toArray();
+                org.evanesce.solver.monitor.FieldMap fm = new org.evanesce.solver.monitor.FieldMap(spec.polarization().value(),
+                        mbox[0], mbox[1], mbox[2], mbox[3], f);
+                run.listener(fm);
+                for (int k = 0; k < m.decay().size(); k++) {
+                    var l = m.decay().get(k);
+                    for (var p : List.of(l.from(), l.to())) {
+                        double i = (p.x().si() - g.x0()) / g.cellSize();
+                        double j = (p.y().si() - g.y0()) / g.cellSize();
+                        if (i < mbox[0] || i > mbox[2] - 1 || j < mbox[1] || j > mbox[3] - 1) {
+                            error(p.at(), "maps.decay[" + k + "]", String.format("the point (%.4g um, %.4g um) lies outside the "
+                                    + "mapped region; a decay line must lie inside it", p.x().si() * 1e6, p.y().si() * 1e6));
+                        }
+                    }
+                }
+                maps = Optional.of(new FieldPlan.Maps(m, fm, mbox));
+            }
+        }
+        return new FieldPlan(box == null ? interior : box, comps, frames, maps);
     }
 
     /**

@@ -62,6 +62,15 @@ public final class CaseRunner {
      * @param progressSeconds least wall time between reports
      */
     public static Result run(CasePlan plan, Consumer<Progress.Report> progress, double progressSeconds) {
+        return run(plan, progress, progressSeconds, null);
+    }
+
+    /**
+     * The same, and {@code atEnd} (if not null) sees the run's fields after its last step, before the
+     * simulation is closed (the fields at the end are written from there).
+     */
+    public static Result run(CasePlan plan, Consumer<Progress.Report> progress, double progressSeconds,
+                             Consumer<org.evanesce.solver.monitor.StepView> atEnd) {
         JitWarmUp.run(plan.spec().polarization().value(), plan.spec().numerics().precision().value());
         try (Simulation sim = build(plan)) {
             if (progress != null) {
@@ -96,6 +105,9 @@ public final class CaseRunner {
                 }
             }
             double wall = (System.nanoTime() - t0) * 1e-9;
+            if (atEnd != null) {
+                atEnd.accept(sim);
+            }
             double referenceWall = 0;
             if (plan.flux().isPresent()) {
                 referenceWall = runReference(plan, sim.stepCount(), progress, progressSeconds);

@@ -143,6 +143,11 @@ public final class RunOutputs {
 
     /** summary.json: the results for programs (documented in docs/outputs.md). */
     public static Map<String, Object> summary(CasePlan plan, FluxResults flux) {
+        return summary(plan, flux, List.of());
+    }
+
+    /** summary.json with the flux results (or null) and the decay fits of the maps. */
+    public static Map<String, Object> summary(CasePlan plan, FluxResults flux, List<MapOutputs.Decay> decays) {
         Map<String, Object> m = new LinkedHashMap<>();
         m.put("program", "evanesce");
         m.put("schema", "evanesce-summary-1");
@@ -153,6 +158,12 @@ public final class RunOutputs {
         m.put("caution", CAUTION);
         if (flux != null) {
             m.put("flux", flux.summary(plan.flux().orElseThrow()));
+        }
+        if (!decays.isEmpty()) {
+            m.put("decay_fits", MapOutputs.summary(decays));
+            m.put("decay_fit_method", "weighted least squares of ln|E| against distance (weights |E|^2), |E| the magnitude "
+                    + "of the transformed electric field interpolated between nodes every cell along the line; plane-wave "
+                    + "value lambda0 / (2 pi sqrt(n1^2 sin^2 theta - n2^2)) (Hecht, Optics, sec. 4.7)");
         }
         return m;
     }

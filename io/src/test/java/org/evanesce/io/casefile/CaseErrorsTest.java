@@ -52,7 +52,7 @@ class CaseErrorsTest {
         assertEquals(List.of(
                 "case.yaml:1:1: domain: missing, expected a mapping with width and height",
                 "case.yaml:2:1: domian: unknown key (did you mean 'domain'?), expected one of title, parameters, design_wavelength, "
-                        + "design_frequency, polarization, domain, resolution, materials, shapes, boundaries, sources, probes, flux, output, "
+                        + "design_frequency, polarization, domain, resolution, materials, shapes, boundaries, sources, probes, flux, maps, output, "
                         + "stop, numerics"),
                 errors(replace("domain:", "domian:")));
         assertEquals(List.of("case.yaml:2:37: domain.centre: unknown key, expected one of width, height, background"),
@@ -154,8 +154,9 @@ class CaseErrorsTest {
                 errors(replace("{time: 100 fs}", "{decay: 1e-4}")));
         assertEquals(List.of("case.yaml:7:55: numerics.courant: must lie between 0 and the 2D stability limit 1/sqrt(2) = 0.707107 "
                 + "(exclusive), got 0.75"), errors(BASE + "numerics: {precision: double, threads: auto, courant: 0.75}\n"));
-        assertEquals(List.of("case.yaml:7:1: output.frame_interval: missing, expected a time such as 5 fs: field_frames needs the time "
-                + "between frames"), errors(BASE + "output: {write: [field_frames]}\n"));
+        assertEquals(List.of("case.yaml:7:1: output.frame_interval: missing, expected frame_interval (a time such as 5 fs) or "
+                + "frame_times (a list of times): field_frames needs to know when to take frames"),
+                errors(BASE + "output: {write: [field_frames]}\n"));
     }
 
     @Test
@@ -185,7 +186,7 @@ class CaseErrorsTest {
         assertEquals(List.of("case.yaml:1:1: the file is empty; a case needs at least polarization, domain, resolution, sources and stop"),
                 errors("# nothing here\n"));
         assertEquals(List.of("case.yaml:1:1: expected a mapping with keys such as title, parameters, design_wavelength, design_frequency, "
-                + "polarization, domain, resolution, materials, shapes, boundaries, sources, probes, flux, output, stop, numerics, got a list"),
+                + "polarization, domain, resolution, materials, shapes, boundaries, sources, probes, flux, maps, output, stop, numerics, got a list"),
                 errors("- polarization: s\n"));
         String flat = """
                 polarization: s

@@ -1,0 +1,38 @@
+package org.evanesce.io.plan;
+
+import java.util.List;
+import java.util.Optional;
+import org.evanesce.io.casefile.MapsSpec;
+import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.monitor.FieldMap;
+
+/**
+ * What field output a run writes: the node box and components of `fields` and `field_frames`, the
+ * steps at which frames are taken, and the frequency-domain maps.
+ *
+ * @param box        the nodes covered, {i0, j0, i1, j1} (i1, j1 exclusive)
+ * @param components the components written
+ * @param frameSteps the steps after which frames are taken (empty without field_frames)
+ * @param maps       the maps, when the case has a {@code maps} section
+ */
+public record FieldPlan(int[] box, List<Component> components, long[] frameSteps, Optional<Maps> maps) {
+
+    public FieldPlan {
+        box = box.clone();
+        components = List.copyOf(components);
+        frameSteps = frameSteps.clone();
+    }
+
+    /**
+     * The maps of a run.
+     *
+     * @param spec the case's section
+     * @param map  the running transforms, registered on the run
+     * @param box  the nodes mapped, {i0, j0, i1, j1}
+     */
+    public record Maps(MapsSpec spec, FieldMap map, int[] box) {
+        public Maps {
+            box = box.clone();
+        }
+    }
+}

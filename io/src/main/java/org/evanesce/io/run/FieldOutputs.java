@@ -1,0 +1,217 @@
+package org.evanesce.io.run;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.evanesce.geometry.FieldSite;
+import org.evanesce.geometry.GridSpec;
+import org.evanesce.io.output.hdf5.FieldDataset;
+import org.evanesce.io.output.hdf5.Hdf5Writer;
+import org.evanesce.io.output.hdf5.Precision;
+import org.evanesce.io.output.hdf5.Xdmf;
+import org.evanesce.io.output.image.FieldPicture;
+import org.evanesce.io.plan.CasePlan;
+import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.monitor.Nodes;
+import org.evanesce.solver.monitor.Snapshots;
+import org.evanesce.solver.monitor.StepView;
+
+/**
+ * Field files of a run: `fields` (the fields at the last step), `field_frames` (one HDF5 file per
+ * frame and one XDMF time series) and `permittivity`, all on the nodes of the output region, with
+ * a PNG per component for `fields`. Attributes on every dataset: component, unit, cell size,
+ * origin, time, polarization, and where the values sit (averaged onto the nodes).
+ */
+public final class FieldOutputs {
+
+    /** Electric fields are stored in V/m; magnetic ones as η0·H, also in V/m (DESIGN.md). */
+    static String unit(Component c) {
+        return c.electric ? "V/m" : "V/m (eta0*H)";
+    }
+
+    static String name(Component c) {
+        String n = c.name().toLowerCase(Locale.ROOT);
+        return n.substring(0, 1).toUpperCase(Locale.ROOT) + n.substring(1);
+    }
+
+    private FieldOutputs() {
+    }
+
+    /** The region's grid: its first node and size. */
+    static GridSpec regionGrid(CasePlan plan, int[] box) {
+        GridSpec g = plan.grid();
+        return new GridSpec(g.x0() + box[0] * g.cellSize(), g.y0() + box[1] * g.cellSize(), g.cellSize(), box[2] - box[0],
+                box[3] - box[1]);
+    }
+
+    static Map<String, Object> attributes(CasePlan plan, GridSpec r, Component c, String quantity) {
+        Map<String, Object> a = new LinkedHashMap<>();
+        a.put("component", c.name().toLowerCase(Locale.ROOT));
+        a.put("quantity", quantity);
+        a.put("unit", unit(c));
+        a.put("cell_size_m", r.cellSize());
+        a.put("origin_m", new double[] {r.x0(), r.y0()});
+        a.put("polarization", plan.spec().polarization().value().name().toLowerCase(Locale.ROOT));
+        a.put("sites", "averaged onto the cell nodes x0 + i*cell_size, y0 + j*cell_size");
+        return a;
+    }
+
+    static Map<String, Object> fileAttributes(CasePlan plan) {
+        Map<String, Object> a = new LinkedHashMap<>();
+        a.put("program", "evanesce");
+        a.put("case_file", plan.spec().source());
+        a.put("caution", RunOutputs.CAUTION);
+        return a;
+    }
+
+    /**
+     * A sink writing each frame to {@code frames/frame-STEP.h5} at once and remembering its XDMF entry.
+     *
+     * @param index receives each frame's grid, in order
+     */
+    public static Snapshots.Sink frameSink(CasePlan plan, Path dir, List<Xdmf.Grid> index) {
+        int[] box = plan.fields().box();
+        GridSpec r = regionGrid(plan, box);
+        List<Component> comps = plan.fields().components();
+        return (step, times, re, im) -> {
+            Path frames = dir.resolve("frames");
+            Files.createDirectories(frames);
+            String file = String.format(Locale.ROOT, "frame-%09d.h5", step);
+            List<FieldDataset> sets = new ArrayList<>();
+            List<Xdmf.Attribute> attrs = new ArrayList<>();
+            for (int c = 0; c < comps.size(); c++) {
+                Map<String, Object> a = attributes(plan, r, comps.get(c), "field");
+                a.put("time_s", times[c]);
+                a.put("step", step);
+                FieldDataset d = new FieldDataset(name(comps.get(c)), re[c], r.nx(), r.ny(), Precision.SINGLE, a);
+                sets.add(d);
+                attrs.add(Xdmf.Attribute.of(d.name(), "frames/" + file, d));
+                if (im != null) {
+                    FieldDataset di = new FieldDataset(name(comps.get(c)) + "_imag", im[c], r.nx(), r.ny(), Precision.SINGLE, a);
+                    sets.add(di);
+                    attrs.add(Xdmf.Attribute.of(di.name(), "frames/" + file, di));
+                }
+            }
+            Hdf5Writer.write(frames.resolve(file), fileAttributes(plan), sets);
+            index.add(new Xdmf.Grid("frame " + step, times[0], r.nx(), r.ny(), r.x0(), r.y0(), r.cellSize(), attrs));
+        };
+    }
+
+    /** Writes frames.xmf: the time series of the frames written. */
+    public static void writeFrameIndex(Path dir, List<Xdmf.Grid> index) throws IOException {
+        if (!index.isEmpty()) {
+            writeText(dir.resolve("frames.xmf"), Xdmf.temporal("field frames", index));
+        }
+    }
+
+    /** fields.h5, fields.xmf and field-COMPONENT.png: the fields at the end of the run. */
+    public static void writeFields(CasePlan plan, StepView v, Path dir) throws IOException {
+        int[] box = plan.fields().box();
+        GridSpec r = regionGrid(plan, box);
+        List<Component> comps = plan.fields().components();
+        List<FieldDataset> sets = new ArrayList<>();
+        List<Xdmf.Attribute> attrs = new ArrayList<>();
+        boolean bloch = periodic(plan);
+        int[] ids = ids(plan, box);
+        for (Component c : comps) {
+            double[] raw = new double[r.nx() * r.ny()];
+            double[] rawIm = bloch ? new double[raw.length] : null;
+            for (int j = 0; j < r.ny(); j++) {
+                for (int i = 0; i < r.nx(); i++) {
+                    raw[j * r.nx() + i] = v.field(c, box[0] + i, box[1] + j);
+                    if (bloch) {
+                        rawIm[j * r.nx() + i] = v.fieldImag(c, box[0] + i, box[1] + j);
+                    }
+                }
+            }
+            double[] nodes = Nodes.average(c, raw, r.nx(), r.ny());
+            Map<String, Object> a = attributes(plan, r, c, "field");
+            a.put("time_s", v.time(c));
+            a.put("step", v.stepCount());
+            FieldDataset d = new FieldDataset(name(c), nodes, r.nx(), r.ny(), Precision.SINGLE, a);
+            sets.add(d);
+            attrs.add(Xdmf.Attribute.of(d.name(), "fields.h5", d));
+            if (bloch) {
+                FieldDataset di = new FieldDataset(name(c) + "_imag", Nodes.average(c, rawIm, r.nx(), r.ny()), r.nx(), r.ny(),
+                        Precision.SINGLE, a);
+                sets.add(di);
+                attrs.add(Xdmf.Attribute.of(di.name(), "fields.h5", di));
+            }
+            FieldPicture.of(nodes, r, name(c), unit(c), FieldPicture.Quantity.REAL).outlines(ids)
+                    .title(String.format(Locale.ROOT, "%s at t = %.4g fs", name(c), v.time(c) * 1e15))
+                    .writePng(dir.resolve("field-" + c.name().toLowerCase(Locale.ROOT) + ".png"));
+        }
+        Hdf5Writer.write(dir.resolve("fields.h5"), fileAttributes(plan), sets);
+        writeText(dir.resolve("fields.xmf"), Xdmf.spatial("fields", List.of(
+                new Xdmf.Grid("fields", r.nx(), r.ny(), r.x0(), r.y0(), r.cellSize(), attrs))));
+    }
+
+    /** permittivity.h5 and permittivity.xmf: εr at each component's sites, averaged onto the nodes, and material ids. */
+    public static void writePermittivity(CasePlan plan, Path dir) throws IOException {
+        int[] box = plan.fields().box();
+        GridSpec r = regionGrid(plan, box);
+        List<FieldDataset> sets = new ArrayList<>();
+        List<Xdmf.Attribute> attrs = new ArrayList<>();
+        Polarization pol = plan.spec().polarization().value();
+        for (FieldSite site : pol == Polarization.S ? new FieldSite[] {FieldSite.EZ} : new FieldSite[] {FieldSite.EX, FieldSite.EY}) {
+            Component c = site == FieldSite.EZ ? Component.EZ : site == FieldSite.EX ? Component.EX : Component.EY;
+            double[] eps = new double[r.nx() * r.ny()];
+            for (int j = 0; j < r.ny(); j++) {
+                for (int i = 0; i < r.nx(); i++) {
+                    eps[j * r.nx() + i] = plan.materials().material(site, box[0] + i, box[1] + j).relativePermittivity();
+                }
+            }
+            Map<String, Object> a = attributes(plan, r, c, "relative permittivity");
+            a.put("unit", "1");
+            FieldDataset d = new FieldDataset("eps_" + site.name().toLowerCase(Locale.ROOT).substring(1),
+                    Nodes.average(c, eps, r.nx(), r.ny()), r.nx(), r.ny(), Precision.DOUBLE, a);
+            sets.add(d);
+            attrs.add(Xdmf.Attribute.of(d.name(), "permittivity.h5", d));
+        }
+        int[] ids = ids(plan, box);
+        double[] idv = new double[ids.length];
+        for (int k = 0; k < ids.length; k++) {
+            idv[k] = ids[k];
+        }
+        Map<String, Object> a = attributes(plan, r, pol == Polarization.S ? Component.EZ : Component.EX, "material id");
+        a.put("unit", "1");
+        a.put("materials", String.join(", ", plan.materials().materials().stream().map(m -> m.name()).toList()));
+        FieldDataset d = new FieldDataset("material_id", idv, r.nx(), r.ny(), Precision.DOUBLE, a);
+        sets.add(d);
+        attrs.add(Xdmf.Attribute.of(d.name(), "permittivity.h5", d));
+        Hdf5Writer.write(dir.resolve("permittivity.h5"), fileAttributes(plan), sets);
+        writeText(dir.resolve("permittivity.xmf"), Xdmf.spatial("permittivity", List.of(
+                new Xdmf.Grid("permittivity", r.nx(), r.ny(), r.x0(), r.y0(), r.cellSize(), attrs))));
+    }
+
+    /** Whether the run has Bloch-periodic sides (complex fields). */
+    public static boolean periodic(CasePlan plan) {
+        return plan.spec().boundary(org.evanesce.solver.grid.Side.LEFT) instanceof org.evanesce.io.casefile.BoundarySpec.Periodic;
+    }
+
+    /** Material ids at the z component's site (s) or Ex's (p) over the box, for outlines. */
+    static int[] ids(CasePlan plan, int[] box) {
+        FieldSite site = plan.spec().polarization().value() == Polarization.S ? FieldSite.EZ : FieldSite.EX;
+        int w = box[2] - box[0];
+        int h = box[3] - box[1];
+        int[] out = new int[w * h];
+        for (int j = 0; j < h; j++) {
+            for (int i = 0; i < w; i++) {
+                out[j * w + i] = plan.materials().id(site, box[0] + i, box[1] + j);
+            }
+        }
+        return out;
+    }
+
+    static void writeText(Path file, String text) throws IOException {
+        Path tmp = file.resolveSibling(file.getFileName() + ".part");
+        Files.writeString(tmp, text);
+        Files.move(tmp, file, java.nio.file.StandardCopyOption.REPLACE_EXISTING, java.nio.file.StandardCopyOption.ATOMIC_MOVE);
+    }
+}
