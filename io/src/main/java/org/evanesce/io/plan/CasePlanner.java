@@ -208,6 +208,16 @@ public final class CasePlanner {
                 double[] f = m.frequencies().stream().mapToDouble(v -> v.si()).toArray();
                 org.evanesce.solver.monitor.FieldMap fm = new org.evanesce.solver.monitor.FieldMap(spec.polarization().value(),
                         mbox[0], mbox[1], mbox[2], mbox[3], f);
+                // a continuous wave's maps: whole periods after the fields settle, as its flux
+                var ramped = spec.sources().stream().map(x -> x.signal())
+                        .filter(x -> x instanceof org.evanesce.io.casefile.SignalSpec.RampedWave).findFirst();
+                if (ramped.isPresent() && spec.sources().size() == 1) {
+                    double[] w = FluxPlanner.continuousWindow(spec, g,
+                            (org.evanesce.io.casefile.SignalSpec.RampedWave) ramped.get(), stop.maxSteps() * dt, errors);
+                    if (w != null) {
+                        fm.window(w[0], w[1]);
+                    }
+                }
                 run.listener(fm);
                 for (int k = 0; k < m.decay().size(); k++) {
                     var l = m.decay().get(k);

@@ -58,7 +58,7 @@ final class FluxPlanner {
                 Smoothing.ANISOTROPIC);
         Simulation.Builder reference = configured.apply(homogeneous);
         double[] window = w.signal() instanceof SignalSpec.RampedWave rw
-                ? continuousWindow(spec, grid, rw, w, stop.maxSteps() * dt, errors) : null;
+                ? continuousWindow(spec, grid, rw, stop.maxSteps() * dt, errors) : null;
         List<FluxPlan.Line> lines = new ArrayList<>();
         for (FluxSpec.Line l : f.lines()) {
             int row = CasePlanner.nearest(l.y().si(), grid.y0(), dx, 0.5);
@@ -98,8 +98,8 @@ final class FluxPlanner {
      *
      * @return {start, end} in s, or null (error reported) when fewer than {@value #MIN_PERIODS} periods remain
      */
-    private static double[] continuousWindow(CaseSpec spec, GridSpec grid, SignalSpec.RampedWave rw, SourceSpec.Launched w,
-                                             double end, List<Diagnostic> errors) {
+    static double[] continuousWindow(CaseSpec spec, GridSpec grid, SignalSpec.RampedWave rw, double end,
+                                     List<Diagnostic> errors) {
         double nMax = 1;
         for (MaterialSpec m : spec.materials().values()) {
             nMax = Math.max(nMax, m.index());
