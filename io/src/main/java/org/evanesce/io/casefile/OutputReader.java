@@ -7,6 +7,7 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import org.evanesce.io.casefile.Context.Expect;
+import org.evanesce.io.casefile.expr.Quantity;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
 import org.snakeyaml.engine.v2.nodes.Node;
@@ -80,9 +81,20 @@ final class OutputReader {
         String when = v.oneOf(true, "frame_interval", "frame_times");
         Value interval = null;
         List<Value> times = new ArrayList<>();
+        Long intervalSteps = null;
         if ("frame_interval".equals(when)) {
-            interval = ctx.positive(v.get("frame_interval"), v.path("frame_interval"), Expect.TIME);
-            ok &= interval != null;
+            // a time, or a plain whole number of steps
+            Scalar sc = ctx.scalar(v.get("frame_interval"), v.path("frame_interval"), "a time such as 5 fs or a number of steps");
+            Quantity q = sc == null ? null : ctx.quantity(sc, v.path("frame_interval"));
+            if (q == null) {
+                ok = false;
+            } else if (q.dimension().isNone()) {
+                intervalSteps = ctx.whole(v.get("frame_interval"), v.path("frame_interval"), 1);
+                ok &= intervalSteps != null;
+            } else {
+                interval = ctx.positive(v.get("frame_interval"), v.path("frame_interval"), Expect.TIME);
+                ok &= interval != null;
+            }
         } else if ("frame_times".equals(when)) {
             Node tn = v.get("frame_times");
             List<Node> items = tn instanceof SequenceNode ? ctx.list(tn, v.path("frame_times"), "") : List.of(tn);
@@ -132,7 +144,8 @@ final class OutputReader {
             ok &= r != null;
             region = Optional.ofNullable(r);
         }
-        return ok ? new OutputSpec(folder, write, Optional.ofNullable(interval), times, components, region) : null;
+        return ok ? new OutputSpec(folder, write, Optional.ofNullable(interval), Optional.ofNullable(intervalSteps), times,
+                components, region) : null;
     }
 
     /** {from: [x, y], to: [x, y]}, two opposite corners. */

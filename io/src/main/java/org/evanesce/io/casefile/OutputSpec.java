@@ -11,13 +11,14 @@ import org.evanesce.solver.grid.Component;
  *                      holds the case file); empty means the case file's name without its extension
  * @param write         what to write, in the order given
  * @param frameInterval simulated time between field frames, seconds (when frames are written by interval)
+ * @param frameSteps    steps between field frames (when the interval was given as a number of steps)
  * @param frameTimes    the simulated times of field frames, seconds (when listed instead)
  * @param components    the field components written to field files; empty means every component of the
  *                      case's polarization
  * @param region        the part of the domain field files cover; empty means the interior (outside the PMLs)
  */
 public record OutputSpec(Optional<Located<String>> folder, List<Located<Item>> write, Optional<Value> frameInterval,
-        List<Value> frameTimes, List<Located<Component>> components, Optional<Region> region) {
+        Optional<Long> frameSteps, List<Value> frameTimes, List<Located<Component>> components, Optional<Region> region) {
 
     public OutputSpec {
         write = List.copyOf(write);
@@ -27,7 +28,7 @@ public record OutputSpec(Optional<Located<String>> folder, List<Located<Item>> w
 
     /** The defaults: write probes only. */
     public OutputSpec(Optional<Located<String>> folder, List<Located<Item>> write, Optional<Value> frameInterval) {
-        this(folder, write, frameInterval, List.of(), List.of(), Optional.empty());
+        this(folder, write, frameInterval, Optional.empty(), List.of(), List.of(), Optional.empty());
     }
 
     /** A rectangle of the domain given by two opposite corners. */

@@ -22,6 +22,7 @@ import org.evanesce.io.casefile.BoundarySpec;
 import org.evanesce.io.casefile.CaseSpec;
 import org.evanesce.io.casefile.Diagnostic;
 import org.evanesce.io.casefile.OutputSpec;
+import org.evanesce.io.casefile.Value;
 import org.evanesce.io.casefile.Located;
 import org.evanesce.io.casefile.MaterialSpec;
 import org.evanesce.io.casefile.ProbeSpec;
@@ -186,11 +187,12 @@ public final class CasePlanner {
         long[] frames = new long[0];
         if (out.writes(OutputSpec.Item.FIELD_FRAMES)) {
             long last = stop.maxSteps();
-            if (out.frameInterval().isPresent()) {
-                long every = Math.max(1, Math.round(out.frameInterval().get().si() / dt));
+            if (out.frameInterval().isPresent() || out.frameSteps().isPresent()) {
+                long every = out.frameSteps().orElseGet(() -> Math.max(1, Math.round(out.frameInterval().get().si() / dt)));
                 long count = last / every;
                 if (count > 100_000) {
-                    error(out.frameInterval().get().at(), "output.frame_interval", String.format("%d frames (one file each) is too "
+                    error(out.frameInterval().map(Value::at).orElse(out.write().get(0).at()), "output.frame_interval",
+                            String.format("%d frames (one file each) is too "
                             + "many; expected an interval giving at most 100000 frames over the run's %d steps", count, last));
                 } else {
                     frames = java.util.stream.LongStream.rangeClosed(1, count).map(k -> k * every).toArray();

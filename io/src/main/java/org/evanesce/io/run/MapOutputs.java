@@ -87,6 +87,27 @@ public final class MapOutputs {
                             .writePng(dir.resolve("map-" + c.name().toLowerCase(Locale.ROOT) + "-" + tag + ".png"));
                 }
             }
+            for (Component c : pol.components()) {
+                if (!c.electric) {
+                    continue;
+                }
+                // the permittivity beside the maps, at this component's sites averaged onto the nodes
+                double[] eps = new double[r.nx() * r.ny()];
+                org.evanesce.geometry.FieldSite site = c == Component.EZ ? org.evanesce.geometry.FieldSite.EZ
+                        : c == Component.EX ? org.evanesce.geometry.FieldSite.EX : org.evanesce.geometry.FieldSite.EY;
+                for (int j = 0; j < r.ny(); j++) {
+                    for (int i = 0; i < r.nx(); i++) {
+                        eps[j * r.nx() + i] = plan.materials().material(site, box[0] + i, box[1] + j).relativePermittivity();
+                    }
+                }
+                String name = "eps_" + c.name().substring(1).toLowerCase(Locale.ROOT);
+                if (q == 0) {
+                    Map<String, Object> ea = FieldOutputs.attributes(plan, r, c, "relative permittivity on the grid");
+                    ea.put("unit", "1");
+                    sets.add(new FieldDataset(name, Nodes.average(c, eps, r.nx(), r.ny()), r.nx(), r.ny(), Precision.DOUBLE, ea));
+                }
+                attrs.add(new Xdmf.Attribute(name, "maps.h5", "/" + name, 8));
+            }
             double[] mag = new double[e2.length];
             for (int k = 0; k < e2.length; k++) {
                 mag[k] = Math.sqrt(e2[k]);
