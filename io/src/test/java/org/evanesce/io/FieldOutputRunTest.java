@@ -285,8 +285,8 @@ class FieldOutputRunTest {
         assertEquals(4, checkXdmf(complete.resolve("fields.xmf"), out), "fields.xmf: Hz, Ex and their imaginary parts");
         assertEquals(2 * 4, checkXdmf(complete.resolve("frames.xmf"), out), "frames.xmf: two frames of four datasets");
         assertEquals(3, checkXdmf(complete.resolve("permittivity.xmf"), out), "permittivity.xmf: eps_x, eps_y, material_id");
-        assertEquals(3 * 7, checkXdmf(complete.resolve("maps.xmf"), maps),
-                "maps.xmf: three wavelengths of Hz, Ex, Ey (real, imaginary) and |E|");
+        assertEquals(3 * 9, checkXdmf(complete.resolve("maps.xmf"), maps),
+                "maps.xmf: three wavelengths of Hz, Ex, Ey (real, imaginary), |E| and the permittivity eps_x, eps_y");
     }
 
     /**
@@ -540,10 +540,7 @@ class FieldOutputRunTest {
                     check(np.all(np.isfinite(d[...])), name + ' finite')
             with h5py.File(maps, 'r') as f:
                 names = sorted(f.keys())
-                check(len(names) == 3 * 7 + 1, 'maps datasets %s' % names)
-                for name in names:
-                    d = f[name]
-                    want = '<f8' if name == 'material_id' else '<f4'
+XX
                     check(d.dtype == np.dtype(want), '%s dtype %s' % (name, d.dtype))
                     attrs(name, d, (my, mx), mo)
             print('OK' if not problems else 'FAILED: ' + '; '.join(problems))
