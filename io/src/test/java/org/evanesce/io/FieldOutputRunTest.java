@@ -540,7 +540,10 @@ class FieldOutputRunTest {
                     check(np.all(np.isfinite(d[...])), name + ' finite')
             with h5py.File(maps, 'r') as f:
                 names = sorted(f.keys())
-XX
+                check(len(names) == 3 * 7 + 3, 'maps datasets %s' % names)
+                for name in names:
+                    d = f[name]
+                    want = '<f8' if name in ('material_id', 'eps_x', 'eps_y') else '<f4'
                     check(d.dtype == np.dtype(want), '%s dtype %s' % (name, d.dtype))
                     attrs(name, d, (my, mx), mo)
             print('OK' if not problems else 'FAILED: ' + '; '.join(problems))
