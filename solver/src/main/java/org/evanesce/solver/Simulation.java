@@ -152,6 +152,80 @@ public final class Simulation implements StepView, AutoCloseable {
         }
     }
 
+    /** Identifies checkpoint files and their layout. */
+    private static final String CHECKPOINT_MAGIC = "evanesce checkpoint 1";
+
+    /**
+     * Writes the whole state of the run, so that a simulation built the same way and given it with
+     * {@link #restoreState} continues bit for bit: the step count (the sources' time follows from it),
+     * every field and PML auxiliary array, and the accumulated results of every
+     * {@link org.evanesce.solver.monitor.StatefulListener} (running transforms, probe samples), in the
+     * order the listeners were added. Call between steps.
+     */
+    public void saveState(java.io.OutputStream stream) throws java.io.IOException {
+        java.io.DataOutputStream out = new java.io.DataOutputStream(new java.io.BufferedOutputStream(stream, 1 << 16));
+        out.writeUTF(CHECKPOINT_MAGIC);
+        out.writeInt(nx());
+        out.writeInt(ny());
+        out.writeUTF(polarization.name());
+        out.writeUTF(precision.name());
+        out.writeLong(step);
+        engine.writeState(out);
+        List<org.evanesce.solver.monitor.StatefulListener> stateful = statefulListeners();
+        out.writeInt(stateful.size());
+        for (org.evanesce.solver.monitor.StatefulListener l : stateful) {
+            out.writeUTF(l.getClass().getSimpleName());
+            l.writeState(out);
+        }
+        out.flush();
+    }
+
+    /**
+     * Reads a state written by {@link #saveState} of a simulation built the same way (same grid,
+     * polarization, precision, boundaries, sources and listeners).
+     *
+     * @throws java.io.IOException when the checkpoint is damaged or belongs to another set-up
+     */
+    public void restoreState(java.io.InputStream stream) throws java.io.IOException {
+        java.io.DataInputStream in = new java.io.DataInputStream(new java.io.BufferedInputStream(stream, 1 << 16));
+        if (!CHECKPOINT_MAGIC.equals(in.readUTF())) {
+            throw new java.io.IOException("not an evanesce checkpoint (or one of another version)");
+        }
+        int cnx = in.readInt();
+        int cny = in.readInt();
+        String pol = in.readUTF();
+        String prec = in.readUTF();
+        if (cnx != nx() || cny != ny() || !pol.equals(polarization.name()) || !prec.equals(precision.name())) {
+            throw new java.io.IOException(String.format("checkpoint of a %d x %d %s %s run; this run is %d x %d %s %s", cnx, cny,
+                    pol, prec, nx(), ny(), polarization, precision));
+        }
+        long s = in.readLong();
+        engine.readState(in);
+        List<org.evanesce.solver.monitor.StatefulListener> stateful = statefulListeners();
+        int count = in.readInt();
+        if (count != stateful.size()) {
+            throw new java.io.IOException("checkpoint holds " + count + " recording listeners; this run has " + stateful.size());
+        }
+        for (org.evanesce.solver.monitor.StatefulListener l : stateful) {
+            String kind = in.readUTF();
+            if (!kind.equals(l.getClass().getSimpleName())) {
+                throw new java.io.IOException("checkpoint holds a " + kind + " where this run has a " + l.getClass().getSimpleName());
+            }
+            l.readState(in);
+        }
+        step = s;
+    }
+
+    private List<org.evanesce.solver.monitor.StatefulListener> statefulListeners() {
+        List<org.evanesce.solver.monitor.StatefulListener> out = new ArrayList<>();
+        for (StepListener l : listeners) {
+            if (l instanceof org.evanesce.solver.monitor.StatefulListener sl) {
+                out.add(sl);
+            }
+        }
+        return out;
+    }
+
     /** Advances {@code steps} time steps. */
     public void run(long steps) {
         for (long s = 0; s < steps; s++) {

@@ -142,4 +142,16 @@ final class BlochPair extends Engine {
     public int bytesPerCell() {
         return re.bytesPerCell() + im.bytesPerCell();
     }
+
+    @Override
+    public void writeState(java.io.DataOutput out) throws java.io.IOException {
+        re.writeState(out);
+        im.writeState(out);
+    }
+
+    @Override
+    public void readState(java.io.DataInput in) throws java.io.IOException {
+        re.readState(in);
+        im.readState(in);
+    }
 }

@@ -179,4 +179,34 @@ final class DoubleP extends Engine {
     public int bytesPerCell() {
         return (5 + (cax == null ? 0 : 1) + (cay == null ? 0 : 1)) * 8;
     }
+
+    @Override
+    public void writeState(java.io.DataOutput out) throws java.io.IOException {
+        StateIO.write(out, hz);
+        StateIO.write(out, ex);
+        StateIO.write(out, ey);
+        for (DoubleStrip x : xs) {
+            StateIO.write(out, x.psiH);
+            StateIO.write(out, x.psiE);
+        }
+        for (DoubleStrip y : ys) {
+            StateIO.write(out, y.psiH);
+            StateIO.write(out, y.psiE);
+        }
+    }
+
+    @Override
+    public void readState(java.io.DataInput in) throws java.io.IOException {
+        StateIO.read(in, hz);
+        StateIO.read(in, ex);
+        StateIO.read(in, ey);
+        for (DoubleStrip x : xs) {
+            StateIO.read(in, x.psiH);
+            StateIO.read(in, x.psiE);
+        }
+        for (DoubleStrip y : ys) {
+            StateIO.read(in, y.psiH);
+            StateIO.read(in, y.psiE);
+        }
+    }
 }

@@ -337,6 +337,12 @@ public abstract class Engine {
     /** Bytes of field, coefficient and auxiliary arrays held. */
     public abstract long bytes();
 
+    /** Writes the fields and the PML auxiliaries (everything a step changes) for a checkpoint. */
+    public abstract void writeState(java.io.DataOutput out) throws java.io.IOException;
+
+    /** Reads what {@link #writeState} wrote, into this engine of the same grid and sides. */
+    public abstract void readState(java.io.DataInput in) throws java.io.IOException;
+
     /** Bytes of the arrays that exist in every cell (fields and coefficients), per cell. */
     public abstract int bytesPerCell();
 }

@@ -172,4 +172,34 @@ final class FloatS extends Engine {
     public int bytesPerCell() {
         return (ca == null ? 4 : 5) * 4;
     }
+
+    @Override
+    public void writeState(java.io.DataOutput out) throws java.io.IOException {
+        StateIO.write(out, ez);
+        StateIO.write(out, hx);
+        StateIO.write(out, hy);
+        for (FloatStrip x : xs) {
+            StateIO.write(out, x.psiH);
+            StateIO.write(out, x.psiE);
+        }
+        for (FloatStrip y : ys) {
+            StateIO.write(out, y.psiH);
+            StateIO.write(out, y.psiE);
+        }
+    }
+
+    @Override
+    public void readState(java.io.DataInput in) throws java.io.IOException {
+        StateIO.read(in, ez);
+        StateIO.read(in, hx);
+        StateIO.read(in, hy);
+        for (FloatStrip x : xs) {
+            StateIO.read(in, x.psiH);
+            StateIO.read(in, x.psiE);
+        }
+        for (FloatStrip y : ys) {
+            StateIO.read(in, y.psiH);
+            StateIO.read(in, y.psiE);
+        }
+    }
 }

@@ -20,7 +20,7 @@ import org.evanesce.solver.grid.Polarization;
  * (4F doubles) are not counted. The accumulators are double; a float variant is not offered, its
  * accuracy over runs of thousands of steps not having been measured.
  */
-public final class FieldMap implements StepListener {
+public final class FieldMap implements StatefulListener {
 
     private final Component[] components;
     private final int i0;
@@ -240,5 +240,35 @@ public final class FieldMap implements StepListener {
     /** Bytes held by the accumulators: 16 · w · h · 3 · F (2 doubles per cell, component and frequency). */
     public long bytes() {
         return 2L * Double.BYTES * width() * height() * components.length * omega.length;
+    }
+
+    @Override
+    public void writeState(java.io.DataOutput out) throws java.io.IOException {
+        for (double[][][] a : new double[][][][] {re, im}) {
+            out.writeInt(a.length);
+            for (double[][] b : a) {
+                out.writeInt(b.length);
+                for (double[] c : b) {
+                    org.evanesce.solver.kernel.StateIO.write(out, c);
+                }
+            }
+        }
+    }
+
+    @Override
+    public void readState(java.io.DataInput in) throws java.io.IOException {
+        for (double[][][] a : new double[][][][] {re, im}) {
+            if (in.readInt() != a.length) {
+                throw new java.io.IOException("checkpoint's field map has another shape");
+            }
+            for (double[][] b : a) {
+                if (in.readInt() != b.length) {
+                    throw new java.io.IOException("checkpoint's field map has another shape");
+                }
+                for (double[] c : b) {
+                    org.evanesce.solver.kernel.StateIO.read(in, c);
+                }
+            }
+        }
     }
 }

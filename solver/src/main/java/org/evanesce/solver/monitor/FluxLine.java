@@ -18,7 +18,7 @@ import org.evanesce.solver.grid.Polarization;
  * S = ½ Re Σ E·H̃* Δ / η0 with H̃ = η0·H as stored: for s, S_y = ½ Re(Ez Hx*), for p,
  * S_y = −½ Re(Ex Hz*) (E × H* along ŷ; Born &amp; Wolf sec. 1.1, common practice).
  */
-public final class FluxLine implements StepListener {
+public final class FluxLine implements StatefulListener {
 
     private final Component e;
     private final Component h;
@@ -213,5 +213,27 @@ public final class FluxLine implements StepListener {
             s[k] = sign * 0.5 * (er * hr + ei * hi) / PhysicalConstants.ETA0;
         }
         return s;
+    }
+
+    @Override
+    public void writeState(java.io.DataOutput out) throws java.io.IOException {
+        for (double[][] a : new double[][][] {eRe, eIm, hRe, hIm}) {
+            out.writeInt(a.length);
+            for (double[] row : a) {
+                org.evanesce.solver.kernel.StateIO.write(out, row);
+            }
+        }
+    }
+
+    @Override
+    public void readState(java.io.DataInput in) throws java.io.IOException {
+        for (double[][] a : new double[][][] {eRe, eIm, hRe, hIm}) {
+            if (in.readInt() != a.length) {
+                throw new java.io.IOException("checkpoint's flux line has another number of frequencies");
+            }
+            for (double[] row : a) {
+                org.evanesce.solver.kernel.StateIO.read(in, row);
+            }
+        }
     }
 }

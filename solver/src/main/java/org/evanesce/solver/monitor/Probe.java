@@ -7,7 +7,7 @@ import org.evanesce.solver.grid.Component;
  * Records one component at one node after every step: a time series with its time stamps (and
  * the imaginary parts, which only Bloch-periodic runs have).
  */
-public final class Probe implements StepListener {
+public final class Probe implements StatefulListener {
 
     private final Component component;
     private final int i;
@@ -53,5 +53,29 @@ public final class Probe implements StepListener {
     /** The time of each recorded value, seconds. */
     public double[] times() {
         return Arrays.copyOf(times, n);
+    }
+
+    @Override
+    public void writeState(java.io.DataOutput out) throws java.io.IOException {
+        out.writeInt(n);
+        org.evanesce.solver.kernel.StateIO.write(out, java.util.Arrays.copyOf(values, n));
+        org.evanesce.solver.kernel.StateIO.write(out, java.util.Arrays.copyOf(imag, n));
+        org.evanesce.solver.kernel.StateIO.write(out, java.util.Arrays.copyOf(times, n));
+    }
+
+    @Override
+    public void readState(java.io.DataInput in) throws java.io.IOException {
+        int count = in.readInt();
+        double[] v = new double[count];
+        double[] im = new double[count];
+        double[] t = new double[count];
+        org.evanesce.solver.kernel.StateIO.read(in, v);
+        org.evanesce.solver.kernel.StateIO.read(in, im);
+        org.evanesce.solver.kernel.StateIO.read(in, t);
+        int capacity = Math.max(1024, Integer.highestOneBit(Math.max(1, count)) << 1);
+        values = java.util.Arrays.copyOf(v, capacity);
+        imag = java.util.Arrays.copyOf(im, capacity);
+        times = java.util.Arrays.copyOf(t, capacity);
+        n = count;
     }
 }
