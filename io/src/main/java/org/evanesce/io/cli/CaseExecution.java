@@ -15,6 +15,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.evanesce.io.output.hdf5.Xdmf;
 import org.evanesce.io.run.BeamPlots;
+import org.evanesce.io.run.Checkpoints;
 import org.evanesce.io.run.FieldOutputs;
 import org.evanesce.io.run.MapOutputs;
 import org.evanesce.solver.grid.Component;
@@ -40,6 +41,12 @@ final class CaseExecution {
      */
     static Finished run(CaseOptions.Loaded l, Map<String, String> overrides, RunFolder rf, PrintWriter o,
                         double progressSeconds, boolean table) throws IOException {
+        return run(l, overrides, rf, o, progressSeconds, table, null);
+    }
+
+    /** The same with checkpoints (null: none). */
+    static Finished run(CaseOptions.Loaded l, Map<String, String> overrides, RunFolder rf, PrintWriter o,
+                        double progressSeconds, boolean table, Checkpoints checkpoints) throws IOException {
         CasePlan plan = l.plan();
         CaseSpec s = plan.spec();
         boolean terminal = System.console() != null;
@@ -66,11 +73,14 @@ final class CaseExecution {
                         } catch (IOException e) {
                             throw new UncheckedIOException("writing the fields at the end of the run: " + e.getMessage(), e);
                         }
-                    });
+                    }, checkpoints);
         } catch (UncheckedIOException e) {
             throw e.getCause();
         } finally {
             progress.finish();
+        }
+        if (r.resumedFromStep() >= 0) {
+            o.printf(Locale.ROOT, "continued from the checkpoint at step %d%n", r.resumedFromStep());
         }
         FieldOutputs.writeFrameIndex(rf.dir(), frames);
         List<MapOutputs.Decay> decays = plan.fields().maps().isPresent() ? MapOutputs.write(plan, rf.dir()) : List.of();

@@ -8,6 +8,7 @@ import java.util.concurrent.Callable;
 import org.evanesce.io.Main;
 import org.evanesce.io.casefile.CaseSpec;
 import org.evanesce.io.output.RunFolder;
+import org.evanesce.io.run.Checkpoints;
 import org.evanesce.io.run.RunOutputs;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -41,20 +42,45 @@ public final class RunCommand implements Callable<Integer> {
             description = "Seconds between progress lines when the output is not a terminal (default: ${DEFAULT-VALUE}).")
     private double progressSeconds;
 
+    @Option(names = "--checkpoint-minutes", paramLabel = "M", defaultValue = "15",
+            description = "Save the run's whole state every M minutes of wall time to FOLDER.checkpoint beside the results "
+                    + "folder; running the same command again continues from it, bit for bit (default: ${DEFAULT-VALUE}; 0: "
+                    + "never). Runs that write field frames do not checkpoint.")
+    private double checkpointMinutes;
+
     @Override
     public Integer call() throws IOException {
         PrintWriter o = spec.commandLine().getOut();
         CaseOptions.Loaded l = options.load(spec);
         Path folder = out != null ? out : defaultFolder(options.caseFile, l.plan().spec());
+        Checkpoints ck = checkpoints(l, folder, o);
         try (RunFolder rf = RunFolder.begin(folder, force)) {
-            CaseExecution.run(l, options.overrides, rf, o, progressSeconds, true);
+            CaseExecution.run(l, options.overrides, rf, o, progressSeconds, true, ck);
             rf.commit();
+            if (ck != null) {
+                java.nio.file.Files.deleteIfExists(ck.file());
+            }
             o.println("results: " + rf.target());
             o.println("Caution: " + RunOutputs.CAUTION);
             return Main.OK;
         } catch (FileAlreadyExistsException e) {
             throw new ParameterException(spec.commandLine(), e.getFile() + ": " + e.getReason());
         }
+    }
+
+    /** The run's checkpoints, or null when off or when the case writes field frames (they cannot be resumed). */
+    private Checkpoints checkpoints(CaseOptions.Loaded l, Path folder, PrintWriter o) throws IOException {
+        if (!(checkpointMinutes > 0)) {
+            return null;
+        }
+        if (l.plan().fields().frameSteps().length > 0) {
+            o.println("note: runs that write field frames are not checkpointed (frames taken before a checkpoint would be lost)");
+            return null;
+        }
+        Path file = folder.toAbsolutePath().resolveSibling(folder.getFileName() + ".checkpoint");
+        StringBuilder id = new StringBuilder(l.sha256()).append('|').append(VersionProvider.version());
+        new java.util.TreeMap<>(options.overrides).forEach((k, v) -> id.append('|').append(k).append('=').append(v));
+        return new Checkpoints(file, checkpointMinutes * 60, id.toString());
     }
 
     /** The case's output folder (relative to the case file's folder), else the case file's name without extension. */

@@ -23,9 +23,10 @@ public final class CaseRunner {
      * @param peakEnergy     largest energy measured, J/m (NaN if never measured)
      * @param bytes          bytes of field, coefficient and PML arrays
      * @param referenceWallSeconds wall time of the flux normalisation's reference run (0 when there is none)
+     * @param resumedFromStep the step the run continued from a checkpoint at, or −1
      */
     public record Result(long steps, double wallSeconds, int threads, String stopReason, double finalEnergy,
-                         double peakEnergy, long bytes, double referenceWallSeconds) {
+                         double peakEnergy, long bytes, double referenceWallSeconds, long resumedFromStep) {
 
         /** Cell updates per second of wall time. */
         public double cellUpdatesPerSecond(long cells) {
@@ -71,23 +72,48 @@ public final class CaseRunner {
      */
     public static Result run(CasePlan plan, Consumer<Progress.Report> progress, double progressSeconds,
                              Consumer<org.evanesce.solver.monitor.StepView> atEnd) {
+        return run(plan, progress, progressSeconds, atEnd, null);
+    }
+
+    /**
+     * The same with checkpoints: the run's whole state is saved to {@code ck.file()} (atomically) at
+     * least every {@code ck.intervalSeconds()} of wall time and when its stepping ends; if that file
+     * holds a checkpoint of the same case (same identity) the run continues from it, bit for bit. A
+     * run stopped during its flux reference run repeats only the reference run.
+     */
+    public static Result run(CasePlan plan, Consumer<Progress.Report> progress, double progressSeconds,
+                             Consumer<org.evanesce.solver.monitor.StepView> atEnd, Checkpoints ck) {
         JitWarmUp.run(plan.spec().polarization().value(), plan.spec().numerics().precision().value());
         try (Simulation sim = build(plan)) {
             if (progress != null) {
                 sim.addListener(new Progress(plan.stop().maxSteps(), progressSeconds, progress));
             }
             long t0 = System.nanoTime();
-            String reason;
+            String reason = null;
             double energy = Double.NaN;
-            double peak = Double.NaN;
-            if (plan.stop() instanceof CasePlan.Stop.Steps s) {
-                sim.run(s.steps());
+            double peak = plan.stop() instanceof CasePlan.Stop.Steps ? Double.NaN : 0;
+            double before = 0;
+            Checkpoints.State restored = ck == null ? null : ck.restore(sim);
+            long resumedFrom = restored == null ? -1 : sim.stepCount();
+            if (restored != null) {
+                peak = restored.peak();
+                energy = restored.energy();
+                reason = restored.reason();
+                before = restored.wallSeconds();
+            }
+            long lastSave = System.nanoTime();
+            if (reason == null && plan.stop() instanceof CasePlan.Stop.Steps s) {
+                while (sim.stepCount() < s.steps()) {
+                    sim.run(Math.min(Checkpoints.CHUNK, s.steps() - sim.stepCount()));
+                    if (ck != null && ck.due(lastSave)) {
+                        ck.save(sim, peak, energy, null, before + (System.nanoTime() - t0) * 1e-9);
+                        lastSave = System.nanoTime();
+                    }
+                }
                 reason = "ran the requested " + s.steps() + " steps";
-            } else {
+            } else if (reason == null) {
                 CasePlan.Stop.Decay d = (CasePlan.Stop.Decay) plan.stop();
                 int[] r = plan.interior();
-                peak = 0;
-                reason = null;
                 while (sim.stepCount() < d.limitSteps()) {
                     long chunk = Math.min(d.checkInterval(), d.limitSteps() - sim.stepCount());
                     sim.run(chunk);
@@ -98,13 +124,21 @@ public final class CaseRunner {
                                 peak > 0 ? energy / peak : 0.0, d.fraction());
                         break;
                     }
+                    if (ck != null && ck.due(lastSave)) {
+                        ck.save(sim, peak, energy, null, before + (System.nanoTime() - t0) * 1e-9);
+                        lastSave = System.nanoTime();
+                    }
                 }
                 if (reason == null) {
                     reason = String.format("reached the time limit (%d steps) before the energy decayed to %.3g of its "
                             + "largest value (now %.3g)", d.limitSteps(), d.fraction(), peak > 0 ? energy / peak : 0.0);
                 }
             }
-            double wall = (System.nanoTime() - t0) * 1e-9;
+            double wall = before + (restored != null && restored.reason() != null ? 0 : (System.nanoTime() - t0) * 1e-9);
+            if (ck != null && (restored == null || restored.reason() == null)) {
+                // the stepping is done: a restart from here repeats only what follows
+                ck.save(sim, peak, energy, reason, wall);
+            }
             if (atEnd != null) {
                 atEnd.accept(sim);
             }
@@ -113,7 +147,8 @@ public final class CaseRunner {
                 referenceWall = runReference(plan, sim.stepCount(), progress, progressSeconds);
                 reason += "; the reference run (for the incident power) took the same number of steps";
             }
-            return new Result(sim.stepCount(), wall, sim.threads(), reason, energy, peak, sim.bytes(), referenceWall);
+            return new Result(sim.stepCount(), wall, sim.threads(), reason, energy, peak, sim.bytes(), referenceWall,
+                    resumedFrom);
         }
     }
 

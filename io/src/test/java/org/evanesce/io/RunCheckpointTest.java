@@ -1,0 +1,98 @@
+package org.evanesce.io;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.Random;
+import java.util.concurrent.TimeUnit;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/**
+ * Issue #7: a single run killed (SIGKILL) after a checkpoint and started again with the same command
+ * continues from the checkpoint and gives flux results identical, byte for byte, to an uninterrupted
+ * run. The killed run is a child JVM; the moment of the kill is random (seeded, printed) but after the
+ * first checkpoint file has appeared.
+ */
+class RunCheckpointTest {
+
+    @TempDir
+    Path tmp;
+
+    /** A plane wave through a gap, fine enough that its main run lasts a few seconds. */
+    private static final String CASE = """
+            parameters:
+              cpw: 48
+            design_wavelength: 633 nm
+            polarization: s
+            domain: {width: 0.1 um, height: 4 um, background: glass}
+            resolution: {cells_per_wavelength: cpw}
+            materials:
+              glass: {index: 1.5}
+              gap_fill: {index: 1.0}
+            shapes:
+              - layer_stack: {start: [0, -75 nm], layers: [{material: gap_fill, thickness: 150 nm}]}
+            boundaries: {left: periodic, right: periodic, bottom: pml 0.5 um, top: pml 0.5 um}
+            sources:
+              - plane_wave: {y: -1 um, angle: 45 deg, signal: {pulse: {wavelength: 633 nm, bandwidth: 20 nm}}}
+            flux:
+              wavelengths: [625 nm, 633 nm, 641 nm]
+              lines:
+                - {y: -1.3 um, measures: reflected}
+                - {y: 1 um, measures: transmitted}
+            stop: {decay: 1e-6, limit: 600 fs}
+            """;
+
+    private record Outcome(int code, String out, String err) { }
+
+    private static Outcome run(String... args) {
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        ByteArrayOutputStream err = new ByteArrayOutputStream();
+        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8), new PrintStream(err, true, StandardCharsets.UTF_8));
+        return new Outcome(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
+    }
+
+    @Test
+    void killedRunContinuesFromItsCheckpointBitForBit() throws IOException, InterruptedException {
+        Path caseFile = tmp.resolve("gap.yaml");
+        Files.writeString(caseFile, CASE);
+        Path whole = tmp.resolve("whole");
+        Outcome w = run("run", caseFile.toString(), "--out", whole.toString(), "--checkpoint-minutes", "0", "--threads", "1");
+        assertEquals(Main.OK, w.code(), w.err());
+
+        Path killed = tmp.resolve("killed");
+        Path checkpoint = tmp.resolve("killed.checkpoint");
+        long seed = System.nanoTime();
+        System.out.println("RunCheckpointTest: kill delay seed " + seed);
+        Random random = new Random(seed);
+        Process child = new ProcessBuilder(List.of(Path.of(System.getProperty("java.home"), "bin", "java").toString(),
+                "--add-modules", "jdk.incubator.vector", "-cp", System.getProperty("java.class.path"), "org.evanesce.io.Main",
+                "run", caseFile.toString(), "--out", killed.toString(), "--checkpoint-minutes", "0.002", "--threads", "1"))
+                .redirectErrorStream(true).redirectOutput(tmp.resolve("child.log").toFile()).start();
+        long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(120);
+        while (!Files.exists(checkpoint) && child.isAlive() && System.nanoTime() < deadline) {
+            Thread.sleep(20);
+        }
+        assertTrue(Files.exists(checkpoint), "no checkpoint appeared before the child ended: " + Files.readString(tmp.resolve("child.log")));
+        Thread.sleep(random.nextInt(1500));
+        assertTrue(child.isAlive(), "the child finished before it could be killed; lengthen the case");
+        child.destroyForcibly().waitFor();
+        assertFalse(Files.exists(killed), "a killed run must not leave a results folder");
+
+        Outcome again = run("run", caseFile.toString(), "--out", killed.toString(), "--checkpoint-minutes", "0.002", "--threads", "2");
+        assertEquals(Main.OK, again.code(), again.err());
+        assertTrue(again.out().contains("continued from the checkpoint at step"), again.out());
+        assertArrayEquals(Files.readAllBytes(whole.resolve("flux.csv")), Files.readAllBytes(killed.resolve("flux.csv")),
+                "flux.csv of the restarted run differs from the uninterrupted one");
+        assertFalse(Files.exists(checkpoint), "the checkpoint is removed once the results are in place");
+    }
+}
