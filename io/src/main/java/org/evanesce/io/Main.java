@@ -31,12 +31,13 @@ import picocli.CommandLine.Spec;
 @Command(name = "evanesce", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
         description = "2D FDTD field simulator for optical tunnelling and near-field geometries.",
         subcommands = {RunCommand.class, CheckCommand.class, BenchCommand.class, org.evanesce.io.cli.StackCommand.class,
-            org.evanesce.io.cli.AccuracyCommand.class, org.evanesce.io.cli.RenderCommand.class},
+            org.evanesce.io.cli.AccuracyCommand.class, org.evanesce.io.cli.RenderCommand.class,
+            org.evanesce.io.cli.SweepCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
             "0:success",
             "2:bad input or usage",
-            "3:run failed (e.g. the solver diverged, or out of memory)",
+            "3:run failed (e.g. the solver diverged, or out of memory; a sweep with failed or, for --merge-only, missing points)",
             "1:unexpected internal error"})
 public final class Main implements Callable<Integer> {
 

@@ -87,6 +87,7 @@ final class CaseParser {
     OutputSpec output;
     StopSpec stop;
     NumericsSpec numerics;
+    SweepSpec sweep;
 
     CaseParser(Context ctx) {
         this.ctx = ctx;
@@ -105,7 +106,8 @@ final class CaseParser {
     }
 
     void parse(Node root, Map<String, String> overrides) {
-        MapView top = MapView.of(ctx, root, Schema.ROOT, "", ctx.pos(root));
+        SweepReader sweepReader = new SweepReader(ctx);
+        MapView top = MapView.of(ctx, sweepReader.take(root), Schema.ROOT, "", ctx.pos(root));
         if (top == null) {
             return;
         }
@@ -114,6 +116,7 @@ final class CaseParser {
             title = ctx.text(t, "title");
         }
         ctx.parameters.read(top.get("parameters"), overrides);
+        sweep = sweepReader.read();
 
         Node pol = top.require("polarization", "s (Ez, Hx, Hy) or p (Hz, Ex, Ey)");
         if (pol != null) {

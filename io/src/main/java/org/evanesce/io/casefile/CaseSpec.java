@@ -30,11 +30,13 @@ import org.evanesce.solver.grid.Side;
  * @param output           what to write
  * @param stop             when to stop
  * @param numerics         precision, threads, Courant number
+ * @param sweep            the parameter values {@code evanesce sweep} runs, when the case has a sweep section
  */
 public record CaseSpec(String source, Optional<String> title, Map<String, Parameter> parameters,
         Located<Polarization> polarization, Value designWavelength, DomainSpec domain, ResolutionSpec resolution,
         Map<String, MaterialSpec> materials, List<ShapeSpec> shapes, Map<Side, BoundarySpec> boundaries,
-        List<SourceSpec> sources, List<ProbeSpec> probes, Optional<FluxSpec> flux, Optional<MapsSpec> maps, OutputSpec output, StopSpec stop, NumericsSpec numerics) {
+        List<SourceSpec> sources, List<ProbeSpec> probes, Optional<FluxSpec> flux, Optional<MapsSpec> maps, OutputSpec output, StopSpec stop, NumericsSpec numerics,
+        Optional<SweepSpec> sweep) {
 
     public CaseSpec {
         parameters = Collections.unmodifiableMap(new LinkedHashMap<>(parameters));

@@ -72,11 +72,18 @@ final class Schema {
     static final Section NUMERICS = new Section("numerics", List.of("precision", "threads", "courant",
             "dispersion_correction"));
 
+    /**
+     * The sweep: a top-level key of its own, read beside the case proper (the other commands run the
+     * case as written), so it is not one of {@link #ROOT}'s keys.
+     */
+    static final Section SWEEP = new Section("sweep", List.of("parameters", "combine"));
+    static final Section SWEEP_RANGE = new Section("sweep.parameters.NAME", List.of("from", "to", "count", "spacing"));
+
     static final List<Section> ALL = List.of(ROOT, DOMAIN, RESOLUTION, MATERIAL, SHAPES, RECTANGLE, POLYGON, DISK,
             ELLIPSE, HALF_PLANE, LAYER_STACK, LAYER, BOUNDARIES, SOURCES, POINT_SOURCE, LINE_SOURCE, PLANE_WAVE, GAUSSIAN_BEAM, SIGNAL,
             PULSE, RAMPED_WAVE, GAUSSIAN_DERIVATIVE, PROBE, FLUX, WAVELENGTH_RANGE, FREQUENCY_RANGE, FLUX_LINE, MAPS, MAP_WAVELENGTH_RANGE,
             MAP_FREQUENCY_RANGE, DECAY_LINE, OUTPUT, REGION, STOP,
-            NUMERICS);
+            NUMERICS, SWEEP, SWEEP_RANGE);
 
     private Schema() {
     }

@@ -1,0 +1,457 @@
+package org.evanesce.io.cli;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import java.nio.file.attribute.PosixFilePermissions;
+import java.util.ArrayList;
+import java.util.HashSet;
+import java.util.LinkedHashMap;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Set;
+import java.util.concurrent.Callable;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import org.evanesce.io.Main;
+import org.evanesce.io.RunFailedException;
+import org.evanesce.io.casefile.CaseFileException;
+import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.casefile.CaseSpec;
+import org.evanesce.io.casefile.Diagnostic;
+import org.evanesce.io.casefile.LoadedCase;
+import org.evanesce.io.casefile.Located;
+import org.evanesce.io.casefile.ReadOptions;
+import org.evanesce.io.casefile.SweepSpec;
+import org.evanesce.io.output.Json;
+import org.evanesce.io.plan.CasePlan;
+import org.evanesce.io.plan.CasePlanner;
+import org.evanesce.io.plan.PlanException;
+import org.evanesce.io.run.CaseRunner;
+import org.evanesce.io.run.RunOutputs;
+import org.evanesce.io.sweep.Parallelism;
+import org.evanesce.io.sweep.PointHash;
+import org.evanesce.io.sweep.SlurmScript;
+import org.evanesce.io.sweep.SweepFolder;
+import org.evanesce.io.sweep.SweepMerge;
+import org.evanesce.io.sweep.SweepPoint;
+import org.evanesce.io.sweep.SweepRecord;
+import org.evanesce.io.sweep.SweepRunner;
+import org.evanesce.solver.DivergenceException;
+import org.evanesce.solver.grid.Precision;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.ParameterException;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code evanesce sweep CASE}: runs every point of the case's {@code sweep} section, each into its own
+ * complete results folder {@code DIR/point-NNNN/}, and merges the results into {@code DIR/sweep.csv}
+ * and {@code DIR/sweep.png}. Every point is read (and, before it runs, planned) up front, so a bad
+ * value stops the sweep before anything runs. Running the same sweep again keeps the points whose
+ * folder holds a finished run with the expected point hash and runs the others; a changed case is
+ * refused unless {@code --restart}. {@code --shard i/N} runs a part of the points (for job arrays),
+ * {@code --merge-only} gathers what is finished, and {@code --slurm-script} writes a job-array script.
+ */
+@Command(name = "sweep", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class, sortOptions = false,
+        description = {"Run every point of the case's sweep section (each a set of --set overrides) into DIR/point-NNNN/, "
+                + "one complete results folder per point, and merge the results into DIR/sweep.csv and DIR/sweep.png.",
+            "Running the same command again continues: finished points are kept (checked by their point hash), unfinished "
+                + "ones run again. A case changed since DIR/sweep.json was written is refused unless --restart."})
+public final class SweepCommand implements Callable<Integer> {
+
+    private static final Pattern SHARD = Pattern.compile("(\\d+)/(\\d+)");
+
+    @Spec
+    private CommandSpec spec;
+
+    @Mixin
+    private CaseOptions options;
+
+    @Option(names = "--out", paramLabel = "DIR", description = "Sweep folder (default: the case's output folder + '-sweep').")
+    private Path out;
+
+    @Option(names = "--parallel", paramLabel = "N",
+            description = "Points run at once, the threads shared among them (default: chosen from the grid size and the "
+                    + "cores: several at once only when one point's grid is too small to use every core).")
+    private Integer parallel;
+
+    @Option(names = "--shard", paramLabel = "i/N",
+            description = "Run only the points whose number %% N == i (0 <= i < N), into the same DIR: one shard per task "
+                    + "of a job array; merge with --merge-only when all have finished.")
+    private String shard;
+
+    @Option(names = "--restart", description = "Accept a case or sweep that changed since DIR/sweep.json was written and "
+            + "start over: points whose results do not match are run again, each old folder replaced only once its new run "
+            + "has finished.")
+    private boolean restart;
+
+    @Option(names = "--merge-only", description = "Run nothing: merge the finished points into sweep.csv and sweep.png and "
+            + "list the missing ones (exit 0 when complete, 3 when points are missing).")
+    private boolean mergeOnly;
+
+    @Option(names = "--slurm-script", paramLabel = "TASKS",
+            description = "Run nothing: write DIR/sweep.slurm, a Slurm job-array script of TASKS tasks, each running one shard, "
+                    + "and print the commands to submit it and to merge.")
+    private Integer slurmTasks;
+
+    @Option(names = "--launcher", paramLabel = "PATH",
+            description = "The evanesce launcher the Slurm script calls (default: the repository's 'evanesce' script beside "
+                    + "this program).")
+    private Path launcher;
+
+    @Option(names = "--progress-seconds", paramLabel = "S", defaultValue = "10",
+            description = "Seconds between progress lines when the output is not a terminal (default: ${DEFAULT-VALUE}).")
+    private double progressSeconds;
+
+    /** A point after reading: its values in SI, its overrides and hash, and (for points about to run) its grid. */
+    private record Read(SweepPoint point, Map<String, String> overrides, double[] si, String hash) { }
+
+    @Override
+    public Integer call() throws IOException {
+        PrintWriter o = spec.commandLine().getOut();
+        PrintWriter err = spec.commandLine().getErr();
+        int[] shardOf = checkOptions();
+        Path caseFile = options.caseFile;
+        byte[] text;
+        try {
+            text = Files.readAllBytes(caseFile);
+        } catch (NoSuchFileException e) {
+            throw usage(caseFile + ": no such file");
+        } catch (IOException e) {
+            throw usage(caseFile + ": cannot read: " + e.getMessage());
+        }
+        String caseText = new String(text, StandardCharsets.UTF_8);
+        String caseSha = PointHash.sha256(text);
+        String version = VersionProvider.version();
+        boolean runs = !mergeOnly && slurmTasks == null;
+        // merging and writing a script run nothing, so this machine's memory is no limit for the grids
+        ReadOptions read = runs ? ReadOptions.defaults() : new ReadOptions(Long.MAX_VALUE);
+
+        LoadedCase asWritten = readCase(caseText, options.overrides, read, err, null);
+        CaseSpec base = asWritten.spec();
+        SweepSpec sweep = base.sweep().orElseThrow(() -> usage(caseFile + ": the case has no sweep section; add one "
+                + "(docs/case-file.md, 'sweep') or run it with 'evanesce run'"));
+        for (SweepSpec.Axis a : sweep.parameters()) {
+            if (options.overrides.containsKey(a.name())) {
+                throw usage("--set " + a.name() + "=" + options.overrides.get(a.name()) + ": " + a.name() + " is swept (" + caseFile
+                        + ":" + a.at().line() + "); remove it from --set or from the sweep");
+            }
+        }
+        Set<String> seen = new HashSet<>();
+        for (Diagnostic d : withoutSweepNote(asWritten.diagnostics())) {
+            err.println(d);
+            seen.add(d.path() + ": " + d.message());
+        }
+
+        // every point is read before anything runs
+        List<SweepPoint> points = SweepPoint.expand(sweep);
+        List<Read> all = new ArrayList<>();
+        int bad = 0;
+        for (SweepPoint p : points) {
+            Map<String, String> ov = overrides(p);
+            try {
+                LoadedCase lc = CaseReader.parse(caseText, caseFile.toString(), ov, read);
+                for (Diagnostic d : withoutSweepNote(lc.warnings())) {
+                    if (seen.add(d.path() + ": " + d.message())) {
+                        err.println("point " + p.number() + " (" + p.describe() + "): " + d);
+                    }
+                }
+                double[] si = new double[p.names().size()];
+                for (int k = 0; k < si.length; k++) {
+                    si[k] = lc.spec().parameters().get(p.names().get(k)).value().value();
+                }
+                all.add(new Read(p, ov, si, PointHash.of(text, ov, version)));
+            } catch (CaseFileException e) {
+                if (bad++ < 20) {
+                    for (Diagnostic d : e.errors()) {
+                        err.println("point " + p.number() + " (" + p.describe() + "): " + d);
+                    }
+                }
+            }
+        }
+        if (bad > 0) {
+            throw usage(String.format(Locale.ROOT, "%d of %d points of %s have errors%s; nothing was run or written", bad,
+                    points.size(), caseFile, bad > 20 ? " (the first 20 are shown)" : ""));
+        }
+
+        SweepFolder folder = new SweepFolder(out != null ? out : defaultFolder(caseFile, base));
+        List<SweepRecord.Entry> entries = all.stream().map(r -> new SweepRecord.Entry(r.point(), r.hash())).toList();
+        Map<String, Object> record = SweepRecord.of(version, caseFile.toAbsolutePath().normalize().toString(), caseSha,
+                options.overrides, sweep, entries);
+        checkRecord(folder, record);
+        List<SweepMerge.Point> mergePoints = all.stream().map(r -> new SweepMerge.Point(r.point(), r.si(), r.hash())).toList();
+        List<org.evanesce.io.casefile.expr.Dimension> kinds = sweep.parameters().stream().map(SweepSpec.Axis::kind).toList();
+        String title = base.title().orElse(caseFile.getFileName().toString());
+
+        if (mergeOnly) {
+            if (!Files.isDirectory(folder.dir())) {
+                throw usage(folder.dir() + ": no sweep folder there to merge; run the sweep (or its shards) first, or give its --out");
+            }
+            return merge(folder, mergePoints, kinds, title, o, err, true);
+        }
+        if (slurmTasks != null) {
+            return slurm(folder, record, caseFile, points.size(), o);
+        }
+        writeRecord(folder, record);
+
+        // this run's points: the shard's, less those finished already
+        Set<Integer> mine = new LinkedHashSet<>();
+        for (Read r : all) {
+            if (shardOf == null || r.point().number() % shardOf[1] == shardOf[0]) {
+                mine.add(r.point().number());
+            }
+        }
+        for (String gone : folder.removeLeftovers(mine, shardOf == null)) {
+            o.println("removed " + folder.dir().resolve(gone) + ", left by a run that was stopped");
+        }
+        List<Read> todo = new ArrayList<>();
+        int finishedBefore = 0;
+        for (Read r : all) {
+            if (folder.finished(r.point().number(), r.hash())) {
+                finishedBefore++;
+            } else if (mine.contains(r.point().number())) {
+                todo.add(r);
+            }
+        }
+        Parallelism choice = planAll(caseText, todo, base, err);
+        o.printf(Locale.ROOT, "sweep of %s: %d points (%s of %s)%s; %d finished already, %d to run%s%n", caseFile, points.size(),
+                sweep.combine().caseName(), String.join(", ", points.get(0).names()),
+                shardOf == null ? "" : String.format(Locale.ROOT, ", shard %d/%d has %d", shardOf[0], shardOf[1], mine.size()),
+                finishedBefore, todo.size(), todo.isEmpty() ? "" : String.format(Locale.ROOT, ", %d at once with %d thread(s) "
+                        + "each (%s); writing %s", choice.parallel(), choice.threadsPerPoint(), choice.reason(), folder.dir()));
+
+        SweepRunner runner = new SweepRunner(folder, points.size(), finishedBefore, o, System.console() != null);
+        List<SweepRunner.Task> tasks = todo.stream().map(r -> new SweepRunner.Task(r.point(),
+                SweepRunner.pointRecord(r.point(), r.overrides(), r.hash(), version))).toList();
+        SweepRunner.Outcome outcome = runner.run(tasks, choice.parallel(), choice.threadsPerPoint(),
+                (p, rf, pointOut, threads) -> runPoint(caseText, caseFile, caseSha, all.get(p.number()).overrides(), rf, pointOut,
+                        threads));
+
+        boolean complete = all.stream().allMatch(r -> folder.finished(r.point().number(), r.hash()));
+        int code = Main.OK;
+        if (shardOf == null || complete) {
+            code = merge(folder, mergePoints, kinds, title, o, err, false);
+        } else {
+            o.printf(Locale.ROOT, "shard %d/%d: done; the sweep is not complete yet. When every shard has finished, merge with:%n"
+                    + "  evanesce sweep %s --out %s --merge-only%n", shardOf[0], shardOf[1], caseFile, folder.dir());
+        }
+        if (!outcome.failed().isEmpty()) {
+            err.printf(Locale.ROOT, "evanesce sweep: %d point(s) failed: %s (see above); the others are kept. Running the same "
+                    + "command again retries them.%n", outcome.failed().size(),
+                    SweepMerge.ranges(new ArrayList<>(outcome.failed().keySet())));
+            code = Main.RUN_FAILED;
+        }
+        o.println("Caution: " + RunOutputs.CAUTION);
+        return code;
+    }
+
+    /** Checks the options against each other; returns the shard {i, N} or null. */
+    private int[] checkOptions() {
+        if (options.threads != null && options.threads < 1) {
+            throw usage("--threads " + options.threads + " must be >= 1");
+        }
+        if (parallel != null && parallel < 1) {
+            throw usage("--parallel " + parallel + " must be >= 1");
+        }
+        if (slurmTasks != null && slurmTasks < 1) {
+            throw usage("--slurm-script " + slurmTasks + ": expected a number of array tasks, at least 1");
+        }
+        if (mergeOnly && (shard != null || restart || slurmTasks != null || parallel != null)) {
+            throw usage("--merge-only runs nothing; it takes no --shard, --restart, --parallel or --slurm-script");
+        }
+        if (slurmTasks != null && shard != null) {
+            throw usage("--slurm-script writes the script for every shard; it takes no --shard");
+        }
+        if (launcher != null && slurmTasks == null) {
+            throw usage("--launcher goes with --slurm-script");
+        }
+        if (shard == null) {
+            return null;
+        }
+        Matcher m = SHARD.matcher(shard.strip());
+        if (!m.matches()) {
+            throw usage("--shard " + shard + ": expected i/N, e.g. 0/4 for the first of four shards");
+        }
+        int i;
+        int n;
+        try {
+            i = Integer.parseInt(m.group(1));
+            n = Integer.parseInt(m.group(2));
+        } catch (NumberFormatException e) {
+            throw usage("--shard " + shard + ": numbers too large");
+        }
+        if (n < 1 || i >= n) {
+            throw usage("--shard " + shard + ": expected 0 <= i < N with N >= 1");
+        }
+        return new int[] {i, n};
+    }
+
+    private Map<String, String> overrides(SweepPoint p) {
+        Map<String, String> ov = new LinkedHashMap<>(options.overrides);
+        ov.putAll(p.overrides());
+        return ov;
+    }
+
+    /** Reads the case; errors are printed (each prefixed with {@code what}, if given) and become a usage error. */
+    private LoadedCase readCase(String text, Map<String, String> ov, ReadOptions read, PrintWriter err, String what) {
+        try {
+            return CaseReader.parse(text, options.caseFile.toString(), ov, read);
+        } catch (CaseFileException e) {
+            for (Diagnostic d : e.diagnostics()) {
+                err.println((what == null ? "" : what + ": ") + d);
+            }
+            throw usage(e.errors().size() + " error(s) in " + options.caseFile + "; nothing was run or written");
+        }
+    }
+
+    /** The reader's note that the sweep is run by this command says nothing here. */
+    private static List<Diagnostic> withoutSweepNote(List<Diagnostic> ds) {
+        return ds.stream().filter(d -> !(d.severity() == Diagnostic.Severity.NOTE && d.path().equals("sweep"))).toList();
+    }
+
+    /** Refuses a folder whose sweep.json records another sweep, unless --restart. */
+    private void checkRecord(SweepFolder folder, Map<String, Object> record) throws IOException {
+        Path f = folder.dir().resolve(SweepFolder.RECORD);
+        if (!Files.isRegularFile(f)) {
+            return;
+        }
+        List<String> diffs;
+        try {
+            diffs = SweepRecord.differences(SweepFolder.readJson(f), record);
+        } catch (IOException e) {
+            diffs = List.of("it cannot be read (" + e.getMessage() + ")");
+        }
+        if (diffs.isEmpty() || restart) {
+            if (!diffs.isEmpty()) {
+                spec.commandLine().getOut().println("--restart: " + String.join("; ", diffs) + "; starting over (finished "
+                        + "points are replaced only as new ones finish)");
+            }
+            return;
+        }
+        throw usage(f + ": the sweep in this folder was made from a different case: " + String.join("; ", diffs)
+                + ". Run with --restart to start over (old points are replaced only as new ones finish), or choose another --out");
+    }
+
+    private static void writeRecord(SweepFolder folder, Map<String, Object> record) throws IOException {
+        byte[] bytes = Json.write(record).getBytes(StandardCharsets.UTF_8);
+        Path f = folder.dir().resolve(SweepFolder.RECORD);
+        if (!Files.isRegularFile(f) || !java.util.Arrays.equals(Files.readAllBytes(f), bytes)) {
+            folder.write(SweepFolder.RECORD, bytes);
+        }
+    }
+
+    /**
+     * Plans every point about to run (a bad one stops the sweep before anything runs) and chooses how
+     * many run at once from the largest grid.
+     */
+    private Parallelism planAll(String caseText, List<Read> todo, CaseSpec base, PrintWriter err) {
+        long cells = 1;
+        int rows = 2;
+        long bytes = 1;
+        int bad = 0;
+        for (Read r : todo) {
+            try {
+                LoadedCase lc = CaseReader.parse(caseText, options.caseFile.toString(), r.overrides(), ReadOptions.defaults());
+                CasePlan plan = CasePlanner.plan(lc.spec(), null);
+                long c = (long) plan.grid().nx() * plan.grid().ny();
+                if (c > cells) {
+                    cells = c;
+                    rows = plan.grid().ny();
+                }
+                long perNode = lc.spec().numerics().precision().value() == Precision.DOUBLE ? 56 : 28;
+                bytes = Math.max(bytes, c * perNode * (plan.flux().isPresent() ? 2 : 1));
+            } catch (PlanException e) {
+                bad++;
+                for (Diagnostic d : e.diagnostics()) {
+                    err.println("point " + r.point().number() + " (" + r.point().describe() + "): " + d);
+                }
+            } catch (CaseFileException e) {
+                bad++;
+                err.println("point " + r.point().number() + " (" + r.point().describe() + "): " + e.getMessage());
+            }
+        }
+        if (bad > 0) {
+            throw usage(String.format(Locale.ROOT, "%d of %d points to run cannot be planned; nothing was run", bad, todo.size()));
+        }
+        int cores = options.threads != null ? options.threads
+                : base.numerics().threads().map(Located::value).orElse(Runtime.getRuntime().availableProcessors());
+        return Parallelism.choose(cores, cells, rows, bytes, Runtime.getRuntime().maxMemory(), todo.size(), parallel);
+    }
+
+    /** One point: read and plan the case with the point's overrides, run it into the folder. */
+    private void runPoint(String caseText, Path caseFile, String caseSha, Map<String, String> ov,
+                          org.evanesce.io.output.RunFolder rf, PrintWriter pointOut, int threads)
+            throws SweepRunner.PointFailed, IOException {
+        try {
+            LoadedCase lc = CaseReader.parse(caseText, caseFile.toString(), ov, ReadOptions.defaults());
+            lc = new LoadedCase(lc.spec(), withoutSweepNote(lc.diagnostics()));
+            CasePlan plan = CasePlanner.plan(lc.spec(), threads);
+            CaseExecution.run(new CaseOptions.Loaded(lc, plan, caseSha), ov, rf, pointOut, progressSeconds, false);
+        } catch (CaseFileException | PlanException e) {
+            throw new SweepRunner.PointFailed("the case no longer reads: " + e.getMessage().lines().findFirst().orElse(""), e);
+        } catch (DivergenceException | RunFailedException | CaseRunner.RefusedException e) {
+            throw new SweepRunner.PointFailed(e.getMessage(), e);
+        }
+    }
+
+    /** Merges the finished points; with {@code report}, missing points make exit code 3. */
+    private int merge(SweepFolder folder, List<SweepMerge.Point> points, List<org.evanesce.io.casefile.expr.Dimension> kinds,
+                      String title, PrintWriter o, PrintWriter err, boolean report) throws IOException {
+        SweepMerge.Result m = SweepMerge.write(folder, points, kinds, title);
+        o.printf(Locale.ROOT, "merged %d of %d points into %s%s%n", m.finished(), points.size(),
+                folder.dir().resolve(SweepFolder.CSV), m.png() ? " and " + SweepFolder.PNG : "");
+        if (m.missing().isEmpty()) {
+            return Main.OK;
+        }
+        if (report) {
+            err.printf(Locale.ROOT, "evanesce sweep: %d of %d points are missing (not finished, or computed from another "
+                    + "case): %s. Run their shards again (or the sweep without --shard), then merge again.%n",
+                    m.missing().size(), points.size(), SweepMerge.ranges(m.missing()));
+            return Main.RUN_FAILED;
+        }
+        return Main.OK;
+    }
+
+    private int slurm(SweepFolder folder, Map<String, Object> record, Path caseFile, int points, PrintWriter o)
+            throws IOException {
+        Path exe = launcher != null ? launcher.toAbsolutePath().normalize() : SlurmScript.findLauncher();
+        if (exe == null) {
+            throw usage("cannot find the evanesce launcher beside this program; pass --launcher PATH");
+        }
+        if (!Files.isRegularFile(exe)) {
+            throw usage("--launcher " + exe + ": no such file");
+        }
+        writeRecord(folder, record);
+        Path absCase = caseFile.toAbsolutePath().normalize();
+        List<String> extra = SlurmScript.extraArguments(options.threads, options.overrides);
+        String script = SlurmScript.text(exe, absCase, folder.dir(), slurmTasks, points, extra, SlurmScript.jobName(caseFile));
+        Path f = folder.write(SweepFolder.SLURM, script.getBytes(StandardCharsets.UTF_8));
+        try {
+            Files.setPosixFilePermissions(f, PosixFilePermissions.fromString("rwxr-xr-x"));
+        } catch (UnsupportedOperationException e) {
+            // not a POSIX file system: sbatch reads the script either way
+        }
+        o.printf(Locale.ROOT, "wrote %s: %d points in %d array tasks (task i runs the points whose number %% %d == i)%n", f,
+                points, slurmTasks, slurmTasks);
+        o.println("submit:  sbatch " + SlurmScript.quote(f.toString()));
+        o.println("merge:   " + SlurmScript.command(exe, absCase, folder.dir(), extra) + " --merge-only");
+        return Main.OK;
+    }
+
+    static Path defaultFolder(Path caseFile, CaseSpec s) {
+        Path base = RunCommand.defaultFolder(caseFile, s);
+        return base.resolveSibling(base.getFileName() + "-sweep");
+    }
+
+    private ParameterException usage(String message) {
+        return new ParameterException(spec.commandLine(), message);
+    }
+}

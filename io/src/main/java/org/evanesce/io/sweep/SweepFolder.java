@@ -1,0 +1,168 @@
+package org.evanesce.io.sweep;
+
+import java.io.IOException;
+import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.DirectoryStream;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.nio.file.StandardOpenOption;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.concurrent.atomic.AtomicLong;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import java.util.stream.Stream;
+import org.snakeyaml.engine.v2.api.Load;
+import org.snakeyaml.engine.v2.api.LoadSettings;
+import org.snakeyaml.engine.v2.exceptions.YamlEngineException;
+
+/**
+ * A sweep's folder: {@code sweep.json}, one complete run folder per finished point
+ * ({@code point-NNNN/}, written under a temporary name by {@link org.evanesce.io.output.RunFolder} and
+ * renamed when finished), and the merged {@code sweep.csv} and {@code sweep.png}. Shards of one sweep
+ * may work in the same folder at once: each touches only its own points' folders, and the shared
+ * files are written whole under a unique temporary name and renamed.
+ */
+public final class SweepFolder {
+
+    public static final String RECORD = "sweep.json";
+    public static final String CSV = "sweep.csv";
+    public static final String PNG = "sweep.png";
+    public static final String SLURM = "sweep.slurm";
+    public static final String POINT_RECORD = "point.json";
+
+    /** RunFolder's temporaries: {@code .point-0003.partial-123} (being written), {@code .point-0003.replaced-456} (being replaced). */
+    private static final Pattern POINT_TEMPORARY = Pattern.compile("\\.point-(\\d+)\\.(partial|replaced)-.*");
+    /** Ours: {@code .sweep.csv.123.tmp}. */
+    private static final Pattern SWEEP_TEMPORARY = Pattern.compile("\\.sweep\\..*\\.tmp");
+
+    private static final AtomicLong TEMPORARIES = new AtomicLong();
+
+    private final Path dir;
+
+    public SweepFolder(Path dir) {
+        this.dir = dir.toAbsolutePath().normalize();
+    }
+
+    public Path dir() {
+        return dir;
+    }
+
+    public Path point(int number) {
+        return dir.resolve(SweepPoint.folderName(number));
+    }
+
+    /** Writes a file of the folder whole: a unique temporary name, then an atomic rename over the old one. */
+    public Path write(String name, byte[] content) throws IOException {
+        Files.createDirectories(dir);
+        // a name no other process or thread uses (shards share the folder); created with the usual permissions
+        Path tmp = dir.resolve("." + name + "." + ProcessHandle.current().pid() + "-" + TEMPORARIES.incrementAndGet() + ".tmp");
+        try {
+            Files.write(tmp, content, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE);
+            Path target = dir.resolve(name);
+            try {
+                Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
+            } catch (AtomicMoveNotSupportedException e) {
+                Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
+            }
+            return target;
+        } finally {
+            Files.deleteIfExists(tmp);
+        }
+    }
+
+    /**
+     * Removes what killed runs left behind: the temporary folders of the given points (an unfinished
+     * run, or a finished one killed while it replaced an older one; the point runs again either way)
+     * and, when {@code sweepFiles}, half-written sweep files.
+     *
+     * @return the names removed
+     */
+    public List<String> removeLeftovers(Set<Integer> points, boolean sweepFiles) throws IOException {
+        List<String> removed = new ArrayList<>();
+        if (!Files.isDirectory(dir)) {
+            return removed;
+        }
+        try (DirectoryStream<Path> ds = Files.newDirectoryStream(dir)) {
+            for (Path p : ds) {
+                String name = p.getFileName().toString();
+                Matcher m = POINT_TEMPORARY.matcher(name);
+                boolean ours = m.matches() && points.contains(Integer.parseInt(m.group(1)));
+                if (ours || sweepFiles && SWEEP_TEMPORARY.matcher(name).matches()) {
+                    deleteTree(p);
+                    removed.add(name);
+                }
+            }
+        }
+        removed.sort(null);
+        return removed;
+    }
+
+    /** Names in the folder that are temporaries of points or sweep files (for checks). */
+    public List<String> leftovers() throws IOException {
+        List<String> out = new ArrayList<>();
+        if (!Files.isDirectory(dir)) {
+            return out;
+        }
+        try (DirectoryStream<Path> ds = Files.newDirectoryStream(dir)) {
+            for (Path p : ds) {
+                String name = p.getFileName().toString();
+                if (POINT_TEMPORARY.matcher(name).matches() || SWEEP_TEMPORARY.matcher(name).matches()) {
+                    out.add(name);
+                }
+            }
+        }
+        out.sort(null);
+        return out;
+    }
+
+    /**
+     * Whether the point's folder holds a finished run of exactly this point: its {@code point.json}
+     * has {@code hash} (the folder's name alone proves nothing) and its {@code run.json} exists.
+     */
+    public boolean finished(int number, String hash) {
+        Path p = point(number);
+        if (!Files.isRegularFile(p.resolve("run.json"))) {
+            return false;
+        }
+        try {
+            Object rec = readJson(p.resolve(POINT_RECORD));
+            return rec instanceof Map<?, ?> m && hash.equals(m.get("point_hash"));
+        } catch (IOException e) {
+            return false;
+        }
+    }
+
+    /**
+     * Reads a JSON file written by {@link org.evanesce.io.output.Json} (JSON is YAML 1.2, so the case
+     * file's YAML reader reads it): maps, lists, strings, numbers, booleans and null.
+     *
+     * @throws NoSuchFileException when it does not exist
+     * @throws IOException         when it cannot be read or is not JSON
+     */
+    public static Object readJson(Path file) throws IOException {
+        String text = Files.readString(file);
+        try {
+            return new Load(LoadSettings.builder().setLabel(file.toString()).setCodePointLimit(Integer.MAX_VALUE).build())
+                    .loadFromString(text);
+        } catch (YamlEngineException e) {
+            throw new IOException(file + ": not readable JSON: " + e.getMessage(), e);
+        }
+    }
+
+    static void deleteTree(Path p) throws IOException {
+        if (!Files.exists(p)) {
+            return;
+        }
+        try (Stream<Path> s = Files.walk(p)) {
+            for (Path q : s.sorted(Comparator.reverseOrder()).toList()) {
+                Files.deleteIfExists(q);
+            }
+        }
+    }
+}

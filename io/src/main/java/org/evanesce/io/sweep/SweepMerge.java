@@ -1,0 +1,343 @@
+package org.evanesce.io.sweep;
+
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.TreeMap;
+import javax.imageio.ImageIO;
+import org.evanesce.io.casefile.expr.Dimension;
+import org.evanesce.io.output.image.LinePlot;
+
+/**
+ * Gathers the finished points of a sweep into {@code sweep.csv} and {@code sweep.png}. A point counts
+ * when its folder holds a finished run with the point hash expected now; the others are listed as
+ * missing. Values are copied as the point's own files print them (flux.csv), or printed with fixed
+ * formats, and rows come in point order, so merging the same finished points always gives the same
+ * bytes, whichever runs or shards computed them.
+ *
+ * <p>Columns: {@code point}; per swept parameter its expression text ({@code NAME}) and SI value
+ * ({@code NAME_si}); then, with a flux section, one row per point and frequency with the flux.csv
+ * columns; with decay fits of {@code maps}, per fit and wavelength {@code decay_NAME_WLnm_m},
+ * {@code ..._uncertainty_m} and {@code ..._plane_wave_m}; with neither, one row per point with
+ * {@code steps}, {@code wall_time_s} and {@code stop_reason} from run.json.
+ */
+public final class SweepMerge {
+
+    /** A point as the merge sees it: its values (SI, in the sweep's order) and the hash its results must carry. */
+    public record Point(SweepPoint point, double[] si, String hash) {
+        public Point {
+            si = si.clone();
+        }
+
+        @Override
+        public double[] si() {
+            return si.clone();
+        }
+    }
+
+    /**
+     * @param csv      the merged table
+     * @param missing  the numbers of the points without a finished run, in order
+     * @param finished how many points were merged
+     * @param png      whether sweep.png was written (it needs flux or decay fits and a finished point)
+     */
+    public record Result(String csv, List<Integer> missing, int finished, boolean png) {
+        public Result {
+            missing = List.copyOf(missing);
+        }
+    }
+
+    /** One finished point's results, read from its folder. */
+    private record Found(Point point, List<String> fluxHeader, List<String[]> fluxRows, List<String> fluxLines,
+                         Map<String, Double[]> decays, String steps, double wall, String reason) { }
+
+    private SweepMerge() {
+    }
+
+    /** Merges, writes sweep.csv (and sweep.png when there is something to plot) into the folder. */
+    public static Result write(SweepFolder folder, List<Point> points, List<Dimension> kinds, String title) throws IOException {
+        List<Found> found = new ArrayList<>();
+        List<Integer> missing = new ArrayList<>();
+        for (Point p : points) {
+            if (folder.finished(p.point().number(), p.hash())) {
+                found.add(read(folder.point(p.point().number()), p));
+            } else {
+                missing.add(p.point().number());
+            }
+        }
+        String csv = csv(points.isEmpty() ? List.of() : points.get(0).point().names(), found);
+        folder.write(SweepFolder.CSV, csv.getBytes(StandardCharsets.UTF_8));
+        byte[] png = png(found, kinds, title);
+        if (png != null) {
+            folder.write(SweepFolder.PNG, png);
+        }
+        return new Result(csv, missing, found.size(), png != null);
+    }
+
+    private static Found read(Path dir, Point p) throws IOException {
+        List<String> header = List.of();
+        List<String[]> rows = new ArrayList<>();
+        Path flux = dir.resolve("flux.csv");
+        if (Files.isRegularFile(flux)) {
+            List<String> lines = Files.readAllLines(flux, StandardCharsets.UTF_8);
+            header = List.of(lines.get(0).split(",", -1));
+            for (String l : lines.subList(1, lines.size())) {
+                if (!l.isEmpty()) {
+                    rows.add(l.split(",", -1));
+                }
+            }
+        }
+        List<String> fluxLines = new ArrayList<>();
+        Map<String, Double[]> decays = new LinkedHashMap<>();
+        Path summary = dir.resolve("summary.json");
+        if (Files.isRegularFile(summary) && SweepFolder.readJson(summary) instanceof Map<?, ?> s) {
+            if (s.get("flux") instanceof Map<?, ?> f && f.get("lines") instanceof List<?> ls) {
+                for (Object o : ls) {
+                    if (o instanceof Map<?, ?> l) {
+                        fluxLines.add(String.valueOf(l.get("column")));
+                    }
+                }
+            }
+            if (s.get("decay_fits") instanceof List<?> fits) {
+                for (Object o : fits) {
+                    if (o instanceof Map<?, ?> d) {
+                        String key = "decay_" + d.get("name") + "_" + String.format(Locale.ROOT, "%.3fnm",
+                                number(d.get("wavelength_m")) * 1e9);
+                        decays.put(key, new Double[] {number(d.get("decay_length_m")), number(d.get("decay_length_uncertainty_m")),
+                            number(d.get("plane_wave_decay_length_m"))});
+                    }
+                }
+            }
+        }
+        Object run = SweepFolder.readJson(dir.resolve("run.json"));
+        String steps = "";
+        double wall = Double.NaN;
+        String reason = "";
+        if (run instanceof Map<?, ?> r && r.get("run") instanceof Map<?, ?> rr) {
+            steps = String.valueOf(rr.get("steps"));
+            wall = number(rr.get("wall_time_s"));
+            reason = String.valueOf(rr.get("stop_reason"));
+        } else {
+            throw new NoSuchFileException(dir.resolve("run.json") + " has no run section");
+        }
+        return new Found(p, header, rows, fluxLines, decays, steps, wall, reason);
+    }
+
+    private static double number(Object o) {
+        return o instanceof Number n ? n.doubleValue() : Double.NaN;
+    }
+
+    static String csv(List<String> names, List<Found> found) {
+        // the flux columns (wavelength, frequency, angle, values, incident power) and decay fits, in first-seen order
+        List<String> flux = new ArrayList<>();
+        List<String> decay = new ArrayList<>();
+        for (Found f : found) {
+            f.fluxHeader().stream().filter(c -> !flux.contains(c)).forEach(flux::add);
+            f.decays().keySet().stream().filter(c -> !decay.contains(c)).forEach(decay::add);
+        }
+        boolean neither = flux.isEmpty() && decay.isEmpty();
+        List<String> header = new ArrayList<>();
+        header.add("point");
+        for (String n : names) {
+            header.add(n);
+            header.add(n + "_si");
+        }
+        header.addAll(flux);
+        for (String d : decay) {
+            header.add(d + "_m");
+            header.add(d + "_uncertainty_m");
+            header.add(d + "_plane_wave_m");
+        }
+        if (neither) {
+            header.addAll(List.of("steps", "wall_time_s", "stop_reason"));
+        }
+        StringBuilder sb = new StringBuilder(String.join(",", header)).append('\n');
+        for (Found f : found) {
+            StringBuilder lead = new StringBuilder().append(f.point().point().number());
+            double[] si = f.point().si();
+            for (int k = 0; k < names.size(); k++) {
+                lead.append(',').append(quote(f.point().point().texts().get(k)));
+                lead.append(',').append(String.format(Locale.ROOT, "%.12e", si[k]));
+            }
+            StringBuilder tail = new StringBuilder();
+            for (String d : decay) {
+                Double[] v = f.decays().get(d);
+                for (int k = 0; k < 3; k++) {
+                    tail.append(',').append(v == null || !Double.isFinite(v[k]) ? "" : String.format(Locale.ROOT, "%.9e", v[k]));
+                }
+            }
+            if (neither) {
+                tail.append(',').append(f.steps()).append(',').append(Double.isFinite(f.wall())
+                        ? String.format(Locale.ROOT, "%.3f", f.wall()) : "").append(',').append(quote(f.reason()));
+            }
+            if (flux.isEmpty()) {
+                sb.append(lead).append(tail).append('\n');
+                continue;
+            }
+            for (String[] row : f.fluxRows()) {
+                sb.append(lead);
+                for (String c : flux) {
+                    int at = f.fluxHeader().indexOf(c);
+                    sb.append(',').append(at >= 0 && at < row.length ? row[at] : "");
+                }
+                sb.append(tail).append('\n');
+            }
+        }
+        return sb.toString();
+    }
+
+    /** A CSV field, quoted when it holds a comma, a quote or a line break. */
+    static String quote(String s) {
+        if (s.indexOf(',') < 0 && s.indexOf('"') < 0 && s.indexOf('\n') < 0 && s.indexOf('\r') < 0) {
+            return s;
+        }
+        return '"' + s.replace("\"", "\"\"") + '"';
+    }
+
+    /**
+     * The main results against the first swept parameter: the flux values (T and R of each line, A)
+     * at the first frequency, else the decay lengths at the first wavelength; one series per value
+     * and combination of the other parameters. Null when there is nothing to plot.
+     */
+    private static byte[] png(List<Found> found, List<Dimension> kinds, String title) throws IOException {
+        if (found.isEmpty()) {
+            return null;
+        }
+        Found first = found.get(0);
+        List<String> columns = new ArrayList<>();
+        String yTitle;
+        String at;
+        if (!first.fluxHeader().isEmpty()) {
+            columns.addAll(first.fluxLines());
+            if (first.fluxHeader().contains("A")) {
+                columns.add("A");
+            }
+            int wl = first.fluxHeader().indexOf("wavelength_nm");
+            at = String.join(", ", columns) + " at " + (wl >= 0 && !first.fluxRows().isEmpty()
+                    ? plain(first.fluxRows().get(0)[wl]) + " nm" : "the first frequency");
+            yTitle = "flux / incident power";
+        } else if (!first.decays().isEmpty()) {
+            columns.addAll(first.decays().keySet());
+            at = "decay lengths";
+            yTitle = "decay length (nm)";
+        } else {
+            return null;
+        }
+        String xName = first.point().point().names().get(0);
+        double max = 0;
+        for (Found f : found) {
+            max = Math.max(max, Math.abs(f.point().si()[0]));
+        }
+        DisplayUnit unit = DisplayUnit.of(kinds.get(0), max);
+        // series: per value column, per combination of the other parameters
+        Map<String, List<double[]>> series = new LinkedHashMap<>();
+        for (String c : columns) {
+            Map<String, List<double[]>> groups = new LinkedHashMap<>();
+            for (Found f : found) {
+                double y = value(f, c);
+                String others = others(f.point().point());
+                groups.computeIfAbsent(c + (others.isEmpty() ? "" : " (" + others + ")"), k -> new ArrayList<>())
+                        .add(new double[] {f.point().si()[0] / unit.factor(), y});
+            }
+            series.putAll(groups);
+        }
+        LinePlot.Builder b = LinePlot.builder()
+                .title((title == null || title.isBlank() ? "sweep" : title) + ": " + at)
+                .xTitle(xName + (unit.name().isEmpty() ? "" : " (" + unit.name() + ")"))
+                .yTitle(yTitle);
+        for (Map.Entry<String, List<double[]>> e : series.entrySet()) {
+            List<double[]> pts = new ArrayList<>(e.getValue());
+            pts.sort((p, q) -> Double.compare(p[0], q[0]));
+            double[] x = new double[pts.size()];
+            double[] y = new double[pts.size()];
+            for (int k = 0; k < x.length; k++) {
+                x[k] = pts.get(k)[0];
+                y[k] = pts.get(k)[1];
+            }
+            b.series(e.getKey(), x, y);
+        }
+        ByteArrayOutputStream bytes = new ByteArrayOutputStream();
+        ImageIO.write(b.build().render(), "png", bytes);
+        return bytes.toByteArray();
+    }
+
+    /** A number as flux.csv prints it without trailing zeros: 633.000000 becomes 633. */
+    private static String plain(String number) {
+        try {
+            return new java.math.BigDecimal(number).stripTrailingZeros().toPlainString();
+        } catch (NumberFormatException e) {
+            return number;
+        }
+    }
+
+    /** A value column of the point's first flux row, or a decay length in nm. */
+    private static double value(Found f, String column) {
+        if (column.startsWith("decay_") && f.decays().containsKey(column)) {
+            Double v = f.decays().get(column)[0];
+            return v * 1e9;
+        }
+        int at = f.fluxHeader().indexOf(column);
+        if (at < 0 || f.fluxRows().isEmpty() || f.fluxRows().get(0)[at].isEmpty()) {
+            return Double.NaN;
+        }
+        return Double.parseDouble(f.fluxRows().get(0)[at]);
+    }
+
+    private static String others(SweepPoint p) {
+        List<String> parts = new ArrayList<>();
+        for (int k = 1; k < p.names().size(); k++) {
+            parts.add(p.names().get(k) + "=" + p.texts().get(k));
+        }
+        return String.join(", ", parts);
+    }
+
+    /** The unit a parameter is plotted in: lengths, times and frequencies with a prefix that suits the values. */
+    record DisplayUnit(String name, double factor) {
+
+        static DisplayUnit of(Dimension d, double maxAbs) {
+            if (d.equals(Dimension.LENGTH)) {
+                return maxAbs < 1e-6 ? new DisplayUnit("nm", 1e-9) : maxAbs < 1e-3 ? new DisplayUnit("um", 1e-6)
+                        : maxAbs < 1 ? new DisplayUnit("mm", 1e-3) : new DisplayUnit("m", 1);
+            } else if (d.equals(Dimension.TIME)) {
+                return maxAbs < 1e-12 ? new DisplayUnit("fs", 1e-15) : maxAbs < 1e-9 ? new DisplayUnit("ps", 1e-12)
+                        : maxAbs < 1e-6 ? new DisplayUnit("ns", 1e-9) : new DisplayUnit("s", 1);
+            } else if (d.equals(Dimension.FREQUENCY)) {
+                return maxAbs < 1e9 ? new DisplayUnit("Hz", 1) : maxAbs < 1e12 ? new DisplayUnit("GHz", 1e9)
+                        : maxAbs < 1e15 ? new DisplayUnit("THz", 1e12) : new DisplayUnit("PHz", 1e15);
+            } else if (d.equals(Dimension.ANGLE)) {
+                return new DisplayUnit("deg", Math.PI / 180);
+            }
+            return new DisplayUnit(d.siUnit(), 1);
+        }
+    }
+
+    /** The point numbers as ranges for messages: {@code 1, 3-5, 9}. */
+    public static String ranges(List<Integer> numbers) {
+        TreeMap<Integer, Integer> runs = new TreeMap<>();
+        int start = -2;
+        int last = -2;
+        for (int n : numbers) {
+            if (n != last + 1) {
+                if (start >= 0) {
+                    runs.put(start, last);
+                }
+                start = n;
+            }
+            last = n;
+        }
+        if (start >= 0) {
+            runs.put(start, last);
+        }
+        List<String> parts = new ArrayList<>();
+        runs.forEach((a, z) -> parts.add(a.equals(z) ? a.toString() : a + "-" + z));
+        return String.join(", ", parts);
+    }
+}
