@@ -1,0 +1,58 @@
+#!/usr/bin/env bash
+# Issue #7's cluster check: a sweep run as a Slurm job array on a real (single-node) Slurm cluster
+# gives the same merged sweep.csv as the same sweep run on this machine alone.
+# Needs root and Debian's slurmctld slurmd slurm-client munge (installed when missing and apt-get
+# is there). Starts the daemons with tools/slurm-cluster.sh and stops them on exit.
+# Exit: 0 passed (or skipped with a note when no cluster can be started), 1 the results differ.
+set -euo pipefail
+root=$(cd "$(dirname "$0")/.." && pwd)
+work=$(mktemp -d /tmp/evanesce-slurm.XXXXXX)
+if [ "$(id -u)" != 0 ]; then echo "note: slurm check skipped: needs root"; exit 0; fi
+if ! command -v slurmctld >/dev/null 2>&1; then
+  if command -v apt-get >/dev/null 2>&1 && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq slurmctld slurmd \
+      slurm-client munge >/dev/null 2>&1; then :; else echo "note: slurm check skipped: cannot install Slurm"; exit 0; fi
+fi
+if [ -f /etc/slurm/slurm.conf ] && ! grep -q "evanesce single-node check" /etc/slurm/slurm.conf; then
+  echo "note: slurm check skipped: this machine has its own Slurm configuration"; exit 0
+fi
+trap '"$root/tools/slurm-cluster.sh" stop "$work/cluster" || true' EXIT
+if ! "$root/tools/slurm-cluster.sh" start "$work/cluster"; then
+  echo "note: slurm check skipped: the single-node cluster did not start (see $work/cluster/log)"; exit 0
+fi
+cat > "$work/gap.yaml" <<'CASE'
+# a small sweep of the gap in front of a plane wave: three points
+parameters:
+  gap: 150 nm
+design_wavelength: 633 nm
+polarization: s
+domain: {width: 0.1 um, height: 3 um, background: glass}
+resolution: {cells_per_wavelength: 16}
+materials:
+  glass: {index: 1.5}
+  gap_fill: {index: 1.0}
+shapes:
+  - layer_stack: {start: [0, -gap/2], layers: [{material: gap_fill, thickness: gap}]}
+boundaries: {left: periodic, right: periodic, bottom: pml 0.5 um, top: pml 0.5 um}
+sources:
+  - plane_wave: {y: -0.8 um, angle: 45 deg, signal: {pulse: {wavelength: 633 nm, bandwidth: 20 nm}}}
+flux:
+  wavelengths: 633 nm
+  lines:
+    - {y: -1 um, measures: reflected}
+    - {y: 0.8 um, measures: transmitted}
+stop: {decay: 1e-6, limit: 400 fs}
+sweep:
+  parameters:
+    gap: [100 nm, 200 nm, 300 nm]
+CASE
+"$root/evanesce" sweep "$work/gap.yaml" --out "$work/local" --progress-seconds 60 > "$work/local.log" 2>&1
+"$root/evanesce" sweep "$work/gap.yaml" --out "$work/cluster-run" --slurm-script 2 > "$work/script.log" 2>&1
+sbatch --wait "$work/cluster-run/sweep.slurm" > "$work/sbatch.log" 2>&1
+"$root/evanesce" sweep "$work/gap.yaml" --out "$work/cluster-run" --merge-only > "$work/merge.log" 2>&1
+if cmp -s "$work/local/sweep.csv" "$work/cluster-run/sweep.csv"; then
+  echo "slurm check passed: the job array's merged sweep.csv equals the local sweep's ($work)"
+else
+  echo "slurm check FAILED: sweep.csv differs between the local sweep and the Slurm job array ($work)"
+  diff "$work/local/sweep.csv" "$work/cluster-run/sweep.csv" | head -20 || true
+  exit 1
+fi
