@@ -135,8 +135,8 @@ public final class CaseRunner {
                 }
             }
             double wall = before + (restored != null && restored.reason() != null ? 0 : (System.nanoTime() - t0) * 1e-9);
-            if (ck != null && (restored == null || restored.reason() == null)) {
-                // the stepping is done: a restart from here repeats only what follows
+            if (ck != null && plan.flux().isPresent() && (restored == null || restored.reason() == null)) {
+                // the stepping is done and the reference run follows: a restart from here repeats only that
                 ck.save(sim, peak, energy, reason, wall);
             }
             if (atEnd != null) {
