@@ -10,7 +10,13 @@ import java.util.concurrent.locks.LockSupport;
  */
 final class SpinBarrier {
 
-    private static final int SPINS = 1 << 12;
+    /**
+     * Pauses before a waiting thread starts yielding. Measured at 1024², s, float, 2 threads: 2^12
+     * gave 2106–2148 Mcell/s, 2^16 2926–3234, 2^18 2704–3048 (the waits between steps were long enough
+     * for 2^12 spins to fall through to yielding and parking); a wait this long is still under a few
+     * milliseconds of one core's time.
+     */
+    private static final int SPINS = 1 << 16;
     private static final int YIELDS = 1 << 10;
 
     private final int parties;
