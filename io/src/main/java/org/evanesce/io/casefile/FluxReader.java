@@ -47,20 +47,8 @@ final class FluxReader {
         if (v == null) {
             return null;
         }
-        boolean ok = true;
-        List<Value> frequencies = new ArrayList<>();
-        String how = v.oneOf(true, "wavelengths", "frequencies");
-        if (how != null) {
-            List<Value> f = spectrum(v.get(how), v.path(how), how.equals("wavelengths"));
-            ok &= f != null;
-            if (f != null) {
-                frequencies.addAll(f);
-            }
-        } else if (defaultFrequency != null) {
-            frequencies.add(defaultFrequency);
-        } else {
-            ok = false;
-        }
+        List<Value> frequencies = frequencies(ctx, v, defaultFrequency, Schema.WAVELENGTH_RANGE, Schema.FREQUENCY_RANGE);
+        boolean ok = frequencies != null;
         List<FluxSpec.Line> lines = lines(v.require("lines", "a list of lines such as '- {y: 2 um, measures: transmitted}'"),
                 v.path("lines"));
         ok &= lines != null;
@@ -74,9 +62,20 @@ final class FluxReader {
         return ok ? new FluxSpec(frequencies, lines, tmm, v.at()) : null;
     }
 
-    /** One value, a list, or {from, to, count}; returned as frequencies in Hz. */
-    private List<Value> spectrum(Node node, String path, boolean wavelengths) {
-        return spectrum(ctx, node, path, wavelengths, wavelengths ? Schema.WAVELENGTH_RANGE : Schema.FREQUENCY_RANGE);
+    /**
+     * A section's {@code wavelengths} or {@code frequencies} (at most one of the two), as frequencies in
+     * Hz; the default when neither is given.
+     *
+     * @return the frequencies, or null (errors reported, or neither given and no default)
+     */
+    static List<Value> frequencies(Context ctx, MapView v, Value defaultFrequency, Schema.Section wavelengthRange,
+                                   Schema.Section frequencyRange) {
+        String how = v.oneOf(true, "wavelengths", "frequencies");
+        if (how == null) {
+            return defaultFrequency == null ? null : List.of(defaultFrequency);
+        }
+        boolean wl = how.equals("wavelengths");
+        return spectrum(ctx, v.get(how), v.path(how), wl, wl ? wavelengthRange : frequencyRange);
     }
 
     /** The same for any section that takes wavelengths or frequencies, with its own range section. */

@@ -137,15 +137,20 @@ final class OutputReader {
                 }
             }
         }
-        Optional<OutputSpec.Region> region = Optional.empty();
-        Node rn = v.get("region");
-        if (rn != null) {
-            OutputSpec.Region r = region(rn, v.path("region"), ctx.pos(rn));
-            ok &= r != null;
-            region = Optional.ofNullable(r);
-        }
+        Optional<OutputSpec.Region> region = optionalRegion(v);
+        ok &= region != null;
         return ok ? new OutputSpec(folder, write, Optional.ofNullable(interval), Optional.ofNullable(intervalSteps), times,
                 components, region) : null;
+    }
+
+    /** The section's {@code region}: empty when not given, null when wrong (errors reported). */
+    private Optional<OutputSpec.Region> optionalRegion(MapView v) {
+        Node rn = v.get("region");
+        if (rn == null) {
+            return Optional.empty();
+        }
+        OutputSpec.Region r = region(rn, v.path("region"), ctx.pos(rn));
+        return r == null ? null : Optional.of(r);
     }
 
     /** {from: [x, y], to: [x, y]}, two opposite corners. */
@@ -180,29 +185,11 @@ final class OutputReader {
         if (v == null) {
             return null;
         }
-        boolean ok = true;
-        List<Value> frequencies = new ArrayList<>();
-        String how = v.oneOf(true, "wavelengths", "frequencies");
-        if (how != null) {
-            boolean wl = how.equals("wavelengths");
-            List<Value> f = FluxReader.spectrum(ctx, v.get(how), v.path(how), wl,
-                    wl ? Schema.MAP_WAVELENGTH_RANGE : Schema.MAP_FREQUENCY_RANGE);
-            ok &= f != null;
-            if (f != null) {
-                frequencies.addAll(f);
-            }
-        } else if (defaultFrequency != null) {
-            frequencies.add(defaultFrequency);
-        } else {
-            ok = false;
-        }
-        Optional<OutputSpec.Region> region = Optional.empty();
-        Node rn = v.get("region");
-        if (rn != null) {
-            OutputSpec.Region r = region(rn, v.path("region"), ctx.pos(rn));
-            ok &= r != null;
-            region = Optional.ofNullable(r);
-        }
+        List<Value> frequencies = FluxReader.frequencies(ctx, v, defaultFrequency, Schema.MAP_WAVELENGTH_RANGE,
+                Schema.MAP_FREQUENCY_RANGE);
+        boolean ok = frequencies != null;
+        Optional<OutputSpec.Region> region = optionalRegion(v);
+        ok &= region != null;
         Node ln = v.get("log_decades");
         Value decades = ln == null ? new Value(4, v.at()) : ctx.positive(ln, v.path("log_decades"), Expect.PLAIN);
         ok &= decades != null;

@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import org.evanesce.io.casefile.expr.Dimension;
+import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.io.casefile.expr.ExpressionException;
 import org.evanesce.io.casefile.expr.Quantity;
 import org.evanesce.io.casefile.expr.Suggest;
@@ -268,25 +269,14 @@ final class SweepReader {
      * a number times SI units. {@value #DIGITS} significant digits, trailing zeros removed.
      */
     static String literal(double si, Dimension d) {
-        if (d.isNone()) {
-            return number(si);
+        if (si == 0 && d.equals(Dimension.LENGTH)) {
+            return "0 nm"; // a zero among nanometre gaps reads best in their unit (Units.format says 0 um)
         }
-        double a = Math.abs(si);
-        if (d.equals(Dimension.LENGTH)) {
-            return a == 0 ? "0 nm" : a < 1e-6 ? number(si / 1e-9) + " nm" : a < 1e-3 ? number(si / 1e-6) + " um"
-                    : a < 1.0 ? number(si / 1e-3) + " mm" : number(si) + " m";
-        } else if (d.equals(Dimension.TIME)) {
-            return a == 0 ? "0 fs" : a < 1e-12 ? number(si / 1e-15) + " fs" : a < 1e-9 ? number(si / 1e-12) + " ps"
-                    : a < 1e-6 ? number(si / 1e-9) + " ns" : number(si) + " s";
-        } else if (d.equals(Dimension.FREQUENCY)) {
-            return a == 0 ? "0 THz" : a < 1e9 ? number(si) + " Hz" : a < 1e12 ? number(si / 1e9) + " GHz"
-                    : a < 1e15 ? number(si / 1e12) + " THz" : number(si / 1e15) + " PHz";
-        } else if (d.equals(Dimension.ANGLE)) {
-            return number(Math.toDegrees(si)) + " deg";
-        } else if (d.equals(Dimension.CONDUCTIVITY)) {
-            return number(si) + " S/m";
+        if (d.isNone() || d.equals(Dimension.LENGTH) || d.equals(Dimension.TIME) || d.equals(Dimension.FREQUENCY)
+                || d.equals(Dimension.ANGLE) || d.equals(Dimension.CONDUCTIVITY)) {
+            return Units.format(si, d, DIGITS);
         }
-        StringBuilder sb = new StringBuilder(number(si));
+        StringBuilder sb = new StringBuilder(Units.number(si, DIGITS));
         units(sb, "m", d.length());
         units(sb, "s", d.time());
         units(sb, "rad", d.angle());
@@ -298,23 +288,5 @@ final class SweepReader {
         for (int k = 0; k < Math.abs(exponent); k++) {
             sb.append(exponent > 0 ? " * " : " / ").append(unit);
         }
-    }
-
-    /** {@value #DIGITS} significant digits without trailing zeros, e.g. 150, 0.001, 1.5e-12. */
-    static String number(double v) {
-        if (v == 0) {
-            return "0";
-        }
-        String s = String.format(Locale.ROOT, "%." + DIGITS + "g", v);
-        int e = s.indexOf('e');
-        String mantissa = e < 0 ? s : s.substring(0, e);
-        String exponent = e < 0 ? "" : s.substring(e).replaceFirst("e([+-])0*(\\d)", "e$1$2").replace("e+", "e");
-        if (mantissa.indexOf('.') >= 0) {
-            mantissa = mantissa.replaceAll("0+$", "");
-            if (mantissa.endsWith(".")) {
-                mantissa = mantissa.substring(0, mantissa.length() - 1);
-            }
-        }
-        return mantissa + exponent;
     }
 }

@@ -73,36 +73,50 @@ public final class Units {
      * kinds in SI base units. Numbers have up to six significant digits without trailing zeros.
      */
     public static String format(double si, Dimension d) {
+        return format(si, d, 6);
+    }
+
+    /**
+     * The same with up to {@code digits} significant digits; for lengths, times, frequencies, angles,
+     * conductivities and plain numbers the text reads back as an expression of the same value (to those
+     * digits).
+     */
+    public static String format(double si, Dimension d, int digits) {
         if (d.isNone()) {
-            return number(si);
+            return number(si, digits);
         }
         double a = Math.abs(si);
         if (d.equals(Dimension.LENGTH)) {
-            return a == 0 ? "0 um" : a < 1e-6 ? number(si / 1e-9) + " nm" : a < 1e-3 ? number(si / 1e-6) + " um"
-                    : a < 1.0 ? number(si / 1e-3) + " mm" : number(si) + " m";
+            return a == 0 ? "0 um" : a < 1e-6 ? number(si / 1e-9, digits) + " nm" : a < 1e-3 ? number(si / 1e-6, digits) + " um"
+                    : a < 1.0 ? number(si / 1e-3, digits) + " mm" : number(si, digits) + " m";
         } else if (d.equals(Dimension.TIME)) {
-            return a == 0 ? "0 fs" : a < 1e-12 ? number(si / 1e-15) + " fs" : a < 1e-9 ? number(si / 1e-12) + " ps"
-                    : a < 1e-6 ? number(si / 1e-9) + " ns" : number(si) + " s";
+            return a == 0 ? "0 fs" : a < 1e-12 ? number(si / 1e-15, digits) + " fs" : a < 1e-9 ? number(si / 1e-12, digits) + " ps"
+                    : a < 1e-6 ? number(si / 1e-9, digits) + " ns" : number(si, digits) + " s";
         } else if (d.equals(Dimension.FREQUENCY)) {
-            return a == 0 ? "0 THz" : a < 1e9 ? number(si) + " Hz" : a < 1e12 ? number(si / 1e9) + " GHz"
-                    : a < 1e15 ? number(si / 1e12) + " THz" : number(si / 1e15) + " PHz";
+            return a == 0 ? "0 THz" : a < 1e9 ? number(si, digits) + " Hz" : a < 1e12 ? number(si / 1e9, digits) + " GHz"
+                    : a < 1e15 ? number(si / 1e12, digits) + " THz" : number(si / 1e15, digits) + " PHz";
         } else if (d.equals(Dimension.ANGLE)) {
-            return number(Math.toDegrees(si)) + " deg";
+            return number(Math.toDegrees(si), digits) + " deg";
         } else if (d.equals(Dimension.CONDUCTIVITY)) {
-            return number(si) + " S/m";
+            return number(si, digits) + " S/m";
         }
-        return number(si) + " " + d.siUnit();
+        return number(si, digits) + " " + d.siUnit();
     }
 
     /** A number with up to six significant digits, trailing zeros removed ({@code %g} style). */
     public static String number(double v) {
+        return number(v, 6);
+    }
+
+    /** A number with up to {@code digits} significant digits, trailing zeros removed. */
+    public static String number(double v, int digits) {
         if (v == 0) {
             return "0";
         }
         if (!Double.isFinite(v)) {
             return Double.toString(v);
         }
-        String s = String.format(Locale.ROOT, "%.6g", v);
+        String s = String.format(Locale.ROOT, "%." + digits + "g", v);
         int e = s.indexOf('e');
         String mantissa = e < 0 ? s : s.substring(0, e);
         String exponent = e < 0 ? "" : s.substring(e);
