@@ -19,12 +19,7 @@ final class BeamReference {
 
     /** The angular-spectrum result of the plan's beam at vacuum wavelength {@code wl} (m). */
     static AngularSpectrum.Result of(FluxPlan plan, PlanarStack stack, Polarization pol, double wl) {
-        SourceSpec.GaussianBeamSource b = plan.beam().orElseThrow();
-        double theta = b.angle().si();
-        // along the axis from the waist to where the axis meets the first interface
-        double distance = (plan.exact().orElseThrow().firstInterface() - b.waistAt().y().si()) * plan.direction()
-                / Math.cos(theta);
-        AngularSpectrum.GaussianBeam beam = new AngularSpectrum.GaussianBeam(b.waist().si(), theta, wl, distance);
+        AngularSpectrum.GaussianBeam beam = beam(plan, wl);
         double window = WINDOW_FOOTPRINTS * beam.footprint();
         long needed = (long) Math.ceil(window / (wl / (SAMPLES_PER_WAVELENGTH * plan.mediumIndex())));
         int samples = Integer.highestOneBit((int) Math.min(needed, 1 << 24) - 1) << 1;
@@ -34,17 +29,24 @@ final class BeamReference {
     /**
      * The angular spectrum's lateral shift of the reflected beam on the line at height y, m: its
      * flux-weighted centroid there minus the specular position (see {@link #specular}).
+     *
+     * @param sampled the result of {@link #of} at this wavelength, whose sampling is reused
      */
-    static double reflectedShift(FluxPlan plan, PlanarStack stack, Polarization pol, double wl, double y) {
-        SourceSpec.GaussianBeamSource b = plan.beam().orElseThrow();
-        AngularSpectrum.Result r = of(plan, stack, pol, wl);
+    static double reflectedShift(FluxPlan plan, PlanarStack stack, Polarization pol, AngularSpectrum.Result sampled,
+                                 double wl, double y) {
         double d = Math.abs(plan.exact().orElseThrow().firstInterface() - y);
-        double window = r.samples() * r.spacing();
+        double theta = plan.beam().orElseThrow().angle().si();
+        return AngularSpectrum.reflectedCentroid(stack, pol, beam(plan, wl), sampled.samples(),
+                sampled.samples() * sampled.spacing(), d) - d * Math.tan(theta);
+    }
+
+    /** The case's beam for the angular spectrum: its waist, angle, and the distance from its waist to the first interface. */
+    static AngularSpectrum.GaussianBeam beam(FluxPlan plan, double wl) {
+        SourceSpec.GaussianBeamSource b = plan.beam().orElseThrow();
         double theta = b.angle().si();
         double distance = (plan.exact().orElseThrow().firstInterface() - b.waistAt().y().si()) * plan.direction()
                 / Math.cos(theta);
-        AngularSpectrum.GaussianBeam beam = new AngularSpectrum.GaussianBeam(b.waist().si(), theta, wl, distance);
-        return AngularSpectrum.reflectedCentroid(stack, pol, beam, r.samples(), window, d) - d * Math.tan(theta);
+        return new AngularSpectrum.GaussianBeam(b.waist().si(), theta, wl, distance);
     }
 
     /**

@@ -130,7 +130,7 @@ public record FluxResults(List<String> columns, List<Row> rows) {
                     v[k++] = seen ? outgoingAngle(plan, l, t, q, p.centroid()) : Double.NaN;
                     if (exact && !t) {
                         v[k++] = seen ? (p.centroid() - BeamReference.specular(plan, l.y())) * 1e6 : Double.NaN;
-                        v[k++] = BeamReference.reflectedShift(plan, stack, pol, wl, l.y()) * 1e6;
+                        v[k++] = BeamReference.reflectedShift(plan, stack, pol, as, wl, l.y()) * 1e6;
                     }
                 }
             }

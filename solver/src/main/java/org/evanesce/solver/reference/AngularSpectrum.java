@@ -182,19 +182,7 @@ public final class AngularSpectrum {
         double n1 = stack.incidentIndex();
         double lambda = beam.wavelength();
         double dx = window / samples;
-        if (samples < 2) {
-            throw new IllegalArgumentException(String.format("samples %d must be >= 2", samples));
-        }
-        if (!(window >= 4 * beam.footprint()) || Double.isInfinite(window)) {
-            throw new IllegalArgumentException(String.format(
-                    "window %g m must be finite and at least 4 beam footprints w0/cos(theta) = %g m", window,
-                    4 * beam.footprint()));
-        }
-        if (!(dx <= lambda / (2 * n1))) {
-            throw new IllegalArgumentException(String.format(
-                    "sample spacing window/samples = %g m must be at most lambda0/(2 n1) = %g m, so that every "
-                            + "propagating plane wave (|kx| < n1 k0) is sampled", dx, lambda / (2 * n1)));
-        }
+        checkSampling(stack, beam, samples, window);
         double k0 = 2 * Math.PI / lambda;
         double k = n1 * k0;
         double dk = 2 * Math.PI / window;
@@ -211,26 +199,11 @@ public final class AngularSpectrum {
         double pTra = 0;
         for (int m = 0; m < samples; m++) {
             double kx = (m - c) * dk;
-            if (!(Math.abs(kx) < k)) {
+            Complex a = incident(beam, k, kx, m - c, 0);
+            if (a == null) {
                 continue;
             }
-            double psi = Math.asin(kx / k) - beam.angle();
-            double cosPsi = Math.cos(psi);
-            if (!(cosPsi > 0)) {
-                continue; // a backward wave in the beam's frame: not part of the beam
-            }
-            double kt = k * Math.sin(psi);
             double kz1 = Math.sqrt((k - kx) * (k + kx));
-            double w = beam.waist();
-            double mag = w * Math.sqrt(Math.PI) * Math.exp(-w * w * kt * kt / 4) * (k * cosPsi / kz1);
-            if (mag == 0) {
-                continue;
-            }
-            Complex a = Complex.polar(mag, k * cosPsi * beam.waistDistance());
-            // (−1)^(m−c) moves the profile's origin to x_0 = −W/2 (see shiftToWindow)
-            if (((m - c) & 1) != 0) {
-                a = a.negate();
-            }
             PlanarStack.Response resp = stack.atTransverseWavenumber(polarization, lambda, kx);
             Complex r = a.times(resp.r());
             Complex t = a.times(resp.t());
@@ -269,7 +242,7 @@ public final class AngularSpectrum {
      */
     public static double reflectedCentroid(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples,
                                            double window, double distance) {
-        Result check = of(stack, polarization, beam, samples, window); // validates the sampling
+        checkSampling(stack, beam, samples, window);
         if (!(distance >= 0) || Double.isInfinite(distance)) {
             throw new IllegalArgumentException(String.format("distance %g m must be finite and >= 0", distance));
         }
@@ -284,25 +257,11 @@ public final class AngularSpectrum {
         double[] v = new double[2 * samples];
         for (int m = 0; m < samples; m++) {
             double kx = (m - c) * dk;
-            if (!(Math.abs(kx) < k)) {
+            Complex a = incident(beam, k, kx, m - c, distance);
+            if (a == null) {
                 continue;
             }
-            double psi = Math.asin(kx / k) - beam.angle();
-            double cosPsi = Math.cos(psi);
-            if (!(cosPsi > 0)) {
-                continue;
-            }
-            double kt = k * Math.sin(psi);
             double kz1 = Math.sqrt((k - kx) * (k + kx));
-            double w = beam.waist();
-            double mag = w * Math.sqrt(Math.PI) * Math.exp(-w * w * kt * kt / 4) * (k * cosPsi / kz1);
-            if (mag == 0) {
-                continue;
-            }
-            Complex a = Complex.polar(mag, k * cosPsi * beam.waistDistance() + kz1 * distance);
-            if (((m - c) & 1) != 0) {
-                a = a.negate();
-            }
             Complex r = a.times(stack.atTransverseWavenumber(polarization, lambda, kx).r());
             put(u, m, r);
             put(v, m, r.times(kz1 / (k0 * f1)));
@@ -322,7 +281,54 @@ public final class AngularSpectrum {
             sum += flux;
             moment += (start + j * dx) * flux;
         }
-        return sum > 0 && check.reflectance() > 0 ? moment / sum : Double.NaN;
+        return sum > 0 ? moment / sum : Double.NaN;
+    }
+
+    /**
+     * The incident spectrum A(kx) of the class comment for sample m − c, with the phase of a further
+     * {@code back} metres of travel back into the incidence medium (the reflected wave's, for
+     * {@link #reflectedCentroid}), and the sign (−1)^(m−c) that moves the profile's origin to x_0 = −W/2
+     * (see shiftToWindow); null for a kx outside the beam (evanescent in the incidence medium, a backward
+     * wave in the beam's frame, or an amplitude that underflows).
+     */
+    private static Complex incident(GaussianBeam beam, double k, double kx, int mc, double back) {
+        if (!(Math.abs(kx) < k)) {
+            return null;
+        }
+        double psi = Math.asin(kx / k) - beam.angle();
+        double cosPsi = Math.cos(psi);
+        if (!(cosPsi > 0)) {
+            return null; // a backward wave in the beam's frame: not part of the beam
+        }
+        double kt = k * Math.sin(psi);
+        double kz1 = Math.sqrt((k - kx) * (k + kx));
+        double w = beam.waist();
+        double mag = w * Math.sqrt(Math.PI) * Math.exp(-w * w * kt * kt / 4) * (k * cosPsi / kz1);
+        if (mag == 0) {
+            return null;
+        }
+        Complex a = Complex.polar(mag, k * cosPsi * beam.waistDistance() + kz1 * back);
+        return (mc & 1) != 0 ? a.negate() : a;
+    }
+
+    /** Refuses a window or a sampling that cannot hold the beam. */
+    private static void checkSampling(PlanarStack stack, GaussianBeam beam, int samples, double window) {
+        double n1 = stack.incidentIndex();
+        double lambda = beam.wavelength();
+        double dx = window / samples;
+        if (samples < 2) {
+            throw new IllegalArgumentException(String.format("samples %d must be >= 2", samples));
+        }
+        if (!(window >= 4 * beam.footprint()) || Double.isInfinite(window)) {
+            throw new IllegalArgumentException(String.format(
+                    "window %g m must be finite and at least 4 beam footprints w0/cos(theta) = %g m", window,
+                    4 * beam.footprint()));
+        }
+        if (!(dx <= lambda / (2 * n1))) {
+            throw new IllegalArgumentException(String.format(
+                    "sample spacing window/samples = %g m must be at most lambda0/(2 n1) = %g m, so that every "
+                            + "propagating plane wave (|kx| < n1 k0) is sampled", dx, lambda / (2 * n1)));
+        }
     }
 
     private static void put(double[] u, int m, Complex z) {
