@@ -7,7 +7,7 @@ import org.evanesce.io.casefile.SourceSpec;
 import org.evanesce.solver.PhysicalConstants;
 
 /** The case's plane wave (at most one, the case file's checks ensure) and the quantities derived from it. */
-final class PlaneWaves {
+public final class PlaneWaves {
 
     private PlaneWaves() {
     }
@@ -18,26 +18,25 @@ final class PlaneWaves {
     }
 
     /** The case's plane wave or Gaussian beam (at most one). */
-    static Optional<SourceSpec.Launched> launched(CaseSpec spec) {
+    public static Optional<SourceSpec.Launched> launched(CaseSpec spec) {
         return spec.sources().stream().filter(s -> s instanceof SourceSpec.Launched).map(s -> (SourceSpec.Launched) s)
                 .findFirst();
     }
 
     /** The material along the launching line (for a beam, where its axis crosses it). */
-    static MaterialSpec medium(CaseSpec spec, SourceSpec.Launched w) {
+    public static MaterialSpec medium(CaseSpec spec, SourceSpec.Launched w) {
         double x = w instanceof SourceSpec.GaussianBeamSource b ? b.axisAtLine() : 0;
         return spec.materials().get(spec.materialAt(x, w.y().si()));
     }
 
     /** The in-plane wavenumber of the case's plane wave or beam (its axis), n k0 sin θ at the centre frequency, rad/m. */
-    static double launchedKx(CaseSpec spec) {
+    public static double launchedKx(CaseSpec spec) {
         return launched(spec).map(w -> 2 * Math.PI * w.signal().frequency().si() / PhysicalConstants.C0
                 * medium(spec, w).index() * Math.sin(w.angle().si())).orElse(0.0);
     }
 
     /** kx = n k0 sin θ at the signal's centre frequency, rad/m; 0 without a plane wave. */
     static double kx(CaseSpec spec) {
-        return of(spec).map(w -> 2 * Math.PI * w.signal().frequency().si() / PhysicalConstants.C0
-                * medium(spec, w).index() * Math.sin(w.angle().si())).orElse(0.0);
+        return of(spec).isPresent() ? launchedKx(spec) : 0.0;
     }
 }

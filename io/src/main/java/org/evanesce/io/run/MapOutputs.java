@@ -17,6 +17,7 @@ import org.evanesce.io.output.hdf5.Xdmf;
 import org.evanesce.io.output.image.FieldPicture;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.FieldPlan;
+import org.evanesce.io.plan.PlaneWaves;
 import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
@@ -177,18 +178,14 @@ public final class MapOutputs {
 
     /** The plane-wave decay length for the case's plane wave or beam at frequency f, NaN where it does not apply. */
     static double planeWave(CasePlan plan, MapsSpec.DecayLine line, double f) {
-        SourceSpec.Launched w = plan.spec().sources().stream().filter(s -> s instanceof SourceSpec.Launched)
-                .map(s -> (SourceSpec.Launched) s).findFirst().orElse(null);
+        SourceSpec.Launched w = PlaneWaves.launched(plan.spec()).orElse(null);
         if (w == null) {
             return Double.NaN;
         }
         double k0 = 2 * Math.PI * f / PhysicalConstants.C0;
-        double fc = w.signal().frequency().si();
-        double x = w instanceof SourceSpec.GaussianBeamSource b ? b.axisAtLine() : 0;
-        double n1 = plan.spec().materials().get(plan.spec().materialAt(x, w.y().si())).index();
         // a plane wave keeps its kx at every frequency; a beam keeps its axis
-        double kx = w instanceof SourceSpec.PlaneWave ? 2 * Math.PI * fc / PhysicalConstants.C0 * n1 * Math.sin(w.angle().si())
-                : k0 * n1 * Math.sin(w.angle().si());
+        double kx = w instanceof SourceSpec.PlaneWave ? PlaneWaves.launchedKx(plan.spec())
+                : k0 * PlaneWaves.medium(plan.spec(), w).index() * Math.sin(w.angle().si());
         double n2 = plan.spec().materials().get(plan.spec().materialAt(line.from().x().si(), line.from().y().si())).index();
         double q = kx * kx - n2 * n2 * k0 * k0;
         return q > 0 ? 1 / Math.sqrt(q) : Double.NaN;

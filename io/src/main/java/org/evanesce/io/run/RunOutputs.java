@@ -119,7 +119,7 @@ public final class RunOutputs {
         grid.put("precision", s.numerics().precision().value().name().toLowerCase(Locale.ROOT));
         grid.put("materials_after_smoothing", plan.materials().materials().size());
         grid.put("dispersion_correction", s.numerics().correctsDispersion(
-                s.sources().stream().anyMatch(x -> x instanceof org.evanesce.io.casefile.SourceSpec.Launched)));
+                org.evanesce.io.plan.PlaneWaves.launched(s).isPresent()));
         grid.put("relative_permittivity_on_grid", new LinkedHashMap<>(plan.gridPermittivity()));
         m.put("grid", grid);
         long cells = (long) plan.grid().nx() * plan.grid().ny();

@@ -131,21 +131,11 @@ public final class FluxLine implements StatefulListener {
      * scattered (e.g. reflected) flux.
      */
     public double flux(int q, double cellSize, FluxLine reference) {
-        double s = 0;
-        for (int k = 0; k < eRe[q].length; k++) {
-            double er = eRe[q][k];
-            double ei = eIm[q][k];
-            double hr = hRe[q][k];
-            double hi = hIm[q][k];
-            if (reference != null) {
-                er -= reference.eRe[q][k];
-                ei -= reference.eIm[q][k];
-                hr -= reference.hRe[q][k];
-                hi -= reference.hIm[q][k];
-            }
-            s += er * hr + ei * hi; // Re(E H*)
+        double sum = 0;
+        for (double d : fluxDensity(q, reference)) {
+            sum += d;
         }
-        return sign * 0.5 * s * cellSize / PhysicalConstants.ETA0;
+        return sum * cellSize;
     }
 
     /** The transformed electric field (averaged onto the line) at frequency q and cell i: {re, im}. */
