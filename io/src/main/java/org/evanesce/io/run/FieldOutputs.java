@@ -156,38 +156,54 @@ public final class FieldOutputs {
     public static void writePermittivity(CasePlan plan, Path dir) throws IOException {
         int[] box = plan.fields().box();
         GridSpec r = regionGrid(plan, box);
-        List<FieldDataset> sets = new ArrayList<>();
+        List<FieldDataset> sets = new ArrayList<>(permittivity(plan, box, "relative permittivity"));
+        sets.add(materialIds(plan, box, Map.of()));
         List<Xdmf.Attribute> attrs = new ArrayList<>();
-        Polarization pol = plan.spec().polarization().value();
-        for (FieldSite site : pol == Polarization.S ? new FieldSite[] {FieldSite.EZ} : new FieldSite[] {FieldSite.EX, FieldSite.EY}) {
-            Component c = site == FieldSite.EZ ? Component.EZ : site == FieldSite.EX ? Component.EX : Component.EY;
+        for (FieldDataset d : sets) {
+            attrs.add(Xdmf.Attribute.of(d.name(), "permittivity.h5", d));
+        }
+        Hdf5Writer.write(dir.resolve("permittivity.h5"), fileAttributes(plan), sets);
+        writeText(dir.resolve("permittivity.xmf"), Xdmf.spatial("permittivity", List.of(
+                new Xdmf.Grid("permittivity", r.nx(), r.ny(), r.x0(), r.y0(), r.cellSize(), attrs))));
+    }
+
+    /** εr on the grid at each electric component's sites over the box, averaged onto the nodes: eps_z (s); eps_x, eps_y (p). */
+    static List<FieldDataset> permittivity(CasePlan plan, int[] box, String quantity) {
+        GridSpec r = regionGrid(plan, box);
+        List<FieldDataset> out = new ArrayList<>();
+        for (Component c : plan.spec().polarization().value().components()) {
+            if (!c.electric) {
+                continue;
+            }
+            FieldSite site = c == Component.EZ ? FieldSite.EZ : c == Component.EX ? FieldSite.EX : FieldSite.EY;
             double[] eps = new double[r.nx() * r.ny()];
             for (int j = 0; j < r.ny(); j++) {
                 for (int i = 0; i < r.nx(); i++) {
                     eps[j * r.nx() + i] = plan.materials().material(site, box[0] + i, box[1] + j).relativePermittivity();
                 }
             }
-            Map<String, Object> a = attributes(plan, r, c, "relative permittivity");
+            Map<String, Object> a = attributes(plan, r, c, quantity);
             a.put("unit", "1");
-            FieldDataset d = new FieldDataset("eps_" + site.name().toLowerCase(Locale.ROOT).substring(1),
-                    Nodes.average(c, eps, r.nx(), r.ny()), r.nx(), r.ny(), Precision.DOUBLE, a);
-            sets.add(d);
-            attrs.add(Xdmf.Attribute.of(d.name(), "permittivity.h5", d));
+            out.add(new FieldDataset("eps_" + c.name().substring(1).toLowerCase(Locale.ROOT),
+                    Nodes.average(c, eps, r.nx(), r.ny()), r.nx(), r.ny(), Precision.DOUBLE, a));
         }
+        return out;
+    }
+
+    /** The material ids of {@link #ids} as a dataset, the materials' names in its attribute, plus {@code extra} attributes. */
+    static FieldDataset materialIds(CasePlan plan, int[] box, Map<String, Object> extra) {
+        GridSpec r = regionGrid(plan, box);
         int[] ids = ids(plan, box);
         double[] idv = new double[ids.length];
         for (int k = 0; k < ids.length; k++) {
             idv[k] = ids[k];
         }
-        Map<String, Object> a = attributes(plan, r, pol == Polarization.S ? Component.EZ : Component.EX, "material id");
+        Map<String, Object> a = attributes(plan, r, plan.spec().polarization().value() == Polarization.S ? Component.EZ
+                : Component.EX, "material id");
         a.put("unit", "1");
         a.put("materials", String.join(", ", plan.materials().materials().stream().map(m -> m.name()).toList()));
-        FieldDataset d = new FieldDataset("material_id", idv, r.nx(), r.ny(), Precision.DOUBLE, a);
-        sets.add(d);
-        attrs.add(Xdmf.Attribute.of(d.name(), "permittivity.h5", d));
-        Hdf5Writer.write(dir.resolve("permittivity.h5"), fileAttributes(plan), sets);
-        writeText(dir.resolve("permittivity.xmf"), Xdmf.spatial("permittivity", List.of(
-                new Xdmf.Grid("permittivity", r.nx(), r.ny(), r.x0(), r.y0(), r.cellSize(), attrs))));
+        a.putAll(extra);
+        return new FieldDataset("material_id", idv, r.nx(), r.ny(), Precision.DOUBLE, a);
     }
 
     /** Whether the run has Bloch-periodic sides (complex fields). */

@@ -57,6 +57,9 @@ public final class MapOutputs {
         List<Xdmf.Grid> grids = new ArrayList<>();
         List<Decay> decays = new ArrayList<>();
         double decades = maps.spec().logDecades().si();
+        // the permittivity beside the maps, once for all frequencies
+        List<FieldDataset> permittivity = FieldOutputs.permittivity(plan, box, "relative permittivity on the grid");
+        sets.addAll(permittivity);
         for (int q = 0; q < fm.frequencyCount(); q++) {
             double f = fm.frequency(q);
             double wl = PhysicalConstants.C0 / f;
@@ -88,26 +91,8 @@ public final class MapOutputs {
                             .writePng(dir.resolve("map-" + c.name().toLowerCase(Locale.ROOT) + "-" + tag + ".png"));
                 }
             }
-            for (Component c : pol.components()) {
-                if (!c.electric) {
-                    continue;
-                }
-                // the permittivity beside the maps, at this component's sites averaged onto the nodes
-                double[] eps = new double[r.nx() * r.ny()];
-                org.evanesce.geometry.FieldSite site = c == Component.EZ ? org.evanesce.geometry.FieldSite.EZ
-                        : c == Component.EX ? org.evanesce.geometry.FieldSite.EX : org.evanesce.geometry.FieldSite.EY;
-                for (int j = 0; j < r.ny(); j++) {
-                    for (int i = 0; i < r.nx(); i++) {
-                        eps[j * r.nx() + i] = plan.materials().material(site, box[0] + i, box[1] + j).relativePermittivity();
-                    }
-                }
-                String name = "eps_" + c.name().substring(1).toLowerCase(Locale.ROOT);
-                if (q == 0) {
-                    Map<String, Object> ea = FieldOutputs.attributes(plan, r, c, "relative permittivity on the grid");
-                    ea.put("unit", "1");
-                    sets.add(new FieldDataset(name, Nodes.average(c, eps, r.nx(), r.ny()), r.nx(), r.ny(), Precision.DOUBLE, ea));
-                }
-                attrs.add(new Xdmf.Attribute(name, "maps.h5", "/" + name, 8));
+            for (FieldDataset eps : permittivity) {
+                attrs.add(Xdmf.Attribute.of(eps.name(), "maps.h5", eps));
             }
             double[] mag = new double[e2.length];
             for (int k = 0; k < e2.length; k++) {
@@ -133,16 +118,7 @@ public final class MapOutputs {
                 }
             }
         }
-        double[] idv = new double[ids.length];
-        for (int k = 0; k < ids.length; k++) {
-            idv[k] = ids[k];
-        }
-        Map<String, Object> a = FieldOutputs.attributes(plan, r, pol == Polarization.S ? Component.EZ : Component.EX,
-                "material id");
-        a.put("unit", "1");
-        a.put("materials", String.join(", ", plan.materials().materials().stream().map(m -> m.name()).toList()));
-        a.put("log_decades", decades);
-        sets.add(new FieldDataset("material_id", idv, r.nx(), r.ny(), Precision.DOUBLE, a));
+        sets.add(FieldOutputs.materialIds(plan, box, Map.of("log_decades", decades)));
         Hdf5Writer.write(dir.resolve("maps.h5"), FieldOutputs.fileAttributes(plan), sets);
         FieldOutputs.writeText(dir.resolve("maps.xmf"), Xdmf.spatial("frequency-domain maps", grids));
         return decays;
