@@ -46,6 +46,8 @@ public final class Simulation implements StepView, AutoCloseable {
     /** Incident-field sheets (beams), their terms after the plain sources'. */
     private final IncidentSheet[] sheets;
     private final int[] sheetTermStart;
+    /** Per sheet: whether every cell has the same envelope delay. */
+    private final boolean[] sheetUniform;
     private final int flushInterval;
     private final double divergenceLimit;
     private final List<StepListener> listeners;
@@ -77,6 +79,11 @@ public final class Simulation implements StepView, AutoCloseable {
         sourceTermStart[sources.length] = n;
         sheets = b.sheets.toArray(new IncidentSheet[0]);
         sheetTermStart = new int[sheets.length];
+        sheetUniform = new boolean[sheets.length];
+        for (int q = 0; q < sheets.length; q++) {
+            double[] d = sheets[q].delays();
+            sheetUniform[q] = java.util.Arrays.stream(d).allMatch(x -> x == d[0]);
+        }
         for (int q = 0; q < sheets.length; q++) {
             sheetTermStart[q] = n;
             n += sheets[q].cells().length;
@@ -136,8 +143,10 @@ public final class Simulation implements StepView, AutoCloseable {
             double[] im = sh.im();
             double[] delay = sh.delays();
             int base = sheetTermStart[q];
+            // one envelope for the whole sheet when every cell has the same delay (a continuous wave's)
+            double common = sheetUniform[q] ? sh.signal().envelope(time - delay[0]) : Double.NaN;
             for (int t = 0; t < re.length; t++) {
-                double env = sh.signal().envelope(time - delay[t]);
+                double env = sheetUniform[q] ? common : sh.signal().envelope(time - delay[t]);
                 engine.sourceValue(base + t, env == 0 ? 0 : env * (re[t] * c + im[t] * sn));
             }
         }
