@@ -598,14 +598,8 @@ final class CaseParser {
             return null;
         }
         Located<Component> comp = component(v, "component");
-        Node an = v.get("amplitude");
-        Value amp = an == null ? new Value(1, v.at()) : ctx.value(an, v.path("amplitude"), Expect.PLAIN);
-        Node sn = v.require("signal", "a signal such as 'pulse: {wavelength: 633 nm, bandwidth: 50 nm}'");
-        SignalSpec signal = null;
-        if (sn != null) {
-            KindEntry se = KindEntry.read(ctx, sn, Schema.SIGNAL, v.path("signal"));
-            signal = se == null ? null : signalReader.read(se);
-        }
+        Value amp = SourceParts.amplitude(ctx, v);
+        SignalSpec signal = SourceParts.signal(ctx, signalReader, v, "pulse: {wavelength: 633 nm, bandwidth: 50 nm}");
         if (!line) {
             Point at = point(v, "at");
             return at == null || comp == null || amp == null || signal == null ? null
@@ -613,13 +607,7 @@ final class CaseParser {
         }
         Point from = point(v, "from");
         Point to = point(v, "to");
-        Node angn = v.get("angle");
-        Value angle = angn == null ? new Value(0, v.at()) : ctx.value(angn, v.path("angle"), Expect.ANGLE);
-        if (angle != null && !(Math.abs(angle.si()) < Math.PI / 2)) {
-            ctx.error(angle.at(), v.path("angle"), "must lie strictly between -90 deg and 90 deg, got "
-                    + Units.format(angle.si(), Dimension.ANGLE));
-            angle = null;
-        }
+        Value angle = SourceParts.angle(ctx, v);
         Node wn = v.get("waist");
         Value waist = wn == null ? null : ctx.positive(wn, v.path("waist"), Expect.LENGTH);
         if (from != null && to != null) {

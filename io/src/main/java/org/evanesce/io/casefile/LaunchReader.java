@@ -3,8 +3,6 @@ package org.evanesce.io.casefile;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import org.evanesce.io.casefile.Context.Expect;
-import org.evanesce.io.casefile.expr.Dimension;
-import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
 import org.snakeyaml.engine.v2.nodes.Node;
@@ -39,27 +37,15 @@ final class LaunchReader {
         }
         Node yn = v.require("y", "the height of the launching line, a length such as -2 um");
         Value y = yn == null ? null : ctx.value(yn, v.path("y"), Expect.LENGTH);
-        Node angn = v.get("angle");
-        Value angle = angn == null ? new Value(0, v.at()) : ctx.value(angn, v.path("angle"), Expect.ANGLE);
-        if (angle != null && !(Math.abs(angle.si()) < Math.PI / 2)) {
-            ctx.error(angle.at(), v.path("angle"), "must lie strictly between -90 deg and 90 deg, got "
-                    + Units.format(angle.si(), Dimension.ANGLE));
-            angle = null;
-        }
+        Value angle = SourceParts.angle(ctx, v);
         Node dn = v.get("direction");
         Located<SourceSpec.Direction> direction = new Located<>(SourceSpec.Direction.UP, v.at());
         if (dn != null) {
             SourceSpec.Direction d = ctx.choice(dn, v.path("direction"), DIRECTIONS);
             direction = d == null ? null : new Located<>(d, ctx.pos(dn));
         }
-        Node an = v.get("amplitude");
-        Value amp = an == null ? new Value(1, v.at()) : ctx.value(an, v.path("amplitude"), Expect.PLAIN);
-        Node sn = v.require("signal", "a signal such as 'pulse: {wavelength: 633 nm, bandwidth: 20 nm}'");
-        SignalSpec signal = null;
-        if (sn != null) {
-            KindEntry se = KindEntry.read(ctx, sn, Schema.SIGNAL, v.path("signal"));
-            signal = se == null ? null : signals.read(se);
-        }
+        Value amp = SourceParts.amplitude(ctx, v);
+        SignalSpec signal = SourceParts.signal(ctx, signals, v, "pulse: {wavelength: 633 nm, bandwidth: 20 nm}");
         // launched waves drive the z component: Ez for s, Hz for p
         Located<Component> comp = polarization == null ? null
                 : new Located<>(polarization == Polarization.S ? Component.EZ : Component.HZ, v.at());
