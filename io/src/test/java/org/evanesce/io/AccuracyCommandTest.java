@@ -4,10 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -75,20 +72,7 @@ class AccuracyCommandTest {
                 - {y: 0.7 um, measures: transmitted}
               transfer_matrix: true""";
 
-    private record Outcome(int code, String out, String err) {
-        @Override
-        public String toString() {
-            return "exit " + code + "\n--- stdout ---\n" + out + "--- stderr ---\n" + err;
-        }
-    }
 
-    private static Outcome run(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Outcome(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
-    }
 
     private Path write(String name, String text) throws IOException {
         Path f = tmp.resolve(name);
@@ -112,7 +96,7 @@ class AccuracyCommandTest {
     @ValueSource(strings = {"s", "p"})
     void twoLevelEstimateBoundsTheDistanceToTheClosedForm(String pol) throws IOException {
         Path out = tmp.resolve("study");
-        Outcome o = run("accuracy", write("gap.yaml", CASE.replace("FLUX", FLUX).replace("POL", pol)).toString(),
+        Cli.Outcome o = Cli.run("accuracy", write("gap.yaml", CASE.replace("FLUX", FLUX).replace("POL", pol)).toString(),
                 "--levels", "2", "--out", out.toString());
         assertEquals(Main.OK, o.code(), o::toString);
         for (String level : List.of("level1", "level2")) {
@@ -170,7 +154,7 @@ class AccuracyCommandTest {
     @Test
     void fourLevelsAreRefused() throws IOException {
         Path out = tmp.resolve("four");
-        Outcome o = run("accuracy", write("gap.yaml", CASE.replace("FLUX", FLUX).replace("POL", "s")).toString(), "--levels", "4",
+        Cli.Outcome o = Cli.run("accuracy", write("gap.yaml", CASE.replace("FLUX", FLUX).replace("POL", "s")).toString(), "--levels", "4",
                 "--out", out.toString());
         assertEquals(Main.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains("--levels"), () -> "the message should name --levels: " + o);
@@ -180,7 +164,7 @@ class AccuracyCommandTest {
     @Test
     void caseWithoutFluxIsRefused() throws IOException {
         Path out = tmp.resolve("no-flux");
-        Outcome o = run("accuracy", write("no-flux.yaml", CASE.replace("FLUX", "").replace("POL", "s")).toString(), "--out",
+        Cli.Outcome o = Cli.run("accuracy", write("no-flux.yaml", CASE.replace("FLUX", "").replace("POL", "s")).toString(), "--out",
                 out.toString());
         assertEquals(Main.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains("flux"), () -> "the message should mention flux: " + o);

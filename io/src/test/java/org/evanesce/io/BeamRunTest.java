@@ -4,10 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -88,20 +85,7 @@ class BeamRunTest {
     @TempDir
     Path tmp;
 
-    private record Outcome(int code, String out, String err) {
-        @Override
-        public String toString() {
-            return "exit " + code + "\n--- stdout ---\n" + out + "--- stderr ---\n" + err;
-        }
-    }
 
-    private static Outcome run(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Outcome(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
-    }
 
     private static boolean printTables() {
         return Boolean.getBoolean("evanesce.printTables");
@@ -186,7 +170,7 @@ class BeamRunTest {
     /** Runs a case that must succeed and returns its flux.csv. */
     private FluxRow runFlux(String name, String text) throws IOException {
         Path out = tmp.resolve(name + "-out");
-        Outcome o = run("run", write(name + ".yaml", text).toString(), "--out", out.toString());
+        Cli.Outcome o = Cli.run("run", write(name + ".yaml", text).toString(), "--out", out.toString());
         assertEquals(Main.OK, o.code(), () -> name + ": " + o);
         return FluxRow.read(out.resolve("flux.csv"));
     }
@@ -539,7 +523,7 @@ class BeamRunTest {
     }
 
     /** The error messages (not warnings or notes) at exactly {@code path}. */
-    private static List<Message> errorsAt(Outcome o, Path file, String path) {
+    private static List<Message> errorsAt(Cli.Outcome o, Path file, String path) {
         List<Message> found = new ArrayList<>();
         Matcher m = Pattern.compile("(?m)^" + Pattern.quote(file.toString()) + ":(\\d+):\\d+: (?:error: )?"
                 + Pattern.quote(path) + ": (.*)$").matcher(o.err());
@@ -553,7 +537,7 @@ class BeamRunTest {
     private Message refusedAt(String name, String text, String path) throws IOException {
         Path file = write(name + ".yaml", text);
         Path out = tmp.resolve(name + "-out");
-        Outcome o = run("run", file.toString(), "--out", out.toString());
+        Cli.Outcome o = Cli.run("run", file.toString(), "--out", out.toString());
         assertEquals(Main.USAGE, o.code(), () -> name + ": " + o);
         List<Message> found = errorsAt(o, file, path);
         assertEquals(1, found.size(), () -> name + ": expected one error at " + path + ": " + o);
@@ -581,7 +565,7 @@ class BeamRunTest {
 
         // the same block 7 um from the axis, beyond the part of the line the beam uses, is accepted
         String outside = small(block.replace("[3 um", "[7 um"), PML, WAIST_LINE);
-        Outcome ok = run("check", write("outside.yaml", outside).toString());
+        Cli.Outcome ok = Cli.run("check", write("outside.yaml", outside).toString());
         assertEquals(Main.OK, ok.code(), () -> "a block beyond 4 footprints of the axis should not matter: " + ok);
     }
 

@@ -4,10 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
@@ -83,20 +80,7 @@ class CaseCommandsTest {
             stop: {steps: 5000}
             """;
 
-    private record Outcome(int code, String out, String err) {
-        @Override
-        public String toString() {
-            return "exit " + code + "\n--- stdout ---\n" + out + "--- stderr ---\n" + err;
-        }
-    }
 
-    private static Outcome run(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Outcome(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
-    }
 
     private Path write(String name, String text) throws IOException {
         return Files.writeString(tmp.resolve(name), text);
@@ -112,13 +96,13 @@ class CaseCommandsTest {
     void aFinishedFolderIsNotOverwrittenWithoutForce() throws IOException {
         Path c = write("tiny.yaml", TINY);
         Path out = tmp.resolve("out");
-        Outcome first = run("run", c.toString(), "--out", out.toString());
+        Cli.Outcome first = Cli.run("run", c.toString(), "--out", out.toString());
         assertEquals(Main.OK, first.code(), first::toString);
         String record = Files.readString(out.resolve("run.json"));
         String probes = Files.readString(out.resolve("probes.csv"));
         Files.writeString(out.resolve("my-notes.txt"), "keep me");
 
-        Outcome again = run("run", c.toString(), "--out", out.toString(), "--set", "wl=800 nm");
+        Cli.Outcome again = Cli.run("run", c.toString(), "--out", out.toString(), "--set", "wl=800 nm");
         assertEquals(Main.USAGE, again.code(), again::toString);
         assertTrue(again.err().contains("--force"), () -> "the message should say how to replace it: " + again);
         assertEquals(record, Files.readString(out.resolve("run.json")), "run.json changed");
@@ -126,7 +110,7 @@ class CaseCommandsTest {
         assertEquals("keep me", Files.readString(out.resolve("my-notes.txt")));
         assertEquals(List.of("out", "tiny.yaml"), names(tmp), "leftovers of the refused run");
 
-        Outcome forced = run("run", c.toString(), "--out", out.toString(), "--set", "wl=800 nm", "--force");
+        Cli.Outcome forced = Cli.run("run", c.toString(), "--out", out.toString(), "--set", "wl=800 nm", "--force");
         assertEquals(Main.OK, forced.code(), forced::toString);
         assertTrue(Files.readString(out.resolve("run.json")).contains("800 nm"), "--force did not replace run.json");
         assertFalse(Files.exists(out.resolve("my-notes.txt")), "--force replaces the whole folder");
@@ -141,7 +125,7 @@ class CaseCommandsTest {
         for (String[] args : new String[][] {
             {"run", c.toString(), "--out", out.toString()},
             {"check", c.toString(), "--trial-seconds", "0", "--preview", png.toString()}}) {
-            Outcome o = run(args);
+            Cli.Outcome o = Cli.run(args);
             assertEquals(Main.USAGE, o.code(), o::toString);
             Matcher width = Pattern.compile("(?m)^" + Pattern.quote(c.toString()) + ":6:(\\d+): domain\\.width: .*-2 um")
                     .matcher(o.err());
@@ -158,7 +142,7 @@ class CaseCommandsTest {
     void aDivergingRunExits3AndLeavesNoFolder() throws IOException {
         Path c = write("gain.yaml", GAIN);
         Path out = tmp.resolve("out");
-        Outcome o = run("run", c.toString(), "--out", out.toString());
+        Cli.Outcome o = Cli.run("run", c.toString(), "--out", out.toString());
         assertEquals(Main.RUN_FAILED, o.code(), o::toString);
         assertTrue(o.err().contains("diverged"), o::toString);
         assertFalse(Files.exists(out), "a failed run left its folder");
@@ -173,7 +157,7 @@ class CaseCommandsTest {
         for (String[] args : new String[][] {
             {"run", c.toString(), "--out", out.toString(), "--set", "wavelength=700 nm"},
             {"check", c.toString(), "--trial-seconds", "0", "--preview", png.toString(), "--set", "wavelength=700 nm"}}) {
-            Outcome o = run(args);
+            Cli.Outcome o = Cli.run(args);
             assertEquals(Main.USAGE, o.code(), o::toString);
             assertTrue(o.err().contains("'wavelength'"), () -> "the message should name the parameter: " + o);
             assertEquals(List.of("tiny.yaml"), names(tmp), () -> args[0] + " wrote something: " + o);
@@ -183,7 +167,7 @@ class CaseCommandsTest {
     @Test
     void settingAParameterToTheWrongKindIsAUsageError() throws IOException {
         Path c = write("tiny.yaml", TINY);
-        Outcome o = run("run", c.toString(), "--out", tmp.resolve("out").toString(), "--set", "wl=3");
+        Cli.Outcome o = Cli.run("run", c.toString(), "--out", tmp.resolve("out").toString(), "--set", "wl=3");
         assertEquals(Main.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains("wl"), o::toString);
         assertEquals(List.of("tiny.yaml"), names(tmp), "nothing should be written: " + o);
@@ -191,7 +175,7 @@ class CaseCommandsTest {
 
     @Test
     void aMissingCaseFileIsAUsageError() {
-        Outcome o = run("run", tmp.resolve("nowhere.yaml").toString(), "--out", tmp.resolve("out").toString());
+        Cli.Outcome o = Cli.run("run", tmp.resolve("nowhere.yaml").toString(), "--out", tmp.resolve("out").toString());
         assertEquals(Main.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains("nowhere.yaml"), o::toString);
     }

@@ -6,10 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertInstanceOf;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.junit.jupiter.api.Assertions.fail;
 
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -41,20 +38,7 @@ class ExampleCasesTest {
     /** The output files each {@code output.write} item asks for (only these exist in this version). */
     static final Map<String, String> WRITTEN = Map.of("probes", "probes.csv", "preview", "preview.png");
 
-    private record Outcome(int code, String out, String err) {
-        @Override
-        public String toString() {
-            return "exit " + code + "\n--- stdout ---\n" + out + "--- stderr ---\n" + err;
-        }
-    }
 
-    private static Outcome run(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Outcome(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
-    }
 
     static List<Path> examples() throws IOException {
         try (Stream<Path> s = Files.list(CASES)) {
@@ -110,7 +94,7 @@ class ExampleCasesTest {
     @MethodSource("examples")
     void checks(Path example, @TempDir Path tmp) {
         Path png = tmp.resolve("preview.png");
-        Outcome o = run("check", example.toString(), "--trial-seconds", "0", "--preview", png.toString());
+        Cli.Outcome o = Cli.run("check", example.toString(), "--trial-seconds", "0", "--preview", png.toString());
         assertEquals(Main.OK, o.code(), o::toString);
         assertTrue(o.out().contains("valid"), o::toString);
         assertFalse(o.err().lines().anyMatch(l -> l.matches(".*:\\d+:\\d+: warning:.*")),
@@ -123,7 +107,7 @@ class ExampleCasesTest {
     void runsCoarsely(Path example, @TempDir Path tmp) throws IOException {
         followsTheTestConvention(example);
         Path out = tmp.resolve("results");
-        Outcome o = run("run", example.toString(), "--set", "cpw=" + COARSE_CPW, "--set", "duration=" + SHORT_DURATION,
+        Cli.Outcome o = Cli.run("run", example.toString(), "--set", "cpw=" + COARSE_CPW, "--set", "duration=" + SHORT_DURATION,
                 "--out", out.toString());
         assertEquals(Main.OK, o.code(), o::toString);
         Path record = out.resolve("run.json");

@@ -12,9 +12,7 @@ import io.jhdf.api.Attribute;
 import io.jhdf.api.Dataset;
 import io.jhdf.api.Node;
 import java.io.ByteArrayInputStream;
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -141,28 +139,15 @@ class FieldOutputRunTest {
     @TempDir
     Path tmp;
 
-    private record Outcome(int code, String out, String err) {
-        @Override
-        public String toString() {
-            return "exit " + code + "\n--- stdout ---\n" + out + "--- stderr ---\n" + err;
-        }
-    }
 
-    private static Outcome run(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Outcome(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
-    }
 
     /** Runs a case that must succeed; returns its folder. */
     private static Path runCase(Path dir, String name, String text) throws IOException {
         Path file = dir.resolve(name + ".yaml");
         Files.writeString(file, text);
         Path out = dir.resolve(name + "-out");
-        Outcome o = run("run", file.toString(), "--out", out.toString());
-        assertEquals(0, o.code, () -> name + ": " + o);
+        Cli.Outcome o = Cli.run("run", file.toString(), "--out", out.toString());
+        assertEquals(0, o.code(), () -> name + ": " + o);
         return out;
     }
 
@@ -551,7 +536,7 @@ class FieldOutputRunTest {
 
     @Test
     void h5pyReadsAFrameAndTheMaps() throws Exception {
-        assumeTrue(Files.isExecutable(PYTHON) && python(List.of("-c", "import h5py, numpy")).code == 0,
+        assumeTrue(Files.isExecutable(PYTHON) && python(List.of("-c", "import h5py, numpy")).code() == 0,
                 "h5py not importable by /usr/bin/python3: install Debian's python3-h5py and python3-numpy");
         Map<String, Object> grid = section(completeRecord, "grid");
         double cell = number(grid, "cell_size_m");
@@ -563,14 +548,14 @@ class FieldOutputRunTest {
         }
         double x0 = number(grid, "x0_m");
         double y0 = number(grid, "y0_m");
-        Outcome r = python(List.of("-c", H5PY_CHECK, frame.toString(), complete.resolve("maps.h5").toString(),
+        Cli.Outcome r = python(List.of("-c", H5PY_CHECK, frame.toString(), complete.resolve("maps.h5").toString(),
                 "" + out[0], "" + out[1], "" + maps[0], "" + maps[1], Double.toString(cell),
                 Double.toString(x0 + out[2] * cell), Double.toString(y0 + out[3] * cell),
                 Double.toString(x0 + maps[2] * cell), Double.toString(y0 + maps[3] * cell), "p"));
-        assertEquals("OK", r.out.strip(), "h5py check of " + frame.getFileName() + " and maps.h5 (exit " + r.code + ")");
+        assertEquals("OK", r.out().strip(), "h5py check of " + frame.getFileName() + " and maps.h5 (exit " + r.code() + ")");
     }
 
-    private static Outcome python(List<String> args) throws IOException, InterruptedException {
+    private static Cli.Outcome python(List<String> args) throws IOException, InterruptedException {
         Path log = Files.createTempFile("h5py-check", ".txt");
         try {
             List<String> command = new ArrayList<>();
@@ -583,9 +568,9 @@ class FieldOutputRunTest {
             Process p = pb.start();
             if (!p.waitFor(120, TimeUnit.SECONDS)) {
                 p.destroyForcibly();
-                return new Outcome(-1, "timed out after 120 s", "");
+                return new Cli.Outcome(-1, "timed out after 120 s", "");
             }
-            return new Outcome(p.exitValue(), Files.readString(log, StandardCharsets.UTF_8), "");
+            return new Cli.Outcome(p.exitValue(), Files.readString(log, StandardCharsets.UTF_8), "");
         } finally {
             Files.deleteIfExists(log);
         }
@@ -606,8 +591,8 @@ class FieldOutputRunTest {
         }
         // per wavelength Re Hz and log |E| (3 x 2), and per written component of fields (Hz, Ex)
         assertEquals(3 * 2 + 2, pictures.size(), "pictures of the run: " + pictures);
-        Outcome o = run("render", dir.toString());
-        assertEquals(0, o.code, () -> "render: " + o);
+        Cli.Outcome o = Cli.run("render", dir.toString());
+        assertEquals(0, o.code(), () -> "render: " + o);
         for (String name : pictures) {
             Path p = dir.resolve(name);
             assertTrue(Files.isRegularFile(p), name + " recreated; " + o);
@@ -618,13 +603,13 @@ class FieldOutputRunTest {
         String log = "map-E-633.00nm-log.png";
         byte[] five = Files.readAllBytes(dir.resolve(log));
         Path two = tmp.resolve("two-decades");
-        Outcome o2 = run("render", dir.toString(), "--log-decades", "2", "--out", two.toString());
-        assertEquals(0, o2.code, () -> "render --log-decades 2: " + o2);
+        Cli.Outcome o2 = Cli.run("render", dir.toString(), "--log-decades", "2", "--out", two.toString());
+        assertEquals(0, o2.code(), () -> "render --log-decades 2: " + o2);
         assertFalse(java.util.Arrays.equals(five, Files.readAllBytes(two.resolve(log))),
                 "--log-decades 2 draws another log picture than the case's 5 decades");
         Path bare = tmp.resolve("no-outlines");
-        Outcome o3 = run("render", dir.toString(), "--no-outlines", "--out", bare.toString());
-        assertEquals(0, o3.code, () -> "render --no-outlines: " + o3);
+        Cli.Outcome o3 = Cli.run("render", dir.toString(), "--no-outlines", "--out", bare.toString());
+        assertEquals(0, o3.code(), () -> "render --no-outlines: " + o3);
         assertFalse(java.util.Arrays.equals(five, Files.readAllBytes(bare.resolve(log))),
                 "--no-outlines leaves out the glass-vacuum outline");
     }
@@ -632,9 +617,9 @@ class FieldOutputRunTest {
     @Test
     void renderRefusesAFolderWithoutHdf5() throws Exception {
         Path empty = Files.createDirectories(tmp.resolve("not-a-results-folder"));
-        Outcome o = run("render", empty.toString());
-        assertEquals(2, o.code, () -> "render of a folder without maps.h5 or fields.h5: " + o);
-        assertTrue(o.err.contains(empty.toString()), () -> "the message names the folder: " + o);
+        Cli.Outcome o = Cli.run("render", empty.toString());
+        assertEquals(2, o.code(), () -> "render of a folder without maps.h5 or fields.h5: " + o);
+        assertTrue(o.err().contains(empty.toString()), () -> "the message names the folder: " + o);
     }
 
     // ---- bad input ----
@@ -657,9 +642,9 @@ class FieldOutputRunTest {
         Path file = tmp.resolve(name + ".yaml");
         Files.writeString(file, text);
         Path out = tmp.resolve(name + "-out");
-        Outcome o = run("run", file.toString(), "--out", out.toString());
-        assertEquals(2, o.code, () -> name + ": " + o);
-        assertTrue(o.err.contains(key), () -> name + ": the message names " + key + ": " + o);
+        Cli.Outcome o = Cli.run("run", file.toString(), "--out", out.toString());
+        assertEquals(2, o.code(), () -> name + ": " + o);
+        assertTrue(o.err().contains(key), () -> name + ": the message names " + key + ": " + o);
         assertFalse(Files.exists(out), name + ": nothing written");
     }
 

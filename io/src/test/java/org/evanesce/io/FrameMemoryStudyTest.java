@@ -4,15 +4,12 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.sun.management.GarbageCollectionNotificationInfo;
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import java.io.PrintStream;
 import java.lang.management.GarbageCollectorMXBean;
 import java.lang.management.ManagementFactory;
 import java.lang.management.MemoryPoolMXBean;
 import java.lang.management.MemoryType;
 import java.lang.management.MemoryUsage;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.DirectoryStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -93,12 +90,6 @@ class FrameMemoryStudyTest {
     @TempDir
     Path tmp;
 
-    private record Outcome(int code, String out, String err) {
-        @Override
-        public String toString() {
-            return "exit " + code + "\n--- stdout ---\n" + out + "--- stderr ---\n" + err;
-        }
-    }
 
     /** One reading: when, how many frames were on disk, heap in use. */
     private record Reading(double seconds, int frames, long used) {
@@ -224,13 +215,6 @@ class FrameMemoryStudyTest {
         }
     }
 
-    private static Outcome run(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Outcome(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
-    }
 
     private static long usedAfterCollection() {
         for (int k = 0; k < 3; k++) {
@@ -282,9 +266,9 @@ class FrameMemoryStudyTest {
         sampler.setDaemon(true);
         long t0 = System.nanoTime();
         sampler.start();
-        Outcome o;
+        Cli.Outcome o;
         try {
-            o = run("run", file.toString(), "--out", out.toString());
+            o = Cli.run("run", file.toString(), "--out", out.toString());
         } finally {
             monitor.stop = true;
             sampler.join(10_000);
@@ -294,8 +278,8 @@ class FrameMemoryStudyTest {
             }
         }
         double wall = (System.nanoTime() - t0) * 1e-9;
-        Outcome done = o;
-        assertEquals(0, o.code, () -> "memory study run: " + done);
+        Cli.Outcome done = o;
+        assertEquals(0, o.code(), () -> "memory study run: " + done);
 
         Map<String, Object> record = FieldOutputRunTest.json(out.resolve("run.json"));
         Map<String, Object> grid = FieldOutputRunTest.section(record, "grid");

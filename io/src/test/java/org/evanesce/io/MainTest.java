@@ -3,9 +3,6 @@ package org.evanesce.io;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.ByteArrayOutputStream;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
@@ -14,24 +11,11 @@ import org.junit.jupiter.api.Test;
 class MainTest {
 
     /** The exit code and what a command printed. */
-    private record Outcome(int code, String out, String err) {
-        @Override
-        public String toString() {
-            return "exit " + code + "\n--- stdout ---\n" + out + "--- stderr ---\n" + err;
-        }
-    }
 
-    private static Outcome run(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Outcome(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
-    }
 
     @Test
     void versionPrintsTheMavenVersion() {
-        Outcome o = run("--version");
+        Cli.Outcome o = Cli.run("--version");
         assertEquals(Main.OK, o.code(), o::toString);
         assertTrue(o.out().startsWith("evanesce 0."), o::toString);
         assertTrue(!o.out().contains("unknown") && !o.out().contains("${"), "version not filtered by Maven: " + o);
@@ -39,7 +23,7 @@ class MainTest {
 
     @Test
     void unknownOptionIsAUsageErrorOnOneLine() {
-        Outcome o = run("bench", "--no-such-option");
+        Cli.Outcome o = Cli.run("bench", "--no-such-option");
         assertEquals(Main.USAGE, o.code(), o::toString);
         assertEquals("", o.out(), o::toString);
         assertEquals(1, o.err().lines().count(), o::toString);
@@ -48,14 +32,14 @@ class MainTest {
 
     @Test
     void missingCommandIsAUsageError() {
-        Outcome o = run();
+        Cli.Outcome o = Cli.run();
         assertEquals(Main.USAGE, o.code(), o::toString);
         assertEquals(1, o.err().lines().count(), o::toString);
     }
 
     @Test
     void unknownPrecisionIsAUsageError() {
-        Outcome o = run("bench", "--precision", "quadruple");
+        Cli.Outcome o = Cli.run("bench", "--precision", "quadruple");
         assertEquals(Main.USAGE, o.code(), o::toString);
         assertEquals(1, o.err().lines().count(), o::toString);
         assertTrue(o.err().contains("quadruple"), o::toString);
@@ -66,7 +50,7 @@ class MainTest {
         for (String[] args : new String[][] {
             {"bench", "--size", "10"}, {"bench", "--threads", "0"}, {"bench", "--seconds", "0"},
             {"bench", "--repeats", "0"}, {"bench", "--min-cells-per-thread", "0"}, {"bench", "--threads", "many"}}) {
-            Outcome o = run(args);
+            Cli.Outcome o = Cli.run(args);
             assertEquals(Main.USAGE, o.code(), () -> String.join(" ", args) + ": " + o);
             assertEquals("", o.out(), () -> String.join(" ", args) + ": " + o);
             assertEquals(1, o.err().lines().count(), () -> String.join(" ", args) + ": " + o);
@@ -75,7 +59,7 @@ class MainTest {
 
     @Test
     void benchReportsAPositiveRate() {
-        Outcome o = run("bench", "--size", "64", "--threads", "1", "--seconds", "0.2", "--warm-up", "0.2");
+        Cli.Outcome o = Cli.run("bench", "--size", "64", "--threads", "1", "--seconds", "0.2", "--warm-up", "0.2");
         assertEquals(Main.OK, o.code(), o::toString);
         Matcher m = Pattern.compile("(?m)^\\s+64x64\\s+s\\s+float\\s+1\\s+1\\s+\\S+\\s+(\\S+)\\s").matcher(o.out());
         assertTrue(o.out().contains("Mcell/s") && m.find(), o::toString);
@@ -84,7 +68,7 @@ class MainTest {
 
     @Test
     void benchCsvHasOneRowPerCase() {
-        Outcome o = run("bench", "--csv", "--size", "48", "--size", "64", "--threads", "1", "--seconds", "0.05",
+        Cli.Outcome o = Cli.run("bench", "--csv", "--size", "48", "--size", "64", "--threads", "1", "--seconds", "0.05",
                 "--warm-up", "0", "--repeats", "1");
         assertEquals(Main.OK, o.code(), o::toString);
         String[] lines = o.out().split("\\R");

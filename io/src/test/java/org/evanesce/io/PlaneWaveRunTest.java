@@ -5,10 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.HashMap;
@@ -73,20 +70,7 @@ class PlaneWaveRunTest {
     @TempDir
     Path tmp;
 
-    private record Outcome(int code, String out, String err) {
-        @Override
-        public String toString() {
-            return "exit " + code + "\n--- stdout ---\n" + out + "--- stderr ---\n" + err;
-        }
-    }
 
-    private static Outcome run(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Outcome(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
-    }
 
     /**
      * Glass (n = 1.5) below and above a 150 nm vacuum gap centred on y = 0, 20 cells per 633 nm in the
@@ -147,7 +131,7 @@ class PlaneWaveRunTest {
     /** Runs a case that must succeed and returns its flux.csv. */
     private FluxCsv runFlux(String name, String text) throws IOException {
         Path out = tmp.resolve(name + "-out");
-        Outcome o = run("run", write(name + ".yaml", text).toString(), "--out", out.toString());
+        Cli.Outcome o = Cli.run("run", write(name + ".yaml", text).toString(), "--out", out.toString());
         assertEquals(Main.OK, o.code(), () -> name + ": " + o);
         assertTrue(Files.isRegularFile(out.resolve("summary.json")), () -> name + ": no summary.json; " + o);
         assertTrue(Files.isRegularFile(out.resolve("run.json")), () -> name + ": no run.json; " + o);
@@ -315,7 +299,7 @@ class PlaneWaveRunTest {
     }
 
     /** The messages at {@code path} in the err stream (errors only, not warnings or notes), each with its line. */
-    private static Map<String, Integer> positions(Outcome o, Path file, String path) {
+    private static Map<String, Integer> positions(Cli.Outcome o, Path file, String path) {
         Map<String, Integer> found = new HashMap<>();
         Matcher m = Pattern.compile("(?m)^" + Pattern.quote(file.toString()) + ":(\\d+):\\d+: (?:error: )?" + Pattern.quote(path) + ": (.*)$")
                 .matcher(o.err());
@@ -331,7 +315,7 @@ class PlaneWaveRunTest {
                 "[633 nm]");
         Path out = tmp.resolve("no-periodic-out");
         Path file = write("no-periodic.yaml", text);
-        Outcome o = run("run", file.toString(), "--out", out.toString());
+        Cli.Outcome o = Cli.run("run", file.toString(), "--out", out.toString());
         assertEquals(Main.USAGE, o.code(), o::toString);
         Map<String, Integer> found = positions(o, file, "sources[0].plane_wave");
         assertEquals(1, found.size(), () -> "expected one message at sources[0].plane_wave: " + o);
@@ -346,7 +330,7 @@ class PlaneWaveRunTest {
         String disk = "  - disk: {centre: [0, 0.4 um], radius: 30 nm, material: gap_vacuum}";
         String text = caseText("s", 45, UP, UP_LINES, PERIODIC, disk, "[633 nm]");
         Path file = write("disk.yaml", text);
-        Outcome o = run("run", file.toString(), "--out", tmp.resolve("disk-out").toString());
+        Cli.Outcome o = Cli.run("run", file.toString(), "--out", tmp.resolve("disk-out").toString());
         assertEquals(Main.USAGE, o.code(), o::toString);
         Map<String, Integer> found = positions(o, file, "flux.transfer_matrix");
         assertEquals(1, found.size(), () -> "expected one message at flux.transfer_matrix: " + o);
@@ -361,7 +345,7 @@ class PlaneWaveRunTest {
     void fluxWavelengthBeyondCutOffIsRefusedAndLeavesAFinishedFolderAlone() throws IOException {
         // at 60 degrees the in-plane wavenumber 1.5 k0(633 nm) sin 60° exceeds 1.5 k0(λ) for λ > 633 nm / sin 60° = 731 nm
         Path out = tmp.resolve("results");
-        Outcome good = run("run", write("good.yaml", upCase("s", 60)).toString(), "--out", out.toString());
+        Cli.Outcome good = Cli.run("run", write("good.yaml", upCase("s", 60)).toString(), "--out", out.toString());
         assertEquals(Main.OK, good.code(), good::toString);
         Path flux = out.resolve("flux.csv");
         Path record = out.resolve("run.json");
@@ -371,7 +355,7 @@ class PlaneWaveRunTest {
 
         String text = caseText("s", 60, UP, UP_LINES, PERIODIC, "", "[633 nm, 800 nm]");
         Path file = write("cut-off.yaml", text);
-        Outcome o = run("run", file.toString(), "--out", out.toString(), "--force");
+        Cli.Outcome o = Cli.run("run", file.toString(), "--out", out.toString(), "--force");
         assertEquals(Main.USAGE, o.code(), o::toString);
         Map<String, Integer> found = positions(o, file, "flux");
         assertEquals(1, found.size(), () -> "expected one message at flux: " + o);

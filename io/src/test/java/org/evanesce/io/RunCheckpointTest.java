@@ -5,10 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
@@ -52,21 +49,14 @@ class RunCheckpointTest {
             stop: {decay: 1e-6, limit: 600 fs}
             """;
 
-    private record Outcome(int code, String out, String err) { }
 
-    private static Outcome run(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8), new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Outcome(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
-    }
 
     @Test
     void killedRunContinuesFromItsCheckpointBitForBit() throws IOException, InterruptedException {
         Path caseFile = tmp.resolve("gap.yaml");
         Files.writeString(caseFile, CASE);
         Path whole = tmp.resolve("whole");
-        Outcome w = run("run", caseFile.toString(), "--out", whole.toString(), "--checkpoint-minutes", "0", "--threads", "1");
+        Cli.Outcome w = Cli.run("run", caseFile.toString(), "--out", whole.toString(), "--checkpoint-minutes", "0", "--threads", "1");
         assertEquals(Main.OK, w.code(), w.err());
 
         Path killed = tmp.resolve("killed");
@@ -88,7 +78,7 @@ class RunCheckpointTest {
         child.destroyForcibly().waitFor();
         assertFalse(Files.exists(killed), "a killed run must not leave a results folder");
 
-        Outcome again = run("run", caseFile.toString(), "--out", killed.toString(), "--checkpoint-minutes", "0.002", "--threads", "2");
+        Cli.Outcome again = Cli.run("run", caseFile.toString(), "--out", killed.toString(), "--checkpoint-minutes", "0.002", "--threads", "2");
         assertEquals(Main.OK, again.code(), again.err());
         assertTrue(again.out().contains("continued from the checkpoint at step"), again.out());
         assertArrayEquals(Files.readAllBytes(whole.resolve("flux.csv")), Files.readAllBytes(killed.resolve("flux.csv")),

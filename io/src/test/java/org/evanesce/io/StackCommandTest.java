@@ -3,9 +3,6 @@ package org.evanesce.io;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.ByteArrayOutputStream;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.util.Arrays;
 import java.util.List;
 import org.evanesce.solver.grid.Polarization;
@@ -23,22 +20,9 @@ class StackCommandTest {
     private static final double CLOSED_FORM = 1e-9;
     private static final double WAVELENGTH = 633e-9;
 
-    private record Outcome(int code, String out, String err) {
-        @Override
-        public String toString() {
-            return "exit " + code + "\n--- stdout ---\n" + out + "--- stderr ---\n" + err;
-        }
-    }
 
-    private static Outcome run(String... args) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        ByteArrayOutputStream err = new ByteArrayOutputStream();
-        int code = Main.run(args, new PrintStream(out, true, StandardCharsets.UTF_8),
-                new PrintStream(err, true, StandardCharsets.UTF_8));
-        return new Outcome(code, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
-    }
 
-    private static List<String[]> csvRows(Outcome o, String expectedHeader) {
+    private static List<String[]> csvRows(Cli.Outcome o, String expectedHeader) {
         String[] lines = o.out().split("\\R");
         assertEquals(expectedHeader, lines[0], o::toString);
         return Arrays.stream(lines).skip(1).map(l -> l.split(",", -1)).toList();
@@ -48,7 +32,7 @@ class StackCommandTest {
     void frustratedTotalReflectionPrintsTheTransferMatrixValues() {
         // a 200 nm air gap between two n = 1.5 prisms at 633 nm, 40 to 70 deg: below and beyond the critical
         // angle 41.81 deg
-        Outcome o = run("stack", "--incident", "1.5", "--layer", "1.0:200nm", "--exit", "1.5", "--wavelength", "633nm",
+        Cli.Outcome o = Cli.run("stack", "--incident", "1.5", "--layer", "1.0:200nm", "--exit", "1.5", "--wavelength", "633nm",
                 "--angle", "40:70:1", "--csv");
         assertEquals(Main.OK, o.code(), o::toString);
         assertEquals("", o.err(), o::toString);
@@ -98,7 +82,7 @@ class StackCommandTest {
 
     @Test
     void tableNamesTheStackAndTheCriticalAngle() {
-        Outcome o = run("stack", "--incident", "1.5", "--layer", "1.0:200nm", "--exit", "1.5", "--wavelength", "633nm",
+        Cli.Outcome o = Cli.run("stack", "--incident", "1.5", "--layer", "1.0:200nm", "--exit", "1.5", "--wavelength", "633nm",
                 "--angle", "45");
         assertEquals(Main.OK, o.code(), o::toString);
         String[] lines = o.out().split("\\R");
@@ -115,7 +99,7 @@ class StackCommandTest {
 
     @Test
     void thicknessSweepFromContactToAMicron() {
-        Outcome o = run("stack", "--incident", "1.5", "--layer", "1.0:200nm", "--exit", "1.5", "--wavelength", "633nm",
+        Cli.Outcome o = Cli.run("stack", "--incident", "1.5", "--layer", "1.0:200nm", "--exit", "1.5", "--wavelength", "633nm",
                 "--angle", "45", "--thickness", "1:0:1um:10nm", "--polarization", "s", "--csv");
         assertEquals(Main.OK, o.code(), o::toString);
         List<String[]> rows = csvRows(o, "thickness_nm,R_s,T_s,A_s,phase_r_s_deg,phase_t_s_deg,depth_nm");
@@ -139,7 +123,7 @@ class StackCommandTest {
     void wavelengthSweepWithAnAbsorbingFilm() {
         // glass | 50 nm metal-like film (index given as n,k) | air, p polarization at 44 deg: beyond the critical angle
         // of glass and air, so nothing is transmitted and A = 1 − R
-        Outcome o = run("stack", "--incident", "1.515", "--layer", "0.2,3.4:50nm", "--exit", "1", "--wavelength",
+        Cli.Outcome o = Cli.run("stack", "--incident", "1.515", "--layer", "0.2,3.4:50nm", "--exit", "1", "--wavelength",
                 "400nm:800nm:10nm", "--angle", "44", "--polarization", "P", "--csv");
         assertEquals(Main.OK, o.code(), o::toString);
         List<String[]> rows = csvRows(o, "wavelength_nm,R_p,T_p,A_p,phase_r_p_deg,phase_t_p_deg,depth_nm");
@@ -160,7 +144,7 @@ class StackCommandTest {
     void indexForms() {
         for (String[] form : new String[][] {{"1.5+0.01i", "1.5", "0.01"}, {"0.2,3.4", "0.2", "3.4"},
             {"1e-1+2.5e0i", "0.1", "2.5"}, {"2", "2", "0"}}) {
-            Outcome o = run("stack", "--incident", "1.5", "--exit", form[0], "--wavelength", "633nm", "--csv");
+            Cli.Outcome o = Cli.run("stack", "--incident", "1.5", "--exit", form[0], "--wavelength", "633nm", "--csv");
             assertEquals(Main.OK, o.code(), () -> form[0] + ": " + o);
             double n = Double.parseDouble(form[1]);
             double k = Double.parseDouble(form[2]);
@@ -192,14 +176,14 @@ class StackCommandTest {
             String[] args = new String[base.length + c.length - 2];
             System.arraycopy(base, 0, args, 0, base.length);
             System.arraycopy(c, 0, args, base.length, c.length - 2);
-            Outcome o = run(args);
+            Cli.Outcome o = Cli.run(args);
             String what = String.join(" ", args) + ": " + o;
             assertEquals(Main.USAGE, o.code(), what);
             assertEquals("", o.out(), what);
             assertEquals(1, o.err().lines().count(), what);
             assertTrue(o.err().contains(c[c.length - 2]) && o.err().contains(c[c.length - 1]), what);
         }
-        Outcome lossyIncidence = run("stack", "--incident", "1.5+0.1i", "--exit", "1", "--wavelength", "633nm");
+        Cli.Outcome lossyIncidence = Cli.run("stack", "--incident", "1.5+0.1i", "--exit", "1", "--wavelength", "633nm");
         assertEquals(Main.USAGE, lossyIncidence.code(), lossyIncidence::toString);
         assertTrue(lossyIncidence.err().contains("--incident 1.5+0.1i") && lossyIncidence.err().contains("transparent"),
                 lossyIncidence::toString);
