@@ -26,15 +26,17 @@ final class DoubleP extends Engine {
         super(grid.nx(), grid.ny(), courant, sides);
         int n = nx * ny;
         s = courant;
-        hz = new double[n];
-        ex = new double[n];
-        ey = new double[n];
         double[][] cx = coefficients(grid, FieldSite.EX, courant, dt);
         double[][] cy = coefficients(grid, FieldSite.EY, courant, dt);
-        cax = Engine.allOnes(cx[0]) ? null : cx[0];
-        cbx = cx[1];
-        cay = Engine.allOnes(cy[0]) ? null : cy[0];
-        cby = cy[1];
+        // allocated one after the other with staggered lengths (see Engine.staggeredLength)
+        int len = Engine.staggeredLength(n, Double.BYTES);
+        hz = new double[len];
+        ex = new double[len];
+        ey = new double[len];
+        cbx = DoubleS.toDouble(cx[1], len);
+        cby = DoubleS.toDouble(cy[1], len);
+        cax = Engine.allOnes(cx[0]) ? null : DoubleS.toDouble(cx[0], len);
+        cay = Engine.allOnes(cy[0]) ? null : DoubleS.toDouble(cy[0], len);
         xs = new DoubleStrip[xProfiles.length];
         for (int q = 0; q < xs.length; q++) {
             // widened to whole vectors so the per-row corrections have no scalar remainder

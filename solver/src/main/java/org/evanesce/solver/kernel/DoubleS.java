@@ -22,12 +22,14 @@ final class DoubleS extends Engine {
         super(grid.nx(), grid.ny(), courant, sides);
         int n = nx * ny;
         s = courant;
-        ez = new double[n];
-        hx = new double[n];
-        hy = new double[n];
         double[][] c = coefficients(grid, FieldSite.EZ, courant, dt);
-        ca = Engine.allOnes(c[0]) ? null : c[0];
-        cb = c[1];
+        // allocated one after the other with staggered lengths (see Engine.staggeredLength)
+        int len = Engine.staggeredLength(n, Double.BYTES);
+        ez = new double[len];
+        hx = new double[len];
+        hy = new double[len];
+        cb = toDouble(c[1], len);
+        ca = Engine.allOnes(c[0]) ? null : toDouble(c[0], len);
         xs = new DoubleStrip[xProfiles.length];
         for (int q = 0; q < xs.length; q++) {
             // widened to whole vectors so the per-row corrections have no scalar remainder
@@ -40,6 +42,14 @@ final class DoubleS extends Engine {
         }
     }
 
+    /** The values of {@code a} in an array of {@code length} ≥ a.length values (zeros after them). */
+    static double[] toDouble(double[] a, int length) {
+        double[] f = new double[length];
+        for (int i = 0; i < a.length; i++) {
+            f[i] = a[i];
+        }
+        return f;
+    }
 
     @Override
     protected void hRow(int j) {

@@ -26,15 +26,17 @@ final class FloatP extends Engine {
         super(grid.nx(), grid.ny(), courant, sides);
         int n = nx * ny;
         s = (float) courant;
-        hz = new float[n];
-        ex = new float[n];
-        ey = new float[n];
         double[][] cx = coefficients(grid, FieldSite.EX, courant, dt);
         double[][] cy = coefficients(grid, FieldSite.EY, courant, dt);
-        cax = Engine.allOnes(cx[0]) ? null : FloatS.toFloat(cx[0]);
-        cbx = FloatS.toFloat(cx[1]);
-        cay = Engine.allOnes(cy[0]) ? null : FloatS.toFloat(cy[0]);
-        cby = FloatS.toFloat(cy[1]);
+        // allocated one after the other with staggered lengths (see Engine.staggeredLength)
+        int len = Engine.staggeredLength(n, Float.BYTES);
+        hz = new float[len];
+        ex = new float[len];
+        ey = new float[len];
+        cbx = FloatS.toFloat(cx[1], len);
+        cby = FloatS.toFloat(cy[1], len);
+        cax = Engine.allOnes(cx[0]) ? null : FloatS.toFloat(cx[0], len);
+        cay = Engine.allOnes(cy[0]) ? null : FloatS.toFloat(cy[0], len);
         xs = new FloatStrip[xProfiles.length];
         for (int q = 0; q < xs.length; q++) {
             // widened to whole vectors so the per-row corrections have no scalar remainder

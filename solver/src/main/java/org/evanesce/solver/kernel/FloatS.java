@@ -22,12 +22,14 @@ final class FloatS extends Engine {
         super(grid.nx(), grid.ny(), courant, sides);
         int n = nx * ny;
         s = (float) courant;
-        ez = new float[n];
-        hx = new float[n];
-        hy = new float[n];
         double[][] c = coefficients(grid, FieldSite.EZ, courant, dt);
-        ca = Engine.allOnes(c[0]) ? null : toFloat(c[0]);
-        cb = toFloat(c[1]);
+        // allocated one after the other with staggered lengths (see Engine.staggeredLength)
+        int len = Engine.staggeredLength(n, Float.BYTES);
+        ez = new float[len];
+        hx = new float[len];
+        hy = new float[len];
+        cb = toFloat(c[1], len);
+        ca = Engine.allOnes(c[0]) ? null : toFloat(c[0], len);
         xs = new FloatStrip[xProfiles.length];
         for (int q = 0; q < xs.length; q++) {
             // widened to whole vectors so the per-row corrections have no scalar remainder
@@ -40,8 +42,9 @@ final class FloatS extends Engine {
         }
     }
 
-    static float[] toFloat(double[] a) {
-        float[] f = new float[a.length];
+    /** The values of {@code a} in an array of {@code length} ≥ a.length values (zeros after them). */
+    static float[] toFloat(double[] a, int length) {
+        float[] f = new float[length];
         for (int i = 0; i < a.length; i++) {
             f[i] = (float) a[i];
         }
