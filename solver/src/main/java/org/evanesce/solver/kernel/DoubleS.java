@@ -163,10 +163,10 @@ final class DoubleS extends Engine {
     public long bytes() {
         long b = bytesPerCell() * (long) nx * ny;
         for (DoubleStrip x : xs) {
-            b += 16L * x.psiH.length;
+            b += x.bytes();
         }
         for (DoubleStrip y : ys) {
-            b += 16L * y.psiH.length;
+            b += y.bytes();
         }
         return b;
     }
@@ -182,12 +182,10 @@ final class DoubleS extends Engine {
         StateIO.write(out, hx);
         StateIO.write(out, hy);
         for (DoubleStrip x : xs) {
-            StateIO.write(out, x.psiH);
-            StateIO.write(out, x.psiE);
+            x.writeState(out);
         }
         for (DoubleStrip y : ys) {
-            StateIO.write(out, y.psiH);
-            StateIO.write(out, y.psiE);
+            y.writeState(out);
         }
     }
 
@@ -197,12 +195,10 @@ final class DoubleS extends Engine {
         StateIO.read(in, hx);
         StateIO.read(in, hy);
         for (DoubleStrip x : xs) {
-            StateIO.read(in, x.psiH);
-            StateIO.read(in, x.psiE);
+            x.readState(in);
         }
         for (DoubleStrip y : ys) {
-            StateIO.read(in, y.psiH);
-            StateIO.read(in, y.psiE);
+            y.readState(in);
         }
     }
 }

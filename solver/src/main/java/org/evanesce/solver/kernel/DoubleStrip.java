@@ -28,4 +28,21 @@ final class DoubleStrip {
         psiE = new double[psiLength];
     }
 
+    /** Bytes of the two ψ arrays. */
+    long bytes() {
+        return 2L * Double.BYTES * psiH.length;
+    }
+
+    /** Writes both ψ arrays for a checkpoint (see {@link StateIO}). */
+    void writeState(java.io.DataOutput out) throws java.io.IOException {
+        StateIO.write(out, psiH);
+        StateIO.write(out, psiE);
+    }
+
+    /** Reads what {@link #writeState} wrote. */
+    void readState(java.io.DataInput in) throws java.io.IOException {
+        StateIO.read(in, psiH);
+        StateIO.read(in, psiE);
+    }
+
 }

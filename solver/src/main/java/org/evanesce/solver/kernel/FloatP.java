@@ -169,10 +169,10 @@ final class FloatP extends Engine {
     public long bytes() {
         long b = bytesPerCell() * (long) nx * ny;
         for (FloatStrip x : xs) {
-            b += 8L * x.psiH.length;
+            b += x.bytes();
         }
         for (FloatStrip y : ys) {
-            b += 8L * y.psiH.length;
+            b += y.bytes();
         }
         return b;
     }
@@ -188,12 +188,10 @@ final class FloatP extends Engine {
         StateIO.write(out, ex);
         StateIO.write(out, ey);
         for (FloatStrip x : xs) {
-            StateIO.write(out, x.psiH);
-            StateIO.write(out, x.psiE);
+            x.writeState(out);
         }
         for (FloatStrip y : ys) {
-            StateIO.write(out, y.psiH);
-            StateIO.write(out, y.psiE);
+            y.writeState(out);
         }
     }
 
@@ -203,12 +201,10 @@ final class FloatP extends Engine {
         StateIO.read(in, ex);
         StateIO.read(in, ey);
         for (FloatStrip x : xs) {
-            StateIO.read(in, x.psiH);
-            StateIO.read(in, x.psiE);
+            x.readState(in);
         }
         for (FloatStrip y : ys) {
-            StateIO.read(in, y.psiH);
-            StateIO.read(in, y.psiE);
+            y.readState(in);
         }
     }
 }

@@ -163,10 +163,10 @@ final class FloatS extends Engine {
     public long bytes() {
         long b = bytesPerCell() * (long) nx * ny;
         for (FloatStrip x : xs) {
-            b += 8L * x.psiH.length;
+            b += x.bytes();
         }
         for (FloatStrip y : ys) {
-            b += 8L * y.psiH.length;
+            b += y.bytes();
         }
         return b;
     }
@@ -182,12 +182,10 @@ final class FloatS extends Engine {
         StateIO.write(out, hx);
         StateIO.write(out, hy);
         for (FloatStrip x : xs) {
-            StateIO.write(out, x.psiH);
-            StateIO.write(out, x.psiE);
+            x.writeState(out);
         }
         for (FloatStrip y : ys) {
-            StateIO.write(out, y.psiH);
-            StateIO.write(out, y.psiE);
+            y.writeState(out);
         }
     }
 
@@ -197,12 +195,10 @@ final class FloatS extends Engine {
         StateIO.read(in, hx);
         StateIO.read(in, hy);
         for (FloatStrip x : xs) {
-            StateIO.read(in, x.psiH);
-            StateIO.read(in, x.psiE);
+            x.readState(in);
         }
         for (FloatStrip y : ys) {
-            StateIO.read(in, y.psiH);
-            StateIO.read(in, y.psiE);
+            y.readState(in);
         }
     }
 }

@@ -28,6 +28,23 @@ final class FloatStrip {
         psiE = new float[psiLength];
     }
 
+    /** Bytes of the two ψ arrays. */
+    long bytes() {
+        return 2L * Float.BYTES * psiH.length;
+    }
+
+    /** Writes both ψ arrays for a checkpoint (see {@link StateIO}). */
+    void writeState(java.io.DataOutput out) throws java.io.IOException {
+        StateIO.write(out, psiH);
+        StateIO.write(out, psiE);
+    }
+
+    /** Reads what {@link #writeState} wrote. */
+    void readState(java.io.DataInput in) throws java.io.IOException {
+        StateIO.read(in, psiH);
+        StateIO.read(in, psiE);
+    }
+
     private static float[] toFloat(double[] a) {
         float[] f = new float[a.length];
         for (int i = 0; i < a.length; i++) {
