@@ -205,68 +205,83 @@ final class DoubleKernels {
     }
 
     /**
-     * CPML correction of a magnetic component along x in row j, cells i = start + ii for ii in
-     * [0, width): with d = g(i+1) − g(i), ψ ← bψ + c·d and f += coef·(kappaTerm·d + ψ), where
+     * CPML correction of a magnetic component along x in rows [j0, j1), cells i = start + ii for ii
+     * in [0, width): with d = g(i+1) − g(i), ψ ← bψ + c·d and f += coef·(kappaTerm·d + ψ), where
      * coef is ±s. ψ is indexed {@code psi[j*width + ii]}; values of ψ below {@link #TINY} are set to zero.
+     * The loops run down the columns of the strip, a vector of columns at a time, so the
+     * coefficients stay in registers and the short strip rows cost no loop set-up each.
      */
-    static void pmlXH(double[] f, double[] g, double coef, int nx, int j, DoubleStrip st, double[] psi) {
-        int base = j * nx + st.start;
-        int pb = j * st.width;
-        int n = st.width;
+    static void pmlXH(double[] f, double[] g, double coef, int nx, int j0, int j1, DoubleStrip st, double[] psi) {
+        int w = st.width;
         DoubleVector vc = DoubleVector.broadcast(SP, coef);
         int ii = 0;
-        for (; ii <= n - VL; ii += VL) {
-            int k = base + ii;
-            DoubleVector d = DoubleVector.fromArray(SP, g, k + 1).sub(DoubleVector.fromArray(SP, g, k));
-            DoubleVector ps = DoubleVector.fromArray(SP, st.bH, ii).mul(DoubleVector.fromArray(SP, psi, pb + ii))
-                    .add(DoubleVector.fromArray(SP, st.cH, ii).mul(d));
-            ps = ps.blend(0.0, ps.abs().lt(TINY));
-            ps.intoArray(psi, pb + ii);
-            DoubleVector.fromArray(SP, f, k).add(vc.mul(DoubleVector.fromArray(SP, st.kH, ii).mul(d).add(ps))).intoArray(f, k);
-        }
-        for (; ii < n; ii++) {
-            int k = base + ii;
-            double d = g[k + 1] - g[k];
-            double ps = st.bH[ii] * psi[pb + ii] + st.cH[ii] * d;
-            if (Math.abs(ps) < TINY) {
-                ps = 0.0;
+        for (; ii <= w - VL; ii += VL) {
+            DoubleVector b = DoubleVector.fromArray(SP, st.bH, ii);
+            DoubleVector c = DoubleVector.fromArray(SP, st.cH, ii);
+            DoubleVector kt = DoubleVector.fromArray(SP, st.kH, ii);
+            int k = j0 * nx + st.start + ii;
+            int p = j0 * w + ii;
+            for (int j = j0; j < j1; j++, k += nx, p += w) {
+                DoubleVector d = DoubleVector.fromArray(SP, g, k + 1).sub(DoubleVector.fromArray(SP, g, k));
+                DoubleVector ps = b.mul(DoubleVector.fromArray(SP, psi, p)).add(c.mul(d));
+                ps = ps.blend(0.0, ps.abs().lt(TINY));
+                ps.intoArray(psi, p);
+                DoubleVector.fromArray(SP, f, k).add(vc.mul(kt.mul(d).add(ps))).intoArray(f, k);
             }
-            psi[pb + ii] = ps;
-            f[k] = f[k] + coef * (st.kH[ii] * d + ps);
+        }
+        for (; ii < w; ii++) {
+            int k = j0 * nx + st.start + ii;
+            int p = j0 * w + ii;
+            for (int j = j0; j < j1; j++, k += nx, p += w) {
+                double d = g[k + 1] - g[k];
+                double ps = st.bH[ii] * psi[p] + st.cH[ii] * d;
+                if (Math.abs(ps) < TINY) {
+                    ps = 0.0;
+                }
+                psi[p] = ps;
+                f[k] = f[k] + coef * (st.kH[ii] * d + ps);
+            }
         }
     }
 
     /**
-     * CPML correction of an electric component along x in row j, cells i = start + ii for ii in
-     * [eFrom, eTo): with d = g(i) − g(i−1), ψ ← bψ + c·d and f ± = cb(i)·(kappaTerm·d + ψ)
-     * (subtracted when {@code subtract}). ψ is indexed {@code psi[j*width + ii]}.
+     * CPML correction of an electric component along x in rows [j0, j1), cells i = start + ii for
+     * ii in [eFrom, eTo): with d = g(i) − g(i−1), ψ ← bψ + c·d and f ± = cb(i)·(kappaTerm·d + ψ)
+     * (subtracted when {@code subtract}). ψ is indexed {@code psi[j*width + ii]}; loops as {@link #pmlXH}.
      */
-    static void pmlXE(double[] f, double[] g, double[] cb, boolean subtract, int nx, int j, DoubleStrip st, double[] psi) {
-        int base = j * nx + st.start;
-        int pb = j * st.width;
-        int n = st.eTo;
+    static void pmlXE(double[] f, double[] g, double[] cb, boolean subtract, int nx, int j0, int j1, DoubleStrip st,
+                      double[] psi) {
+        int w = st.width;
         int ii = st.eFrom;
-        for (; ii <= n - VL; ii += VL) {
-            int k = base + ii;
-            DoubleVector d = DoubleVector.fromArray(SP, g, k).sub(DoubleVector.fromArray(SP, g, k - 1));
-            DoubleVector ps = DoubleVector.fromArray(SP, st.bE, ii).mul(DoubleVector.fromArray(SP, psi, pb + ii))
-                    .add(DoubleVector.fromArray(SP, st.cE, ii).mul(d));
-            ps = ps.blend(0.0, ps.abs().lt(TINY));
-            ps.intoArray(psi, pb + ii);
-            DoubleVector t = DoubleVector.fromArray(SP, cb, k).mul(DoubleVector.fromArray(SP, st.kE, ii).mul(d).add(ps));
-            DoubleVector fv = DoubleVector.fromArray(SP, f, k);
-            (subtract ? fv.sub(t) : fv.add(t)).intoArray(f, k);
-        }
-        for (; ii < n; ii++) {
-            int k = base + ii;
-            double d = g[k] - g[k - 1];
-            double ps = st.bE[ii] * psi[pb + ii] + st.cE[ii] * d;
-            if (Math.abs(ps) < TINY) {
-                ps = 0.0;
+        for (; ii <= st.eTo - VL; ii += VL) {
+            DoubleVector b = DoubleVector.fromArray(SP, st.bE, ii);
+            DoubleVector c = DoubleVector.fromArray(SP, st.cE, ii);
+            DoubleVector kt = DoubleVector.fromArray(SP, st.kE, ii);
+            int k = j0 * nx + st.start + ii;
+            int p = j0 * w + ii;
+            for (int j = j0; j < j1; j++, k += nx, p += w) {
+                DoubleVector d = DoubleVector.fromArray(SP, g, k).sub(DoubleVector.fromArray(SP, g, k - 1));
+                DoubleVector ps = b.mul(DoubleVector.fromArray(SP, psi, p)).add(c.mul(d));
+                ps = ps.blend(0.0, ps.abs().lt(TINY));
+                ps.intoArray(psi, p);
+                DoubleVector t = DoubleVector.fromArray(SP, cb, k).mul(kt.mul(d).add(ps));
+                DoubleVector fv = DoubleVector.fromArray(SP, f, k);
+                (subtract ? fv.sub(t) : fv.add(t)).intoArray(f, k);
             }
-            psi[pb + ii] = ps;
-            double t = cb[k] * (st.kE[ii] * d + ps);
-            f[k] = subtract ? f[k] - t : f[k] + t;
+        }
+        for (; ii < st.eTo; ii++) {
+            int k = j0 * nx + st.start + ii;
+            int p = j0 * w + ii;
+            for (int j = j0; j < j1; j++, k += nx, p += w) {
+                double d = g[k] - g[k - 1];
+                double ps = st.bE[ii] * psi[p] + st.cE[ii] * d;
+                if (Math.abs(ps) < TINY) {
+                    ps = 0.0;
+                }
+                psi[p] = ps;
+                double t = cb[k] * (st.kE[ii] * d + ps);
+                f[k] = subtract ? f[k] - t : f[k] + t;
+            }
         }
     }
 

@@ -205,68 +205,83 @@ final class FloatKernels {
     }
 
     /**
-     * CPML correction of a magnetic component along x in row j, cells i = start + ii for ii in
-     * [0, width): with d = g(i+1) − g(i), ψ ← bψ + c·d and f += coef·(kappaTerm·d + ψ), where
+     * CPML correction of a magnetic component along x in rows [j0, j1), cells i = start + ii for ii
+     * in [0, width): with d = g(i+1) − g(i), ψ ← bψ + c·d and f += coef·(kappaTerm·d + ψ), where
      * coef is ±s. ψ is indexed {@code psi[j*width + ii]}; values of ψ below {@link #TINY} are set to zero.
+     * The loops run down the columns of the strip, a vector of columns at a time, so the
+     * coefficients stay in registers and the short strip rows cost no loop set-up each.
      */
-    static void pmlXH(float[] f, float[] g, float coef, int nx, int j, FloatStrip st, float[] psi) {
-        int base = j * nx + st.start;
-        int pb = j * st.width;
-        int n = st.width;
+    static void pmlXH(float[] f, float[] g, float coef, int nx, int j0, int j1, FloatStrip st, float[] psi) {
+        int w = st.width;
         FloatVector vc = FloatVector.broadcast(SP, coef);
         int ii = 0;
-        for (; ii <= n - VL; ii += VL) {
-            int k = base + ii;
-            FloatVector d = FloatVector.fromArray(SP, g, k + 1).sub(FloatVector.fromArray(SP, g, k));
-            FloatVector ps = FloatVector.fromArray(SP, st.bH, ii).mul(FloatVector.fromArray(SP, psi, pb + ii))
-                    .add(FloatVector.fromArray(SP, st.cH, ii).mul(d));
-            ps = ps.blend(0f, ps.abs().lt(TINY));
-            ps.intoArray(psi, pb + ii);
-            FloatVector.fromArray(SP, f, k).add(vc.mul(FloatVector.fromArray(SP, st.kH, ii).mul(d).add(ps))).intoArray(f, k);
-        }
-        for (; ii < n; ii++) {
-            int k = base + ii;
-            float d = g[k + 1] - g[k];
-            float ps = st.bH[ii] * psi[pb + ii] + st.cH[ii] * d;
-            if (Math.abs(ps) < TINY) {
-                ps = 0f;
+        for (; ii <= w - VL; ii += VL) {
+            FloatVector b = FloatVector.fromArray(SP, st.bH, ii);
+            FloatVector c = FloatVector.fromArray(SP, st.cH, ii);
+            FloatVector kt = FloatVector.fromArray(SP, st.kH, ii);
+            int k = j0 * nx + st.start + ii;
+            int p = j0 * w + ii;
+            for (int j = j0; j < j1; j++, k += nx, p += w) {
+                FloatVector d = FloatVector.fromArray(SP, g, k + 1).sub(FloatVector.fromArray(SP, g, k));
+                FloatVector ps = b.mul(FloatVector.fromArray(SP, psi, p)).add(c.mul(d));
+                ps = ps.blend(0f, ps.abs().lt(TINY));
+                ps.intoArray(psi, p);
+                FloatVector.fromArray(SP, f, k).add(vc.mul(kt.mul(d).add(ps))).intoArray(f, k);
             }
-            psi[pb + ii] = ps;
-            f[k] = f[k] + coef * (st.kH[ii] * d + ps);
+        }
+        for (; ii < w; ii++) {
+            int k = j0 * nx + st.start + ii;
+            int p = j0 * w + ii;
+            for (int j = j0; j < j1; j++, k += nx, p += w) {
+                float d = g[k + 1] - g[k];
+                float ps = st.bH[ii] * psi[p] + st.cH[ii] * d;
+                if (Math.abs(ps) < TINY) {
+                    ps = 0f;
+                }
+                psi[p] = ps;
+                f[k] = f[k] + coef * (st.kH[ii] * d + ps);
+            }
         }
     }
 
     /**
-     * CPML correction of an electric component along x in row j, cells i = start + ii for ii in
-     * [eFrom, eTo): with d = g(i) − g(i−1), ψ ← bψ + c·d and f ± = cb(i)·(kappaTerm·d + ψ)
-     * (subtracted when {@code subtract}). ψ is indexed {@code psi[j*width + ii]}.
+     * CPML correction of an electric component along x in rows [j0, j1), cells i = start + ii for
+     * ii in [eFrom, eTo): with d = g(i) − g(i−1), ψ ← bψ + c·d and f ± = cb(i)·(kappaTerm·d + ψ)
+     * (subtracted when {@code subtract}). ψ is indexed {@code psi[j*width + ii]}; loops as {@link #pmlXH}.
      */
-    static void pmlXE(float[] f, float[] g, float[] cb, boolean subtract, int nx, int j, FloatStrip st, float[] psi) {
-        int base = j * nx + st.start;
-        int pb = j * st.width;
-        int n = st.eTo;
+    static void pmlXE(float[] f, float[] g, float[] cb, boolean subtract, int nx, int j0, int j1, FloatStrip st,
+                      float[] psi) {
+        int w = st.width;
         int ii = st.eFrom;
-        for (; ii <= n - VL; ii += VL) {
-            int k = base + ii;
-            FloatVector d = FloatVector.fromArray(SP, g, k).sub(FloatVector.fromArray(SP, g, k - 1));
-            FloatVector ps = FloatVector.fromArray(SP, st.bE, ii).mul(FloatVector.fromArray(SP, psi, pb + ii))
-                    .add(FloatVector.fromArray(SP, st.cE, ii).mul(d));
-            ps = ps.blend(0f, ps.abs().lt(TINY));
-            ps.intoArray(psi, pb + ii);
-            FloatVector t = FloatVector.fromArray(SP, cb, k).mul(FloatVector.fromArray(SP, st.kE, ii).mul(d).add(ps));
-            FloatVector fv = FloatVector.fromArray(SP, f, k);
-            (subtract ? fv.sub(t) : fv.add(t)).intoArray(f, k);
-        }
-        for (; ii < n; ii++) {
-            int k = base + ii;
-            float d = g[k] - g[k - 1];
-            float ps = st.bE[ii] * psi[pb + ii] + st.cE[ii] * d;
-            if (Math.abs(ps) < TINY) {
-                ps = 0f;
+        for (; ii <= st.eTo - VL; ii += VL) {
+            FloatVector b = FloatVector.fromArray(SP, st.bE, ii);
+            FloatVector c = FloatVector.fromArray(SP, st.cE, ii);
+            FloatVector kt = FloatVector.fromArray(SP, st.kE, ii);
+            int k = j0 * nx + st.start + ii;
+            int p = j0 * w + ii;
+            for (int j = j0; j < j1; j++, k += nx, p += w) {
+                FloatVector d = FloatVector.fromArray(SP, g, k).sub(FloatVector.fromArray(SP, g, k - 1));
+                FloatVector ps = b.mul(FloatVector.fromArray(SP, psi, p)).add(c.mul(d));
+                ps = ps.blend(0f, ps.abs().lt(TINY));
+                ps.intoArray(psi, p);
+                FloatVector t = FloatVector.fromArray(SP, cb, k).mul(kt.mul(d).add(ps));
+                FloatVector fv = FloatVector.fromArray(SP, f, k);
+                (subtract ? fv.sub(t) : fv.add(t)).intoArray(f, k);
             }
-            psi[pb + ii] = ps;
-            float t = cb[k] * (st.kE[ii] * d + ps);
-            f[k] = subtract ? f[k] - t : f[k] + t;
+        }
+        for (; ii < st.eTo; ii++) {
+            int k = j0 * nx + st.start + ii;
+            int p = j0 * w + ii;
+            for (int j = j0; j < j1; j++, k += nx, p += w) {
+                float d = g[k] - g[k - 1];
+                float ps = st.bE[ii] * psi[p] + st.cE[ii] * d;
+                if (Math.abs(ps) < TINY) {
+                    ps = 0f;
+                }
+                psi[p] = ps;
+                float t = cb[k] * (st.kE[ii] * d + ps);
+                f[k] = subtract ? f[k] - t : f[k] + t;
+            }
         }
     }
 

@@ -41,7 +41,9 @@ final class FloatP extends Engine {
         for (int q = 0; q < xs.length; q++) {
             // widened to whole vectors so the per-row corrections have no scalar remainder
             PmlProfile p = xProfiles[q].padded(FloatKernels.roundUpToLanes(xProfiles[q].layers), nx);
-            xs[q] = new FloatStrip(p, ny * p.width);
+            // one spare ψ: a padded left strip's electric range [1, width] ends one past its row's ψ
+            // (in the next row's local 0, which no electric update uses), also in the last row
+            xs[q] = new FloatStrip(p, ny * p.width + 1);
         }
         ys = new FloatStrip[yProfiles.length];
         for (int q = 0; q < ys.length; q++) {
@@ -54,14 +56,46 @@ final class FloatP extends Engine {
         if (j >= ny - 1) {
             return;
         }
+        hCore(j);
+        hStrips(j, j + 1);
+        hYStrip(j);
+    }
+
+    @Override
+    protected double hRows(int a, int b, boolean flush) {
+        int hb = Math.min(b, ny - 1); // Hz lives on rows 0..ny-2
+        for (int j = a; j < hb; j++) {
+            hCore(j);
+        }
+        hStrips(a, hb);
+        double max = 0;
+        for (int j = a; j < b; j++) {
+            if (j < hb) {
+                hYStrip(j);
+            }
+            max = Math.max(max, hFinish(j, flush));
+        }
+        return max;
+    }
+
+    /** Row j's magnetic update without the CPML corrections (j ≤ ny−2). */
+    private void hCore(int j) {
         FloatKernels.pH(hz, ex, ey, nx, j, s);
         if (blochX) {
             int k = j * nx + nx - 1;
             hz[k] += s * ((ex[k + nx] - ex[k]) - ((float) ghostE[j] - ey[k]));
         }
+    }
+
+    /** The x-side CPML corrections of Hz in rows [a, b). */
+    private void hStrips(int a, int b) {
         for (FloatStrip x : xs) {
-            FloatKernels.pmlXH(hz, ey, -s, nx, j, x, x.psiH);
+            FloatKernels.pmlXH(hz, ey, -s, nx, a, b, x, x.psiH);
         }
+    }
+
+    /** The y-side CPML correction of Hz in row j, if it lies in a y strip. */
+    private void hYStrip(int j) {
         int q = yStripOfRow[j];
         if (q >= 0) {
             FloatStrip y = ys[q];
@@ -71,6 +105,27 @@ final class FloatP extends Engine {
 
     @Override
     protected void eRow(int j) {
+        eCore(j);
+        if (j < ny - 1) {
+            eStrips(j, j + 1);
+        }
+    }
+
+    @Override
+    protected double eRows(int a, int b, boolean flush) {
+        for (int j = a; j < b; j++) {
+            eCore(j);
+        }
+        eStrips(a, Math.min(b, ny - 1));
+        double max = 0;
+        for (int j = a; j < b; j++) {
+            max = Math.max(max, eFinish(j, flush));
+        }
+        return max;
+    }
+
+    /** Row j's electric update (walls and the y-side CPML of Ex included) without the x-side CPML of Ey. */
+    private void eCore(int j) {
         boolean wallRow = j == 0 || j == ny - 1;
         // Ex: interior rows, or a PMC wall row; with Bloch boundaries the last column too
         int exEnd = blochX ? nx : nx - 1;
@@ -102,9 +157,13 @@ final class FloatP extends Engine {
             if (pmcRight || blochX) {
                 FloatKernels.pEyEdge(hz, ey, cay, cby, nx, nx - 1, j, 0f);
             }
-            for (FloatStrip x : xs) {
-                FloatKernels.pmlXE(ey, hz, cby, true, nx, j, x, x.psiE);
-            }
+        }
+    }
+
+    /** The x-side CPML corrections of Ey in rows [a, b) (rows ≤ ny−2). */
+    private void eStrips(int a, int b) {
+        for (FloatStrip x : xs) {
+            FloatKernels.pmlXE(ey, hz, cby, true, nx, a, b, x, x.psiE);
         }
     }
 

@@ -34,7 +34,9 @@ final class FloatS extends Engine {
         for (int q = 0; q < xs.length; q++) {
             // widened to whole vectors so the per-row corrections have no scalar remainder
             PmlProfile p = xProfiles[q].padded(FloatKernels.roundUpToLanes(xProfiles[q].layers), nx);
-            xs[q] = new FloatStrip(p, ny * p.width);
+            // one spare ψ: a padded left strip's electric range [1, width] ends one past its row's ψ
+            // (in the next row's local 0, which no electric update uses), also in the last row
+            xs[q] = new FloatStrip(p, ny * p.width + 1);
         }
         ys = new FloatStrip[yProfiles.length];
         for (int q = 0; q < ys.length; q++) {
@@ -53,14 +55,43 @@ final class FloatS extends Engine {
 
     @Override
     protected void hRow(int j) {
+        hCore(j);
+        hStrips(j, j + 1);
+        hYStrip(j);
+    }
+
+    @Override
+    protected double hRows(int a, int b, boolean flush) {
+        for (int j = a; j < b; j++) {
+            hCore(j);
+        }
+        hStrips(a, b);
+        double max = 0;
+        for (int j = a; j < b; j++) {
+            hYStrip(j);
+            max = Math.max(max, hFinish(j, flush));
+        }
+        return max;
+    }
+
+    /** Row j's magnetic update without the CPML corrections. */
+    private void hCore(int j) {
         FloatKernels.sH(ez, hx, hy, nx, ny, j, s);
         if (blochX) {
             int k = j * nx + nx - 1;
             hy[k] += s * ((float) ghostE[j] - ez[k]);
         }
+    }
+
+    /** The x-side CPML corrections of Hy in rows [a, b). */
+    private void hStrips(int a, int b) {
         for (FloatStrip x : xs) {
-            FloatKernels.pmlXH(hy, ez, s, nx, j, x, x.psiH);
+            FloatKernels.pmlXH(hy, ez, s, nx, a, b, x, x.psiH);
         }
+    }
+
+    /** The y-side CPML correction of Hx in row j, if it lies in a y strip. */
+    private void hYStrip(int j) {
         int q = yStripOfRow[j];
         if (q >= 0) {
             FloatStrip y = ys[q];
@@ -70,6 +101,36 @@ final class FloatS extends Engine {
 
     @Override
     protected void eRow(int j) {
+        if (eCore(j)) {
+            eStrips(j, j + 1);
+            eYStrip(j);
+        }
+    }
+
+    @Override
+    protected double eRows(int a, int b, boolean flush) {
+        for (int j = a; j < b; j++) {
+            eCore(j);
+        }
+        // the rows eCore updates: the interior ones, and a wall row only on a PMC wall
+        eStrips(Math.max(a, pmcBottom ? 0 : 1), Math.min(b, pmcTop ? ny : ny - 1));
+        double max = 0;
+        for (int j = a; j < b; j++) {
+            if (eUpdated(j)) {
+                eYStrip(j);
+            }
+            max = Math.max(max, eFinish(j, flush));
+        }
+        return max;
+    }
+
+    /** Whether row j's electric field is updated at all: interior rows, and wall rows on a PMC wall. */
+    private boolean eUpdated(int j) {
+        return j > 0 && j < ny - 1 || (j == 0 ? pmcBottom : pmcTop);
+    }
+
+    /** Row j's electric update (walls included) without the CPML corrections; false if the row is not updated. */
+    private boolean eCore(int j) {
         boolean wallRow = j == 0 || j == ny - 1;
         boolean first = pmcLeft || blochX;
         boolean last = pmcRight || blochX;
@@ -82,21 +143,32 @@ final class FloatS extends Engine {
             if (last) {
                 FloatKernels.sEdge(ez, hx, hy, ca, cb, nx, nx - 1, j, west);
             }
+            return true;
         } else if (j == 0 ? pmcBottom : pmcTop) {
             for (int i = first ? 0 : 1; i <= (last ? nx - 1 : nx - 2); i++) {
                 FloatKernels.sEdge(ez, hx, hy, ca, cb, nx, i, j, west);
             }
-        } else {
-            return;
+            return true;
         }
+        return false;
+    }
+
+    /** The x-side CPML corrections of Ez in rows [a, b) (all updated rows). */
+    private void eStrips(int a, int b) {
         for (FloatStrip x : xs) {
-            FloatKernels.pmlXE(ez, hy, cb, false, nx, j, x, x.psiE);
+            FloatKernels.pmlXE(ez, hy, cb, false, nx, a, b, x, x.psiE);
         }
+    }
+
+    /** The y-side CPML correction of Ez in row j, if it lies in a y strip. */
+    private void eYStrip(int j) {
         int q = yStripOfRow[j];
         if (q >= 0) {
             FloatStrip y = ys[q];
             int jj = j - y.start;
             if (jj >= 1) {
+                boolean first = pmcLeft || blochX;
+                boolean last = pmcRight || blochX;
                 FloatKernels.pmlYE(ez, hx, cb, true, nx, jj, y, y.psiE, first ? 0 : 1, last ? nx : nx - 1);
             }
         }
