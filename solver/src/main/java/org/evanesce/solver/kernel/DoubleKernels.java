@@ -215,6 +215,21 @@ final class DoubleKernels {
         int w = st.width;
         DoubleVector vc = DoubleVector.broadcast(SP, coef);
         int ii = 0;
+        // two vectors of columns per row where they fit: two independent chains per iteration
+        for (; ii <= w - 2 * VL; ii += 2 * VL) {
+            DoubleVector b0 = DoubleVector.fromArray(SP, st.bH, ii);
+            DoubleVector c0 = DoubleVector.fromArray(SP, st.cH, ii);
+            DoubleVector kt0 = DoubleVector.fromArray(SP, st.kH, ii);
+            DoubleVector b1 = DoubleVector.fromArray(SP, st.bH, ii + VL);
+            DoubleVector c1 = DoubleVector.fromArray(SP, st.cH, ii + VL);
+            DoubleVector kt1 = DoubleVector.fromArray(SP, st.kH, ii + VL);
+            int k = j0 * nx + st.start + ii;
+            int p = j0 * w + ii;
+            for (int j = j0; j < j1; j++, k += nx, p += w) {
+                xh(f, g, vc, psi, b0, c0, kt0, k, p);
+                xh(f, g, vc, psi, b1, c1, kt1, k + VL, p + VL);
+            }
+        }
         for (; ii <= w - VL; ii += VL) {
             DoubleVector b = DoubleVector.fromArray(SP, st.bH, ii);
             DoubleVector c = DoubleVector.fromArray(SP, st.cH, ii);
@@ -222,11 +237,7 @@ final class DoubleKernels {
             int k = j0 * nx + st.start + ii;
             int p = j0 * w + ii;
             for (int j = j0; j < j1; j++, k += nx, p += w) {
-                DoubleVector d = DoubleVector.fromArray(SP, g, k + 1).sub(DoubleVector.fromArray(SP, g, k));
-                DoubleVector ps = b.mul(DoubleVector.fromArray(SP, psi, p)).add(c.mul(d));
-                ps = ps.blend(0.0, ps.abs().lt(TINY));
-                ps.intoArray(psi, p);
-                DoubleVector.fromArray(SP, f, k).add(vc.mul(kt.mul(d).add(ps))).intoArray(f, k);
+                xh(f, g, vc, psi, b, c, kt, k, p);
             }
         }
         for (; ii < w; ii++) {
@@ -253,6 +264,20 @@ final class DoubleKernels {
                       double[] psi) {
         int w = st.width;
         int ii = st.eFrom;
+        for (; ii <= st.eTo - 2 * VL; ii += 2 * VL) {
+            DoubleVector b0 = DoubleVector.fromArray(SP, st.bE, ii);
+            DoubleVector c0 = DoubleVector.fromArray(SP, st.cE, ii);
+            DoubleVector kt0 = DoubleVector.fromArray(SP, st.kE, ii);
+            DoubleVector b1 = DoubleVector.fromArray(SP, st.bE, ii + VL);
+            DoubleVector c1 = DoubleVector.fromArray(SP, st.cE, ii + VL);
+            DoubleVector kt1 = DoubleVector.fromArray(SP, st.kE, ii + VL);
+            int k = j0 * nx + st.start + ii;
+            int p = j0 * w + ii;
+            for (int j = j0; j < j1; j++, k += nx, p += w) {
+                xe(f, g, cb, subtract, psi, b0, c0, kt0, k, p);
+                xe(f, g, cb, subtract, psi, b1, c1, kt1, k + VL, p + VL);
+            }
+        }
         for (; ii <= st.eTo - VL; ii += VL) {
             DoubleVector b = DoubleVector.fromArray(SP, st.bE, ii);
             DoubleVector c = DoubleVector.fromArray(SP, st.cE, ii);
@@ -260,13 +285,7 @@ final class DoubleKernels {
             int k = j0 * nx + st.start + ii;
             int p = j0 * w + ii;
             for (int j = j0; j < j1; j++, k += nx, p += w) {
-                DoubleVector d = DoubleVector.fromArray(SP, g, k).sub(DoubleVector.fromArray(SP, g, k - 1));
-                DoubleVector ps = b.mul(DoubleVector.fromArray(SP, psi, p)).add(c.mul(d));
-                ps = ps.blend(0.0, ps.abs().lt(TINY));
-                ps.intoArray(psi, p);
-                DoubleVector t = DoubleVector.fromArray(SP, cb, k).mul(kt.mul(d).add(ps));
-                DoubleVector fv = DoubleVector.fromArray(SP, f, k);
-                (subtract ? fv.sub(t) : fv.add(t)).intoArray(f, k);
+                xe(f, g, cb, subtract, psi, b, c, kt, k, p);
             }
         }
         for (; ii < st.eTo; ii++) {
@@ -283,6 +302,28 @@ final class DoubleKernels {
                 f[k] = subtract ? f[k] - t : f[k] + t;
             }
         }
+    }
+
+    /** One vector of {@link #pmlXH}: cells k.., ψ at p.. (inlined by the compiler). */
+    private static void xh(double[] f, double[] g, DoubleVector vc, double[] psi, DoubleVector b, DoubleVector c,
+                           DoubleVector kt, int k, int p) {
+        DoubleVector d = DoubleVector.fromArray(SP, g, k + 1).sub(DoubleVector.fromArray(SP, g, k));
+        DoubleVector ps = b.mul(DoubleVector.fromArray(SP, psi, p)).add(c.mul(d));
+        ps = ps.blend(0.0, ps.abs().lt(TINY));
+        ps.intoArray(psi, p);
+        DoubleVector.fromArray(SP, f, k).add(vc.mul(kt.mul(d).add(ps))).intoArray(f, k);
+    }
+
+    /** One vector of {@link #pmlXE}: cells k.., ψ at p.. (inlined by the compiler). */
+    private static void xe(double[] f, double[] g, double[] cb, boolean subtract, double[] psi, DoubleVector b,
+                           DoubleVector c, DoubleVector kt, int k, int p) {
+        DoubleVector d = DoubleVector.fromArray(SP, g, k).sub(DoubleVector.fromArray(SP, g, k - 1));
+        DoubleVector ps = b.mul(DoubleVector.fromArray(SP, psi, p)).add(c.mul(d));
+        ps = ps.blend(0.0, ps.abs().lt(TINY));
+        ps.intoArray(psi, p);
+        DoubleVector t = DoubleVector.fromArray(SP, cb, k).mul(kt.mul(d).add(ps));
+        DoubleVector fv = DoubleVector.fromArray(SP, f, k);
+        (subtract ? fv.sub(t) : fv.add(t)).intoArray(f, k);
     }
 
     /**

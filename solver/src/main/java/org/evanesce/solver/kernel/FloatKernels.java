@@ -215,6 +215,21 @@ final class FloatKernels {
         int w = st.width;
         FloatVector vc = FloatVector.broadcast(SP, coef);
         int ii = 0;
+        // two vectors of columns per row where they fit: two independent chains per iteration
+        for (; ii <= w - 2 * VL; ii += 2 * VL) {
+            FloatVector b0 = FloatVector.fromArray(SP, st.bH, ii);
+            FloatVector c0 = FloatVector.fromArray(SP, st.cH, ii);
+            FloatVector kt0 = FloatVector.fromArray(SP, st.kH, ii);
+            FloatVector b1 = FloatVector.fromArray(SP, st.bH, ii + VL);
+            FloatVector c1 = FloatVector.fromArray(SP, st.cH, ii + VL);
+            FloatVector kt1 = FloatVector.fromArray(SP, st.kH, ii + VL);
+            int k = j0 * nx + st.start + ii;
+            int p = j0 * w + ii;
+            for (int j = j0; j < j1; j++, k += nx, p += w) {
+                xh(f, g, vc, psi, b0, c0, kt0, k, p);
+                xh(f, g, vc, psi, b1, c1, kt1, k + VL, p + VL);
+            }
+        }
         for (; ii <= w - VL; ii += VL) {
             FloatVector b = FloatVector.fromArray(SP, st.bH, ii);
             FloatVector c = FloatVector.fromArray(SP, st.cH, ii);
@@ -222,11 +237,7 @@ final class FloatKernels {
             int k = j0 * nx + st.start + ii;
             int p = j0 * w + ii;
             for (int j = j0; j < j1; j++, k += nx, p += w) {
-                FloatVector d = FloatVector.fromArray(SP, g, k + 1).sub(FloatVector.fromArray(SP, g, k));
-                FloatVector ps = b.mul(FloatVector.fromArray(SP, psi, p)).add(c.mul(d));
-                ps = ps.blend(0f, ps.abs().lt(TINY));
-                ps.intoArray(psi, p);
-                FloatVector.fromArray(SP, f, k).add(vc.mul(kt.mul(d).add(ps))).intoArray(f, k);
+                xh(f, g, vc, psi, b, c, kt, k, p);
             }
         }
         for (; ii < w; ii++) {
@@ -253,6 +264,20 @@ final class FloatKernels {
                       float[] psi) {
         int w = st.width;
         int ii = st.eFrom;
+        for (; ii <= st.eTo - 2 * VL; ii += 2 * VL) {
+            FloatVector b0 = FloatVector.fromArray(SP, st.bE, ii);
+            FloatVector c0 = FloatVector.fromArray(SP, st.cE, ii);
+            FloatVector kt0 = FloatVector.fromArray(SP, st.kE, ii);
+            FloatVector b1 = FloatVector.fromArray(SP, st.bE, ii + VL);
+            FloatVector c1 = FloatVector.fromArray(SP, st.cE, ii + VL);
+            FloatVector kt1 = FloatVector.fromArray(SP, st.kE, ii + VL);
+            int k = j0 * nx + st.start + ii;
+            int p = j0 * w + ii;
+            for (int j = j0; j < j1; j++, k += nx, p += w) {
+                xe(f, g, cb, subtract, psi, b0, c0, kt0, k, p);
+                xe(f, g, cb, subtract, psi, b1, c1, kt1, k + VL, p + VL);
+            }
+        }
         for (; ii <= st.eTo - VL; ii += VL) {
             FloatVector b = FloatVector.fromArray(SP, st.bE, ii);
             FloatVector c = FloatVector.fromArray(SP, st.cE, ii);
@@ -260,13 +285,7 @@ final class FloatKernels {
             int k = j0 * nx + st.start + ii;
             int p = j0 * w + ii;
             for (int j = j0; j < j1; j++, k += nx, p += w) {
-                FloatVector d = FloatVector.fromArray(SP, g, k).sub(FloatVector.fromArray(SP, g, k - 1));
-                FloatVector ps = b.mul(FloatVector.fromArray(SP, psi, p)).add(c.mul(d));
-                ps = ps.blend(0f, ps.abs().lt(TINY));
-                ps.intoArray(psi, p);
-                FloatVector t = FloatVector.fromArray(SP, cb, k).mul(kt.mul(d).add(ps));
-                FloatVector fv = FloatVector.fromArray(SP, f, k);
-                (subtract ? fv.sub(t) : fv.add(t)).intoArray(f, k);
+                xe(f, g, cb, subtract, psi, b, c, kt, k, p);
             }
         }
         for (; ii < st.eTo; ii++) {
@@ -283,6 +302,28 @@ final class FloatKernels {
                 f[k] = subtract ? f[k] - t : f[k] + t;
             }
         }
+    }
+
+    /** One vector of {@link #pmlXH}: cells k.., ψ at p.. (inlined by the compiler). */
+    private static void xh(float[] f, float[] g, FloatVector vc, float[] psi, FloatVector b, FloatVector c,
+                           FloatVector kt, int k, int p) {
+        FloatVector d = FloatVector.fromArray(SP, g, k + 1).sub(FloatVector.fromArray(SP, g, k));
+        FloatVector ps = b.mul(FloatVector.fromArray(SP, psi, p)).add(c.mul(d));
+        ps = ps.blend(0f, ps.abs().lt(TINY));
+        ps.intoArray(psi, p);
+        FloatVector.fromArray(SP, f, k).add(vc.mul(kt.mul(d).add(ps))).intoArray(f, k);
+    }
+
+    /** One vector of {@link #pmlXE}: cells k.., ψ at p.. (inlined by the compiler). */
+    private static void xe(float[] f, float[] g, float[] cb, boolean subtract, float[] psi, FloatVector b,
+                           FloatVector c, FloatVector kt, int k, int p) {
+        FloatVector d = FloatVector.fromArray(SP, g, k).sub(FloatVector.fromArray(SP, g, k - 1));
+        FloatVector ps = b.mul(FloatVector.fromArray(SP, psi, p)).add(c.mul(d));
+        ps = ps.blend(0f, ps.abs().lt(TINY));
+        ps.intoArray(psi, p);
+        FloatVector t = FloatVector.fromArray(SP, cb, k).mul(kt.mul(d).add(ps));
+        FloatVector fv = FloatVector.fromArray(SP, f, k);
+        (subtract ? fv.sub(t) : fv.add(t)).intoArray(f, k);
     }
 
     /**
