@@ -290,8 +290,9 @@ public abstract class Engine {
         if (phase == 0) {
             max = hRowFull(j1 - 1, flush);
         } else {
-            // H(j) before E(j), and E(j) after H(j − 1): blocks keep both orders, and no row
-            // of a block reads what a later block writes (H(j) reads Ez rows j and j + 1, old).
+            // Blocks keep the row-by-row order's reads: H(j) reads Ez rows j and j + 1 before
+            // they are updated (E of a row comes after H of its block), and E(j) reads H rows
+            // j and j − 1 after their update (in this block or the one before).
             int block = blockRows();
             for (int a = j0; a < j1; a += block) {
                 int b = Math.min(a + block, j1);

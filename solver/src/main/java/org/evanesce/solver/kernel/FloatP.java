@@ -41,9 +41,9 @@ final class FloatP extends Engine {
         for (int q = 0; q < xs.length; q++) {
             // widened to whole vectors so the per-row corrections have no scalar remainder
             PmlProfile p = xProfiles[q].padded(FloatKernels.roundUpToLanes(xProfiles[q].layers), nx);
-            // one spare ψ: a padded left strip's electric range [1, width] ends one past its row's ψ
-            // (in the next row's local 0, which no electric update uses), also in the last row
-            xs[q] = new FloatStrip(p, ny * p.width + 1);
+            // a padded left strip's electric range [1, width] ends in the next row's local 0, which
+            // no electric update uses; Ey stops at row ny−2, so no spare ψ is needed (see FloatS)
+            xs[q] = new FloatStrip(p, ny * p.width);
         }
         ys = new FloatStrip[yProfiles.length];
         for (int q = 0; q < ys.length; q++) {
