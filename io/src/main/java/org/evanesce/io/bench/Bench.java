@@ -138,6 +138,7 @@ public final class Bench {
             double warmUp = (System.nanoTime() - start) * 1e-9;
             long perRepeat = Math.max(1, Math.round(t.seconds() / t.repeats() / stepSeconds));
             double[] rate = new double[t.repeats()];
+            long fewer0 = sim.stepsOnFewerThreads();
             for (int r = 0; r < rate.length; r++) {
                 long t0 = System.nanoTime();
                 sim.run(perRepeat);
@@ -148,7 +149,8 @@ public final class Bench {
             int m = rate.length / 2;
             double median = rate.length % 2 == 1 ? rate[m] : 0.5 * (rate[m - 1] + rate[m]);
             return new BenchResult(c, sim.threads(), warmUp, settled, perRepeat, rate.length, median, rate[0],
-                    rate[rate.length - 1], sim.bytesPerCell(), sim.bytes());
+                    rate[rate.length - 1], sim.bytesPerCell(), sim.bytes(),
+                    (sim.stepsOnFewerThreads() - fewer0) / (double) (perRepeat * rate.length));
         }
     }
 }
