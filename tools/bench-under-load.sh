@@ -4,25 +4,28 @@
 # rates and ratio (default / one thread) and the median ratio. The solver is meant to be never
 # slower with the default than with one thread, on a quiet machine or a busy one.
 #
-# Usage: tools/bench-under-load.sh [--busy K] [--rounds R] [--size N] [--seconds S]
+# Usage: tools/bench-under-load.sh [--busy K] [--rounds R] [--size N] [--seconds S] [--warm-up W]
 #                                  [--case FILE [--set name=value]...]       (build the jar first)
 #   --busy K     competing busy processes, each `yes > /dev/null` (one core's worth of work each);
 #                default: one per core (nproc); 0 measures the quiet machine the same way
 #   --rounds R   rounds (default 3); each round runs one thread, then the default
 #   --size N     the bench grid, N x N (default 1024), timed by `evanesce bench` for S seconds
-#                (default 2) after its warm-up
+#                (default 3) after a warm-up of at least W seconds (default 2; on a busy machine the
+#                JIT compiler itself gets little time, and bench's usual 0.5 s can end before the
+#                kernels are compiled)
 #   --case FILE  run this case file instead (`evanesce run`, into a temporary folder that is
 #                removed afterwards) and take the rate from its 'done:' line; --set passes overrides
 # The busy processes are stopped by their process ids when the script ends, however it ends.
 set -euo pipefail
 here="$(cd "$(dirname "$0")/.." && pwd)"
-busy=$(nproc); rounds=3; size=1024; seconds=2; case_file=""; sets=()
+busy=$(nproc); rounds=3; size=1024; seconds=3; warm=2; case_file=""; sets=()
 while [[ $# -gt 0 ]]; do
     case "$1" in
         --busy) busy=${2:?--busy needs a count}; shift 2 ;;
         --rounds) rounds=${2:?--rounds needs a count}; shift 2 ;;
         --size) size=${2:?--size needs N}; shift 2 ;;
         --seconds) seconds=${2:?--seconds needs S}; shift 2 ;;
+        --warm-up) warm=${2:?--warm-up needs W}; shift 2 ;;
         --case) case_file=${2:?--case needs a file}; shift 2 ;;
         --set) sets+=(--set "${2:?--set needs name=value}"); shift 2 ;;
         *) echo "bench-under-load: unknown argument '$1' (see the header of $0)" >&2; exit 2 ;;
@@ -45,7 +48,7 @@ trap 'exit 130' INT TERM
 rate() {
     local threads=$1
     if [[ -z "$case_file" ]]; then
-        "$here/evanesce" bench --size "$size" --threads "$threads" --seconds "$seconds" --csv 2>/dev/null \
+        "$here/evanesce" bench --size "$size" --threads "$threads" --seconds "$seconds" --warm-up "$warm" --csv 2>/dev/null \
             | awk -F, 'NR==1 {for (i = 1; i <= NF; i++) if ($i == "mcells_per_s") col = i} NR==2 {print $col}'
     else
         local opt=(--threads "$threads")
