@@ -15,7 +15,7 @@ import java.util.function.LongSupplier;
  * busy machine they do not take the cores that late threads need.
  *
  * <p>The team measures itself in windows of about {@link #WINDOW_NANOS} of stepping (the caller's
- * clock, from the start to the end of each {@link #step}):
+ * clock, from the start to the end of each {@link #step}; at least {@link #MIN_WINDOW_STEPS} steps):
  * <ul>
  * <li>How many threads step: {@link TeamSize} compares the step rates of adjacent windows and runs
  *     on fewer threads (down to the caller alone) while fewer are faster, as on a machine whose
@@ -47,6 +47,12 @@ public final class BandTeam implements AutoCloseable {
      * practice for dynamic load balancing: rebalance over windows much longer than one step, damped).
      */
     public static final long WINDOW_NANOS = 20_000_000;
+    /**
+     * Fewest steps in a window (unless the window length is 0): on a machine busy enough that one
+     * step takes longer than a window, single steps varied by a factor of ten between neighbours
+     * (1024², load average 19 on 2 cores: 14–124 ms), too much to compare team sizes by.
+     */
+    static final int MIN_WINDOW_STEPS = 3;
 
     /** Developers: {@code -Devanesce.teamTrace=true} prints every window's size, rate and efficiency to standard error. */
     private static final boolean TRACE = Boolean.getBoolean("evanesce.teamTrace");
@@ -340,7 +346,7 @@ public final class BandTeam implements AutoCloseable {
         if (k < threads) {
             fewerSteps++;
         }
-        if (windowWall >= windowNanos) {
+        if (windowWall >= windowNanos && (windowSteps >= MIN_WINDOW_STEPS || windowNanos == 0)) {
             endWindow(k);
         }
         return m;
