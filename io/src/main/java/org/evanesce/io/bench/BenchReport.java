@@ -40,6 +40,11 @@ public final class BenchReport {
      * heads; for CSV, the header row only.
      */
     public void header(String programVersion, Bench.Timing timing, int cases) {
+        header(programVersion, timing, cases, false);
+    }
+
+    /** As {@link #header(String, Bench.Timing, int)}, saying whether the cases' repeats were timed in turn. */
+    public void header(String programVersion, Bench.Timing timing, int cases, boolean interleaved) {
         maxWarmUp = Bench.maxWarmUpSeconds(timing);
         if (format == Format.CSV) {
             out.println(CSV_HEAD);
@@ -51,6 +56,9 @@ public final class BenchReport {
                 Math.round(Bench.CELL_SIZE * 1e9), Bench.PML_LAYERS);
         out.printf(Locale.ROOT, "%d case(s): at least %.2g s warm-up (until the rate settles), then the median of %d timed repeats over about %.2g s each case%n",
                 cases, timing.warmUpSeconds(), timing.repeats(), timing.seconds());
+        if (interleaved) {
+            out.println("interleaved: every case warmed up first, then repeat 1 of each case, repeat 2 of each, and so on");
+        }
         out.println("cell update = one cell's 3 field components, once; ns/cell is wall time with all threads; "
                 + "spread = (fastest - slowest) / median");
         out.println();
