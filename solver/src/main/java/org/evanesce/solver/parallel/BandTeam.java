@@ -48,9 +48,12 @@ public final class BandTeam implements AutoCloseable {
      */
     public static final long WINDOW_NANOS = 20_000_000;
     /**
-     * Fewest steps in a window (unless the window length is 0): on a machine busy enough that one
-     * step takes longer than a window, single steps varied by a factor of ten between neighbours
-     * (1024², load average 19 on 2 cores: 14–124 ms), too much to compare team sizes by.
+     * Fewest steps in a window (unless the window length is 0, or the window tries more threads):
+     * on a machine busy enough that one step takes longer than a window, single steps varied by a
+     * factor of ten between neighbours (1024², load average 19 on 2 cores: 14–124 ms), too much to
+     * compare team sizes by. A trial of more threads ends after its first step past the window
+     * length all the same: on such a machine it mostly fails, and each of its steps waits for
+     * threads that are descheduled.
      */
     static final int MIN_WINDOW_STEPS = 3;
 
@@ -346,7 +349,7 @@ public final class BandTeam implements AutoCloseable {
         if (k < threads) {
             fewerSteps++;
         }
-        if (windowWall >= windowNanos && (windowSteps >= MIN_WINDOW_STEPS || windowNanos == 0)) {
+        if (windowWall >= windowNanos && (windowSteps >= MIN_WINDOW_STEPS || windowNanos == 0 || size.tryingLarger())) {
             endWindow(k);
         }
         return m;
@@ -371,8 +374,9 @@ public final class BandTeam implements AutoCloseable {
             size.windowEnded(rate, efficiency);
         }
         if (TRACE) {
-            System.err.printf("%s window: %d threads%s, %.1f us per step, efficiency %.2f, spin %d us -> %d threads next%n",
-                    name, k, trial ? " (trial)" : "", 1e-3 / rate, efficiency, waiting.budget() / 1000, activeThreads());
+            System.err.printf("%s window: %d threads%s, %d steps in %.1f ms, %.1f us per step, efficiency %.2f, spin %d us"
+                    + " -> %d threads next%n", name, k, trial ? " (trial)" : "", windowSteps, wall * 1e-6, 1e-3 / rate, efficiency,
+                    waiting.budget() / 1000, activeThreads());
         }
         java.util.Arrays.fill(busy, 0);
         windowWall = 0;

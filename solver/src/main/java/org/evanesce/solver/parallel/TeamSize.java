@@ -21,7 +21,7 @@ package org.evanesce.solver.parallel;
  *     window tries the next larger size, and the team moves up if it was at least
  *     {@link #LARGER_RETURNS} times as fast as the window before; a failed trial doubles
  *     {@code upGap} (up to {@link #MAX_GAP}), so a machine that stays busy costs ever fewer
- *     trials.</li>
+ *     trials. So does a move up that is undone within {@link #HELD_LONG} windows.</li>
  * </ul>
  * The two thresholds differ (hysteresis) so that noise between windows does not move the team
  * back and forth. Comparing adjacent windows is the method of the issue's measurements (rates on
@@ -49,6 +49,13 @@ final class TeamSize {
     static final int FIRST_UP_GAP = 8;
     /** Longest gap between trials, in windows (about 5 s); also the gap of the unconditional trials of a smaller size. */
     static final int MAX_GAP = 256;
+    /**
+     * A move up that is undone within this many windows (about 1.3 s) counts as a failed trial of
+     * the larger size: the gap before the next trial doubles instead of starting again at
+     * {@link #FIRST_UP_GAP}. On a machine so busy that adjacent windows differ by a factor of two,
+     * a trial sometimes wins by chance; this keeps such chance wins from bringing the trials back.
+     */
+    static final int HELD_LONG = 64;
 
     private final int[] sizes;
     private final boolean adaptive;
@@ -58,6 +65,8 @@ final class TeamSize {
     /** Step rate of the last window run at {@link #level}. */
     private double levelRate;
     private int since;
+    /** Windows at {@link #level} since the team last moved (trials not counted); the start counts as long held. */
+    private int held = HELD_LONG;
     private int downGap = 1;
     private int upGap = FIRST_UP_GAP;
 
@@ -89,6 +98,11 @@ final class TeamSize {
         return running != level;
     }
 
+    /** Whether the next window is a trial of a larger size. */
+    boolean tryingLarger() {
+        return running < level;
+    }
+
     /** The sizes of the ladder, largest first. */
     int[] sizes() {
         return sizes.clone();
@@ -107,6 +121,7 @@ final class TeamSize {
         if (running == level) {
             levelRate = rate;
             since++;
+            held++;
             boolean smaller = level + 1 < sizes.length;
             if (smaller && (since >= MAX_GAP || efficiency < EFFICIENCY_FLOOR && since >= downGap)) {
                 running = level + 1;
@@ -117,24 +132,27 @@ final class TeamSize {
             }
         } else if (running > level) {
             if (!(levelRate >= LARGER_KEEPS * rate)) {
-                level = running;
-                levelRate = rate;
-                upGap = FIRST_UP_GAP;
-                downGap = 1;
+                upGap = held >= HELD_LONG ? FIRST_UP_GAP : Math.min(2 * upGap, MAX_GAP);
+                move(rate);
             } else {
                 downGap = Math.min(2 * downGap, MAX_GAP);
                 running = level;
             }
         } else {
             if (rate >= LARGER_RETURNS * levelRate) {
-                level = running;
-                levelRate = rate;
-                downGap = 1;
-                upGap = FIRST_UP_GAP;
+                move(rate);
             } else {
                 upGap = Math.min(2 * upGap, MAX_GAP);
                 running = level;
             }
         }
+    }
+
+    /** Makes the size of the trial just run the size in use. */
+    private void move(double rate) {
+        level = running;
+        levelRate = rate;
+        downGap = 1;
+        held = 0;
     }
 }

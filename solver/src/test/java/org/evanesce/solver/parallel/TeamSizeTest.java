@@ -107,6 +107,22 @@ class TeamSizeTest {
     }
 
     @Test
+    void aChanceWinThatIsUndoneAtOnceCountsAsAFailedTrial() {
+        TeamSize size = new TeamSize(2, true);
+        List<Integer> ran = run(size, BUSY, 10);
+        assertEquals(List.of(2, 1, 1, 1, 1, 1, 1, 1, 1, 1), ran, "busy: to one thread, 8 windows before the first trial");
+        assertTrue(size.tryingLarger());
+        // the trial wins by chance (the machine was briefly quiet), and the team moves up
+        size.windowEnded(QUIET.rate(2), QUIET.efficiency(2));
+        assertEquals(2, size.threads());
+        assertFalse(size.trial());
+        // busy again: a window at two threads, a trial of one that wins, then 16 windows (not 8) before the next trial
+        List<Integer> after = run(size, BUSY, 40);
+        assertEquals(List.of(2, 1), after.subList(0, 2));
+        assertEquals(18, 2 + after.subList(2, after.size()).indexOf(2), "the next trial of two threads: " + after);
+    }
+
+    @Test
     void differencesInsideTheHysteresisBandMoveNothing() {
         // two threads 1.10 times one: kept when there (above 1.05), not returned to from one (below 1.15)
         Machine between = new Machine(1.10, 0.5, 1.0);
