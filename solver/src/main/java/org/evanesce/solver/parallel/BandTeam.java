@@ -363,6 +363,7 @@ public final class BandTeam implements AutoCloseable {
         double wall = Math.max(1, windowWall);
         double rate = windowSteps / wall;
         double efficiency = sum / (k * wall);
+        String traced = TRACE ? bandTrace(k) : "";
         if (k > 1) {
             balance(k);
             if (cycles > 0) {
@@ -372,17 +373,31 @@ public final class BandTeam implements AutoCloseable {
         boolean trial = size.trial();
         if (forced == 0) {
             size.windowEnded(rate, efficiency);
+            if (size.tryingLarger()) {
+                // The larger size's bands were last balanced on the measurements that made the team
+                // leave it, often taken while threads were descheduled; a trial starts from equal bands.
+                startFor[size.threads()] = null;
+            }
         }
         if (TRACE) {
-            System.err.printf("%s window: %d threads%s, %d steps in %.1f ms, %.1f us per step, efficiency %.2f, spin %d us"
-                    + " -> %d threads next%n", name, k, trial ? " (trial)" : "", windowSteps, wall * 1e-6, 1e-3 / rate, efficiency,
-                    waiting.budget() / 1000, activeThreads());
+            System.err.printf("%s window: %d threads%s, %d steps in %.1f ms, %.1f us per step, efficiency %.2f, spin %d us,"
+                    + " bands %s -> %d threads next%n", name, k, trial ? " (trial)" : "", windowSteps, wall * 1e-6, 1e-3 / rate,
+                    efficiency, waiting.budget() / 1000, traced, activeThreads());
         }
         java.util.Arrays.fill(busy, 0);
         windowWall = 0;
         windowSteps = 0;
         cycleSum = 0;
         cycles = 0;
+    }
+
+    /** The bands' first rows and working milliseconds in the window, for the trace. */
+    private String bandTrace(int k) {
+        StringBuilder sb = new StringBuilder();
+        for (int b = 0; b < k; b++) {
+            sb.append(b == 0 ? "" : " ").append(bands(k)[b]).append(String.format(":%.1fms", busy[b] * 1e-6));
+        }
+        return sb.toString();
     }
 
     @Override
