@@ -33,11 +33,17 @@ import org.evanesce.solver.reference.PlanarStack;
  * @param gridX0         x of node column 0, m
  * @param indexAt        the case's refractive index at (x, y), m (the real part, as the grid has it before any
  *                       dispersion correction)
+ * @param continuous     true for a continuous (ramped) wave, transformed over whole settled periods: the incident
+ *                       line then gives a time-averaged power; false for a pulse: an energy per hertz
+ * @param lineLength     the length of the lines (and of the incident line) along x, m
+ * @param sourceAmplitude the source's amplitude as the case states it: a plane wave's sheet current (η0 J_s in V/m
+ *                       for s, the magnetic sheet current in V/m for p), a beam's z field at the waist centre (V/m)
  */
 public record FluxPlan(double[] frequencies, double kx, String medium, double mediumIndex, int direction, List<Line> lines,
                        FluxLine incident, double incidentY, Simulation.Builder reference, double cellSize,
                        Optional<Exact> exact, Optional<SourceSpec.GaussianBeamSource> beam, double gridX0,
-                       java.util.function.DoubleBinaryOperator indexAt) {
+                       java.util.function.DoubleBinaryOperator indexAt, boolean continuous, double lineLength,
+                       double sourceAmplitude) {
 
     /**
      * The exact reference.

@@ -84,7 +84,8 @@ final class FluxPlanner {
                 ? Optional.of(b) : Optional.empty();
         return new FluxPlan(freqs, PlaneWaves.kx(spec), medium.name(), medium.index(), dir, lines, incident,
                 grid.y0() + (incidentRow + 0.5) * dx, reference, dx, exact, beam, grid.x0(),
-                (x, y) -> spec.materials().get(spec.materialAt(x, y)).index());
+                (x, y) -> spec.materials().get(spec.materialAt(x, y)).index(), window != null, (i1 - i0) * dx,
+                w.amplitude().si());
     }
 
     private static FluxLine windowed(FluxLine l, double[] window) {

@@ -28,7 +28,8 @@ public record Checkpoints(Path file, double intervalSeconds, String identity) {
 
     /** Steps between checks of the wall clock when the run stops after a fixed number of steps. */
     static final int CHUNK = 64;
-    private static final String MAGIC = "evanesce run checkpoint 1";
+    /** 2: flux lines also keep the duration of their samples (a checkpoint of format 1 is ignored). */
+    private static final String MAGIC = "evanesce run checkpoint 2";
 
     /**
      * What a checkpoint held besides the simulation's state.

@@ -17,10 +17,39 @@ import org.evanesce.solver.reference.PlanarStack;
  * transmitted line, R through each reflected line, the absorptance A = 1 − R − T when there is one
  * line of each, and, for a layered scene, the transfer-matrix values beside them with the difference.
  *
- * @param columns the value columns after wavelength, frequency and angle, in order
- * @param rows    one per frequency
+ * @param columns  the value columns after wavelength, frequency and angle, in order
+ * @param rows     one per frequency
+ * @param incident what the rows' incident values are ({@link Incident#POWER} or {@link Incident#SPECTRAL_ENERGY})
  */
-public record FluxResults(List<String> columns, List<Row> rows) {
+public record FluxResults(List<String> columns, List<Row> rows, Incident incident) {
+
+    /**
+     * What the incident line's value means. Both are for the source's amplitude as the case states
+     * it, summed over the incident line's length, per metre along z.
+     */
+    public enum Incident {
+        /** A continuous wave: the time-averaged power through the incident line, W/m. */
+        POWER("incident_power_w_per_m", "W/m", "time-averaged power of the incident wave through the incident line, per "
+                + "metre along z, for the source's amplitude as stated (a continuous wave, transformed over whole settled "
+                + "periods: 4 x DFT flux / (D_E D_H), D the duration of the transformed samples)"),
+        /** A pulse: the energy through the incident line per hertz of positive frequency, J/(m·Hz). */
+        SPECTRAL_ENERGY("incident_energy_j_per_m_hz", "J/(m Hz)", "energy of the incident pulse that crosses the "
+                + "incident line per hertz of positive frequency, per metre along z, for the source's amplitude as "
+                + "stated (4 x DFT flux, by Parseval's theorem; its integral over frequency is the pulse's energy)");
+
+        /** The flux.csv column and summary.json key. */
+        public final String column;
+        /** The unit in words. */
+        public final String unit;
+        /** The definition, for summary.json. */
+        public final String definition;
+
+        Incident(String column, String unit, String definition) {
+            this.column = column;
+            this.unit = unit;
+            this.definition = definition;
+        }
+    }
 
     /** Where the normalisation comes from, written into summary.json and the command's output. */
     public static final String METHOD = "T = flux of the run's fields through the line in the incident direction / incident "
@@ -33,10 +62,10 @@ public record FluxResults(List<String> columns, List<Row> rows) {
      * @param frequency     Hz
      * @param wavelength    vacuum wavelength, m
      * @param angleDegrees  angle of incidence in the plane wave's medium at this frequency
-     * @param incidentPower the reference run's flux through the incident line, W per metre of z (source units squared)
+     * @param incident      the incident line's power (W/m) or energy per hertz (J/(m·Hz)), see {@link Incident}
      * @param values        the value columns in order (NaN where not defined)
      */
-    public record Row(double frequency, double wavelength, double angleDegrees, double incidentPower, double[] values) { }
+    public record Row(double frequency, double wavelength, double angleDegrees, double incident, double[] values) { }
 
     /** A line carrying less than this fraction of the incident power gets no centroid or width. */
     static final double MIN_BEAM_POWER = 1e-3;
@@ -82,7 +111,10 @@ public record FluxResults(List<String> columns, List<Row> rows) {
         int dir = plan.direction();
         for (int q = 0; q < plan.frequencies().length; q++) {
             double wl = plan.wavelength(q);
+            // the ratios use the DFT fluxes as they are; the incident value gets its own units
             double incident = dir * plan.incident().flux(q, dx);
+            double incidentValue = dir * (plan.continuous() ? plan.incident().meanPower(q, dx)
+                    : plan.incident().spectralEnergy(q, dx));
             PlanarStack stack = exact ? plan.exact().get().stack().apply(wl) : null;
             PlanarStack.Response r = !exact ? null : beam ? stack.atAngle(pol, wl, plan.angle(q))
                     : stack.atTransverseWavenumber(pol, wl, plan.kx());
@@ -134,9 +166,10 @@ public record FluxResults(List<String> columns, List<Row> rows) {
                     }
                 }
             }
-            rows.add(new Row(plan.frequencies()[q], wl, Math.toDegrees(plan.angle(q)), incident, v));
+            rows.add(new Row(plan.frequencies()[q], wl, Math.toDegrees(plan.angle(q)), incidentValue, v));
         }
-        return new FluxResults(List.copyOf(columns), List.copyOf(rows));
+        return new FluxResults(List.copyOf(columns), List.copyOf(rows),
+                plan.continuous() ? Incident.POWER : Incident.SPECTRAL_ENERGY);
     }
 
     /** Zero padding of a line's field before its plane-wave spectrum is taken: a finer kx grid for the mean. */
@@ -174,13 +207,13 @@ public record FluxResults(List<String> columns, List<Row> rows) {
         for (String c : columns) {
             sb.append(',').append(c);
         }
-        sb.append(",incident_power\n");
+        sb.append(',').append(incident.column).append('\n');
         for (Row r : rows) {
             sb.append(String.format(Locale.ROOT, "%.6f,%.6f,%.6f", r.wavelength() * 1e9, r.frequency() * 1e-12, r.angleDegrees()));
             for (double x : r.values()) {
                 sb.append(',').append(Double.isFinite(x) ? String.format(Locale.ROOT, "%.9f", x) : "");
             }
-            sb.append(String.format(Locale.ROOT, ",%.9e%n", r.incidentPower()));
+            sb.append(String.format(Locale.ROOT, ",%.9e%n", r.incident()));
         }
         return sb.toString();
     }
@@ -214,6 +247,18 @@ public record FluxResults(List<String> columns, List<Row> rows) {
             m.put("plane_wave", wave);
         }
         m.put("incident_line_y_m", plan.incidentY());
+        Map<String, Object> inc = new LinkedHashMap<>();
+        inc.put("key", incident.column);
+        inc.put("unit", incident.unit);
+        inc.put("definition", incident.definition);
+        inc.put("line_length_m", plan.lineLength());
+        inc.put("source_amplitude", plan.sourceAmplitude());
+        inc.put("source_amplitude_meaning", plan.beam().isPresent()
+                ? "the beam's z field (Ez for s, eta0*Hz for p) at the waist centre, V/m"
+                : "the sheet's current density times eta0 (s: electric current along z, eta0*J_s; p: magnetic current "
+                        + "along z, M_s), V/m; in a lossless medium of index n the sheet launches a plane wave each way "
+                        + "with E amplitude a/(2 n cos(theta)) (s) or a/(2 cos(theta)) (p)");
+        m.put("incident", inc);
         List<Object> lines = new ArrayList<>();
         for (FluxPlan.Line l : plan.lines()) {
             Map<String, Object> e = new LinkedHashMap<>();
@@ -237,7 +282,7 @@ public record FluxResults(List<String> columns, List<Row> rows) {
             for (int k = 0; k < columns.size(); k++) {
                 e.put(columns.get(k), r.values()[k]);
             }
-            e.put("incident_power", r.incidentPower());
+            e.put(incident.column, r.incident());
             rowsOut.add(e);
         }
         m.put("frequencies", rowsOut);
