@@ -5,6 +5,7 @@ import java.io.PrintWriter;
 import java.util.Locale;
 import java.util.Map;
 import org.evanesce.io.casefile.CaseSpec;
+import org.evanesce.io.casefile.Diagnostic;
 import org.evanesce.io.casefile.OutputSpec;
 import org.evanesce.io.output.Json;
 import org.evanesce.io.output.RunFolder;
@@ -99,8 +100,18 @@ final class CaseExecution {
         if (s.output().writes(OutputSpec.Item.PREVIEW)) {
             RunOutputs.preview(plan, rf.dir().resolve("preview.png"));
         }
+        List<Diagnostic> warnings = new ArrayList<>(l.loaded().diagnostics());
+        if (flux != null) {
+            // what the flux results found (e.g. a reference that did not converge): printed and recorded
+            for (String w : flux.warnings()) {
+                Diagnostic d = new Diagnostic(Diagnostic.Severity.WARNING, s.flux().orElseThrow().transferMatrix().at(),
+                        "flux.transfer_matrix", w);
+                warnings.add(d);
+                o.println(d);
+            }
+        }
         RunOutputs.writeRunRecord(rf, RunOutputs.runRecord(VersionProvider.version(), l.sha256(), plan, r,
-                l.loaded().diagnostics(), overrides));
+                warnings, overrides));
         long cells = (long) plan.grid().nx() * plan.grid().ny();
         o.printf(Locale.ROOT, "done: %d steps in %.1f s (%.0f Mcell/s, %d threads)%s; %s%n", r.steps(), r.wallSeconds(),
                 r.cellUpdatesPerSecond(cells) / 1e6, r.threads(),

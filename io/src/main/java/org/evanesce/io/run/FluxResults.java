@@ -20,8 +20,12 @@ import org.evanesce.solver.reference.PlanarStack;
  * @param columns  the value columns after wavelength, frequency and angle, in order
  * @param rows     one per frequency
  * @param incident what the rows' incident values are ({@link Incident#POWER} or {@link Incident#SPECTRAL_ENERGY})
+ * @param warnings what a reader should know about the numbers (e.g. a reference that did not converge), in words
  */
-public record FluxResults(List<String> columns, List<Row> rows, Incident incident) {
+public record FluxResults(List<String> columns, List<Row> rows, Incident incident, List<String> warnings) {
+
+    /** The column saying whether the beam's angular-spectrum reference converged (1) or not (0). */
+    static final String CONVERGED_COLUMN = "beam_reference_converged";
 
     /**
      * What the incident line's value means. Both are for the source's amplitude as the case states
@@ -95,6 +99,9 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
             columns.add("A");
             suffixes.forEach(x -> columns.add("A" + x));
         }
+        if (exact && beam) {
+            columns.add(CONVERGED_COLUMN);
+        }
         if (beam) {
             for (FluxPlan.Line l : plan.lines()) {
                 columns.add("centroid_" + l.spec().name().value() + "_um");
@@ -107,6 +114,7 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
             }
         }
         List<Row> rows = new ArrayList<>();
+        List<String> warnings = new ArrayList<>();
         double dx = plan.cellSize();
         int dir = plan.direction();
         for (int q = 0; q < plan.frequencies().length; q++) {
@@ -118,7 +126,12 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
             PlanarStack stack = exact ? plan.exact().get().stack().apply(wl) : null;
             PlanarStack.Response r = !exact ? null : beam ? stack.atAngle(pol, wl, plan.angle(q))
                     : stack.atTransverseWavenumber(pol, wl, plan.kx());
-            AngularSpectrum.Result as = exact && beam ? BeamReference.of(plan, stack, pol, wl) : null;
+            AngularSpectrum.Converged reference = exact && beam ? BeamReference.of(plan, stack, pol, wl) : null;
+            // a reference that did not converge is not printed: its columns stay empty (NaN)
+            AngularSpectrum.Result as = reference == null || !reference.converged() ? null : reference.result();
+            if (reference != null && !reference.converged()) {
+                warnings.add(BeamReference.notConverged(reference, wl));
+            }
             double[] v = new double[columns.size()];
             int k = 0;
             double sum = 0;
@@ -132,7 +145,7 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
                     double e = t ? r.transmittance() : r.reflectance();
                     v[k++] = e;
                     if (beam) {
-                        double b = t ? as.transmittance() : as.reflectance();
+                        double b = as == null ? Double.NaN : t ? as.transmittance() : as.reflectance();
                         v[k++] = b;
                         e = b;
                     }
@@ -145,11 +158,14 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
                     v[k++] = r.absorptance();
                     double e = r.absorptance();
                     if (beam) {
-                        e = 1 - as.reflectance() - as.transmittance();
+                        e = as == null ? Double.NaN : 1 - as.reflectance() - as.transmittance();
                         v[k++] = e;
                     }
                     v[k++] = 1 - sum - e;
                 }
+            }
+            if (exact && beam) {
+                v[k++] = as != null ? 1 : 0;
             }
             if (beam) {
                 for (FluxPlan.Line l : plan.lines()) {
@@ -162,14 +178,14 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
                     v[k++] = seen ? outgoingAngle(plan, l, t, q, p.centroid()) : Double.NaN;
                     if (exact && !t) {
                         v[k++] = seen ? (p.centroid() - BeamReference.specular(plan, l.y())) * 1e6 : Double.NaN;
-                        v[k++] = BeamReference.reflectedShift(plan, stack, pol, as, wl, l.y()) * 1e6;
+                        v[k++] = as == null ? Double.NaN : BeamReference.reflectedShift(plan, reference, l) * 1e6;
                     }
                 }
             }
             rows.add(new Row(plan.frequencies()[q], wl, Math.toDegrees(plan.angle(q)), incidentValue, v));
         }
         return new FluxResults(List.copyOf(columns), List.copyOf(rows),
-                plan.continuous() ? Incident.POWER : Incident.SPECTRAL_ENERGY);
+                plan.continuous() ? Incident.POWER : Incident.SPECTRAL_ENERGY, List.copyOf(warnings));
     }
 
     /** Zero padding of a line's field before its plane-wave spectrum is taken: a finer kx grid for the mean. */
@@ -210,8 +226,10 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
         sb.append(',').append(incident.column).append('\n');
         for (Row r : rows) {
             sb.append(String.format(Locale.ROOT, "%.6f,%.6f,%.6f", r.wavelength() * 1e9, r.frequency() * 1e-12, r.angleDegrees()));
-            for (double x : r.values()) {
-                sb.append(',').append(Double.isFinite(x) ? String.format(Locale.ROOT, "%.9f", x) : "");
+            for (int k = 0; k < columns.size(); k++) {
+                double x = r.values()[k];
+                String f = columns.get(k).equals(CONVERGED_COLUMN) ? "%.0f" : "%.9f";
+                sb.append(',').append(Double.isFinite(x) ? String.format(Locale.ROOT, f, x) : "");
             }
             sb.append(String.format(Locale.ROOT, ",%.9e%n", r.incident()));
         }
@@ -241,6 +259,18 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
                         + "specular one; shift_name_beam_um: the angular spectrum's on the same line (flux-weighted, carried from "
                         + "the interface to the line, so a reflected beam leaving at a slightly different mean angle is "
                         + "compared where it is measured)");
+                Map<String, Object> conv = new LinkedHashMap<>();
+                conv.put("method", "the beam's angular spectrum is sampled over a window of " + BeamReference.WINDOW_FOOTPRINTS
+                        + " footprints (waist / cos angle), then the window and the number of samples are doubled together "
+                        + "until the sample spacing in kx is at most half the half-width of the narrowest resonance of the "
+                        + "stack inside the beam's spectrum (a peak of |t|^2) and R, T and each reflected centroid change by "
+                        + "less than the tolerances from one doubling to the next; beam_reference_converged is false (and "
+                        + "the X_beam, X_diff and shift_*_beam_um values null) where that needs more than the largest "
+                        + "sampling");
+                conv.put("power_tolerance", BeamReference.POWER_TOLERANCE);
+                conv.put("shift_tolerance_footprints", BeamReference.SHIFT_TOLERANCE_FOOTPRINTS);
+                conv.put("largest_sampling", BeamReference.MAX_SAMPLES);
+                m.put("beam_reference_convergence", conv);
             }
         } else {
             wave.put("in_plane_wavenumber_rad_per_m", plan.kx());
@@ -269,6 +299,7 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
             lines.add(e);
         }
         m.put("lines", lines);
+        m.put("warnings", warnings);
         m.put("transfer_matrix", plan.exact().isPresent()
                 ? "the exact plane-wave values of the layered scene (characteristic matrix, Born & Wolf sec. 1.6) with the "
                         + "same materials, evaluated at each frequency's in-plane wavenumber; *_diff = simulated − exact"
@@ -280,7 +311,8 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
             e.put("frequency_hz", r.frequency());
             e.put("angle_deg", r.angleDegrees());
             for (int k = 0; k < columns.size(); k++) {
-                e.put(columns.get(k), r.values()[k]);
+                e.put(columns.get(k), columns.get(k).equals(CONVERGED_COLUMN) ? (Object) (r.values()[k] == 1)
+                        : (Object) r.values()[k]);
             }
             e.put(incident.column, r.incident());
             rowsOut.add(e);
