@@ -38,12 +38,14 @@ import org.evanesce.solver.reference.PlanarStack;
  * @param lineLength     the length of the lines (and of the incident line) along x, m
  * @param sourceAmplitude the source's amplitude as the case states it: a plane wave's sheet current (η0 J_s in V/m
  *                       for s, the magnetic sheet current in V/m for p), a beam's z field at the waist centre (V/m)
+ * @param path           a beam's path line in the reference run, when the case compares reflected lines with the
+ *                       exact answer (see {@link Path})
  */
 public record FluxPlan(double[] frequencies, double kx, String medium, double mediumIndex, int direction, List<Line> lines,
                        FluxLine incident, double incidentY, Simulation.Builder reference, double cellSize,
                        Optional<Exact> exact, Optional<SourceSpec.GaussianBeamSource> beam, double gridX0,
                        java.util.function.DoubleBinaryOperator indexAt, boolean continuous, double lineLength,
-                       double sourceAmplitude) {
+                       double sourceAmplitude, Optional<Path> path) {
 
     /**
      * The exact reference.
@@ -54,6 +56,16 @@ public record FluxPlan(double[] frequencies, double kx, String medium, double me
      *                       there; 0 for a plane wave)
      */
     public record Exact(DoubleFunction<PlanarStack> stack, double firstInterface, double column) { }
+
+    /**
+     * A line of the reference run farther along the incident beam's path (at the mirror image of a reflected
+     * line through the first interface, where it fits): with the incident line it gives where the incident beam
+     * travels on the grid, the baseline of the lateral shift.
+     *
+     * @param line the line, recorded in the reference run
+     * @param y    its height, m
+     */
+    public record Path(FluxLine line, double y) { }
 
     public FluxPlan {
         frequencies = frequencies.clone();

@@ -95,6 +95,30 @@ final class BeamReference {
         return hit + Math.abs(interfaceY - y) * tan;
     }
 
+    /**
+     * Where the specular beam crosses height y on the grid at frequency number q, m: the incident beam's own
+     * path, measured in the reference run (the homogeneous medium), carried over the same vertical travel as
+     * the reflected beam's. The reference run's beam has its flux-weighted centroid c1 on the incident line (y1)
+     * and c2 on the path line (y2, beyond the interface's height); the centroid of a beam in a homogeneous
+     * medium moves in a straight line, and the grid's dispersion does not change between a wave going up and
+     * one coming down (its dispersion relation is even in ky), so the specularly reflected beam, after a
+     * vertical travel s = |y_int − y1| + |y − y_int| from y1, lies at c1 + (c2 − c1)·s/|y2 − y1|. That takes
+     * out what the grid does to the beam's direction (at 16 cells per wavelength a beam asked for at 50° moves
+     * along 49.9°) and leaves the interface's shift. Without a path line, the nominal {@link #specular}.
+     */
+    static double gridSpecular(FluxPlan plan, int q, double y) {
+        if (plan.path().isEmpty()) {
+            return specular(plan, y);
+        }
+        double dx = plan.cellSize();
+        double c1 = org.evanesce.solver.monitor.BeamProfile.of(plan.incident(), q, dx, plan.gridX0()).centroid();
+        double c2 = org.evanesce.solver.monitor.BeamProfile.of(plan.path().get().line(), q, dx, plan.gridX0()).centroid();
+        double y1 = plan.incidentY();
+        double interfaceY = plan.exact().orElseThrow().firstInterface();
+        double travel = Math.abs(interfaceY - y1) + Math.abs(y - interfaceY);
+        return c1 + (c2 - c1) * travel / Math.abs(plan.path().get().y() - y1);
+    }
+
     /** A warning for a reference that did not converge at vacuum wavelength wl (m). */
     static String notConverged(AngularSpectrum.Converged c, double wl) {
         double[] ch = c.change();

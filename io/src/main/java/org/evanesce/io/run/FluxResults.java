@@ -177,7 +177,7 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
                     v[k++] = seen ? p.width() * 1e6 : Double.NaN;
                     v[k++] = seen ? outgoingAngle(plan, l, t, q, p.centroid()) : Double.NaN;
                     if (exact && !t) {
-                        v[k++] = seen ? (p.centroid() - BeamReference.specular(plan, l.y())) * 1e6 : Double.NaN;
+                        v[k++] = seen ? (p.centroid() - BeamReference.gridSpecular(plan, q, l.y())) * 1e6 : Double.NaN;
                         v[k++] = as == null ? Double.NaN : BeamReference.reflectedShift(plan, reference, l) * 1e6;
                     }
                 }
@@ -255,8 +255,12 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
                         + "(read along x = " + plan.exact().get().column() + " m, where the axis meets the first interface); "
                         + "X_beam: the same beam through that stack by its angular spectrum (no edges); X_diff = simulated − "
                         + "X_beam. X_beam − X_plane_wave is the part due to the beam's angular spread, X_diff the part due to "
-                        + "edges and geometry (and the grid). shift_name_um: the simulated reflected centroid minus the "
-                        + "specular one; shift_name_beam_um: the angular spectrum's on the same line (flux-weighted, carried from "
+                        + "edges and geometry (and the grid). shift_name_um: the simulated reflected centroid minus "
+                        + "where the incident beam itself lies after the same path on the grid (its centroids in the "
+                        + "reference run on the incident line and on a line at the mirror image of the reflected line "
+                        + "through the interface" + (plan.path().isPresent() ? ", y = " + plan.path().get().y() + " m"
+                        : ": none fitted, so the nominal specular position") + ", carried along its straight path), so "
+                        + "that the grid's effect on the beam's direction is not counted as shift; shift_name_beam_um: the angular spectrum's on the same line (flux-weighted, carried from "
                         + "the interface to the line, so a reflected beam leaving at a slightly different mean angle is "
                         + "compared where it is measured)");
                 Map<String, Object> conv = new LinkedHashMap<>();
@@ -277,6 +281,7 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
             m.put("plane_wave", wave);
         }
         m.put("incident_line_y_m", plan.incidentY());
+        plan.path().ifPresent(p -> m.put("path_line_y_m", p.y()));
         Map<String, Object> inc = new LinkedHashMap<>();
         inc.put("key", incident.column);
         inc.put("unit", incident.unit);
