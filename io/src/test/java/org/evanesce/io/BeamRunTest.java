@@ -364,7 +364,7 @@ class BeamRunTest {
      * y = 0.5 um, the waist on it), 16 cells per wavelength in the glass (26.4 nm), 120 um × 4 um (0.69
      * million cells), 250 fs, with two reflected lines 1.3 um and 1.9 um from the interface.
      */
-    private static final String SHIFT_CASE = """
+    static final String SHIFT_CASE = """
             title: Goos-Haenchen shift at 50 degrees
             design_wavelength: 633 nm
             polarization: POL
