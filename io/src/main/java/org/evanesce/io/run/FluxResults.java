@@ -25,7 +25,7 @@ import org.evanesce.solver.reference.PlanarStack;
 public record FluxResults(List<String> columns, List<Row> rows, Incident incident, List<String> warnings) {
 
     /** The column saying whether the beam's angular-spectrum reference converged (1) or not (0). */
-    static final String CONVERGED_COLUMN = "beam_reference_converged";
+    public static final String CONVERGED_COLUMN = "beam_reference_converged";
 
     /**
      * What the incident line's value means. Both are for the source's amplitude as the case states
