@@ -317,6 +317,11 @@ public final class CylinderSeries {
         return 4 / k * amplitude(scatteringAngle).norm();
     }
 
+    /** σ towards the polar angle φ (rad from +x) for this incidence: σ(φ − φ_i), m. */
+    public double scatteringWidthTowards(double angle) {
+        return scatteringWidth(angle - incidence);
+    }
+
     /** C_sca = (1/2π)∫σ dφ = (4/k) Σ_n |c_n|², m. */
     public double scatteringWidthTotal() {
         double s = 0;

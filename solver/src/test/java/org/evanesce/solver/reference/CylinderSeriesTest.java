@@ -437,6 +437,10 @@ class CylinderSeriesTest {
             assertTrue(g.u().minus(f.u()).abs() <= tol && g.vx().minus(vx).abs() <= tol && g.vy().minus(vy).abs() <= tol,
                     pol + " at " + pt[0] + ", " + pt[1]);
         }
+        for (double phi : new double[] {0.1, 1.9, 4}) {
+            double a0 = base.scatteringWidthTowards(phi);
+            assertTrue(Math.abs(turned.scatteringWidthTowards(phi + turn) - a0) <= 1e-12 * a0, "sigma towards " + phi);
+        }
     }
 
     @Test
