@@ -1,5 +1,8 @@
 package org.evanesce.geometry.dispersion;
 
+import java.util.Arrays;
+import java.util.Objects;
+
 /**
  * The time stepping of a {@link DispersiveMaterial} on the Yee grid by auxiliary differential
  * equations (ADE): the per-material coefficients as plain doubles, and a reference implementation
@@ -210,6 +213,32 @@ public record AdeCoefficients(double courant, double dt, double ca, double cb, d
         }
         state[offset] = e1;
         return e1;
+    }
+
+    @Override
+    public boolean equals(Object o) {
+        return o instanceof AdeCoefficients c && Double.compare(courant, c.courant) == 0
+                && Double.compare(dt, c.dt) == 0 && Double.compare(ca, c.ca) == 0 && Double.compare(cb, c.cb) == 0
+                && Arrays.equals(drudeDecay, c.drudeDecay) && Arrays.equals(drudeDrive, c.drudeDrive)
+                && Arrays.equals(drudeCorrection, c.drudeCorrection) && Arrays.equals(lorentzCurrent, c.lorentzCurrent)
+                && Arrays.equals(lorentzMemory, c.lorentzMemory) && Arrays.equals(lorentzDrive, c.lorentzDrive)
+                && Arrays.equals(lorentzCorrection, c.lorentzCorrection)
+                && Double.compare(memoryCorrection, c.memoryCorrection) == 0;
+    }
+
+    @Override
+    public int hashCode() {
+        return Objects.hash(courant, dt, ca, cb, Arrays.hashCode(drudeDecay), Arrays.hashCode(lorentzCurrent),
+                memoryCorrection);
+    }
+
+    @Override
+    public String toString() {
+        return String.format("AdeCoefficients[S=%s, dt=%s s, ca=%s, cb=%s, Drude k=%s beta=%s c=%s, Lorentz alpha=%s"
+                        + " xi=%s beta=%s c=%s, cq=%s]", courant, dt, ca, cb, Arrays.toString(drudeDecay),
+                Arrays.toString(drudeDrive), Arrays.toString(drudeCorrection), Arrays.toString(lorentzCurrent),
+                Arrays.toString(lorentzMemory), Arrays.toString(lorentzDrive), Arrays.toString(lorentzCorrection),
+                memoryCorrection);
     }
 
     @Override

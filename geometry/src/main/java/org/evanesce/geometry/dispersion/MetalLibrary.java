@@ -67,7 +67,7 @@ public final class MetalLibrary {
      *
      * @throws IllegalArgumentException for an unknown key, listing the known ones
      */
-    public static LibraryModel get(String key) {
+    public static SourcedMaterial get(String key) {
         String k = key.toLowerCase(Locale.ROOT);
         return switch (k) {
             case "gold" -> rakic("gold", 9.03, NOBLE_NOTE,
@@ -118,7 +118,7 @@ public final class MetalLibrary {
      * An LD model from Rakić's table: ωp in eV, then per term (f, Γ in eV, ω in eV), the first term the
      * Drude one (its ω is 0).
      */
-    private static LibraryModel rakic(String key, double plasmaEv, String note, double... fGammaOmega) {
+    private static SourcedMaterial rakic(String key, double plasmaEv, String note, double... fGammaOmega) {
         DrudeTerm drude = DrudeTerm.ofElectronVolts(Math.sqrt(fGammaOmega[0]) * plasmaEv, fGammaOmega[1]);
         List<LorentzTerm> lorentz = new ArrayList<>();
         for (int i = 3; i < fGammaOmega.length; i += 3) {
@@ -126,7 +126,7 @@ public final class MetalLibrary {
                     fGammaOmega[i + 1]));
         }
         DispersiveMaterial m = new DispersiveMaterial(key, 1, 0, List.of(drude), lorentz);
-        return new LibraryModel(key, m, RAKIC, RAKIC_DATA, RAKIC_BAND, note);
+        return new SourcedMaterial(key, m, RAKIC, RAKIC_DATA, RAKIC_BAND, note);
     }
 
     /**
@@ -154,14 +154,11 @@ public final class MetalLibrary {
 
     /** The gold-jc model, fitted once on first use. */
     private static final class JcHolder {
-        static final LibraryModel MODEL = fitJc();
+        static final SourcedMaterial MODEL = fitJc();
 
-        private static LibraryModel fitJc() {
+        private static SourcedMaterial fitJc() {
             PoleFit.Result r = PoleFit.fit("gold-jc", johnsonChristyGold(), JC_FIT_BAND, PoleFit.DEFAULT_TOLERANCE);
-            return new LibraryModel("gold-jc", r.material(), "fitted by evanesce (PoleFit) to " + JOHNSON_CHRISTY,
-                    JOHNSON_CHRISTY + ", table recalled from memory", JC_FIT_BAND, String.format(Locale.ROOT,
-                    "worst relative error of epsilon over the band %.3g at %.4g nm", r.worstError(),
-                    r.worst().row().wavelength() * 1e9));
+            return r.sourced("gold-jc", JOHNSON_CHRISTY + ", table recalled from memory");
         }
     }
 }

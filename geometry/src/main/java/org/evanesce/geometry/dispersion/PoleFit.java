@@ -3,6 +3,7 @@ package org.evanesce.geometry.dispersion;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Locale;
 import org.hipparchus.exception.MathIllegalStateException;
 import org.hipparchus.linear.Array2DRowRealMatrix;
 import org.hipparchus.linear.ArrayRealVector;
@@ -72,6 +73,14 @@ public final class PoleFit {
                          RowError worst, List<RowError> errors) {
         public Result {
             errors = List.copyOf(errors);
+        }
+
+        /** The fit with its provenance: fitted by this class to {@code data} (e.g. the table's file), valid over the band. */
+        public SourcedMaterial sourced(String key, String data) {
+            return new SourcedMaterial(key, material, "Drude-Lorentz model fitted by evanesce (PoleFit, "
+                    + material.lorentz().size() + " Lorentz terms)", data, band, String.format(Locale.ROOT,
+                    "worst relative error of epsilon over the band %.3g at %.4g nm (tolerance %.3g)", worstError,
+                    worst.row().wavelength() * 1e9, tolerance));
         }
     }
 

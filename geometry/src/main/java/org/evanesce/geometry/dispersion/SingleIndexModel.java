@@ -1,6 +1,7 @@
 package org.evanesce.geometry.dispersion;
 
 import java.util.List;
+import java.util.Locale;
 
 /**
  * A passive model that reproduces one measured complex index n + iκ at one wavelength exactly.
@@ -66,6 +67,18 @@ public record SingleIndexModel(DispersiveMaterial material, Kind kind, ComplexNu
         double sigma = Spectral.EPS0 * omega * b;
         return new SingleIndexModel(new DispersiveMaterial(name, a, sigma, List.of(), List.of()), Kind.CONDUCTIVE,
                 idx, wavelength);
+    }
+
+    /**
+     * The model with its provenance; its validity is the single measured wavelength, so every run's
+     * band leaves it and earns the single-wavelength warning.
+     */
+    public SourcedMaterial sourced(String key, String data) {
+        return new SourcedMaterial(key, material, kind == Kind.DRUDE
+                ? "single Drude term through one measured index (evanesce SingleIndexModel)"
+                : "background permittivity and conductivity through one measured index (evanesce SingleIndexModel)",
+                data, new WavelengthBand(wavelength, wavelength), String.format(Locale.ROOT,
+                "exact only at %.4g nm (n + ik = %s); a single-wavelength model", wavelength * 1e9, index));
     }
 
     /** ε of the model at the band's shortest and longest wavelengths, in that order. */

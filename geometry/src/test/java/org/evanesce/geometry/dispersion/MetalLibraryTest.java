@@ -17,14 +17,14 @@ import org.junit.jupiter.api.Test;
 class MetalLibraryTest {
 
     /** |ε_model − ε_data|/|ε_data| for n, κ pairs. */
-    static double relativeError(LibraryModel m, double nm, double n, double k) {
+    static double relativeError(SourcedMaterial m, double nm, double n, double k) {
         ComplexNumber data = new ComplexNumber(n, k).square();
         ComplexNumber model = m.material().permittivityAtWavelength(nm * 1e-9);
         return model.minus(data).abs() / data.abs();
     }
 
     /** Normal-incidence reflectance |(N − 1)/(N + 1)|² from vacuum (Born &amp; Wolf sec. 1.5). */
-    static double reflectance(LibraryModel m, double nm) {
+    static double reflectance(SourcedMaterial m, double nm) {
         ComplexNumber n = m.material().index(Spectral.omegaOfWavelength(nm * 1e-9));
         ComplexNumber r = n.plus(-1).divide(n.plus(1));
         return r.abs() * r.abs();
@@ -40,7 +40,7 @@ class MetalLibraryTest {
 
     @Test
     void aluminiumAgainstTheHandbook() {
-        LibraryModel al = MetalLibrary.get("aluminium");
+        SourcedMaterial al = MetalLibrary.get("aluminium");
         double[][] data = {{400, 0.49, 4.86}, {500, 0.769, 6.08}, {800, 2.80, 8.45}};
         for (double[] d : data) {
             double e = relativeError(al, d[0], d[1], d[2]);
@@ -103,7 +103,7 @@ class MetalLibraryTest {
             {"titanium", new double[][] {{450, 0.57}, {633, 0.57}, {1000, 0.60}}},
         };
         for (Object[] row : data) {
-            LibraryModel m = MetalLibrary.get((String) row[0]);
+            SourcedMaterial m = MetalLibrary.get((String) row[0]);
             double worst = 0;
             for (double[] d : (double[][]) row[1]) {
                 double r = reflectance(m, d[0]);
@@ -117,7 +117,7 @@ class MetalLibraryTest {
     @Test
     void entriesNameTheirSourceAndBand() {
         for (String key : MetalLibrary.keys()) {
-            LibraryModel m = MetalLibrary.get(key);
+            SourcedMaterial m = MetalLibrary.get(key);
             assertEquals(key, m.key());
             assertFalse(m.citation().isBlank());
             assertFalse(m.fittedTo().isBlank());

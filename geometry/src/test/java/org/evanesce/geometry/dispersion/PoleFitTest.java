@@ -79,6 +79,8 @@ class PoleFitTest {
             assertTrue(e.error() <= r.worstError());
         }
         assertTrue(r.material().isPassive() && r.material().epsInfinity() >= 1);
+        SourcedMaterial src = r.sourced("gold-jc", "table");
+        assertTrue(src.covers(band) && !src.covers(WavelengthBand.ofNanometres(390, 1000)));
         // the library's gold-jc is this fit
         assertEquals(r.material().withName("gold-jc"), MetalLibrary.get("gold-jc").material());
     }

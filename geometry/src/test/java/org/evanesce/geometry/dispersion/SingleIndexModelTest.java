@@ -34,6 +34,11 @@ class SingleIndexModelTest {
                 Spectral.electronVoltsOfOmega(d.damping()), ends[0], ends[1]);
         // a Drude metal is more negative at longer wavelengths
         assertTrue(ends[1].re() < got.re() && got.re() < ends[0].re());
+        // its provenance says it is a single-wavelength model: no band of a run is covered
+        SourcedMaterial src = m.sourced("gold-633", "index: 0.18+3.43i at 633 nm");
+        assertTrue(src.covers(new WavelengthBand(633e-9, 633e-9)));
+        assertTrue(!src.covers(WavelengthBand.ofNanometres(630, 640)));
+        assertTrue(src.notes().contains("single-wavelength"), src.notes());
     }
 
     @Test
