@@ -5,7 +5,6 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.LinkedHashMap;
@@ -49,7 +48,7 @@ class RunFolderTest {
             f.writeText("a.txt", "first");
             f.commit();
         }
-        assertThrows(FileAlreadyExistsException.class, () -> RunFolder.begin(out, false));
+        assertThrows(OutputRefusedException.class, () -> RunFolder.begin(out, false));
         try (RunFolder f = RunFolder.begin(out, true)) {
             f.writeText("a.txt", "second");
             assertEquals("first", Files.readString(out.resolve("a.txt")), "old result kept until the new one is complete");
