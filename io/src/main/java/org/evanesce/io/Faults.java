@@ -44,8 +44,21 @@ public final class Faults {
         if (path == null) {
             return cause;
         }
-        return path + ": " + cause;
+        return userPath(path) + ": " + cause;
     }
+
+    /**
+     * The path as the user knows it: a results folder's temporary name ({@code .NAME.partial-TAG}) and a
+     * file's ({@code .NAME.TAG.tmp}) become NAME.
+     */
+    static String userPath(String path) {
+        return TEMPORARY_FILE.matcher(PARTIAL.matcher(path).replaceAll("$1$2")).replaceAll("$1$2");
+    }
+
+    private static final java.util.regex.Pattern PARTIAL = java.util.regex.Pattern.compile(
+            "(^|[/\\\\])\\.([^/\\\\]+)\\.(?:partial|replaced)-" + org.evanesce.io.output.OwnerTag.PATTERN + "(?=$|[/\\\\])");
+    private static final java.util.regex.Pattern TEMPORARY_FILE = java.util.regex.Pattern.compile(
+            "(^|[/\\\\])\\.([^/\\\\]+)\\." + org.evanesce.io.output.OwnerTag.PATTERN + "\\.tmp$");
 
     private static String cause(IOException e, String reason) {
         String r = reason == null ? "" : reason;

@@ -23,6 +23,8 @@ public final class FolderContents {
     /** The list's name inside a results folder. */
     public static final String NAME = ".evanesce-contents";
     private static final String HEADER = "evanesce results folder contents 1";
+    /** What {@link #foreign} says of a folder that is no results folder of evanesce at all. */
+    static final String NOT_RESULTS = "no run.json or " + NAME + " of evanesce in it";
 
     /** Older folders (no list): files with these extensions, and folders, were all evanesce wrote. */
     private static final Pattern LEGACY_FILE = Pattern.compile("[^/]+\\.(csv|json|png|h5|xmf)");
@@ -75,7 +77,7 @@ public final class FolderContents {
             }
         }
         if (!record) {
-            return List.of("no run.json or " + NAME + " of evanesce in it");
+            return List.of(NOT_RESULTS);
         }
         for (String e : entries(dir)) {
             if (!e.endsWith("/") && !LEGACY_FILE.matcher(e.substring(e.lastIndexOf('/') + 1)).matches() && out.size() < limit) {

@@ -69,6 +69,11 @@ public final class OutputFolders {
             return true;
         }
         List<String> foreign = FolderContents.foreign(abs, 5);
+        if (foreign.equals(List.of(FolderContents.NOT_RESULTS))) {
+            throw new OutputRefusedException(abs + ": is a folder but not an evanesce results folder (" + foreign.get(0)
+                    + "); evanesce replaces only a finished results folder of its own, even with --force. "
+                    + "Choose another --out (or output.folder), or a new or empty folder");
+        }
         if (!foreign.isEmpty()) {
             throw new OutputRefusedException(abs + ": holds files evanesce did not write (" + String.join(", ", foreign)
                     + "); evanesce replaces only a finished results folder of its own, even with --force. "

@@ -30,7 +30,7 @@ import java.util.regex.Pattern;
 public record OwnerTag(String host, long pid, String random) {
 
     /** {@code HOST-PID-RANDOM} inside a name. */
-    static final String PATTERN = "([0-9a-f]{8})-(\\d{1,19})-([0-9a-z]{1,16})";
+    public static final String PATTERN = "([0-9a-f]{8})-(\\d{1,19})-([0-9a-z]{1,16})";
     private static final Pattern WHOLE = Pattern.compile(PATTERN);
 
     private static final String HOST = hostHash();

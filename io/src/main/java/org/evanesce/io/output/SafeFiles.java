@@ -122,7 +122,14 @@ public final class SafeFiles {
         if (e instanceof FileSystemException f && f.getFile() != null && !f.getFile().equals(tmp.toString())) {
             return e;
         }
-        String reason = e instanceof FileSystemException f ? f.getReason() : e.getMessage();
+        // the system's own error is the deepest cause (image writers wrap it in their own "I/O error")
+        String reason = null;
+        for (Throwable c = e; c != null; c = c.getCause()) {
+            if (c instanceof IOException io) {
+                String r = io instanceof FileSystemException f ? f.getReason() : io.getMessage();
+                reason = r != null ? r : reason;
+            }
+        }
         FileSystemException out = e instanceof java.nio.file.AccessDeniedException
                 ? new java.nio.file.AccessDeniedException(target.toString(), null, reason)
                 : e instanceof java.nio.file.NoSuchFileException
