@@ -6,18 +6,24 @@
 # Exit: 0 passed (or skipped with a note when no cluster can be started), 1 the results differ.
 set -euo pipefail
 root=$(cd "$(dirname "$0")/.." && pwd)
+# a skip is printed and also recorded in target/skipped-checks.txt, which .ci/run lists at its end
+skip() {
+  echo "note: slurm check skipped: $1"
+  mkdir -p "$root/target" && echo "tools/slurm-sweep-check.sh (sweep as a Slurm job array): $1" >> "$root/target/skipped-checks.txt"
+  exit 0
+}
+if [ "$(id -u)" != 0 ]; then skip "needs root"; fi
 work=$(mktemp -d /tmp/evanesce-slurm.XXXXXX)
-if [ "$(id -u)" != 0 ]; then echo "note: slurm check skipped: needs root"; exit 0; fi
 if ! command -v slurmctld >/dev/null 2>&1; then
   if command -v apt-get >/dev/null 2>&1 && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq slurmctld slurmd \
-      slurm-client munge >/dev/null 2>&1; then :; else echo "note: slurm check skipped: cannot install Slurm"; exit 0; fi
+      slurm-client munge >/dev/null 2>&1; then :; else skip "cannot install Slurm"; fi
 fi
 if [ -f /etc/slurm/slurm.conf ] && ! grep -q "evanesce single-node check" /etc/slurm/slurm.conf; then
-  echo "note: slurm check skipped: this machine has its own Slurm configuration"; exit 0
+  skip "this machine has its own Slurm configuration"
 fi
 trap '"$root/tools/slurm-cluster.sh" stop "$work/cluster" || true' EXIT
 if ! "$root/tools/slurm-cluster.sh" start "$work/cluster"; then
-  echo "note: slurm check skipped: the single-node cluster did not start (see $work/cluster/log)"; exit 0
+  skip "the single-node cluster did not start (see $work/cluster/log)"
 fi
 cat > "$work/gap.yaml" <<'CASE'
 # a small sweep of the gap in front of a plane wave: three points
@@ -50,7 +56,7 @@ CASE
 if ! timeout 900 sbatch --wait "$work/cluster-run/sweep.slurm" > "$work/sbatch.log" 2>&1; then
   if grep -q "COMPLETED\|exit code" "$work/sbatch.log" 2>/dev/null; then :; fi
   if ! ls "$work"/cluster-run/point-* >/dev/null 2>&1; then
-    echo "note: slurm check skipped: the job array did not run on the local cluster (see $work/sbatch.log)"; exit 0
+    skip "the job array did not run on the local cluster (see $work/sbatch.log)"
   fi
 fi
 "$root/evanesce" sweep "$work/gap.yaml" --out "$work/cluster-run" --merge-only > "$work/merge.log" 2>&1
