@@ -52,18 +52,23 @@ sweep:
     gap: [100 nm, 200 nm, 300 nm]
 CASE
 "$root/evanesce" sweep "$work/gap.yaml" --out "$work/local" --progress-seconds 60 > "$work/local.log" 2>&1
-"$root/evanesce" sweep "$work/gap.yaml" --out "$work/cluster-run" --slurm-script 2 > "$work/script.log" 2>&1
-if ! timeout 900 sbatch --wait "$work/cluster-run/sweep.slurm" > "$work/sbatch.log" 2>&1; then
+# a folder name with a space, a quote and a dollar sign: the script must quote every path (issue 13)
+run="$work/cluster run's \$x"
+"$root/evanesce" sweep "$work/gap.yaml" --out "$run" --slurm-script 2 > "$work/script.log" 2>&1
+if ! timeout 900 sbatch --wait "$run/sweep.slurm" > "$work/sbatch.log" 2>&1; then
   if grep -q "COMPLETED\|exit code" "$work/sbatch.log" 2>/dev/null; then :; fi
-  if ! ls "$work"/cluster-run/point-* >/dev/null 2>&1; then
+  if ! ls "$run"/point-* >/dev/null 2>&1; then
     skip "the job array did not run on the local cluster (see $work/sbatch.log)"
   fi
 fi
-"$root/evanesce" sweep "$work/gap.yaml" --out "$work/cluster-run" --merge-only > "$work/merge.log" 2>&1
-if cmp -s "$work/local/sweep.csv" "$work/cluster-run/sweep.csv"; then
+"$root/evanesce" sweep "$work/gap.yaml" --out "$run" --merge-only > "$work/merge.log" 2>&1
+if ! ls "$run"/slurm-*_0.out >/dev/null 2>&1; then
+  echo "slurm check FAILED: the tasks' logs are not in $run (#SBATCH --output)"; exit 1
+fi
+if cmp -s "$work/local/sweep.csv" "$run/sweep.csv"; then
   echo "slurm check passed: the job array's merged sweep.csv equals the local sweep's ($work)"
 else
   echo "slurm check FAILED: sweep.csv differs between the local sweep and the Slurm job array ($work)"
-  diff "$work/local/sweep.csv" "$work/cluster-run/sweep.csv" | head -20 || true
+  diff "$work/local/sweep.csv" "$run/sweep.csv" | head -20 || true
   exit 1
 fi
