@@ -93,6 +93,12 @@ public final class RunCommand implements Callable<Integer> {
             return null;
         }
         Path file = folder.toAbsolutePath().resolveSibling(folder.getFileName() + ".checkpoint");
+        if (java.nio.file.Files.exists(file, java.nio.file.LinkOption.NOFOLLOW_LINKS)
+                && !java.nio.file.Files.isRegularFile(file, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+            o.println("note: " + file + " is a folder or a link, not a checkpoint evanesce wrote; it is left alone and this run "
+                    + "saves no checkpoints");
+            return null;
+        }
         StringBuilder id = new StringBuilder(l.sha256()).append('|').append(VersionProvider.version());
         new java.util.TreeMap<>(options.overrides).forEach((k, v) -> id.append('|').append(k).append('=').append(v));
         return new Checkpoints(file, checkpointMinutes * 60, id.toString(), o::println);
