@@ -191,7 +191,7 @@ public final class Checkpoints {
             long count = tail.readLong();
             long sum = tail.readLong();
             if (count != size - TRAILER) {
-                return "it is cut short or extended (" + size + " bytes; its end says " + (count + TRAILER) + ")";
+                return "it is cut short or damaged: " + size + " bytes, and its last bytes do not record that length";
             }
             if (sum != crc.getValue()) {
                 return "its check sum does not match (the file is damaged)";
