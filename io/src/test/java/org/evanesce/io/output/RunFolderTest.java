@@ -59,6 +59,38 @@ class RunFolderTest {
     }
 
     @Test
+    void aFolderWrittenBeforeContentsListsIsReplacedOnlyWhileItHoldsOurKindsOfFiles() throws Exception {
+        Path out = Files.createDirectories(tmp.resolve("old").resolve("frames"));
+        Path old = out.getParent();
+        Files.writeString(old.resolve("run.json"), "{\n  \"program\": \"evanesce\",\n  \"version\": \"0.1\"\n}\n");
+        Files.writeString(old.resolve("flux.csv"), "wavelength_nm\n");
+        Files.writeString(out.resolve("frame-000000010.h5"), "x");
+        Files.writeString(old.resolve("notes.txt"), "mine");
+        assertThrows(OutputRefusedException.class, () -> RunFolder.begin(old, true), "a .txt file evanesce never writes");
+        assertTrue(Files.exists(old.resolve("notes.txt")));
+        Files.delete(old.resolve("notes.txt"));
+        try (RunFolder f = RunFolder.begin(old, true)) {
+            f.writeText("run.json", "{\"program\": \"evanesce\"}\n");
+            f.commit();
+        }
+        assertFalse(Files.exists(old.resolve("frames")), "replaced whole");
+        Path plain = Files.createDirectories(tmp.resolve("plain"));
+        Files.writeString(plain.resolve("flux.csv"), "not ours: no run.json of evanesce");
+        assertThrows(OutputRefusedException.class, () -> RunFolder.begin(plain, true));
+        assertTrue(Files.exists(plain.resolve("flux.csv")));
+    }
+
+    @Test
+    void anEmptyFolderIsUsedAsIfNew() throws Exception {
+        Path out = Files.createDirectories(tmp.resolve("empty"));
+        try (RunFolder f = RunFolder.begin(out, false)) {
+            f.writeText("a.txt", "x");
+            f.commit();
+        }
+        assertEquals("x", Files.readString(out.resolve("a.txt")));
+    }
+
+    @Test
     void jsonEscapesAndKeepsOrder() {
         Map<String, Object> m = new LinkedHashMap<>();
         m.put("name", "a \"b\"\n");
