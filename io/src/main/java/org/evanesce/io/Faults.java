@@ -72,7 +72,8 @@ public final class Faults {
         if (lower.contains("read-only file system")) {
             return "the file system is read-only";
         }
-        if (e instanceof AccessDeniedException || lower.contains("permission denied") || lower.contains("operation not permitted")) {
+        if (e instanceof AccessDeniedException || lower.contains("permission denied")
+                || lower.contains("operation not permitted")) {
             return "permission denied (evanesce may not write or read there)";
         }
         if (lower.contains("file name too long") || lower.contains("name too long")) {

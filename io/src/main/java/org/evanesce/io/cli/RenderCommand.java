@@ -101,7 +101,8 @@ public final class RenderCommand implements Callable<Integer> {
         try {
             return d.draw();
         } catch (RuntimeException e) {
-            String why = e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage().strip().replaceAll("\\s*\\R\\s*", "; ");
+            String why = e.getMessage() == null ? e.getClass().getSimpleName()
+                    : e.getMessage().strip().replaceAll("\\s*\\R\\s*", "; ");
             throw new RunFailedException(file + ": not a readable HDF5 file of an evanesce run (it may be cut short or "
                     + "damaged): " + why, e);
         }
