@@ -15,7 +15,6 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.evanesce.geometry.GridSpec;
 import org.evanesce.io.Main;
-import org.evanesce.io.RunFailedException;
 import org.evanesce.io.output.image.FieldPicture;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -95,7 +94,7 @@ public final class RenderCommand implements Callable<Integer> {
 
     /**
      * Runs {@code d}; a file that jhdf cannot read, or that lacks what an evanesce run writes into it
-     * (datasets, attributes), ends the command with one sentence naming the file (exit 3).
+     * (datasets, attributes), ends the command with one sentence naming the file (exit 3, see Main).
      */
     private static int readable(Path file, Drawing d) throws IOException {
         try {
@@ -103,8 +102,10 @@ public final class RenderCommand implements Callable<Integer> {
         } catch (RuntimeException e) {
             String why = e.getMessage() == null ? e.getClass().getSimpleName()
                     : e.getMessage().strip().replaceAll("\\s*\\R\\s*", "; ");
-            throw new RunFailedException(file + ": not a readable HDF5 file of an evanesce run (it may be cut short or "
-                    + "damaged): " + why, e);
+            java.nio.file.FileSystemException f = new java.nio.file.FileSystemException(file.toString(), null,
+                    "not a readable HDF5 file of an evanesce run (it may be cut short or damaged): " + why);
+            f.initCause(e);
+            throw f;
         }
     }
 
