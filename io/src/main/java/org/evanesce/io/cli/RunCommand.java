@@ -2,11 +2,13 @@ package org.evanesce.io.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.concurrent.Callable;
 import org.evanesce.io.Main;
 import org.evanesce.io.casefile.CaseSpec;
+import org.evanesce.io.RunFailedException;
+import org.evanesce.io.output.OutputFolders;
 import org.evanesce.io.output.RunFolder;
 import org.evanesce.io.run.Checkpoints;
 import org.evanesce.io.run.RunOutputs;
@@ -14,7 +16,6 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
 
 /**
@@ -52,19 +53,33 @@ public final class RunCommand implements Callable<Integer> {
     public Integer call() throws IOException {
         PrintWriter o = spec.commandLine().getOut();
         CaseOptions.Loaded l = options.load(spec);
-        Path folder = out != null ? out : defaultFolder(options.caseFile, l.plan().spec());
+        Path folder = (out != null ? out : defaultFolder(options.caseFile, l.plan().spec())).toAbsolutePath().normalize();
+        List<OutputFolders.Protected> protect = OutputFolders.around(options.caseFile);
+        // refused before anything is written (exit 2, see Main): nothing beside the folder is touched either
+        OutputFolders.checkResults(folder, force, protect);
         Checkpoints ck = checkpoints(l, folder, o);
-        try (RunFolder rf = RunFolder.begin(folder, force)) {
-            CaseExecution.run(l, options.overrides, rf, o, progressSeconds, true, ck);
-            rf.commit();
-            if (ck != null) {
-                java.nio.file.Files.deleteIfExists(ck.file());
+        for (int attempt = 0; ; attempt++) {
+            try (RunFolder rf = RunFolder.begin(folder, force, protect)) {
+                rf.cleaned().forEach(line -> o.println("note: " + line));
+                CaseExecution.run(l, options.overrides, rf, o, progressSeconds, true, ck);
+                rf.commit();
+                if (ck != null) {
+                    ck.delete();
+                }
+                if (!rf.target().equals(folder)) {
+                    o.println("note: " + folder + " appeared during the run and may not be replaced; the results went to "
+                            + rf.target() + " instead");
+                }
+                o.println("results: " + rf.target());
+                o.println("Caution: " + RunOutputs.CAUTION);
+                return Main.OK;
+            } catch (Checkpoints.Unusable e) {
+                if (attempt > 0) {
+                    throw new RunFailedException(e.getMessage(), e);
+                }
+                o.println("warning: " + e.getMessage() + "; the run starts from the beginning");
+                l = options.load(spec);
             }
-            o.println("results: " + rf.target());
-            o.println("Caution: " + RunOutputs.CAUTION);
-            return Main.OK;
-        } catch (FileAlreadyExistsException e) {
-            throw new ParameterException(spec.commandLine(), e.getFile() + ": " + e.getReason());
         }
     }
 
@@ -78,9 +93,15 @@ public final class RunCommand implements Callable<Integer> {
             return null;
         }
         Path file = folder.toAbsolutePath().resolveSibling(folder.getFileName() + ".checkpoint");
+        if (java.nio.file.Files.exists(file, java.nio.file.LinkOption.NOFOLLOW_LINKS)
+                && !java.nio.file.Files.isRegularFile(file, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+            o.println("note: " + file + " is a folder or a link, not a checkpoint evanesce wrote; it is left alone and this run "
+                    + "saves no checkpoints");
+            return null;
+        }
         StringBuilder id = new StringBuilder(l.sha256()).append('|').append(VersionProvider.version());
         new java.util.TreeMap<>(options.overrides).forEach((k, v) -> id.append('|').append(k).append('=').append(v));
-        return new Checkpoints(file, checkpointMinutes * 60, id.toString());
+        return new Checkpoints(file, checkpointMinutes * 60, id.toString(), o::println);
     }
 
     /** The case's output folder (relative to the case file's folder), else the case file's name without extension. */

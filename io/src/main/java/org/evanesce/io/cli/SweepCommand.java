@@ -29,6 +29,7 @@ import org.evanesce.io.casefile.Located;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.casefile.SweepSpec;
 import org.evanesce.io.output.Json;
+import org.evanesce.io.output.OutputFolders;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.CasePlanner;
 import org.evanesce.io.plan.PlanException;
@@ -183,6 +184,8 @@ public final class SweepCommand implements Callable<Integer> {
         }
 
         SweepFolder folder = new SweepFolder(out != null ? out : defaultFolder(caseFile, base));
+        // refused (exit 2) before anything is written: the case's own folder or above it, a file, a link, a foreign folder
+        OutputFolders.checkInto(folder.dir(), SweepFolder.RECORD, SweepFolder::ours, OutputFolders.around(caseFile));
         List<SweepRecord.Entry> entries = all.stream().map(r -> new SweepRecord.Entry(r.point(), r.hash())).toList();
         Map<String, Object> record = SweepRecord.of(version, caseFile.toAbsolutePath().normalize().toString(), caseSha,
                 options.overrides, sweep, entries);
@@ -209,8 +212,8 @@ public final class SweepCommand implements Callable<Integer> {
                 mine.add(r.point().number());
             }
         }
-        for (String gone : folder.removeLeftovers(mine, shardOf == null)) {
-            o.println("removed " + folder.dir().resolve(gone) + ", left by a run that was stopped");
+        for (String line : folder.removeLeftovers(mine, shardOf == null)) {
+            o.println("note: " + line);
         }
         List<Read> todo = new ArrayList<>();
         int finishedBefore = 0;
@@ -381,8 +384,10 @@ public final class SweepCommand implements Callable<Integer> {
         if (bad > 0) {
             throw usage(String.format(Locale.ROOT, "%d of %d points to run cannot be planned; nothing was run", bad, todo.size()));
         }
-        int cores = options.threads != null ? options.threads
-                : base.numerics().threads().map(Located::value).orElse(Runtime.getRuntime().availableProcessors());
+        Integer asked = options.threads != null ? options.threads : base.numerics().threads().map(Located::value).orElse(null);
+        ThreadLimit limit = ThreadLimit.current();
+        Integer capped = limit.apply(asked, err::println, Runtime.getRuntime().availableProcessors());
+        int cores = capped != null ? capped : Math.min(limit.max(), Runtime.getRuntime().availableProcessors());
         return Parallelism.choose(cores, cells, rows, bytes, Runtime.getRuntime().maxMemory(), todo.size(), parallel);
     }
 
@@ -429,9 +434,13 @@ public final class SweepCommand implements Callable<Integer> {
         if (!Files.isRegularFile(exe)) {
             throw usage("--launcher " + exe + ": no such file");
         }
-        writeRecord(folder, record);
         Path absCase = caseFile.toAbsolutePath().normalize();
         List<String> extra = SlurmScript.extraArguments(options.threads, options.overrides);
+        String problem = SlurmScript.problem(exe, absCase, folder.dir(), extra);
+        if (problem != null) {
+            throw usage("--slurm-script: " + problem);
+        }
+        writeRecord(folder, record);
         String script = SlurmScript.text(exe, absCase, folder.dir(), slurmTasks, points, extra, SlurmScript.jobName(caseFile));
         Path f = folder.write(SweepFolder.SLURM, script.getBytes(StandardCharsets.UTF_8));
         try {
