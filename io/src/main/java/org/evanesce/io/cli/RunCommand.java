@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Path;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import org.evanesce.io.Main;
 import org.evanesce.io.casefile.CaseSpec;
@@ -55,12 +56,19 @@ public final class RunCommand implements Callable<Integer> {
         Path folder = out != null ? out : defaultFolder(options.caseFile, l.plan().spec());
         Checkpoints ck = checkpoints(l, folder, o);
         try (RunFolder rf = RunFolder.begin(folder, force)) {
-            CaseExecution.run(l, options.overrides, rf, o, progressSeconds, true, ck);
+            CaseExecution.Finished f = CaseExecution.run(l, options.overrides, rf, o, progressSeconds, true, ck,
+                    spec.commandLine().getParseResult().originalArgs());
             rf.commit();
             if (ck != null) {
                 java.nio.file.Files.deleteIfExists(ck.file());
             }
             o.println("results: " + rf.target());
+            if (!f.warnings().isEmpty()) {
+                spec.commandLine().getErr().printf(java.util.Locale.ROOT, "evanesce run: warning: %s%s (printed above, and "
+                        + "in run.json%s)%n", Boolean.FALSE.equals(f.settling().settled()) ? "the results did not settle"
+                        : "the results look implausible", f.warnings().size() > 1 ? " and " + (f.warnings().size() - 1)
+                        + " more warning(s)" : "", f.flux() != null ? " and summary.json" : "");
+            }
             o.println("Caution: " + RunOutputs.CAUTION);
             return Main.OK;
         } catch (FileAlreadyExistsException e) {
@@ -78,9 +86,19 @@ public final class RunCommand implements Callable<Integer> {
             return null;
         }
         Path file = folder.toAbsolutePath().resolveSibling(folder.getFileName() + ".checkpoint");
-        StringBuilder id = new StringBuilder(l.sha256()).append('|').append(VersionProvider.version());
-        new java.util.TreeMap<>(options.overrides).forEach((k, v) -> id.append('|').append(k).append('=').append(v));
-        return new Checkpoints(file, checkpointMinutes * 60, id.toString());
+        return new Checkpoints(file, checkpointMinutes * 60, checkpointIdentity(l.sha256(),
+                org.evanesce.io.output.BuildInfo.current(), options.overrides));
+    }
+
+    /**
+     * A run's identity in its checkpoint: the case file's hash, the overrides, the program's version and its
+     * build id (a rebuilt program may compute other numbers, and its listeners may save other state, so it
+     * never continues another build's checkpoint).
+     */
+    static String checkpointIdentity(String caseSha256, org.evanesce.io.output.BuildInfo build, Map<String, String> overrides) {
+        StringBuilder id = new StringBuilder(caseSha256).append('|').append(build.version()).append('|').append(build.id());
+        new java.util.TreeMap<>(overrides).forEach((k, v) -> id.append('|').append(k).append('=').append(v));
+        return id.toString();
     }
 
     /** The case's output folder (relative to the case file's folder), else the case file's name without extension. */
