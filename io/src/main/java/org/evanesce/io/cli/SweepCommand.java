@@ -227,8 +227,6 @@ public final class SweepCommand implements Callable<Integer> {
                 }
             }
         }
-        rerun.forEach((why, numbers) -> o.printf(Locale.ROOT, "%d finished point(s) run again (%s): %s%n", numbers.size(),
-                why, SweepMerge.ranges(numbers)));
         Parallelism choice = planAll(caseText, todo, base, err);
         o.printf(Locale.ROOT, "sweep of %s: %d points (%s of %s)%s; %d finished already, %d to run%s%n", caseFile, points.size(),
                 sweep.combine().caseName(), String.join(", ", points.get(0).names()),
@@ -236,6 +234,8 @@ public final class SweepCommand implements Callable<Integer> {
                 finishedBefore, todo.size(), todo.isEmpty() ? "" : String.format(Locale.ROOT, ", %d at once with %d thread(s) "
                         + "each (%s); writing %s", choice.parallel(), choice.threadsPerPoint(), choice.reason(), folder.dir()));
 
+        rerun.forEach((why, numbers) -> o.printf(Locale.ROOT, "%d finished point(s) run again (%s): %s%n", numbers.size(),
+                why, SweepMerge.ranges(numbers)));
         SweepRunner runner = new SweepRunner(folder, points.size(), finishedBefore, o, System.console() != null);
         List<SweepRunner.Task> tasks = todo.stream().map(r -> new SweepRunner.Task(r.point(),
                 SweepRunner.pointRecord(r.point(), r.overrides(), r.hash(), version, build))).toList();
