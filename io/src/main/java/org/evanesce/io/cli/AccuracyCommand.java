@@ -124,7 +124,8 @@ public final class AccuracyCommand implements Callable<Integer> {
                     Path dir = study.dir().resolve("level" + (l + 1));
                     java.nio.file.Files.createDirectories(dir);
                     try (RunFolder rf = RunFolder.begin(offsets == 1 ? dir.resolve("run") : dir.resolve("offset" + k), false)) {
-                        level.add(CaseExecution.run(c, options.overrides, rf, o, progressSeconds, false).flux());
+                        level.add(CaseExecution.run(c, options.overrides, rf, o, progressSeconds, false,
+                                spec.commandLine().getParseResult().originalArgs()).flux());
                         rf.commit();
                     }
                 }

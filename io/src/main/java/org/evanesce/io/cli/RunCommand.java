@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.List;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import org.evanesce.io.Main;
 import org.evanesce.io.casefile.CaseSpec;
@@ -61,7 +62,8 @@ public final class RunCommand implements Callable<Integer> {
         for (int attempt = 0; ; attempt++) {
             try (RunFolder rf = RunFolder.begin(folder, force, protect)) {
                 rf.cleaned().forEach(line -> o.println("note: " + line));
-                CaseExecution.run(l, options.overrides, rf, o, progressSeconds, true, ck);
+                CaseExecution.Finished f = CaseExecution.run(l, options.overrides, rf, o, progressSeconds, true, ck,
+                        spec.commandLine().getParseResult().originalArgs());
                 rf.commit();
                 if (ck != null) {
                     ck.delete();
@@ -71,6 +73,12 @@ public final class RunCommand implements Callable<Integer> {
                             + rf.target() + " instead");
                 }
                 o.println("results: " + rf.target());
+                if (!f.warnings().isEmpty()) {
+                    spec.commandLine().getErr().printf(java.util.Locale.ROOT, "evanesce run: warning: %s%s (printed above, and "
+                            + "in run.json%s)%n", Boolean.FALSE.equals(f.settling().settled()) ? "the results did not settle"
+                            : "the results look implausible", f.warnings().size() > 1 ? " and " + (f.warnings().size() - 1)
+                            + " more warning(s)" : "", f.flux() != null ? " and summary.json" : "");
+                }
                 o.println("Caution: " + RunOutputs.CAUTION);
                 return Main.OK;
             } catch (Checkpoints.Unusable e) {
@@ -99,9 +107,19 @@ public final class RunCommand implements Callable<Integer> {
                     + "saves no checkpoints");
             return null;
         }
-        StringBuilder id = new StringBuilder(l.sha256()).append('|').append(VersionProvider.version());
-        new java.util.TreeMap<>(options.overrides).forEach((k, v) -> id.append('|').append(k).append('=').append(v));
-        return new Checkpoints(file, checkpointMinutes * 60, id.toString(), o::println);
+        return new Checkpoints(file, checkpointMinutes * 60, checkpointIdentity(l.sha256(),
+                org.evanesce.io.output.BuildInfo.current(), options.overrides), o::println);
+    }
+
+    /**
+     * A run's identity in its checkpoint: the case file's hash, the overrides, the program's version and its
+     * build id (a rebuilt program may compute other numbers, and its listeners may save other state, so it
+     * never continues another build's checkpoint).
+     */
+    static String checkpointIdentity(String caseSha256, org.evanesce.io.output.BuildInfo build, Map<String, String> overrides) {
+        StringBuilder id = new StringBuilder(caseSha256).append('|').append(build.version()).append('|').append(build.id());
+        new java.util.TreeMap<>(overrides).forEach((k, v) -> id.append('|').append(k).append('=').append(v));
+        return id.toString();
     }
 
     /** The case's output folder (relative to the case file's folder), else the case file's name without extension. */

@@ -119,6 +119,35 @@ public final class SweepFolder {
     }
 
     /**
+     * Why a point whose folder holds a finished run is not counted as finished now, for the sweep's output
+     * (null when the folder holds no finished run): another build or version of the program made it, or its
+     * case or values differ.
+     */
+    public String whyRunAgain(int number, String version, String build) {
+        Path p = point(number);
+        if (!Files.isRegularFile(p.resolve("run.json"))) {
+            return null;
+        }
+        Object rec;
+        try {
+            rec = readJson(p.resolve(POINT_RECORD));
+        } catch (IOException e) {
+            return "its point.json cannot be read";
+        }
+        if (!(rec instanceof Map<?, ?> m)) {
+            return "its point.json holds no record";
+        }
+        if (!version.equals(m.get("version"))) {
+            return "made by evanesce " + m.get("version") + ", this is " + version;
+        }
+        if (!build.equals(m.get("build"))) {
+            return "made by another build of evanesce: " + (m.get("build") == null ? "one that recorded no build id"
+                    : m.get("build")) + ", this is " + build;
+        }
+        return "made from another case text or other values (its point hash differs)";
+    }
+
+    /**
      * Reads a JSON file written by {@link org.evanesce.io.output.Json} (JSON is YAML 1.2, so the case
      * file's YAML reader reads it): maps, lists, strings, numbers, booleans and null.
      *

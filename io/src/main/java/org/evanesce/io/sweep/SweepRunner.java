@@ -82,7 +82,8 @@ public final class SweepRunner {
     }
 
     /** The record a point's folder gets. */
-    public static Map<String, Object> pointRecord(SweepPoint p, Map<String, String> overrides, String hash, String version) {
+    public static Map<String, Object> pointRecord(SweepPoint p, Map<String, String> overrides, String hash, String version,
+                                                  String build) {
         Map<String, Object> m = new LinkedHashMap<>();
         m.put("program", "evanesce");
         m.put("schema", "evanesce-sweep-point-1");
@@ -90,6 +91,7 @@ public final class SweepRunner {
         m.put("values", p.overrides());
         m.put("overrides", new TreeMap<>(overrides));
         m.put("version", version);
+        m.put("build", build);
         m.put("point_hash", hash);
         return m;
     }
