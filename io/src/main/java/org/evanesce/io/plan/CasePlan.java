@@ -30,6 +30,11 @@ public record CasePlan(CaseSpec spec, GridSpec grid, MaterialGrid materials, Sim
                        java.util.Optional<FluxPlan> flux, java.util.Map<String, Double> gridPermittivity,
                        FieldPlan fields, List<SourceSite> sourceSites) {
 
+    /** Whether a source drives a continuous (ramped) wave, which never decays. */
+    public boolean continuous() {
+        return spec.sources().stream().anyMatch(s -> s.signal() instanceof org.evanesce.io.casefile.SignalSpec.RampedWave);
+    }
+
     /**
      * A probe with the name the case gave it and the site it samples: index (i, j) of its component, i.e.
      * the site at ((i + dx)Δ, (j + dy)Δ) from node 0 with the component's offsets dx, dy ({@link

@@ -304,7 +304,6 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
             lines.add(e);
         }
         m.put("lines", lines);
-        m.put("warnings", warnings);
         m.put("transfer_matrix", plan.exact().isPresent()
                 ? "the exact plane-wave values of the layered scene (characteristic matrix, Born & Wolf sec. 1.6) with the "
                         + "same materials, evaluated at each frequency's in-plane wavenumber; *_diff = simulated − exact"

@@ -50,8 +50,10 @@ public final class FluxLine implements StatefulListener {
     /** Only field samples at times in [windowStart, windowEnd) are transformed. */
     private double windowStart = Double.NEGATIVE_INFINITY;
     private double windowEnd = Double.POSITIVE_INFINITY;
-    /** Σ Δt over the samples transformed so far, E and H separately, s. */
-    private double eDuration, hDuration;
+    /** Samples transformed so far: electric, magnetic. */
+    private long eSamples, hSamples;
+    /** The time step, s (set by every step; 0 before the first). */
+    private double dt;
 
     /**
      * @param pol         the run's polarization
@@ -109,6 +111,8 @@ public final class FluxLine implements StatefulListener {
         if (!eIn && !hIn) {
             return;
         }
+        eSamples += eIn ? 1 : 0;
+        hSamples += hIn ? 1 : 0;
         // read the line once per step, then accumulate every frequency from the copies
         for (int i = i0; i < i1; i++) {
             int k = i - i0;
@@ -120,8 +124,7 @@ public final class FluxLine implements StatefulListener {
         double dt = v.dt();
         double we = eIn ? dt : 0;
         double wh = hIn ? dt : 0;
-        eDuration += we;
-        hDuration += wh;
+        this.dt = dt;
         for (int q = 0; q < omega.length; q++) {
             double ce = Math.cos(omega[q] * te) * we;
             double se = Math.sin(omega[q] * te) * we;
@@ -160,12 +163,14 @@ public final class FluxLine implements StatefulListener {
 
     /**
      * The time-averaged flux along +y of a continuous wave at frequency q, W per metre of z (for the
-     * fields' own amplitudes): 4·{@link #flux(int, double)}/(D_E D_H), D the duration of the samples
-     * transformed (see the class comment). Meaningful when the window holds whole periods of a settled
+     * fields' own amplitudes): 4·{@link #flux(int, double)}/(D_E D_H), D = (samples transformed)·Δt the
+     * duration of the samples (see the class comment). Meaningful when the window holds whole periods of a settled
      * wave; NaN before any sample was taken.
      */
     public double meanPower(int q, double cellSize) {
-        return eDuration > 0 && hDuration > 0 ? 4 * flux(q, cellSize) / (eDuration * hDuration) : Double.NaN;
+        double de = eSamples * dt;
+        double dh = hSamples * dt;
+        return de > 0 && dh > 0 ? 4 * flux(q, cellSize) / (de * dh) : Double.NaN;
     }
 
     /**
@@ -175,11 +180,6 @@ public final class FluxLine implements StatefulListener {
      */
     public double spectralEnergy(int q, double cellSize) {
         return 4 * flux(q, cellSize);
-    }
-
-    /** Σ Δt over the electric samples transformed so far, s. */
-    public double sampledDuration() {
-        return eDuration;
     }
 
     /** The transformed electric field (averaged onto the line) at frequency q and cell i: {re, im}. */
@@ -205,6 +205,20 @@ public final class FluxLine implements StatefulListener {
     /** The electric component transformed; its site's x offset ({@link Component#dx}) places cell i at x = (i + dx)Δ. */
     public Component electricComponent() {
         return e;
+    }
+
+    /**
+     * The number of electric and of magnetic samples transformed so far: a window of whole periods holds
+     * a whole number of time steps only by chance, so two windows of equal length may differ by a sample,
+     * which scales their transforms by that sample's weight.
+     */
+    public long[] samples() {
+        return new long[] {eSamples, hSamples};
+    }
+
+    /** The number of frequencies transformed. */
+    public int frequencyCount() {
+        return omega.length;
     }
 
     /** Frequency number q, Hz. */
@@ -251,18 +265,20 @@ public final class FluxLine implements StatefulListener {
 
     @Override
     public void writeState(java.io.DataOutput out) throws java.io.IOException {
+        out.writeLong(eSamples);
+        out.writeLong(hSamples);
         for (double[][] a : new double[][][] {eRe, eIm, hRe, hIm}) {
             out.writeInt(a.length);
             for (double[] row : a) {
                 org.evanesce.solver.kernel.StateIO.write(out, row);
             }
         }
-        out.writeDouble(eDuration);
-        out.writeDouble(hDuration);
     }
 
     @Override
     public void readState(java.io.DataInput in) throws java.io.IOException {
+        eSamples = in.readLong();
+        hSamples = in.readLong();
         for (double[][] a : new double[][][] {eRe, eIm, hRe, hIm}) {
             if (in.readInt() != a.length) {
                 throw new java.io.IOException("checkpoint's flux line has another number of frequencies");
@@ -271,7 +287,5 @@ public final class FluxLine implements StatefulListener {
                 org.evanesce.solver.kernel.StateIO.read(in, row);
             }
         }
-        eDuration = in.readDouble();
-        hDuration = in.readDouble();
     }
 }
