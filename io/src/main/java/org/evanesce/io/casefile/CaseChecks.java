@@ -118,7 +118,8 @@ final class CaseChecks {
 
     private void across(Side a, Side b, int cells, String what) {
         int used = pmlCells(a) + pmlCells(b);
-        if (used >= cells) {
+        // the solver needs at least two interior cells between the layers
+        if (used > cells - 2) {
             BoundarySpec where = p.boundaries.get(pmlCells(b) > 0 ? b : a);
             ctx.error(where.at(), p.boundaryPaths.get(pmlCells(b) > 0 ? b : a), String.format(
                     "the %s and %s PMLs (%d + %d cells) leave no interior in a grid %d cells %s; thin them or enlarge the domain",
