@@ -112,6 +112,12 @@ final class CaseChecks {
                         pml.cells(), fmt(pml.thickness().si()), MIN_PML_CELLS, MIN_PML_CELLS));
             }
         }
+        if (p.boundaries.get(Side.LEFT) instanceof BoundarySpec.Periodic per && p.resolution.nx() - 1 < 3) {
+            // the node at x = +W/2 is the image of the one at −W/2, so a period holds one column fewer
+            ctx.error(per.at(), p.boundaryPaths.get(Side.LEFT), String.format("with periodic sides a period needs at least 3 "
+                    + "cells across, but the domain's width is %d cells of %s; use a smaller cell or a wider domain",
+                    p.resolution.nx() - 1, fmt(p.resolution.cellSize().si())));
+        }
         across(Side.LEFT, Side.RIGHT, p.resolution.nx() - 1, "wide");
         across(Side.BOTTOM, Side.TOP, p.resolution.ny() - 1, "high");
     }

@@ -696,8 +696,9 @@ final class CaseParser {
                 if (text == null) {
                     continue;
                 }
-                if (!text.matches("[A-Za-z0-9_.-]+")) {
-                    ctx.error(ctx.pos(nn), v.path("name"), "a probe name names its output file: letters, digits, '_', '-' and '.' only, got '" + Suggest.shown(text) + "'");
+                if (!text.matches(Schema.NAME)) {
+                    ctx.error(ctx.pos(nn), v.path("name"), "a probe name heads columns of probes.csv: at most " + Schema.NAME_LENGTH
+                            + " letters, digits, '_', '-' and '.', got '" + Suggest.shown(text) + "'");
                     continue;
                 }
                 name = new Located<>(text, ctx.pos(nn));

@@ -191,9 +191,9 @@ final class FluxReader {
                     ok = false;
                     continue;
                 }
-                if (!text.matches("[A-Za-z0-9_.-]+")) {
-                    ctx.error(ctx.pos(nn), v.path("name"), "a line name heads columns of flux.csv: letters, digits, '_', '-' and '.' "
-                            + "only, got '" + Suggest.shown(text) + "'");
+                if (!text.matches(Schema.NAME)) {
+                    ctx.error(ctx.pos(nn), v.path("name"), "a line name heads columns of flux.csv: at most " + Schema.NAME_LENGTH
+                            + " letters, digits, '_', '-' and '.', got '" + Suggest.shown(text) + "'");
                     ok = false;
                     continue;
                 }

@@ -218,8 +218,9 @@ final class OutputReader {
                     }
                     Node nn = d.get("name");
                     String name = nn == null ? "line" + (k + 1) : ctx.text(nn, d.path("name"));
-                    if (name != null && !name.matches("[A-Za-z0-9_.-]+")) {
-                        ctx.error(ctx.pos(nn), d.path("name"), "a decay line's name: letters, digits, '_', '-' and '.' only, got '"
+                    if (name != null && !name.matches(Schema.NAME)) {
+                        ctx.error(ctx.pos(nn), d.path("name"), "a decay line's name: at most " + Schema.NAME_LENGTH
+                                + " letters, digits, '_', '-' and '.', got '"
                                 + Suggest.shown(name) + "'");
                         name = null;
                     }

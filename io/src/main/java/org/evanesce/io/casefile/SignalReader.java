@@ -108,7 +108,13 @@ final class SignalReader {
                 return null;
             }
             double c = SignalSpec.SPEED_OF_LIGHT;
-            return new Value(c / (wl - q.value() / 2) - c / (wl + q.value() / 2), s.start());
+            double width = c / (wl - q.value() / 2) - c / (wl + q.value() / 2);
+            if (!(width > 0) || Double.isInfinite(width)) {
+                ctx.error(s.start(), path, "a span of " + q + " around " + Units.format(wl, Dimension.LENGTH)
+                        + " gives no frequency width that a number can hold; expected a wavelength and a span of a few percent of it");
+                return null;
+            }
+            return new Value(width, s.start());
         }
         ctx.error(s.start(), path, (q.dimension().isNone() ? Context.noUnit(s, q) : "got " + q + " (" + q.dimension().describe() + ")")
                 + ", expected a wavelength span such as 40 nm or a frequency span such as 30 THz");
