@@ -175,7 +175,7 @@ final class ParameterTable {
                     List<String> cycle = new ArrayList<>(path.subList(loop, path.size()));
                     cycle.add(ref);
                     Def first = defs.get(cycle.get(0));
-                    ctx.error(first.scalar.start(), first.path(), "circular definition: " + String.join(" -> ", cycle));
+                    ctx.error(first.scalar.start(), first.path(), "circular definition: " + cycleText(cycle));
                     failed.addAll(cycle);
                     continue;
                 }
@@ -192,6 +192,15 @@ final class ParameterTable {
             throw ExpressionException.quiet(0);
         }
         return q;
+    }
+
+    /** "a -> b -> a", with the middle of a long cycle left out. */
+    private static String cycleText(List<String> cycle) {
+        if (cycle.size() <= 8) {
+            return String.join(" -> ", cycle);
+        }
+        return String.join(" -> ", cycle.subList(0, 4)) + " -> ... (" + (cycle.size() - 6) + " more) -> "
+                + String.join(" -> ", cycle.subList(cycle.size() - 2, cycle.size()));
     }
 
     private void enter(String name, Deque<Frame> stack, Map<String, Integer> onStack, List<String> path) {
