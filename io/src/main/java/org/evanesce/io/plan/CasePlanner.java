@@ -137,7 +137,7 @@ public final class CasePlanner {
         if (memory.total() > memoryLimit) {
             MemoryEstimate.Item big = memory.largest();
             error(big.at(), big.path(), String.format("the run needs about %s of memory (%s) but the JVM may use at most %s; "
-                    + "the largest part is the %s (%s): %s, or give the JVM more memory (e.g. JAVA_OPTS=-Xmx%dg)",
+                    + "largest part: %s (%s), to reduce it: %s; or give the JVM more memory (e.g. JAVA_OPTS=-Xmx%dg)",
                     MemoryEstimate.format(memory.total()), memory.breakdown(), MemoryEstimate.format(memoryLimit), big.what(),
                     MemoryEstimate.format(big.bytes()), big.reduce(), (long) Math.ceil(memory.total() * 1.25 / (1L << 30))));
             throw new PlanException(errors);

@@ -27,14 +27,19 @@ import org.evanesce.solver.grid.Side;
  * while the fields are built, one output file or picture being written), plus a fixed allowance for
  * the program itself. It is an upper bound for the arrays the solver counts itself
  * ({@link Simulation#bytes()}, exact but for the few kilobytes of array padding), and for the rest
- * errs on the large side: see the constants for the figures behind it.
+ * errs on the large side: see the constants for the figures behind it. It counts the heap as the
+ * parallel collector (the launcher's) lays it out; the G1 collector gives an array of half a region
+ * or more whole regions, up to a quarter more for grids of a few hundred thousand nodes.
  *
  * @param items what is counted, largest first
  */
 public record MemoryEstimate(List<Item> items) {
 
-    /** Heap for the program itself (classes, the kernels' warm-up grid, buffers): a measured idle run used below 40 MiB. */
-    static final long PROGRAM_BYTES = 64L << 20;
+    /**
+     * Heap for the program itself (the kernels' warm-up grid, the libraries' buffers): a tiny case read, planned, run
+     * and previewed in a 12 MiB heap and failed in 8 MiB (measured); 32 MiB leaves room.
+     */
+    static final long PROGRAM_BYTES = 32L << 20;
     /**
      * Distinct smoothed materials per cell of shape boundary, over the three electric sites: measured 3.5 to 3.8 for
      * disks of 3 to 500 cells radius (each cut site of a curved face gets its own effective permittivity).
@@ -51,12 +56,15 @@ public record MemoryEstimate(List<Item> items) {
     static final long NARROW_MATERIALS = 1 << 16;
     /** Edge of the rasteriser's tiles, cells (Rasterizer.TILE). */
     static final int TILE = 32;
+    /** Bytes a probe keeps per recorded step: the value, its imaginary part and the time, 8 bytes each. */
+    static final long PROBE_BYTES_PER_STEP = 24;
+    /** Steps a probe has room for from the start; the room doubles when it is full (Probe). */
+    static final long PROBE_FIRST_ROOM = 1024;
     /**
-     * Bytes per probe and step: the recorded value, imaginary part and time (8 bytes each) in arrays that grow
-     * by doubling (up to twice the steps, and the old array during a copy: 3 × 24 × 1.5), their copies when
-     * written, and probes.csv built as text (about 34 characters per probe and step, held about three times).
+     * Bytes per probe and step while probes.csv is written: the copies of the recorded arrays (16 bytes) and the
+     * text, about 34 characters per probe and step, held about three times while it is built and written.
      */
-    static final long PROBE_BYTES_PER_STEP = 108 + 24 + 34 * 3;
+    static final long PROBE_WRITE_BYTES_PER_STEP = 16 + 34 * 3;
     /**
      * Bytes per value of a field file while it is written: the raw values and the values averaged onto the
      * nodes (8 bytes each), a copy in rows for the HDF5 writer and its chunk buffer (about twice the data).
@@ -66,9 +74,13 @@ public record MemoryEstimate(List<Item> items) {
     /** One part of the estimate. */
     public record Item(String what, long bytes, SourcePosition at, String path, String reduce) { }
 
-    /** The whole estimate, bytes. */
+    /** The whole estimate, bytes (Long.MAX_VALUE when it does not fit a long). */
     public long total() {
-        return items.stream().mapToLong(Item::bytes).sum();
+        long sum = 0;
+        for (Item i : items) {
+            sum = i.bytes() > Long.MAX_VALUE - sum ? Long.MAX_VALUE : sum + i.bytes();
+        }
+        return sum;
     }
 
     /** The largest part the case decides (not the program's own allowance). */
@@ -132,7 +144,7 @@ public record MemoryEstimate(List<Item> items) {
             long nf = flux.frequencies().size();
             long perLine = 8L * width * (4 * nf + 4);
             int lines = flux.lines().size();
-            held.add(new Item("flux lines", perLine * (2L * lines + 1), flux.at(), "flux", "fewer lines or wavelengths"));
+            held.add(new Item("flux lines", saturated(perLine, 2L * lines + 1), flux.at(), "flux", "fewer lines or wavelengths"));
             long[] r = Simulation.footprint(grid.nx(), grid.ny(), pol, precision, sides, medium.conductivity().si() != 0);
             held.add(new Item("reference run", 6 * nodes + r[0] + r[1], flux.at(), "flux", gridAdvice));
         }
@@ -143,13 +155,27 @@ public record MemoryEstimate(List<Item> items) {
             SourcePosition at = m.region().map(OutputSpec.Region::at).orElse(m.at());
             String reduce = "a smaller maps.region or fewer wavelengths";
             held.add(new Item("maps", bytes, at, "maps", reduce));
-            // maps.h5 holds every component and frequency until it is closed; the raw values are the maps' own
-            passing.add(new Item("writing maps", bytes / Double.BYTES * (WRITE_BYTES_PER_VALUE - Double.BYTES), at, "maps", reduce));
+            // maps.h5 is written at once: the maps averaged onto the nodes and |E| (56 bytes per cell and frequency, the
+            // maps hold 48) are all held until then, and the writer adds its rows in single precision: about twice the maps
+            passing.add(new Item("writing maps", 2 * bytes, at, "maps", reduce));
         }
         if (!spec.probes().isEmpty()) {
-            long steps = Math.max(1024, maxSteps);
-            held.add(new Item("probes", spec.probes().size() * steps * PROBE_BYTES_PER_STEP, spec.probes().get(0).at(), "probes",
-                    "fewer probes or a shorter run"));
+            long probes = spec.probes().size();
+            // room for the steps, doubled from the first room as needed: up to twice the steps
+            long room = PROBE_FIRST_ROOM;
+            while (room < maxSteps && room < Long.MAX_VALUE / 4) {
+                room *= 2;
+            }
+            SourcePosition at = spec.probes().get(0).at();
+            String reduce = "fewer probes or a shorter run";
+            held.add(new Item("probes", saturated(probes, room * PROBE_BYTES_PER_STEP), at, "probes", reduce));
+            // the last doubling holds the old room beside the new
+            passing.add(new Item("growing the probes' room", saturated(probes, room / 2 * PROBE_BYTES_PER_STEP), at, "probes",
+                    reduce));
+            if (spec.output().writes(OutputSpec.Item.PROBES)) {
+                passing.add(new Item("writing probes.csv", saturated(probes, maxSteps * PROBE_WRITE_BYTES_PER_STEP), at,
+                        "probes", reduce));
+            }
         }
         OutputSpec out = spec.output();
         long outCells = boxCells(out.region(), grid, interior);
@@ -172,6 +198,11 @@ public record MemoryEstimate(List<Item> items) {
         all.add(new Item("the program", PROGRAM_BYTES, res, "", ""));
         all.sort(Comparator.comparingLong(Item::bytes).reversed());
         return new MemoryEstimate(List.copyOf(all));
+    }
+
+    /** a × b, or Long.MAX_VALUE when that does not fit a long. */
+    private static long saturated(long a, long b) {
+        return b != 0 && a > Long.MAX_VALUE / b ? Long.MAX_VALUE : a * b;
     }
 
     /** Nodes of a region's box on the grid (clamped to it), or of the interior without a region. */
