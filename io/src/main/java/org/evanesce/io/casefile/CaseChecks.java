@@ -53,6 +53,7 @@ final class CaseChecks {
             memory();
         }
         decayWithContinuousWave();
+        sourcesWithinTheRun();
         if (p.boundaries.size() == Side.values().length) {
             new PlaneWaveChecks(ctx, p, this).run();
         }
@@ -280,6 +281,25 @@ final class CaseChecks {
 
     private static String gib(double bytes) {
         return Units.number(bytes / (1L << 30)) + " GiB";
+    }
+
+    /** A source whose pulse peaks (or whose ramp ends) after the run's end is most likely a mistyped value. */
+    private void sourcesWithinTheRun() {
+        double end = p.stop instanceof StopSpec.AfterTime t ? t.time().si()
+                : p.stop instanceof StopSpec.WhenDecayed d ? d.limit().si() : Double.NaN;
+        if (!(end > 0)) {
+            return;
+        }
+        for (int k = 0; k < p.sources.size(); k++) {
+            SignalSpec s = p.sources.get(k).signal();
+            if (s.peakTime() > end) {
+                ctx.warn(s.at(), p.sourcePaths.get(k) + ".signal", String.format("the %s %s at %s, after the run ends at %s; "
+                        + "the run sees %s of it (%s)", s.kind().replace('_', ' '), s instanceof SignalSpec.RampedWave
+                                ? "reaches full amplitude" : "peaks", Units.format(s.peakTime(), Dimension.TIME),
+                        Units.format(end, Dimension.TIME), s instanceof SignalSpec.RampedWave ? "only the switch-on" : "little",
+                        s instanceof SignalSpec.RampedWave ? "shorten the ramp or run longer" : "widen the bandwidth or run longer"));
+            }
+        }
     }
 
     private void decayWithContinuousWave() {

@@ -168,6 +168,11 @@ final class CaseParser {
         } else if (fr != null) {
             Value f = ctx.positive(fr, "design_frequency", Expect.FREQUENCY);
             designWavelength = f == null ? null : new Value(SignalSpec.SPEED_OF_LIGHT / f.si(), f.at());
+            if (designWavelength != null && Double.isInfinite(designWavelength.si())) {
+                ctx.error(f.at(), "design_frequency", Units.format(f.si(), Dimension.FREQUENCY) + " gives a wavelength too large "
+                        + "for a number; expected an optical frequency");
+                designWavelength = null;
+            }
         } else if (!sources.isEmpty() && sourcesComplete) {
             SignalSpec first = sources.get(0).signal();
             designWavelength = new Value(first.wavelength(), first.frequency().at());

@@ -78,9 +78,24 @@ final class SignalReader {
         }
         if (key.equals("wavelength")) {
             Value wl = ctx.positive(v.get("wavelength"), v.path("wavelength"), Expect.LENGTH);
-            return wl == null ? null : new Value(SignalSpec.SPEED_OF_LIGHT / wl.si(), wl.at());
+            if (wl == null) {
+                return null;
+            }
+            return finiteReciprocal(new Value(SignalSpec.SPEED_OF_LIGHT / wl.si(), wl.at()), v.path("wavelength"), wl.si(),
+                    Dimension.LENGTH);
         }
-        return ctx.positive(v.get("frequency"), v.path("frequency"), Expect.FREQUENCY);
+        Value f = ctx.positive(v.get("frequency"), v.path("frequency"), Expect.FREQUENCY);
+        return f == null ? null : finiteReciprocal(f, v.path("frequency"), f.si(), Dimension.FREQUENCY);
+    }
+
+    /** The frequency, unless it or the wavelength c0/f is too large for a number (an error then, null). */
+    private Value finiteReciprocal(Value f, String path, double given, Dimension kind) {
+        if (!Double.isFinite(f.si()) || !Double.isFinite(SignalSpec.SPEED_OF_LIGHT / f.si())) {
+            ctx.error(f.at(), path, Units.format(given, kind) + " gives a " + (kind == Dimension.LENGTH ? "frequency" : "wavelength")
+                    + " too large for a number; expected an optical " + (kind == Dimension.LENGTH ? "wavelength" : "frequency"));
+            return null;
+        }
+        return f;
     }
 
     /**

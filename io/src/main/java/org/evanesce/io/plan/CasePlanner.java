@@ -290,9 +290,14 @@ public final class CasePlanner {
                 double omega = 2 * Math.PI * wave.orElseThrow().signal().frequency().si();
                 try {
                     eps = DispersionCorrection.permittivity(eps, PlaneWaves.launchedKx(spec), omega, dx, dt);
+                    if (!(eps > 0) || Double.isInfinite(eps)) {
+                        throw new IllegalArgumentException("the corrected relative permittivity " + Units.number(eps)
+                                + " is not a positive number; the grid is too coarse for this material at this angle");
+                    }
                 } catch (IllegalArgumentException e) {
                     error(spec.numerics().dispersionCorrection().map(Located::at).orElse(wave.get().at()),
                             "numerics.dispersion_correction", "material " + m.name() + ": " + e.getMessage());
+                    eps = m.relativePermittivity().si();
                 }
             }
             out.put(m.name(), new Material(m.name(), eps, m.conductivity().si()));

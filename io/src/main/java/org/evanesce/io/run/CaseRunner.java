@@ -46,9 +46,19 @@ public final class CaseRunner {
         }
     }
 
+    /**
+     * A seam for tests: when positive, every run is built with this divergence limit (field magnitude), so that a
+     * test can make a run fail as diverged, which no case the reader accepts does (gain and amplitudes beyond the
+     * fields' range are refused). NaN, the default, leaves the solver's own limit.
+     */
+    public static volatile double divergenceLimitForTests = Double.NaN;
+
     /** Builds the planned simulation; the solver's refusals become {@link RefusedException}s naming the case file. */
     public static Simulation build(CasePlan plan) {
         try {
+            if (divergenceLimitForTests > 0) {
+                plan.builder().divergenceLimit(divergenceLimitForTests);
+            }
             return plan.builder().build();
         } catch (IllegalArgumentException e) {
             throw new RefusedException(plan.spec().source() + ": the solver refused the case: "
