@@ -54,6 +54,7 @@ final class CaseChecks {
         }
         decayWithContinuousWave();
         sourcesWithinTheRun();
+        framesWithinTheRun();
         if (p.boundaries.size() == Side.values().length) {
             new PlaneWaveChecks(ctx, p, this).run();
         }
@@ -283,10 +284,33 @@ final class CaseChecks {
         return Units.number(bytes / (1L << 30)) + " GiB";
     }
 
+    /** The run's end in seconds from a time or a limit; NaN for a number of steps. */
+    private double runEnd() {
+        return p.stop instanceof StopSpec.AfterTime t ? t.time().si()
+                : p.stop instanceof StopSpec.WhenDecayed d ? d.limit().si() : Double.NaN;
+    }
+
+    /** Frames asked for after the run's end are never written; an interval longer than the run gives none. */
+    private void framesWithinTheRun() {
+        double end = runEnd();
+        if (p.output == null || !(end > 0) || !p.output.writes(OutputSpec.Item.FIELD_FRAMES)) {
+            return;
+        }
+        for (int k = 0; k < p.output.frameTimes().size(); k++) {
+            Value t = p.output.frameTimes().get(k);
+            if (t.si() > end) {
+                ctx.warn(t.at(), "output.frame_times[" + k + "]", String.format("%s is after the run ends at %s; no frame is "
+                        + "written for it", Units.format(t.si(), Dimension.TIME), Units.format(end, Dimension.TIME)));
+            }
+        }
+        p.output.frameInterval().filter(i -> i.si() > end).ifPresent(i -> ctx.warn(i.at(), "output.frame_interval",
+                String.format("%s is longer than the run (%s); no frame is written", Units.format(i.si(), Dimension.TIME),
+                        Units.format(end, Dimension.TIME))));
+    }
+
     /** A source whose pulse peaks (or whose ramp ends) after the run's end is most likely a mistyped value. */
     private void sourcesWithinTheRun() {
-        double end = p.stop instanceof StopSpec.AfterTime t ? t.time().si()
-                : p.stop instanceof StopSpec.WhenDecayed d ? d.limit().si() : Double.NaN;
+        double end = runEnd();
         if (!(end > 0)) {
             return;
         }

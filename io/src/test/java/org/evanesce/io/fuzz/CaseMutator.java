@@ -90,7 +90,7 @@ final class CaseMutator {
                 int depth = pickInt(50, 5_000);
                 yield valueOfNumber(text, "abs(".repeat(depth) + "1" + ")".repeat(depth));
             }
-            case PARAMETER_CHAIN -> parameterChain(text, pickInt(100, 5_000, 30_000));
+            case PARAMETER_CHAIN -> parameterChain(text, pickInt(100, 2_000, 10_000));
             case UNKNOWN_KEY -> {
                 int k = line(lines);
                 Matcher m = KEY.matcher(lines.get(k));
