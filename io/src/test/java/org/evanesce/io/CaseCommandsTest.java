@@ -144,11 +144,11 @@ class CaseCommandsTest {
         Path c = write("gain.yaml", GAIN.replace("conductivity: -2e5 S/m", "conductivity: 2e5 S/m"));
         Path out = tmp.resolve("out");
         Cli.Outcome o;
-        org.evanesce.io.run.CaseRunner.divergenceLimitForTests = 1e-30;
+        org.evanesce.io.run.CaseRunner.divergenceLimitForTests = plan -> 1e-30;
         try {
             o = Cli.run("run", c.toString(), "--out", out.toString());
         } finally {
-            org.evanesce.io.run.CaseRunner.divergenceLimitForTests = Double.NaN;
+            org.evanesce.io.run.CaseRunner.divergenceLimitForTests = plan -> Double.NaN;
         }
         assertEquals(Main.RUN_FAILED, o.code(), o::toString);
         assertTrue(o.err().contains("diverged"), o::toString);

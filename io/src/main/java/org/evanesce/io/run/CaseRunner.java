@@ -47,17 +47,18 @@ public final class CaseRunner {
     }
 
     /**
-     * A seam for tests: when positive, every run is built with this divergence limit (field magnitude), so that a
-     * test can make a run fail as diverged, which no case the reader accepts does (gain and amplitudes beyond the
-     * fields' range are refused). NaN, the default, leaves the solver's own limit.
+     * A seam for tests: the divergence limit (field magnitude) to build a plan's run with, or NaN (the default) for
+     * the solver's own, so that a test can make a run fail as diverged, which no case the reader accepts does (gain
+     * and amplitudes beyond the fields' range are refused).
      */
-    public static volatile double divergenceLimitForTests = Double.NaN;
+    public static volatile java.util.function.ToDoubleFunction<CasePlan> divergenceLimitForTests = plan -> Double.NaN;
 
     /** Builds the planned simulation; the solver's refusals become {@link RefusedException}s naming the case file. */
     public static Simulation build(CasePlan plan) {
         try {
-            if (divergenceLimitForTests > 0) {
-                plan.builder().divergenceLimit(divergenceLimitForTests);
+            double limit = divergenceLimitForTests.applyAsDouble(plan);
+            if (limit > 0) {
+                plan.builder().divergenceLimit(limit);
             }
             return plan.builder().build();
         } catch (IllegalArgumentException e) {
