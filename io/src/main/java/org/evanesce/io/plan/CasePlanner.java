@@ -327,12 +327,14 @@ public final class CasePlanner {
         Optional<Value> given = spec.numerics().courant();
         String text = String.format(java.util.Locale.ROOT, "the %sCourant number %s is unstable: material %s (line %d) has a "
                 + "relative permittivity of %s on the grid, below 1, which lowers the limit 1/sqrt(2) to %s; %s",
-                given.isPresent() ? "" : "default ", Units.number(courant), slowest.name(), m == null ? 0 : m.at().line(), Units.number(slowest.relativePermittivity()),
-                Units.number(limit), "give numerics.courant below " + Units.number(limit));
+                given.isPresent() ? "" : "default ", Units.number(courant), slowest.name(), m == null ? 0 : m.at().line(),
+                Units.number(slowest.relativePermittivity()), Units.number(limit), "give numerics.courant below "
+                        + Units.number(limit));
         if (given.isPresent()) {
             error(given.get().at(), "numerics.courant", text);
         } else {
-            error(m != null ? m.at() : spec.resolution().cellSize().at(), m != null ? "materials." + m.name() : "numerics.courant", text);
+            error(m != null ? m.at() : spec.resolution().cellSize().at(), m != null ? "materials." + m.name() : "numerics.courant",
+                    text);
         }
     }
 
