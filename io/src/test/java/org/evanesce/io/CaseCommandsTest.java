@@ -148,13 +148,30 @@ class CaseCommandsTest {
 
     @Test
     void aDivergingRunExits3AndLeavesNoFolder() throws IOException {
-        Path c = write("gain.yaml", GAIN);
+        // gain is refused by the reader now, so the divergence is forced through the runner's seam for tests
+        Path c = write("gain.yaml", GAIN.replace("conductivity: -2e5 S/m", "conductivity: 2e5 S/m"));
         Path out = tmp.resolve("out");
-        Cli.Outcome o = Cli.run("run", c.toString(), "--out", out.toString());
+        Cli.Outcome o;
+        org.evanesce.io.run.CaseRunner.divergenceLimitForTests = plan -> 1e-30;
+        try {
+            o = Cli.run("run", c.toString(), "--out", out.toString());
+        } finally {
+            org.evanesce.io.run.CaseRunner.divergenceLimitForTests = plan -> Double.NaN;
+        }
         assertEquals(Main.RUN_FAILED, o.code(), o::toString);
         assertTrue(o.err().contains("diverged"), o::toString);
         assertFalse(Files.exists(out), "a failed run left its folder");
         assertEquals(List.of("gain.yaml"), names(tmp), "a failed run left files behind");
+    }
+
+    @Test
+    void gainIsRefusedByCheckWithItsPlace() throws IOException {
+        Path c = write("gain.yaml", GAIN);
+        Cli.Outcome o = Cli.run("check", c.toString(), "--trial-seconds", "0");
+        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertTrue(o.err().contains(c + ":6:36: materials.gain.conductivity: a negative conductivity (-200000 S/m) is gain"),
+                o::toString);
+        assertEquals(List.of("gain.yaml"), names(tmp), "a refused check wrote something");
     }
 
     @Test

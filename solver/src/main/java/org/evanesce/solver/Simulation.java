@@ -344,6 +344,19 @@ public final class Simulation implements StepView, AutoCloseable {
         return 0.5 * PhysicalConstants.EPS0 * cellSize * cellSize * engine.energy(i0, j0, i1, j1);
     }
 
+    /**
+     * What a run on an nx × ny grid will allocate for its fields, coefficients and CPML, computed
+     * before anything is allocated: {@code {arrays, pml, buildScratch}} in bytes (see
+     * {@link Engine#footprint}); {@code arrays + pml} is what {@link #bytes()} reports once built,
+     * and the scratch exists only while {@link Builder#build()} runs.
+     *
+     * @param lossy whether any cell has conductivity
+     */
+    public static long[] footprint(int nx, int ny, Polarization polarization, Precision precision, Map<Side, Boundary> sides,
+                                   boolean lossy) {
+        return Engine.footprint(nx, ny, polarization, precision, sides, lossy);
+    }
+
     /** Bytes held by field, coefficient and CPML arrays. */
     public long bytes() {
         return engine.bytes();

@@ -117,6 +117,40 @@ public abstract class Engine {
     }
 
     /**
+     * What a run's engine will allocate, computed without building it, in bytes:
+     * {@code {arrays, pml, buildScratch}}: the field and coefficient arrays over the whole grid (as
+     * counted by {@link #bytes}), the CPML ψ arrays of the strips (x strips widened to whole vectors),
+     * and the double-precision coefficients that exist only while the engine is being built. A
+     * Bloch-periodic grid has two engines (real and imaginary parts) and counts twice.
+     *
+     * @param lossy whether any cell has conductivity (a lossless grid allocates no ca arrays)
+     */
+    public static long[] footprint(int nx, int ny, Polarization pol, Precision precision, Map<Side, Boundary> sides,
+                                   boolean lossy) {
+        long n = (long) nx * ny;
+        int b = precision == Precision.FLOAT ? Float.BYTES : Double.BYTES;
+        int arrays = pol == Polarization.S ? 4 + (lossy ? 1 : 0) : 5 + (lossy ? 2 : 0);
+        long pml = 0;
+        for (Side side : Side.values()) {
+            if (!(sides.get(side) instanceof Boundary.Pml p)) {
+                continue;
+            }
+            int layers = p.parameters().layers();
+            if (side == Side.LEFT || side == Side.RIGHT) {
+                int w = b == Float.BYTES ? FloatKernels.roundUpToLanes(layers) : DoubleKernels.roundUpToLanes(layers);
+                int width = w <= layers || w > nx - 2 ? layers : w;
+                pml += 2L * b * (n / nx * width + (pol == Polarization.S ? 1 : 0));
+            } else {
+                pml += 2L * b * nx * layers;
+            }
+        }
+        int copies = sides.get(Side.LEFT) instanceof Boundary.Bloch ? 2 : 1;
+        // coefficients() gives two double arrays per electric site: Ez in s, Ex and Ey in p
+        long scratch = (pol == Polarization.S ? 2L : 4L) * Double.BYTES * n;
+        return new long[] {copies * arrays * (long) b * n, copies * pml, scratch};
+    }
+
+    /**
      * The electric update coefficients of every cell at one site, in double:
      * {@code out[0][k] = ca = (1 − L)/(1 + L)}, {@code out[1][k] = cb = s/(εr(1 + L))}, L = σΔt/(2ε0εr)
      * (Taflove &amp; Hagness ch. 3, lossy-dielectric form).
