@@ -32,8 +32,8 @@ import org.evanesce.io.casefile.SignalSpec;
 import org.evanesce.io.casefile.SourcePosition;
 import org.evanesce.io.casefile.SourceSpec;
 import org.evanesce.io.casefile.StopSpec;
+import org.evanesce.solver.Courant;
 import org.evanesce.solver.DispersionCorrection;
-import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
@@ -56,8 +56,6 @@ public final class CasePlanner {
 
     /** Steps between energy checks of a run that stops on decay: about one step's cost every 32 steps. */
     static final int DECAY_CHECK_INTERVAL = 32;
-    /** The solver's default Courant number, used when the case gives none. */
-    public static final double DEFAULT_COURANT = 0.5;
 
     private final CaseSpec spec;
     private final List<Diagnostic> errors = new ArrayList<>();
@@ -83,8 +81,8 @@ public final class CasePlanner {
         // periodic sides: the width is one period, so the node at x = +W/2 is the image of the one at −W/2
         boolean periodic = spec.boundary(Side.LEFT) instanceof BoundarySpec.Periodic;
         GridSpec grid = new GridSpec(r.x(0), r.y(0), dx, periodic ? r.nx() - 1 : r.nx(), r.ny());
-        double courant = spec.numerics().courant().map(v -> v.si()).orElse(DEFAULT_COURANT);
-        double dt = courant * dx / PhysicalConstants.C0;
+        double courant = spec.numerics().courant().map(v -> v.si()).orElse(Courant.DEFAULT);
+        double dt = Courant.timeStep(courant, dx);
         Map<String, Material> materials = materials(dx, dt);
         Scene scene = scene(materials);
         Map<Side, Boundary> sides = boundaries(PlaneWaves.kx(spec));

@@ -3,7 +3,6 @@ package org.evanesce.solver.kernel;
 import java.util.EnumMap;
 import java.util.Map;
 import org.evanesce.geometry.FieldSite;
-import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.boundary.PmlProfile;
@@ -91,49 +90,58 @@ public abstract class Engine {
         return l.toArray(new PmlProfile[0]);
     }
 
-    /** Creates the engine for a polarization and precision, with coefficients from the material grid. */
-    public static Engine create(MaterialGrid grid, Polarization pol, Precision precision, double courant, double dt,
-                                Map<Side, Boundary> sides) {
+    /**
+     * Creates the engine for a polarization and precision.
+     *
+     * @param caOfMaterial ca of each material of {@code grid.materials()}, by index
+     * @param cbOfMaterial cb of each material, by index (the facade computes both, with the physical constants)
+     */
+    public static Engine create(MaterialGrid grid, Polarization pol, Precision precision, double courant,
+                                double[] caOfMaterial, double[] cbOfMaterial, Map<Side, Boundary> sides) {
         Map<Side, Boundary> all = new EnumMap<>(sides);
         for (Side s : Side.values()) {
             if (!all.containsKey(s)) {
                 throw new IllegalArgumentException("no boundary given for side " + s);
             }
         }
+        int nm = grid.materials().size();
+        if (caOfMaterial.length != nm || cbOfMaterial.length != nm) {
+            throw new IllegalArgumentException(String.format("%d ca and %d cb values given for %d materials",
+                    caOfMaterial.length, cbOfMaterial.length, nm));
+        }
         if (all.get(Side.LEFT) instanceof Boundary.Bloch b) {
             double phase = b.wavenumber() * grid.nx() * grid.cellSize();
-            return new BlochPair(real(grid, pol, precision, courant, dt, all), real(grid, pol, precision, courant, dt, all),
-                    pol, phase);
+            return new BlochPair(real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, all),
+                    real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, all), pol, phase);
         }
-        return real(grid, pol, precision, courant, dt, all);
+        return real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, all);
     }
 
-    private static Engine real(MaterialGrid grid, Polarization pol, Precision precision, double courant, double dt,
-                               Map<Side, Boundary> all) {
+    private static Engine real(MaterialGrid grid, Polarization pol, Precision precision, double courant, double[] ca,
+                               double[] cb, Map<Side, Boundary> all) {
         return switch (precision) {
-            case FLOAT -> pol == Polarization.S ? new FloatS(grid, courant, dt, all) : new FloatP(grid, courant, dt, all);
-            case DOUBLE -> pol == Polarization.S ? new DoubleS(grid, courant, dt, all) : new DoubleP(grid, courant, dt, all);
+            case FLOAT -> pol == Polarization.S ? new FloatS(grid, courant, ca, cb, all) : new FloatP(grid, courant, ca, cb, all);
+            case DOUBLE -> pol == Polarization.S ? new DoubleS(grid, courant, ca, cb, all) : new DoubleP(grid, courant, ca, cb, all);
+        };
+    }
+
+    /** The material site of an electric component. */
+    static FieldSite site(Component c) {
+        return switch (c) {
+            case EZ -> FieldSite.EZ;
+            case EX -> FieldSite.EX;
+            case EY -> FieldSite.EY;
+            default -> throw new IllegalArgumentException(c + " is not an electric component");
         };
     }
 
     /**
-     * The electric update coefficients of every cell at one site, in double:
-     * {@code out[0][k] = ca = (1 − L)/(1 + L)}, {@code out[1][k] = cb = s/(εr(1 + L))}, L = σΔt/(2ε0εr)
-     * (Taflove &amp; Hagness ch. 3, lossy-dielectric form).
+     * The electric update coefficients of every cell at one site, in double, from those of each
+     * material: {@code out[0][k] = ca}, {@code out[1][k] = cb} of the material at cell k.
      */
-    static double[][] coefficients(MaterialGrid grid, FieldSite site, double courant, double dt) {
-        final double eps0 = 8.8541878128e-12; // = PhysicalConstants.EPS0; kernel does not depend on the facade package
+    static double[][] coefficients(MaterialGrid grid, FieldSite site, double[] caOf, double[] cbOf) {
         int nx = grid.nx();
         int ny = grid.ny();
-        int nm = grid.materials().size();
-        double[] caOf = new double[nm];
-        double[] cbOf = new double[nm];
-        for (int m = 0; m < nm; m++) {
-            Material mat = grid.materials().get(m);
-            double l = mat.conductivity() * dt / (2 * eps0 * mat.relativePermittivity());
-            caOf[m] = (1 - l) / (1 + l);
-            cbOf[m] = courant / (mat.relativePermittivity() * (1 + l));
-        }
         double[][] out = new double[2][nx * ny];
         for (int j = 0; j < ny; j++) {
             for (int i = 0; i < nx; i++) {
@@ -143,6 +151,100 @@ public abstract class Engine {
             }
         }
         return out;
+    }
+
+    /**
+     * The lengths of the arrays one real engine allocates, decided here once for the engines'
+     * constructors and for {@link #predictBytes}.
+     * <ul>
+     * <li>Field and coefficient arrays: nx·ny values padded to {@link #staggeredLength}; three fields,
+     * one cb per electric component, one ca per electric component of a site with conductivity.</li>
+     * <li>x-side CPML strips: widened to a whole number of vectors ({@link #xStripWidth}); ψ of
+     * {@link #xPsiLength} values for each of the two corrected components.</li>
+     * <li>y-side CPML strips: ψ of nx·layers values for each of the two components.</li>
+     * <li>Every strip: six coefficient arrays of width + 1 values (see {@link PmlProfile}).</li>
+     * </ul>
+     *
+     * @param valueBytes bytes of one value (4 or 8)
+     * @param lanes      values per vector of the kernels in this precision
+     */
+    record Layout(int nx, int ny, Polarization pol, int valueBytes, int lanes) {
+
+        /** Length of every field and coefficient array. */
+        int length() {
+            return staggeredLength(nx * ny, valueBytes);
+        }
+
+        Component[] electric() {
+            return pol == Polarization.S ? new Component[] {Component.EZ} : new Component[] {Component.EX, Component.EY};
+        }
+
+        Component[] magnetic() {
+            return pol == Polarization.S ? new Component[] {Component.HX, Component.HY} : new Component[] {Component.HZ};
+        }
+
+        /** Width of an x-side strip of {@code layers} cells: whole vectors where that fits inside the walls. */
+        int xStripWidth(int layers) {
+            return PmlProfile.paddedWidth(layers, (layers + lanes - 1) / lanes * lanes, nx);
+        }
+
+        /**
+         * ψ values of an x-side strip of that width, per component: one per cell of every row, and
+         * in s polarization one spare: a padded left strip's electric range [1, width] ends one past
+         * its row's ψ (in the next row's local 0, which no electric update uses), also in the last
+         * row. In p the electric x strip (Ey) stops at row ny − 2, so no spare is needed.
+         */
+        int xPsiLength(int width) {
+            return ny * width + (pol == Polarization.S ? 1 : 0);
+        }
+
+        /** ψ values of a y-side strip of {@code layers} rows, per component. */
+        int yPsiLength(int layers) {
+            return nx * layers;
+        }
+
+        /** Values of all arrays: fields, coefficients (ca for every electric site when lossy) and strips. */
+        long values(boolean lossy, Map<Side, Boundary> sides) {
+            long v = (long) length() * (3 + electric().length * (lossy ? 2 : 1));
+            for (Side side : Side.values()) {
+                if (sides.get(side) instanceof Boundary.Pml p) {
+                    int layers = p.parameters().layers();
+                    boolean x = side == Side.LEFT || side == Side.RIGHT;
+                    int w = x ? xStripWidth(layers) : layers;
+                    v += 6L * (w + 1) + 2L * (x ? xPsiLength(w) : yPsiLength(layers));
+                }
+            }
+            return v;
+        }
+    }
+
+    /**
+     * The bytes {@link #bytes()} will report for an engine of these settings, without allocating
+     * it: fields, coefficients, CPML strips and, with Bloch-periodic sides, both parts and their seam
+     * values. {@code lossy} means every electric site has a cell with conductivity (ca arrays kept);
+     * a p grid with conductivity at only one of its two sites needs one ca array less.
+     */
+    public static long predictBytes(int nx, int ny, Polarization pol, Precision precision, boolean lossy,
+                                    Map<Side, Boundary> sides) {
+        Layout l = new Layout(nx, ny, pol, precision.bytes, lanes(precision));
+        long bytes = l.values(lossy, sides) * precision.bytes;
+        return sides.get(Side.LEFT) instanceof Boundary.Bloch ? 2 * (bytes + 2L * ny * Double.BYTES) : bytes;
+    }
+
+    /** The bytes per cell {@link #bytesPerCell()} will report (the arrays spanning the whole grid); as {@link #predictBytes}. */
+    public static int predictBytesPerCell(Polarization pol, Precision precision, boolean lossy, boolean blochX) {
+        Layout l = new Layout(1, 1, pol, precision.bytes, lanes(precision));
+        int perPart = (3 + l.electric().length * (lossy ? 2 : 1)) * precision.bytes;
+        return blochX ? 2 * perPart : perPart;
+    }
+
+    private static int lanes(Precision precision) {
+        return precision == Precision.FLOAT ? FloatKernels.SP.length() : DoubleKernels.SP.length();
+    }
+
+    /** Bytes of the Bloch seam values ({@link #ghostE}, {@link #ghostW}). */
+    final long seamBytes() {
+        return (long) Double.BYTES * (ghostE.length + ghostW.length);
     }
 
     /**
@@ -421,7 +523,10 @@ public abstract class Engine {
      */
     public abstract double energy(int i0, int j0, int i1, int j1);
 
-    /** Bytes of field, coefficient and auxiliary arrays held. */
+    /**
+     * Bytes of the arrays held: fields, coefficients, CPML strips (ψ and coefficients) and the Bloch
+     * seam values; {@link #predictBytes} gives the same figure without allocating.
+     */
     public abstract long bytes();
 
     /** Writes the fields and the PML auxiliaries (everything a step changes) for a checkpoint. */
