@@ -320,6 +320,15 @@ public final class Simulation implements StepView, AutoCloseable {
         return precision;
     }
 
+    /**
+     * Whether the update ever changes component c at node (i, j) of an nx × ny grid with these
+     * sides: false outside the grid, on PEC walls, and on the ghost sites beyond the last node.
+     * Sources must sit where this is true ({@link Builder#build} refuses others).
+     */
+    public static boolean isUpdated(Map<Side, Boundary> sides, int nx, int ny, Component c, int i, int j) {
+        return Engine.wouldUpdate(sides, nx, ny, c, i, j);
+    }
+
     /** Width in bits of the vectors the update kernels use on this JVM. */
     public static int kernelVectorBits() {
         return Engine.vectorBits();

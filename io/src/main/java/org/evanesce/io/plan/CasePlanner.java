@@ -38,7 +38,6 @@ import org.evanesce.solver.Simulation;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Side;
-import org.evanesce.solver.kernel.Engine;
 import org.evanesce.solver.monitor.Probe;
 import org.evanesce.solver.source.CarrierSignal;
 import org.evanesce.solver.source.GaussianBeam;
@@ -334,7 +333,7 @@ public final class CasePlanner {
         if (s instanceof SourceSpec.PlaneWave w) {
             Component c = w.component().value();
             int j = nearest(w.y().si(), g.y0(), dx, c.dy);
-            if (!Engine.wouldUpdate(sides, g.nx(), g.ny(), c, 0, j)) {
+            if (!Simulation.isUpdated(sides, g.nx(), g.ny(), c, 0, j)) {
                 error(w.at(), path + ".y", String.format("the nearest %s row, %d, is on a wall or outside the grid; expected a "
                         + "height inside the domain's walls", c, j));
                 return null;
@@ -345,7 +344,7 @@ public final class CasePlanner {
                 Component c = p.component().value();
                 int i = nearest(p.location().x().si(), g.x0(), dx, c.dx);
                 int j = nearest(p.location().y().si(), g.y0(), dx, c.dy);
-                if (!Engine.wouldUpdate(sides, g.nx(), g.ny(), c, i, j)) {
+                if (!Simulation.isUpdated(sides, g.nx(), g.ny(), c, i, j)) {
                     error(p.at(), path + ".at", String.format("the nearest %s site, node (%d, %d), is on a wall or outside "
                             + "the grid; expected a point inside the domain's walls", c, i, j));
                     return null;
@@ -377,7 +376,7 @@ public final class CasePlanner {
                 for (int j = ja; j <= jb; j++) {
                     for (int i = ia; i <= ib; i++) {
                         // cells that fall on a wall are left out: a line may run from wall to wall
-                        if (Engine.wouldUpdate(sides, g.nx(), g.ny(), c, i, j)) {
+                        if (Simulation.isUpdated(sides, g.nx(), g.ny(), c, i, j)) {
                             cells.add(j * g.nx() + i);
                         }
                     }
