@@ -27,35 +27,38 @@ abstract class FloatEngine extends Engine {
     /** CPML strips on the x sides (widened to whole vectors) and the y sides, as {@link Engine.Layout} says. */
     final FloatStrip[] xs, ys;
 
-    FloatEngine(MaterialGrid grid, Polarization pol, double courant, double[] caOfMaterial, double[] cbOfMaterial,
-                Map<Side, Boundary> sides) {
+    /** Arrays for grid's cells with ca and cb of each of its materials (see {@link Engine#create}). */
+    FloatEngine(MaterialGrid grid, Polarization pol, double courant, double[] materialCa, double[] materialCb,
+            Map<Side, Boundary> sides) {
         super(grid.nx(), grid.ny(), courant, sides);
         this.pol = pol;
         s = (float) courant;
         Layout layout = new Layout(nx, ny, pol, Float.BYTES, FloatKernels.SP.length());
         Component[] comps = pol.components();
+        Component[] el = layout.electric();
         int nc = Component.values().length;
         field = new float[nc][];
         cbOf = new float[nc][];
         caOf = new float[nc][];
         double[][][] c = new double[nc][][];
-        for (Component e : layout.electric()) {
-            c[e.ordinal()] = coefficients(grid, site(e), caOfMaterial, cbOfMaterial);
+        for (Component e : el) {
+            c[e.ordinal()] = coefficients(grid, site(e), materialCa, materialCb);
         }
-        // allocated one after the other with staggered lengths (see Engine.staggeredLength):
-        // the fields, then cb, then ca, each in the polarization's order
+        int len = layout.length();
+        // allocated one after the other with staggered lengths (see Engine.staggeredLength), with
+        // nothing else allocated between them: the fields, then cb, then ca, each in the polarization's order
         for (Component q : comps) {
-            field[q.ordinal()] = new float[layout.length()];
+            field[q.ordinal()] = new float[len];
         }
-        for (Component e : layout.electric()) {
-            cbOf[e.ordinal()] = toFloat(c[e.ordinal()][1], layout.length());
+        for (Component e : el) {
+            cbOf[e.ordinal()] = toFloat(c[e.ordinal()][1], len);
         }
-        for (Component e : layout.electric()) {
-            caOf[e.ordinal()] = Engine.allOnes(c[e.ordinal()][0]) ? null : toFloat(c[e.ordinal()][0], layout.length());
+        for (Component e : el) {
+            caOf[e.ordinal()] = Engine.allOnes(c[e.ordinal()][0]) ? null : toFloat(c[e.ordinal()][0], len);
         }
         fields = arrays(comps);
         magnetic = arrays(layout.magnetic());
-        electric = arrays(layout.electric());
+        electric = arrays(el);
         xs = new FloatStrip[xProfiles.length];
         for (int q = 0; q < xs.length; q++) {
             PmlProfile p = xProfiles[q].padded(layout.xStripWidth(xProfiles[q].layers), nx);
