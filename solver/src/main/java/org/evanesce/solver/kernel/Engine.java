@@ -175,12 +175,14 @@ public abstract class Engine {
             return staggeredLength(nx * ny, valueBytes);
         }
 
+        /** The polarization's electric components, in {@link Polarization#components()} order. */
         Component[] electric() {
-            return pol == Polarization.S ? new Component[] {Component.EZ} : new Component[] {Component.EX, Component.EY};
+            return java.util.Arrays.stream(pol.components()).filter(c -> c.electric).toArray(Component[]::new);
         }
 
+        /** The polarization's magnetic components, in {@link Polarization#components()} order. */
         Component[] magnetic() {
-            return pol == Polarization.S ? new Component[] {Component.HX, Component.HY} : new Component[] {Component.HZ};
+            return java.util.Arrays.stream(pol.components()).filter(c -> !c.electric).toArray(Component[]::new);
         }
 
         /** Width of an x-side strip of {@code layers} cells: whole vectors where that fits inside the walls. */
