@@ -118,6 +118,7 @@ class NaiveReferenceTest {
         double dt = Courant.timeStep(S, DX);
         // a phase of 2.3 rad across the period
         double kx = bloch ? 2.3 / (nx * DX) : Double.NaN;
+        // the grading Boundary.pml(layers) uses (its layer count is PlainYee's to apply)
         PmlParameters grading = PmlParameters.defaults(1);
         PlainYee ref = new PlainYee(grid, pol, S, dt, PML, grading, kx);
         // Ez or Hz: a pulse of the z component leaves no static charge behind, so the field decays into the layers
