@@ -12,7 +12,7 @@ import org.evanesce.solver.grid.Side;
  * What the single-precision engines share: the three field arrays of a polarization, the
  * electric coefficients, the CPML strips, and everything that only looks values up (get and set,
  * sources, the flush, bytes, checkpoint state). {@link DoubleS} and {@link DoubleP} hold only what
- * differs: the order of the updates and the energy. Arrays are laid out as {@link Engine.Layout} says.
+ * differs: the order of the updates and the energy. Arrays are laid out as {@link Layout} says.
  * Generated from {@link FloatEngine} by tools/regen-double-kernels.sh: edit that file, not this one.
  */
 abstract class DoubleEngine extends Engine {
@@ -24,7 +24,7 @@ abstract class DoubleEngine extends Engine {
     /** The polarization's fields in {@link Polarization#components()} order; its magnetic and electric ones. */
     private final double[][] fields, magnetic, electric;
     private final Polarization pol;
-    /** CPML strips on the x sides (widened to whole vectors) and the y sides, as {@link Engine.Layout} says. */
+    /** CPML strips on the x sides (widened to whole vectors) and the y sides, as {@link Layout} says. */
     final DoubleStrip[] xs, ys;
 
     /** Arrays for grid's cells with ca and cb of each of its materials (see {@link Engine#create}). */

@@ -154,73 +154,6 @@ public abstract class Engine {
     }
 
     /**
-     * The lengths of the arrays one real engine allocates, decided here once for the engines'
-     * constructors and for {@link #predictBytes}.
-     * <ul>
-     * <li>Field and coefficient arrays: nx·ny values padded to {@link #staggeredLength}; three fields,
-     * one cb per electric component, one ca per electric component of a site with conductivity.</li>
-     * <li>x-side CPML strips: widened to a whole number of vectors ({@link #xStripWidth}); ψ of
-     * {@link #xPsiLength} values for each of the two corrected components.</li>
-     * <li>y-side CPML strips: ψ of nx·layers values for each of the two components.</li>
-     * <li>Every strip: six coefficient arrays of width + 1 values (see {@link PmlProfile}).</li>
-     * </ul>
-     *
-     * @param valueBytes bytes of one value (4 or 8)
-     * @param lanes      values per vector of the kernels in this precision
-     */
-    record Layout(int nx, int ny, Polarization pol, int valueBytes, int lanes) {
-
-        /** Length of every field and coefficient array. */
-        int length() {
-            return staggeredLength(nx * ny, valueBytes);
-        }
-
-        /** The polarization's electric components, in {@link Polarization#components()} order. */
-        Component[] electric() {
-            return java.util.Arrays.stream(pol.components()).filter(c -> c.electric).toArray(Component[]::new);
-        }
-
-        /** The polarization's magnetic components, in {@link Polarization#components()} order. */
-        Component[] magnetic() {
-            return java.util.Arrays.stream(pol.components()).filter(c -> !c.electric).toArray(Component[]::new);
-        }
-
-        /** Width of an x-side strip of {@code layers} cells: whole vectors where that fits inside the walls. */
-        int xStripWidth(int layers) {
-            return PmlProfile.paddedWidth(layers, (layers + lanes - 1) / lanes * lanes, nx);
-        }
-
-        /**
-         * ψ values of an x-side strip of that width, per component: one per cell of every row, and
-         * in s polarization one spare: a padded left strip's electric range [1, width] ends one past
-         * its row's ψ (in the next row's local 0, which no electric update uses), also in the last
-         * row. In p the electric x strip (Ey) stops at row ny − 2, so no spare is needed.
-         */
-        int xPsiLength(int width) {
-            return ny * width + (pol == Polarization.S ? 1 : 0);
-        }
-
-        /** ψ values of a y-side strip of {@code layers} rows, per component. */
-        int yPsiLength(int layers) {
-            return nx * layers;
-        }
-
-        /** Values of all arrays: fields, coefficients (ca for every electric site when lossy) and strips. */
-        long values(boolean lossy, Map<Side, Boundary> sides) {
-            long v = (long) length() * (3 + electric().length * (lossy ? 2 : 1));
-            for (Side side : Side.values()) {
-                if (sides.get(side) instanceof Boundary.Pml p) {
-                    int layers = p.parameters().layers();
-                    boolean x = side == Side.LEFT || side == Side.RIGHT;
-                    int w = x ? xStripWidth(layers) : layers;
-                    v += 6L * (w + 1) + 2L * (x ? xPsiLength(w) : yPsiLength(layers));
-                }
-            }
-            return v;
-        }
-    }
-
-    /**
      * The bytes {@link #bytes()} will report for an engine of these settings, without allocating
      * it: fields, coefficients, CPML strips and, with Bloch-periodic sides, both parts and their seam
      * values. {@code lossy} means every electric site has a cell with conductivity (ca arrays kept);
@@ -228,20 +161,12 @@ public abstract class Engine {
      */
     public static long predictBytes(int nx, int ny, Polarization pol, Precision precision, boolean lossy,
                                     Map<Side, Boundary> sides) {
-        Layout l = new Layout(nx, ny, pol, precision.bytes, lanes(precision));
-        long bytes = l.values(lossy, sides) * precision.bytes;
-        return sides.get(Side.LEFT) instanceof Boundary.Bloch ? 2 * (bytes + 2L * ny * Double.BYTES) : bytes;
+        return Layout.of(nx, ny, pol, precision).bytes(lossy, sides);
     }
 
     /** The bytes per cell {@link #bytesPerCell()} will report (the arrays spanning the whole grid); as {@link #predictBytes}. */
     public static int predictBytesPerCell(Polarization pol, Precision precision, boolean lossy, boolean blochX) {
-        Layout l = new Layout(1, 1, pol, precision.bytes, lanes(precision));
-        int perPart = (3 + l.electric().length * (lossy ? 2 : 1)) * precision.bytes;
-        return blochX ? 2 * perPart : perPart;
-    }
-
-    private static int lanes(Precision precision) {
-        return precision == Precision.FLOAT ? FloatKernels.SP.length() : DoubleKernels.SP.length();
+        return Layout.of(1, 1, pol, precision).bytesPerCell(lossy, blochX);
     }
 
     /** Bytes of the Bloch seam values ({@link #ghostE}, {@link #ghostW}). */

@@ -12,7 +12,7 @@ import org.evanesce.solver.grid.Side;
  * What the single-precision engines share: the three field arrays of a polarization, the
  * electric coefficients, the CPML strips, and everything that only looks values up (get and set,
  * sources, the flush, bytes, checkpoint state). {@link FloatS} and {@link FloatP} hold only what
- * differs: the order of the updates and the energy. Arrays are laid out as {@link Engine.Layout} says.
+ * differs: the order of the updates and the energy. Arrays are laid out as {@link Layout} says.
  * Edit this file; {@link DoubleEngine} is generated from it (tools/regen-double-kernels.sh).
  */
 abstract class FloatEngine extends Engine {
@@ -24,7 +24,7 @@ abstract class FloatEngine extends Engine {
     /** The polarization's fields in {@link Polarization#components()} order; its magnetic and electric ones. */
     private final float[][] fields, magnetic, electric;
     private final Polarization pol;
-    /** CPML strips on the x sides (widened to whole vectors) and the y sides, as {@link Engine.Layout} says. */
+    /** CPML strips on the x sides (widened to whole vectors) and the y sides, as {@link Layout} says. */
     final FloatStrip[] xs, ys;
 
     /** Arrays for grid's cells with ca and cb of each of its materials (see {@link Engine#create}). */
