@@ -110,10 +110,18 @@ class CaseCommandsTest {
         assertEquals("keep me", Files.readString(out.resolve("my-notes.txt")));
         assertEquals(List.of("out", "tiny.yaml"), names(tmp), "leftovers of the refused run");
 
+        // issue 13: --force replaces only a folder holding nothing but what evanesce wrote
+        Cli.Outcome refused = Cli.run("run", c.toString(), "--out", out.toString(), "--set", "wl=800 nm", "--force");
+        assertEquals(Main.USAGE, refused.code(), refused::toString);
+        assertTrue(refused.err().contains("my-notes.txt") && refused.err().contains(out.toString()), refused::toString);
+        assertEquals("keep me", Files.readString(out.resolve("my-notes.txt")));
+        assertEquals(record, Files.readString(out.resolve("run.json")), "run.json changed by a refused --force");
+        assertEquals(List.of("out", "tiny.yaml"), names(tmp), "leftovers of the refused run");
+
+        Files.delete(out.resolve("my-notes.txt"));
         Cli.Outcome forced = Cli.run("run", c.toString(), "--out", out.toString(), "--set", "wl=800 nm", "--force");
         assertEquals(Main.OK, forced.code(), forced::toString);
         assertTrue(Files.readString(out.resolve("run.json")).contains("800 nm"), "--force did not replace run.json");
-        assertFalse(Files.exists(out.resolve("my-notes.txt")), "--force replaces the whole folder");
         assertEquals(List.of("out", "tiny.yaml"), names(tmp), "leftovers of the replaced run");
     }
 

@@ -38,6 +38,30 @@ final class OutputReader {
     }
 
     /**
+     * Why {@code folder} cannot name a results folder, or null: it must name a folder of its own, not
+     * the case file's folder or one above it (the results folder is replaced as a whole with --force).
+     */
+    static String folderProblem(String folder) {
+        if (folder.isBlank()) {
+            return "'" + folder + "' names the case file's own folder; expected a folder of its own for the results, e.g. results";
+        }
+        if (folder.indexOf('\0') >= 0 || folder.chars().anyMatch(c -> c < 0x20)) {
+            return "contains a control character (a line break, a tab, ...); expected a plain folder name";
+        }
+        java.nio.file.Path p;
+        try {
+            p = java.nio.file.Path.of(folder).normalize();
+        } catch (java.nio.file.InvalidPathException e) {
+            return "'" + folder + "' is not a path this system accepts (" + e.getReason() + ")";
+        }
+        if (!p.isAbsolute() && (p.toString().isEmpty() || p.getFileName().toString().equals(".."))) {
+            return "'" + folder + "' names the case file's own folder or one above it; expected a folder of its own for the "
+                    + "results, e.g. results or ../results";
+        }
+        return null;
+    }
+
+    /**
      * @param hasProbes    whether the case defines probes (for the warning on an empty probes output)
      * @param polarization the case's, or null when unreadable
      * @return the section, or null when wrong (errors reported)
@@ -52,6 +76,11 @@ final class OutputReader {
         boolean ok = true;
         if (fn != null) {
             String f = ctx.text(fn, v.path("folder"));
+            String wrong = f == null ? null : folderProblem(f);
+            if (wrong != null) {
+                ctx.error(ctx.pos(fn), v.path("folder"), wrong);
+                f = null;
+            }
             ok &= f != null;
             folder = f == null ? Optional.empty() : Optional.of(new Located<>(f, ctx.pos(fn)));
         }

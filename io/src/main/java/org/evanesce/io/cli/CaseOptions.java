@@ -84,7 +84,9 @@ final class CaseOptions {
             err.println(d);
         }
         try {
-            CasePlan plan = CasePlanner.plan(loaded.spec(), threads);
+            Integer asked = threads != null ? threads : loaded.spec().numerics().threads().map(t -> t.value()).orElse(null);
+            Integer use = ThreadLimit.current().apply(asked, err::println, Runtime.getRuntime().availableProcessors());
+            CasePlan plan = CasePlanner.plan(loaded.spec(), use);
             return new Loaded(loaded, plan, sha256(caseFile));
         } catch (PlanException e) {
             for (Diagnostic d : e.diagnostics()) {

@@ -29,6 +29,11 @@ public record CasePlan(CaseSpec spec, GridSpec grid, MaterialGrid materials, Sim
                        java.util.Optional<FluxPlan> flux, java.util.Map<String, Double> gridPermittivity,
                        FieldPlan fields) {
 
+    /** Whether a source drives a continuous (ramped) wave, which never decays. */
+    public boolean continuous() {
+        return spec.sources().stream().anyMatch(s -> s.signal() instanceof org.evanesce.io.casefile.SignalSpec.RampedWave);
+    }
+
     /** A probe with the name the case gave it and the node it samples. */
     public record NamedProbe(String name, Probe probe, int i, int j) { }
 

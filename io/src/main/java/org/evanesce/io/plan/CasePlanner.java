@@ -207,14 +207,23 @@ public final class CasePlanner {
                 double[] f = m.frequencies().stream().mapToDouble(v -> v.si()).toArray();
                 org.evanesce.solver.monitor.FieldMap fm = new org.evanesce.solver.monitor.FieldMap(spec.polarization().value(),
                         mbox[0], mbox[1], mbox[2], mbox[3], f);
-                // a continuous wave's maps: whole periods after the fields settle, as its flux
+                // a continuous wave's maps: whole periods after the fields settle, as its flux, checked on the
+                // region's middle row; with several sources there is no one period to window (flagged after the run)
                 var ramped = spec.sources().stream().map(x -> x.signal())
                         .filter(x -> x instanceof org.evanesce.io.casefile.SignalSpec.RampedWave).findFirst();
+                Optional<SteadyState> steady = Optional.empty();
+                List<org.evanesce.solver.monitor.FluxLine> monitor = List.of();
                 if (ramped.isPresent() && spec.sources().size() == 1) {
-                    double[] w = FluxPlanner.continuousWindow(spec, g,
+                    SteadyState w = FluxPlanner.continuousWindow(spec, g,
                             (org.evanesce.io.casefile.SignalSpec.RampedWave) ramped.get(), stop.maxSteps() * dt, errors);
                     if (w != null) {
-                        fm.window(w[0], w[1]);
+                        fm.window(w.start(), w.end() + 1e-6 * w.period());
+                        steady = Optional.of(w);
+                        var middle = new org.evanesce.solver.monitor.FluxLine(spec.polarization().value(),
+                                (mbox[1] + mbox[3] - 1) / 2, mbox[0], mbox[2], f);
+                        monitor = List.of(w.halfLine(middle, 0, f, spec.polarization().value()),
+                                w.halfLine(middle, 1, f, spec.polarization().value()));
+                        monitor.forEach(run::listener);
                     }
                 }
                 run.listener(fm);
@@ -229,7 +238,7 @@ public final class CasePlanner {
                         }
                     }
                 }
-                maps = Optional.of(new FieldPlan.Maps(m, fm, mbox));
+                maps = Optional.of(new FieldPlan.Maps(m, fm, mbox, steady, monitor, ramped.isPresent() && steady.isEmpty()));
             }
         }
         return new FieldPlan(box == null ? interior : box, comps, frames, maps);

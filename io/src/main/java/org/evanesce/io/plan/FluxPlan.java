@@ -33,11 +33,28 @@ import org.evanesce.solver.reference.PlanarStack;
  * @param gridX0         x of node column 0, m
  * @param indexAt        the case's refractive index at (x, y), m (the real part, as the grid has it before any
  *                       dispersion correction)
+ * @param steady         for a continuous wave: its window and the lines that transform the window's two halves
  */
 public record FluxPlan(double[] frequencies, double kx, String medium, double mediumIndex, int direction, List<Line> lines,
                        FluxLine incident, double incidentY, Simulation.Builder reference, double cellSize,
                        Optional<Exact> exact, Optional<SourceSpec.GaussianBeamSource> beam, double gridX0,
-                       java.util.function.DoubleBinaryOperator indexAt) {
+                       java.util.function.DoubleBinaryOperator indexAt, Optional<Steady> steady) {
+
+    /**
+     * The steady-state check of a continuous wave (see {@link SteadyState}).
+     *
+     * @param window    the transform window
+     * @param run       per case line (in order), its early and late halves in the case's run
+     * @param reference the same in the reference run
+     * @param incident  the incident line's early and late halves (reference run)
+     */
+    public record Steady(SteadyState window, List<FluxLine[]> run, List<FluxLine[]> reference, FluxLine[] incident) {
+        public Steady {
+            run = List.copyOf(run);
+            reference = List.copyOf(reference);
+            incident = incident.clone();
+        }
+    }
 
     /**
      * The exact reference.

@@ -67,13 +67,14 @@ class SweepRunTest {
             for (String line : flux.subList(1, flux.size())) {
                 String lead = String.format("%d,%s,%s,%s,%s,", p, set.get("gap"), p < 2 ? "1.000000000000e-07" : "2.000000000000e-07",
                         set.get("theta"), p % 2 == 0 ? "7.853981633974e-01" : "8.726646259972e-01");
-                assertEquals(lead + line, rows.get(row), "point " + p + " against evanesce run --set gap=" + set.get("gap")
+                // the run settled (its run.json says so), the last column
+                assertEquals(lead + line + ",true", rows.get(row), "point " + p + " against evanesce run --set gap=" + set.get("gap")
                         + " --set theta=" + set.get("theta"));
                 row++;
             }
         }
         assertEquals(row, rows.size(), "one row per point and wavelength");
-        assertEquals("point,gap,gap_si,theta,theta_si," + fluxHeader, rows.get(0));
+        assertEquals("point,gap,gap_si,theta,theta_si," + fluxHeader + ",settled", rows.get(0));
         assertEquals(List.of(), SweepCases.hidden(two), "no temporaries are left");
         for (int p = 0; p < 4; p++) {
             Path pf = two.resolve(String.format("point-%04d", p));
@@ -154,10 +155,11 @@ class SweepRunTest {
                 """);
         Path out = sweep(c, "out");
         List<String> rows = Files.readAllLines(out.resolve("sweep.csv"));
-        assertEquals("point,wl,wl_si,steps,wall_time_s,stop_reason", rows.get(0));
+        assertEquals("point,wl,wl_si,steps,wall_time_s,stop_reason,settled", rows.get(0));
         assertEquals(3, rows.size());
-        assertTrue(rows.get(1).matches("0,600 nm,6\\.000000000000e-07,40,[0-9.]+,ran the requested 40 steps"), rows.get(1));
-        assertTrue(rows.get(2).matches("1,\"max\\(633 nm, 640 nm\\)\",6\\.400000000000e-07,40,[0-9.]+,ran the requested 40 steps"),
+        // a fixed-length run without flux or maps is not judged: settled is empty
+        assertTrue(rows.get(1).matches("0,600 nm,6\\.000000000000e-07,40,[0-9.]+,ran the requested 40 steps,"), rows.get(1));
+        assertTrue(rows.get(2).matches("1,\"max\\(633 nm, 640 nm\\)\",6\\.400000000000e-07,40,[0-9.]+,ran the requested 40 steps,"),
                 rows.get(2));
         assertFalse(Files.exists(out.resolve("sweep.png")), "nothing to plot");
     }

@@ -34,6 +34,8 @@ public final class FluxLine implements StatefulListener {
     /** Only field samples at times in [windowStart, windowEnd) are transformed. */
     private double windowStart = Double.NEGATIVE_INFINITY;
     private double windowEnd = Double.POSITIVE_INFINITY;
+    /** Samples transformed so far: electric, magnetic. */
+    private long eSamples, hSamples;
 
     /**
      * @param pol         the run's polarization
@@ -91,6 +93,8 @@ public final class FluxLine implements StatefulListener {
         if (!eIn && !hIn) {
             return;
         }
+        eSamples += eIn ? 1 : 0;
+        hSamples += hIn ? 1 : 0;
         // read the line once per step, then accumulate every frequency from the copies
         for (int i = i0; i < i1; i++) {
             int k = i - i0;
@@ -163,6 +167,20 @@ public final class FluxLine implements StatefulListener {
         return e;
     }
 
+    /**
+     * The number of electric and of magnetic samples transformed so far: a window of whole periods holds
+     * a whole number of time steps only by chance, so two windows of equal length may differ by a sample,
+     * which scales their transforms by that sample's weight.
+     */
+    public long[] samples() {
+        return new long[] {eSamples, hSamples};
+    }
+
+    /** The number of frequencies transformed. */
+    public int frequencyCount() {
+        return omega.length;
+    }
+
     /** Frequency number q, Hz. */
     public double frequency(int q) {
         return omega[q] / (2 * Math.PI);
@@ -207,6 +225,8 @@ public final class FluxLine implements StatefulListener {
 
     @Override
     public void writeState(java.io.DataOutput out) throws java.io.IOException {
+        out.writeLong(eSamples);
+        out.writeLong(hSamples);
         for (double[][] a : new double[][][] {eRe, eIm, hRe, hIm}) {
             out.writeInt(a.length);
             for (double[] row : a) {
@@ -217,6 +237,8 @@ public final class FluxLine implements StatefulListener {
 
     @Override
     public void readState(java.io.DataInput in) throws java.io.IOException {
+        eSamples = in.readLong();
+        hSamples = in.readLong();
         for (double[][] a : new double[][][] {eRe, eIm, hRe, hIm}) {
             if (in.readInt() != a.length) {
                 throw new java.io.IOException("checkpoint's flux line has another number of frequencies");
