@@ -174,6 +174,29 @@ class CaseCommandsTest {
         assertEquals(List.of("gain.yaml"), names(tmp), "a refused check wrote something");
     }
 
+    /**
+     * A map region one cell wide holds two nodes across: the maps' grid needs three along each axis, so
+     * check refuses it at the region's line (a run used to fail after stepping, exit 1, results lost).
+     */
+    @Test
+    void aMapRegionTooNarrowForAGridIsRefusedByCheck() throws IOException {
+        Path c = write("narrow.yaml", TINY.replace("stop: {steps: 40}", """
+                maps:
+                  wavelengths: wl
+                  region: {from: [0, -0.5 um], to: [40 nm, 0.5 um]}
+                stop: {steps: 40}
+                """));
+        for (String[] args : new String[][] {
+            {"check", c.toString(), "--trial-seconds", "0", "--preview", tmp.resolve("p.png").toString()},
+            {"run", c.toString(), "--out", tmp.resolve("out").toString()}}) {
+            Cli.Outcome o = Cli.run(args);
+            assertEquals(Main.USAGE, o.code(), o::toString);
+            assertTrue(o.err().contains("narrow.yaml:16:") && o.err().contains("maps.region: the region holds 2 x 26 grid nodes; "
+                    + "it must hold at least 3 x 3"), o::toString);
+            assertEquals(List.of("narrow.yaml"), names(tmp), () -> args[0] + " wrote something: " + o);
+        }
+    }
+
     @Test
     void settingAnUnknownParameterIsAUsageError() throws IOException {
         Path c = write("tiny.yaml", TINY);

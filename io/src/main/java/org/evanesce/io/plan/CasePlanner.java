@@ -191,7 +191,7 @@ public final class CasePlanner {
         return new int[] {i0, j0, i1, j1};
     }
 
-    /** The node box of a region (nodes inside it), or the interior; null (error reported) when it holds no node. */
+    /** The node box of a region (nodes inside it), or the interior; null (error reported) when it holds fewer than 3 x 3 nodes (the field files and maps need a grid of at least 3 along each axis). */
     private int[] box(Optional<OutputSpec.Region> region, String path, GridSpec g, int[] interior) {
         if (region.isEmpty()) {
             return interior.clone();
@@ -203,8 +203,8 @@ public final class CasePlanner {
         int j0 = nb[1];
         int i1 = nb[2];
         int j1 = nb[3];
-        if (i1 - i0 < 2 || j1 - j0 < 2) {
-            error(r.at(), path, String.format("the region holds %d x %d grid nodes; it must hold at least 2 x 2 inside the grid "
+        if (i1 - i0 < 3 || j1 - j0 < 3) {
+            error(r.at(), path, String.format("the region holds %d x %d grid nodes; it must hold at least 3 x 3 inside the grid "
                     + "(x from %.4g um to %.4g um, y from %.4g um to %.4g um)", Math.max(0, i1 - i0), Math.max(0, j1 - j0),
                     g.x0() * 1e6, (g.x0() + (g.nx() - 1) * d) * 1e6, g.y0() * 1e6, (g.y0() + (g.ny() - 1) * d) * 1e6));
             return null;
