@@ -360,8 +360,25 @@ public final class Simulation implements StepView, AutoCloseable {
     }
 
     /**
+     * What a run on an nx × ny grid will allocate for its fields, coefficients and CPML, computed
+     * before anything is allocated, in bytes: {@code {arrays, pml, buildScratch}} (see
+     * {@link Engine#footprint}): the arrays spanning the grid (and Bloch seam values), the CPML strips,
+     * and the double-precision coefficients that exist only while {@link Builder#build()} runs.
+     * {@code arrays + pml} is exactly what {@link #bytes()} reports once built: the one count of the
+     * solver's memory, for estimates made before planning.
+     *
+     * @param nx    grid nodes along x (with Bloch-periodic sides, the grid's: one column fewer than the domain's nodes)
+     * @param lossy whether any cell has conductivity (then every electric site is counted with its ca array;
+     *              a p grid with conductivity at only one of its two sites needs one array less)
+     */
+    public static long[] footprint(int nx, int ny, Polarization polarization, Precision precision, Map<Side, Boundary> sides,
+                                   boolean lossy) {
+        return Engine.footprint(nx, ny, polarization, precision, sides, lossy);
+    }
+
+    /**
      * Bytes held by the field, coefficient, CPML and Bloch seam arrays, counted from the arrays
-     * themselves; {@link #predictBytes} gives the same figure before building.
+     * themselves; {@link #footprint} gives the same figure before building.
      */
     public long bytes() {
         return engine.bytes();
@@ -370,21 +387,6 @@ public final class Simulation implements StepView, AutoCloseable {
     /** Bytes per cell of the arrays that span the whole grid (outside the PML); {@link #predictBytesPerCell} beforehand. */
     public int bytesPerCell() {
         return engine.bytesPerCell();
-    }
-
-    /**
-     * The bytes {@link #bytes()} will report for a run of these settings, without allocating anything:
-     * the one count of the solver's memory, for estimates made before planning (e.g. a case check).
-     *
-     * @param nx        grid nodes along x (with Bloch-periodic sides, the grid's: one column fewer than the domain's nodes)
-     * @param ny        grid nodes along y
-     * @param lossy     whether any cell has conductivity (then every electric site is counted with its ca array;
-     *                  a p grid with conductivity at only one of its two sites needs one array less)
-     * @param sides     the boundary of each side: PML layers and Bloch-periodic sides change the count
-     */
-    public static long predictBytes(int nx, int ny, Polarization polarization, Precision precision, boolean lossy,
-                                    Map<Side, Boundary> sides) {
-        return Engine.predictBytes(nx, ny, polarization, precision, lossy, sides);
     }
 
     /**

@@ -16,8 +16,8 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 
 /**
- * {@link Simulation#predictBytes} (the one count of the solver's memory, made before anything is
- * allocated) equals exactly what the built engines count from the arrays they hold, for both
+ * {@link Simulation#footprint} (the one count of the solver's memory, made before anything is
+ * allocated: arrays + pml) equals exactly what the built engines count from the arrays they hold, for both
  * polarizations and precisions, with and without conductivity, on awkward grid sizes with PML
  * strips that are widened to whole vectors, strips too wide to widen, walls, and Bloch-periodic
  * sides (two parts and their seam values).
@@ -48,7 +48,10 @@ class MemoryPredictionTest {
         boolean bloch = kind.equals("BLOCH");
         try (Simulation sim = b.build()) {
             String what = String.format("%s %s lossy %s, %s sides, %d×%d", pol, precision, lossy, kind, nx, ny);
-            assertEquals(Simulation.predictBytes(nx, ny, pol, precision, lossy, sides), sim.bytes(), what);
+            long[] f = Simulation.footprint(nx, ny, pol, precision, sides, lossy);
+            assertEquals(f[0] + f[1], sim.bytes(), what);
+            // the coefficients in double while building: two arrays of nx·ny per electric site
+            assertEquals((pol == Polarization.S ? 2L : 4L) * Double.BYTES * nx * ny, f[2], what);
             assertEquals(Simulation.predictBytesPerCell(pol, precision, lossy, bloch), sim.bytesPerCell(), what);
             // at least the whole-grid arrays themselves
             assertTrue(sim.bytes() >= (long) sim.bytesPerCell() * nx * ny, what);

@@ -146,7 +146,7 @@ abstract class DoubleEngine extends Engine {
         field(c)[k] = v;
     }
 
-    /** Counts the arrays actually held; {@link Engine#predictBytes} must give the same figure. */
+    /** Counts the arrays actually held; {@link Engine#footprint} must give the same figure (arrays + pml). */
     @Override
     public long bytes() {
         long values = 0;

@@ -154,17 +154,24 @@ public abstract class Engine {
     }
 
     /**
-     * The bytes {@link #bytes()} will report for an engine of these settings, without allocating
-     * it: fields, coefficients, CPML strips and, with Bloch-periodic sides, both parts and their seam
-     * values. {@code lossy} means every electric site has a cell with conductivity (ca arrays kept);
-     * a p grid with conductivity at only one of its two sites needs one ca array less.
+     * What an engine of these settings will allocate, computed without building it, in bytes:
+     * {@code {arrays, pml, buildScratch}}: the field and coefficient arrays over the whole grid with
+     * the Bloch seam values, the CPML strips (ψ and coefficients, x strips widened to whole vectors),
+     * and the double-precision coefficients that exist only while the engine is being built. A
+     * Bloch-periodic grid has two engines (real and imaginary parts) and counts twice. Decided by
+     * {@link Layout}, as the engines allocate: {@code arrays + pml} equals {@link #bytes()} exactly.
+     *
+     * @param lossy whether every electric site has a cell with conductivity (ca arrays kept); a p grid
+     *              with conductivity at only one of its two sites needs one ca array less
      */
-    public static long predictBytes(int nx, int ny, Polarization pol, Precision precision, boolean lossy,
-                                    Map<Side, Boundary> sides) {
-        return Layout.of(nx, ny, pol, precision).bytes(lossy, sides);
+    public static long[] footprint(int nx, int ny, Polarization pol, Precision precision, Map<Side, Boundary> sides,
+                                   boolean lossy) {
+        Layout l = Layout.of(nx, ny, pol, precision);
+        int copies = sides.get(Side.LEFT) instanceof Boundary.Bloch ? 2 : 1;
+        return new long[] {copies * l.gridBytes(lossy, copies == 2), copies * l.stripBytes(sides), l.scratchBytes()};
     }
 
-    /** The bytes per cell {@link #bytesPerCell()} will report (the arrays spanning the whole grid); as {@link #predictBytes}. */
+    /** The bytes per cell {@link #bytesPerCell()} will report (the arrays spanning the whole grid); as {@link #footprint}. */
     public static int predictBytesPerCell(Polarization pol, Precision precision, boolean lossy, boolean blochX) {
         return Layout.of(1, 1, pol, precision).bytesPerCell(lossy, blochX);
     }
@@ -452,7 +459,7 @@ public abstract class Engine {
 
     /**
      * Bytes of the arrays held: fields, coefficients, CPML strips (ψ and coefficients) and the Bloch
-     * seam values; {@link #predictBytes} gives the same figure without allocating.
+     * seam values; {@link #footprint} gives the same figure (arrays + pml) without allocating.
      */
     public abstract long bytes();
 

@@ -10,7 +10,7 @@ import org.evanesce.solver.grid.Side;
 
 /**
  * The lengths of the arrays one real engine allocates, decided here once for the engines'
- * constructors and for {@link Engine#predictBytes}.
+ * constructors and for {@link Engine#footprint}.
  * <ul>
  * <li>Field and coefficient arrays: nx·ny values padded to {@link Engine#staggeredLength}; three fields,
  * one cb per electric component, one ca per electric component of a site with conductivity.</li>
@@ -60,9 +60,16 @@ record Layout(int nx, int ny, Polarization pol, int valueBytes, int lanes) {
         return nx * layers;
     }
 
-    /** Values of all arrays: fields, coefficients (ca for every electric site when lossy) and strips. */
-    long values(boolean lossy, Map<Side, Boundary> sides) {
-        long v = (long) length() * (3 + electric().length * (lossy ? 2 : 1));
+    /** Bytes of one engine's arrays spanning the grid (three fields, cb, and ca when lossy), with the Bloch seam values. */
+    long gridBytes(boolean lossy, boolean blochX) {
+        long values = (long) length() * (3 + electric().length * (lossy ? 2 : 1));
+        // Engine.ghostE and ghostW: ny doubles each
+        return values * valueBytes + (blochX ? 2L * ny * Double.BYTES : 0);
+    }
+
+    /** Bytes of one engine's CPML strips: six coefficient arrays of width + 1 values and two ψ arrays each. */
+    long stripBytes(Map<Side, Boundary> sides) {
+        long v = 0;
         for (Side side : Side.values()) {
             if (sides.get(side) instanceof Boundary.Pml p) {
                 int layers = p.parameters().layers();
@@ -71,20 +78,18 @@ record Layout(int nx, int ny, Polarization pol, int valueBytes, int lanes) {
                 v += 6L * (w + 1) + 2L * (x ? xPsiLength(w) : yPsiLength(layers));
             }
         }
-        return v;
+        return v * valueBytes;
+    }
+
+    /** Bytes of the coefficients in double that exist while an engine is built: ca and cb of nx·ny cells per electric site. */
+    long scratchBytes() {
+        return electric().length * 2L * Double.BYTES * nx * ny;
     }
 
     /** The layout of one real engine of that precision on this JVM. */
     static Layout of(int nx, int ny, Polarization pol, Precision precision) {
         int lanes = precision == Precision.FLOAT ? FloatKernels.SP.length() : DoubleKernels.SP.length();
         return new Layout(nx, ny, pol, precision.bytes, lanes);
-    }
-
-    /** Bytes of an engine's arrays; with Bloch-periodic sides, of both parts and their seam values. */
-    long bytes(boolean lossy, Map<Side, Boundary> sides) {
-        long bytes = values(lossy, sides) * valueBytes;
-        // Bloch: two parts, each with its seam values (Engine.ghostE and ghostW, ny doubles each)
-        return sides.get(Side.LEFT) instanceof Boundary.Bloch ? 2 * (bytes + 2L * ny * Double.BYTES) : bytes;
     }
 
     /** Bytes per cell of the arrays spanning the whole grid (both parts with Bloch-periodic sides). */
