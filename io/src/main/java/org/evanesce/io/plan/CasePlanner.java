@@ -34,13 +34,12 @@ import org.evanesce.io.casefile.SourceSpec;
 import org.evanesce.io.casefile.StopSpec;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
+import org.evanesce.solver.Courant;
 import org.evanesce.solver.DispersionCorrection;
-import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Side;
-import org.evanesce.solver.kernel.Engine;
 import org.evanesce.solver.monitor.Probe;
 import org.evanesce.solver.source.CarrierSignal;
 import org.evanesce.solver.source.GaussianBeam;
@@ -58,8 +57,6 @@ public final class CasePlanner {
 
     /** Steps between energy checks of a run that stops on decay: about one step's cost every 32 steps. */
     static final int DECAY_CHECK_INTERVAL = 32;
-    /** The solver's default Courant number, used when the case gives none. */
-    public static final double DEFAULT_COURANT = 0.5;
 
     private final CaseSpec spec;
     private final List<Diagnostic> errors = new ArrayList<>();
@@ -97,8 +94,8 @@ public final class CasePlanner {
         // periodic sides: the width is one period, so the node at x = +W/2 is the image of the one at −W/2
         boolean periodic = spec.boundary(Side.LEFT) instanceof BoundarySpec.Periodic;
         GridSpec grid = new GridSpec(r.x(0), r.y(0), dx, periodic ? r.nx() - 1 : r.nx(), r.ny());
-        double courant = spec.numerics().courant().map(v -> v.si()).orElse(DEFAULT_COURANT);
-        double dt = courant * dx / PhysicalConstants.C0;
+        double courant = spec.numerics().courant().map(v -> v.si()).orElse(Courant.DEFAULT);
+        double dt = Courant.timeStep(courant, dx);
         Map<String, Material> materials = materials(dx, dt);
         stable(materials, courant);
         Scene scene = scene(materials);
@@ -328,7 +325,7 @@ public final class CasePlanner {
         if (slowest == null || slowest.relativePermittivity() >= 1) {
             return;
         }
-        double limit = Simulation.COURANT_LIMIT_2D * Math.sqrt(slowest.relativePermittivity());
+        double limit = Courant.limit(slowest.relativePermittivity());
         if (courant < limit) {
             return;
         }
@@ -419,7 +416,7 @@ public final class CasePlanner {
         if (s instanceof SourceSpec.PlaneWave w) {
             Component c = w.component().value();
             int j = nearest(w.y().si(), g.y0(), dx, c.dy);
-            if (!Engine.wouldUpdate(sides, g.nx(), g.ny(), c, 0, j)) {
+            if (!Simulation.isUpdated(sides, g.nx(), g.ny(), c, 0, j)) {
                 error(w.at(), path + ".y", String.format("the nearest %s row, %d, is on a wall or outside the grid; expected a "
                         + "height inside the domain's walls", c, j));
                 return null;
@@ -430,7 +427,7 @@ public final class CasePlanner {
                 Component c = p.component().value();
                 int i = nearest(p.location().x().si(), g.x0(), dx, c.dx);
                 int j = nearest(p.location().y().si(), g.y0(), dx, c.dy);
-                if (!Engine.wouldUpdate(sides, g.nx(), g.ny(), c, i, j)) {
+                if (!Simulation.isUpdated(sides, g.nx(), g.ny(), c, i, j)) {
                     error(p.at(), path + ".at", String.format("the nearest %s site, node (%d, %d), is on a wall or outside "
                             + "the grid; expected a point inside the domain's walls", c, i, j));
                     return null;
@@ -462,7 +459,7 @@ public final class CasePlanner {
                 for (int j = ja; j <= jb; j++) {
                     for (int i = ia; i <= ib; i++) {
                         // cells that fall on a wall are left out: a line may run from wall to wall
-                        if (Engine.wouldUpdate(sides, g.nx(), g.ny(), c, i, j)) {
+                        if (Simulation.isUpdated(sides, g.nx(), g.ny(), c, i, j)) {
                             cells.add(j * g.nx() + i);
                         }
                     }
@@ -554,7 +551,7 @@ public final class CasePlanner {
             error(time.at(), path, String.format(java.util.Locale.ROOT, "%s takes %.3g steps of %s, more than the limit of %d steps; "
                     + "the time step is the Courant number (%s%s) times the cell size (%s) over c0: shorten the run, or raise "
                     + "the Courant number or the cell size", Units.format(time.si(), Dimension.TIME), steps,
-                    Units.format(dt, Dimension.TIME), StopSpec.MAX_STEPS, Units.number(courant.map(Value::si).orElse(DEFAULT_COURANT)),
+                    Units.format(dt, Dimension.TIME), StopSpec.MAX_STEPS, Units.number(courant.map(Value::si).orElse(Courant.DEFAULT)),
                     courant.map(c -> ", line " + c.at().line()).orElse(", the default"),
                     Units.format(spec.resolution().cellSize().si(), Dimension.LENGTH)));
             return StopSpec.MAX_STEPS;
