@@ -125,7 +125,7 @@ final class CaseChecks {
     }
 
     private void across(Side a, Side b, int cells, String what) {
-        int used = pmlCells(a) + pmlCells(b);
+        long used = (long) pmlCells(a) + pmlCells(b); // long: a thickness may be written as a huge count
         // the solver needs at least two interior cells between the layers
         if (used > cells - 2) {
             BoundarySpec where = p.boundaries.get(pmlCells(b) > 0 ? b : a);
