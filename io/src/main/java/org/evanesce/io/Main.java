@@ -81,6 +81,12 @@ public final class Main implements Callable<Integer> {
                 .setExecutionExceptionHandler(Main::runError);
         try {
             return cl.execute(args);
+        } catch (OutOfMemoryError oom) {
+            // check and run refuse a case whose estimate does not fit; this is the estimate falling short
+            e.printf("evanesce: the run ran out of memory (the JVM may use %d MiB) although its estimate fitted; give the "
+                    + "JVM more memory (e.g. JAVA_OPTS=-Xmx%dg) and please report the case file%n",
+                    Runtime.getRuntime().maxMemory() >> 20, Math.max(2, 2 * (Runtime.getRuntime().maxMemory() >> 30)));
+            return RUN_FAILED;
         } finally {
             o.flush();
             e.flush();

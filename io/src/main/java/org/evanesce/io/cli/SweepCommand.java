@@ -22,6 +22,7 @@ import org.evanesce.io.Main;
 import org.evanesce.io.RunFailedException;
 import org.evanesce.io.casefile.CaseFileException;
 import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.casefile.CaseText;
 import org.evanesce.io.casefile.CaseSpec;
 import org.evanesce.io.casefile.Diagnostic;
 import org.evanesce.io.casefile.LoadedCase;
@@ -122,14 +123,21 @@ public final class SweepCommand implements Callable<Integer> {
         int[] shardOf = checkOptions();
         Path caseFile = options.caseFile;
         byte[] text;
+        String caseText;
         try {
-            text = Files.readAllBytes(caseFile);
+            CaseText read = CaseText.read(caseFile);
+            text = read.bytes();
+            caseText = read.text();
         } catch (NoSuchFileException e) {
             throw usage(caseFile + ": no such file");
         } catch (IOException e) {
             throw usage(caseFile + ": cannot read: " + e.getMessage());
+        } catch (CaseFileException e) {
+            for (Diagnostic d : e.diagnostics()) {
+                err.println(d);
+            }
+            throw usage("1 error(s) in " + caseFile + "; nothing was run or written");
         }
-        String caseText = new String(text, StandardCharsets.UTF_8);
         String caseSha = PointHash.sha256(text);
         String version = VersionProvider.version();
         String build = org.evanesce.io.output.BuildInfo.current().id();

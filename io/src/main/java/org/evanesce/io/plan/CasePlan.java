@@ -24,11 +24,12 @@ import org.evanesce.solver.monitor.Probe;
  *                    where the dispersion correction applies), by name
  * @param fields      the field files, frames and maps the run writes
  * @param sourceSites where each source drives the grid, in the case's order
+ * @param memory      the heap the run is estimated to need
  */
 public record CasePlan(CaseSpec spec, GridSpec grid, MaterialGrid materials, Simulation.Builder builder,
                        List<NamedProbe> probes, Stop stop, double dt, int[] interior,
                        java.util.Optional<FluxPlan> flux, java.util.Map<String, Double> gridPermittivity,
-                       FieldPlan fields, List<SourceSite> sourceSites) {
+                       FieldPlan fields, List<SourceSite> sourceSites, MemoryEstimate memory) {
 
     /** Whether a source drives a continuous (ramped) wave, which never decays. */
     public boolean continuous() {

@@ -64,9 +64,20 @@ public final class CaseRunner {
         }
     }
 
+    /**
+     * A seam for tests: the divergence limit (field magnitude) to build a plan's run with, or NaN (the default) for
+     * the solver's own, so that a test can make a run fail as diverged, which no case the reader accepts does (gain
+     * and amplitudes beyond the fields' range are refused).
+     */
+    public static volatile java.util.function.ToDoubleFunction<CasePlan> divergenceLimitForTests = plan -> Double.NaN;
+
     /** Builds the planned simulation; the solver's refusals become {@link RefusedException}s naming the case file. */
     public static Simulation build(CasePlan plan) {
         try {
+            double limit = divergenceLimitForTests.applyAsDouble(plan);
+            if (limit > 0) {
+                plan.builder().divergenceLimit(limit);
+            }
             return plan.builder().build();
         } catch (IllegalArgumentException e) {
             throw new RefusedException(plan.spec().source() + ": the solver refused the case: "

@@ -263,6 +263,12 @@ public final class FluxLine implements StatefulListener {
         return s;
     }
 
+    /** Bytes held by the accumulators and the per-step scratch: 8 · n · (4F + 4) for n cells and F frequencies. */
+    public long bytes() {
+        long n = i1 - i0;
+        return Double.BYTES * n * (4L * omega.length + 4);
+    }
+
     @Override
     public void writeState(java.io.DataOutput out) throws java.io.IOException {
         out.writeLong(eSamples);
