@@ -77,8 +77,8 @@ class BeamReferenceFlagTest {
         assertEquals(converges ? "1" : "0", flag, what);
         assertEquals(converges, summary.contains("\"beam_reference_converged\": true"), what);
         assertEquals(!converges, summary.contains("\"beam_reference_converged\": false"), what);
-        assertEquals(!converges, o.out().contains("warning: flux.transfer_matrix: the angular-spectrum reference at 633.00 nm "
-                + "did not converge"), what);
+        assertEquals(!converges, o.out().contains("warning: results: the angular-spectrum reference at 633.00 nm did not "
+                + "converge"), what);
         assertEquals(!converges, runJson.contains("did not converge"), what);
         if (converges) {
             // total reflection: R of the reference is 1; the mode shifts the beam by about 19 um
