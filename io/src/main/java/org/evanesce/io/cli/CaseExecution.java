@@ -104,6 +104,9 @@ final class CaseExecution {
         Settling settling = Settling.of(plan, r, flux);
         List<String> warnings = new ArrayList<>(settling.warnings());
         warnings.addAll(Plausibility.check(plan, flux, settling));
+        if (flux != null) {
+            warnings.addAll(flux.warnings()); // e.g. a beam's reference that did not converge
+        }
         if (flux != null || !decays.isEmpty()) {
             rf.writeText("summary.json", Json.write(RunOutputs.summary(plan, flux, decays, settling, warnings)));
         }

@@ -102,12 +102,14 @@ public final class CasePlanner {
         Map<Side, Boundary> sides = boundaries(PlaneWaves.kx(spec));
         List<Source> sources = new ArrayList<>();
         List<IncidentSheet> sheets = new ArrayList<>();
+        List<CasePlan.SourceSite> sites = new ArrayList<>();
         double fade = 0;
         for (int k = 0; k < spec.sources().size(); k++) {
             SourceSpec s = spec.sources().get(k);
             if (s instanceof SourceSpec.GaussianBeamSource beam) {
                 List<IncidentSheet> pair = beam(beam, k, grid, sides, materials, dt);
                 sheets.addAll(pair);
+                siteOf("sources[" + k + "]." + s.kind(), pair, grid).ifPresent(sites::add);
                 double latest = pair.stream().flatMapToDouble(p -> java.util.Arrays.stream(p.delays())).max().orElse(0);
                 fade = Math.max(fade, fadeTime(signal(beam.signal())) + latest);
                 continue;
@@ -115,6 +117,7 @@ public final class CasePlanner {
             Source src = source(s, k, grid, sides);
             if (src != null) {
                 sources.add(src);
+                sites.add(siteOf("sources[" + k + "]." + s.kind(), src.component(), src.cells(), grid));
                 fade = Math.max(fade, fadeTime(src.signal()));
             }
         }
@@ -167,7 +170,37 @@ public final class CasePlanner {
         if (!errors.isEmpty()) {
             throw new PlanException(errors);
         }
-        return new CasePlan(spec, grid, mg, b, List.copyOf(probes), stop, dt, interior(sides, grid), flux, eps, fields, memory);
+        return new CasePlan(spec, grid, mg, b, List.copyOf(probes), stop, dt, interior(sides, grid), flux, eps, fields,
+                List.copyOf(sites), memory);
+    }
+
+    /** The span of sites a source drives (its cells are flat indices j·nx + i). */
+    private static CasePlan.SourceSite siteOf(String path, Component c, int[] cells, GridSpec g) {
+        int i0 = Integer.MAX_VALUE;
+        int j0 = Integer.MAX_VALUE;
+        int i1 = Integer.MIN_VALUE;
+        int j1 = Integer.MIN_VALUE;
+        for (int cell : cells) {
+            int i = cell % g.nx();
+            int j = cell / g.nx();
+            i0 = Math.min(i0, i);
+            j0 = Math.min(j0, j);
+            i1 = Math.max(i1, i);
+            j1 = Math.max(j1, j);
+        }
+        return new CasePlan.SourceSite(path, c, i0, j0, i1, j1);
+    }
+
+    /** y of row j of a component's sites, formatted with its unit. */
+    private static String siteY(GridSpec g, int j, Component c) {
+        return org.evanesce.io.casefile.expr.Units.format(g.y0() + (j + c.dy) * g.cellSize(),
+                org.evanesce.io.casefile.expr.Dimension.LENGTH);
+    }
+
+    /** A beam's launching row: the electric sheet's sites. */
+    private static Optional<CasePlan.SourceSite> siteOf(String path, List<IncidentSheet> pair, GridSpec g) {
+        return pair.stream().filter(p -> p.component().electric).findFirst()
+                .map(p -> siteOf(path, p.component(), p.cells(), g));
     }
 
     private void error(SourcePosition at, String path, String message) {
@@ -404,9 +437,20 @@ public final class CasePlanner {
         return out;
     }
 
-    /** Nearest node index of a component's site to coordinate v along an axis. */
+    /**
+     * A point half-way between two sites (to within this many cells) goes to the site with the larger
+     * index: round-off in the grid coordinate (about 1e-12 of a cell here) can then never decide.
+     */
+    static final double TIE_TOLERANCE = 1e-9;
+
+    /**
+     * The index of the component site nearest to coordinate v along an axis: the site k lies at
+     * origin + (k + siteOffset)Δ; a point half-way between two sites (within {@link #TIE_TOLERANCE} of a
+     * cell) takes the larger index (round half up). So in p polarization a point on a node drives or
+     * samples the Hz site half a cell above and to the right of it, in any domain whose nodes lie there.
+     */
     static int nearest(double v, double origin, double dx, double siteOffset) {
-        return (int) Math.round((v - origin) / dx - siteOffset);
+        return (int) Math.floor((v - origin) / dx - siteOffset + 0.5 + TIE_TOLERANCE);
     }
 
     private Source source(SourceSpec s, int k, GridSpec g, Map<Side, Boundary> sides) {
@@ -417,8 +461,8 @@ public final class CasePlanner {
             Component c = w.component().value();
             int j = nearest(w.y().si(), g.y0(), dx, c.dy);
             if (!Simulation.isUpdated(sides, g.nx(), g.ny(), c, 0, j)) {
-                error(w.at(), path + ".y", String.format("the nearest %s row, %d, is on a wall or outside the grid; expected a "
-                        + "height inside the domain's walls", c, j));
+                error(w.at(), path + ".y", String.format("the nearest row of %s sites, %d (y = %s), is on a wall or outside the "
+                        + "grid; expected a height inside the domain's walls", c, j, siteY(g, j, c)));
                 return null;
             }
             return Source.blochRow(c, g.nx(), j, g.x0(), dx, PlaneWaves.kx(spec), w.amplitude().si(), signal);
@@ -428,7 +472,7 @@ public final class CasePlanner {
                 int i = nearest(p.location().x().si(), g.x0(), dx, c.dx);
                 int j = nearest(p.location().y().si(), g.y0(), dx, c.dy);
                 if (!Simulation.isUpdated(sides, g.nx(), g.ny(), c, i, j)) {
-                    error(p.at(), path + ".at", String.format("the nearest %s site, node (%d, %d), is on a wall or outside "
+                    error(p.at(), path + ".at", String.format("the nearest %s site, index (%d, %d), is on a wall or outside "
                             + "the grid; expected a point inside the domain's walls", c, i, j));
                     return null;
                 }
@@ -447,8 +491,8 @@ public final class CasePlanner {
                 int i1 = nearest(l.to().x().si(), g.x0(), dx, c.dx);
                 int j1 = nearest(l.to().y().si(), g.y0(), dx, c.dy);
                 if (i0 != i1 && j0 != j1) {
-                    error(l.at(), path, String.format("the line from node (%d, %d) to (%d, %d) is neither horizontal nor "
-                            + "vertical; expected a line along x or y", i0, j0, i1, j1));
+                    error(l.at(), path, String.format("the line from %s site (%d, %d) to (%d, %d) is neither horizontal nor "
+                            + "vertical; expected a line along x or y", c, i0, j0, i1, j1));
                     return null;
                 }
                 int ia = Math.min(i0, i1);
@@ -522,8 +566,8 @@ public final class CasePlanner {
         int i = nearest(p.location().x().si(), g.x0(), g.cellSize(), c.dx);
         int j = nearest(p.location().y().si(), g.y0(), g.cellSize(), c.dy);
         if (i < 0 || j < 0 || i >= g.nx() || j >= g.ny()) {
-            error(p.at(), "probes[" + k + "].at", String.format("node (%d, %d) is outside the grid (%d × %d nodes)",
-                    i, j, g.nx(), g.ny()));
+            error(p.at(), "probes[" + k + "].at", String.format("the nearest %s site, index (%d, %d), is outside the grid "
+                    + "(%d × %d nodes)", c, i, j, g.nx(), g.ny()));
             return null;
         }
         return new CasePlan.NamedProbe(p.name().value(), new Probe(c, i, j), i, j);

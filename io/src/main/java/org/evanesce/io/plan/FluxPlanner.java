@@ -90,9 +90,45 @@ final class FluxPlanner {
                 ? transferMatrix(spec, grid, w, interior, errors) : Optional.empty();
         Optional<SourceSpec.GaussianBeamSource> beam = w instanceof SourceSpec.GaussianBeamSource b
                 ? Optional.of(b) : Optional.empty();
+        Optional<FluxPlan.Path> path = Optional.empty();
+        if (beam.isPresent() && exact.isPresent()) {
+            int row = pathRow(lines, exact.get().firstInterface(), incidentRow, dir, grid, interior);
+            if (row >= 0) {
+                FluxLine l = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
+                reference.listener(l);
+                path = Optional.of(new FluxPlan.Path(l, grid.y0() + (row + 0.5) * dx));
+            }
+        }
         return new FluxPlan(freqs, PlaneWaves.kx(spec), medium.name(), medium.index(), dir, lines, incident,
                 grid.y0() + (incidentRow + 0.5) * dx, reference, dx, exact, beam, grid.x0(),
-                (x, y) -> spec.materials().get(spec.materialAt(x, y)).index(), check);
+                (x, y) -> spec.materials().get(spec.materialAt(x, y)).index(), check, (i1 - i0) * dx,
+                w.amplitude().si(), path);
+    }
+
+    /** The path line lies at least this many cells along the beam's travel from the incident line, or is left out. */
+    static final int MIN_PATH_CELLS = 10;
+
+    /**
+     * The reference run's row for the beam's path line: the mirror image, through the first interface, of the
+     * reflected line farthest from it (where the incident beam would be after the same vertical travel as the
+     * reflected one), moved inside the interior (one cell clear of its edges) if it falls outside; −1 when the
+     * case has no reflected line or the row would lie fewer than {@value #MIN_PATH_CELLS} cells beyond the
+     * incident line.
+     */
+    private static int pathRow(List<FluxPlan.Line> lines, double firstInterface, int incidentRow, int dir, GridSpec grid,
+                               int[] interior) {
+        double far = -1;
+        for (FluxPlan.Line l : lines) {
+            if (l.spec().measures().value() == FluxSpec.Measure.REFLECTED) {
+                far = Math.max(far, Math.abs(firstInterface - l.y()));
+            }
+        }
+        if (far < 0) {
+            return -1;
+        }
+        int row = CasePlanner.nearest(firstInterface + dir * far, grid.y0(), grid.cellSize(), 0.5);
+        row = Math.max(interior[1] + 1, Math.min(interior[3] - 3, row));
+        return (row - incidentRow) * dir >= MIN_PATH_CELLS ? row : -1;
     }
 
     private static FluxLine windowed(FluxLine l, SteadyState steady) {

@@ -136,8 +136,29 @@ public final class RunOutputs {
         resolved.put("boundaries", sides);
         resolved.put("shapes", s.shapes().size());
         resolved.put("sources", s.sources().size());
-        resolved.put("probes", plan.probes().stream().map(p -> p.name() + " " + p.probe().component() + " at node ("
-                + p.i() + ", " + p.j() + ")").toList());
+        List<Object> probes = new java.util.ArrayList<>();
+        for (CasePlan.NamedProbe p : plan.probes()) {
+            Map<String, Object> e = new LinkedHashMap<>();
+            e.put("name", p.name());
+            e.putAll(site(plan, p.probe().component(), p.i(), p.j()));
+            probes.add(e);
+        }
+        resolved.put("probes", probes);
+        List<Object> sources = new java.util.ArrayList<>();
+        for (CasePlan.SourceSite ss : plan.sourceSites()) {
+            Map<String, Object> e = new LinkedHashMap<>();
+            e.put("source", ss.source());
+            Map<String, Object> first = site(plan, ss.component(), ss.i0(), ss.j0());
+            Map<String, Object> last = site(plan, ss.component(), ss.i1(), ss.j1());
+            e.put("component", first.get("component"));
+            e.put("site_offset_cells", first.get("site_offset_cells"));
+            e.put("first_index", first.get("index"));
+            e.put("last_index", last.get("index"));
+            e.put("first_site_m", first.get("site_m"));
+            e.put("last_site_m", last.get("site_m"));
+            sources.add(e);
+        }
+        resolved.put("source_sites", sources);
         m.put("resolved_case", resolved);
         Map<String, Object> grid = new LinkedHashMap<>();
         grid.put("nx", plan.grid().nx());
@@ -176,6 +197,20 @@ public final class RunOutputs {
         runWarnings.forEach(w -> all.add(runWarning(plan, w)));
         m.put("warnings", all);
         return m;
+    }
+
+    /**
+     * Names a component's site: its index (i, j) in that component's array, the site's offset from node (i, j)
+     * in cells, and where it lies, m.
+     */
+    static Map<String, Object> site(CasePlan plan, org.evanesce.solver.grid.Component c, int i, int j) {
+        Map<String, Object> e = new LinkedHashMap<>();
+        double d = plan.grid().cellSize();
+        e.put("component", c.name().toLowerCase(Locale.ROOT));
+        e.put("index", List.of(i, j));
+        e.put("site_offset_cells", new double[] {c.dx, c.dy});
+        e.put("site_m", new double[] {plan.grid().x0() + (i + c.dx) * d, plan.grid().y0() + (j + c.dy) * d});
+        return e;
     }
 
     /** A warning about a run's results as printed and recorded: {@code CASE: warning: results: ...}. */

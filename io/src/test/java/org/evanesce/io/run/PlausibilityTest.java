@@ -47,7 +47,8 @@ class PlausibilityTest {
     /** One row at 633 nm with R, T and A = 1 − R − T (as FluxResults lays them out without an exact column). */
     private static FluxResults table(double r, double t) {
         return new FluxResults(List.of("R_front", "T_back", "A"),
-                List.of(new FluxResults.Row(4.736e14, 633e-9, 30, 1.0, new double[] {r, t, 1 - r - t})));
+                List.of(new FluxResults.Row(4.736e14, 633e-9, 30, 1.0, new double[] {r, t, 1 - r - t})),
+                FluxResults.Incident.SPECTRAL_ENERGY, List.of());
     }
 
     private static final Settling SETTLED = new Settling(true, "test", 1e-9, 1e-9, Double.NaN, Map.of(), List.of());

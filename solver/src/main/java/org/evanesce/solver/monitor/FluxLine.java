@@ -17,6 +17,22 @@ import org.evanesce.solver.grid.Polarization;
  * <p>The flux along +y per unit length in z, summed over the line's cells, is
  * S = ½ Re Σ E·H̃* Δ / η0 with H̃ = η0·H as stored: for s, S_y = ½ Re(Ez Hx*), for p,
  * S_y = −½ Re(Ex Hz*) (E × H* along ŷ; Born &amp; Wolf sec. 1.1, common practice).
+ *
+ * <p>That "DFT flux" grows with the square of the transform window; ratios of two lines' fluxes
+ * (T, R) are all it is good for. Two normalised forms carry units of their own:
+ * <ul>
+ * <li>{@link #meanPower}: a continuous wave E(t) = Re(Ê e^{−iωt}) transformed over whole periods
+ * gives X = ½ Ê D, D = Σ Δt the duration of the samples taken (the e^{+iωt} half sums to nearly
+ * nothing over whole periods: a residue below one step in D), so the time-averaged flux
+ * ½ Re(Ê Ĥ*)/η0 is 4·(DFT flux)/(D_E D_H), W per metre of z;</li>
+ * <li>{@link #spectralEnergy}: for fields that have died out inside the window, Parseval's theorem
+ * ∫ E(t) H(t) dt = 2 ∫_0^∞ Re(X_E X_H*) df makes 4·(DFT flux) the energy that crossed the line per
+ * hertz of positive frequency, J per metre of z per Hz (its integral over f &gt; 0 is the energy
+ * that crossed the line).</li>
+ * </ul>
+ * Complex (Bloch-periodic) fields driven by a real signal times e^{i kx x} give the same numbers
+ * as the single travelling plane wave they stand for: the transform at f &gt; 0 picks only its
+ * e^{i(kx x − ωt)} part, the e^{+iωt} part belonging to the mirror wave.
  */
 public final class FluxLine implements StatefulListener {
 
@@ -36,6 +52,8 @@ public final class FluxLine implements StatefulListener {
     private double windowEnd = Double.POSITIVE_INFINITY;
     /** Samples transformed so far: electric, magnetic. */
     private long eSamples, hSamples;
+    /** The time step, s (set by every step; 0 before the first). */
+    private double dt;
 
     /**
      * @param pol         the run's polarization
@@ -106,6 +124,7 @@ public final class FluxLine implements StatefulListener {
         double dt = v.dt();
         double we = eIn ? dt : 0;
         double wh = hIn ? dt : 0;
+        this.dt = dt;
         for (int q = 0; q < omega.length; q++) {
             double ce = Math.cos(omega[q] * te) * we;
             double se = Math.sin(omega[q] * te) * we;
@@ -140,6 +159,27 @@ public final class FluxLine implements StatefulListener {
             sum += d;
         }
         return sum * cellSize;
+    }
+
+    /**
+     * The time-averaged flux along +y of a continuous wave at frequency q, W per metre of z (for the
+     * fields' own amplitudes): 4·{@link #flux(int, double)}/(D_E D_H), D = (samples transformed)·Δt the
+     * duration of the samples (see the class comment). Meaningful when the window holds whole periods of a settled
+     * wave; NaN before any sample was taken.
+     */
+    public double meanPower(int q, double cellSize) {
+        double de = eSamples * dt;
+        double dh = hSamples * dt;
+        return de > 0 && dh > 0 ? 4 * flux(q, cellSize) / (de * dh) : Double.NaN;
+    }
+
+    /**
+     * The energy that crossed the line along +y per hertz of positive frequency at frequency q, J per
+     * metre of z per Hz: 4·{@link #flux(int, double)} (Parseval; see the class comment). Meaningful when
+     * the fields have died out inside the window (a pulse that has passed).
+     */
+    public double spectralEnergy(int q, double cellSize) {
+        return 4 * flux(q, cellSize);
     }
 
     /** The transformed electric field (averaged onto the line) at frequency q and cell i: {re, im}. */
