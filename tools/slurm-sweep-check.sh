@@ -6,18 +6,24 @@
 # Exit: 0 passed (or skipped with a note when no cluster can be started), 1 the results differ.
 set -euo pipefail
 root=$(cd "$(dirname "$0")/.." && pwd)
+# a skip is printed and also recorded in target/skipped-checks.txt, which .ci/run lists at its end
+skip() {
+  echo "note: slurm check skipped: $1"
+  mkdir -p "$root/target" && echo "tools/slurm-sweep-check.sh (sweep as a Slurm job array): $1" >> "$root/target/skipped-checks.txt"
+  exit 0
+}
+if [ "$(id -u)" != 0 ]; then skip "needs root"; fi
 work=$(mktemp -d /tmp/evanesce-slurm.XXXXXX)
-if [ "$(id -u)" != 0 ]; then echo "note: slurm check skipped: needs root"; exit 0; fi
 if ! command -v slurmctld >/dev/null 2>&1; then
   if command -v apt-get >/dev/null 2>&1 && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq slurmctld slurmd \
-      slurm-client munge >/dev/null 2>&1; then :; else echo "note: slurm check skipped: cannot install Slurm"; exit 0; fi
+      slurm-client munge >/dev/null 2>&1; then :; else skip "cannot install Slurm"; fi
 fi
 if [ -f /etc/slurm/slurm.conf ] && ! grep -q "evanesce single-node check" /etc/slurm/slurm.conf; then
-  echo "note: slurm check skipped: this machine has its own Slurm configuration"; exit 0
+  skip "this machine has its own Slurm configuration"
 fi
 trap '"$root/tools/slurm-cluster.sh" stop "$work/cluster" || true' EXIT
 if ! "$root/tools/slurm-cluster.sh" start "$work/cluster"; then
-  echo "note: slurm check skipped: the single-node cluster did not start (see $work/cluster/log)"; exit 0
+  skip "the single-node cluster did not start (see $work/cluster/log)"
 fi
 cat > "$work/gap.yaml" <<'CASE'
 # a small sweep of the gap in front of a plane wave: three points
@@ -46,18 +52,23 @@ sweep:
     gap: [100 nm, 200 nm, 300 nm]
 CASE
 "$root/evanesce" sweep "$work/gap.yaml" --out "$work/local" --progress-seconds 60 > "$work/local.log" 2>&1
-"$root/evanesce" sweep "$work/gap.yaml" --out "$work/cluster-run" --slurm-script 2 > "$work/script.log" 2>&1
-if ! timeout 900 sbatch --wait "$work/cluster-run/sweep.slurm" > "$work/sbatch.log" 2>&1; then
+# a folder name with a space, a quote and a dollar sign: the script must quote every path (issue 13)
+run="$work/cluster run's \$x"
+"$root/evanesce" sweep "$work/gap.yaml" --out "$run" --slurm-script 2 > "$work/script.log" 2>&1
+if ! timeout 900 sbatch --wait "$run/sweep.slurm" > "$work/sbatch.log" 2>&1; then
   if grep -q "COMPLETED\|exit code" "$work/sbatch.log" 2>/dev/null; then :; fi
-  if ! ls "$work"/cluster-run/point-* >/dev/null 2>&1; then
-    echo "note: slurm check skipped: the job array did not run on the local cluster (see $work/sbatch.log)"; exit 0
+  if ! ls "$run"/point-* >/dev/null 2>&1; then
+    skip "the job array did not run on the local cluster (see $work/sbatch.log)"
   fi
 fi
-"$root/evanesce" sweep "$work/gap.yaml" --out "$work/cluster-run" --merge-only > "$work/merge.log" 2>&1
-if cmp -s "$work/local/sweep.csv" "$work/cluster-run/sweep.csv"; then
+"$root/evanesce" sweep "$work/gap.yaml" --out "$run" --merge-only > "$work/merge.log" 2>&1
+if ! ls "$run"/slurm-*_0.out >/dev/null 2>&1; then
+  echo "slurm check FAILED: the tasks' logs are not in $run (#SBATCH --output)"; exit 1
+fi
+if cmp -s "$work/local/sweep.csv" "$run/sweep.csv"; then
   echo "slurm check passed: the job array's merged sweep.csv equals the local sweep's ($work)"
 else
   echo "slurm check FAILED: sweep.csv differs between the local sweep and the Slurm job array ($work)"
-  diff "$work/local/sweep.csv" "$work/cluster-run/sweep.csv" | head -20 || true
+  diff "$work/local/sweep.csv" "$run/sweep.csv" | head -20 || true
   exit 1
 fi

@@ -1,5 +1,6 @@
 package org.evanesce.io;
 
+import java.io.IOException;
 import java.io.PrintStream;
 import java.io.PrintWriter;
 import java.util.concurrent.Callable;
@@ -21,10 +22,12 @@ import picocli.CommandLine.Spec;
  * <ul>
  * <li>{@value #OK}: success (also for {@code --help} and {@code --version});</li>
  * <li>{@value #USAGE}: bad input or usage: unknown option, a value out of range, a missing
- *     subcommand. One line on stderr says why;</li>
- * <li>{@value #RUN_FAILED}: the run failed: the solver diverged ({@link DivergenceException}) or a
+ *     subcommand, an output folder evanesce will not write ({@link
+ *     org.evanesce.io.output.OutputRefusedException}). One line on stderr says why;</li>
+ * <li>{@value #RUN_FAILED}: the run failed: the solver diverged ({@link DivergenceException}), a
  *     command gave up for a reason outside its input ({@link RunFailedException}, e.g. the grid did
- *     not fit in memory);</li>
+ *     not fit in memory), or a file could not be written or read (an {@link IOException}: a full
+ *     disk, a read-only folder, ...; one sentence naming the path and the cause, {@link Faults});</li>
  * <li>{@value #INTERNAL}: an unexpected internal error (a bug): the stack trace goes to stderr.</li>
  * </ul>
  */
@@ -37,7 +40,8 @@ import picocli.CommandLine.Spec;
         exitCodeList = {
             "0:success",
             "2:bad input or usage",
-            "3:run failed (e.g. the solver diverged, or out of memory; a sweep with failed or, for --merge-only, missing points)",
+            "3:run failed (e.g. the solver diverged, out of memory, a full disk or a folder that cannot be written; a sweep "
+                + "with failed or, for --merge-only, missing points)",
             "1:unexpected internal error"})
 public final class Main implements Callable<Integer> {
 
@@ -77,6 +81,12 @@ public final class Main implements Callable<Integer> {
                 .setExecutionExceptionHandler(Main::runError);
         try {
             return cl.execute(args);
+        } catch (OutOfMemoryError oom) {
+            // check and run refuse a case whose estimate does not fit; this is the estimate falling short
+            e.printf("evanesce: the run ran out of memory (the JVM may use %d MiB) although its estimate fitted; give the "
+                    + "JVM more memory (e.g. JAVA_OPTS=-Xmx%dg) and please report the case file%n",
+                    Runtime.getRuntime().maxMemory() >> 20, Math.max(2, 2 * (Runtime.getRuntime().maxMemory() >> 30)));
+            return RUN_FAILED;
         } finally {
             o.flush();
             e.flush();
@@ -104,6 +114,15 @@ public final class Main implements Callable<Integer> {
         }
         if (ex instanceof RunFailedException) {
             err.printf("%s: run failed: %s%n", name, ex.getMessage());
+            return RUN_FAILED;
+        }
+        if (ex instanceof org.evanesce.io.output.OutputRefusedException) {
+            err.printf("%s: %s%n", name, oneLine(ex.getMessage()));
+            return USAGE;
+        }
+        IOException io = Faults.ioCause(ex);
+        if (io != null) {
+            err.printf("%s: failed: %s%n", name, Faults.sentence(io));
             return RUN_FAILED;
         }
         err.printf("%s: internal error: %s%n", name, ex);

@@ -110,10 +110,18 @@ class CaseCommandsTest {
         assertEquals("keep me", Files.readString(out.resolve("my-notes.txt")));
         assertEquals(List.of("out", "tiny.yaml"), names(tmp), "leftovers of the refused run");
 
+        // issue 13: --force replaces only a folder holding nothing but what evanesce wrote
+        Cli.Outcome refused = Cli.run("run", c.toString(), "--out", out.toString(), "--set", "wl=800 nm", "--force");
+        assertEquals(Main.USAGE, refused.code(), refused::toString);
+        assertTrue(refused.err().contains("my-notes.txt") && refused.err().contains(out.toString()), refused::toString);
+        assertEquals("keep me", Files.readString(out.resolve("my-notes.txt")));
+        assertEquals(record, Files.readString(out.resolve("run.json")), "run.json changed by a refused --force");
+        assertEquals(List.of("out", "tiny.yaml"), names(tmp), "leftovers of the refused run");
+
+        Files.delete(out.resolve("my-notes.txt"));
         Cli.Outcome forced = Cli.run("run", c.toString(), "--out", out.toString(), "--set", "wl=800 nm", "--force");
         assertEquals(Main.OK, forced.code(), forced::toString);
         assertTrue(Files.readString(out.resolve("run.json")).contains("800 nm"), "--force did not replace run.json");
-        assertFalse(Files.exists(out.resolve("my-notes.txt")), "--force replaces the whole folder");
         assertEquals(List.of("out", "tiny.yaml"), names(tmp), "leftovers of the replaced run");
     }
 
@@ -140,13 +148,53 @@ class CaseCommandsTest {
 
     @Test
     void aDivergingRunExits3AndLeavesNoFolder() throws IOException {
-        Path c = write("gain.yaml", GAIN);
+        // gain is refused by the reader now, so the divergence is forced through the runner's seam for tests
+        Path c = write("gain.yaml", GAIN.replace("conductivity: -2e5 S/m", "conductivity: 2e5 S/m"));
         Path out = tmp.resolve("out");
-        Cli.Outcome o = Cli.run("run", c.toString(), "--out", out.toString());
+        Cli.Outcome o;
+        org.evanesce.io.run.CaseRunner.divergenceLimitForTests = plan -> 1e-30;
+        try {
+            o = Cli.run("run", c.toString(), "--out", out.toString());
+        } finally {
+            org.evanesce.io.run.CaseRunner.divergenceLimitForTests = plan -> Double.NaN;
+        }
         assertEquals(Main.RUN_FAILED, o.code(), o::toString);
         assertTrue(o.err().contains("diverged"), o::toString);
         assertFalse(Files.exists(out), "a failed run left its folder");
         assertEquals(List.of("gain.yaml"), names(tmp), "a failed run left files behind");
+    }
+
+    @Test
+    void gainIsRefusedByCheckWithItsPlace() throws IOException {
+        Path c = write("gain.yaml", GAIN);
+        Cli.Outcome o = Cli.run("check", c.toString(), "--trial-seconds", "0");
+        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertTrue(o.err().contains(c + ":6:36: materials.gain.conductivity: a negative conductivity (-200000 S/m) is gain"),
+                o::toString);
+        assertEquals(List.of("gain.yaml"), names(tmp), "a refused check wrote something");
+    }
+
+    /**
+     * A map region one cell wide holds two nodes across: the maps' grid needs three along each axis, so
+     * check refuses it at the region's line (a run used to fail after stepping, exit 1, results lost).
+     */
+    @Test
+    void aMapRegionTooNarrowForAGridIsRefusedByCheck() throws IOException {
+        Path c = write("narrow.yaml", TINY.replace("stop: {steps: 40}", """
+                maps:
+                  wavelengths: wl
+                  region: {from: [0, -0.5 um], to: [40 nm, 0.5 um]}
+                stop: {steps: 40}
+                """));
+        for (String[] args : new String[][] {
+            {"check", c.toString(), "--trial-seconds", "0", "--preview", tmp.resolve("p.png").toString()},
+            {"run", c.toString(), "--out", tmp.resolve("out").toString()}}) {
+            Cli.Outcome o = Cli.run(args);
+            assertEquals(Main.USAGE, o.code(), o::toString);
+            assertTrue(o.err().contains("narrow.yaml:16:") && o.err().contains("maps.region: the region holds 2 x 25 grid nodes; "
+                    + "it must hold at least 3 x 3"), o::toString);
+            assertEquals(List.of("narrow.yaml"), names(tmp), () -> args[0] + " wrote something: " + o);
+        }
     }
 
     @Test

@@ -14,11 +14,14 @@ class MainTest {
 
 
     @Test
-    void versionPrintsTheMavenVersion() {
+    void versionPrintsTheMavenVersionAndTheBuild() {
         Cli.Outcome o = Cli.run("--version");
         assertEquals(Main.OK, o.code(), o::toString);
         assertTrue(o.out().startsWith("evanesce 0."), o::toString);
-        assertTrue(!o.out().contains("unknown") && !o.out().contains("${"), "version not filtered by Maven: " + o);
+        String first = o.out().lines().findFirst().orElse("");
+        assertTrue(first.matches("evanesce 0\\.[^ ,]+, build ([0-9a-f]{12}|unknown)( with uncommitted changes)? \\([^)]+\\)"),
+                "version line: " + first);
+        assertTrue(!first.startsWith("evanesce unknown") && !o.out().contains("${"), "version not filtered by Maven: " + o);
     }
 
     @Test

@@ -17,7 +17,8 @@ import org.junit.jupiter.api.io.TempDir;
 /**
  * Issue #7: a single run killed (SIGKILL) after a checkpoint and started again with the same command
  * continues from the checkpoint and gives flux results identical, byte for byte, to an uninterrupted
- * run. The killed run is a child JVM; the moment of the kill is random (seeded, printed) but after the
+ * run. Issue 13: the rerun removes what the kill left (the temporary results folder, a checkpoint
+ * being written), so nothing remains beside the results. The killed run is a child JVM; the moment of the kill is random (seeded, printed) but after the
  * first checkpoint file has appeared.
  */
 class RunCheckpointTest {
@@ -77,6 +78,8 @@ class RunCheckpointTest {
         assertTrue(child.isAlive(), "the child finished before it could be killed; lengthen the case");
         child.destroyForcibly().waitFor();
         assertFalse(Files.exists(killed), "a killed run must not leave a results folder");
+        List<String> left = hidden(tmp);
+        System.out.println("RunCheckpointTest: the killed run left " + left);
 
         Cli.Outcome again = Cli.run("run", caseFile.toString(), "--out", killed.toString(), "--checkpoint-minutes", "0.002", "--threads", "2");
         assertEquals(Main.OK, again.code(), again.err());
@@ -84,5 +87,17 @@ class RunCheckpointTest {
         assertArrayEquals(Files.readAllBytes(whole.resolve("flux.csv")), Files.readAllBytes(killed.resolve("flux.csv")),
                 "flux.csv of the restarted run differs from the uninterrupted one");
         assertFalse(Files.exists(checkpoint), "the checkpoint is removed once the results are in place");
+        // issue 13: what the kill left (its temporary folder, perhaps a half-written checkpoint) the rerun removed
+        assertEquals(List.of(), hidden(tmp), "temporaries left after the rerun; the kill had left " + left + "\n" + again.out());
+        if (!left.isEmpty()) {
+            assertTrue(again.out().contains("note: removed "), again.out());
+        }
+    }
+
+    /** Names in a folder that start with '.' (evanesce's temporaries), sorted. */
+    static List<String> hidden(Path dir) throws IOException {
+        try (java.util.stream.Stream<Path> s = Files.list(dir)) {
+            return s.map(p -> p.getFileName().toString()).filter(n -> n.startsWith(".")).sorted().toList();
+        }
     }
 }

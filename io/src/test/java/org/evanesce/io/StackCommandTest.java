@@ -1,6 +1,7 @@
 package org.evanesce.io;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.Arrays;
@@ -187,5 +188,45 @@ class StackCommandTest {
         assertEquals(Main.USAGE, lossyIncidence.code(), lossyIncidence::toString);
         assertTrue(lossyIncidence.err().contains("--incident 1.5+0.1i") && lossyIncidence.err().contains("transparent"),
                 lossyIncidence::toString);
+    }
+
+    /**
+     * Values at the edge of what doubles hold are refused on one line, before any row is printed: never an
+     * exception, never a row of NaN. (Before: --exit 1e-300 and --wavelength 1e300m divided by zero, --incident 1e200
+     * printed NaN rows, an angle a hair below 90 degrees threw.)
+     */
+    @Test
+    void numericEdgeCasesAreRefusedNotPrintedAsNaN() {
+        String[][] cases = {
+            {"--incident", "1.5", "--exit", "1e-300", "--wavelength", "633nm", "--exit"},
+            {"--incident", "1e200", "--exit", "1.5", "--wavelength", "633nm", "--incident"},
+            {"--incident", "1e-300", "--exit", "1", "--wavelength", "633nm", "--incident"},
+            {"--incident", "1.5", "--exit", "1.5", "--layer", "1e300:100nm", "--wavelength", "633nm", "--layer"},
+            {"--incident", "1.5", "--exit", "1e300,1e300", "--wavelength", "633nm", "--exit"},
+            {"--incident", "1.5", "--exit", "1.5", "--wavelength", "1e-300nm", "--wavelength"},
+            {"--incident", "1.5", "--exit", "1.5", "--wavelength", "1e300m", "--wavelength"},
+            {"--incident", "1.5", "--exit", "1.5", "--wavelength", "-633nm", "--wavelength"},
+            {"--incident", "NaN", "--exit", "1.5", "--wavelength", "633nm", "--incident"},
+            {"--incident", "1.5", "--exit", "Infinity", "--wavelength", "633nm", "--exit"},
+            {"--incident", "1.5", "--exit", "0,1e-3", "--wavelength", "633nm", "--angle", "89.9999999", "angle"},
+            {"--incident", "1.5", "--exit", "1", "--wavelength", "633nm", "--angle", "80:89.99999999:0.00000001", "--angle"},
+        };
+        for (String[] c : cases) {
+            String[] args = new String[c.length];
+            args[0] = "stack";
+            System.arraycopy(c, 0, args, 1, c.length - 1);
+            Cli.Outcome o = Cli.run(args);
+            String what = String.join(" ", args) + ": " + o;
+            assertEquals(Main.USAGE, o.code(), what);
+            assertEquals("", o.out(), what);
+            assertEquals(1, o.err().lines().count(), what);
+            assertTrue(o.err().contains(c[c.length - 1]), what);
+            assertFalse(o.err().contains("Exception") || o.err().contains("NaN rows"), what);
+        }
+        // a zero thickness is a layer that is not there: the bare interface glass | glass reflects nothing
+        Cli.Outcome zero = Cli.run("stack", "--incident", "1.5", "--layer", "1.0:0nm", "--exit", "1.5", "--wavelength", "633nm",
+                "--csv");
+        assertEquals(Main.OK, zero.code(), zero::toString);
+        assertTrue(zero.out().lines().skip(1).allMatch(l -> l.startsWith("0,0,1,0,")), zero::toString);
     }
 }

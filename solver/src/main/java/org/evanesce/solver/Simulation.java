@@ -29,8 +29,13 @@ import org.evanesce.solver.source.Source;
  */
 public final class Simulation implements StepView, AutoCloseable {
 
-    /** The 2D Courant limit of the Yee scheme on a square grid, 1/√2 (Taflove &amp; Hagness ch. 4). */
-    public static final double COURANT_LIMIT_2D = 1.0 / Math.sqrt(2.0);
+    /**
+     * The 2D Courant limit 1/√2.
+     *
+     * @deprecated {@link Courant#LIMIT_2D} is its one home; kept until io.casefile's reader switches to it
+     */
+    @Deprecated
+    public static final double COURANT_LIMIT_2D = Courant.LIMIT_2D;
 
     private final Engine engine;
     private final BandTeam team;
@@ -65,7 +70,8 @@ public final class Simulation implements StepView, AutoCloseable {
         this.sources = b.sources.toArray(new Source[0]);
         this.flushInterval = b.flushInterval;
         this.listeners = new ArrayList<>(b.listeners);
-        engine = Engine.create(g, b.polarization, b.precision, b.courant, dt, b.sides);
+        double[][] coefficients = MaterialCoefficients.of(g.materials(), b.courant, dt);
+        engine = Engine.create(g, b.polarization, b.precision, b.courant, coefficients[0], coefficients[1], b.sides);
         sourceTermStart = new int[sources.length + 1];
         int n = 0;
         double amplitudeSum = 0;
@@ -314,6 +320,15 @@ public final class Simulation implements StepView, AutoCloseable {
         return precision;
     }
 
+    /**
+     * Whether the update ever changes component c at node (i, j) of an nx × ny grid with these
+     * sides: false outside the grid, on PEC walls, and on the ghost sites beyond the last node.
+     * Sources must sit where this is true ({@link Builder#build} refuses others).
+     */
+    public static boolean isUpdated(Map<Side, Boundary> sides, int nx, int ny, Component c, int i, int j) {
+        return Engine.wouldUpdate(sides, nx, ny, c, i, j);
+    }
+
     /** Width in bits of the vectors the update kernels use on this JVM. */
     public static int kernelVectorBits() {
         return Engine.vectorBits();
@@ -355,14 +370,42 @@ public final class Simulation implements StepView, AutoCloseable {
         return 0.5 * PhysicalConstants.EPS0 * cellSize * cellSize * engine.energy(i0, j0, i1, j1);
     }
 
-    /** Bytes held by field, coefficient and CPML arrays. */
+    /**
+     * What a run on an nx × ny grid will allocate for its fields, coefficients and CPML, computed
+     * before anything is allocated, in bytes: {@code {arrays, pml, buildScratch}} (see
+     * {@link Engine#footprint}): the arrays spanning the grid (and Bloch seam values), the CPML strips,
+     * and the double-precision coefficients that exist only while {@link Builder#build()} runs.
+     * {@code arrays + pml} is exactly what {@link #bytes()} reports once built: the one count of the
+     * solver's memory, for estimates made before planning.
+     *
+     * @param nx    grid nodes along x (with Bloch-periodic sides, the grid's: one column fewer than the domain's nodes)
+     * @param lossy whether any cell has conductivity (then every electric site is counted with its ca array;
+     *              a p grid with conductivity at only one of its two sites needs one array less)
+     */
+    public static long[] footprint(int nx, int ny, Polarization polarization, Precision precision, Map<Side, Boundary> sides,
+                                   boolean lossy) {
+        return Engine.footprint(nx, ny, polarization, precision, sides, lossy);
+    }
+
+    /**
+     * Bytes held by the field, coefficient, CPML and Bloch seam arrays, counted from the arrays
+     * themselves; {@link #footprint} gives the same figure before building.
+     */
     public long bytes() {
         return engine.bytes();
     }
 
-    /** Bytes per cell of the arrays that span the whole grid (outside the PML). */
+    /** Bytes per cell of the arrays that span the whole grid (outside the PML); {@link #predictBytesPerCell} beforehand. */
     public int bytesPerCell() {
         return engine.bytesPerCell();
+    }
+
+    /**
+     * The bytes per cell {@link #bytesPerCell()} will report: 16 (s) or 20 (p) in float without
+     * conductivity, 20 or 28 with it, twice that in double, and twice again with Bloch-periodic sides.
+     */
+    public static int predictBytesPerCell(Polarization polarization, Precision precision, boolean lossy, boolean blochPeriodic) {
+        return Engine.predictBytesPerCell(polarization, precision, lossy, blochPeriodic);
     }
 
     @Override
@@ -375,7 +418,7 @@ public final class Simulation implements StepView, AutoCloseable {
         private final MaterialGrid grid;
         private Polarization polarization = Polarization.S;
         private Precision precision = Precision.FLOAT;
-        private double courant = 0.5;
+        private double courant = Courant.DEFAULT;
         private final Map<Side, Boundary> sides = new EnumMap<>(Side.class);
         private int threads = Runtime.getRuntime().availableProcessors();
         private int minRowsCellsPerThread = 1 << 15;
@@ -402,7 +445,7 @@ public final class Simulation implements StepView, AutoCloseable {
             return this;
         }
 
-        /** Courant number S = c0Δt/Δ; must lie below the 2D limit 1/√2 (scaled by √εr,min where εr,min &lt; 1). */
+        /** Courant number S = c0Δt/Δ (default {@link Courant#DEFAULT}); must lie below {@link Courant#limit}. */
         public Builder courant(double s) {
             courant = s;
             return this;
@@ -472,7 +515,7 @@ public final class Simulation implements StepView, AutoCloseable {
 
         /** The largest stable Courant number for this grid's materials. */
         public double courantLimit() {
-            return COURANT_LIMIT_2D * Math.sqrt(Math.min(1.0, grid.minPermittivity()));
+            return Courant.limit(grid.minPermittivity());
         }
 
         /**
@@ -482,12 +525,7 @@ public final class Simulation implements StepView, AutoCloseable {
          */
         public Simulation build() {
             List<String> errors = new ArrayList<>();
-            double limit = courantLimit();
-            if (!(courant > 0) || !(courant < limit)) {
-                errors.add(String.format("Courant number %g must lie in (0, %g): the 2D Yee limit 1/sqrt(2)%s",
-                        courant, limit, limit < COURANT_LIMIT_2D
-                                ? String.format(" scaled by sqrt(%g), the smallest permittivity", grid.minPermittivity()) : ""));
-            }
+            Courant.refusal(courant, grid.minPermittivity()).ifPresent(errors::add);
             if (threads < 1) {
                 errors.add("threads " + threads + " must be >= 1");
             }
@@ -550,8 +588,7 @@ public final class Simulation implements StepView, AutoCloseable {
             if (!errors.isEmpty()) {
                 throw new IllegalArgumentException(String.join("\n", errors));
             }
-            double dt = courant * grid.cellSize() / PhysicalConstants.C0;
-            return new Simulation(this, dt);
+            return new Simulation(this, Courant.timeStep(courant, grid.cellSize()));
         }
 
         private int layers(Side s) {

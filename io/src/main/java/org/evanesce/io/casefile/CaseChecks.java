@@ -53,6 +53,8 @@ final class CaseChecks {
             memory();
         }
         decayWithContinuousWave();
+        sourcesWithinTheRun();
+        framesWithinTheRun();
         if (p.boundaries.size() == Side.values().length) {
             new PlaneWaveChecks(ctx, p, this).run();
         }
@@ -112,13 +114,20 @@ final class CaseChecks {
                         pml.cells(), fmt(pml.thickness().si()), MIN_PML_CELLS, MIN_PML_CELLS));
             }
         }
+        if (p.boundaries.get(Side.LEFT) instanceof BoundarySpec.Periodic per && p.resolution.nx() - 1 < 3) {
+            // the node at x = +W/2 is the image of the one at −W/2, so a period holds one column fewer
+            ctx.error(per.at(), p.boundaryPaths.get(Side.LEFT), String.format("with periodic sides a period needs at least 3 "
+                    + "cells across, but the domain's width is %d cells of %s; use a smaller cell or a wider domain",
+                    p.resolution.nx() - 1, fmt(p.resolution.cellSize().si())));
+        }
         across(Side.LEFT, Side.RIGHT, p.resolution.nx() - 1, "wide");
         across(Side.BOTTOM, Side.TOP, p.resolution.ny() - 1, "high");
     }
 
     private void across(Side a, Side b, int cells, String what) {
-        int used = pmlCells(a) + pmlCells(b);
-        if (used >= cells) {
+        long used = (long) pmlCells(a) + pmlCells(b); // long: a thickness may be written as a huge count
+        // the solver needs at least two interior cells between the layers
+        if (used > cells - 2) {
             BoundarySpec where = p.boundaries.get(pmlCells(b) > 0 ? b : a);
             ctx.error(where.at(), p.boundaryPaths.get(pmlCells(b) > 0 ? b : a), String.format(
                     "the %s and %s PMLs (%d + %d cells) leave no interior in a grid %d cells %s; thin them or enlarge the domain",
@@ -273,6 +282,48 @@ final class CaseChecks {
 
     private static String gib(double bytes) {
         return Units.number(bytes / (1L << 30)) + " GiB";
+    }
+
+    /** The run's end in seconds from a time or a limit; NaN for a number of steps. */
+    private double runEnd() {
+        return p.stop instanceof StopSpec.AfterTime t ? t.time().si()
+                : p.stop instanceof StopSpec.WhenDecayed d ? d.limit().si() : Double.NaN;
+    }
+
+    /** Frames asked for after the run's end are never written; an interval longer than the run gives none. */
+    private void framesWithinTheRun() {
+        double end = runEnd();
+        if (p.output == null || !(end > 0) || !p.output.writes(OutputSpec.Item.FIELD_FRAMES)) {
+            return;
+        }
+        for (int k = 0; k < p.output.frameTimes().size(); k++) {
+            Value t = p.output.frameTimes().get(k);
+            if (t.si() > end) {
+                ctx.warn(t.at(), "output.frame_times[" + k + "]", String.format("%s is after the run ends at %s; no frame is "
+                        + "written for it", Units.format(t.si(), Dimension.TIME), Units.format(end, Dimension.TIME)));
+            }
+        }
+        p.output.frameInterval().filter(i -> i.si() > end).ifPresent(i -> ctx.warn(i.at(), "output.frame_interval",
+                String.format("%s is longer than the run (%s); no frame is written", Units.format(i.si(), Dimension.TIME),
+                        Units.format(end, Dimension.TIME))));
+    }
+
+    /** A source whose pulse peaks (or whose ramp ends) after the run's end is most likely a mistyped value. */
+    private void sourcesWithinTheRun() {
+        double end = runEnd();
+        if (!(end > 0)) {
+            return;
+        }
+        for (int k = 0; k < p.sources.size(); k++) {
+            SignalSpec s = p.sources.get(k).signal();
+            if (s.peakTime() > end) {
+                ctx.warn(s.at(), p.sourcePaths.get(k) + ".signal", String.format("the %s %s at %s, after the run ends at %s; "
+                        + "the run sees %s of it (%s)", s.kind().replace('_', ' '), s instanceof SignalSpec.RampedWave
+                                ? "reaches full amplitude" : "peaks", Units.format(s.peakTime(), Dimension.TIME),
+                        Units.format(end, Dimension.TIME), s instanceof SignalSpec.RampedWave ? "only the switch-on" : "little",
+                        s instanceof SignalSpec.RampedWave ? "shorten the ramp or run longer" : "widen the bandwidth or run longer"));
+            }
+        }
     }
 
     private void decayWithContinuousWave() {

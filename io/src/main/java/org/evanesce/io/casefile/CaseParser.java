@@ -33,6 +33,8 @@ final class CaseParser {
 
     /** The most nodes one grid may have: one Java array per field, with the geometry module's margin. */
     static final long MAX_NODES = Integer.MAX_VALUE - 64;
+    /** A Courant number below this gets a warning: the steps multiply for no useful gain in accuracy. */
+    static final double SMALL_COURANT = 0.05;
     /** PML thickness when a side says just {@code pml}, in cells. */
     static final int DEFAULT_PML_CELLS = 16;
 
@@ -166,6 +168,11 @@ final class CaseParser {
         } else if (fr != null) {
             Value f = ctx.positive(fr, "design_frequency", Expect.FREQUENCY);
             designWavelength = f == null ? null : new Value(SignalSpec.SPEED_OF_LIGHT / f.si(), f.at());
+            if (designWavelength != null && Double.isInfinite(designWavelength.si())) {
+                ctx.error(f.at(), "design_frequency", Units.format(f.si(), Dimension.FREQUENCY) + " gives a wavelength too large "
+                        + "for a number; expected an optical frequency");
+                designWavelength = null;
+            }
         } else if (!sources.isEmpty() && sourcesComplete) {
             SignalSpec first = sources.get(0).signal();
             designWavelength = new Value(first.wavelength(), first.frequency().at());
@@ -202,7 +209,7 @@ final class CaseParser {
                 continue;
             }
             if (LibraryMaterial.byName(name) != null) {
-                ctx.error(at, path, "'" + name + "' is a built-in material; use it directly or choose another name");
+                ctx.error(at, path, "'" + Suggest.shown(name) + "' is a built-in material; use it directly or choose another name");
                 materialsComplete = false;
                 continue;
             }
@@ -227,6 +234,11 @@ final class CaseParser {
         String how = v.oneOf(false, "index", "permittivity", "library");
         Node c = v.get("conductivity");
         Value sigma = c == null ? new Value(0, at) : ctx.value(c, v.path("conductivity"), Expect.CONDUCTIVITY);
+        if (sigma != null && sigma.si() < 0) {
+            ctx.error(sigma.at(), v.path("conductivity"), "a negative conductivity (" + Units.format(sigma.si(), Dimension.CONDUCTIVITY)
+                    + ") is gain: the fields would grow without limit; expected 0 S/m or more");
+            sigma = null;
+        }
         Value eps = null;
         LibraryMaterial lib = null;
         if ("index".equals(how)) {
@@ -295,7 +307,7 @@ final class CaseParser {
                     for (LibraryMaterial l : LibraryMaterial.values()) {
                         known.add(l.caseName());
                     }
-                    ctx.error(ref.at(), e.getValue(), "unknown material '" + name + "'" + Suggest.didYouMean(name, known)
+                    ctx.error(ref.at(), e.getValue(), "unknown material '" + Suggest.shown(name) + "'" + Suggest.didYouMean(name, known)
                             + "; define it under materials or use one of " + String.join(", ", known));
                 }
             }
@@ -504,14 +516,14 @@ final class CaseParser {
         switch (word) {
             case "periodic":
                 if (!rest.isEmpty()) {
-                    ctx.error(s.positionAt(space), path, "periodic takes no thickness, got '" + rest + "'");
+                    ctx.error(s.positionAt(space), path, "periodic takes no thickness, got '" + Suggest.shown(rest) + "'");
                     return null;
                 }
                 return new BoundarySpec.Periodic(s.start());
             case "pec":
             case "pmc":
                 if (!rest.isEmpty()) {
-                    ctx.error(s.positionAt(space), path, word + " takes no thickness, got '" + rest + "'");
+                    ctx.error(s.positionAt(space), path, word + " takes no thickness, got '" + Suggest.shown(rest) + "'");
                     return null;
                 }
                 return word.equals("pec") ? new BoundarySpec.Pec(s.start()) : new BoundarySpec.Pmc(s.start());
@@ -554,7 +566,7 @@ final class CaseParser {
                 return new BoundarySpec.Pml(cells, new Value(cells * resolution.cellSize().si(), thick.start()), s.start());
             }
             default:
-                ctx.error(s.start(), path, "unknown boundary '" + word + "'" + Suggest.didYouMean(word, List.of("pec", "pmc", "pml", "periodic"))
+                ctx.error(s.start(), path, "unknown boundary '" + Suggest.shown(word) + "'" + Suggest.didYouMean(word, List.of("pec", "pmc", "pml", "periodic"))
                         + ", expected pec, pmc, pml, 'pml 20' (cells), 'pml 1 um' or periodic (left and right)");
                 return null;
         }
@@ -689,14 +701,15 @@ final class CaseParser {
                 if (text == null) {
                     continue;
                 }
-                if (!text.matches("[A-Za-z0-9_.-]+")) {
-                    ctx.error(ctx.pos(nn), v.path("name"), "a probe name names its output file: letters, digits, '_', '-' and '.' only, got '" + text + "'");
+                if (!text.matches(Schema.NAME)) {
+                    ctx.error(ctx.pos(nn), v.path("name"), "a probe name heads columns of probes.csv: at most " + Schema.NAME_LENGTH
+                            + " letters, digits, '_', '-' and '.', got '" + Suggest.shown(text) + "'");
                     continue;
                 }
                 name = new Located<>(text, ctx.pos(nn));
             }
             if (names.containsKey(name.value())) {
-                ctx.error(name.at(), v.path("name"), "duplicate probe name '" + name.value() + "', first used at line "
+                ctx.error(name.at(), v.path("name"), "duplicate probe name '" + Suggest.shown(name.value()) + "', first used at line "
                         + names.get(name.value()).name().at().line());
                 continue;
             }
@@ -737,6 +750,10 @@ final class CaseParser {
             case "steps": {
                 Node n = v.get("steps");
                 Long steps = ctx.whole(n, v.path("steps"), 1);
+                if (steps != null && steps > StopSpec.MAX_STEPS) {
+                    ctx.error(ctx.pos(n), v.path("steps"), String.format("%d steps is more than the limit of %d", steps, StopSpec.MAX_STEPS));
+                    steps = null;
+                }
                 stop = steps == null ? null : new StopSpec.AfterSteps(new Located<>(steps, ctx.pos(n)));
                 break;
             }
@@ -784,6 +801,11 @@ final class CaseParser {
                 ctx.error(s.at(), v.path("courant"), "must lie between 0 and the 2D stability limit 1/sqrt(2) = "
                         + Units.number(limit) + " (exclusive), got " + Units.number(s.si()));
                 s = null;
+            }
+            if (s != null && s.si() < SMALL_COURANT) {
+                ctx.warn(s.at(), v.path("courant"), String.format("a Courant number of %s makes the run take %s times the steps of the "
+                        + "default 0.5 for little gain in accuracy (the cell size sets it); expected about 0.5",
+                        Units.number(s.si()), Units.number(0.5 / s.si())));
             }
             ok &= s != null;
             courant = Optional.ofNullable(s);

@@ -1,8 +1,6 @@
 package org.evanesce.io.casefile;
 
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Comparator;
@@ -47,7 +45,7 @@ public final class CaseReader {
      */
     public static LoadedCase read(Path file, Map<String, String> overrides, ReadOptions options)
             throws IOException, CaseFileException {
-        return parse(Files.readString(file, StandardCharsets.UTF_8), file.toString(), overrides, options);
+        return parse(CaseText.read(file).text(), file.toString(), overrides, options);
     }
 
     /**
@@ -88,8 +86,15 @@ public final class CaseReader {
     }
 
     private static Node compose(String text, String source, Context ctx) {
-        LoadSettings settings = LoadSettings.builder().setLabel(source).setAllowDuplicateKeys(true).setUseMarks(true).build();
+        LoadSettings settings = LoadSettings.builder().setLabel(source).setAllowDuplicateKeys(true).setUseMarks(true)
+                .setCodePointLimit(CaseText.MAX_BYTES).setMaxAliasesForCollections(YamlLimits.MAX_COLLECTION_ALIASES).build();
         try {
+            // the composer recurses once per level of nesting: measure the nesting first, without recursion
+            Diagnostic tooDeep = YamlLimits.check(settings, text, source);
+            if (tooDeep != null) {
+                ctx.diagnostics.add(tooDeep);
+                return null;
+            }
             Optional<Node> root = new Compose(settings).composeString(text);
             if (root.isEmpty()) {
                 ctx.error(new SourcePosition(source, 1, 1), "", "the file is empty; a case needs at least polarization, domain, "

@@ -91,7 +91,7 @@ final class Context {
         } else if (isNull(n)) {
             return "nothing";
         }
-        return "'" + ((ScalarNode) n).getValue() + "'";
+        return "'" + Suggest.shown(((ScalarNode) n).getValue()) + "'";
     }
 
     /** The node as a single scalar, or null after reporting that it is not one (null for a missing node, already reported). */
@@ -123,7 +123,7 @@ final class Context {
             v = options.get(s.text().toLowerCase(Locale.ROOT));
         }
         if (v == null) {
-            error(s.start(), path, "unknown choice '" + s.text() + "'" + Suggest.didYouMean(s.text(), options.keySet())
+            error(s.start(), path, "unknown choice '" + Suggest.shown(s.text()) + "'" + Suggest.didYouMean(s.text(), options.keySet())
                     + ", expected one of " + String.join(", ", options.keySet()));
         }
         return v;

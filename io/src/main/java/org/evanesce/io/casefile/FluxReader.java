@@ -6,6 +6,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import org.evanesce.io.casefile.Context.Expect;
+import org.evanesce.io.casefile.expr.Suggest;
 import org.snakeyaml.engine.v2.nodes.MappingNode;
 import org.snakeyaml.engine.v2.nodes.Node;
 import org.snakeyaml.engine.v2.nodes.SequenceNode;
@@ -190,9 +191,9 @@ final class FluxReader {
                     ok = false;
                     continue;
                 }
-                if (!text.matches("[A-Za-z0-9_.-]+")) {
-                    ctx.error(ctx.pos(nn), v.path("name"), "a line name heads columns of flux.csv: letters, digits, '_', '-' and '.' "
-                            + "only, got '" + text + "'");
+                if (!text.matches(Schema.NAME)) {
+                    ctx.error(ctx.pos(nn), v.path("name"), "a line name heads columns of flux.csv: at most " + Schema.NAME_LENGTH
+                            + " letters, digits, '_', '-' and '.', got '" + Suggest.shown(text) + "'");
                     ok = false;
                     continue;
                 }

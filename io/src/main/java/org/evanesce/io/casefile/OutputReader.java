@@ -8,6 +8,8 @@ import java.util.Map;
 import java.util.Optional;
 import org.evanesce.io.casefile.Context.Expect;
 import org.evanesce.io.casefile.expr.Quantity;
+import org.evanesce.io.casefile.expr.Suggest;
+import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
 import org.snakeyaml.engine.v2.nodes.Node;
@@ -18,6 +20,8 @@ final class OutputReader {
 
     /** More frames than this is almost certainly a mistyped interval; each frame is one file. */
     static final int MAX_FRAMES = 100_000;
+    /** The most decades a log-scale picture shows (the pictures refuse more: doubles span about 600). */
+    static final int MAX_LOG_DECADES = 300;
 
     private static final Map<String, OutputSpec.Item> ITEMS = new LinkedHashMap<>();
     private static final Map<String, Component> COMPONENTS = new LinkedHashMap<>();
@@ -38,6 +42,30 @@ final class OutputReader {
     }
 
     /**
+     * Why {@code folder} cannot name a results folder, or null: it must name a folder of its own, not
+     * the case file's folder or one above it (the results folder is replaced as a whole with --force).
+     */
+    static String folderProblem(String folder) {
+        if (folder.isBlank()) {
+            return "'" + folder + "' names the case file's own folder; expected a folder of its own for the results, e.g. results";
+        }
+        if (folder.indexOf('\0') >= 0 || folder.chars().anyMatch(c -> c < 0x20)) {
+            return "contains a control character (a line break, a tab, ...); expected a plain folder name";
+        }
+        java.nio.file.Path p;
+        try {
+            p = java.nio.file.Path.of(folder).normalize();
+        } catch (java.nio.file.InvalidPathException e) {
+            return "'" + folder + "' is not a path this system accepts (" + e.getReason() + ")";
+        }
+        if (!p.isAbsolute() && (p.toString().isEmpty() || p.getFileName().toString().equals(".."))) {
+            return "'" + folder + "' names the case file's own folder or one above it; expected a folder of its own for the "
+                    + "results, e.g. results or ../results";
+        }
+        return null;
+    }
+
+    /**
      * @param hasProbes    whether the case defines probes (for the warning on an empty probes output)
      * @param polarization the case's, or null when unreadable
      * @return the section, or null when wrong (errors reported)
@@ -52,6 +80,11 @@ final class OutputReader {
         boolean ok = true;
         if (fn != null) {
             String f = ctx.text(fn, v.path("folder"));
+            String wrong = f == null ? null : folderProblem(f);
+            if (wrong != null) {
+                ctx.error(ctx.pos(fn), v.path("folder"), wrong);
+                f = null;
+            }
             ok &= f != null;
             folder = f == null ? Optional.empty() : Optional.of(new Located<>(f, ctx.pos(fn)));
         }
@@ -192,6 +225,11 @@ final class OutputReader {
         ok &= region != null;
         Node ln = v.get("log_decades");
         Value decades = ln == null ? new Value(4, v.at()) : ctx.positive(ln, v.path("log_decades"), Expect.PLAIN);
+        if (decades != null && decades.si() > MAX_LOG_DECADES) {
+            ctx.error(decades.at(), v.path("log_decades"), "at most " + MAX_LOG_DECADES + " decades (the range of double "
+                    + "numbers), got " + Units.number(decades.si()));
+            decades = null;
+        }
         ok &= decades != null;
         List<MapsSpec.DecayLine> lines = new ArrayList<>();
         Node dn = v.get("decay");
@@ -209,9 +247,10 @@ final class OutputReader {
                     }
                     Node nn = d.get("name");
                     String name = nn == null ? "line" + (k + 1) : ctx.text(nn, d.path("name"));
-                    if (name != null && !name.matches("[A-Za-z0-9_.-]+")) {
-                        ctx.error(ctx.pos(nn), d.path("name"), "a decay line's name: letters, digits, '_', '-' and '.' only, got '"
-                                + name + "'");
+                    if (name != null && !name.matches(Schema.NAME)) {
+                        ctx.error(ctx.pos(nn), d.path("name"), "a decay line's name: at most " + Schema.NAME_LENGTH
+                                + " letters, digits, '_', '-' and '.', got '"
+                                + Suggest.shown(name) + "'");
                         name = null;
                     }
                     Node fn = d.require("from", "where the fit starts, a point [x, y]");
@@ -224,7 +263,7 @@ final class OutputReader {
                     }
                     final String n = name;
                     if (lines.stream().anyMatch(l -> l.name().value().equals(n))) {
-                        ctx.error(d.at(), d.path("name"), "duplicate decay line name '" + name + "'");
+                        ctx.error(d.at(), d.path("name"), "duplicate decay line name '" + Suggest.shown(name) + "'");
                         ok = false;
                         continue;
                     }

@@ -1,8 +1,11 @@
 package org.evanesce.io.casefile;
 
+import java.util.ArrayDeque;
 import java.util.ArrayList;
+import java.util.Deque;
 import java.util.HashMap;
 import java.util.HashSet;
+import java.util.Iterator;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
@@ -71,7 +74,7 @@ final class ParameterTable {
 
     private void evaluate(String name) {
         try {
-            resolve(name, new ArrayList<>());
+            resolve(name);
         } catch (ExpressionException quiet) {
             // reported where it happened
         }
@@ -108,7 +111,7 @@ final class ParameterTable {
             return;
         }
         if (Expression.isReserved(name)) {
-            ctx.error(at, path, "'" + name + "' is the name of a unit, a function or pi; choose another name");
+            ctx.error(at, path, "'" + Suggest.shown(name) + "' is the name of a unit, a function or pi; choose another name");
             return;
         }
         if (defs.containsKey(name)) {
@@ -137,7 +140,7 @@ final class ParameterTable {
         SourcePosition at = SourcePosition.commandLine(name, text);
         Def original = defs.get(name);
         if (original == null) {
-            ctx.error(at, "parameters." + name, "the case has no parameter '" + name + "' to set"
+            ctx.error(at, "parameters." + name, "the case has no parameter '" + Suggest.shown(name) + "' to set"
                     + Suggest.didYouMean(name, defs.keySet())
                     + (defs.isEmpty() ? "; it defines none" : "; it defines " + String.join(", ", defs.keySet())));
             return;
@@ -147,48 +150,100 @@ final class ParameterTable {
         defs.put(name, new Def(name, s, parse(s, original.path()), true));
     }
 
-    private Quantity resolve(String name, List<String> stack) throws ExpressionException {
-        Quantity known = values.get(name);
-        if (known != null) {
-            return known;
+    /** A parameter being resolved and the parameters its expression uses that are still to be looked at. */
+    private record Frame(String name, Iterator<String> uses) { }
+
+    /**
+     * The value of parameter {@code name}, resolving the parameters it uses first. The walk through
+     * the definitions is depth-first with a stack of its own, not recursive, so chains of any length
+     * resolve; a circular definition is reported once, at its first parameter.
+     */
+    private Quantity resolve(String name) throws ExpressionException {
+        Deque<Frame> stack = new ArrayDeque<>();
+        Map<String, Integer> onStack = new HashMap<>();
+        List<String> path = new ArrayList<>();
+        enter(name, stack, onStack, path);
+        while (!stack.isEmpty()) {
+            Frame top = stack.peek();
+            if (top.uses.hasNext()) {
+                String ref = top.uses.next();
+                if (!defs.containsKey(ref) || values.containsKey(ref) || failed.contains(ref)) {
+                    continue; // undefined names are reported when the expression is evaluated
+                }
+                Integer loop = onStack.get(ref);
+                if (loop != null) {
+                    List<String> cycle = new ArrayList<>(path.subList(loop, path.size()));
+                    cycle.add(ref);
+                    Def first = defs.get(cycle.get(0));
+                    ctx.error(first.scalar.start(), first.path(), "circular definition: " + cycleText(cycle));
+                    failed.addAll(cycle);
+                    continue;
+                }
+                enter(ref, stack, onStack, path);
+                continue;
+            }
+            stack.pop();
+            onStack.remove(top.name);
+            path.remove(path.size() - 1);
+            evaluateOnce(top.name);
+        }
+        Quantity q = values.get(name);
+        if (q == null) {
+            throw ExpressionException.quiet(0);
+        }
+        return q;
+    }
+
+    /** "a -> b -> a", with the middle of a long cycle left out. */
+    private static String cycleText(List<String> cycle) {
+        if (cycle.size() <= 8) {
+            return String.join(" -> ", cycle);
+        }
+        return String.join(" -> ", cycle.subList(0, 4)) + " -> ... (" + (cycle.size() - 6) + " more) -> "
+                + String.join(" -> ", cycle.subList(cycle.size() - 2, cycle.size()));
+    }
+
+    private void enter(String name, Deque<Frame> stack, Map<String, Integer> onStack, List<String> path) {
+        Def d = defs.get(name);
+        Iterator<String> uses = d.expression == null || failed.contains(name) || values.containsKey(name)
+                ? java.util.Collections.emptyIterator() : d.expression.parameterNames().iterator();
+        onStack.put(name, path.size());
+        path.add(name);
+        stack.push(new Frame(name, uses));
+    }
+
+    /** Evaluates a parameter whose uses are resolved (or failed); reports its own problems once. */
+    private void evaluateOnce(String name) {
+        if (values.containsKey(name) || failed.contains(name)) {
+            return;
         }
         Def d = defs.get(name);
-        if (failed.contains(name) || d.expression == null) {
+        if (d.expression == null) {
             failed.add(name);
-            throw ExpressionException.quiet(0);
+            return;
         }
-        int loop = stack.indexOf(name);
-        if (loop >= 0) {
-            List<String> cycle = new ArrayList<>(stack.subList(loop, stack.size()));
-            cycle.add(name);
-            Def first = defs.get(cycle.get(0));
-            ctx.error(first.scalar.start(), first.path(), "circular definition: " + String.join(" -> ", cycle));
-            failed.addAll(cycle);
-            throw ExpressionException.quiet(0);
-        }
-        stack.add(name);
         try {
             Quantity q = d.expression.evaluate((ref, offset) -> {
                 if (!defs.containsKey(ref)) {
                     throw new ExpressionException(offset, undefined(ref));
                 }
-                return resolve(ref, stack);
+                Quantity v = values.get(ref);
+                if (v == null) {
+                    throw ExpressionException.quiet(offset); // its own problem is reported where it is defined
+                }
+                return v;
             });
             values.put(name, q);
-            return q;
         } catch (ExpressionException e) {
-            if (!e.isQuiet() && !failed.contains(name)) {
+            if (!e.isQuiet()) {
                 ctx.error(d.scalar.positionAt(e.offset()), d.path(), e.getMessage());
             }
             failed.add(name);
-            throw ExpressionException.quiet(e.offset());
-        } finally {
-            stack.remove(stack.size() - 1);
         }
     }
 
     private String undefined(String name) {
-        return "undefined parameter '" + name + "'" + Suggest.didYouMean(name, defs.keySet());
+        return "undefined parameter '" + Suggest.shown(name) + "'" + Suggest.didYouMean(name, defs.keySet());
     }
 
     /** The value of a parameter for expressions elsewhere in the file. */
@@ -196,7 +251,7 @@ final class ParameterTable {
         if (!defs.containsKey(name)) {
             throw new ExpressionException(offset, undefined(name));
         }
-        return resolve(name, new ArrayList<>());
+        return resolve(name);
     }
 
     /** Every parameter that has a value, in file order. */

@@ -20,6 +20,11 @@ final class Schema {
         }
     }
 
+    /** The most characters of a name that heads output columns (probes, flux lines, decay lines). */
+    static final int NAME_LENGTH = 64;
+    /** Such a name: letters, digits, '_', '-' and '.', at most {@link #NAME_LENGTH} of them. */
+    static final String NAME = "[A-Za-z0-9_.-]{1," + NAME_LENGTH + "}";
+
     static final Section ROOT = new Section("(top level)", List.of("title", "parameters", "design_wavelength",
             "design_frequency", "polarization", "domain", "resolution", "materials", "shapes", "boundaries", "sources",
             "probes", "flux", "maps", "output", "stop", "numerics"));

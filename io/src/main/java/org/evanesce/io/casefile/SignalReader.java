@@ -78,9 +78,24 @@ final class SignalReader {
         }
         if (key.equals("wavelength")) {
             Value wl = ctx.positive(v.get("wavelength"), v.path("wavelength"), Expect.LENGTH);
-            return wl == null ? null : new Value(SignalSpec.SPEED_OF_LIGHT / wl.si(), wl.at());
+            if (wl == null) {
+                return null;
+            }
+            return finiteReciprocal(new Value(SignalSpec.SPEED_OF_LIGHT / wl.si(), wl.at()), v.path("wavelength"), wl.si(),
+                    Dimension.LENGTH);
         }
-        return ctx.positive(v.get("frequency"), v.path("frequency"), Expect.FREQUENCY);
+        Value f = ctx.positive(v.get("frequency"), v.path("frequency"), Expect.FREQUENCY);
+        return f == null ? null : finiteReciprocal(f, v.path("frequency"), f.si(), Dimension.FREQUENCY);
+    }
+
+    /** The frequency, unless it or the wavelength c0/f is too large for a number (an error then, null). */
+    private Value finiteReciprocal(Value f, String path, double given, Dimension kind) {
+        if (!Double.isFinite(f.si()) || !Double.isFinite(SignalSpec.SPEED_OF_LIGHT / f.si())) {
+            ctx.error(f.at(), path, Units.format(given, kind) + " gives a " + (kind == Dimension.LENGTH ? "frequency" : "wavelength")
+                    + " too large for a number; expected an optical " + (kind == Dimension.LENGTH ? "wavelength" : "frequency"));
+            return null;
+        }
+        return f;
     }
 
     /**
@@ -108,7 +123,13 @@ final class SignalReader {
                 return null;
             }
             double c = SignalSpec.SPEED_OF_LIGHT;
-            return new Value(c / (wl - q.value() / 2) - c / (wl + q.value() / 2), s.start());
+            double width = c / (wl - q.value() / 2) - c / (wl + q.value() / 2);
+            if (!(width > 0) || Double.isInfinite(width)) {
+                ctx.error(s.start(), path, "a span of " + q + " around " + Units.format(wl, Dimension.LENGTH)
+                        + " gives no frequency width that a number can hold; expected a wavelength and a span of a few percent of it");
+                return null;
+            }
+            return new Value(width, s.start());
         }
         ctx.error(s.start(), path, (q.dimension().isNone() ? Context.noUnit(s, q) : "got " + q + " (" + q.dimension().describe() + ")")
                 + ", expected a wavelength span such as 40 nm or a frequency span such as 30 THz");

@@ -21,6 +21,9 @@ public sealed interface SignalSpec {
     /** The shortest vacuum wavelength the signal carries with significant power, metres. */
     double shortestWavelength();
 
+    /** When the signal reaches its peak (a pulse) or its full amplitude (a ramped wave), seconds after the start. */
+    double peakTime();
+
     /** Vacuum wavelength at {@link #frequency()}, metres. */
     default double wavelength() {
         return SPEED_OF_LIGHT / frequency().si();
@@ -49,6 +52,12 @@ public sealed interface SignalSpec {
         public double shortestWavelength() {
             return SPEED_OF_LIGHT / (frequency.si() + bandwidth.si() / 2);
         }
+
+        /** The envelope's peak: six times its width 1/(2πσf), as the solver's pulse (GaussianPulse.delay). */
+        @Override
+        public double peakTime() {
+            return 6 / (2 * Math.PI * spectrumSigma());
+        }
     }
 
     /** A sinusoid at {@code frequency} switched on smoothly over {@code rampTime} seconds. */
@@ -63,6 +72,11 @@ public sealed interface SignalSpec {
         public double shortestWavelength() {
             return wavelength();
         }
+
+        @Override
+        public double peakTime() {
+            return rampTime.si();
+        }
     }
 
     /** The time derivative of a Gaussian whose spectrum peaks at {@code frequency}. */
@@ -76,6 +90,12 @@ public sealed interface SignalSpec {
         /** The Gaussian's width τ = 1/(2π f_peak), seconds. */
         public double width() {
             return 1.0 / (2 * Math.PI * frequency.si());
+        }
+
+        /** The centre of the pulse: six widths, as the solver's signal (DifferentiatedGaussian). */
+        @Override
+        public double peakTime() {
+            return 6 * width();
         }
 
         /**

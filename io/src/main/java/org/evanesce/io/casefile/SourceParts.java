@@ -14,8 +14,18 @@ final class SourceParts {
     /** {@code amplitude}, 1 when absent; null when wrong (reported). */
     static Value amplitude(Context ctx, MapView v) {
         Node an = v.get("amplitude");
-        return an == null ? new Value(1, v.at()) : ctx.value(an, v.path("amplitude"), Expect.PLAIN);
+        Value a = an == null ? new Value(1, v.at()) : ctx.value(an, v.path("amplitude"), Expect.PLAIN);
+        if (a != null && Math.abs(a.si()) > MAX_AMPLITUDE) {
+            ctx.error(a.at(), v.path("amplitude"), "an amplitude of " + Units.number(a.si()) + " leaves the fields no room: "
+                    + "single-precision fields hold values up to 3.4e38 and a source's field can grow well beyond its amplitude; "
+                    + "expected at most " + Units.number(MAX_AMPLITUDE) + " (results are normalised, so 1 rarely needs changing)");
+            return null;
+        }
+        return a;
     }
+
+    /** The largest source amplitude: 1e30 leaves single-precision fields (up to 3.4e38) eight decades of growth. */
+    static final double MAX_AMPLITUDE = 1e30;
 
     /** The required {@code signal}; null when missing or wrong (reported). */
     static SignalSpec signal(Context ctx, SignalReader signals, MapView v, String example) {

@@ -8,7 +8,11 @@ public sealed interface SourceSpec {
 
     Located<Component> component();
 
-    /** Peak amplitude of the driving current, a plain number (normalised units). */
+    /**
+     * Peak amplitude of the driving current at each site, η0·Δ·J (or Δ·M for a magnetic current) in V/m: for
+     * a plane wave's sheet that is η0 times its current per metre (or its magnetic current per metre), whatever
+     * the cell size. A Gaussian beam's amplitude is its z field at the waist centre instead.
+     */
     Value amplitude();
 
     SignalSpec signal();

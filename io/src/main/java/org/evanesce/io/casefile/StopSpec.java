@@ -3,6 +3,12 @@ package org.evanesce.io.casefile;
 /** When a run ends. */
 public sealed interface StopSpec {
 
+    /**
+     * The most time steps a run may take: about a day of stepping for a grid of ten thousand cells; more is
+     * almost surely a mistyped time, Courant number or cell size.
+     */
+    long MAX_STEPS = 1_000_000_000L;
+
     /** Where the stopping rule was written. */
     SourcePosition at();
 

@@ -2,7 +2,6 @@ package org.evanesce.io.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -11,6 +10,7 @@ import java.util.concurrent.Callable;
 import org.evanesce.io.Main;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.output.Json;
+import org.evanesce.io.output.OutputFolders;
 import org.evanesce.io.output.RunFolder;
 import org.evanesce.io.run.FluxResults;
 import org.evanesce.io.run.RunOutputs;
@@ -110,7 +110,8 @@ public final class AccuracyCommand implements Callable<Integer> {
         }
         Path base = RunCommand.defaultFolder(options.caseFile, loaded.get(0).get(0).plan().spec());
         Path folder = out != null ? out : base.resolveSibling(base.getFileName() + "-accuracy");
-        try (RunFolder study = RunFolder.begin(folder, force)) {
+        try (RunFolder study = RunFolder.begin(folder, force, OutputFolders.around(options.caseFile))) {
+            study.cleaned().forEach(line -> o.println("note: " + line));
             List<List<FluxResults>> tables = new ArrayList<>();
             double[] cells = new double[levels];
             for (int l = 0; l < levels; l++) {
@@ -123,7 +124,8 @@ public final class AccuracyCommand implements Callable<Integer> {
                     Path dir = study.dir().resolve("level" + (l + 1));
                     java.nio.file.Files.createDirectories(dir);
                     try (RunFolder rf = RunFolder.begin(offsets == 1 ? dir.resolve("run") : dir.resolve("offset" + k), false)) {
-                        level.add(CaseExecution.run(c, options.overrides, rf, o, progressSeconds, false).flux());
+                        level.add(CaseExecution.run(c, options.overrides, rf, o, progressSeconds, false,
+                                spec.commandLine().getParseResult().originalArgs()).flux());
                         rf.commit();
                     }
                 }
@@ -143,8 +145,6 @@ public final class AccuracyCommand implements Callable<Integer> {
             o.println("results: " + study.target());
             o.println("Caution: " + RunOutputs.CAUTION);
             return Main.OK;
-        } catch (FileAlreadyExistsException e) {
-            throw new ParameterException(spec.commandLine(), e.getFile() + ": " + e.getReason());
         }
     }
 

@@ -6,6 +6,7 @@ import java.util.Locale;
 import java.util.Map;
 import org.evanesce.io.casefile.CaseSpec;
 import org.evanesce.io.casefile.OutputSpec;
+import org.evanesce.io.output.BuildInfo;
 import org.evanesce.io.output.Json;
 import org.evanesce.io.output.RunFolder;
 import org.evanesce.io.plan.CasePlan;
@@ -23,14 +24,19 @@ import org.evanesce.solver.monitor.Snapshots;
 import org.evanesce.io.run.CaseRunner;
 import org.evanesce.io.run.FluxResults;
 import org.evanesce.io.run.FluxTable;
+import org.evanesce.io.run.Plausibility;
 import org.evanesce.io.run.ProgressLine;
 import org.evanesce.io.run.RunOutputs;
+import org.evanesce.io.run.Settling;
 
 /** Runs one planned case and writes its results into an open (not yet committed) results folder. */
 final class CaseExecution {
 
-    /** What a run produced: its record and, when the case asks for flux, the normalised table. */
-    record Finished(CaseRunner.Result result, FluxResults flux) { }
+    /**
+     * What a run produced: its record, the normalised table when the case asks for flux, whether it settled and
+     * what is wrong with its results (printed, and recorded in run.json and summary.json).
+     */
+    record Finished(CaseRunner.Result result, FluxResults flux, Settling settling, List<String> warnings) { }
 
     private CaseExecution() {
     }
@@ -40,13 +46,18 @@ final class CaseExecution {
      * @param table           print the flux table when the run has one
      */
     static Finished run(CaseOptions.Loaded l, Map<String, String> overrides, RunFolder rf, PrintWriter o,
-                        double progressSeconds, boolean table) throws IOException {
-        return run(l, overrides, rf, o, progressSeconds, table, null);
+                        double progressSeconds, boolean table, List<String> commandLine) throws IOException {
+        return run(l, overrides, rf, o, progressSeconds, table, null, commandLine);
     }
 
-    /** The same with checkpoints (null: none). */
+    /**
+     * The same with checkpoints (null: none).
+     *
+     * @param commandLine the arguments the program was given (for run.json)
+     */
     static Finished run(CaseOptions.Loaded l, Map<String, String> overrides, RunFolder rf, PrintWriter o,
-                        double progressSeconds, boolean table, Checkpoints checkpoints) throws IOException {
+                        double progressSeconds, boolean table, Checkpoints checkpoints, List<String> commandLine)
+            throws IOException {
         CasePlan plan = l.plan();
         CaseSpec s = plan.spec();
         boolean terminal = System.console() != null;
@@ -90,8 +101,14 @@ final class CaseExecution {
             FluxPlan f = plan.flux().get();
             BeamPlots.write(f, s.polarization().value(), f.closest(s.sources().get(0).signal().frequency().si()), rf.dir());
         }
+        Settling settling = Settling.of(plan, r, flux);
+        List<String> warnings = new ArrayList<>(settling.warnings());
+        warnings.addAll(Plausibility.check(plan, flux, settling));
+        if (flux != null) {
+            warnings.addAll(flux.warnings()); // e.g. a beam's reference that did not converge
+        }
         if (flux != null || !decays.isEmpty()) {
-            rf.writeText("summary.json", Json.write(RunOutputs.summary(plan, flux, decays)));
+            rf.writeText("summary.json", Json.write(RunOutputs.summary(plan, flux, decays, settling, warnings)));
         }
         if (s.output().writes(OutputSpec.Item.PROBES)) {
             rf.writeText("probes.csv", RunOutputs.probesCsv(plan.probes()));
@@ -99,8 +116,8 @@ final class CaseExecution {
         if (s.output().writes(OutputSpec.Item.PREVIEW)) {
             RunOutputs.preview(plan, rf.dir().resolve("preview.png"));
         }
-        RunOutputs.writeRunRecord(rf, RunOutputs.runRecord(VersionProvider.version(), l.sha256(), plan, r,
-                l.loaded().diagnostics(), overrides));
+        RunOutputs.writeRunRecord(rf, RunOutputs.runRecord(new RunOutputs.Invocation(BuildInfo.current(), commandLine),
+                l.sha256(), plan, r, settling, l.loaded().diagnostics(), warnings, overrides));
         long cells = (long) plan.grid().nx() * plan.grid().ny();
         o.printf(Locale.ROOT, "done: %d steps in %.1f s (%.0f Mcell/s, %d threads)%s; %s%n", r.steps(), r.wallSeconds(),
                 r.cellUpdatesPerSecond(cells) / 1e6, r.threads(),
@@ -117,6 +134,9 @@ final class CaseExecution {
                             ? String.format(Locale.ROOT, " (plane-wave value %.5g nm, %+.2f %%)", d.planeWave() * 1e9,
                             100 * (d.fit().length() / d.planeWave() - 1)) : ""));
         }
-        return new Finished(r, flux);
+        for (String w : warnings) {
+            o.println(RunOutputs.runWarning(plan, w));
+        }
+        return new Finished(r, flux, settling, List.copyOf(warnings));
     }
 }

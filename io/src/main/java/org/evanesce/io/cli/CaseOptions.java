@@ -72,6 +72,8 @@ final class CaseOptions {
             loaded = CaseReader.read(caseFile, overrides, read);
         } catch (NoSuchFileException e) {
             throw new BadInput(caseFile + ": no such file");
+        } catch (java.nio.file.AccessDeniedException e) {
+            throw new BadInput(caseFile + ": cannot read: permission denied");
         } catch (IOException e) {
             throw new BadInput(caseFile + ": cannot read: " + e.getMessage());
         } catch (CaseFileException e) {
@@ -84,7 +86,9 @@ final class CaseOptions {
             err.println(d);
         }
         try {
-            CasePlan plan = CasePlanner.plan(loaded.spec(), threads);
+            Integer asked = threads != null ? threads : loaded.spec().numerics().threads().map(t -> t.value()).orElse(null);
+            Integer use = ThreadLimit.current().apply(asked, err::println, Runtime.getRuntime().availableProcessors());
+            CasePlan plan = CasePlanner.plan(loaded.spec(), use, read.memoryLimit());
             return new Loaded(loaded, plan, sha256(caseFile));
         } catch (PlanException e) {
             for (Diagnostic d : e.diagnostics()) {

@@ -7,6 +7,7 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.evanesce.io.Main;
 import org.evanesce.io.plan.CasePlan;
+import org.evanesce.io.plan.MemoryEstimate;
 import org.evanesce.io.run.CaseRunner;
 import org.evanesce.io.run.JitWarmUp;
 import org.evanesce.io.run.RunOutputs;
@@ -52,8 +53,11 @@ public final class CheckCommand implements Callable<Integer> {
                 plan.grid().nx(), plan.grid().ny(), cells, plan.grid().cellSize() * 1e9, plan.materials().materials().size());
         o.printf(Locale.ROOT, "time step: %.4g fs; steps: %s%d%n", plan.dt() * 1e15,
                 plan.stop() instanceof CasePlan.Stop.Decay ? "at most " : "", maxSteps);
+        o.printf(Locale.ROOT, "memory: about %s in all (%s); the JVM may use %s%n",
+                MemoryEstimate.format(plan.memory().total()), plan.memory().breakdown(),
+                MemoryEstimate.format(Runtime.getRuntime().maxMemory()));
         try (Simulation sim = CaseRunner.build(plan)) {
-            o.printf(Locale.ROOT, "memory: %.1f MiB of field, coefficient and PML arrays (%d bytes per cell), %d threads%n",
+            o.printf(Locale.ROOT, "solver: %.1f MiB of field, coefficient and PML arrays (%d bytes per cell), %d threads%n",
                     sim.bytes() / 1048576.0, sim.bytesPerCell(), sim.threads());
             if (trialSeconds > 0) {
                 JitWarmUp.run(plan.spec().polarization().value(), plan.spec().numerics().precision().value());

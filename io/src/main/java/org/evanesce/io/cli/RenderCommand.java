@@ -68,16 +68,45 @@ public final class RenderCommand implements Callable<Integer> {
                     + "folder of a case with a maps section or with 'fields' in output.write");
         }
         Path dir = out != null ? out : folder;
+        if (Files.exists(dir) && !Files.isDirectory(dir)) {
+            throw new ParameterException(spec.commandLine(), "--out " + dir + ": is a file, not a folder");
+        }
         Files.createDirectories(dir);
+        for (String line : org.evanesce.io.output.Leftovers.clean(dir, n -> n.endsWith(".png"))) {
+            o.println("note: " + line);
+        }
         int written = 0;
         if (Files.isRegularFile(maps)) {
-            written += renderMaps(maps, dir);
+            written += readable(maps, () -> renderMaps(maps, dir));
         }
         if (Files.isRegularFile(fields)) {
-            written += renderFields(fields, folder.resolve("permittivity.h5"), dir);
+            written += readable(fields, () -> renderFields(fields, folder.resolve("permittivity.h5"), dir));
         }
         o.printf(Locale.ROOT, "rendered %d pictures into %s%n", written, dir);
         return Main.OK;
+    }
+
+    /** Reading one HDF5 file and drawing its pictures. */
+    @FunctionalInterface
+    private interface Drawing {
+        int draw() throws IOException;
+    }
+
+    /**
+     * Runs {@code d}; a file that jhdf cannot read, or that lacks what an evanesce run writes into it
+     * (datasets, attributes), ends the command with one sentence naming the file (exit 3, see Main).
+     */
+    private static int readable(Path file, Drawing d) throws IOException {
+        try {
+            return d.draw();
+        } catch (RuntimeException e) {
+            String why = e.getMessage() == null ? e.getClass().getSimpleName()
+                    : e.getMessage().strip().replaceAll("\\s*\\R\\s*", "; ");
+            java.nio.file.FileSystemException f = new java.nio.file.FileSystemException(file.toString(), null,
+                    "not a readable HDF5 file of an evanesce run (it may be cut short or damaged): " + why);
+            f.initCause(e);
+            throw f;
+        }
     }
 
     private int renderMaps(Path file, Path dir) throws IOException {

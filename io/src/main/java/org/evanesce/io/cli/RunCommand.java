@@ -2,11 +2,14 @@ package org.evanesce.io.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Path;
+import java.util.List;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import org.evanesce.io.Main;
 import org.evanesce.io.casefile.CaseSpec;
+import org.evanesce.io.RunFailedException;
+import org.evanesce.io.output.OutputFolders;
 import org.evanesce.io.output.RunFolder;
 import org.evanesce.io.run.Checkpoints;
 import org.evanesce.io.run.RunOutputs;
@@ -14,7 +17,6 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
 
 /**
@@ -52,19 +54,40 @@ public final class RunCommand implements Callable<Integer> {
     public Integer call() throws IOException {
         PrintWriter o = spec.commandLine().getOut();
         CaseOptions.Loaded l = options.load(spec);
-        Path folder = out != null ? out : defaultFolder(options.caseFile, l.plan().spec());
+        Path folder = (out != null ? out : defaultFolder(options.caseFile, l.plan().spec())).toAbsolutePath().normalize();
+        List<OutputFolders.Protected> protect = OutputFolders.around(options.caseFile);
+        // refused before anything is written (exit 2, see Main): nothing beside the folder is touched either
+        OutputFolders.checkResults(folder, force, protect);
         Checkpoints ck = checkpoints(l, folder, o);
-        try (RunFolder rf = RunFolder.begin(folder, force)) {
-            CaseExecution.run(l, options.overrides, rf, o, progressSeconds, true, ck);
-            rf.commit();
-            if (ck != null) {
-                java.nio.file.Files.deleteIfExists(ck.file());
+        for (int attempt = 0; ; attempt++) {
+            try (RunFolder rf = RunFolder.begin(folder, force, protect)) {
+                rf.cleaned().forEach(line -> o.println("note: " + line));
+                CaseExecution.Finished f = CaseExecution.run(l, options.overrides, rf, o, progressSeconds, true, ck,
+                        spec.commandLine().getParseResult().originalArgs());
+                rf.commit();
+                if (ck != null) {
+                    ck.delete();
+                }
+                if (!rf.target().equals(folder)) {
+                    o.println("note: " + folder + " appeared during the run and may not be replaced; the results went to "
+                            + rf.target() + " instead");
+                }
+                o.println("results: " + rf.target());
+                if (!f.warnings().isEmpty()) {
+                    spec.commandLine().getErr().printf(java.util.Locale.ROOT, "evanesce run: warning: %s%s (printed above, and "
+                            + "in run.json%s)%n", Boolean.FALSE.equals(f.settling().settled()) ? "the results did not settle"
+                            : "the results look implausible", f.warnings().size() > 1 ? " and " + (f.warnings().size() - 1)
+                            + " more warning(s)" : "", f.flux() != null ? " and summary.json" : "");
+                }
+                o.println("Caution: " + RunOutputs.CAUTION);
+                return Main.OK;
+            } catch (Checkpoints.Unusable e) {
+                if (attempt > 0) {
+                    throw new RunFailedException(e.getMessage(), e);
+                }
+                o.println("warning: " + e.getMessage() + "; the run starts from the beginning");
+                l = options.load(spec);
             }
-            o.println("results: " + rf.target());
-            o.println("Caution: " + RunOutputs.CAUTION);
-            return Main.OK;
-        } catch (FileAlreadyExistsException e) {
-            throw new ParameterException(spec.commandLine(), e.getFile() + ": " + e.getReason());
         }
     }
 
@@ -78,9 +101,25 @@ public final class RunCommand implements Callable<Integer> {
             return null;
         }
         Path file = folder.toAbsolutePath().resolveSibling(folder.getFileName() + ".checkpoint");
-        StringBuilder id = new StringBuilder(l.sha256()).append('|').append(VersionProvider.version());
-        new java.util.TreeMap<>(options.overrides).forEach((k, v) -> id.append('|').append(k).append('=').append(v));
-        return new Checkpoints(file, checkpointMinutes * 60, id.toString());
+        if (java.nio.file.Files.exists(file, java.nio.file.LinkOption.NOFOLLOW_LINKS)
+                && !java.nio.file.Files.isRegularFile(file, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
+            o.println("note: " + file + " is a folder or a link, not a checkpoint evanesce wrote; it is left alone and this run "
+                    + "saves no checkpoints");
+            return null;
+        }
+        return new Checkpoints(file, checkpointMinutes * 60, checkpointIdentity(l.sha256(),
+                org.evanesce.io.output.BuildInfo.current(), options.overrides), o::println);
+    }
+
+    /**
+     * A run's identity in its checkpoint: the case file's hash, the overrides, the program's version and its
+     * build id (a rebuilt program may compute other numbers, and its listeners may save other state, so it
+     * never continues another build's checkpoint).
+     */
+    static String checkpointIdentity(String caseSha256, org.evanesce.io.output.BuildInfo build, Map<String, String> overrides) {
+        StringBuilder id = new StringBuilder(caseSha256).append('|').append(build.version()).append('|').append(build.id());
+        new java.util.TreeMap<>(overrides).forEach((k, v) -> id.append('|').append(k).append('=').append(v));
+        return id.toString();
     }
 
     /** The case's output folder (relative to the case file's folder), else the case file's name without extension. */

@@ -45,6 +45,12 @@ public final class StackCommand implements Callable<Integer> {
 
     /** A sweep longer than this is almost certainly a mistyped step. */
     static final int MAX_ROWS = 100_000;
+    /** Wavelengths accepted: 1 pm to 1 km, far beyond optics either way, so that k0 and its products stay finite. */
+    static final double MIN_WAVELENGTH = 1e-12;
+    static final double MAX_WAVELENGTH = 1e3;
+    /** Indices accepted: n and k up to 1e4 and |n + ki| from 1e-4, so that their products with k0 stay finite. */
+    static final double MAX_INDEX = 1e4;
+    static final double MIN_INDEX = 1e-4;
 
     /** Which polarizations to print. */
     enum Choice {
@@ -129,8 +135,9 @@ public final class StackCommand implements Callable<Integer> {
             }
         }
         for (double w : wavelength.values()) {
-            if (!(w > 0)) {
-                throw usage("--wavelength " + wavelength.text() + ": a wavelength must be a length > 0");
+            if (!(w >= MIN_WAVELENGTH && w <= MAX_WAVELENGTH)) {
+                throw usage("--wavelength " + wavelength.text() + ": " + Units.format(w, Dimension.LENGTH) + " is outside "
+                        + "the wavelengths this calculator accepts, 1 pm to 1 km");
             }
         }
         if (thickness != null && thickness.layer() > layers.size()) {
@@ -160,12 +167,8 @@ public final class StackCommand implements Callable<Integer> {
             head.addAll(List.of("R_" + s, "T_" + s, "A_" + s, "phase_r_" + s + "_deg", "phase_t_" + s + "_deg"));
         }
         head.add("depth_nm");
-        if (csv) {
-            out.println(String.join(",", head));
-        } else {
-            printHeader(out, stack, gap);
-            out.println(tableRow(head));
-        }
+        // every row is computed before anything is printed, so a refused row leaves no partial table
+        List<String> rows = new ArrayList<>();
         for (double value : values) {
             PlanarStack st = variable == Variable.THICKNESS ? stack.withThickness(thickness.layer() - 1, value) : stack;
             double lambda = variable == Variable.WAVELENGTH ? value : wavelength.values().get(0);
@@ -173,7 +176,7 @@ public final class StackCommand implements Callable<Integer> {
             List<String> row = new ArrayList<>();
             row.add(csv ? csvNumber(shown(variable, value)) : Units.number(shown(variable, value)));
             for (Polarization p : pols) {
-                PlanarStack.Response resp = st.atAngle(p, lambda, theta);
+                PlanarStack.Response resp = response(st, p, lambda, theta, variable, value);
                 double phaseR = Math.toDegrees(resp.r().arg());
                 double phaseT = Math.toDegrees(resp.t().arg());
                 if (csv) {
@@ -187,9 +190,42 @@ public final class StackCommand implements Callable<Integer> {
             boolean beyond = gapTransparent && Evanescent.isBeyondCritical(incident.re(), gap.re(), theta);
             double depth = beyond ? Evanescent.amplitudeDepth(incident.re(), gap.re(), theta, lambda) : Double.NaN;
             row.add(beyond ? (csv ? csvNumber(depth * 1e9) : cell("%.2f", depth * 1e9)) : csv ? "" : "-");
-            out.println(csv ? String.join(",", row) : tableRow(row));
+            rows.add(csv ? String.join(",", row) : tableRow(row));
         }
+        if (csv) {
+            out.println(String.join(",", head));
+        } else {
+            printHeader(out, stack, gap);
+            out.println(tableRow(head));
+        }
+        rows.forEach(out::println);
         return Main.OK;
+    }
+
+    /**
+     * One row's response; a calculation that fails or does not give finite numbers (values at the edge of
+     * what doubles hold, an angle so close to 90 degrees that the wave no longer propagates) is refused.
+     */
+    private PlanarStack.Response response(PlanarStack st, Polarization p, double lambda, double theta, Variable variable,
+                                          double value) {
+        String at = variable.column.replaceFirst("_(deg|nm)$", "") + " " + Units.number(shown(variable, value))
+                + (variable == Variable.ANGLE ? " deg" : " nm");
+        PlanarStack.Response resp;
+        try {
+            resp = st.atAngle(p, lambda, theta);
+        } catch (ArithmeticException | IllegalArgumentException e) {
+            throw usage("at " + at + " the plane-wave calculation cannot be done: " + e.getMessage()
+                    + "; check that the indices, thicknesses, wavelength and angle are what you meant");
+        }
+        double[] all = {resp.reflectance(), resp.transmittance(), resp.absorptance(), resp.r().re(), resp.r().im(),
+            resp.t().re(), resp.t().im()};
+        for (double v : all) {
+            if (!Double.isFinite(v)) {
+                throw usage("at " + at + " the plane-wave calculation gives no finite result (the numbers leave the range of "
+                        + "doubles); check that the indices, thicknesses, wavelength and angle are what you meant");
+            }
+        }
+        return resp;
     }
 
     private void printHeader(PrintWriter out, PlanarStack stack, Complex gap) {
@@ -293,6 +329,10 @@ public final class StackCommand implements Callable<Integer> {
         if (!Double.isFinite(n) || !Double.isFinite(k) || n < 0 || k < 0 || (n == 0 && k == 0)) {
             throw new TypeConversionException("'" + text + "': expected an index n + ki with n >= 0 and k >= 0 "
                     + "(k > 0 absorbs; gain is not supported), not zero");
+        }
+        if (n > MAX_INDEX || k > MAX_INDEX || Math.hypot(n, k) < MIN_INDEX) {
+            throw new TypeConversionException("'" + text + "': expected n and k of at most 1e4 and |n + ki| of at least 1e-4 "
+                    + "(optical materials lie far inside)");
         }
         return Complex.of(n, k);
     }

@@ -22,6 +22,7 @@ import org.evanesce.io.Main;
 import org.evanesce.io.RunFailedException;
 import org.evanesce.io.casefile.CaseFileException;
 import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.casefile.CaseText;
 import org.evanesce.io.casefile.CaseSpec;
 import org.evanesce.io.casefile.Diagnostic;
 import org.evanesce.io.casefile.LoadedCase;
@@ -29,6 +30,7 @@ import org.evanesce.io.casefile.Located;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.casefile.SweepSpec;
 import org.evanesce.io.output.Json;
+import org.evanesce.io.output.OutputFolders;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.CasePlanner;
 import org.evanesce.io.plan.PlanException;
@@ -121,16 +123,24 @@ public final class SweepCommand implements Callable<Integer> {
         int[] shardOf = checkOptions();
         Path caseFile = options.caseFile;
         byte[] text;
+        String caseText;
         try {
-            text = Files.readAllBytes(caseFile);
+            CaseText read = CaseText.read(caseFile);
+            text = read.bytes();
+            caseText = read.text();
         } catch (NoSuchFileException e) {
             throw usage(caseFile + ": no such file");
         } catch (IOException e) {
             throw usage(caseFile + ": cannot read: " + e.getMessage());
+        } catch (CaseFileException e) {
+            for (Diagnostic d : e.diagnostics()) {
+                err.println(d);
+            }
+            throw usage("1 error(s) in " + caseFile + "; nothing was run or written");
         }
-        String caseText = new String(text, StandardCharsets.UTF_8);
         String caseSha = PointHash.sha256(text);
         String version = VersionProvider.version();
+        String build = org.evanesce.io.output.BuildInfo.current().id();
         boolean runs = !mergeOnly && slurmTasks == null;
         // merging and writing a script run nothing, so this machine's memory is no limit for the grids
         ReadOptions read = runs ? ReadOptions.defaults() : new ReadOptions(Long.MAX_VALUE);
@@ -168,7 +178,7 @@ public final class SweepCommand implements Callable<Integer> {
                 for (int k = 0; k < si.length; k++) {
                     si[k] = lc.spec().parameters().get(p.names().get(k)).value().value();
                 }
-                all.add(new Read(p, ov, si, PointHash.of(text, ov, version)));
+                all.add(new Read(p, ov, si, PointHash.of(text, ov, version, build)));
             } catch (CaseFileException e) {
                 if (bad++ < 20) {
                     for (Diagnostic d : e.errors()) {
@@ -183,6 +193,8 @@ public final class SweepCommand implements Callable<Integer> {
         }
 
         SweepFolder folder = new SweepFolder(out != null ? out : defaultFolder(caseFile, base));
+        // refused (exit 2) before anything is written: the case's own folder or above it, a file, a link, a foreign folder
+        OutputFolders.checkInto(folder.dir(), SweepFolder.RECORD, SweepFolder::ours, OutputFolders.around(caseFile));
         List<SweepRecord.Entry> entries = all.stream().map(r -> new SweepRecord.Entry(r.point(), r.hash())).toList();
         Map<String, Object> record = SweepRecord.of(version, caseFile.toAbsolutePath().normalize().toString(), caseSha,
                 options.overrides, sweep, entries);
@@ -209,16 +221,21 @@ public final class SweepCommand implements Callable<Integer> {
                 mine.add(r.point().number());
             }
         }
-        for (String gone : folder.removeLeftovers(mine, shardOf == null)) {
-            o.println("removed " + folder.dir().resolve(gone) + ", left by a run that was stopped");
+        for (String line : folder.removeLeftovers(mine, shardOf == null)) {
+            o.println("note: " + line);
         }
         List<Read> todo = new ArrayList<>();
         int finishedBefore = 0;
+        Map<String, List<Integer>> rerun = new LinkedHashMap<>();
         for (Read r : all) {
             if (folder.finished(r.point().number(), r.hash())) {
                 finishedBefore++;
             } else if (mine.contains(r.point().number())) {
                 todo.add(r);
+                String why = folder.whyRunAgain(r.point().number(), version, build);
+                if (why != null) {
+                    rerun.computeIfAbsent(why, k -> new ArrayList<>()).add(r.point().number());
+                }
             }
         }
         Parallelism choice = planAll(caseText, todo, base, err);
@@ -228,9 +245,11 @@ public final class SweepCommand implements Callable<Integer> {
                 finishedBefore, todo.size(), todo.isEmpty() ? "" : String.format(Locale.ROOT, ", %d at once with %d thread(s) "
                         + "each (%s); writing %s", choice.parallel(), choice.threadsPerPoint(), choice.reason(), folder.dir()));
 
+        rerun.forEach((why, numbers) -> o.printf(Locale.ROOT, "%d finished point(s) run again (%s): %s%n", numbers.size(),
+                why, SweepMerge.ranges(numbers)));
         SweepRunner runner = new SweepRunner(folder, points.size(), finishedBefore, o, System.console() != null);
         List<SweepRunner.Task> tasks = todo.stream().map(r -> new SweepRunner.Task(r.point(),
-                SweepRunner.pointRecord(r.point(), r.overrides(), r.hash(), version))).toList();
+                SweepRunner.pointRecord(r.point(), r.overrides(), r.hash(), version, build))).toList();
         SweepRunner.Outcome outcome = runner.run(tasks, choice.parallel(), choice.threadsPerPoint(),
                 (p, rf, pointOut, threads) -> runPoint(caseText, caseFile, caseSha, all.get(p.number()).overrides(), rf, pointOut,
                         threads));
@@ -381,8 +400,10 @@ public final class SweepCommand implements Callable<Integer> {
         if (bad > 0) {
             throw usage(String.format(Locale.ROOT, "%d of %d points to run cannot be planned; nothing was run", bad, todo.size()));
         }
-        int cores = options.threads != null ? options.threads
-                : base.numerics().threads().map(Located::value).orElse(Runtime.getRuntime().availableProcessors());
+        Integer asked = options.threads != null ? options.threads : base.numerics().threads().map(Located::value).orElse(null);
+        ThreadLimit limit = ThreadLimit.current();
+        Integer capped = limit.apply(asked, err::println, Runtime.getRuntime().availableProcessors());
+        int cores = capped != null ? capped : Math.min(limit.max(), Runtime.getRuntime().availableProcessors());
         return Parallelism.choose(cores, cells, rows, bytes, Runtime.getRuntime().maxMemory(), todo.size(), parallel);
     }
 
@@ -394,7 +415,8 @@ public final class SweepCommand implements Callable<Integer> {
             LoadedCase lc = CaseReader.parse(caseText, caseFile.toString(), ov, ReadOptions.defaults());
             lc = new LoadedCase(lc.spec(), withoutSweepNote(lc.diagnostics()));
             CasePlan plan = CasePlanner.plan(lc.spec(), threads);
-            CaseExecution.run(new CaseOptions.Loaded(lc, plan, caseSha), ov, rf, pointOut, progressSeconds, false);
+            CaseExecution.run(new CaseOptions.Loaded(lc, plan, caseSha), ov, rf, pointOut, progressSeconds, false,
+                    spec.commandLine().getParseResult().originalArgs());
         } catch (CaseFileException | PlanException e) {
             throw new SweepRunner.PointFailed("the case no longer reads: " + e.getMessage().lines().findFirst().orElse(""), e);
         } catch (DivergenceException | RunFailedException | CaseRunner.RefusedException e) {
@@ -408,6 +430,11 @@ public final class SweepCommand implements Callable<Integer> {
         SweepMerge.Result m = SweepMerge.write(folder, points, kinds, title);
         o.printf(Locale.ROOT, "merged %d of %d points into %s%s%n", m.finished(), points.size(),
                 folder.dir().resolve(SweepFolder.CSV), m.png() ? " and " + SweepFolder.PNG : "");
+        if (!m.unsettled().isEmpty()) {
+            err.printf(Locale.ROOT, "evanesce sweep: warning: %d of %d merged points did not settle: %s (column 'settled' of "
+                    + "sweep.csv; the reasons are in each point's run.json warnings)%n", m.unsettled().size(), m.finished(),
+                    SweepMerge.ranges(m.unsettled()));
+        }
         if (m.missing().isEmpty()) {
             return Main.OK;
         }
@@ -429,9 +456,13 @@ public final class SweepCommand implements Callable<Integer> {
         if (!Files.isRegularFile(exe)) {
             throw usage("--launcher " + exe + ": no such file");
         }
-        writeRecord(folder, record);
         Path absCase = caseFile.toAbsolutePath().normalize();
         List<String> extra = SlurmScript.extraArguments(options.threads, options.overrides);
+        String problem = SlurmScript.problem(exe, absCase, folder.dir(), extra);
+        if (problem != null) {
+            throw usage("--slurm-script: " + problem);
+        }
+        writeRecord(folder, record);
         String script = SlurmScript.text(exe, absCase, folder.dir(), slurmTasks, points, extra, SlurmScript.jobName(caseFile));
         Path f = folder.write(SweepFolder.SLURM, script.getBytes(StandardCharsets.UTF_8));
         try {

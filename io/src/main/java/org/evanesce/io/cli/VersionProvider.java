@@ -1,35 +1,21 @@
 package org.evanesce.io.cli;
 
-import java.io.IOException;
-import java.io.InputStream;
-import java.io.UncheckedIOException;
-import java.util.Properties;
+import org.evanesce.io.output.BuildInfo;
 import picocli.CommandLine.IVersionProvider;
 
-/** The program version, from {@code version.properties} (filled in by Maven from the pom), and the JVM. */
+/** The program version and build (from the resources Maven writes, {@link BuildInfo}), and the JVM. */
 public final class VersionProvider implements IVersionProvider {
-
-    private static final String RESOURCE = "/org/evanesce/io/version.properties";
 
     /** The program version, e.g. {@code 0.1.0-SNAPSHOT}; "unknown" when run from unfiltered sources. */
     public static String version() {
-        try (InputStream in = VersionProvider.class.getResourceAsStream(RESOURCE)) {
-            if (in == null) {
-                return "unknown";
-            }
-            Properties p = new Properties();
-            p.load(in);
-            String v = p.getProperty("version", "unknown");
-            return v.startsWith("${") ? "unknown" : v;
-        } catch (IOException e) {
-            throw new UncheckedIOException("cannot read " + RESOURCE, e);
-        }
+        return BuildInfo.current().version();
     }
 
     @Override
     public String[] getVersion() {
+        BuildInfo b = BuildInfo.current();
         return new String[] {
-            "evanesce " + version(),
+            "evanesce " + b.version() + ", " + b.describe(),
             "Java " + System.getProperty("java.version") + " (" + System.getProperty("java.vm.name") + ", "
                     + System.getProperty("java.vendor") + "), " + System.getProperty("os.name") + " "
                     + System.getProperty("os.arch")

@@ -23,14 +23,35 @@ import org.evanesce.solver.monitor.Probe;
  * @param gridPermittivity the relative permittivity each material has on the grid (differs from the case's
  *                    where the dispersion correction applies), by name
  * @param fields      the field files, frames and maps the run writes
+ * @param sourceSites where each source drives the grid, in the case's order
+ * @param memory      the heap the run is estimated to need
  */
 public record CasePlan(CaseSpec spec, GridSpec grid, MaterialGrid materials, Simulation.Builder builder,
                        List<NamedProbe> probes, Stop stop, double dt, int[] interior,
                        java.util.Optional<FluxPlan> flux, java.util.Map<String, Double> gridPermittivity,
-                       FieldPlan fields) {
+                       FieldPlan fields, List<SourceSite> sourceSites, MemoryEstimate memory) {
 
-    /** A probe with the name the case gave it and the node it samples. */
+    /** Whether a source drives a continuous (ramped) wave, which never decays. */
+    public boolean continuous() {
+        return spec.sources().stream().anyMatch(s -> s.signal() instanceof org.evanesce.io.casefile.SignalSpec.RampedWave);
+    }
+
+    /**
+     * A probe with the name the case gave it and the site it samples: index (i, j) of its component, i.e.
+     * the site at ((i + dx)Δ, (j + dy)Δ) from node 0 with the component's offsets dx, dy ({@link
+     * org.evanesce.solver.grid.Component}).
+     */
     public record NamedProbe(String name, Probe probe, int i, int j) { }
+
+    /**
+     * The sites a source drives: the component's indices from (i0, j0) to (i1, j1) inclusive (one site for a
+     * point source, a row for a line along x, a plane wave or a beam's launching line), each index meaning
+     * the site at ((i + dx)Δ, (j + dy)Δ) from node 0 as for {@link NamedProbe}.
+     *
+     * @param source    the source's path in the case file, e.g. {@code sources[0].point}
+     * @param component the component driven (for a beam: the electric component of its launching row)
+     */
+    public record SourceSite(String source, org.evanesce.solver.grid.Component component, int i0, int j0, int i1, int j1) { }
 
     /** When a run ends. */
     public sealed interface Stop {

@@ -32,13 +32,14 @@ import org.evanesce.io.casefile.SignalSpec;
 import org.evanesce.io.casefile.SourcePosition;
 import org.evanesce.io.casefile.SourceSpec;
 import org.evanesce.io.casefile.StopSpec;
+import org.evanesce.io.casefile.expr.Dimension;
+import org.evanesce.io.casefile.expr.Units;
+import org.evanesce.solver.Courant;
 import org.evanesce.solver.DispersionCorrection;
-import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Side;
-import org.evanesce.solver.kernel.Engine;
 import org.evanesce.solver.monitor.Probe;
 import org.evanesce.solver.source.CarrierSignal;
 import org.evanesce.solver.source.GaussianBeam;
@@ -56,8 +57,6 @@ public final class CasePlanner {
 
     /** Steps between energy checks of a run that stops on decay: about one step's cost every 32 steps. */
     static final int DECAY_CHECK_INTERVAL = 32;
-    /** The solver's default Courant number, used when the case gives none. */
-    public static final double DEFAULT_COURANT = 0.5;
 
     private final CaseSpec spec;
     private final List<Diagnostic> errors = new ArrayList<>();
@@ -73,8 +72,20 @@ public final class CasePlanner {
      * @throws PlanException listing everything that cannot be planned, with positions
      */
     public static CasePlan plan(CaseSpec spec, Integer threads) throws PlanException {
-        return new CasePlanner(spec).plan(threads);
+        return plan(spec, threads, Runtime.getRuntime().maxMemory());
     }
+
+    /**
+     * Plans a case that may use at most {@code memoryLimit} bytes of heap: one whose {@link MemoryEstimate}
+     * is larger is refused before the grid is rasterised or anything large is allocated.
+     */
+    public static CasePlan plan(CaseSpec spec, Integer threads, long memoryLimit) throws PlanException {
+        CasePlanner p = new CasePlanner(spec);
+        p.memoryLimit = memoryLimit;
+        return p.plan(threads);
+    }
+
+    private long memoryLimit = Long.MAX_VALUE;
 
     private CasePlan plan(Integer threads) throws PlanException {
         checkOutputs();
@@ -83,19 +94,22 @@ public final class CasePlanner {
         // periodic sides: the width is one period, so the node at x = +W/2 is the image of the one at −W/2
         boolean periodic = spec.boundary(Side.LEFT) instanceof BoundarySpec.Periodic;
         GridSpec grid = new GridSpec(r.x(0), r.y(0), dx, periodic ? r.nx() - 1 : r.nx(), r.ny());
-        double courant = spec.numerics().courant().map(v -> v.si()).orElse(DEFAULT_COURANT);
-        double dt = courant * dx / PhysicalConstants.C0;
+        double courant = spec.numerics().courant().map(v -> v.si()).orElse(Courant.DEFAULT);
+        double dt = Courant.timeStep(courant, dx);
         Map<String, Material> materials = materials(dx, dt);
+        stable(materials, courant);
         Scene scene = scene(materials);
         Map<Side, Boundary> sides = boundaries(PlaneWaves.kx(spec));
         List<Source> sources = new ArrayList<>();
         List<IncidentSheet> sheets = new ArrayList<>();
+        List<CasePlan.SourceSite> sites = new ArrayList<>();
         double fade = 0;
         for (int k = 0; k < spec.sources().size(); k++) {
             SourceSpec s = spec.sources().get(k);
             if (s instanceof SourceSpec.GaussianBeamSource beam) {
                 List<IncidentSheet> pair = beam(beam, k, grid, sides, materials, dt);
                 sheets.addAll(pair);
+                siteOf("sources[" + k + "]." + s.kind(), pair, grid).ifPresent(sites::add);
                 double latest = pair.stream().flatMapToDouble(p -> java.util.Arrays.stream(p.delays())).max().orElse(0);
                 fade = Math.max(fade, fadeTime(signal(beam.signal())) + latest);
                 continue;
@@ -103,6 +117,7 @@ public final class CasePlanner {
             Source src = source(s, k, grid, sides);
             if (src != null) {
                 sources.add(src);
+                sites.add(siteOf("sources[" + k + "]." + s.kind(), src.component(), src.cells(), grid));
                 fade = Math.max(fade, fadeTime(src.signal()));
             }
         }
@@ -115,6 +130,16 @@ public final class CasePlanner {
         }
         CasePlan.Stop stop = stop(dt, fade);
         if (!errors.isEmpty()) {
+            throw new PlanException(errors);
+        }
+        MemoryEstimate memory = MemoryEstimate.of(spec, grid, sides, interior(sides, grid), stop.maxSteps(),
+                spec.flux().isPresent() ? PlaneWaves.medium(spec, PlaneWaves.launched(spec).orElseThrow()) : null);
+        if (memory.total() > memoryLimit) {
+            MemoryEstimate.Item big = memory.largest();
+            error(big.at(), big.path(), String.format("the run needs about %s of memory (%s) but the JVM may use at most %s; "
+                    + "largest part: %s (%s), to reduce it: %s; or give the JVM more memory (e.g. JAVA_OPTS=-Xmx%dg)",
+                    MemoryEstimate.format(memory.total()), memory.breakdown(), MemoryEstimate.format(memoryLimit), big.what(),
+                    MemoryEstimate.format(big.bytes()), big.reduce(), (long) Math.ceil(memory.total() * 1.25 / (1L << 30))));
             throw new PlanException(errors);
         }
         Integer t = threads != null ? threads : spec.numerics().threads().map(l -> l.value()).orElse(null);
@@ -145,7 +170,37 @@ public final class CasePlanner {
         if (!errors.isEmpty()) {
             throw new PlanException(errors);
         }
-        return new CasePlan(spec, grid, mg, b, List.copyOf(probes), stop, dt, interior(sides, grid), flux, eps, fields);
+        return new CasePlan(spec, grid, mg, b, List.copyOf(probes), stop, dt, interior(sides, grid), flux, eps, fields,
+                List.copyOf(sites), memory);
+    }
+
+    /** The span of sites a source drives (its cells are flat indices j·nx + i). */
+    private static CasePlan.SourceSite siteOf(String path, Component c, int[] cells, GridSpec g) {
+        int i0 = Integer.MAX_VALUE;
+        int j0 = Integer.MAX_VALUE;
+        int i1 = Integer.MIN_VALUE;
+        int j1 = Integer.MIN_VALUE;
+        for (int cell : cells) {
+            int i = cell % g.nx();
+            int j = cell / g.nx();
+            i0 = Math.min(i0, i);
+            j0 = Math.min(j0, j);
+            i1 = Math.max(i1, i);
+            j1 = Math.max(j1, j);
+        }
+        return new CasePlan.SourceSite(path, c, i0, j0, i1, j1);
+    }
+
+    /** y of row j of a component's sites, formatted with its unit. */
+    private static String siteY(GridSpec g, int j, Component c) {
+        return org.evanesce.io.casefile.expr.Units.format(g.y0() + (j + c.dy) * g.cellSize(),
+                org.evanesce.io.casefile.expr.Dimension.LENGTH);
+    }
+
+    /** A beam's launching row: the electric sheet's sites. */
+    private static Optional<CasePlan.SourceSite> siteOf(String path, List<IncidentSheet> pair, GridSpec g) {
+        return pair.stream().filter(p -> p.component().electric).findFirst()
+                .map(p -> siteOf(path, p.component(), p.cells(), g));
     }
 
     private void error(SourcePosition at, String path, String message) {
@@ -156,19 +211,30 @@ public final class CasePlanner {
         // every output item is available in this version
     }
 
-    /** The node box of a region (nodes inside it), or the interior; null (error reported) when it holds no node. */
+    /** The nodes inside a region, clamped to the grid: {i0, j0, i1, j1} (i1, j1 exclusive; may be empty). */
+    static int[] nodeBox(OutputSpec.Region r, GridSpec g) {
+        double d = g.cellSize();
+        int i0 = (int) Math.max(0, Math.min(g.nx(), Math.ceil((r.xMin() - g.x0()) / d - 1e-9)));
+        int i1 = (int) Math.max(0, Math.min(g.nx(), Math.floor((r.xMax() - g.x0()) / d + 1e-9) + 1));
+        int j0 = (int) Math.max(0, Math.min(g.ny(), Math.ceil((r.yMin() - g.y0()) / d - 1e-9)));
+        int j1 = (int) Math.max(0, Math.min(g.ny(), Math.floor((r.yMax() - g.y0()) / d + 1e-9) + 1));
+        return new int[] {i0, j0, i1, j1};
+    }
+
+    /** The node box of a region (nodes inside it), or the interior; null (error reported) when it holds fewer than 3 x 3 nodes (the field files and maps need a grid of at least 3 along each axis). */
     private int[] box(Optional<OutputSpec.Region> region, String path, GridSpec g, int[] interior) {
         if (region.isEmpty()) {
             return interior.clone();
         }
         OutputSpec.Region r = region.get();
         double d = g.cellSize();
-        int i0 = Math.max(0, (int) Math.ceil((r.xMin() - g.x0()) / d - 1e-9));
-        int i1 = Math.min(g.nx(), (int) Math.floor((r.xMax() - g.x0()) / d + 1e-9) + 1);
-        int j0 = Math.max(0, (int) Math.ceil((r.yMin() - g.y0()) / d - 1e-9));
-        int j1 = Math.min(g.ny(), (int) Math.floor((r.yMax() - g.y0()) / d + 1e-9) + 1);
-        if (i1 - i0 < 2 || j1 - j0 < 2) {
-            error(r.at(), path, String.format("the region holds %d x %d grid nodes; it must hold at least 2 x 2 inside the grid "
+        int[] nb = nodeBox(r, g);
+        int i0 = nb[0];
+        int j0 = nb[1];
+        int i1 = nb[2];
+        int j1 = nb[3];
+        if (i1 - i0 < 3 || j1 - j0 < 3) {
+            error(r.at(), path, String.format("the region holds %d x %d grid nodes; it must hold at least 3 x 3 inside the grid "
                     + "(x from %.4g um to %.4g um, y from %.4g um to %.4g um)", Math.max(0, i1 - i0), Math.max(0, j1 - j0),
                     g.x0() * 1e6, (g.x0() + (g.nx() - 1) * d) * 1e6, g.y0() * 1e6, (g.y0() + (g.ny() - 1) * d) * 1e6));
             return null;
@@ -210,14 +276,23 @@ public final class CasePlanner {
                 double[] f = m.frequencies().stream().mapToDouble(v -> v.si()).toArray();
                 org.evanesce.solver.monitor.FieldMap fm = new org.evanesce.solver.monitor.FieldMap(spec.polarization().value(),
                         mbox[0], mbox[1], mbox[2], mbox[3], f);
-                // a continuous wave's maps: whole periods after the fields settle, as its flux
+                // a continuous wave's maps: whole periods after the fields settle, as its flux, checked on the
+                // region's middle row; with several sources there is no one period to window (flagged after the run)
                 var ramped = spec.sources().stream().map(x -> x.signal())
                         .filter(x -> x instanceof org.evanesce.io.casefile.SignalSpec.RampedWave).findFirst();
+                Optional<SteadyState> steady = Optional.empty();
+                List<org.evanesce.solver.monitor.FluxLine> monitor = List.of();
                 if (ramped.isPresent() && spec.sources().size() == 1) {
-                    double[] w = FluxPlanner.continuousWindow(spec, g,
+                    SteadyState w = FluxPlanner.continuousWindow(spec, g,
                             (org.evanesce.io.casefile.SignalSpec.RampedWave) ramped.get(), stop.maxSteps() * dt, errors);
                     if (w != null) {
-                        fm.window(w[0], w[1]);
+                        fm.window(w.start(), w.end() + 1e-6 * w.period());
+                        steady = Optional.of(w);
+                        var middle = new org.evanesce.solver.monitor.FluxLine(spec.polarization().value(),
+                                (mbox[1] + mbox[3] - 1) / 2, mbox[0], mbox[2], f);
+                        monitor = List.of(w.halfLine(middle, 0, f, spec.polarization().value()),
+                                w.halfLine(middle, 1, f, spec.polarization().value()));
+                        monitor.forEach(run::listener);
                     }
                 }
                 run.listener(fm);
@@ -232,7 +307,7 @@ public final class CasePlanner {
                         }
                     }
                 }
-                maps = Optional.of(new FieldPlan.Maps(m, fm, mbox));
+                maps = Optional.of(new FieldPlan.Maps(m, fm, mbox, steady, monitor, ramped.isPresent() && steady.isEmpty()));
             }
         }
         return new FieldPlan(box == null ? interior : box, comps, frames, maps);
@@ -254,14 +329,52 @@ public final class CasePlanner {
                 double omega = 2 * Math.PI * wave.orElseThrow().signal().frequency().si();
                 try {
                     eps = DispersionCorrection.permittivity(eps, PlaneWaves.launchedKx(spec), omega, dx, dt);
+                    if (!(eps > 0) || Double.isInfinite(eps)) {
+                        throw new IllegalArgumentException("the corrected relative permittivity " + Units.number(eps)
+                                + " is not a positive number; the grid is too coarse for this material at this angle");
+                    }
                 } catch (IllegalArgumentException e) {
                     error(spec.numerics().dispersionCorrection().map(Located::at).orElse(wave.get().at()),
                             "numerics.dispersion_correction", "material " + m.name() + ": " + e.getMessage());
+                    eps = m.relativePermittivity().si();
                 }
             }
             out.put(m.name(), new Material(m.name(), eps, m.conductivity().si()));
         }
         return out;
+    }
+
+    /**
+     * The Courant number must lie below the 2D limit 1/√2 scaled by √εr of the smallest permittivity
+     * below 1 (the grid's fastest wave): the solver would refuse it when the run is built.
+     */
+    private void stable(Map<String, Material> materials, double courant) {
+        Material slowest = null;
+        for (Material m : materials.values()) {
+            if (slowest == null || m.relativePermittivity() < slowest.relativePermittivity()) {
+                slowest = m;
+            }
+        }
+        if (slowest == null || slowest.relativePermittivity() >= 1) {
+            return;
+        }
+        double limit = Courant.limit(slowest.relativePermittivity());
+        if (courant < limit) {
+            return;
+        }
+        MaterialSpec m = spec.materials().get(slowest.name());
+        Optional<Value> given = spec.numerics().courant();
+        String text = String.format(java.util.Locale.ROOT, "the %sCourant number %s is unstable: material %s (line %d) has a "
+                + "relative permittivity of %s on the grid, below 1, which lowers the limit 1/sqrt(2) to %s; %s",
+                given.isPresent() ? "" : "default ", Units.number(courant), slowest.name(), m == null ? 0 : m.at().line(),
+                Units.number(slowest.relativePermittivity()), Units.number(limit), "give numerics.courant below "
+                        + Units.number(limit));
+        if (given.isPresent()) {
+            error(given.get().at(), "numerics.courant", text);
+        } else {
+            error(m != null ? m.at() : spec.resolution().cellSize().at(), m != null ? "materials." + m.name() : "numerics.courant",
+                    text);
+        }
     }
 
     private Scene scene(Map<String, Material> materials) {
@@ -324,9 +437,20 @@ public final class CasePlanner {
         return out;
     }
 
-    /** Nearest node index of a component's site to coordinate v along an axis. */
+    /**
+     * A point half-way between two sites (to within this many cells) goes to the site with the larger
+     * index: round-off in the grid coordinate (about 1e-12 of a cell here) can then never decide.
+     */
+    static final double TIE_TOLERANCE = 1e-9;
+
+    /**
+     * The index of the component site nearest to coordinate v along an axis: the site k lies at
+     * origin + (k + siteOffset)Δ; a point half-way between two sites (within {@link #TIE_TOLERANCE} of a
+     * cell) takes the larger index (round half up). So in p polarization a point on a node drives or
+     * samples the Hz site half a cell above and to the right of it, in any domain whose nodes lie there.
+     */
     static int nearest(double v, double origin, double dx, double siteOffset) {
-        return (int) Math.round((v - origin) / dx - siteOffset);
+        return (int) Math.floor((v - origin) / dx - siteOffset + 0.5 + TIE_TOLERANCE);
     }
 
     private Source source(SourceSpec s, int k, GridSpec g, Map<Side, Boundary> sides) {
@@ -336,9 +460,9 @@ public final class CasePlanner {
         if (s instanceof SourceSpec.PlaneWave w) {
             Component c = w.component().value();
             int j = nearest(w.y().si(), g.y0(), dx, c.dy);
-            if (!Engine.wouldUpdate(sides, g.nx(), g.ny(), c, 0, j)) {
-                error(w.at(), path + ".y", String.format("the nearest %s row, %d, is on a wall or outside the grid; expected a "
-                        + "height inside the domain's walls", c, j));
+            if (!Simulation.isUpdated(sides, g.nx(), g.ny(), c, 0, j)) {
+                error(w.at(), path + ".y", String.format("the nearest row of %s sites, %d (y = %s), is on a wall or outside the "
+                        + "grid; expected a height inside the domain's walls", c, j, siteY(g, j, c)));
                 return null;
             }
             return Source.blochRow(c, g.nx(), j, g.x0(), dx, PlaneWaves.kx(spec), w.amplitude().si(), signal);
@@ -347,8 +471,8 @@ public final class CasePlanner {
                 Component c = p.component().value();
                 int i = nearest(p.location().x().si(), g.x0(), dx, c.dx);
                 int j = nearest(p.location().y().si(), g.y0(), dx, c.dy);
-                if (!Engine.wouldUpdate(sides, g.nx(), g.ny(), c, i, j)) {
-                    error(p.at(), path + ".at", String.format("the nearest %s site, node (%d, %d), is on a wall or outside "
+                if (!Simulation.isUpdated(sides, g.nx(), g.ny(), c, i, j)) {
+                    error(p.at(), path + ".at", String.format("the nearest %s site, index (%d, %d), is on a wall or outside "
                             + "the grid; expected a point inside the domain's walls", c, i, j));
                     return null;
                 }
@@ -367,8 +491,8 @@ public final class CasePlanner {
                 int i1 = nearest(l.to().x().si(), g.x0(), dx, c.dx);
                 int j1 = nearest(l.to().y().si(), g.y0(), dx, c.dy);
                 if (i0 != i1 && j0 != j1) {
-                    error(l.at(), path, String.format("the line from node (%d, %d) to (%d, %d) is neither horizontal nor "
-                            + "vertical; expected a line along x or y", i0, j0, i1, j1));
+                    error(l.at(), path, String.format("the line from %s site (%d, %d) to (%d, %d) is neither horizontal nor "
+                            + "vertical; expected a line along x or y", c, i0, j0, i1, j1));
                     return null;
                 }
                 int ia = Math.min(i0, i1);
@@ -379,7 +503,7 @@ public final class CasePlanner {
                 for (int j = ja; j <= jb; j++) {
                     for (int i = ia; i <= ib; i++) {
                         // cells that fall on a wall are left out: a line may run from wall to wall
-                        if (Engine.wouldUpdate(sides, g.nx(), g.ny(), c, i, j)) {
+                        if (Simulation.isUpdated(sides, g.nx(), g.ny(), c, i, j)) {
                             cells.add(j * g.nx() + i);
                         }
                     }
@@ -442,8 +566,8 @@ public final class CasePlanner {
         int i = nearest(p.location().x().si(), g.x0(), g.cellSize(), c.dx);
         int j = nearest(p.location().y().si(), g.y0(), g.cellSize(), c.dy);
         if (i < 0 || j < 0 || i >= g.nx() || j >= g.ny()) {
-            error(p.at(), "probes[" + k + "].at", String.format("node (%d, %d) is outside the grid (%d × %d nodes)",
-                    i, j, g.nx(), g.ny()));
+            error(p.at(), "probes[" + k + "].at", String.format("the nearest %s site, index (%d, %d), is outside the grid "
+                    + "(%d × %d nodes)", c, i, j, g.nx(), g.ny()));
             return null;
         }
         return new CasePlan.NamedProbe(p.name().value(), new Probe(c, i, j), i, j);
@@ -455,12 +579,28 @@ public final class CasePlanner {
             return new CasePlan.Stop.Steps(s.steps().value());
         }
         if (st instanceof StopSpec.AfterTime t) {
-            return new CasePlan.Stop.Steps((long) Math.ceil(t.time().si() / dt));
+            return new CasePlan.Stop.Steps(steps(t.time(), "stop.time", dt));
         }
         StopSpec.WhenDecayed d = (StopSpec.WhenDecayed) st;
-        long limit = (long) Math.ceil(d.limit().si() / dt);
+        long limit = steps(d.limit(), "stop.limit", dt);
         long fadeSteps = Double.isFinite(fade) ? (long) Math.ceil(fade / dt) : limit;
         return new CasePlan.Stop.Decay(d.fraction().si(), Math.min(fadeSteps, limit), limit, DECAY_CHECK_INTERVAL);
+    }
+
+    /** The steps a simulated time takes (at least 1); more than {@link StopSpec#MAX_STEPS} is an error. */
+    private long steps(Value time, String path, double dt) {
+        double steps = Math.ceil(time.si() / dt);
+        if (steps > StopSpec.MAX_STEPS) {
+            Optional<Value> courant = spec.numerics().courant();
+            error(time.at(), path, String.format(java.util.Locale.ROOT, "%s takes %.3g steps of %s, more than the limit of %d steps; "
+                    + "the time step is the Courant number (%s%s) times the cell size (%s) over c0: shorten the run, or raise "
+                    + "the Courant number or the cell size", Units.format(time.si(), Dimension.TIME), steps,
+                    Units.format(dt, Dimension.TIME), StopSpec.MAX_STEPS, Units.number(courant.map(Value::si).orElse(Courant.DEFAULT)),
+                    courant.map(c -> ", line " + c.at().line()).orElse(", the default"),
+                    Units.format(spec.resolution().cellSize().si(), Dimension.LENGTH)));
+            return StopSpec.MAX_STEPS;
+        }
+        return Math.max(1, (long) steps);
     }
 
     private static int[] interior(Map<Side, Boundary> sides, GridSpec g) {

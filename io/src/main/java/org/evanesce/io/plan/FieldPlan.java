@@ -29,10 +29,16 @@ public record FieldPlan(int[] box, List<Component> components, long[] frameSteps
      * @param spec the case's section
      * @param map  the running transforms, registered on the run
      * @param box  the nodes mapped, {i0, j0, i1, j1}
+     * @param steady  a continuous wave's transform window
+     * @param monitor with a window: a line across the region's middle row transforming its early and late halves
+     * @param continuousUnwindowed a continuous wave drives the run but the maps transform the whole run, switch-on
+     *                included (the case has several sources, so no one period to window)
      */
-    public record Maps(MapsSpec spec, FieldMap map, int[] box) {
+    public record Maps(MapsSpec spec, FieldMap map, int[] box, Optional<SteadyState> steady,
+                       List<org.evanesce.solver.monitor.FluxLine> monitor, boolean continuousUnwindowed) {
         public Maps {
             box = box.clone();
+            monitor = List.copyOf(monitor);
         }
     }
 }

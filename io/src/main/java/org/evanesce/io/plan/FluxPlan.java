@@ -33,11 +33,40 @@ import org.evanesce.solver.reference.PlanarStack;
  * @param gridX0         x of node column 0, m
  * @param indexAt        the case's refractive index at (x, y), m (the real part, as the grid has it before any
  *                       dispersion correction)
+ * @param steady         for a continuous wave: its window and the lines that transform the window's two halves;
+ *                       with it the incident line gives a time-averaged power, without it (a pulse) an energy per hertz
+ * @param lineLength     the length of the lines (and of the incident line) along x, m
+ * @param sourceAmplitude the source's amplitude as the case states it: a plane wave's sheet current (η0 J_s in V/m
+ *                       for s, the magnetic sheet current in V/m for p), a beam's z field at the waist centre (V/m)
+ * @param path           a beam's path line in the reference run, when the case compares reflected lines with the
+ *                       exact answer (see {@link Path})
  */
 public record FluxPlan(double[] frequencies, double kx, String medium, double mediumIndex, int direction, List<Line> lines,
                        FluxLine incident, double incidentY, Simulation.Builder reference, double cellSize,
                        Optional<Exact> exact, Optional<SourceSpec.GaussianBeamSource> beam, double gridX0,
-                       java.util.function.DoubleBinaryOperator indexAt) {
+                       java.util.function.DoubleBinaryOperator indexAt, Optional<Steady> steady, double lineLength,
+                       double sourceAmplitude, Optional<Path> path) {
+
+    /**
+     * The steady-state check of a continuous wave (see {@link SteadyState}).
+     *
+     * @param window    the transform window
+     * @param run       per case line (in order), its early and late halves in the case's run
+     * @param reference the same in the reference run
+     * @param incident  the incident line's early and late halves (reference run)
+     */
+    public record Steady(SteadyState window, List<FluxLine[]> run, List<FluxLine[]> reference, FluxLine[] incident) {
+        public Steady {
+            run = List.copyOf(run);
+            reference = List.copyOf(reference);
+            incident = incident.clone();
+        }
+    }
+
+    /** Whether the source is a continuous wave (its flux transformed over whole settled periods). */
+    public boolean continuous() {
+        return steady.isPresent();
+    }
 
     /**
      * The exact reference.
@@ -48,6 +77,16 @@ public record FluxPlan(double[] frequencies, double kx, String medium, double me
      *                       there; 0 for a plane wave)
      */
     public record Exact(DoubleFunction<PlanarStack> stack, double firstInterface, double column) { }
+
+    /**
+     * A line of the reference run farther along the incident beam's path (at the mirror image of a reflected
+     * line through the first interface, where it fits): with the incident line it gives where the incident beam
+     * travels on the grid, the baseline of the lateral shift.
+     *
+     * @param line the line, recorded in the reference run
+     * @param y    its height, m
+     */
+    public record Path(FluxLine line, double y) { }
 
     public FluxPlan {
         frequencies = frequencies.clone();

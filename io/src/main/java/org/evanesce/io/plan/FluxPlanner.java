@@ -57,16 +57,22 @@ final class FluxPlanner {
         MaterialGrid homogeneous = Rasterizer.rasterize(Scene.builder(materials.get(medium.name())).build(), grid,
                 Smoothing.ANISOTROPIC);
         Simulation.Builder reference = configured.apply(homogeneous);
-        double[] window = w.signal() instanceof SignalSpec.RampedWave rw
+        SteadyState steady = w.signal() instanceof SignalSpec.RampedWave rw
                 ? continuousWindow(spec, grid, rw, stop.maxSteps() * dt, errors) : null;
         List<FluxPlan.Line> lines = new ArrayList<>();
+        List<FluxLine[]> runHalves = new ArrayList<>();
+        List<FluxLine[]> referenceHalves = new ArrayList<>();
         for (FluxSpec.Line l : f.lines()) {
             int row = CasePlanner.nearest(l.y().si(), grid.y0(), dx, 0.5);
-            FluxLine a = windowed(new FluxLine(pol, row, i0, i1, freqs), window);
-            FluxLine b = windowed(new FluxLine(pol, row, i0, i1, freqs), window);
+            FluxLine a = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
+            FluxLine b = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
             run.listener(a);
             reference.listener(b);
             lines.add(new FluxPlan.Line(l, row, grid.y0() + (row + 0.5) * dx, a, b));
+            if (steady != null) {
+                runHalves.add(halves(steady, a, freqs, pol, run));
+                referenceHalves.add(halves(steady, b, freqs, pol, reference));
+            }
         }
         int sourceRow = CasePlanner.nearest(w.y().si(), grid.y0(), dx, w.component().value().dy);
         // the line at (row + ½)Δ lies INCIDENT_OFFSET cells from the source row in the direction of travel
@@ -76,19 +82,66 @@ final class FluxPlanner {
                     + "read %d cells ahead of the launching line, which is outside the grid; move the line away from "
                     + "the %s edge", INCIDENT_OFFSET, dir > 0 ? "top" : "bottom")));
         }
-        FluxLine incident = windowed(new FluxLine(pol, Math.max(0, incidentRow), i0, i1, freqs), window);
+        FluxLine incident = windowed(new FluxLine(pol, Math.max(0, incidentRow), i0, i1, freqs), steady);
         reference.listener(incident);
+        Optional<FluxPlan.Steady> check = steady == null ? Optional.empty() : Optional.of(new FluxPlan.Steady(steady,
+                runHalves, referenceHalves, halves(steady, incident, freqs, pol, reference)));
         Optional<FluxPlan.Exact> exact = f.transferMatrix().value()
                 ? transferMatrix(spec, grid, w, interior, errors) : Optional.empty();
         Optional<SourceSpec.GaussianBeamSource> beam = w instanceof SourceSpec.GaussianBeamSource b
                 ? Optional.of(b) : Optional.empty();
+        Optional<FluxPlan.Path> path = Optional.empty();
+        if (beam.isPresent() && exact.isPresent()) {
+            int row = pathRow(lines, exact.get().firstInterface(), incidentRow, dir, grid, interior);
+            if (row >= 0) {
+                FluxLine l = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
+                reference.listener(l);
+                path = Optional.of(new FluxPlan.Path(l, grid.y0() + (row + 0.5) * dx));
+            }
+        }
         return new FluxPlan(freqs, PlaneWaves.kx(spec), medium.name(), medium.index(), dir, lines, incident,
                 grid.y0() + (incidentRow + 0.5) * dx, reference, dx, exact, beam, grid.x0(),
-                (x, y) -> spec.materials().get(spec.materialAt(x, y)).index());
+                (x, y) -> spec.materials().get(spec.materialAt(x, y)).index(), check, (i1 - i0) * dx,
+                w.amplitude().si(), path);
     }
 
-    private static FluxLine windowed(FluxLine l, double[] window) {
-        return window == null ? l : l.window(window[0], window[1]);
+    /** The path line lies at least this many cells along the beam's travel from the incident line, or is left out. */
+    static final int MIN_PATH_CELLS = 10;
+
+    /**
+     * The reference run's row for the beam's path line: the mirror image, through the first interface, of the
+     * reflected line farthest from it (where the incident beam would be after the same vertical travel as the
+     * reflected one), moved inside the interior (one cell clear of its edges) if it falls outside; −1 when the
+     * case has no reflected line or the row would lie fewer than {@value #MIN_PATH_CELLS} cells beyond the
+     * incident line.
+     */
+    private static int pathRow(List<FluxPlan.Line> lines, double firstInterface, int incidentRow, int dir, GridSpec grid,
+                               int[] interior) {
+        double far = -1;
+        for (FluxPlan.Line l : lines) {
+            if (l.spec().measures().value() == FluxSpec.Measure.REFLECTED) {
+                far = Math.max(far, Math.abs(firstInterface - l.y()));
+            }
+        }
+        if (far < 0) {
+            return -1;
+        }
+        int row = CasePlanner.nearest(firstInterface + dir * far, grid.y0(), grid.cellSize(), 0.5);
+        row = Math.max(interior[1] + 1, Math.min(interior[3] - 3, row));
+        return (row - incidentRow) * dir >= MIN_PATH_CELLS ? row : -1;
+    }
+
+    private static FluxLine windowed(FluxLine l, SteadyState steady) {
+        return steady == null ? l : l.window(steady.start(), steady.end() + 1e-6 * steady.period());
+    }
+
+    /** The early and late halves of a windowed line, registered on {@code sim}. */
+    private static FluxLine[] halves(SteadyState steady, FluxLine like, double[] freqs,
+                                     org.evanesce.solver.grid.Polarization pol, Simulation.Builder sim) {
+        FluxLine[] h = {steady.halfLine(like, 0, freqs, pol), steady.halfLine(like, 1, freqs, pol)};
+        sim.listener(h[0]);
+        sim.listener(h[1]);
+        return h;
     }
 
     /**
@@ -96,9 +149,10 @@ final class FluxPlanner {
      * have settled (after three ramps and two crossings of the domain's height at the slowest speed), so
      * the switch-on and the different arrival times at different lines do not bias the ratios.
      *
-     * @return {start, end} in s, or null (error reported) when fewer than {@value #MIN_PERIODS} periods remain
+     * @param end the run's end, s
+     * @return the window, or null (error reported) when fewer than {@value #MIN_PERIODS} periods remain
      */
-    static double[] continuousWindow(CaseSpec spec, GridSpec grid, SignalSpec.RampedWave rw, double end,
+    static SteadyState continuousWindow(CaseSpec spec, GridSpec grid, SignalSpec.RampedWave rw, double end,
                                      List<Diagnostic> errors) {
         double nMax = 1;
         for (MaterialSpec m : spec.materials().values()) {
@@ -115,7 +169,7 @@ final class FluxPlanner {
                     Math.max(0, periods), MIN_PERIODS, Units.format(settle + MIN_PERIODS * period, Dimension.TIME))));
             return null;
         }
-        return new double[] {end - periods * period, end + 1e-6 * period};
+        return new SteadyState(end - periods * period, end, period, periods);
     }
 
     /** Fewest whole periods a continuous wave's flux is transformed over. */

@@ -2,6 +2,8 @@ package org.evanesce.io.run;
 
 import java.io.IOException;
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Locale;
 import org.evanesce.io.casefile.FluxSpec;
 import org.evanesce.io.output.image.LinePlot;
@@ -39,7 +41,8 @@ public final class BeamPlots {
         AngularSpectrum.Result as = null;
         if (plan.exact().isPresent()) {
             PlanarStack stack = plan.exact().get().stack().apply(wl);
-            as = BeamReference.of(plan, stack, pol, wl);
+            AngularSpectrum.Converged reference = BeamReference.of(plan, stack, pol, wl);
+            as = reference.converged() ? reference.result() : null; // a reference that did not converge is not drawn
         }
         int written = 0;
         double incident = Math.abs(plan.incident().flux(q, dx));
@@ -79,13 +82,25 @@ public final class BeamPlots {
                     u = as.reflected();
                 }
                 if (Double.isFinite(shift)) {
-                    double[] rx = new double[as.samples()];
-                    double[] ry = new double[as.samples()];
-                    for (int j = 0; j < rx.length; j++) {
-                        rx[j] = (hit + shift + as.x(j)) * 1e6;
-                        ry[j] = u[2 * j] * u[2 * j] + u[2 * j + 1] * u[2 * j + 1];
+                    // only the part over the plotted line: a converged window may be millimetres wide
+                    double[] all = new double[as.samples()];
+                    double peak = 0;
+                    for (int j = 0; j < all.length; j++) {
+                        all[j] = u[2 * j] * u[2 * j] + u[2 * j + 1] * u[2 * j + 1];
+                        peak = Math.max(peak, all[j]);
                     }
-                    b.series("angular spectrum (no edges)", rx, normalised(ry), LinePlot.Style.LINES);
+                    List<double[]> kept = new ArrayList<>();
+                    for (int j = 0; j < all.length; j++) {
+                        double xj = (hit + shift + as.x(j)) * 1e6;
+                        if (xj >= x[0] && xj <= x[x.length - 1]) {
+                            kept.add(new double[] {xj, peak > 0 ? all[j] / peak : 0});
+                        }
+                    }
+                    double[] rx = kept.stream().mapToDouble(p2 -> p2[0]).toArray();
+                    double[] ry = kept.stream().mapToDouble(p2 -> p2[1]).toArray();
+                    if (rx.length > 1) {
+                        b.series("angular spectrum (no edges)", rx, ry, LinePlot.Style.LINES);
+                    }
                 }
             }
             double span = x[x.length - 1] - x[0];

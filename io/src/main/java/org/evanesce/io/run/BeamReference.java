@@ -1,43 +1,77 @@
 package org.evanesce.io.run;
 
+import java.util.ArrayList;
+import java.util.List;
+import org.evanesce.io.casefile.FluxSpec;
 import org.evanesce.io.casefile.SourceSpec;
 import org.evanesce.io.plan.FluxPlan;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.reference.AngularSpectrum;
 import org.evanesce.solver.reference.PlanarStack;
 
-/** The finite-beam reference of a beam case: the angular spectrum of the case's beam through the stack under it. */
+/**
+ * The finite-beam reference of a beam case: the angular spectrum of the case's beam through the stack under it,
+ * sampled until it has converged ({@link AngularSpectrum#converged}).
+ */
 final class BeamReference {
 
-    /** The spectrum's window, in footprints (waist / cos θ): the beams and their shifts fit with room to spare. */
+    /** The first window, in footprints (waist / cos θ): the beams and their shifts fit with room to spare. */
     static final double WINDOW_FOOTPRINTS = 24;
     /** Samples per wavelength in the source's medium: twice what holds every propagating component. */
     static final double SAMPLES_PER_WAVELENGTH = 4;
+    /** R, T (and so A) of the reference converge to this, absolute. */
+    static final double POWER_TOLERANCE = 1e-5;
+    /** The reflected centroids (so the shifts) converge to this fraction of the beam's footprint. */
+    static final double SHIFT_TOLERANCE_FOOTPRINTS = 1e-4;
+    /**
+     * The largest sampling tried: 2^20 samples (about 170 MB of work arrays for a moment), a window of 256 first
+     * windows. A stack whose resonances need more is reported as not converged.
+     */
+    static final int MAX_SAMPLES = 1 << 20;
 
     private BeamReference() {
     }
 
-    /** The angular-spectrum result of the plan's beam at vacuum wavelength {@code wl} (m). */
-    static AngularSpectrum.Result of(FluxPlan plan, PlanarStack stack, Polarization pol, double wl) {
+    /**
+     * The converged angular-spectrum result of the plan's beam at vacuum wavelength {@code wl} (m), with the
+     * reflected centroid on every reflected line in the plan's order (see {@link #reflectedShift}).
+     */
+    static AngularSpectrum.Converged of(FluxPlan plan, PlanarStack stack, Polarization pol, double wl) {
         AngularSpectrum.GaussianBeam beam = beam(plan, wl);
         double window = WINDOW_FOOTPRINTS * beam.footprint();
         long needed = (long) Math.ceil(window / (wl / (SAMPLES_PER_WAVELENGTH * plan.mediumIndex())));
-        int samples = Integer.highestOneBit((int) Math.min(needed, 1 << 24) - 1) << 1;
-        return AngularSpectrum.of(stack, pol, beam, samples, window);
+        int samples = Integer.highestOneBit((int) Math.min(needed, MAX_SAMPLES) - 1) << 1;
+        List<FluxPlan.Line> reflected = reflectedLines(plan);
+        double[] distances = new double[reflected.size()];
+        for (int k = 0; k < distances.length; k++) {
+            distances[k] = Math.abs(plan.exact().orElseThrow().firstInterface() - reflected.get(k).y());
+        }
+        return AngularSpectrum.converged(stack, pol, beam, samples, window, distances,
+                new AngularSpectrum.Tolerance(POWER_TOLERANCE, SHIFT_TOLERANCE_FOOTPRINTS * beam.footprint()), MAX_SAMPLES);
+    }
+
+    /** The plan's reflected lines, in order. */
+    static List<FluxPlan.Line> reflectedLines(FluxPlan plan) {
+        List<FluxPlan.Line> out = new ArrayList<>();
+        for (FluxPlan.Line l : plan.lines()) {
+            if (l.spec().measures().value() == FluxSpec.Measure.REFLECTED) {
+                out.add(l);
+            }
+        }
+        return out;
     }
 
     /**
-     * The angular spectrum's lateral shift of the reflected beam on the line at height y, m: its
-     * flux-weighted centroid there minus the specular position (see {@link #specular}).
+     * The angular spectrum's lateral shift of the reflected beam on a reflected line, m: its flux-weighted
+     * centroid there minus the specular position (see {@link #specular}).
      *
-     * @param sampled the result of {@link #of} at this wavelength, whose sampling is reused
+     * @param reference the result of {@link #of} at this wavelength
      */
-    static double reflectedShift(FluxPlan plan, PlanarStack stack, Polarization pol, AngularSpectrum.Result sampled,
-                                 double wl, double y) {
-        double d = Math.abs(plan.exact().orElseThrow().firstInterface() - y);
+    static double reflectedShift(FluxPlan plan, AngularSpectrum.Converged reference, FluxPlan.Line line) {
+        int k = reflectedLines(plan).indexOf(line);
+        double d = Math.abs(plan.exact().orElseThrow().firstInterface() - line.y());
         double theta = plan.beam().orElseThrow().angle().si();
-        return AngularSpectrum.reflectedCentroid(stack, pol, beam(plan, wl), sampled.samples(),
-                sampled.samples() * sampled.spacing(), d) - d * Math.tan(theta);
+        return reference.reflectedCentroids()[k] - d * Math.tan(theta);
     }
 
     /** The case's beam for the angular spectrum: its waist, angle, and the distance from its waist to the first interface. */
@@ -59,5 +93,46 @@ final class BeamReference {
         double tan = Math.tan(b.angle().si());
         double hit = b.waistAt().x().si() + (interfaceY - b.waistAt().y().si()) * plan.direction() * tan;
         return hit + Math.abs(interfaceY - y) * tan;
+    }
+
+    /**
+     * Where the specular beam crosses height y on the grid at frequency number q, m: the incident beam's own
+     * path, measured in the reference run (the homogeneous medium), carried over the same vertical travel as
+     * the reflected beam's. The reference run's beam has its flux-weighted centroid c1 on the incident line (y1)
+     * and c2 on the path line (y2, beyond the interface's height); the centroid of a beam in a homogeneous
+     * medium moves in a straight line, and the grid's dispersion does not change between a wave going up and
+     * one coming down (its dispersion relation is even in ky), so the specularly reflected beam, after a
+     * vertical travel s = |y_int − y1| + |y − y_int| from y1, lies at c1 + (c2 − c1)·s/|y2 − y1|. That takes
+     * out what the grid does to the beam's direction (at 16 cells per wavelength a beam asked for at 50° moves
+     * along 49.9°) and leaves the interface's shift. Without a path line, the nominal {@link #specular}.
+     */
+    static double gridSpecular(FluxPlan plan, int q, double y) {
+        if (plan.path().isEmpty()) {
+            return specular(plan, y);
+        }
+        double dx = plan.cellSize();
+        double c1 = org.evanesce.solver.monitor.BeamProfile.of(plan.incident(), q, dx, plan.gridX0()).centroid();
+        double c2 = org.evanesce.solver.monitor.BeamProfile.of(plan.path().get().line(), q, dx, plan.gridX0()).centroid();
+        double y1 = plan.incidentY();
+        double interfaceY = plan.exact().orElseThrow().firstInterface();
+        double travel = Math.abs(interfaceY - y1) + Math.abs(y - interfaceY);
+        return c1 + (c2 - c1) * travel / Math.abs(plan.path().get().y() - y1);
+    }
+
+    /** A warning for a reference that did not converge at vacuum wavelength wl (m). */
+    static String notConverged(AngularSpectrum.Converged c, double wl) {
+        double[] ch = c.change();
+        String why = Double.isFinite(c.narrowest()) && 2 * Math.PI / (c.result().samples() * c.result().spacing())
+                > c.narrowest() / 2
+                ? String.format(java.util.Locale.ROOT, "the stack has a resonance %.3g rad/m wide (half width at half "
+                        + "height of |t|^2; a weakly coupled guided mode, e.g. behind a thick gap) that needs a window of "
+                        + "%.3g m", c.narrowest(), 4 * Math.PI / c.narrowest())
+                : String.format(java.util.Locale.ROOT, "the last doubling changed R by %.2g, T by %.2g and the reflected "
+                        + "centroids by %.3g nm (tolerances %.1g, %.1g and %.1g footprints)", ch[0], ch[1], ch[2] * 1e9,
+                        POWER_TOLERANCE, POWER_TOLERANCE, SHIFT_TOLERANCE_FOOTPRINTS);
+        return String.format(java.util.Locale.ROOT, "the angular-spectrum reference at %.2f nm did not converge within "
+                + "%d samples (a window of %.4g mm): %s; its X_beam, X_diff and shift_*_beam_um columns are left empty "
+                + "and beam_reference_converged is 0", wl * 1e9, c.result().samples(),
+                c.result().samples() * c.result().spacing() * 1e3, why);
     }
 }

@@ -24,9 +24,27 @@ public final class CaseRunner {
      * @param bytes          bytes of field, coefficient and PML arrays
      * @param referenceWallSeconds wall time of the flux normalisation's reference run (0 when there is none)
      * @param resumedFromStep the step the run continued from a checkpoint at, or −1
+     * @param stoppedByLimit the run ended at its time limit before its fields decayed as asked (a decay stop only)
+     * @param referenceFinalEnergy energy inside the PMLs of the reference run at its end, J/m (NaN without one)
+     * @param referencePeakEnergy  the largest energy measured in the reference run, J/m (NaN without one)
      */
     public record Result(long steps, double wallSeconds, int threads, String stopReason, double finalEnergy,
-                         double peakEnergy, long bytes, double referenceWallSeconds, long resumedFromStep) {
+                         double peakEnergy, long bytes, double referenceWallSeconds, long resumedFromStep,
+                         boolean stoppedByLimit, double referenceFinalEnergy, double referencePeakEnergy) {
+
+        /** The energy at the end over the largest measured, or NaN when never measured (0 when none ever arrived). */
+        public double energyFraction() {
+            return fraction(finalEnergy, peakEnergy);
+        }
+
+        /** The same for the reference run. */
+        public double referenceEnergyFraction() {
+            return fraction(referenceFinalEnergy, referencePeakEnergy);
+        }
+
+        private static double fraction(double last, double peak) {
+            return Double.isNaN(last) || Double.isNaN(peak) ? Double.NaN : peak > 0 ? last / peak : 0.0;
+        }
 
         /** Cell updates per second of wall time. */
         public double cellUpdatesPerSecond(long cells) {
@@ -46,9 +64,20 @@ public final class CaseRunner {
         }
     }
 
+    /**
+     * A seam for tests: the divergence limit (field magnitude) to build a plan's run with, or NaN (the default) for
+     * the solver's own, so that a test can make a run fail as diverged, which no case the reader accepts does (gain
+     * and amplitudes beyond the fields' range are refused).
+     */
+    public static volatile java.util.function.ToDoubleFunction<CasePlan> divergenceLimitForTests = plan -> Double.NaN;
+
     /** Builds the planned simulation; the solver's refusals become {@link RefusedException}s naming the case file. */
     public static Simulation build(CasePlan plan) {
         try {
+            double limit = divergenceLimitForTests.applyAsDouble(plan);
+            if (limit > 0) {
+                plan.builder().divergenceLimit(limit);
+            }
             return plan.builder().build();
         } catch (IllegalArgumentException e) {
             throw new RefusedException(plan.spec().source() + ": the solver refused the case: "
@@ -91,8 +120,10 @@ public final class CaseRunner {
             long t0 = System.nanoTime();
             String reason = null;
             double energy = Double.NaN;
-            double peak = plan.stop() instanceof CasePlan.Stop.Steps ? Double.NaN : 0;
+            double peak = 0;
             double before = 0;
+            boolean byLimit = false;
+            int[] r = plan.interior();
             Checkpoints.State restored = ck == null ? null : ck.restore(sim);
             long resumedFrom = restored == null ? -1 : sim.stepCount();
             if (restored != null) {
@@ -103,8 +134,11 @@ public final class CaseRunner {
             }
             long lastSave = System.nanoTime();
             if (reason == null && plan.stop() instanceof CasePlan.Stop.Steps s) {
+                // the energy is measured as in a decay stop (every chunk, at the end) so the result can say whether it settled
                 while (sim.stepCount() < s.steps()) {
                     sim.run(Math.min(Checkpoints.CHUNK, s.steps() - sim.stepCount()));
+                    energy = sim.energy(r[0], r[1], r[2], r[3]);
+                    peak = Math.max(peak, energy);
                     if (ck != null && ck.due(lastSave)) {
                         ck.save(sim, peak, energy, null, before + (System.nanoTime() - t0) * 1e-9);
                         lastSave = System.nanoTime();
@@ -113,7 +147,6 @@ public final class CaseRunner {
                 reason = "ran the requested " + s.steps() + " steps";
             } else if (reason == null) {
                 CasePlan.Stop.Decay d = (CasePlan.Stop.Decay) plan.stop();
-                int[] r = plan.interior();
                 while (sim.stepCount() < d.limitSteps()) {
                     long chunk = Math.min(d.checkInterval(), d.limitSteps() - sim.stepCount());
                     sim.run(chunk);
@@ -129,7 +162,10 @@ public final class CaseRunner {
                         lastSave = System.nanoTime();
                     }
                 }
-                if (reason == null) {
+                if (reason == null && plan.continuous()) {
+                    reason = String.format("ran to the time limit (%d steps): a continuous wave does not decay", d.limitSteps());
+                } else if (reason == null) {
+                    byLimit = true;
                     reason = String.format("reached the time limit (%d steps) before the energy decayed to %.3g of its "
                             + "largest value (now %.3g)", d.limitSteps(), d.fraction(), peak > 0 ? energy / peak : 0.0);
                 }
@@ -142,13 +178,16 @@ public final class CaseRunner {
             if (atEnd != null) {
                 atEnd.accept(sim);
             }
-            double referenceWall = 0;
+            if (restored != null && restored.reason() != null && reason.startsWith("reached the time limit")) {
+                byLimit = true;
+            }
+            double[] reference = {0, Double.NaN, Double.NaN};
             if (plan.flux().isPresent()) {
-                referenceWall = runReference(plan, sim.stepCount(), progress, progressSeconds);
+                reference = runReference(plan, sim.stepCount(), progress, progressSeconds);
                 reason += "; the reference run (for the incident power) took the same number of steps";
             }
-            return new Result(sim.stepCount(), wall, sim.threads(), reason, energy, peak, sim.bytes(), referenceWall,
-                    resumedFrom);
+            return new Result(sim.stepCount(), wall, sim.threads(), reason, energy, peak, sim.bytes(), reference[0],
+                    resumedFrom, byLimit, reference[1], reference[2]);
         }
     }
 
@@ -156,9 +195,9 @@ public final class CaseRunner {
      * Runs the flux normalisation's reference (the case's grid filled with the plane wave's medium) for
      * exactly as many steps as the case's run, so both transforms cover the same time window.
      *
-     * @return its wall time, s
+     * @return its wall time, s, its energy inside the PMLs at the end and the largest measured, J/m
      */
-    private static double runReference(CasePlan plan, long steps, Consumer<Progress.Report> progress, double progressSeconds) {
+    private static double[] runReference(CasePlan plan, long steps, Consumer<Progress.Report> progress, double progressSeconds) {
         Simulation.Builder b = plan.flux().orElseThrow().reference();
         Simulation ref;
         try {
@@ -172,8 +211,15 @@ public final class CaseRunner {
                 ref.addListener(new Progress(steps, progressSeconds, progress));
             }
             long t0 = System.nanoTime();
-            ref.run(steps);
-            return (System.nanoTime() - t0) * 1e-9;
+            int[] r = plan.interior();
+            double energy = Double.NaN;
+            double peak = 0;
+            while (ref.stepCount() < steps) {
+                ref.run(Math.min(Checkpoints.CHUNK, steps - ref.stepCount()));
+                energy = ref.energy(r[0], r[1], r[2], r[3]);
+                peak = Math.max(peak, energy);
+            }
+            return new double[] {(System.nanoTime() - t0) * 1e-9, energy, peak};
         }
     }
 }

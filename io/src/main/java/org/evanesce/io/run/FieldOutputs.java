@@ -226,8 +226,6 @@ public final class FieldOutputs {
     }
 
     static void writeText(Path file, String text) throws IOException {
-        Path tmp = file.resolveSibling(file.getFileName() + ".part");
-        Files.writeString(tmp, text);
-        Files.move(tmp, file, java.nio.file.StandardCopyOption.REPLACE_EXISTING, java.nio.file.StandardCopyOption.ATOMIC_MOVE);
+        org.evanesce.io.output.SafeFiles.writeString(file, text);
     }
 }

@@ -17,10 +17,43 @@ import org.evanesce.solver.reference.PlanarStack;
  * transmitted line, R through each reflected line, the absorptance A = 1 − R − T when there is one
  * line of each, and, for a layered scene, the transfer-matrix values beside them with the difference.
  *
- * @param columns the value columns after wavelength, frequency and angle, in order
- * @param rows    one per frequency
+ * @param columns  the value columns after wavelength, frequency and angle, in order
+ * @param rows     one per frequency
+ * @param incident what the rows' incident values are ({@link Incident#POWER} or {@link Incident#SPECTRAL_ENERGY})
+ * @param warnings what a reader should know about the numbers (e.g. a reference that did not converge), in words
  */
-public record FluxResults(List<String> columns, List<Row> rows) {
+public record FluxResults(List<String> columns, List<Row> rows, Incident incident, List<String> warnings) {
+
+    /** The column saying whether the beam's angular-spectrum reference converged (1) or not (0). */
+    public static final String CONVERGED_COLUMN = "beam_reference_converged";
+
+    /**
+     * What the incident line's value means. Both are for the source's amplitude as the case states
+     * it, summed over the incident line's length, per metre along z.
+     */
+    public enum Incident {
+        /** A continuous wave: the time-averaged power through the incident line, W/m. */
+        POWER("incident_power_w_per_m", "W/m", "time-averaged power of the incident wave through the incident line, per "
+                + "metre along z, for the source's amplitude as stated (a continuous wave, transformed over whole settled "
+                + "periods: 4 x DFT flux / (D_E D_H), D the duration of the transformed samples)"),
+        /** A pulse: the energy through the incident line per hertz of positive frequency, J/(m·Hz). */
+        SPECTRAL_ENERGY("incident_energy_j_per_m_hz", "J/(m Hz)", "energy of the incident pulse that crosses the "
+                + "incident line per hertz of positive frequency, per metre along z, for the source's amplitude as "
+                + "stated (4 x DFT flux, by Parseval's theorem; its integral over frequency is the pulse's energy)");
+
+        /** The flux.csv column and summary.json key. */
+        public final String column;
+        /** The unit in words. */
+        public final String unit;
+        /** The definition, for summary.json. */
+        public final String definition;
+
+        Incident(String column, String unit, String definition) {
+            this.column = column;
+            this.unit = unit;
+            this.definition = definition;
+        }
+    }
 
     /** Where the normalisation comes from, written into summary.json and the command's output. */
     public static final String METHOD = "T = flux of the run's fields through the line in the incident direction / incident "
@@ -33,10 +66,10 @@ public record FluxResults(List<String> columns, List<Row> rows) {
      * @param frequency     Hz
      * @param wavelength    vacuum wavelength, m
      * @param angleDegrees  angle of incidence in the plane wave's medium at this frequency
-     * @param incidentPower the reference run's flux through the incident line, W per metre of z (source units squared)
+     * @param incident      the incident line's power (W/m) or energy per hertz (J/(m·Hz)), see {@link Incident}
      * @param values        the value columns in order (NaN where not defined)
      */
-    public record Row(double frequency, double wavelength, double angleDegrees, double incidentPower, double[] values) { }
+    public record Row(double frequency, double wavelength, double angleDegrees, double incident, double[] values) { }
 
     /** A line carrying less than this fraction of the incident power gets no centroid or width. */
     static final double MIN_BEAM_POWER = 1e-3;
@@ -66,6 +99,9 @@ public record FluxResults(List<String> columns, List<Row> rows) {
             columns.add("A");
             suffixes.forEach(x -> columns.add("A" + x));
         }
+        if (exact && beam) {
+            columns.add(CONVERGED_COLUMN);
+        }
         if (beam) {
             for (FluxPlan.Line l : plan.lines()) {
                 columns.add("centroid_" + l.spec().name().value() + "_um");
@@ -78,15 +114,24 @@ public record FluxResults(List<String> columns, List<Row> rows) {
             }
         }
         List<Row> rows = new ArrayList<>();
+        List<String> warnings = new ArrayList<>();
         double dx = plan.cellSize();
         int dir = plan.direction();
         for (int q = 0; q < plan.frequencies().length; q++) {
             double wl = plan.wavelength(q);
+            // the ratios use the DFT fluxes as they are; the incident value gets its own units
             double incident = dir * plan.incident().flux(q, dx);
+            double incidentValue = dir * (plan.continuous() ? plan.incident().meanPower(q, dx)
+                    : plan.incident().spectralEnergy(q, dx));
             PlanarStack stack = exact ? plan.exact().get().stack().apply(wl) : null;
             PlanarStack.Response r = !exact ? null : beam ? stack.atAngle(pol, wl, plan.angle(q))
                     : stack.atTransverseWavenumber(pol, wl, plan.kx());
-            AngularSpectrum.Result as = exact && beam ? BeamReference.of(plan, stack, pol, wl) : null;
+            AngularSpectrum.Converged reference = exact && beam ? BeamReference.of(plan, stack, pol, wl) : null;
+            // a reference that did not converge is not printed: its columns stay empty (NaN)
+            AngularSpectrum.Result as = reference == null || !reference.converged() ? null : reference.result();
+            if (reference != null && !reference.converged()) {
+                warnings.add(BeamReference.notConverged(reference, wl));
+            }
             double[] v = new double[columns.size()];
             int k = 0;
             double sum = 0;
@@ -100,7 +145,7 @@ public record FluxResults(List<String> columns, List<Row> rows) {
                     double e = t ? r.transmittance() : r.reflectance();
                     v[k++] = e;
                     if (beam) {
-                        double b = t ? as.transmittance() : as.reflectance();
+                        double b = as == null ? Double.NaN : t ? as.transmittance() : as.reflectance();
                         v[k++] = b;
                         e = b;
                     }
@@ -113,11 +158,14 @@ public record FluxResults(List<String> columns, List<Row> rows) {
                     v[k++] = r.absorptance();
                     double e = r.absorptance();
                     if (beam) {
-                        e = 1 - as.reflectance() - as.transmittance();
+                        e = as == null ? Double.NaN : 1 - as.reflectance() - as.transmittance();
                         v[k++] = e;
                     }
                     v[k++] = 1 - sum - e;
                 }
+            }
+            if (exact && beam) {
+                v[k++] = as != null ? 1 : 0;
             }
             if (beam) {
                 for (FluxPlan.Line l : plan.lines()) {
@@ -129,14 +177,15 @@ public record FluxResults(List<String> columns, List<Row> rows) {
                     v[k++] = seen ? p.width() * 1e6 : Double.NaN;
                     v[k++] = seen ? outgoingAngle(plan, l, t, q, p.centroid()) : Double.NaN;
                     if (exact && !t) {
-                        v[k++] = seen ? (p.centroid() - BeamReference.specular(plan, l.y())) * 1e6 : Double.NaN;
-                        v[k++] = BeamReference.reflectedShift(plan, stack, pol, as, wl, l.y()) * 1e6;
+                        v[k++] = seen ? (p.centroid() - BeamReference.gridSpecular(plan, q, l.y())) * 1e6 : Double.NaN;
+                        v[k++] = as == null ? Double.NaN : BeamReference.reflectedShift(plan, reference, l) * 1e6;
                     }
                 }
             }
-            rows.add(new Row(plan.frequencies()[q], wl, Math.toDegrees(plan.angle(q)), incident, v));
+            rows.add(new Row(plan.frequencies()[q], wl, Math.toDegrees(plan.angle(q)), incidentValue, v));
         }
-        return new FluxResults(List.copyOf(columns), List.copyOf(rows));
+        return new FluxResults(List.copyOf(columns), List.copyOf(rows),
+                plan.continuous() ? Incident.POWER : Incident.SPECTRAL_ENERGY, List.copyOf(warnings));
     }
 
     /** Zero padding of a line's field before its plane-wave spectrum is taken: a finer kx grid for the mean. */
@@ -174,13 +223,15 @@ public record FluxResults(List<String> columns, List<Row> rows) {
         for (String c : columns) {
             sb.append(',').append(c);
         }
-        sb.append(",incident_power\n");
+        sb.append(',').append(incident.column).append('\n');
         for (Row r : rows) {
             sb.append(String.format(Locale.ROOT, "%.6f,%.6f,%.6f", r.wavelength() * 1e9, r.frequency() * 1e-12, r.angleDegrees()));
-            for (double x : r.values()) {
-                sb.append(',').append(Double.isFinite(x) ? String.format(Locale.ROOT, "%.9f", x) : "");
+            for (int k = 0; k < columns.size(); k++) {
+                double x = r.values()[k];
+                String f = columns.get(k).equals(CONVERGED_COLUMN) ? "%.0f" : "%.9f";
+                sb.append(',').append(Double.isFinite(x) ? String.format(Locale.ROOT, f, x) : "");
             }
-            sb.append(String.format(Locale.ROOT, ",%.9e%n", r.incidentPower()));
+            sb.append(String.format(Locale.ROOT, ",%.9e%n", r.incident()));
         }
         return sb.toString();
     }
@@ -204,16 +255,45 @@ public record FluxResults(List<String> columns, List<Row> rows) {
                         + "(read along x = " + plan.exact().get().column() + " m, where the axis meets the first interface); "
                         + "X_beam: the same beam through that stack by its angular spectrum (no edges); X_diff = simulated − "
                         + "X_beam. X_beam − X_plane_wave is the part due to the beam's angular spread, X_diff the part due to "
-                        + "edges and geometry (and the grid). shift_name_um: the simulated reflected centroid minus the "
-                        + "specular one; shift_name_beam_um: the angular spectrum's on the same line (flux-weighted, carried from "
+                        + "edges and geometry (and the grid). shift_name_um: the simulated reflected centroid minus "
+                        + "where the incident beam itself lies after the same path on the grid (its centroids in the "
+                        + "reference run on the incident line and on a line at the mirror image of the reflected line "
+                        + "through the interface" + (plan.path().isPresent() ? ", y = " + plan.path().get().y() + " m"
+                        : ": none fitted, so the nominal specular position") + ", carried along its straight path), so "
+                        + "that the grid's effect on the beam's direction is not counted as shift; shift_name_beam_um: the angular spectrum's on the same line (flux-weighted, carried from "
                         + "the interface to the line, so a reflected beam leaving at a slightly different mean angle is "
                         + "compared where it is measured)");
+                Map<String, Object> conv = new LinkedHashMap<>();
+                conv.put("method", "the beam's angular spectrum is sampled over a window of " + BeamReference.WINDOW_FOOTPRINTS
+                        + " footprints (waist / cos angle), then the window and the number of samples are doubled together "
+                        + "until the sample spacing in kx is at most half the half-width of the narrowest resonance of the "
+                        + "stack inside the beam's spectrum (a peak of |t|^2) and R, T and each reflected centroid change by "
+                        + "less than the tolerances from one doubling to the next; beam_reference_converged is false (and "
+                        + "the X_beam, X_diff and shift_*_beam_um values null) where that needs more than the largest "
+                        + "sampling");
+                conv.put("power_tolerance", BeamReference.POWER_TOLERANCE);
+                conv.put("shift_tolerance_footprints", BeamReference.SHIFT_TOLERANCE_FOOTPRINTS);
+                conv.put("largest_sampling", BeamReference.MAX_SAMPLES);
+                m.put("beam_reference_convergence", conv);
             }
         } else {
             wave.put("in_plane_wavenumber_rad_per_m", plan.kx());
             m.put("plane_wave", wave);
         }
         m.put("incident_line_y_m", plan.incidentY());
+        plan.path().ifPresent(p -> m.put("path_line_y_m", p.y()));
+        Map<String, Object> inc = new LinkedHashMap<>();
+        inc.put("key", incident.column);
+        inc.put("unit", incident.unit);
+        inc.put("definition", incident.definition);
+        inc.put("line_length_m", plan.lineLength());
+        inc.put("source_amplitude", plan.sourceAmplitude());
+        inc.put("source_amplitude_meaning", plan.beam().isPresent()
+                ? "the beam's z field (Ez for s, eta0*Hz for p) at the waist centre, V/m"
+                : "the sheet's current density times eta0 (s: electric current along z, eta0*J_s; p: magnetic current "
+                        + "along z, M_s), V/m; in a lossless medium of index n the sheet launches a plane wave each way "
+                        + "with E amplitude a/(2 n cos(theta)) (s) or a/(2 cos(theta)) (p)");
+        m.put("incident", inc);
         List<Object> lines = new ArrayList<>();
         for (FluxPlan.Line l : plan.lines()) {
             Map<String, Object> e = new LinkedHashMap<>();
@@ -235,9 +315,10 @@ public record FluxResults(List<String> columns, List<Row> rows) {
             e.put("frequency_hz", r.frequency());
             e.put("angle_deg", r.angleDegrees());
             for (int k = 0; k < columns.size(); k++) {
-                e.put(columns.get(k), r.values()[k]);
+                e.put(columns.get(k), columns.get(k).equals(CONVERGED_COLUMN) ? (Object) (r.values()[k] == 1)
+                        : (Object) r.values()[k]);
             }
-            e.put("incident_power", r.incidentPower());
+            e.put(incident.column, r.incident());
             rowsOut.add(e);
         }
         m.put("frequencies", rowsOut);

@@ -72,13 +72,43 @@ public final class RunOutputs {
                 .build().writePng(file);
     }
 
-    /** The run record (DESIGN.md: version, case hash, resolved case, grid, steps, threads, wall time, rate, warnings). */
-    public static Map<String, Object> runRecord(String version, String caseHash, CasePlan plan, CaseRunner.Result r,
-                                                List<Diagnostic> warnings, Map<String, String> overrides) {
+    /**
+     * What ran and how: the program's build, the command line, the machine.
+     *
+     * @param build       the program's build
+     * @param commandLine the arguments as given, after the program's name
+     */
+    public record Invocation(org.evanesce.io.output.BuildInfo build, List<String> commandLine) {
+        public Invocation {
+            commandLine = List.copyOf(commandLine);
+        }
+    }
+
+    /**
+     * The run record (DESIGN.md: version, case hash, resolved case, grid, steps, threads, wall time, rate,
+     * warnings), with the build, command line and host, and whether the results settled.
+     *
+     * @param diagnostics the case file's warnings and notes
+     * @param runWarnings what the finished run found wrong with its results ({@link Settling}, {@link Plausibility})
+     */
+    public static Map<String, Object> runRecord(Invocation inv, String caseHash, CasePlan plan, CaseRunner.Result r,
+                                                Settling settling, List<Diagnostic> diagnostics, List<String> runWarnings,
+                                                Map<String, String> overrides) {
         CaseSpec s = plan.spec();
         Map<String, Object> m = new LinkedHashMap<>();
         m.put("program", "evanesce");
-        m.put("version", version);
+        m.put("version", inv.build().version());
+        m.put("build", inv.build().record());
+        List<String> cl = new java.util.ArrayList<>(List.of("evanesce"));
+        cl.addAll(inv.commandLine());
+        m.put("command_line", cl);
+        m.put("working_directory", java.nio.file.Path.of("").toAbsolutePath().toString());
+        Map<String, Object> host = new LinkedHashMap<>();
+        host.put("cores", Runtime.getRuntime().availableProcessors());
+        host.put("max_heap_bytes", Runtime.getRuntime().maxMemory());
+        host.put("java", System.getProperty("java.version"));
+        host.put("os", System.getProperty("os.name") + " " + System.getProperty("os.arch"));
+        m.put("host", host);
         m.put("case_file", s.source());
         m.put("case_sha256", caseHash);
         m.put("overrides", new LinkedHashMap<>(overrides));
@@ -106,8 +136,29 @@ public final class RunOutputs {
         resolved.put("boundaries", sides);
         resolved.put("shapes", s.shapes().size());
         resolved.put("sources", s.sources().size());
-        resolved.put("probes", plan.probes().stream().map(p -> p.name() + " " + p.probe().component() + " at node ("
-                + p.i() + ", " + p.j() + ")").toList());
+        List<Object> probes = new java.util.ArrayList<>();
+        for (CasePlan.NamedProbe p : plan.probes()) {
+            Map<String, Object> e = new LinkedHashMap<>();
+            e.put("name", p.name());
+            e.putAll(site(plan, p.probe().component(), p.i(), p.j()));
+            probes.add(e);
+        }
+        resolved.put("probes", probes);
+        List<Object> sources = new java.util.ArrayList<>();
+        for (CasePlan.SourceSite ss : plan.sourceSites()) {
+            Map<String, Object> e = new LinkedHashMap<>();
+            e.put("source", ss.source());
+            Map<String, Object> first = site(plan, ss.component(), ss.i0(), ss.j0());
+            Map<String, Object> last = site(plan, ss.component(), ss.i1(), ss.j1());
+            e.put("component", first.get("component"));
+            e.put("site_offset_cells", first.get("site_offset_cells"));
+            e.put("first_index", first.get("index"));
+            e.put("last_index", last.get("index"));
+            e.put("first_site_m", first.get("site_m"));
+            e.put("last_site_m", last.get("site_m"));
+            sources.add(e);
+        }
+        resolved.put("source_sites", sources);
         m.put("resolved_case", resolved);
         Map<String, Object> grid = new LinkedHashMap<>();
         grid.put("nx", plan.grid().nx());
@@ -136,18 +187,43 @@ public final class RunOutputs {
         }
         run.put("final_energy_j_per_m", r.finalEnergy());
         run.put("peak_energy_j_per_m", r.peakEnergy());
+        if (plan.flux().isPresent()) {
+            run.put("reference_final_energy_j_per_m", r.referenceFinalEnergy());
+            run.put("reference_peak_energy_j_per_m", r.referencePeakEnergy());
+        }
+        run.put("settling", settling.record());
         m.put("run", run);
-        m.put("warnings", warnings.stream().map(Diagnostic::toString).toList());
+        List<String> all = new java.util.ArrayList<>(diagnostics.stream().map(Diagnostic::toString).toList());
+        runWarnings.forEach(w -> all.add(runWarning(plan, w)));
+        m.put("warnings", all);
         return m;
     }
 
-    /** summary.json: the results for programs (documented in docs/outputs.md). */
-    public static Map<String, Object> summary(CasePlan plan, FluxResults flux) {
-        return summary(plan, flux, List.of());
+    /**
+     * Names a component's site: its index (i, j) in that component's array, the site's offset from node (i, j)
+     * in cells, and where it lies, m.
+     */
+    static Map<String, Object> site(CasePlan plan, org.evanesce.solver.grid.Component c, int i, int j) {
+        Map<String, Object> e = new LinkedHashMap<>();
+        double d = plan.grid().cellSize();
+        e.put("component", c.name().toLowerCase(Locale.ROOT));
+        e.put("index", List.of(i, j));
+        e.put("site_offset_cells", new double[] {c.dx, c.dy});
+        e.put("site_m", new double[] {plan.grid().x0() + (i + c.dx) * d, plan.grid().y0() + (j + c.dy) * d});
+        return e;
     }
 
-    /** summary.json with the flux results (or null) and the decay fits of the maps. */
-    public static Map<String, Object> summary(CasePlan plan, FluxResults flux, List<MapOutputs.Decay> decays) {
+    /** A warning about a run's results as printed and recorded: {@code CASE: warning: results: ...}. */
+    public static String runWarning(CasePlan plan, String message) {
+        return plan.spec().source() + ": warning: results: " + message;
+    }
+
+    /**
+     * summary.json (documented in docs/outputs.md) with the flux results (or null), the decay fits of the
+     * maps, whether the run settled and the warnings about its results.
+     */
+    public static Map<String, Object> summary(CasePlan plan, FluxResults flux, List<MapOutputs.Decay> decays,
+                                              Settling settling, List<String> runWarnings) {
         Map<String, Object> m = new LinkedHashMap<>();
         m.put("program", "evanesce");
         m.put("schema", "evanesce-summary-1");
@@ -156,6 +232,10 @@ public final class RunOutputs {
         m.put("polarization", plan.spec().polarization().value().name().toLowerCase(Locale.ROOT));
         m.put("cell_size_m", plan.grid().cellSize());
         m.put("caution", CAUTION);
+        m.put("settled", settling.settled());
+        m.put("energy_fraction", settling.energyFraction());
+        m.put("settling", settling.record());
+        m.put("warnings", runWarnings.stream().map(w -> runWarning(plan, w)).toList());
         if (flux != null) {
             m.put("flux", flux.summary(plan.flux().orElseThrow()));
         }

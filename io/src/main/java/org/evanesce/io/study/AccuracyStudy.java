@@ -58,7 +58,7 @@ public record AccuracyStudy(double ratio, double[] cellSizes, int offsets, List<
         FluxResults first = levels.get(0).get(0);
         List<String> columns = new ArrayList<>();
         for (String c : first.columns()) {
-            if (!c.endsWith("_exact") && !c.endsWith("_diff")) {
+            if (!c.endsWith("_exact") && !c.endsWith("_diff") && !c.equals(FluxResults.CONVERGED_COLUMN)) {
                 columns.add(c);
             }
         }

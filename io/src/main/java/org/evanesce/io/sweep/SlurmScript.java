@@ -10,7 +10,9 @@ import java.util.Map;
 /**
  * A Slurm job-array script for a sweep: array task i runs shard i of N ({@code --shard i/N}, the
  * points whose number % N == i) into the same sweep folder; {@code --merge-only} afterwards gathers
- * them. Paths are absolute and every argument is quoted for the shell.
+ * them. Paths are absolute and every argument is quoted for the shell; paths a script cannot hold
+ * are refused ({@link #problem}). {@code --threads N} goes with {@code #SBATCH --cpus-per-task=N}, and
+ * a task never runs more threads than Slurm gave it (the program reads {@code SLURM_CPUS_PER_TASK}).
  */
 public final class SlurmScript {
 
@@ -41,11 +43,64 @@ public final class SlurmScript {
         sb.append("#   ").append(command(launcher, caseFile, dir, extra)).append(" --merge-only\n");
         sb.append("#SBATCH --job-name=").append(jobName).append('\n');
         sb.append("#SBATCH --array=0-").append(tasks - 1).append('\n');
-        sb.append("#SBATCH --output=").append(dir.resolve("slurm-%A_%a.out")).append('\n');
+        sb.append("#SBATCH --output=\"").append(dir.resolve("slurm-%A_%a.out")).append("\"\n");
         threads(extra).ifPresent(t -> sb.append("#SBATCH --cpus-per-task=").append(t).append('\n'));
         sb.append("set -euo pipefail\n");
         sb.append(run).append('\n');
         return sb.toString();
+    }
+
+    /**
+     * Why these paths and arguments cannot go into a batch script, or null when they can. Every
+     * argument is quoted for the shell, which holds any character but NUL; but a line break or another
+     * control character would end a {@code #SBATCH} line or a comment early, and the sweep folder also
+     * goes into {@code #SBATCH --output="..."}, whose quotes cannot hold {@code "} or {@code \}, and
+     * whose {@code %} starts one of Slurm's file-name patterns.
+     */
+    public static String problem(Path launcher, Path caseFile, Path dir, List<String> extra) {
+        String[][] all = {{"the launcher", launcher.toString()}, {"the case file", caseFile.toString()},
+            {"the sweep folder", dir.toString()}};
+        for (String[] a : all) {
+            String bad = control(a[1]);
+            if (bad != null) {
+                return a[0] + " path " + printable(a[1]) + " contains " + bad + ", which a batch script cannot hold; "
+                        + "rename it or choose another";
+            }
+        }
+        for (char c : new char[] {'"', '\\', '%'}) {
+            if (dir.toString().indexOf(c) >= 0) {
+                return "the sweep folder " + dir + " contains '" + c + "', which Slurm's #SBATCH --output line cannot hold; "
+                        + "choose another --out";
+            }
+        }
+        for (String a : extra) {
+            String bad = control(a);
+            if (bad != null) {
+                return "the argument " + printable(a) + " contains " + bad + ", which a batch script cannot hold";
+            }
+        }
+        return null;
+    }
+
+    private static String control(String s) {
+        for (int k = 0; k < s.length(); k++) {
+            char c = s.charAt(k);
+            if (c == '\n' || c == '\r') {
+                return "a line break";
+            }
+            if (c < 0x20 || c == 0x7f) {
+                return String.format(Locale.ROOT, "the control character U+%04X", (int) c);
+            }
+        }
+        return null;
+    }
+
+    private static String printable(String s) {
+        StringBuilder sb = new StringBuilder("'");
+        for (char c : s.toCharArray()) {
+            sb.append(c < 0x20 || c == 0x7f ? String.format(Locale.ROOT, "\\u%04x", (int) c) : String.valueOf(c));
+        }
+        return sb.append('\'').toString();
     }
 
     /** {@code 'launcher' sweep 'case' --out 'dir' ...}, every argument quoted for the shell. */

@@ -1,22 +1,18 @@
 package org.evanesce.io.sweep;
 
 import java.io.IOException;
-import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.DirectoryStream;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
-import java.nio.file.StandardOpenOption;
 import java.util.ArrayList;
-import java.util.Comparator;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
-import java.util.concurrent.atomic.AtomicLong;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
-import java.util.stream.Stream;
+import org.evanesce.io.output.Leftovers;
+import org.evanesce.io.output.SafeFiles;
 import org.snakeyaml.engine.v2.api.Load;
 import org.snakeyaml.engine.v2.api.LoadSettings;
 import org.snakeyaml.engine.v2.exceptions.YamlEngineException;
@@ -36,12 +32,9 @@ public final class SweepFolder {
     public static final String SLURM = "sweep.slurm";
     public static final String POINT_RECORD = "point.json";
 
-    /** RunFolder's temporaries: {@code .point-0003.partial-123} (being written), {@code .point-0003.replaced-456} (being replaced). */
-    private static final Pattern POINT_TEMPORARY = Pattern.compile("\\.point-(\\d+)\\.(partial|replaced)-.*");
-    /** Ours: {@code .sweep.csv.123.tmp}. */
-    private static final Pattern SWEEP_TEMPORARY = Pattern.compile("\\.sweep\\..*\\.tmp");
-
-    private static final AtomicLong TEMPORARIES = new AtomicLong();
+    /** A point's folder: {@code point-0003}. */
+    private static final Pattern POINT = Pattern.compile("point-(\\d{4,9})");
+    private static final Set<String> SWEEP_FILES = Set.of(RECORD, CSV, PNG, SLURM);
 
     private final Path dir;
 
@@ -60,50 +53,28 @@ public final class SweepFolder {
     /** Writes a file of the folder whole: a unique temporary name, then an atomic rename over the old one. */
     public Path write(String name, byte[] content) throws IOException {
         Files.createDirectories(dir);
-        // a name no other process or thread uses (shards share the folder); created with the usual permissions
-        Path tmp = dir.resolve("." + name + "." + ProcessHandle.current().pid() + "-" + TEMPORARIES.incrementAndGet() + ".tmp");
-        try {
-            Files.write(tmp, content, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE);
-            Path target = dir.resolve(name);
-            try {
-                Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
-            } catch (AtomicMoveNotSupportedException e) {
-                Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
-            }
-            return target;
-        } finally {
-            Files.deleteIfExists(tmp);
-        }
+        // the temporary name carries this process's tag, so shards sharing the folder never collide
+        return SafeFiles.write(dir.resolve(name), content);
     }
 
     /**
-     * Removes what killed runs left behind: the temporary folders of the given points (an unfinished
-     * run, or a finished one killed while it replaced an older one; the point runs again either way)
-     * and, when {@code sweepFiles}, half-written sweep files.
+     * Removes what killed runs left behind (see {@link Leftovers}: only temporaries whose writer has
+     * provably ended): the temporary folders of the given points (an unfinished run, or a finished
+     * one killed while it replaced an older one) and, when {@code sweepFiles}, half-written sweep files.
      *
-     * @return the names removed
+     * @return one line per thing removed, restored or deliberately left
      */
     public List<String> removeLeftovers(Set<Integer> points, boolean sweepFiles) throws IOException {
-        List<String> removed = new ArrayList<>();
-        if (!Files.isDirectory(dir)) {
-            return removed;
-        }
-        try (DirectoryStream<Path> ds = Files.newDirectoryStream(dir)) {
-            for (Path p : ds) {
-                String name = p.getFileName().toString();
-                Matcher m = POINT_TEMPORARY.matcher(name);
-                boolean ours = m.matches() && points.contains(Integer.parseInt(m.group(1)));
-                if (ours || sweepFiles && SWEEP_TEMPORARY.matcher(name).matches()) {
-                    deleteTree(p);
-                    removed.add(name);
-                }
+        return Leftovers.clean(dir, name -> {
+            Matcher m = POINT.matcher(name);
+            if (m.matches()) {
+                return points.contains(Integer.parseInt(m.group(1)));
             }
-        }
-        removed.sort(null);
-        return removed;
+            return sweepFiles && SWEEP_FILES.contains(name);
+        });
     }
 
-    /** Names in the folder that are temporaries of points or sweep files (for checks). */
+    /** Names in the folder that are evanesce's temporaries (for checks). */
     public List<String> leftovers() throws IOException {
         List<String> out = new ArrayList<>();
         if (!Files.isDirectory(dir)) {
@@ -112,13 +83,22 @@ public final class SweepFolder {
         try (DirectoryStream<Path> ds = Files.newDirectoryStream(dir)) {
             for (Path p : ds) {
                 String name = p.getFileName().toString();
-                if (POINT_TEMPORARY.matcher(name).matches() || SWEEP_TEMPORARY.matcher(name).matches()) {
+                if (Leftovers.isTemporary(name)) {
                     out.add(name);
                 }
             }
         }
         out.sort(null);
         return out;
+    }
+
+    /**
+     * Whether evanesce could have written an entry of this name into a sweep folder: its files, point
+     * folders, Slurm's logs (named by the script) and temporaries.
+     */
+    public static boolean ours(String name) {
+        return SWEEP_FILES.contains(name) || POINT.matcher(name).matches() || name.matches("slurm-\\d+_\\d+\\.out")
+                || Leftovers.isTemporary(name);
     }
 
     /**
@@ -139,6 +119,35 @@ public final class SweepFolder {
     }
 
     /**
+     * Why a point whose folder holds a finished run is not counted as finished now, for the sweep's output
+     * (null when the folder holds no finished run): another build or version of the program made it, or its
+     * case or values differ.
+     */
+    public String whyRunAgain(int number, String version, String build) {
+        Path p = point(number);
+        if (!Files.isRegularFile(p.resolve("run.json"))) {
+            return null;
+        }
+        Object rec;
+        try {
+            rec = readJson(p.resolve(POINT_RECORD));
+        } catch (IOException e) {
+            return "its point.json cannot be read";
+        }
+        if (!(rec instanceof Map<?, ?> m)) {
+            return "its point.json holds no record";
+        }
+        if (!version.equals(m.get("version"))) {
+            return "made by evanesce " + m.get("version") + ", this is " + version;
+        }
+        if (!build.equals(m.get("build"))) {
+            return "made by another build of evanesce: " + (m.get("build") == null ? "one that recorded no build id"
+                    : m.get("build")) + ", this is " + build;
+        }
+        return "made from another case text or other values (its point hash differs)";
+    }
+
+    /**
      * Reads a JSON file written by {@link org.evanesce.io.output.Json} (JSON is YAML 1.2, so the case
      * file's YAML reader reads it): maps, lists, strings, numbers, booleans and null.
      *
@@ -156,13 +165,6 @@ public final class SweepFolder {
     }
 
     static void deleteTree(Path p) throws IOException {
-        if (!Files.exists(p)) {
-            return;
-        }
-        try (Stream<Path> s = Files.walk(p)) {
-            for (Path q : s.sorted(Comparator.reverseOrder()).toList()) {
-                Files.deleteIfExists(q);
-            }
-        }
+        SafeFiles.deleteTree(p);
     }
 }

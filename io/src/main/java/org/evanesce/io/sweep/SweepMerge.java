@@ -27,7 +27,8 @@ import org.evanesce.io.output.image.LinePlot;
  * ({@code NAME_si}); then, with a flux section, one row per point and frequency with the flux.csv
  * columns; with decay fits of {@code maps}, per fit and wavelength {@code decay_NAME_WLnm_m},
  * {@code ..._uncertainty_m} and {@code ..._plane_wave_m}; with neither, one row per point with
- * {@code steps}, {@code wall_time_s} and {@code stop_reason} from run.json.
+ * {@code steps}, {@code wall_time_s} and {@code stop_reason} from run.json; last, {@code settled} from
+ * run.json ({@code true}, {@code false}, or empty where the run was not judged).
  */
 public final class SweepMerge {
 
@@ -48,16 +49,18 @@ public final class SweepMerge {
      * @param missing  the numbers of the points without a finished run, in order
      * @param finished how many points were merged
      * @param png      whether sweep.png was written (it needs flux or decay fits and a finished point)
+     * @param unsettled the numbers of the merged points whose run did not settle (run.json), in order
      */
-    public record Result(String csv, List<Integer> missing, int finished, boolean png) {
+    public record Result(String csv, List<Integer> missing, int finished, boolean png, List<Integer> unsettled) {
         public Result {
             missing = List.copyOf(missing);
+            unsettled = List.copyOf(unsettled);
         }
     }
 
-    /** One finished point's results, read from its folder. */
+    /** One finished point's results, read from its folder; {@code settled} as run.json has it ("" when not judged). */
     private record Found(Point point, List<String> fluxHeader, List<String[]> fluxRows, List<String> fluxLines,
-                         Map<String, Double[]> decays, String steps, double wall, String reason) { }
+                         Map<String, Double[]> decays, String steps, double wall, String reason, String settled) { }
 
     private SweepMerge() {
     }
@@ -79,7 +82,9 @@ public final class SweepMerge {
         if (png != null) {
             folder.write(SweepFolder.PNG, png);
         }
-        return new Result(csv, missing, found.size(), png != null);
+        List<Integer> unsettled = found.stream().filter(f -> f.settled().equals("false")).map(f -> f.point().point().number())
+                .toList();
+        return new Result(csv, missing, found.size(), png != null, unsettled);
     }
 
     private static Found read(Path dir, Point p) throws IOException {
@@ -121,14 +126,18 @@ public final class SweepMerge {
         String steps = "";
         double wall = Double.NaN;
         String reason = "";
+        String settled = "";
         if (run instanceof Map<?, ?> r && r.get("run") instanceof Map<?, ?> rr) {
             steps = String.valueOf(rr.get("steps"));
             wall = number(rr.get("wall_time_s"));
             reason = String.valueOf(rr.get("stop_reason"));
+            if (rr.get("settling") instanceof Map<?, ?> st && st.get("settled") instanceof Boolean b) {
+                settled = b.toString();
+            }
         } else {
             throw new NoSuchFileException(dir.resolve("run.json") + " has no run section");
         }
-        return new Found(p, header, rows, fluxLines, decays, steps, wall, reason);
+        return new Found(p, header, rows, fluxLines, decays, steps, wall, reason, settled);
     }
 
     private static double number(Object o) {
@@ -159,6 +168,7 @@ public final class SweepMerge {
         if (neither) {
             header.addAll(List.of("steps", "wall_time_s", "stop_reason"));
         }
+        header.add("settled");
         StringBuilder sb = new StringBuilder(String.join(",", header)).append('\n');
         for (Found f : found) {
             StringBuilder lead = new StringBuilder().append(f.point().point().number());
@@ -178,6 +188,7 @@ public final class SweepMerge {
                 tail.append(',').append(f.steps()).append(',').append(Double.isFinite(f.wall())
                         ? String.format(Locale.ROOT, "%.3f", f.wall()) : "").append(',').append(quote(f.reason()));
             }
+            tail.append(',').append(f.settled());
             if (flux.isEmpty()) {
                 sb.append(lead).append(tail).append('\n');
                 continue;

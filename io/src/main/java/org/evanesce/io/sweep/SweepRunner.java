@@ -12,7 +12,10 @@ import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.concurrent.atomic.AtomicInteger;
+import java.io.UncheckedIOException;
+import org.evanesce.io.Faults;
 import org.evanesce.io.output.Json;
+import org.evanesce.io.output.OutputRefusedException;
 import org.evanesce.io.output.RunFolder;
 
 /**
@@ -79,7 +82,8 @@ public final class SweepRunner {
     }
 
     /** The record a point's folder gets. */
-    public static Map<String, Object> pointRecord(SweepPoint p, Map<String, String> overrides, String hash, String version) {
+    public static Map<String, Object> pointRecord(SweepPoint p, Map<String, String> overrides, String hash, String version,
+                                                  String build) {
         Map<String, Object> m = new LinkedHashMap<>();
         m.put("program", "evanesce");
         m.put("schema", "evanesce-sweep-point-1");
@@ -87,14 +91,16 @@ public final class SweepRunner {
         m.put("values", p.overrides());
         m.put("overrides", new TreeMap<>(overrides));
         m.put("version", version);
+        m.put("build", build);
         m.put("point_hash", hash);
         return m;
     }
 
     /**
      * Runs the tasks in order, {@code parallel} at once with {@code threads} threads each. A point that
-     * fails with {@link PointFailed} is reported and the others go on; any other exception stops the
-     * sweep once the points already running have ended, and is thrown.
+     * fails with {@link PointFailed} (also when its folder cannot be written: a full disk, a folder
+     * evanesce may not replace) is reported and the others go on; any other exception stops the sweep
+     * once the points already running have ended, and is thrown.
      */
     public Outcome run(List<Task> tasks, int parallel, int threads, PointRun runner) throws IOException {
         this.parallel = parallel;
@@ -179,9 +185,15 @@ public final class SweepRunner {
         }
         PrintWriter pw = new PrintWriter(new LinePrefixWriter(out, () -> prefix(p), terminal && parallel > 1), true);
         try (RunFolder rf = RunFolder.begin(folder.point(p.number()), true)) {
+            rf.cleaned().forEach(line -> pw.println("note: " + line));
             runner.run(p, rf, pw, threads);
             rf.writeText(SweepFolder.POINT_RECORD, Json.write(t.record()));
             rf.commit();
+        } catch (OutputRefusedException e) {
+            throw new PointFailed(e.getMessage(), e);
+        } catch (IOException | UncheckedIOException e) {
+            // a full disk, a folder that cannot be written: this point failed, the others may still fit
+            throw new PointFailed(Faults.sentence(Faults.ioCause(e)), e);
         }
         pw.flush();
         double seconds = (System.nanoTime() - t0) * 1e-9;

@@ -5,7 +5,6 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.LinkedHashMap;
@@ -49,7 +48,7 @@ class RunFolderTest {
             f.writeText("a.txt", "first");
             f.commit();
         }
-        assertThrows(FileAlreadyExistsException.class, () -> RunFolder.begin(out, false));
+        assertThrows(OutputRefusedException.class, () -> RunFolder.begin(out, false));
         try (RunFolder f = RunFolder.begin(out, true)) {
             f.writeText("a.txt", "second");
             assertEquals("first", Files.readString(out.resolve("a.txt")), "old result kept until the new one is complete");
@@ -57,6 +56,38 @@ class RunFolderTest {
         }
         assertEquals("second", Files.readString(out.resolve("a.txt")));
         assertEquals(List.of("run3"), names(tmp));
+    }
+
+    @Test
+    void aFolderWrittenBeforeContentsListsIsReplacedOnlyWhileItHoldsOurKindsOfFiles() throws Exception {
+        Path out = Files.createDirectories(tmp.resolve("old").resolve("frames"));
+        Path old = out.getParent();
+        Files.writeString(old.resolve("run.json"), "{\n  \"program\": \"evanesce\",\n  \"version\": \"0.1\"\n}\n");
+        Files.writeString(old.resolve("flux.csv"), "wavelength_nm\n");
+        Files.writeString(out.resolve("frame-000000010.h5"), "x");
+        Files.writeString(old.resolve("notes.txt"), "mine");
+        assertThrows(OutputRefusedException.class, () -> RunFolder.begin(old, true), "a .txt file evanesce never writes");
+        assertTrue(Files.exists(old.resolve("notes.txt")));
+        Files.delete(old.resolve("notes.txt"));
+        try (RunFolder f = RunFolder.begin(old, true)) {
+            f.writeText("run.json", "{\"program\": \"evanesce\"}\n");
+            f.commit();
+        }
+        assertFalse(Files.exists(old.resolve("frames")), "replaced whole");
+        Path plain = Files.createDirectories(tmp.resolve("plain"));
+        Files.writeString(plain.resolve("flux.csv"), "not ours: no run.json of evanesce");
+        assertThrows(OutputRefusedException.class, () -> RunFolder.begin(plain, true));
+        assertTrue(Files.exists(plain.resolve("flux.csv")));
+    }
+
+    @Test
+    void anEmptyFolderIsUsedAsIfNew() throws Exception {
+        Path out = Files.createDirectories(tmp.resolve("empty"));
+        try (RunFolder f = RunFolder.begin(out, false)) {
+            f.writeText("a.txt", "x");
+            f.commit();
+        }
+        assertEquals("x", Files.readString(out.resolve("a.txt")));
     }
 
     @Test

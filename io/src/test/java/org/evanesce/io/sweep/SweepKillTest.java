@@ -82,6 +82,11 @@ class SweepKillTest {
                     "round " + round + ": the re-run's table against the uninterrupted sweep's (seed " + seed + ")\n" + rerun);
             assertEquals(List.of(), SweepCases.hidden(killed), "round " + round + ": no temporary folders or files remain (seed "
                     + seed + ")");
+            // issue 13: inside the points too, only what a finished run writes (its contents list is the one hidden file)
+            for (String point : killed.toFile().list((d, n) -> n.startsWith("point-"))) {
+                assertEquals(List.of(org.evanesce.io.output.FolderContents.NAME), SweepCases.hidden(killed.resolve(point)),
+                        "round " + round + ": " + point);
+            }
         }
     }
 

@@ -67,7 +67,7 @@ class SweepShardTest {
         assertTrue(text.startsWith("#!/bin/bash\n"), text);
         assertTrue(text.contains("\n#SBATCH --array=0-3\n"), text);
         assertTrue(text.contains("\n#SBATCH --job-name=evanesce-gap\n"), text);
-        assertTrue(text.contains("\n#SBATCH --output=" + slurmDir.toAbsolutePath() + "/slurm-%A_%a.out\n"), text);
+        assertTrue(text.contains("\n#SBATCH --output=\"" + slurmDir.toAbsolutePath() + "/slurm-%A_%a.out\"\n"), text);
         String command = text.lines().filter(l -> l.contains("SLURM_ARRAY_TASK_ID")).reduce((a, b) -> b).orElseThrow();
         assertEquals(launcher + " sweep " + c.toAbsolutePath() + " --out " + slurmDir.toAbsolutePath()
                 + " --shard \"$SLURM_ARRAY_TASK_ID/4\"", command, "the launcher beside the program, absolute paths");

@@ -75,7 +75,7 @@ public final class PmlProfile {
      * @return the widened profile, or this one when it would not fit
      */
     public PmlProfile padded(int w, int nodes) {
-        if (w <= layers || w > nodes - 2) {
+        if (paddedWidth(layers, w, nodes) == layers) {
             return this;
         }
         boolean low = side == Side.LEFT || side == Side.BOTTOM;
@@ -93,6 +93,14 @@ public final class PmlProfile {
             }
         }
         return pr;
+    }
+
+    /**
+     * The width {@link #padded} gives a strip of {@code layers} cells asked to widen to {@code w}:
+     * w where it is wider and stays inside the walls ({@code w ≤ nodes − 2}), else layers.
+     */
+    public static int paddedWidth(int layers, int w, int nodes) {
+        return w <= layers || w > nodes - 2 ? layers : w;
     }
 
     private static void set(double[] b, double[] c, double[] kt, int ii, double d, PmlParameters p, double sigmaMax) {

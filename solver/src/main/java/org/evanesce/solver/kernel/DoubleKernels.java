@@ -12,22 +12,20 @@ import jdk.incubator.vector.VectorSpecies;
  * per-cell ca = (1 − L)/(1 + L), cb = s/(εr (1 + L)), L = σΔt/(2ε0εr).
  *
  * <p>Vector and scalar parts use the same operations in the same order (no fused multiply-add),
- * so every cell gets the same bits whichever part computes it. {@link FloatKernels} is the same
- * code in single precision; change both together.
+ * so every cell gets the same bits whichever part computes it.
+ * Generated from {@link FloatKernels} by tools/regen-double-kernels.sh: edit that file, not this one.
  */
 final class DoubleKernels {
 
     static final VectorSpecies<Double> SP = Lanes.doubleSpecies();
     private static final int VL = SP.length();
-    /** Values below this magnitude are flushed to zero: 8 orders above the subnormal range (about 2.2e-308). */
+    /**
+     * Values below this magnitude are flushed to zero: 8 orders above the subnormal range (which
+     * starts below about 1.2e-38 in single and 2.2e-308 in double precision).
+     */
     static final double TINY = 1e-300;
 
     private DoubleKernels() {
-    }
-
-    /** n rounded up to a whole number of vectors. */
-    static int roundUpToLanes(int n) {
-        return (n + VL - 1) / VL * VL;
     }
 
     /** s: Hx(i,j) −= s·(Ez(i,j+1) − Ez(i,j)) for j ≤ ny−2, all i; Hy(i,j) += s·(Ez(i+1,j) − Ez(i,j)) for i ≤ nx−2. */

@@ -1,54 +1,33 @@
 package org.evanesce.solver.kernel;
 
 import java.util.Map;
-import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.solver.boundary.Boundary;
-import org.evanesce.solver.boundary.PmlProfile;
 import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Side;
 
 /**
- * p polarization (Hz, Ex, Ey) in double precision. Ex and Ey have their own coefficients, so the
- * per-component permittivities of subpixel smoothing apply. {@link FloatP} is the same in
- * single precision; change both together.
+ * p polarization (Hz, Ex, Ey) in double precision: the order of the updates and the energy; the
+ * arrays and their plumbing are {@link DoubleEngine}'s. Ex and Ey have their own coefficients, so the
+ * per-component permittivities of subpixel smoothing apply.
+ * Generated from {@link FloatP} by tools/regen-double-kernels.sh: edit that file, not this one.
  */
-final class DoubleP extends Engine {
+final class DoubleP extends DoubleEngine {
 
     final double[] hz, ex, ey, cbx, cby;
     /** ca per cell, or null when every cell at that site is lossless (ca = 1). */
     final double[] cax, cay;
-    private final double s;
-    /** x strips correct Hz (ψH) and Ey (ψE); y strips correct Hz (ψH) and Ex (ψE). */
-    private final DoubleStrip[] xs, ys;
 
-    DoubleP(MaterialGrid grid, double courant, double dt, Map<Side, Boundary> sides) {
-        super(grid.nx(), grid.ny(), courant, sides);
-        int n = nx * ny;
-        s = courant;
-        double[][] cx = coefficients(grid, FieldSite.EX, courant, dt);
-        double[][] cy = coefficients(grid, FieldSite.EY, courant, dt);
-        // allocated one after the other with staggered lengths (see Engine.staggeredLength)
-        int len = Engine.staggeredLength(n, Double.BYTES);
-        hz = new double[len];
-        ex = new double[len];
-        ey = new double[len];
-        cbx = DoubleS.toDouble(cx[1], len);
-        cby = DoubleS.toDouble(cy[1], len);
-        cax = Engine.allOnes(cx[0]) ? null : DoubleS.toDouble(cx[0], len);
-        cay = Engine.allOnes(cy[0]) ? null : DoubleS.toDouble(cy[0], len);
-        xs = new DoubleStrip[xProfiles.length];
-        for (int q = 0; q < xs.length; q++) {
-            // widened to whole vectors so the per-row corrections have no scalar remainder
-            PmlProfile p = xProfiles[q].padded(DoubleKernels.roundUpToLanes(xProfiles[q].layers), nx);
-            // a padded left strip's electric range [1, width] ends in the next row's local 0, which
-            // no electric update uses; Ey stops at row ny−2, so no spare ψ is needed (see DoubleS)
-            xs[q] = new DoubleStrip(p, ny * p.width);
-        }
-        ys = new DoubleStrip[yProfiles.length];
-        for (int q = 0; q < ys.length; q++) {
-            ys[q] = new DoubleStrip(yProfiles[q], nx * yProfiles[q].layers);
-        }
+    DoubleP(MaterialGrid grid, double courant, double[] caOfMaterial, double[] cbOfMaterial, Map<Side, Boundary> sides) {
+        super(grid, Polarization.P, courant, caOfMaterial, cbOfMaterial, sides);
+        hz = field(Component.HZ);
+        ex = field(Component.EX);
+        ey = field(Component.EY);
+        cbx = cb(Component.EX);
+        cby = cb(Component.EY);
+        cax = ca(Component.EX);
+        cay = ca(Component.EY);
     }
 
     @Override
@@ -168,47 +147,6 @@ final class DoubleP extends Engine {
     }
 
     @Override
-    protected void addSource(Component c, int k, double v) {
-        switch (c) {
-            case EX -> ex[k] -= (cbx[k] * v);
-            case EY -> ey[k] -= (cby[k] * v);
-            case HZ -> hz[k] -= (s * v);
-            default -> throw new IllegalArgumentException(c + " is not a p-polarization component");
-        }
-    }
-
-    @Override
-    protected double flushH(int j) {
-        int r = j * nx;
-        return DoubleKernels.flush(hz, r, r + nx);
-    }
-
-    @Override
-    protected double flushE(int j) {
-        int r = j * nx;
-        return Math.max(DoubleKernels.flush(ex, r, r + nx), DoubleKernels.flush(ey, r, r + nx));
-    }
-
-    private double[] array(Component c) {
-        return switch (c) {
-            case HZ -> hz;
-            case EX -> ex;
-            case EY -> ey;
-            default -> throw new IllegalArgumentException(c + " is not a p-polarization component");
-        };
-    }
-
-    @Override
-    public double get(Component c, int k) {
-        return array(c)[k];
-    }
-
-    @Override
-    public void set(Component c, int k, double v) {
-        array(c)[k] = v;
-    }
-
-    @Override
     public double energy(int i0, int j0, int i1, int j1) {
         double w = 0;
         for (int j = j0; j < j1; j++) {
@@ -222,48 +160,5 @@ final class DoubleP extends Engine {
             }
         }
         return w;
-    }
-
-    @Override
-    public long bytes() {
-        long b = bytesPerCell() * (long) nx * ny;
-        for (DoubleStrip x : xs) {
-            b += x.bytes();
-        }
-        for (DoubleStrip y : ys) {
-            b += y.bytes();
-        }
-        return b;
-    }
-
-    @Override
-    public int bytesPerCell() {
-        return (5 + (cax == null ? 0 : 1) + (cay == null ? 0 : 1)) * 8;
-    }
-
-    @Override
-    public void writeState(java.io.DataOutput out) throws java.io.IOException {
-        StateIO.write(out, hz);
-        StateIO.write(out, ex);
-        StateIO.write(out, ey);
-        for (DoubleStrip x : xs) {
-            x.writeState(out);
-        }
-        for (DoubleStrip y : ys) {
-            y.writeState(out);
-        }
-    }
-
-    @Override
-    public void readState(java.io.DataInput in) throws java.io.IOException {
-        StateIO.read(in, hz);
-        StateIO.read(in, ex);
-        StateIO.read(in, ey);
-        for (DoubleStrip x : xs) {
-            x.readState(in);
-        }
-        for (DoubleStrip y : ys) {
-            y.readState(in);
-        }
     }
 }

@@ -1,56 +1,30 @@
 package org.evanesce.solver.kernel;
 
 import java.util.Map;
-import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.solver.boundary.Boundary;
-import org.evanesce.solver.boundary.PmlProfile;
 import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Side;
 
-/** s polarization (Ez, Hx, Hy) in double precision. {@link FloatS} is the same in single precision; change both together. */
-final class DoubleS extends Engine {
+/**
+ * s polarization (Ez, Hx, Hy) in double precision: the order of the updates and the energy; the
+ * arrays and their plumbing are {@link DoubleEngine}'s.
+ * Generated from {@link FloatS} by tools/regen-double-kernels.sh: edit that file, not this one.
+ */
+final class DoubleS extends DoubleEngine {
 
     final double[] ez, hx, hy, cb;
     /** ca per cell, or null when every cell is lossless (ca = 1). */
     final double[] ca;
-    private final double s;
-    /** x strips correct Hy (ψH) and Ez (ψE); y strips correct Hx (ψH) and Ez (ψE). */
-    private final DoubleStrip[] xs, ys;
 
-    DoubleS(MaterialGrid grid, double courant, double dt, Map<Side, Boundary> sides) {
-        super(grid.nx(), grid.ny(), courant, sides);
-        int n = nx * ny;
-        s = courant;
-        double[][] c = coefficients(grid, FieldSite.EZ, courant, dt);
-        // allocated one after the other with staggered lengths (see Engine.staggeredLength)
-        int len = Engine.staggeredLength(n, Double.BYTES);
-        ez = new double[len];
-        hx = new double[len];
-        hy = new double[len];
-        cb = toDouble(c[1], len);
-        ca = Engine.allOnes(c[0]) ? null : toDouble(c[0], len);
-        xs = new DoubleStrip[xProfiles.length];
-        for (int q = 0; q < xs.length; q++) {
-            // widened to whole vectors so the per-row corrections have no scalar remainder
-            PmlProfile p = xProfiles[q].padded(DoubleKernels.roundUpToLanes(xProfiles[q].layers), nx);
-            // one spare ψ: a padded left strip's electric range [1, width] ends one past its row's ψ
-            // (in the next row's local 0, which no electric update uses), also in the last row
-            xs[q] = new DoubleStrip(p, ny * p.width + 1);
-        }
-        ys = new DoubleStrip[yProfiles.length];
-        for (int q = 0; q < ys.length; q++) {
-            ys[q] = new DoubleStrip(yProfiles[q], nx * yProfiles[q].layers);
-        }
-    }
-
-    /** The values of {@code a} in an array of {@code length} ≥ a.length values (zeros after them). */
-    static double[] toDouble(double[] a, int length) {
-        double[] f = new double[length];
-        for (int i = 0; i < a.length; i++) {
-            f[i] = a[i];
-        }
-        return f;
+    DoubleS(MaterialGrid grid, double courant, double[] caOfMaterial, double[] cbOfMaterial, Map<Side, Boundary> sides) {
+        super(grid, Polarization.S, courant, caOfMaterial, cbOfMaterial, sides);
+        ez = field(Component.EZ);
+        hx = field(Component.HX);
+        hy = field(Component.HY);
+        cb = cb(Component.EZ);
+        ca = ca(Component.EZ);
     }
 
     @Override
@@ -175,47 +149,6 @@ final class DoubleS extends Engine {
     }
 
     @Override
-    protected void addSource(Component c, int k, double v) {
-        switch (c) {
-            case EZ -> ez[k] -= (cb[k] * v);
-            case HX -> hx[k] -= (s * v);
-            case HY -> hy[k] -= (s * v);
-            default -> throw new IllegalArgumentException(c + " is not an s-polarization component");
-        }
-    }
-
-    @Override
-    protected double flushH(int j) {
-        int r = j * nx;
-        return Math.max(DoubleKernels.flush(hx, r, r + nx), DoubleKernels.flush(hy, r, r + nx));
-    }
-
-    @Override
-    protected double flushE(int j) {
-        int r = j * nx;
-        return DoubleKernels.flush(ez, r, r + nx);
-    }
-
-    private double[] array(Component c) {
-        return switch (c) {
-            case EZ -> ez;
-            case HX -> hx;
-            case HY -> hy;
-            default -> throw new IllegalArgumentException(c + " is not an s-polarization component");
-        };
-    }
-
-    @Override
-    public double get(Component c, int k) {
-        return array(c)[k];
-    }
-
-    @Override
-    public void set(Component c, int k, double v) {
-        array(c)[k] = v;
-    }
-
-    @Override
     public double energy(int i0, int j0, int i1, int j1) {
         double w = 0;
         for (int j = j0; j < j1; j++) {
@@ -229,48 +162,5 @@ final class DoubleS extends Engine {
             }
         }
         return w;
-    }
-
-    @Override
-    public long bytes() {
-        long b = bytesPerCell() * (long) nx * ny;
-        for (DoubleStrip x : xs) {
-            b += x.bytes();
-        }
-        for (DoubleStrip y : ys) {
-            b += y.bytes();
-        }
-        return b;
-    }
-
-    @Override
-    public int bytesPerCell() {
-        return (ca == null ? 4 : 5) * 8;
-    }
-
-    @Override
-    public void writeState(java.io.DataOutput out) throws java.io.IOException {
-        StateIO.write(out, ez);
-        StateIO.write(out, hx);
-        StateIO.write(out, hy);
-        for (DoubleStrip x : xs) {
-            x.writeState(out);
-        }
-        for (DoubleStrip y : ys) {
-            y.writeState(out);
-        }
-    }
-
-    @Override
-    public void readState(java.io.DataInput in) throws java.io.IOException {
-        StateIO.read(in, ez);
-        StateIO.read(in, hx);
-        StateIO.read(in, hy);
-        for (DoubleStrip x : xs) {
-            x.readState(in);
-        }
-        for (DoubleStrip y : ys) {
-            y.readState(in);
-        }
     }
 }

@@ -2,7 +2,10 @@ package org.evanesce.solver.kernel;
 
 import org.evanesce.solver.boundary.PmlProfile;
 
-/** One side's CPML coefficients in double precision, with the auxiliary ψ of the two components it corrects. */
+/**
+ * One side's CPML coefficients in double precision, with the auxiliary ψ of the two components it corrects.
+ * Generated from {@link FloatStrip} by tools/regen-double-kernels.sh: edit that file, not this one.
+ */
 final class DoubleStrip {
     final int start;
     /** Cells per row (x strips) or rows (y strips) covered; ψ is {@code width} wide along the axis. */
@@ -18,19 +21,19 @@ final class DoubleStrip {
         width = p.width;
         eFrom = p.eFrom;
         eTo = p.eTo;
-        bE = p.bE.clone();
-        cE = p.cE.clone();
-        kE = p.kappaTermE.clone();
-        bH = p.bH.clone();
-        cH = p.cH.clone();
-        kH = p.kappaTermH.clone();
+        bE = DoubleEngine.toDouble(p.bE, p.bE.length);
+        cE = DoubleEngine.toDouble(p.cE, p.cE.length);
+        kE = DoubleEngine.toDouble(p.kappaTermE, p.kappaTermE.length);
+        bH = DoubleEngine.toDouble(p.bH, p.bH.length);
+        cH = DoubleEngine.toDouble(p.cH, p.cH.length);
+        kH = DoubleEngine.toDouble(p.kappaTermH, p.kappaTermH.length);
         psiH = new double[psiLength];
         psiE = new double[psiLength];
     }
 
-    /** Bytes of the two ψ arrays. */
-    long bytes() {
-        return 2L * Double.BYTES * psiH.length;
+    /** Values held: the six coefficient arrays and the two ψ arrays. */
+    long values() {
+        return (long) bE.length + cE.length + kE.length + bH.length + cH.length + kH.length + psiH.length + psiE.length;
     }
 
     /** Writes both ψ arrays for a checkpoint (see {@link StateIO}). */
@@ -44,5 +47,4 @@ final class DoubleStrip {
         StateIO.read(in, psiH);
         StateIO.read(in, psiE);
     }
-
 }

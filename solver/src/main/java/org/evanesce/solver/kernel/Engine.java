@@ -3,7 +3,6 @@ package org.evanesce.solver.kernel;
 import java.util.EnumMap;
 import java.util.Map;
 import org.evanesce.geometry.FieldSite;
-import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.boundary.PmlProfile;
@@ -91,49 +90,58 @@ public abstract class Engine {
         return l.toArray(new PmlProfile[0]);
     }
 
-    /** Creates the engine for a polarization and precision, with coefficients from the material grid. */
-    public static Engine create(MaterialGrid grid, Polarization pol, Precision precision, double courant, double dt,
-                                Map<Side, Boundary> sides) {
+    /**
+     * Creates the engine for a polarization and precision.
+     *
+     * @param caOfMaterial ca of each material of {@code grid.materials()}, by index
+     * @param cbOfMaterial cb of each material, by index (the facade computes both, with the physical constants)
+     */
+    public static Engine create(MaterialGrid grid, Polarization pol, Precision precision, double courant,
+                                double[] caOfMaterial, double[] cbOfMaterial, Map<Side, Boundary> sides) {
         Map<Side, Boundary> all = new EnumMap<>(sides);
         for (Side s : Side.values()) {
             if (!all.containsKey(s)) {
                 throw new IllegalArgumentException("no boundary given for side " + s);
             }
         }
+        int nm = grid.materials().size();
+        if (caOfMaterial.length != nm || cbOfMaterial.length != nm) {
+            throw new IllegalArgumentException(String.format("%d ca and %d cb values given for %d materials",
+                    caOfMaterial.length, cbOfMaterial.length, nm));
+        }
         if (all.get(Side.LEFT) instanceof Boundary.Bloch b) {
             double phase = b.wavenumber() * grid.nx() * grid.cellSize();
-            return new BlochPair(real(grid, pol, precision, courant, dt, all), real(grid, pol, precision, courant, dt, all),
-                    pol, phase);
+            return new BlochPair(real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, all),
+                    real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, all), pol, phase);
         }
-        return real(grid, pol, precision, courant, dt, all);
+        return real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, all);
     }
 
-    private static Engine real(MaterialGrid grid, Polarization pol, Precision precision, double courant, double dt,
-                               Map<Side, Boundary> all) {
+    private static Engine real(MaterialGrid grid, Polarization pol, Precision precision, double courant, double[] ca,
+                               double[] cb, Map<Side, Boundary> all) {
         return switch (precision) {
-            case FLOAT -> pol == Polarization.S ? new FloatS(grid, courant, dt, all) : new FloatP(grid, courant, dt, all);
-            case DOUBLE -> pol == Polarization.S ? new DoubleS(grid, courant, dt, all) : new DoubleP(grid, courant, dt, all);
+            case FLOAT -> pol == Polarization.S ? new FloatS(grid, courant, ca, cb, all) : new FloatP(grid, courant, ca, cb, all);
+            case DOUBLE -> pol == Polarization.S ? new DoubleS(grid, courant, ca, cb, all) : new DoubleP(grid, courant, ca, cb, all);
+        };
+    }
+
+    /** The material site of an electric component. */
+    static FieldSite site(Component c) {
+        return switch (c) {
+            case EZ -> FieldSite.EZ;
+            case EX -> FieldSite.EX;
+            case EY -> FieldSite.EY;
+            default -> throw new IllegalArgumentException(c + " is not an electric component");
         };
     }
 
     /**
-     * The electric update coefficients of every cell at one site, in double:
-     * {@code out[0][k] = ca = (1 − L)/(1 + L)}, {@code out[1][k] = cb = s/(εr(1 + L))}, L = σΔt/(2ε0εr)
-     * (Taflove &amp; Hagness ch. 3, lossy-dielectric form).
+     * The electric update coefficients of every cell at one site, in double, from those of each
+     * material: {@code out[0][k] = ca}, {@code out[1][k] = cb} of the material at cell k.
      */
-    static double[][] coefficients(MaterialGrid grid, FieldSite site, double courant, double dt) {
-        final double eps0 = 8.8541878128e-12; // = PhysicalConstants.EPS0; kernel does not depend on the facade package
+    static double[][] coefficients(MaterialGrid grid, FieldSite site, double[] caOf, double[] cbOf) {
         int nx = grid.nx();
         int ny = grid.ny();
-        int nm = grid.materials().size();
-        double[] caOf = new double[nm];
-        double[] cbOf = new double[nm];
-        for (int m = 0; m < nm; m++) {
-            Material mat = grid.materials().get(m);
-            double l = mat.conductivity() * dt / (2 * eps0 * mat.relativePermittivity());
-            caOf[m] = (1 - l) / (1 + l);
-            cbOf[m] = courant / (mat.relativePermittivity() * (1 + l));
-        }
         double[][] out = new double[2][nx * ny];
         for (int j = 0; j < ny; j++) {
             for (int i = 0; i < nx; i++) {
@@ -143,6 +151,34 @@ public abstract class Engine {
             }
         }
         return out;
+    }
+
+    /**
+     * What an engine of these settings will allocate, computed without building it, in bytes:
+     * {@code {arrays, pml, buildScratch}}: the field and coefficient arrays over the whole grid with
+     * the Bloch seam values, the CPML strips (ψ and coefficients, x strips widened to whole vectors),
+     * and the double-precision coefficients that exist only while the engine is being built. A
+     * Bloch-periodic grid has two engines (real and imaginary parts) and counts twice. Decided by
+     * {@link Layout}, as the engines allocate: {@code arrays + pml} equals {@link #bytes()} exactly.
+     *
+     * @param lossy whether every electric site has a cell with conductivity (ca arrays kept); a p grid
+     *              with conductivity at only one of its two sites needs one ca array less
+     */
+    public static long[] footprint(int nx, int ny, Polarization pol, Precision precision, Map<Side, Boundary> sides,
+                                   boolean lossy) {
+        Layout l = Layout.of(nx, ny, pol, precision);
+        int copies = sides.get(Side.LEFT) instanceof Boundary.Bloch ? 2 : 1;
+        return new long[] {copies * l.gridBytes(lossy, copies == 2), copies * l.stripBytes(sides), l.scratchBytes()};
+    }
+
+    /** The bytes per cell {@link #bytesPerCell()} will report (the arrays spanning the whole grid); as {@link #footprint}. */
+    public static int predictBytesPerCell(Polarization pol, Precision precision, boolean lossy, boolean blochX) {
+        return Layout.of(1, 1, pol, precision).bytesPerCell(lossy, blochX);
+    }
+
+    /** Bytes of the Bloch seam values ({@link #ghostE}, {@link #ghostW}). */
+    final long seamBytes() {
+        return (long) Double.BYTES * (ghostE.length + ghostW.length);
     }
 
     /**
@@ -421,7 +457,10 @@ public abstract class Engine {
      */
     public abstract double energy(int i0, int j0, int i1, int j1);
 
-    /** Bytes of field, coefficient and auxiliary arrays held. */
+    /**
+     * Bytes of the arrays held: fields, coefficients, CPML strips (ψ and coefficients) and the Bloch
+     * seam values; {@link #footprint} gives the same figure (arrays + pml) without allocating.
+     */
     public abstract long bytes();
 
     /** Writes the fields and the PML auxiliaries (everything a step changes) for a checkpoint. */

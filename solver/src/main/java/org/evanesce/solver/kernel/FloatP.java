@@ -1,54 +1,33 @@
 package org.evanesce.solver.kernel;
 
 import java.util.Map;
-import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.solver.boundary.Boundary;
-import org.evanesce.solver.boundary.PmlProfile;
 import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Side;
 
 /**
- * p polarization (Hz, Ex, Ey) in single precision. Ex and Ey have their own coefficients, so the
- * per-component permittivities of subpixel smoothing apply. {@link DoubleP} is the same in
- * double; change both together.
+ * p polarization (Hz, Ex, Ey) in single precision: the order of the updates and the energy; the
+ * arrays and their plumbing are {@link FloatEngine}'s. Ex and Ey have their own coefficients, so the
+ * per-component permittivities of subpixel smoothing apply.
+ * Edit this file; {@link DoubleP} is generated from it (tools/regen-double-kernels.sh).
  */
-final class FloatP extends Engine {
+final class FloatP extends FloatEngine {
 
     final float[] hz, ex, ey, cbx, cby;
     /** ca per cell, or null when every cell at that site is lossless (ca = 1). */
     final float[] cax, cay;
-    private final float s;
-    /** x strips correct Hz (ψH) and Ey (ψE); y strips correct Hz (ψH) and Ex (ψE). */
-    private final FloatStrip[] xs, ys;
 
-    FloatP(MaterialGrid grid, double courant, double dt, Map<Side, Boundary> sides) {
-        super(grid.nx(), grid.ny(), courant, sides);
-        int n = nx * ny;
-        s = (float) courant;
-        double[][] cx = coefficients(grid, FieldSite.EX, courant, dt);
-        double[][] cy = coefficients(grid, FieldSite.EY, courant, dt);
-        // allocated one after the other with staggered lengths (see Engine.staggeredLength)
-        int len = Engine.staggeredLength(n, Float.BYTES);
-        hz = new float[len];
-        ex = new float[len];
-        ey = new float[len];
-        cbx = FloatS.toFloat(cx[1], len);
-        cby = FloatS.toFloat(cy[1], len);
-        cax = Engine.allOnes(cx[0]) ? null : FloatS.toFloat(cx[0], len);
-        cay = Engine.allOnes(cy[0]) ? null : FloatS.toFloat(cy[0], len);
-        xs = new FloatStrip[xProfiles.length];
-        for (int q = 0; q < xs.length; q++) {
-            // widened to whole vectors so the per-row corrections have no scalar remainder
-            PmlProfile p = xProfiles[q].padded(FloatKernels.roundUpToLanes(xProfiles[q].layers), nx);
-            // a padded left strip's electric range [1, width] ends in the next row's local 0, which
-            // no electric update uses; Ey stops at row ny−2, so no spare ψ is needed (see FloatS)
-            xs[q] = new FloatStrip(p, ny * p.width);
-        }
-        ys = new FloatStrip[yProfiles.length];
-        for (int q = 0; q < ys.length; q++) {
-            ys[q] = new FloatStrip(yProfiles[q], nx * yProfiles[q].layers);
-        }
+    FloatP(MaterialGrid grid, double courant, double[] caOfMaterial, double[] cbOfMaterial, Map<Side, Boundary> sides) {
+        super(grid, Polarization.P, courant, caOfMaterial, cbOfMaterial, sides);
+        hz = field(Component.HZ);
+        ex = field(Component.EX);
+        ey = field(Component.EY);
+        cbx = cb(Component.EX);
+        cby = cb(Component.EY);
+        cax = ca(Component.EX);
+        cay = ca(Component.EY);
     }
 
     @Override
@@ -168,47 +147,6 @@ final class FloatP extends Engine {
     }
 
     @Override
-    protected void addSource(Component c, int k, double v) {
-        switch (c) {
-            case EX -> ex[k] -= (float) (cbx[k] * v);
-            case EY -> ey[k] -= (float) (cby[k] * v);
-            case HZ -> hz[k] -= (float) (s * v);
-            default -> throw new IllegalArgumentException(c + " is not a p-polarization component");
-        }
-    }
-
-    @Override
-    protected double flushH(int j) {
-        int r = j * nx;
-        return FloatKernels.flush(hz, r, r + nx);
-    }
-
-    @Override
-    protected double flushE(int j) {
-        int r = j * nx;
-        return Math.max(FloatKernels.flush(ex, r, r + nx), FloatKernels.flush(ey, r, r + nx));
-    }
-
-    private float[] array(Component c) {
-        return switch (c) {
-            case HZ -> hz;
-            case EX -> ex;
-            case EY -> ey;
-            default -> throw new IllegalArgumentException(c + " is not a p-polarization component");
-        };
-    }
-
-    @Override
-    public double get(Component c, int k) {
-        return array(c)[k];
-    }
-
-    @Override
-    public void set(Component c, int k, double v) {
-        array(c)[k] = (float) v;
-    }
-
-    @Override
     public double energy(int i0, int j0, int i1, int j1) {
         double w = 0;
         for (int j = j0; j < j1; j++) {
@@ -222,48 +160,5 @@ final class FloatP extends Engine {
             }
         }
         return w;
-    }
-
-    @Override
-    public long bytes() {
-        long b = bytesPerCell() * (long) nx * ny;
-        for (FloatStrip x : xs) {
-            b += x.bytes();
-        }
-        for (FloatStrip y : ys) {
-            b += y.bytes();
-        }
-        return b;
-    }
-
-    @Override
-    public int bytesPerCell() {
-        return (5 + (cax == null ? 0 : 1) + (cay == null ? 0 : 1)) * 4;
-    }
-
-    @Override
-    public void writeState(java.io.DataOutput out) throws java.io.IOException {
-        StateIO.write(out, hz);
-        StateIO.write(out, ex);
-        StateIO.write(out, ey);
-        for (FloatStrip x : xs) {
-            x.writeState(out);
-        }
-        for (FloatStrip y : ys) {
-            y.writeState(out);
-        }
-    }
-
-    @Override
-    public void readState(java.io.DataInput in) throws java.io.IOException {
-        StateIO.read(in, hz);
-        StateIO.read(in, ex);
-        StateIO.read(in, ey);
-        for (FloatStrip x : xs) {
-            x.readState(in);
-        }
-        for (FloatStrip y : ys) {
-            y.readState(in);
-        }
     }
 }

@@ -1,56 +1,30 @@
 package org.evanesce.solver.kernel;
 
 import java.util.Map;
-import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.solver.boundary.Boundary;
-import org.evanesce.solver.boundary.PmlProfile;
 import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Side;
 
-/** s polarization (Ez, Hx, Hy) in single precision. {@link DoubleS} is the same in double; change both together. */
-final class FloatS extends Engine {
+/**
+ * s polarization (Ez, Hx, Hy) in single precision: the order of the updates and the energy; the
+ * arrays and their plumbing are {@link FloatEngine}'s.
+ * Edit this file; {@link DoubleS} is generated from it (tools/regen-double-kernels.sh).
+ */
+final class FloatS extends FloatEngine {
 
     final float[] ez, hx, hy, cb;
     /** ca per cell, or null when every cell is lossless (ca = 1). */
     final float[] ca;
-    private final float s;
-    /** x strips correct Hy (ψH) and Ez (ψE); y strips correct Hx (ψH) and Ez (ψE). */
-    private final FloatStrip[] xs, ys;
 
-    FloatS(MaterialGrid grid, double courant, double dt, Map<Side, Boundary> sides) {
-        super(grid.nx(), grid.ny(), courant, sides);
-        int n = nx * ny;
-        s = (float) courant;
-        double[][] c = coefficients(grid, FieldSite.EZ, courant, dt);
-        // allocated one after the other with staggered lengths (see Engine.staggeredLength)
-        int len = Engine.staggeredLength(n, Float.BYTES);
-        ez = new float[len];
-        hx = new float[len];
-        hy = new float[len];
-        cb = toFloat(c[1], len);
-        ca = Engine.allOnes(c[0]) ? null : toFloat(c[0], len);
-        xs = new FloatStrip[xProfiles.length];
-        for (int q = 0; q < xs.length; q++) {
-            // widened to whole vectors so the per-row corrections have no scalar remainder
-            PmlProfile p = xProfiles[q].padded(FloatKernels.roundUpToLanes(xProfiles[q].layers), nx);
-            // one spare ψ: a padded left strip's electric range [1, width] ends one past its row's ψ
-            // (in the next row's local 0, which no electric update uses), also in the last row
-            xs[q] = new FloatStrip(p, ny * p.width + 1);
-        }
-        ys = new FloatStrip[yProfiles.length];
-        for (int q = 0; q < ys.length; q++) {
-            ys[q] = new FloatStrip(yProfiles[q], nx * yProfiles[q].layers);
-        }
-    }
-
-    /** The values of {@code a} in an array of {@code length} ≥ a.length values (zeros after them). */
-    static float[] toFloat(double[] a, int length) {
-        float[] f = new float[length];
-        for (int i = 0; i < a.length; i++) {
-            f[i] = (float) a[i];
-        }
-        return f;
+    FloatS(MaterialGrid grid, double courant, double[] caOfMaterial, double[] cbOfMaterial, Map<Side, Boundary> sides) {
+        super(grid, Polarization.S, courant, caOfMaterial, cbOfMaterial, sides);
+        ez = field(Component.EZ);
+        hx = field(Component.HX);
+        hy = field(Component.HY);
+        cb = cb(Component.EZ);
+        ca = ca(Component.EZ);
     }
 
     @Override
@@ -175,47 +149,6 @@ final class FloatS extends Engine {
     }
 
     @Override
-    protected void addSource(Component c, int k, double v) {
-        switch (c) {
-            case EZ -> ez[k] -= (float) (cb[k] * v);
-            case HX -> hx[k] -= (float) (s * v);
-            case HY -> hy[k] -= (float) (s * v);
-            default -> throw new IllegalArgumentException(c + " is not an s-polarization component");
-        }
-    }
-
-    @Override
-    protected double flushH(int j) {
-        int r = j * nx;
-        return Math.max(FloatKernels.flush(hx, r, r + nx), FloatKernels.flush(hy, r, r + nx));
-    }
-
-    @Override
-    protected double flushE(int j) {
-        int r = j * nx;
-        return FloatKernels.flush(ez, r, r + nx);
-    }
-
-    private float[] array(Component c) {
-        return switch (c) {
-            case EZ -> ez;
-            case HX -> hx;
-            case HY -> hy;
-            default -> throw new IllegalArgumentException(c + " is not an s-polarization component");
-        };
-    }
-
-    @Override
-    public double get(Component c, int k) {
-        return array(c)[k];
-    }
-
-    @Override
-    public void set(Component c, int k, double v) {
-        array(c)[k] = (float) v;
-    }
-
-    @Override
     public double energy(int i0, int j0, int i1, int j1) {
         double w = 0;
         for (int j = j0; j < j1; j++) {
@@ -229,48 +162,5 @@ final class FloatS extends Engine {
             }
         }
         return w;
-    }
-
-    @Override
-    public long bytes() {
-        long b = bytesPerCell() * (long) nx * ny;
-        for (FloatStrip x : xs) {
-            b += x.bytes();
-        }
-        for (FloatStrip y : ys) {
-            b += y.bytes();
-        }
-        return b;
-    }
-
-    @Override
-    public int bytesPerCell() {
-        return (ca == null ? 4 : 5) * 4;
-    }
-
-    @Override
-    public void writeState(java.io.DataOutput out) throws java.io.IOException {
-        StateIO.write(out, ez);
-        StateIO.write(out, hx);
-        StateIO.write(out, hy);
-        for (FloatStrip x : xs) {
-            x.writeState(out);
-        }
-        for (FloatStrip y : ys) {
-            y.writeState(out);
-        }
-    }
-
-    @Override
-    public void readState(java.io.DataInput in) throws java.io.IOException {
-        StateIO.read(in, ez);
-        StateIO.read(in, hx);
-        StateIO.read(in, hy);
-        for (FloatStrip x : xs) {
-            x.readState(in);
-        }
-        for (FloatStrip y : ys) {
-            y.readState(in);
-        }
     }
 }

@@ -2,7 +2,10 @@ package org.evanesce.solver.kernel;
 
 import org.evanesce.solver.boundary.PmlProfile;
 
-/** One side's CPML coefficients in single precision, with the auxiliary ψ of the two components it corrects. */
+/**
+ * One side's CPML coefficients in single precision, with the auxiliary ψ of the two components it corrects.
+ * Edit this file; {@link DoubleStrip} is generated from it (tools/regen-double-kernels.sh).
+ */
 final class FloatStrip {
     final int start;
     /** Cells per row (x strips) or rows (y strips) covered; ψ is {@code width} wide along the axis. */
@@ -18,19 +21,19 @@ final class FloatStrip {
         width = p.width;
         eFrom = p.eFrom;
         eTo = p.eTo;
-        bE = toFloat(p.bE);
-        cE = toFloat(p.cE);
-        kE = toFloat(p.kappaTermE);
-        bH = toFloat(p.bH);
-        cH = toFloat(p.cH);
-        kH = toFloat(p.kappaTermH);
+        bE = FloatEngine.toFloat(p.bE, p.bE.length);
+        cE = FloatEngine.toFloat(p.cE, p.cE.length);
+        kE = FloatEngine.toFloat(p.kappaTermE, p.kappaTermE.length);
+        bH = FloatEngine.toFloat(p.bH, p.bH.length);
+        cH = FloatEngine.toFloat(p.cH, p.cH.length);
+        kH = FloatEngine.toFloat(p.kappaTermH, p.kappaTermH.length);
         psiH = new float[psiLength];
         psiE = new float[psiLength];
     }
 
-    /** Bytes of the two ψ arrays. */
-    long bytes() {
-        return 2L * Float.BYTES * psiH.length;
+    /** Values held: the six coefficient arrays and the two ψ arrays. */
+    long values() {
+        return (long) bE.length + cE.length + kE.length + bH.length + cH.length + kH.length + psiH.length + psiE.length;
     }
 
     /** Writes both ψ arrays for a checkpoint (see {@link StateIO}). */
@@ -43,13 +46,5 @@ final class FloatStrip {
     void readState(java.io.DataInput in) throws java.io.IOException {
         StateIO.read(in, psiH);
         StateIO.read(in, psiE);
-    }
-
-    private static float[] toFloat(double[] a) {
-        float[] f = new float[a.length];
-        for (int i = 0; i < a.length; i++) {
-            f[i] = (float) a[i];
-        }
-        return f;
     }
 }

@@ -17,6 +17,22 @@ import org.evanesce.solver.grid.Polarization;
  * <p>The flux along +y per unit length in z, summed over the line's cells, is
  * S = ½ Re Σ E·H̃* Δ / η0 with H̃ = η0·H as stored: for s, S_y = ½ Re(Ez Hx*), for p,
  * S_y = −½ Re(Ex Hz*) (E × H* along ŷ; Born &amp; Wolf sec. 1.1, common practice).
+ *
+ * <p>That "DFT flux" grows with the square of the transform window; ratios of two lines' fluxes
+ * (T, R) are all it is good for. Two normalised forms carry units of their own:
+ * <ul>
+ * <li>{@link #meanPower}: a continuous wave E(t) = Re(Ê e^{−iωt}) transformed over whole periods
+ * gives X = ½ Ê D, D = Σ Δt the duration of the samples taken (the e^{+iωt} half sums to nearly
+ * nothing over whole periods: a residue below one step in D), so the time-averaged flux
+ * ½ Re(Ê Ĥ*)/η0 is 4·(DFT flux)/(D_E D_H), W per metre of z;</li>
+ * <li>{@link #spectralEnergy}: for fields that have died out inside the window, Parseval's theorem
+ * ∫ E(t) H(t) dt = 2 ∫_0^∞ Re(X_E X_H*) df makes 4·(DFT flux) the energy that crossed the line per
+ * hertz of positive frequency, J per metre of z per Hz (its integral over f &gt; 0 is the energy
+ * that crossed the line).</li>
+ * </ul>
+ * Complex (Bloch-periodic) fields driven by a real signal times e^{i kx x} give the same numbers
+ * as the single travelling plane wave they stand for: the transform at f &gt; 0 picks only its
+ * e^{i(kx x − ωt)} part, the e^{+iωt} part belonging to the mirror wave.
  */
 public final class FluxLine implements StatefulListener {
 
@@ -34,6 +50,10 @@ public final class FluxLine implements StatefulListener {
     /** Only field samples at times in [windowStart, windowEnd) are transformed. */
     private double windowStart = Double.NEGATIVE_INFINITY;
     private double windowEnd = Double.POSITIVE_INFINITY;
+    /** Samples transformed so far: electric, magnetic. */
+    private long eSamples, hSamples;
+    /** The time step, s (set by every step; 0 before the first). */
+    private double dt;
 
     /**
      * @param pol         the run's polarization
@@ -91,6 +111,8 @@ public final class FluxLine implements StatefulListener {
         if (!eIn && !hIn) {
             return;
         }
+        eSamples += eIn ? 1 : 0;
+        hSamples += hIn ? 1 : 0;
         // read the line once per step, then accumulate every frequency from the copies
         for (int i = i0; i < i1; i++) {
             int k = i - i0;
@@ -102,6 +124,7 @@ public final class FluxLine implements StatefulListener {
         double dt = v.dt();
         double we = eIn ? dt : 0;
         double wh = hIn ? dt : 0;
+        this.dt = dt;
         for (int q = 0; q < omega.length; q++) {
             double ce = Math.cos(omega[q] * te) * we;
             double se = Math.sin(omega[q] * te) * we;
@@ -138,6 +161,27 @@ public final class FluxLine implements StatefulListener {
         return sum * cellSize;
     }
 
+    /**
+     * The time-averaged flux along +y of a continuous wave at frequency q, W per metre of z (for the
+     * fields' own amplitudes): 4·{@link #flux(int, double)}/(D_E D_H), D = (samples transformed)·Δt the
+     * duration of the samples (see the class comment). Meaningful when the window holds whole periods of a settled
+     * wave; NaN before any sample was taken.
+     */
+    public double meanPower(int q, double cellSize) {
+        double de = eSamples * dt;
+        double dh = hSamples * dt;
+        return de > 0 && dh > 0 ? 4 * flux(q, cellSize) / (de * dh) : Double.NaN;
+    }
+
+    /**
+     * The energy that crossed the line along +y per hertz of positive frequency at frequency q, J per
+     * metre of z per Hz: 4·{@link #flux(int, double)} (Parseval; see the class comment). Meaningful when
+     * the fields have died out inside the window (a pulse that has passed).
+     */
+    public double spectralEnergy(int q, double cellSize) {
+        return 4 * flux(q, cellSize);
+    }
+
     /** The transformed electric field (averaged onto the line) at frequency q and cell i: {re, im}. */
     public double[] electric(int q, int i) {
         return new double[] {eRe[q][i - i0], eIm[q][i - i0]};
@@ -161,6 +205,20 @@ public final class FluxLine implements StatefulListener {
     /** The electric component transformed; its site's x offset ({@link Component#dx}) places cell i at x = (i + dx)Δ. */
     public Component electricComponent() {
         return e;
+    }
+
+    /**
+     * The number of electric and of magnetic samples transformed so far: a window of whole periods holds
+     * a whole number of time steps only by chance, so two windows of equal length may differ by a sample,
+     * which scales their transforms by that sample's weight.
+     */
+    public long[] samples() {
+        return new long[] {eSamples, hSamples};
+    }
+
+    /** The number of frequencies transformed. */
+    public int frequencyCount() {
+        return omega.length;
     }
 
     /** Frequency number q, Hz. */
@@ -205,8 +263,16 @@ public final class FluxLine implements StatefulListener {
         return s;
     }
 
+    /** Bytes held by the accumulators and the per-step scratch: 8 · n · (4F + 4) for n cells and F frequencies. */
+    public long bytes() {
+        long n = i1 - i0;
+        return Double.BYTES * n * (4L * omega.length + 4);
+    }
+
     @Override
     public void writeState(java.io.DataOutput out) throws java.io.IOException {
+        out.writeLong(eSamples);
+        out.writeLong(hSamples);
         for (double[][] a : new double[][][] {eRe, eIm, hRe, hIm}) {
             out.writeInt(a.length);
             for (double[] row : a) {
@@ -217,6 +283,8 @@ public final class FluxLine implements StatefulListener {
 
     @Override
     public void readState(java.io.DataInput in) throws java.io.IOException {
+        eSamples = in.readLong();
+        hSamples = in.readLong();
         for (double[][] a : new double[][][] {eRe, eIm, hRe, hIm}) {
             if (in.readInt() != a.length) {
                 throw new java.io.IOException("checkpoint's flux line has another number of frequencies");

@@ -72,6 +72,16 @@ import org.jtransforms.fft.DoubleFFT_1D;
  * The lateral shift of a beam is the centroid Σ x_j |U_j|² / Σ |U_j|² of its profile minus that of the incident
  * profile; for the reflected beam beyond the critical angle it tends to Artmann's −d(arg r)/dkx
  * ({@link PlanarStack#goosHanchenShift}) as the waist grows.
+ *
+ * <h2>Sharp features and convergence</h2>
+ * A stack with a weakly coupled mode (a guided mode of a film reached across a gap, a surface plasmon) has an r
+ * or t that changes over a range of kx far narrower than the beam's spectrum: a resonance of width Γ in kx. The
+ * sums above then need Δk = 2π/W well below Γ, and the light the mode carries away and re-radiates forms a tail
+ * of length about 1/Γ that must fit in the window W (the profiles are periodic in W; a tail that wraps round
+ * lands on the wrong side of the centroid). {@link #converged} finds the narrowest such resonance from the peaks of
+ * |t| ({@link Resonances}) and doubles W and N together (Δx fixed, so Δk halves) until Δk is at most half its
+ * half-width and R, T and the reflected centroid change by less than stated tolerances from one doubling to the
+ * next, and says so when the largest sampling allowed is reached first.
  */
 public final class AngularSpectrum {
 
@@ -179,6 +189,16 @@ public final class AngularSpectrum {
      * @throws IllegalArgumentException if the window or the sampling cannot hold the beam
      */
     public static Result of(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples, double window) {
+        return of(stack, polarization, beam, samples, window, null);
+    }
+
+    /**
+     * {@link #of}; when {@code keep} is not null, keep[0] receives the incident spectrum A_m (with the sign
+     * (−1)^(m−c), interleaved), keep[1] the reflected one r·A_m and keep[2] the transmitted one t·A_m, before
+     * the transforms.
+     */
+    private static Result of(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples, double window,
+                             double[][] keep) {
         double n1 = stack.incidentIndex();
         double lambda = beam.wavelength();
         double dx = window / samples;
@@ -199,7 +219,7 @@ public final class AngularSpectrum {
         double pTra = 0;
         for (int m = 0; m < samples; m++) {
             double kx = (m - c) * dk;
-            Complex a = incident(beam, k, kx, m - c, 0);
+            Complex a = incident(beam, k, kx, m - c);
             if (a == null) {
                 continue;
             }
@@ -216,6 +236,11 @@ public final class AngularSpectrum {
             pRef += q1 * r.norm();
             pTra += qe * t.norm();
         }
+        if (keep != null) {
+            keep[0] = inc.clone();
+            keep[1] = ref.clone();
+            keep[2] = tra.clone();
+        }
         DoubleFFT_1D fft = new DoubleFFT_1D(samples);
         double scale = dk / (2 * Math.PI);
         for (double[] u : new double[][] {inc, ref, tra}) {
@@ -226,6 +251,117 @@ public final class AngularSpectrum {
         double incCentroid = centroid(inc, start, dx);
         return new Result(start, dx, inc, ref, tra, pRef / pInc, pTra / pInc, incCentroid,
                 centroid(ref, start, dx) - incCentroid, centroid(tra, start, dx) - incCentroid);
+    }
+
+    /** Tolerances of {@link #converged}: R and T (absolute) and the reflected centroids (m). */
+    public record Tolerance(double power, double position) {
+        public Tolerance {
+            if (!(power > 0) || !(position > 0)) {
+                throw new IllegalArgumentException(String.format("tolerances %g (power) and %g m (position) must be > 0",
+                        power, position));
+            }
+        }
+    }
+
+    /**
+     * What {@link #converged} found.
+     *
+     * @param result             the result at the last sampling tried
+     * @param reflectedCentroids the flux-weighted centroid of the reflected beam on each line asked for
+     *                           ({@link #reflectedCentroid}), m, at that sampling
+     * @param converged          whether R, T and every centroid changed by less than the tolerances on the last
+     *                           doubling, both samplings resolving every resonance
+     * @param doublings          how many times the window was doubled
+     * @param change             the largest change of the last doubling: {ΔR, ΔT, Δcentroid (m)} (NaN with none)
+     * @param resonance          kx of the narrowest resonance of the stack found in the beam's spectrum (the peak
+     *                           of |t|², {@link Resonances}), rad/m; NaN with none
+     * @param narrowest          its half-width at half height of |t|², rad/m; infinite with none
+     */
+    public record Converged(Result result, double[] reflectedCentroids, boolean converged, int doublings, double[] change,
+                            double resonance, double narrowest) {
+        public Converged {
+            reflectedCentroids = reflectedCentroids.clone();
+            change = change.clone();
+        }
+
+        @Override
+        public double[] reflectedCentroids() {
+            return reflectedCentroids.clone();
+        }
+
+        @Override
+        public double[] change() {
+            return change.clone();
+        }
+    }
+
+    /**
+     * The beam's response sampled finely enough for sharp features of the stack (see the class comment): starting
+     * from {@code samples} over {@code window}, the window and the number of samples are doubled together until
+     * the spacing Δk = 2π/W is at most half the half-width of the narrowest resonance of the stack inside the
+     * beam's spectrum ({@link Resonances}), and R, T and the reflected centroid on each line at the
+     * {@code distances} (as {@link #reflectedCentroid}) change by at most the tolerances between two samplings
+     * that both resolve it (a peak missed by both is impossible: see {@link Resonances}). It gives up, with
+     * {@code converged} false, when that would take more than {@code maxSamples}.
+     *
+     * @param distances d ≥ 0 of the lines whose reflected centroids are wanted, m (may be empty)
+     */
+    public static Converged converged(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples,
+                                      double window, double[] distances, Tolerance tolerance, int maxSamples) {
+        checkSampling(stack, beam, samples, window);
+        for (double d : distances) {
+            if (!(d >= 0) || Double.isInfinite(d)) {
+                throw new IllegalArgumentException(String.format("distance %g m must be finite and >= 0", d));
+            }
+        }
+        Sampled prev = sample(stack, polarization, beam, samples, window, distances);
+        int doublings = 0;
+        double[] change = {Double.NaN, Double.NaN, Double.NaN};
+        while (true) {
+            double dk = 2 * Math.PI / window;
+            // the samples the narrowest resonance needs (Δk at most half its half-width)
+            double needed = prev.narrowest > 0 ? samples * (2 * dk / prev.narrowest) : Double.POSITIVE_INFINITY;
+            if ((long) samples * 2 > maxSamples || needed > maxSamples) {
+                return new Converged(prev.result, prev.centroids, false, doublings, change, prev.resonance, prev.narrowest);
+            }
+            samples *= 2;
+            window *= 2;
+            doublings++;
+            Sampled cur = sample(stack, polarization, beam, samples, window, distances);
+            change = new double[] {Math.abs(cur.result.reflectance() - prev.result.reflectance()),
+                Math.abs(cur.result.transmittance() - prev.result.transmittance()), 0};
+            boolean small = change[0] <= tolerance.power() && change[1] <= tolerance.power();
+            for (int k = 0; k < distances.length; k++) {
+                double a = cur.centroids[k];
+                double b = prev.centroids[k];
+                double dc = Double.isNaN(a) && Double.isNaN(b) ? 0 : Math.abs(a - b);
+                change[2] = Math.max(change[2], Double.isNaN(dc) ? Double.POSITIVE_INFINITY : dc);
+                small &= dc <= tolerance.position();
+            }
+            boolean resolved = dk <= prev.narrowest / 2 && 2 * Math.PI / window <= cur.narrowest / 2;
+            prev = cur;
+            if (small && resolved) {
+                return new Converged(cur.result, cur.centroids, true, doublings, change, cur.resonance, cur.narrowest);
+            }
+        }
+    }
+
+    /** One sampling's result, reflected centroids and narrowest resonance. */
+    private record Sampled(Result result, double[] centroids, double resonance, double narrowest) { }
+
+    /** {@link #of}, {@link #reflectedCentroid} at each distance and the resonances, from one pass through the stack. */
+    private static Sampled sample(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples,
+                                  double window, double[] distances) {
+        double[][] spectra = new double[3][];
+        Result res = of(stack, polarization, beam, samples, window, spectra);
+        double[] centroids = new double[distances.length];
+        for (int k = 0; k < distances.length; k++) {
+            centroids[k] = centroidAt(stack, polarization, beam, samples, window, distances[k], spectra[0], spectra[1]);
+        }
+        double dk = 2 * Math.PI / window;
+        double[] narrowest = Resonances.narrowest(stack, polarization, beam.wavelength(), spectra[0], spectra[2],
+                -(samples / 2) * dk, dk);
+        return new Sampled(res, centroids, narrowest[0], narrowest[1]);
     }
 
     /**
@@ -246,9 +382,19 @@ public final class AngularSpectrum {
         if (!(distance >= 0) || Double.isInfinite(distance)) {
             throw new IllegalArgumentException(String.format("distance %g m must be finite and >= 0", distance));
         }
+        double[][] spectra = new double[3][];
+        of(stack, polarization, beam, samples, window, spectra);
+        return centroidAt(stack, polarization, beam, samples, window, distance, spectra[0], spectra[1]);
+    }
+
+    /**
+     * {@link #reflectedCentroid} from the sampled spectra of {@link #of}: the reflected spectrum r·A carried a
+     * distance d back into the incidence medium (times e^{i kz d}) and its admittance-weighted copy, transformed.
+     */
+    private static double centroidAt(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples,
+                                     double window, double distance, double[] incident, double[] reflected) {
         double n1 = stack.incidentIndex();
-        double lambda = beam.wavelength();
-        double k0 = 2 * Math.PI / lambda;
+        double k0 = 2 * Math.PI / beam.wavelength();
         double k = n1 * k0;
         double dk = 2 * Math.PI / window;
         int c = samples / 2;
@@ -257,12 +403,11 @@ public final class AngularSpectrum {
         double[] v = new double[2 * samples];
         for (int m = 0; m < samples; m++) {
             double kx = (m - c) * dk;
-            Complex a = incident(beam, k, kx, m - c, distance);
-            if (a == null) {
+            if (incident[2 * m] == 0 && incident[2 * m + 1] == 0 || !(Math.abs(kx) < k)) {
                 continue;
             }
             double kz1 = Math.sqrt((k - kx) * (k + kx));
-            Complex r = a.times(stack.atTransverseWavenumber(polarization, lambda, kx).r());
+            Complex r = new Complex(reflected[2 * m], reflected[2 * m + 1]).times(Complex.polar(1, kz1 * distance));
             put(u, m, r);
             put(v, m, r.times(kz1 / (k0 * f1)));
         }
@@ -285,13 +430,12 @@ public final class AngularSpectrum {
     }
 
     /**
-     * The incident spectrum A(kx) of the class comment for sample m − c, with the phase of a further
-     * {@code back} metres of travel back into the incidence medium (the reflected wave's, for
-     * {@link #reflectedCentroid}), and the sign (−1)^(m−c) that moves the profile's origin to x_0 = −W/2
+     * The incident spectrum A(kx) of the class comment for sample m − c, with the sign (−1)^(m−c) that moves
+     * the profile's origin to x_0 = −W/2
      * (see shiftToWindow); null for a kx outside the beam (evanescent in the incidence medium, a backward
      * wave in the beam's frame, or an amplitude that underflows).
      */
-    private static Complex incident(GaussianBeam beam, double k, double kx, int mc, double back) {
+    private static Complex incident(GaussianBeam beam, double k, double kx, int mc) {
         if (!(Math.abs(kx) < k)) {
             return null;
         }
@@ -307,7 +451,7 @@ public final class AngularSpectrum {
         if (mag == 0) {
             return null;
         }
-        Complex a = Complex.polar(mag, k * cosPsi * beam.waistDistance() + kz1 * back);
+        Complex a = Complex.polar(mag, k * cosPsi * beam.waistDistance());
         return (mc & 1) != 0 ? a.negate() : a;
     }
 

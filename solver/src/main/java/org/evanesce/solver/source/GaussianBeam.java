@@ -3,6 +3,7 @@ package org.evanesce.solver.source;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
+import org.evanesce.solver.Courant;
 import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
@@ -161,7 +162,7 @@ public final class GaussianBeam {
     static double[][] profile(Spec b, int nx, double xStart, double dx, double dt, double y, Field f) {
         int size = Integer.highestOneBit(Math.max(4 * nx, 64) - 1) << 1;
         double k = Math.sqrt(b.epsilon()) * 2 * Math.PI * b.signal().carrierFrequency() / PhysicalConstants.C0;
-        double courant = PhysicalConstants.C0 * dt / dx;
+        double courant = Courant.of(dt, dx);
         double sinW = Math.sin(Math.PI * b.signal().carrierFrequency() * dt);
         double dispersion = b.gridEpsilon() * sinW * sinW / (courant * courant);
         boolean zComponent = (f == Field.ELECTRIC) == (b.polarization() == Polarization.S);

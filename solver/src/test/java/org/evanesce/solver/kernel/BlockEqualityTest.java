@@ -8,6 +8,8 @@ import java.util.Map;
 import org.evanesce.geometry.CellRegion;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.solver.Courant;
+import org.evanesce.solver.MaterialCoefficients;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
@@ -65,7 +67,8 @@ class BlockEqualityTest {
             default -> Boundary.pml(9);
         });
         double courant = 0.6;
-        Engine e = Engine.create(grid, pol, precision, courant, courant * 40e-9 / 299792458.0, sides);
+        double[][] coefficients = MaterialCoefficients.of(grid.materials(), courant, Courant.timeStep(courant, 40e-9));
+        Engine e = Engine.create(grid, pol, precision, courant, coefficients[0], coefficients[1], sides);
         Component[] comps = pol.components();
         // one electric and one magnetic source term, inside the left and bottom layers' reach
         e.setSources(new int[] {20 * NX + 9, 6 * NX + 26}, new Component[] {comps[pol == Polarization.S ? 0 : 1],

@@ -10,6 +10,8 @@ import java.util.Set;
 import org.evanesce.geometry.CellRegion;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.solver.Courant;
+import org.evanesce.solver.MaterialCoefficients;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
@@ -65,7 +67,8 @@ class MovingBandsTest {
         for (Side s : Side.values()) {
             sides.put(s, Boundary.pml(8));
         }
-        Engine e = Engine.create(grid, pol, precision, 0.6, 0.6 * 40e-9 / 299792458.0, sides);
+        double[][] coefficients = MaterialCoefficients.of(grid.materials(), 0.6, Courant.timeStep(0.6, 40e-9));
+        Engine e = Engine.create(grid, pol, precision, 0.6, coefficients[0], coefficients[1], sides);
         Component[] comps = pol.components();
         e.setSources(new int[] {(NY / 2) * NX + NX / 3}, new Component[] {comps[pol == Polarization.S ? 0 : 1]});
         Thread caller = Thread.currentThread();

@@ -21,8 +21,18 @@ import java.util.Set;
  * acos atan atan2}. Angles: the trigonometric functions take an angle, and a plain number where
  * an angle is expected means degrees; the inverse functions return angles.
  * Sums and differences need both sides of the same kind: a length plus a plain number is an error.
+ *
+ * <p>Limits: an expression is at most {@value #MAX_LENGTH} characters long and nests at most
+ * {@value #MAX_DEPTH} levels of parentheses, function calls and signs; a longer or deeper one is
+ * refused at the character where it exceeds the limit. Sums and products of many terms are held as
+ * one list of terms, not as a tree, so neither parsing nor evaluation recurses per term.
  */
 public final class Expression {
+
+    /** The most characters an expression may have (a case file's longest real one is a few dozen). */
+    public static final int MAX_LENGTH = 10_000;
+    /** The most levels of parentheses, function calls and signs an expression may nest. */
+    public static final int MAX_DEPTH = 64;
 
     /** The function names, in the order documented. */
     public static final List<String> FUNCTIONS =
@@ -43,7 +53,7 @@ public final class Expression {
         Quantity value(String name, int offset) throws ExpressionException;
     }
 
-    private sealed interface Node permits Num, Ref, Neg, Bin, Call, WithUnit { }
+    private sealed interface Node permits Num, Ref, Neg, Chain, Call, WithUnit { }
 
     private record WithUnit(Node value, String unit, int offset) implements Node { }
 
@@ -53,7 +63,11 @@ public final class Expression {
 
     private record Neg(Node operand, int offset) implements Node { }
 
-    private record Bin(char op, Node left, Node right, int offset) implements Node { }
+    /**
+     * {@code terms[0] ops[0] terms[1] ops[1] terms[2] ...}, evaluated left to right; the ops are all
+     * additive ({@code + -}) or all multiplicative ({@code * /}); {@code offsets[k]} is where ops[k] is written.
+     */
+    private record Chain(List<Node> terms, char[] ops, int[] offsets) implements Node { }
 
     private record Call(String function, List<Node> args, int offset) implements Node { }
 
@@ -67,6 +81,10 @@ public final class Expression {
 
     /** Parses {@code text}; a syntax error names its character offset. */
     public static Expression parse(String text) throws ExpressionException {
+        if (text.length() > MAX_LENGTH) {
+            throw new ExpressionException(0, String.format("the expression is %d characters long, more than the "
+                    + "limit of %d; use parameters for its parts", text.length(), MAX_LENGTH));
+        }
         Parser p = new Parser(text);
         Node n = p.sum();
         p.skipSpace();
@@ -95,9 +113,10 @@ public final class Expression {
             out.add(r.name);
         } else if (n instanceof Neg g) {
             collect(g.operand, out);
-        } else if (n instanceof Bin b) {
-            collect(b.left, out);
-            collect(b.right, out);
+        } else if (n instanceof Chain ch) {
+            for (Node t : ch.terms) {
+                collect(t, out);
+            }
         } else if (n instanceof WithUnit w) {
             collect(w.value, out);
         } else if (n instanceof Call c) {
@@ -124,8 +143,12 @@ public final class Expression {
         } else if (n instanceof Neg g) {
             Quantity q = eval(g.operand, lookup);
             return new Quantity(-q.value(), q.dimension());
-        } else if (n instanceof Bin b) {
-            return binary(b, eval(b.left, lookup), eval(b.right, lookup));
+        } else if (n instanceof Chain ch) {
+            Quantity acc = eval(ch.terms.get(0), lookup);
+            for (int k = 0; k < ch.ops.length; k++) {
+                acc = binary(ch.ops[k], ch.offsets[k], acc, eval(ch.terms.get(k + 1), lookup));
+            }
+            return acc;
         } else if (n instanceof WithUnit w) {
             Quantity q = eval(w.value, lookup);
             Quantity scaled = Units.times(q.value(), w.unit);
@@ -139,20 +162,20 @@ public final class Expression {
         return call(c, args);
     }
 
-    private static Quantity binary(Bin b, Quantity x, Quantity y) throws ExpressionException {
-        switch (b.op) {
+    private static Quantity binary(char op, int offset, Quantity x, Quantity y) throws ExpressionException {
+        switch (op) {
             case '+':
             case '-':
                 if (!x.dimension().equals(y.dimension())) {
-                    throw new ExpressionException(b.offset, String.format("cannot %s %s (%s) and %s (%s); both sides of '%c' must be of the same kind",
-                            b.op == '+' ? "add" : "subtract", x.dimension().describe(), x, y.dimension().describe(), y, b.op));
+                    throw new ExpressionException(offset, String.format("cannot %s %s (%s) and %s (%s); both sides of '%c' must be of the same kind",
+                            op == '+' ? "add" : "subtract", x.dimension().describe(), x, y.dimension().describe(), y, op));
                 }
-                return new Quantity(b.op == '+' ? x.value() + y.value() : x.value() - y.value(), x.dimension());
+                return new Quantity(op == '+' ? x.value() + y.value() : x.value() - y.value(), x.dimension());
             case '*':
                 return new Quantity(x.value() * y.value(), x.dimension().times(y.dimension()));
             default:
                 if (y.value() == 0) {
-                    throw new ExpressionException(b.offset, "division by zero");
+                    throw new ExpressionException(offset, "division by zero");
                 }
                 return new Quantity(x.value() / y.value(), x.dimension().over(y.dimension()));
         }
@@ -236,6 +259,8 @@ public final class Expression {
     private static final class Parser {
         final String s;
         int pos;
+        /** Levels of parentheses, function calls and signs open at the current position. */
+        int depth;
 
         Parser(String s) {
             this.s = s;
@@ -264,28 +289,45 @@ public final class Expression {
         }
 
         Node sum() throws ExpressionException {
-            Node left = product();
-            for (char c = op(); c == '+' || c == '-'; c = op()) {
-                int at = pos++;
-                left = new Bin(c, left, product(), at);
-            }
-            return left;
+            return chain(true);
         }
 
-        Node product() throws ExpressionException {
-            Node left = unary();
-            for (char c = op(); c == '*' || c == '/'; c = op()) {
-                int at = pos++;
-                left = new Bin(c, left, unary(), at);
+        /** A sum of products (additive) or a product of unary terms, as one list of terms. */
+        Node chain(boolean additive) throws ExpressionException {
+            Node first = additive ? chain(false) : unary();
+            List<Node> terms = null;
+            StringBuilder ops = null;
+            List<Integer> offsets = null;
+            for (char c = op(); additive ? c == '+' || c == '-' : c == '*' || c == '/'; c = op()) {
+                if (terms == null) {
+                    terms = new ArrayList<>();
+                    terms.add(first);
+                    ops = new StringBuilder();
+                    offsets = new ArrayList<>();
+                }
+                offsets.add(pos++);
+                ops.append(c);
+                terms.add(additive ? chain(false) : unary());
             }
-            return left;
+            return terms == null ? first
+                    : new Chain(terms, ops.toString().toCharArray(), offsets.stream().mapToInt(Integer::intValue).toArray());
+        }
+
+        /** One more level of nesting at {@code at}; refused beyond {@link #MAX_DEPTH}. */
+        void deeper(int at) throws ExpressionException {
+            if (++depth > MAX_DEPTH) {
+                throw new ExpressionException(at, "the expression nests more than " + MAX_DEPTH
+                        + " levels of parentheses, function calls and signs; simplify it or use parameters");
+            }
         }
 
         Node unary() throws ExpressionException {
             char c = op();
             if (c == '-' || c == '+') {
                 int at = pos++;
+                deeper(at);
                 Node operand = unary();
+                depth--;
                 return c == '-' ? new Neg(operand, at) : operand;
             }
             return primary();
@@ -302,12 +344,14 @@ public final class Expression {
                 return unitAfter(new Num(Quantity.plain(v), start));
             }
             if (c == '(') {
+                deeper(pos);
                 pos++;
                 Node inner = sum();
                 if (op() != ')') {
                     throw new ExpressionException(pos, "missing ')' for the '(' at character " + (start + 1));
                 }
                 pos++;
+                depth--;
                 return unitAfter(inner);
             }
             if (Character.isLetter(c) || c == '_') {
@@ -315,9 +359,10 @@ public final class Expression {
                 boolean call = op() == '(';
                 if (call) {
                     if (!FUNCTIONS.contains(name)) {
-                        throw new ExpressionException(start, "unknown function '" + name + "'" + Suggest.didYouMean(name, FUNCTIONS)
+                        throw new ExpressionException(start, "unknown function '" + Suggest.shown(name) + "'" + Suggest.didYouMean(name, FUNCTIONS)
                                 + "; functions: " + String.join(", ", FUNCTIONS));
                     }
+                    deeper(pos);
                     pos++;
                     List<Node> args = new ArrayList<>();
                     args.add(sum());
@@ -329,6 +374,7 @@ public final class Expression {
                         throw new ExpressionException(pos, "missing ')' after the arguments of " + name);
                     }
                     pos++;
+                    depth--;
                     return unitAfter(new Call(name, args, start));
                 }
                 if (FUNCTIONS.contains(name)) {
@@ -357,8 +403,8 @@ public final class Expression {
                 return new WithUnit(value, name, start);
             }
             String hint = Suggest.closest(name, Units.all().keySet())
-                    .map(u -> "unknown unit '" + name + "' (did you mean '" + u + "'?)")
-                    .orElse("'" + name + "' is not a unit");
+                    .map(u -> "unknown unit '" + Suggest.shown(name) + "' (did you mean '" + u + "'?)")
+                    .orElse("'" + Suggest.shown(name) + "' is not a unit");
             throw new ExpressionException(start, hint + "; units: " + String.join(", ", Units.all().keySet())
                     + " (to multiply by a parameter write '*')");
         }

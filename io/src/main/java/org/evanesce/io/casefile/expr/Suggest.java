@@ -32,6 +32,11 @@ public final class Suggest {
         return related && bestDistance <= limit && !best.equals(word) ? Optional.of(best) : Optional.empty();
     }
 
+    /** Text for a message: itself up to 60 characters, else its start and its length. */
+    public static String shown(String text) {
+        return text.length() <= 60 ? text : text.substring(0, 50) + "... (" + text.length() + " characters)";
+    }
+
     /** " (did you mean 'x'?)" or the empty string. */
     public static String didYouMean(String word, Collection<String> candidates) {
         return closest(word, candidates).map(s -> " (did you mean '" + s + "'?)").orElse("");

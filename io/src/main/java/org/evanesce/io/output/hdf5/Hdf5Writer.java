@@ -4,20 +4,15 @@ import io.jhdf.HdfFile;
 import io.jhdf.WritableHdfFile;
 import io.jhdf.api.WritableDataset;
 import java.io.IOException;
-import java.nio.channels.FileChannel;
-import java.nio.file.AtomicMoveNotSupportedException;
-import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.FileSystemException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
-import java.nio.file.StandardOpenOption;
 import java.util.Arrays;
 import java.util.HashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
-import java.util.concurrent.ThreadLocalRandom;
+import org.evanesce.io.output.SafeFiles;
 
 /**
  * Writes 2D field datasets to one HDF5 file with jhdf, atomically.
@@ -32,8 +27,9 @@ import java.util.concurrent.ThreadLocalRandom;
  * its version.
  *
  * <p>Atomicity: the file is written under a temporary name in the target's folder
- * ({@code .NAME.RANDOM.tmp}), flushed to disk after jhdf has closed it, and only then renamed to
- * the target, replacing an existing file there. On any failure the temporary is deleted and the
+ * ({@code .NAME.HOST-PID-RANDOM.tmp}, created new without following links, {@link SafeFiles}),
+ * flushed to disk after jhdf has closed it, and only then renamed to the target, replacing an
+ * existing file there. On any failure the temporary is deleted and the
  * target is left as it was. Everything that can be checked is checked before the temporary is
  * created. The target's folder must exist.
  */
@@ -91,7 +87,7 @@ public final class Hdf5Writer {
         if (Files.isDirectory(abs)) {
             throw new FileSystemException(abs.toString(), null, "is a folder; an HDF5 file cannot replace it");
         }
-        Path tmp = createTemporary(dir, abs.getFileName().toString());
+        Path tmp = SafeFiles.newTemporary(abs);
         try {
             try (WritableHdfFile file = HdfFile.write(tmp)) {
                 for (Map.Entry<String, Object> e : root.entrySet()) {
@@ -105,41 +101,37 @@ public final class Hdf5Writer {
                     }
                 }
             }
-            try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE)) {
-                ch.force(true);
-            }
             beforeRename.accept(tmp);
+            SafeFiles.commit(tmp, abs);
+        } catch (IOException e) {
+            IOException named = SafeFiles.naming(e, tmp, abs);
             try {
-                Files.move(tmp, abs, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
-            } catch (AtomicMoveNotSupportedException e) {
-                Files.move(tmp, abs, StandardCopyOption.REPLACE_EXISTING);
+                Files.deleteIfExists(tmp);
+            } catch (IOException suppressed) {
+                named.addSuppressed(suppressed);
             }
-        } catch (IOException | RuntimeException | Error e) {
+            throw named;
+        } catch (RuntimeException | Error e) {
             try {
                 Files.deleteIfExists(tmp);
             } catch (IOException suppressed) {
                 e.addSuppressed(suppressed);
             }
             if (e instanceof RuntimeException && !(e instanceof IllegalArgumentException)) {
-                // jhdf reports its write failures unchecked (HdfWritingException)
-                throw new IOException("writing HDF5 file " + abs + " failed: " + e.getMessage(), e);
+                // jhdf reports its write failures unchecked (HdfWritingException), the system's error inside
+                for (Throwable c = e.getCause(); c != null; c = c.getCause()) {
+                    if (c instanceof IOException io) {
+                        IOException named = SafeFiles.naming(io, tmp, abs);
+                        named.addSuppressed(e);
+                        throw named;
+                    }
+                }
+                FileSystemException f = new FileSystemException(abs.toString(), null, "writing the HDF5 file failed: "
+                        + e.getMessage());
+                f.initCause(e);
+                throw f;
             }
             throw e;
-        }
-    }
-
-    /** Creates an empty, new temporary file beside the target; jhdf then writes into it. */
-    private static Path createTemporary(Path dir, String name) throws IOException {
-        for (int attempt = 0; ; attempt++) {
-            Path tmp = dir.resolve("." + name + "." + Long.toHexString(ThreadLocalRandom.current().nextLong()) + ".tmp");
-            try {
-                Files.newByteChannel(tmp, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE).close();
-                return tmp;
-            } catch (FileAlreadyExistsException e) {
-                if (attempt >= 10) {
-                    throw e;
-                }
-            }
         }
     }
 

@@ -469,9 +469,9 @@ public final class LinePlot {
             return this;
         }
 
-        /** The title line; empty (the default) for none. */
+        /** The title line (the first line of the text, cut to {@link PixelFont#MAX_TITLE_CHARACTERS}); empty (the default) for none. */
         public Builder title(String text) {
-            title = text == null ? "" : text.strip();
+            title = PixelFont.titleLine(text);
             return this;
         }
 

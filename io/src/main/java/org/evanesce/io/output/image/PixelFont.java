@@ -158,6 +158,18 @@ public final class PixelFont {
         return GLYPHS.containsKey(c);
     }
 
+    /** The most characters a title line keeps: a picture's width must not follow a case's title (any length). */
+    public static final int MAX_TITLE_CHARACTERS = 120;
+
+    /** {@code text}'s first line, stripped, cut to {@link #MAX_TITLE_CHARACTERS} with "..." at the cut; "" for null. */
+    public static String titleLine(String text) {
+        if (text == null) {
+            return "";
+        }
+        String line = text.strip().lines().findFirst().orElse("").strip();
+        return line.length() <= MAX_TITLE_CHARACTERS ? line : line.substring(0, MAX_TITLE_CHARACTERS - 3) + "...";
+    }
+
     /** Width in image pixels of {@code text} at the given scale: no trailing gap; 0 when empty. */
     public static int width(String text, int scale) {
         int n = text.length();

@@ -13,6 +13,7 @@ import java.util.List;
 import java.util.concurrent.TimeUnit;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.evanesce.io.ToolPath;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -23,8 +24,10 @@ import org.junit.jupiter.api.io.TempDir;
  */
 class Hdf5IndependentReaderTest {
 
-    static final Path H5DUMP = Path.of("/usr/bin/h5dump");
-    static final Path PYTHON = Path.of("/usr/bin/python3");
+    /** h5dump on the PATH (null when none). */
+    static final Path H5DUMP = ToolPath.find("h5dump").orElse(null);
+    /** The first python3 on the PATH with h5py and numpy (null when none). */
+    static final Path PYTHON = ToolPath.python3With("h5py, numpy").orElse(null);
     static final int NX = Hdf5WriterTest.NX;
     static final int NY = Hdf5WriterTest.NY;
 
@@ -33,7 +36,7 @@ class Hdf5IndependentReaderTest {
 
     @Test
     void h5dumpShowsTheTypesAndShapes() throws Exception {
-        assumeTrue(Files.isExecutable(H5DUMP), "h5dump not found at /usr/bin/h5dump: install Debian's hdf5-tools");
+        assumeTrue(H5DUMP != null, "h5dump not found on the PATH: install Debian's hdf5-tools");
         Path f = tmp.resolve("frame.h5");
         Hdf5Writer.write(f, Hdf5WriterTest.rootAttributes(), Hdf5WriterTest.sampleDatasets());
         Result r = run(List.of(H5DUMP.toString(), "-H", f.toString()));
@@ -172,8 +175,8 @@ class Hdf5IndependentReaderTest {
     }
 
     private static void assumeH5py() throws Exception {
-        assumeTrue(Files.isExecutable(PYTHON) && run(List.of(PYTHON.toString(), "-c", "import h5py, numpy")).code == 0,
-                "h5py not importable by /usr/bin/python3: install Debian's python3-h5py and python3-numpy");
+        assumeTrue(PYTHON != null, "no python3 on the PATH imports h5py and numpy: install Debian's python3-h5py and "
+                + "python3-numpy");
     }
 
     private record Result(int code, String output) {

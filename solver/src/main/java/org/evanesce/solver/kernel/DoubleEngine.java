@@ -1,0 +1,203 @@
+package org.evanesce.solver.kernel;
+
+import java.util.Map;
+import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.solver.boundary.Boundary;
+import org.evanesce.solver.boundary.PmlProfile;
+import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.grid.Side;
+
+/**
+ * What the single-precision engines share: the three field arrays of a polarization, the
+ * electric coefficients, the CPML strips, and everything that only looks values up (get and set,
+ * sources, the flush, bytes, checkpoint state). {@link DoubleS} and {@link DoubleP} hold only what
+ * differs: the order of the updates and the energy. Arrays are laid out as {@link Layout} says.
+ * Generated from {@link FloatEngine} by tools/regen-double-kernels.sh: edit that file, not this one.
+ */
+abstract class DoubleEngine extends Engine {
+
+    /** The Courant number s = c0Δt/Δ in this precision. */
+    final double s;
+    /** Field, cb and ca arrays by {@link Component#ordinal()}: null where absent (ca of a lossless site). */
+    private final double[][] field, cbOf, caOf;
+    /** The polarization's fields in {@link Polarization#components()} order; its magnetic and electric ones. */
+    private final double[][] fields, magnetic, electric;
+    private final Polarization pol;
+    /** CPML strips on the x sides (widened to whole vectors) and the y sides, as {@link Layout} says. */
+    final DoubleStrip[] xs, ys;
+
+    /** Arrays for grid's cells with ca and cb of each of its materials (see {@link Engine#create}). */
+    DoubleEngine(MaterialGrid grid, Polarization pol, double courant, double[] materialCa, double[] materialCb,
+            Map<Side, Boundary> sides) {
+        super(grid.nx(), grid.ny(), courant, sides);
+        this.pol = pol;
+        s = courant;
+        Layout layout = new Layout(nx, ny, pol, Double.BYTES, DoubleKernels.SP.length());
+        Component[] comps = pol.components();
+        Component[] el = layout.electric();
+        int nc = Component.values().length;
+        field = new double[nc][];
+        cbOf = new double[nc][];
+        caOf = new double[nc][];
+        double[][][] c = new double[nc][][];
+        for (Component e : el) {
+            c[e.ordinal()] = coefficients(grid, site(e), materialCa, materialCb);
+        }
+        int len = layout.length();
+        // allocated one after the other with staggered lengths (see Engine.staggeredLength), with
+        // nothing else allocated between them: the fields, then cb, then ca, each in the polarization's order
+        for (Component q : comps) {
+            field[q.ordinal()] = new double[len];
+        }
+        for (Component e : el) {
+            cbOf[e.ordinal()] = toDouble(c[e.ordinal()][1], len);
+        }
+        for (Component e : el) {
+            caOf[e.ordinal()] = Engine.allOnes(c[e.ordinal()][0]) ? null : toDouble(c[e.ordinal()][0], len);
+        }
+        fields = arrays(comps);
+        magnetic = arrays(layout.magnetic());
+        electric = arrays(el);
+        xs = new DoubleStrip[xProfiles.length];
+        for (int q = 0; q < xs.length; q++) {
+            PmlProfile p = xProfiles[q].padded(layout.xStripWidth(xProfiles[q].layers), nx);
+            xs[q] = new DoubleStrip(p, layout.xPsiLength(p.width));
+        }
+        ys = new DoubleStrip[yProfiles.length];
+        for (int q = 0; q < ys.length; q++) {
+            ys[q] = new DoubleStrip(yProfiles[q], layout.yPsiLength(yProfiles[q].layers));
+        }
+    }
+
+    private double[][] arrays(Component[] comps) {
+        double[][] out = new double[comps.length][];
+        for (int q = 0; q < comps.length; q++) {
+            out[q] = field[comps[q].ordinal()];
+        }
+        return out;
+    }
+
+    /** The values of {@code a} in an array of {@code length} ≥ a.length values (zeros after them). */
+    static double[] toDouble(double[] a, int length) {
+        double[] f = new double[length];
+        for (int i = 0; i < a.length; i++) {
+            f[i] = a[i];
+        }
+        return f;
+    }
+
+    /** The field array of component c. */
+    final double[] field(Component c) {
+        double[] f = field[c.ordinal()];
+        if (f == null) {
+            throw new IllegalArgumentException(c + " is not one of the " + pol + " polarization's components "
+                    + java.util.Arrays.toString(pol.components()));
+        }
+        return f;
+    }
+
+    /** cb of electric component c. */
+    final double[] cb(Component c) {
+        return cbOf[c.ordinal()];
+    }
+
+    /** ca of electric component c, or null where every cell of its site is lossless (ca = 1). */
+    final double[] ca(Component c) {
+        return caOf[c.ordinal()];
+    }
+
+    @Override
+    protected void addSource(Component c, int k, double v) {
+        double[] f = field(c);
+        if (c.electric) {
+            f[k] -= (cbOf[c.ordinal()][k] * v);
+        } else {
+            f[k] -= (s * v);
+        }
+    }
+
+    @Override
+    protected double flushH(int j) {
+        return flush(magnetic, j);
+    }
+
+    @Override
+    protected double flushE(int j) {
+        return flush(electric, j);
+    }
+
+    private double flush(double[][] arrays, int j) {
+        int r = j * nx;
+        double max = 0;
+        for (double[] a : arrays) {
+            max = Math.max(max, DoubleKernels.flush(a, r, r + nx));
+        }
+        return max;
+    }
+
+    @Override
+    public double get(Component c, int k) {
+        return field(c)[k];
+    }
+
+    @Override
+    public void set(Component c, int k, double v) {
+        field(c)[k] = v;
+    }
+
+    /** Counts the arrays actually held; {@link Engine#footprint} must give the same figure (arrays + pml). */
+    @Override
+    public long bytes() {
+        long values = 0;
+        for (double[][] byComponent : new double[][][] {field, cbOf, caOf}) {
+            for (double[] a : byComponent) {
+                values += a == null ? 0 : a.length;
+            }
+        }
+        for (DoubleStrip x : xs) {
+            values += x.values();
+        }
+        for (DoubleStrip y : ys) {
+            values += y.values();
+        }
+        return values * Double.BYTES + seamBytes();
+    }
+
+    @Override
+    public int bytesPerCell() {
+        int arrays = 0;
+        for (double[][] byComponent : new double[][][] {field, cbOf, caOf}) {
+            for (double[] a : byComponent) {
+                arrays += a == null ? 0 : 1;
+            }
+        }
+        return arrays * Double.BYTES;
+    }
+
+    @Override
+    public void writeState(java.io.DataOutput out) throws java.io.IOException {
+        for (double[] f : fields) {
+            StateIO.write(out, f);
+        }
+        for (DoubleStrip x : xs) {
+            x.writeState(out);
+        }
+        for (DoubleStrip y : ys) {
+            y.writeState(out);
+        }
+    }
+
+    @Override
+    public void readState(java.io.DataInput in) throws java.io.IOException {
+        for (double[] f : fields) {
+            StateIO.read(in, f);
+        }
+        for (DoubleStrip x : xs) {
+            x.readState(in);
+        }
+        for (DoubleStrip y : ys) {
+            y.readState(in);
+        }
+    }
+}

@@ -1,0 +1,203 @@
+package org.evanesce.solver.kernel;
+
+import java.util.Map;
+import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.solver.boundary.Boundary;
+import org.evanesce.solver.boundary.PmlProfile;
+import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.grid.Side;
+
+/**
+ * What the single-precision engines share: the three field arrays of a polarization, the
+ * electric coefficients, the CPML strips, and everything that only looks values up (get and set,
+ * sources, the flush, bytes, checkpoint state). {@link FloatS} and {@link FloatP} hold only what
+ * differs: the order of the updates and the energy. Arrays are laid out as {@link Layout} says.
+ * Edit this file; {@link DoubleEngine} is generated from it (tools/regen-double-kernels.sh).
+ */
+abstract class FloatEngine extends Engine {
+
+    /** The Courant number s = c0Δt/Δ in this precision. */
+    final float s;
+    /** Field, cb and ca arrays by {@link Component#ordinal()}: null where absent (ca of a lossless site). */
+    private final float[][] field, cbOf, caOf;
+    /** The polarization's fields in {@link Polarization#components()} order; its magnetic and electric ones. */
+    private final float[][] fields, magnetic, electric;
+    private final Polarization pol;
+    /** CPML strips on the x sides (widened to whole vectors) and the y sides, as {@link Layout} says. */
+    final FloatStrip[] xs, ys;
+
+    /** Arrays for grid's cells with ca and cb of each of its materials (see {@link Engine#create}). */
+    FloatEngine(MaterialGrid grid, Polarization pol, double courant, double[] materialCa, double[] materialCb,
+            Map<Side, Boundary> sides) {
+        super(grid.nx(), grid.ny(), courant, sides);
+        this.pol = pol;
+        s = (float) courant;
+        Layout layout = new Layout(nx, ny, pol, Float.BYTES, FloatKernels.SP.length());
+        Component[] comps = pol.components();
+        Component[] el = layout.electric();
+        int nc = Component.values().length;
+        field = new float[nc][];
+        cbOf = new float[nc][];
+        caOf = new float[nc][];
+        double[][][] c = new double[nc][][];
+        for (Component e : el) {
+            c[e.ordinal()] = coefficients(grid, site(e), materialCa, materialCb);
+        }
+        int len = layout.length();
+        // allocated one after the other with staggered lengths (see Engine.staggeredLength), with
+        // nothing else allocated between them: the fields, then cb, then ca, each in the polarization's order
+        for (Component q : comps) {
+            field[q.ordinal()] = new float[len];
+        }
+        for (Component e : el) {
+            cbOf[e.ordinal()] = toFloat(c[e.ordinal()][1], len);
+        }
+        for (Component e : el) {
+            caOf[e.ordinal()] = Engine.allOnes(c[e.ordinal()][0]) ? null : toFloat(c[e.ordinal()][0], len);
+        }
+        fields = arrays(comps);
+        magnetic = arrays(layout.magnetic());
+        electric = arrays(el);
+        xs = new FloatStrip[xProfiles.length];
+        for (int q = 0; q < xs.length; q++) {
+            PmlProfile p = xProfiles[q].padded(layout.xStripWidth(xProfiles[q].layers), nx);
+            xs[q] = new FloatStrip(p, layout.xPsiLength(p.width));
+        }
+        ys = new FloatStrip[yProfiles.length];
+        for (int q = 0; q < ys.length; q++) {
+            ys[q] = new FloatStrip(yProfiles[q], layout.yPsiLength(yProfiles[q].layers));
+        }
+    }
+
+    private float[][] arrays(Component[] comps) {
+        float[][] out = new float[comps.length][];
+        for (int q = 0; q < comps.length; q++) {
+            out[q] = field[comps[q].ordinal()];
+        }
+        return out;
+    }
+
+    /** The values of {@code a} in an array of {@code length} ≥ a.length values (zeros after them). */
+    static float[] toFloat(double[] a, int length) {
+        float[] f = new float[length];
+        for (int i = 0; i < a.length; i++) {
+            f[i] = (float) a[i];
+        }
+        return f;
+    }
+
+    /** The field array of component c. */
+    final float[] field(Component c) {
+        float[] f = field[c.ordinal()];
+        if (f == null) {
+            throw new IllegalArgumentException(c + " is not one of the " + pol + " polarization's components "
+                    + java.util.Arrays.toString(pol.components()));
+        }
+        return f;
+    }
+
+    /** cb of electric component c. */
+    final float[] cb(Component c) {
+        return cbOf[c.ordinal()];
+    }
+
+    /** ca of electric component c, or null where every cell of its site is lossless (ca = 1). */
+    final float[] ca(Component c) {
+        return caOf[c.ordinal()];
+    }
+
+    @Override
+    protected void addSource(Component c, int k, double v) {
+        float[] f = field(c);
+        if (c.electric) {
+            f[k] -= (float) (cbOf[c.ordinal()][k] * v);
+        } else {
+            f[k] -= (float) (s * v);
+        }
+    }
+
+    @Override
+    protected double flushH(int j) {
+        return flush(magnetic, j);
+    }
+
+    @Override
+    protected double flushE(int j) {
+        return flush(electric, j);
+    }
+
+    private double flush(float[][] arrays, int j) {
+        int r = j * nx;
+        double max = 0;
+        for (float[] a : arrays) {
+            max = Math.max(max, FloatKernels.flush(a, r, r + nx));
+        }
+        return max;
+    }
+
+    @Override
+    public double get(Component c, int k) {
+        return field(c)[k];
+    }
+
+    @Override
+    public void set(Component c, int k, double v) {
+        field(c)[k] = (float) v;
+    }
+
+    /** Counts the arrays actually held; {@link Engine#footprint} must give the same figure (arrays + pml). */
+    @Override
+    public long bytes() {
+        long values = 0;
+        for (float[][] byComponent : new float[][][] {field, cbOf, caOf}) {
+            for (float[] a : byComponent) {
+                values += a == null ? 0 : a.length;
+            }
+        }
+        for (FloatStrip x : xs) {
+            values += x.values();
+        }
+        for (FloatStrip y : ys) {
+            values += y.values();
+        }
+        return values * Float.BYTES + seamBytes();
+    }
+
+    @Override
+    public int bytesPerCell() {
+        int arrays = 0;
+        for (float[][] byComponent : new float[][][] {field, cbOf, caOf}) {
+            for (float[] a : byComponent) {
+                arrays += a == null ? 0 : 1;
+            }
+        }
+        return arrays * Float.BYTES;
+    }
+
+    @Override
+    public void writeState(java.io.DataOutput out) throws java.io.IOException {
+        for (float[] f : fields) {
+            StateIO.write(out, f);
+        }
+        for (FloatStrip x : xs) {
+            x.writeState(out);
+        }
+        for (FloatStrip y : ys) {
+            y.writeState(out);
+        }
+    }
+
+    @Override
+    public void readState(java.io.DataInput in) throws java.io.IOException {
+        for (float[] f : fields) {
+            StateIO.read(in, f);
+        }
+        for (FloatStrip x : xs) {
+            x.readState(in);
+        }
+        for (FloatStrip y : ys) {
+            y.readState(in);
+        }
+    }
+}
