@@ -124,8 +124,9 @@ class TeamSizeTest {
 
     @Test
     void differencesInsideTheHysteresisBandMoveNothing() {
-        // two threads 1.10 times one: kept when there (above 1.05), not returned to from one (below 1.15)
-        Machine between = new Machine(1.10, 0.5, 1.0);
+        // two threads 0.85 times one: kept when there (one thread is not 1.25 times as fast), not
+        // returned to from one (two are not 1.15 times as fast)
+        Machine between = new Machine(0.85, 0.5, 1.0);
         TeamSize atTwo = new TeamSize(2, true);
         List<Integer> ran = run(atTwo, between, 300);
         assertEquals(2, atTwo.threads(), "stays at two threads");
