@@ -85,4 +85,23 @@ class MainTest {
         }
         assertTrue(lines[1].startsWith("48,s,float,1,1,") && lines[2].startsWith("64,s,float,1,1,"), o::toString);
     }
+
+    @Test
+    void benchInterleavedTimesEveryCase() {
+        Cli.Outcome o = Cli.run("bench", "--csv", "--interleave", "--size", "64", "--threads", "1", "--threads", "2",
+                "--min-cells-per-thread", "64", "--seconds", "0.05", "--warm-up", "0", "--repeats", "3");
+        assertEquals(Main.OK, o.code(), o::toString);
+        String[] lines = o.out().split("\\R");
+        assertEquals(3, lines.length, o::toString);
+        assertTrue(lines[1].startsWith("64,s,float,1,1,") && lines[2].startsWith("64,s,float,2,2,"), o::toString);
+        String[] head = lines[0].split(",");
+        int repeats = java.util.Arrays.asList(head).indexOf("repeats");
+        int fewer = java.util.Arrays.asList(head).indexOf("fewer_threads_percent");
+        for (int r = 1; r < lines.length; r++) {
+            String[] cells = lines[r].split(",");
+            assertEquals("3", cells[repeats], o::toString);
+            double f = Double.parseDouble(cells[fewer]);
+            assertTrue(f >= 0 && f <= 100, o::toString);
+        }
+    }
 }

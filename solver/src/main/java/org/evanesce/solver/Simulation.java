@@ -334,9 +334,20 @@ public final class Simulation implements StepView, AutoCloseable {
         return Engine.vectorBits();
     }
 
-    /** Number of threads actually stepping (small grids run on one). */
+    /**
+     * Number of threads that step (small grids run on one). While the machine is busy with other
+     * work the team may step on fewer for a while (see {@link #stepsOnFewerThreads}).
+     */
     public int threads() {
         return team.threads();
+    }
+
+    /**
+     * Steps so far that ran on fewer threads than {@link #threads()}: the team measured that fewer
+     * threads stepped faster (cores taken by other work), or was trying whether they would.
+     */
+    public long stepsOnFewerThreads() {
+        return team.stepsOnFewerThreads();
     }
 
     @Override

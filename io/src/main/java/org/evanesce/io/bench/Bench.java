@@ -2,7 +2,9 @@ package org.evanesce.io.bench;
 
 import java.lang.management.CompilationMXBean;
 import java.lang.management.ManagementFactory;
+import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.List;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.solver.PhysicalConstants;
@@ -104,51 +106,91 @@ public final class Bench {
      * {@link #SETTLED_TOLERANCE}; but no longer than {@link #maxWarmUpSeconds}.
      */
     public static BenchResult measure(BenchCase c, Timing t) {
+        return measureInterleaved(List.of(c), t).get(0);
+    }
+
+    /**
+     * Builds and warms up every case (each as {@link #measure} does), then times their repeats in
+     * turn: repeat 1 of every case, then repeat 2 of every case, and so on, with every case's
+     * simulation held in memory. On a machine whose speed drifts (other work starting or stopping)
+     * the drift then reaches every case alike, so their rates compare.
+     */
+    public static List<BenchResult> measureInterleaved(List<BenchCase> cases, Timing t) {
+        List<Simulation> sims = new ArrayList<>();
+        try {
+            List<WarmUp> warm = new ArrayList<>();
+            for (BenchCase c : cases) {
+                Simulation sim = simulation(c);
+                sims.add(sim);
+                warm.add(warmUp(sim, t));
+            }
+            int n = cases.size();
+            long[] perRepeat = new long[n];
+            long[] fewer0 = new long[n];
+            double[][] rate = new double[n][t.repeats()];
+            for (int k = 0; k < n; k++) {
+                perRepeat[k] = Math.max(1, Math.round(t.seconds() / t.repeats() / warm.get(k).stepSeconds()));
+                fewer0[k] = sims.get(k).stepsOnFewerThreads();
+            }
+            for (int r = 0; r < t.repeats(); r++) {
+                for (int k = 0; k < n; k++) {
+                    long t0 = System.nanoTime();
+                    sims.get(k).run(perRepeat[k]);
+                    long elapsed = Math.max(1, System.nanoTime() - t0);
+                    rate[k][r] = cases.get(k).cells() * perRepeat[k] / (elapsed * 1e-9);
+                }
+            }
+            List<BenchResult> out = new ArrayList<>();
+            for (int k = 0; k < n; k++) {
+                double[] x = rate[k];
+                Arrays.sort(x);
+                int m = x.length / 2;
+                double median = x.length % 2 == 1 ? x[m] : 0.5 * (x[m - 1] + x[m]);
+                Simulation sim = sims.get(k);
+                out.add(new BenchResult(cases.get(k), sim.threads(), warm.get(k).seconds(), warm.get(k).settled(), perRepeat[k],
+                        x.length, median, x[0], x[x.length - 1], sim.bytesPerCell(), sim.bytes(),
+                        (sim.stepsOnFewerThreads() - fewer0[k]) / (double) (perRepeat[k] * x.length)));
+            }
+            return out;
+        } finally {
+            for (Simulation sim : sims) {
+                sim.close();
+            }
+        }
+    }
+
+    /** A finished warm-up: its length in seconds, whether it settled, and the last chunk's seconds per step. */
+    private record WarmUp(double seconds, boolean settled, double stepSeconds) {
+    }
+
+    private static WarmUp warmUp(Simulation sim, Timing t) {
         CompilationMXBean jit = ManagementFactory.getCompilationMXBean();
         boolean jitVisible = jit != null && jit.isCompilationTimeMonitoringSupported();
-        try (Simulation sim = simulation(c)) {
-            double chunk = Math.max(MIN_CHUNK_SECONDS, t.warmUpSeconds() / 5);
-            double cap = maxWarmUpSeconds(t);
-            long start = System.nanoTime();
-            double previous = Double.NaN;
-            boolean previousQuiet = false;
-            double stepSeconds;
-            boolean settled;
-            while (true) {
-                long jit0 = jitVisible ? jit.getTotalCompilationTime() : 0;
-                long c0 = System.nanoTime();
-                long steps = 0;
-                do {
-                    sim.step();
-                    steps++;
-                } while ((System.nanoTime() - c0) * 1e-9 < chunk);
-                double chunkSeconds = (System.nanoTime() - c0) * 1e-9;
-                stepSeconds = chunkSeconds / steps;
-                boolean quiet = !jitVisible
-                        || (jit.getTotalCompilationTime() - jit0) * 1e-3 <= JIT_QUIET_FRACTION * chunkSeconds;
-                double elapsed = (System.nanoTime() - start) * 1e-9;
-                settled = quiet && previousQuiet
-                        && Math.abs(stepSeconds - previous) <= SETTLED_TOLERANCE * Math.max(stepSeconds, previous);
-                if (elapsed >= t.warmUpSeconds() && settled || elapsed >= cap) {
-                    break;
-                }
-                previous = stepSeconds;
-                previousQuiet = quiet;
+        double chunk = Math.max(MIN_CHUNK_SECONDS, t.warmUpSeconds() / 5);
+        double cap = maxWarmUpSeconds(t);
+        long start = System.nanoTime();
+        double previous = Double.NaN;
+        boolean previousQuiet = false;
+        while (true) {
+            long jit0 = jitVisible ? jit.getTotalCompilationTime() : 0;
+            long c0 = System.nanoTime();
+            long steps = 0;
+            do {
+                sim.step();
+                steps++;
+            } while ((System.nanoTime() - c0) * 1e-9 < chunk);
+            double chunkSeconds = (System.nanoTime() - c0) * 1e-9;
+            double stepSeconds = chunkSeconds / steps;
+            boolean quiet = !jitVisible
+                    || (jit.getTotalCompilationTime() - jit0) * 1e-3 <= JIT_QUIET_FRACTION * chunkSeconds;
+            double elapsed = (System.nanoTime() - start) * 1e-9;
+            boolean settled = quiet && previousQuiet
+                    && Math.abs(stepSeconds - previous) <= SETTLED_TOLERANCE * Math.max(stepSeconds, previous);
+            if (elapsed >= t.warmUpSeconds() && settled || elapsed >= cap) {
+                return new WarmUp((System.nanoTime() - start) * 1e-9, settled, stepSeconds);
             }
-            double warmUp = (System.nanoTime() - start) * 1e-9;
-            long perRepeat = Math.max(1, Math.round(t.seconds() / t.repeats() / stepSeconds));
-            double[] rate = new double[t.repeats()];
-            for (int r = 0; r < rate.length; r++) {
-                long t0 = System.nanoTime();
-                sim.run(perRepeat);
-                long elapsed = Math.max(1, System.nanoTime() - t0);
-                rate[r] = c.cells() * perRepeat / (elapsed * 1e-9);
-            }
-            Arrays.sort(rate);
-            int m = rate.length / 2;
-            double median = rate.length % 2 == 1 ? rate[m] : 0.5 * (rate[m - 1] + rate[m]);
-            return new BenchResult(c, sim.threads(), warmUp, settled, perRepeat, rate.length, median, rate[0],
-                    rate[rate.length - 1], sim.bytesPerCell(), sim.bytes());
+            previous = stepSeconds;
+            previousQuiet = quiet;
         }
     }
 }

@@ -16,10 +16,13 @@ package org.evanesce.io.bench;
  * @param fastest       the fastest repeat's cell updates per second
  * @param bytesPerCell  bytes of the arrays spanning the whole grid, per cell (Simulation.bytesPerCell)
  * @param bytes         bytes of field, coefficient and CPML arrays held by the run (Simulation.bytes)
+ * @param fewerThreads  fraction of the timed steps that ran on fewer threads than {@code threadsUsed}
+ *                      (the solver measured that fewer were faster: cores taken by other work)
  */
 public record BenchResult(BenchCase benchCase, int threadsUsed, double warmUpSeconds, boolean settled,
                           long stepsPerRepeat, int repeats,
-                          double cellsPerSecond, double slowest, double fastest, int bytesPerCell, long bytes) {
+                          double cellsPerSecond, double slowest, double fastest, int bytesPerCell, long bytes,
+                          double fewerThreads) {
 
     /** Median cell updates per second, in millions. */
     public double megacellsPerSecond() {

@@ -77,6 +77,11 @@ public final class BenchCommand implements Callable<Integer> {
     @Option(names = "--csv", description = "Print CSV (one header row) instead of a table.")
     private boolean csv;
 
+    @Option(names = "--interleave", description = "Warm up every case first, then time the cases' repeats in turn "
+            + "(repeat 1 of each, repeat 2 of each, ...), all held in memory at once: on a machine whose speed drifts "
+            + "(other work starting or stopping) the cases then compare, e.g. one thread against all.")
+    private boolean interleave;
+
     @Override
     public Integer call() {
         if (!MachineInfo.vectorModuleLoaded()) {
@@ -93,16 +98,28 @@ public final class BenchCommand implements Callable<Integer> {
         MachineInfo machine = MachineInfo.current();
         BenchReport report = new BenchReport(spec.commandLine().getOut(),
                 csv ? BenchReport.Format.CSV : BenchReport.Format.TABLE, machine);
-        report.header(VersionProvider.version(), timing, cases.size());
-        for (BenchCase c : cases) {
+        report.header(VersionProvider.version(), timing, cases.size(), interleave);
+        if (interleave) {
             try {
-                report.row(Bench.measure(c, timing));
+                Bench.measureInterleaved(cases, timing).forEach(report::row);
             } catch (OutOfMemoryError e) {
+                long cells = cases.stream().mapToLong(BenchCase::cells).sum();
                 throw new RunFailedException(String.format(
-                        "a %d x %d %s grid does not fit in the Java heap (max %d MiB); "
-                                + "give the JVM more, e.g. JAVA_OPTS=-Xmx16g, or bench a smaller --size",
-                        c.size(), c.size(), c.precision().name().toLowerCase(java.util.Locale.ROOT),
-                        machine.maxHeapBytes() >> 20), e);
+                        "the %d cases' grids (%d cells together) do not fit in the Java heap at once (max %d MiB); "
+                                + "give the JVM more, e.g. JAVA_OPTS=-Xmx16g, or interleave fewer or smaller cases",
+                        cases.size(), cells, machine.maxHeapBytes() >> 20), e);
+            }
+        } else {
+            for (BenchCase c : cases) {
+                try {
+                    report.row(Bench.measure(c, timing));
+                } catch (OutOfMemoryError e) {
+                    throw new RunFailedException(String.format(
+                            "a %d x %d %s grid does not fit in the Java heap (max %d MiB); "
+                                    + "give the JVM more, e.g. JAVA_OPTS=-Xmx16g, or bench a smaller --size",
+                            c.size(), c.size(), c.precision().name().toLowerCase(java.util.Locale.ROOT),
+                            machine.maxHeapBytes() >> 20), e);
+                }
             }
         }
         report.footer();

@@ -1,19 +1,34 @@
 package org.evanesce.solver.parallel;
 
+import java.util.concurrent.atomic.AtomicInteger;
 import java.util.concurrent.atomic.AtomicReference;
+import java.util.concurrent.locks.LockSupport;
+import java.util.function.LongSupplier;
 
 /**
  * Persistent worker threads that split rows into bands and run a two-phase step on them, with
  * one barrier between the phases and one hand-over to the calling thread after the step
  * (DESIGN.md: the same workers for the whole run, no task submission per step). The calling
- * thread is worker 0; band b covers rows [start(b), start(b+1)).
+ * thread is worker 0; band b covers rows [bandStart(b), bandStart(b + 1)).
  *
- * <p>The bands start equal and are then balanced by measurement: each band times its own work
- * (not its waits), and every {@link #BALANCE_NANOS} or so the caller moves the boundaries halfway
- * towards the split at which every band would take the same time. On shared machines one core is
- * often slower than the other for seconds at a time (interrupts, other tenants); equal bands then
- * leave the fast thread waiting at every barrier. The split never changes results: every row is
- * updated by the same code whichever band holds it.
+ * <p>Waiting threads spin for a short budget and then park ({@link SpinThenPark}), so that on a
+ * busy machine they do not take the cores that late threads need.
+ *
+ * <p>The team measures itself in windows of about {@link #WINDOW_NANOS} of stepping (the caller's
+ * clock, from the start to the end of each {@link #step}; at least {@link #MIN_WINDOW_STEPS} steps):
+ * <ul>
+ * <li>How many threads step: {@link TeamSize} compares the step rates of adjacent windows and runs
+ *     on fewer threads (down to the caller alone) while fewer are faster, as on a machine whose
+ *     cores are taken by other work; the workers left out park until they are needed again.</li>
+ * <li>Where the bands lie: each band times its own work (not its waits), and at the end of a
+ *     window the boundaries move halfway towards the split at which every band would take the
+ *     same time. On shared machines one core is often slower than the other for seconds at a
+ *     time; equal bands then leave the fast thread waiting at every barrier.</li>
+ * <li>How long a waiting thread spins: half the window's mean step cycle, bounded
+ *     ({@link SpinThenPark#budgetFor}).</li>
+ * </ul>
+ * Neither the number of threads nor the split changes results: every row is updated by the same
+ * code whichever band and thread hold it.
  *
  * <p>A worker's exception is never swallowed: it is rethrown from {@link #step} on the caller.
  * Close the team to stop its threads.
@@ -26,21 +41,67 @@ public final class BandTeam implements AutoCloseable {
         double run(int j0, int j1, int phase);
     }
 
+    /**
+     * Stepping time per window: 20 ms spans many steps of a large grid's band and smooths over short
+     * interruptions, yet follows a slow core or a busy spell within a fraction of a second (common
+     * practice for dynamic load balancing: rebalance over windows much longer than one step, damped).
+     */
+    public static final long WINDOW_NANOS = 20_000_000;
+    /**
+     * Fewest steps in a window (unless the window length is 0, or the window tries more threads):
+     * on a machine busy enough that one step takes longer than a window, single steps varied by a
+     * factor of ten between neighbours (1024², load average 19 on 2 cores: 14–124 ms), too much to
+     * compare team sizes by. A trial of more threads ends after its first step past the window
+     * length all the same: on such a machine it mostly fails, and each of its steps waits for
+     * threads that are descheduled.
+     */
+    static final int MIN_WINDOW_STEPS = 3;
+
+    /** Developers: {@code -Devanesce.teamTrace=true} prints every window's size, rate and efficiency to standard error. */
+    private static final boolean TRACE = Boolean.getBoolean("evanesce.teamTrace");
+
+    /** A worker's hand-over: the caller raises the ticket to start the worker's next step. */
+    private static final class Gate {
+        volatile long ticket;
+        volatile Thread sleeper;
+    }
+
     private final int threads;
-    private final int[] start;
+    private final int rows;
+    private final String name;
+    /** Band starts for each number of stepping threads k (index k, created when first used; k + 1 entries). */
+    private final int[][] startFor;
     private final Thread[] workers;
+    private final Gate[] gates;
+    private final SpinThenPark waiting;
     private final SpinBarrier mid;
-    private final SpinBarrier handOver;
+    /** Workers that finished the current step; the last one wakes a parked caller. */
+    private final AtomicInteger done = new AtomicInteger();
+    private volatile Thread callerSleeping;
     private final double[] results;
-    /** Nanoseconds each band spent on its phases (waits excluded) since the last balancing; written by its own thread. */
+    /** Nanoseconds each band spent on its phases (waits excluded) in the current window; written by its own thread. */
     private final long[] busy;
-    /** Smallest band, in rows: a quarter of an equal share (at least 1). */
-    private final int minRows;
-    private final long balanceNanos;
+    private final LongSupplier clock;
+    private final long windowNanos;
+    private final TeamSize size;
     private final AtomicReference<Throwable> failure = new AtomicReference<>();
-    private volatile Phase work;
+    /** The current step's work, stepping threads and bands; written by the caller before it raises the gates. */
+    private Phase work;
+    private int active;
+    private int[] start;
     private volatile boolean closing;
     private boolean closed;
+    private long ticket;
+    /** Threads forced by a test (0: the measurements decide). */
+    private int forced;
+
+    private long windowWall;
+    private long windowSteps;
+    private long lastStepStart = Long.MIN_VALUE;
+    private long cycleSum;
+    private long cycles;
+    /** Steps run on fewer threads than the team has, for reports. */
+    private long fewerSteps;
 
     /**
      * @param rows    number of rows to split
@@ -48,107 +109,195 @@ public final class BandTeam implements AutoCloseable {
      * @param name    prefix of the worker threads' names
      */
     public BandTeam(int rows, int threads, String name) {
-        this(rows, threads, name, BALANCE_NANOS);
+        this(rows, threads, name, WINDOW_NANOS, System::nanoTime, true);
     }
 
-    /** As {@link #BandTeam(int, int, String)}, balancing after every {@code balanceNanos} of the caller's band work (tests). */
-    BandTeam(int rows, int threads, String name, long balanceNanos) {
+    /**
+     * As {@link #BandTeam(int, int, String)} with the window length, the clock that times the bands
+     * and steps, and whether the number of stepping threads adapts given (tests drive the clock; a
+     * window of 0 balances after every step). Waits always spin by the real clock.
+     */
+    BandTeam(int rows, int threads, String name, long windowNanos, LongSupplier clock, boolean adaptive) {
         if (threads < 1 || threads > rows) {
             throw new IllegalArgumentException("threads " + threads + " must lie in [1, " + rows + "]");
         }
         this.threads = threads;
-        start = new int[threads + 1];
-        int per = rows / threads;
-        for (int b = 0; b < threads; b++) {
-            start[b] = b * per;
-        }
-        start[threads] = rows;
-        minRows = Math.max(1, rows / (4 * threads));
-        this.balanceNanos = balanceNanos;
+        this.rows = rows;
+        this.name = name;
+        this.clock = clock;
+        this.windowNanos = windowNanos;
+        size = new TeamSize(threads, adaptive);
+        startFor = new int[threads + 1][];
         busy = new long[threads];
-        mid = new SpinBarrier(threads);
-        handOver = new SpinBarrier(threads);
         results = new double[threads];
-        workers = new Thread[threads - 1];
+        waiting = new SpinThenPark(System::nanoTime);
+        mid = new SpinBarrier(threads, waiting);
+        gates = new Gate[threads];
+        workers = new Thread[threads];
         for (int b = 1; b < threads; b++) {
             final int band = b;
+            gates[b] = new Gate();
             Thread t = new Thread(() -> workerLoop(band), name + "-" + b);
             t.setDaemon(true);
-            workers[b - 1] = t;
+            workers[b] = t;
             t.start();
         }
     }
 
+    /** The team's size: the most threads that step. */
     public int threads() {
         return threads;
     }
 
-    /** First row of band b, as balanced so far (the bands move during a run). */
+    /** Threads stepping in the current window (fewer than {@link #threads()} while fewer are faster). */
+    public int activeThreads() {
+        return forced > 0 ? forced : size.threads();
+    }
+
+    /** Steps so far that ran on fewer threads than the team has (the machine was busy, or trials). */
+    public long stepsOnFewerThreads() {
+        return fewerSteps;
+    }
+
+    /** First row of band b of the current step's bands (they move during a run). */
     public int bandStart(int b) {
-        return start[b];
+        return bands(activeThreads())[b];
+    }
+
+    /** Forces the number of stepping threads (a size of {@link TeamSize}'s ladder or any 1..threads); 0 lets measurements decide. Tests only. */
+    void forceThreads(int k) {
+        if (k < 0 || k > threads) {
+            throw new IllegalArgumentException("threads " + k + " must lie in [0, " + threads + "]");
+        }
+        forced = k;
+    }
+
+    private int[] bands(int k) {
+        int[] s = startFor[k];
+        if (s == null) {
+            s = new int[k + 1];
+            int per = rows / k;
+            for (int b = 0; b < k; b++) {
+                s[b] = b * per;
+            }
+            s[k] = rows;
+            startFor[k] = s;
+        }
+        return s;
     }
 
     private void workerLoop(int band) {
+        Gate gate = gates[band];
+        long seen = 0;
         while (true) {
-            handOver.arrive();
+            seen = awaitTicket(gate, seen);
             if (closing) {
                 return;
             }
             results[band] = runPhases(band);
+            if (done.incrementAndGet() == active - 1) {
+                Thread c = callerSleeping;
+                if (c != null) {
+                    LockSupport.unpark(c);
+                }
+            }
+        }
+    }
+
+    private long awaitTicket(Gate gate, long seen) {
+        long v = gate.ticket;
+        if (v != seen) {
+            return v;
+        }
+        long t0 = waiting.start();
+        int n = 0;
+        while ((v = gate.ticket) == seen) {
+            if (!waiting.spinOn(++n, t0)) {
+                gate.sleeper = Thread.currentThread();
+                while ((v = gate.ticket) == seen) {
+                    LockSupport.park(this);
+                }
+                gate.sleeper = null;
+                return v;
+            }
+        }
+        return v;
+    }
+
+    private void awaitWorkers(int count) {
+        if (done.get() == count) {
+            return;
+        }
+        long t0 = waiting.start();
+        int n = 0;
+        while (done.get() != count) {
+            if (!waiting.spinOn(++n, t0)) {
+                callerSleeping = Thread.currentThread();
+                while (done.get() != count) {
+                    LockSupport.park(this);
+                }
+                callerSleeping = null;
+                return;
+            }
+        }
+    }
+
+    private void open(int band) {
+        Gate g = gates[band];
+        g.ticket = ticket;
+        Thread s = g.sleeper;
+        if (s != null) {
+            LockSupport.unpark(s);
         }
     }
 
     private double runPhases(int band) {
         Phase p = work;
+        int j0 = start[band];
+        int j1 = start[band + 1];
         double m0 = 0;
         double m1 = 0;
-        long t0 = System.nanoTime();
+        long t0 = clock.getAsLong();
         try {
-            m0 = p.run(start[band], start[band + 1], 0);
+            m0 = p.run(j0, j1, 0);
         } catch (Throwable e) {
             failure.compareAndSet(null, e);
         }
-        long t1 = System.nanoTime();
-        mid.await();
-        long t2 = System.nanoTime();
+        long t1 = clock.getAsLong();
+        if (active > 1) {
+            mid.await(band);
+        }
+        long t2 = clock.getAsLong();
         try {
-            m1 = p.run(start[band], start[band + 1], 1);
+            m1 = p.run(j0, j1, 1);
         } catch (Throwable e) {
             failure.compareAndSet(null, e);
         }
-        busy[band] += t1 - t0 + System.nanoTime() - t2;
+        busy[band] += t1 - t0 + clock.getAsLong() - t2;
         return Math.max(m0, m1);
     }
 
     /**
-     * Time between balancings, measured by the caller's own band: 20 ms spans many steps of a large
-     * grid's band and smooths over short interruptions, yet follows a slow core within a fraction
-     * of a second (common practice for dynamic load balancing: rebalance over windows much longer
-     * than one step, damped).
-     */
-    static final long BALANCE_NANOS = 20_000_000;
-
-    /**
      * Moves each boundary halfway towards the split that would equalise the bands' measured times
-     * (rows per nanosecond of each band times its share), keeping every band at least
-     * {@link #minRows} rows; a boundary one row from its target stays. Called between steps, while
-     * every worker waits.
+     * (rows per nanosecond of each band times its share), keeping every band at least a quarter of
+     * an equal share (at least 1 row); a boundary one row from its target stays. Called between
+     * steps, while every worker waits.
      */
-    private void balance() {
+    private void balance(int k) {
+        int[] s = bands(k);
+        int minRows = Math.max(1, rows / (4 * k));
         double total = 0;
-        double[] rate = new double[threads];
-        for (int b = 0; b < threads; b++) {
-            rate[b] = (start[b + 1] - start[b]) / (double) Math.max(1, busy[b]);
+        double[] rate = new double[k];
+        for (int b = 0; b < k; b++) {
+            rate[b] = (s[b + 1] - s[b]) / (double) Math.max(1, busy[b]);
             total += rate[b];
         }
-        java.util.Arrays.fill(busy, 0);
-        int rows = start[threads];
         double share = 0;
-        for (int b = 1; b < threads; b++) {
+        for (int b = 1; b < k; b++) {
             share += rate[b - 1] / total * rows;
             int target = (int) Math.round(share);
-            int moved = start[b] + (target - start[b]) / 2;
-            start[b] = Math.max(start[b - 1] + minRows, Math.min(rows - (threads - b) * minRows, moved));
+            int moved = s[b] + (target - s[b]) / 2;
+            s[b] = Math.max(s[b - 1] + minRows, Math.min(rows - (k - b) * minRows, moved));
         }
     }
 
@@ -160,14 +309,27 @@ public final class BandTeam implements AutoCloseable {
         if (closed) {
             throw new IllegalStateException("band team is closed");
         }
+        long t0 = clock.getAsLong();
+        if (lastStepStart != Long.MIN_VALUE) {
+            cycleSum += t0 - lastStepStart;
+            cycles++;
+        }
+        lastStepStart = t0;
+        int k = activeThreads();
         work = phase;
-        if (threads > 1) {
-            handOver.awaitOthers();
-            handOver.release();
+        active = k;
+        start = bands(k);
+        if (k > 1) {
+            mid.parties(k);
+            done.set(0);
+            ticket++;
+            for (int b = 1; b < k; b++) {
+                open(b);
+            }
         }
         double m = runPhases(0);
-        if (threads > 1) {
-            handOver.awaitOthers();
+        if (k > 1) {
+            awaitWorkers(k - 1);
         }
         Throwable t = failure.getAndSet(null);
         if (t != null) {
@@ -179,13 +341,63 @@ public final class BandTeam implements AutoCloseable {
             }
             throw new IllegalStateException("worker failed", t);
         }
-        for (int b = 1; b < threads; b++) {
+        for (int b = 1; b < k; b++) {
             m = Math.max(m, results[b]);
         }
-        if (threads > 1 && busy[0] >= balanceNanos) {
-            balance();
+        windowWall += clock.getAsLong() - t0;
+        windowSteps++;
+        if (k < threads) {
+            fewerSteps++;
+        }
+        if (windowWall >= windowNanos && (windowSteps >= MIN_WINDOW_STEPS || windowNanos == 0 || size.tryingLarger())) {
+            endWindow(k);
         }
         return m;
+    }
+
+    private void endWindow(int k) {
+        long sum = 0;
+        for (int b = 0; b < k; b++) {
+            sum += busy[b];
+        }
+        double wall = Math.max(1, windowWall);
+        double rate = windowSteps / wall;
+        double efficiency = sum / (k * wall);
+        String traced = TRACE ? bandTrace(k) : "";
+        if (k > 1) {
+            balance(k);
+            if (cycles > 0) {
+                waiting.cycle(cycleSum / (double) cycles);
+            }
+        }
+        boolean trial = size.trial();
+        if (forced == 0) {
+            size.windowEnded(rate, efficiency);
+            if (size.tryingLarger()) {
+                // The larger size's bands were last balanced on the measurements that made the team
+                // leave it, often taken while threads were descheduled; a trial starts from equal bands.
+                startFor[size.threads()] = null;
+            }
+        }
+        if (TRACE) {
+            System.err.printf("%s window: %d threads%s, %d steps in %.1f ms, %.1f us per step, efficiency %.2f, spin %d us,"
+                    + " bands %s -> %d threads next%n", name, k, trial ? " (trial)" : "", windowSteps, wall * 1e-6, 1e-3 / rate,
+                    efficiency, waiting.budget() / 1000, traced, activeThreads());
+        }
+        java.util.Arrays.fill(busy, 0);
+        windowWall = 0;
+        windowSteps = 0;
+        cycleSum = 0;
+        cycles = 0;
+    }
+
+    /** The bands' first rows and working milliseconds in the window, for the trace. */
+    private String bandTrace(int k) {
+        StringBuilder sb = new StringBuilder();
+        for (int b = 0; b < k; b++) {
+            sb.append(b == 0 ? "" : " ").append(bands(k)[b]).append(String.format(":%.1fms", busy[b] * 1e-6));
+        }
+        return sb.toString();
     }
 
     @Override
@@ -196,11 +408,13 @@ public final class BandTeam implements AutoCloseable {
         closed = true;
         if (threads > 1) {
             closing = true;
-            handOver.awaitOthers();
-            handOver.release();
-            for (Thread t : workers) {
+            ticket++;
+            for (int b = 1; b < threads; b++) {
+                open(b);
+            }
+            for (int b = 1; b < threads; b++) {
                 try {
-                    t.join();
+                    workers[b].join();
                 } catch (InterruptedException e) {
                     Thread.currentThread().interrupt();
                     return;

@@ -3,61 +3,107 @@ package org.evanesce.solver.parallel;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.util.ArrayList;
+import java.util.List;
 import java.util.concurrent.atomic.AtomicIntegerArray;
 import org.junit.jupiter.api.Test;
 
 /**
  * The band team's balancing (common practice for dynamic load balancing: measure each worker's
  * time, move work from slow to fast): when one thread is slower per row, the bands move until
- * both take about the same time, and at every step every row is still handled exactly once in
- * each phase.
+ * both take the same time, and at every step every row is still handled exactly once in each
+ * phase. The time is a {@link VirtualClock} that each band's work advances by its cost, so the
+ * measurements and therefore the boundaries are the same on every run, whatever else the machine
+ * is doing.
  */
 class BandBalanceTest {
 
     private static final int ROWS = 400;
-    /** Busy time per row of phase 1: the caller (band 0) is four times faster than the worker. */
+    /** Virtual time per row of phase 1 on the faster thread, in nanoseconds. */
     private static final long FAST_NANOS = 1_000;
-    private static final long SLOW_NANOS = 4_000;
+    private static final long WINDOW = BandTeam.WINDOW_NANOS;
 
     @Test
-    void bandsMoveTowardsEqualTimesAndStillCoverEveryRowOnce() {
-        AtomicIntegerArray[] seen = {new AtomicIntegerArray(ROWS), new AtomicIntegerArray(ROWS)};
+    void bandsMoveHalfwayTowardsEqualTimesAndStillCoverEveryRowOnce() {
+        // the caller (band 0) four times faster than the worker: equal times when it holds 4/5 of the rows (320)
+        List<Integer> boundaries = balance(FAST_NANOS, 4 * FAST_NANOS, 1000);
+        assertEquals(200, boundaries.get(0), "bands start equal");
+        assertEquals(260, boundaries.get(1), "the first window moves the boundary halfway from 200 towards 320");
+        for (int w = 2; w < boundaries.size(); w++) {
+            int before = Math.abs(320 - boundaries.get(w - 1));
+            int after = Math.abs(320 - boundaries.get(w));
+            assertTrue(after <= (before + 1) / 2, "window " + w + " should halve the distance to 320: " + boundaries);
+        }
+        assertTrue(Math.abs(boundaries.get(boundaries.size() - 1) - 320) <= 1, "ends within a row of 320: " + boundaries);
+    }
+
+    @Test
+    void bandsFollowWhenTheSlowThreadChanges() {
+        // first the worker is slow, then the caller (as when another process moves between cores)
+        List<Integer> boundaries = balance(FAST_NANOS, 4 * FAST_NANOS, 600);
+        assertTrue(Math.abs(boundaries.get(boundaries.size() - 1) - 320) <= 1, "settles at 320 first: " + boundaries);
+        List<Integer> after = balance(4 * FAST_NANOS, FAST_NANOS, 2000);
+        assertTrue(Math.abs(after.get(after.size() - 1) - 80) <= 1, "then at 80: " + after);
+    }
+
+    @Test
+    void everyBandKeepsAQuarterOfItsEqualShare() {
+        // a worker 100 times slower would get 4 of 400 rows; the bound keeps 50 (a quarter of 200)
+        List<Integer> boundaries = balance(FAST_NANOS, 100 * FAST_NANOS, 3000);
+        assertEquals(ROWS - ROWS / 8, boundaries.get(boundaries.size() - 1), "stops at the bound: " + boundaries);
+        assertTrue(boundaries.stream().allMatch(s -> s >= ROWS / 8 && s <= ROWS - ROWS / 8), "within the bounds: " + boundaries);
+    }
+
+    private final VirtualClock clock = new VirtualClock();
+    private final AtomicIntegerArray[] seen = {new AtomicIntegerArray(ROWS), new AtomicIntegerArray(ROWS)};
+    private BandTeam team;
+    private int steps;
+
+    /**
+     * Steps the team with the given virtual costs per row of phase 1 for the caller's band and the
+     * worker's, checking each step's coverage, and returns band 1's start at the beginning and
+     * after every window that moved it.
+     */
+    private List<Integer> balance(long callerNanos, long workerNanos, int count) {
         Thread caller = Thread.currentThread();
         BandTeam.Phase phase = (j0, j1, p) -> {
             if (p == 0) {
                 seen[0].incrementAndGet(j1 - 1);
                 return 0;
             }
-            long perRow = Thread.currentThread() == caller ? FAST_NANOS : SLOW_NANOS;
             for (int j = j0; j < j1; j++) {
                 seen[1].incrementAndGet(j);
-                long until = System.nanoTime() + perRow;
-                while (System.nanoTime() < until) {
-                    Thread.onSpinWait();
-                }
             }
+            clock.advance((j1 - j0) * (Thread.currentThread() == caller ? callerNanos : workerNanos));
             return j1 - j0;
         };
-        try (BandTeam team = new BandTeam(ROWS, 2, "balance-test")) {
-            assertEquals(ROWS / 2, team.bandStart(1), "bands start equal");
-            for (int step = 1; step <= 800; step++) {
-                team.step(phase);
-                int s = team.bandStart(1);
-                assertTrue(s >= ROWS / 8 && s <= ROWS - ROWS / 8, "each band keeps a quarter of its equal share: " + s);
-                for (int j = 0; j < ROWS; j++) {
-                    int jj = j;
-                    int st = step;
-                    // phase 0 touches each band's last row; phase 1 every row once
-                    int want0 = j == ROWS - 1 ? step : -1;
-                    assertEquals(step, seen[1].get(j), () -> "row " + jj + " in phase 1 after step " + st);
-                    if (want0 > 0) {
-                        assertEquals(want0, seen[0].get(j), () -> "last row in phase 0 after step " + st);
-                    }
-                }
+        if (team == null) {
+            team = new BandTeam(ROWS, 2, "balance-test", WINDOW, clock, false);
+        }
+        List<Integer> boundaries = new ArrayList<>();
+        boundaries.add(team.bandStart(1));
+        for (int n = 0; n < count; n++) {
+            int before = team.bandStart(1);
+            team.step(phase);
+            steps++;
+            for (int j = 0; j < ROWS; j++) {
+                int jj = j;
+                // phase 1 updates every row once; phase 0 the last row of each band
+                assertEquals(1, seen[1].getAndSet(j, 0), () -> "row " + jj + " in phase 1 of step " + steps);
+                int want0 = j == before - 1 || j == ROWS - 1 ? 1 : 0;
+                assertEquals(want0, seen[0].getAndSet(j, 0), () -> "row " + jj + " in phase 0 of step " + steps);
             }
-            // equal times at 4 : 1 speeds: the caller's band holds 4/5 of the rows (320)
-            int s = team.bandStart(1);
-            assertTrue(s >= 280 && s <= 350, "the fast band should hold about 320 of 400 rows, holds " + s);
+            if (team.bandStart(1) != before) {
+                boundaries.add(team.bandStart(1));
+            }
+        }
+        return boundaries;
+    }
+
+    @org.junit.jupiter.api.AfterEach
+    void close() {
+        if (team != null) {
+            team.close();
         }
     }
 }

@@ -22,10 +22,11 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 
 /**
- * Balancing moves the band boundaries during a run; the fields must still equal the single-band
- * run's bit for bit (every row is updated by the same code whichever band holds it). Here the
- * team balances after every step and the workers are slowed by a varying amount, so the
- * boundaries move often and far.
+ * Balancing moves the band boundaries during a run, and on a busy machine the team steps on fewer
+ * threads for a while; the fields must still equal the single-band run's bit for bit (every row
+ * is updated by the same code whichever band and thread hold it). Here the team balances after
+ * every step and the workers are slowed by a varying amount, so the boundaries move often and
+ * far; in the second variant the number of stepping threads also changes every few steps.
  */
 class MovingBandsTest {
 
@@ -33,14 +34,18 @@ class MovingBandsTest {
     private static final int NY = 47;
     private static final int STEPS = 240;
 
-    @ParameterizedTest(name = "{0} {1}, {2} threads")
-    @CsvSource({"S, FLOAT, 2", "P, FLOAT, 3", "S, DOUBLE, 3", "P, DOUBLE, 2"})
-    void movingBandsGiveTheSingleBandBits(Polarization pol, Precision precision, int threads) {
+    @ParameterizedTest(name = "{0} {1}, {2} threads, resized {3}")
+    @CsvSource({"S, FLOAT, 2, false", "P, FLOAT, 3, false", "S, DOUBLE, 3, false", "P, DOUBLE, 2, false",
+        "S, FLOAT, 3, true", "P, DOUBLE, 2, true"})
+    void movingBandsGiveTheSingleBandBits(Polarization pol, Precision precision, int threads, boolean resized) {
         Set<Integer> starts = new HashSet<>();
-        double[][] one = run(pol, precision, 1, starts);
+        Set<Integer> sizes = new HashSet<>();
+        double[][] one = run(pol, precision, 1, false, starts, sizes);
         starts.clear();
-        double[][] many = run(pol, precision, threads, starts);
+        sizes.clear();
+        double[][] many = run(pol, precision, threads, resized, starts, sizes);
         assertTrue(starts.size() >= 4, "the boundary of band 1 should have moved several times: " + starts);
+        assertEquals(resized ? threads : 1, sizes.size(), "numbers of stepping threads met: " + sizes);
         for (int q = 0; q < 3; q++) {
             for (int k = 0; k < NX * NY; k++) {
                 int c = q;
@@ -52,7 +57,8 @@ class MovingBandsTest {
         }
     }
 
-    private static double[][] run(Polarization pol, Precision precision, int threads, Set<Integer> starts) {
+    private static double[][] run(Polarization pol, Precision precision, int threads, boolean resized, Set<Integer> starts,
+            Set<Integer> sizes) {
         MaterialGrid grid = MaterialGrid.builder(NX, NY, 40e-9, Material.VACUUM)
                 .paint(CellRegion.below(18.5), Material.ofIndex("glass", 1.5))
                 .paint(CellRegion.box(35, 25, 70, 60), new Material("lossy", 2.0, 4e5))
@@ -67,9 +73,13 @@ class MovingBandsTest {
         e.setSources(new int[] {(NY / 2) * NX + NX / 3}, new Component[] {comps[pol == Polarization.S ? 0 : 1]});
         Thread caller = Thread.currentThread();
         int[] step = {0};
-        try (BandTeam team = new BandTeam(NY, threads, "moving-bands-test", 0)) {
+        try (BandTeam team = new BandTeam(NY, threads, "moving-bands-test", 0, System::nanoTime, false)) {
             for (int n = 0; n < STEPS; n++) {
                 step[0] = n;
+                if (resized) {
+                    // every stepping size from the whole team down to one thread, a few steps each
+                    team.forceThreads(threads - (n / 7) % threads);
+                }
                 e.sourceValue(0, Math.sin(0.3 * n) * Math.exp(-Math.pow((n - 40) / 15.0, 2)));
                 boolean flush = n % 16 == 15;
                 team.step((j0, j1, p) -> {
@@ -83,9 +93,10 @@ class MovingBandsTest {
                     }
                     return m;
                 });
-                if (threads > 1) {
+                if (team.activeThreads() > 1) {
                     starts.add(team.bandStart(1));
                 }
+                sizes.add(team.activeThreads());
             }
         }
         double[][] out = new double[3][NX * NY];
