@@ -16,7 +16,7 @@ import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
 import org.evanesce.solver.grid.Side;
-import org.evanesce.solver.monitor.FluxLine;
+import org.evanesce.solver.record.FluxLine;
 import org.evanesce.solver.reference.Complex;
 import org.evanesce.solver.reference.PlanarStack;
 import org.evanesce.solver.source.Source;

@@ -11,8 +11,8 @@ import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
 import org.evanesce.solver.grid.Side;
 import org.evanesce.solver.kernel.Engine;
-import org.evanesce.solver.monitor.StepListener;
-import org.evanesce.solver.monitor.StepView;
+import org.evanesce.solver.record.StepListener;
+import org.evanesce.solver.record.StepView;
 import org.evanesce.solver.parallel.BandTeam;
 import org.evanesce.solver.source.IncidentSheet;
 import org.evanesce.solver.source.Source;
@@ -174,7 +174,7 @@ public final class Simulation implements StepView, AutoCloseable {
      * Writes the whole state of the run, so that a simulation built the same way and given it with
      * {@link #restoreState} continues bit for bit: the step count (the sources' time follows from it),
      * every field and PML auxiliary array, and the accumulated results of every
-     * {@link org.evanesce.solver.monitor.StatefulListener} (running transforms, probe samples), in the
+     * {@link org.evanesce.solver.record.StatefulListener} (running transforms, probe samples), in the
      * order the listeners were added. Call between steps.
      */
     public void saveState(java.io.OutputStream stream) throws java.io.IOException {
@@ -186,9 +186,9 @@ public final class Simulation implements StepView, AutoCloseable {
         out.writeUTF(precision.name());
         out.writeLong(step);
         engine.writeState(out);
-        List<org.evanesce.solver.monitor.StatefulListener> stateful = statefulListeners();
+        List<org.evanesce.solver.record.StatefulListener> stateful = statefulListeners();
         out.writeInt(stateful.size());
-        for (org.evanesce.solver.monitor.StatefulListener l : stateful) {
+        for (org.evanesce.solver.record.StatefulListener l : stateful) {
             out.writeUTF(l.getClass().getSimpleName());
             l.writeState(out);
         }
@@ -216,12 +216,12 @@ public final class Simulation implements StepView, AutoCloseable {
         }
         long s = in.readLong();
         engine.readState(in);
-        List<org.evanesce.solver.monitor.StatefulListener> stateful = statefulListeners();
+        List<org.evanesce.solver.record.StatefulListener> stateful = statefulListeners();
         int count = in.readInt();
         if (count != stateful.size()) {
             throw new java.io.IOException("checkpoint holds " + count + " recording listeners; this run has " + stateful.size());
         }
-        for (org.evanesce.solver.monitor.StatefulListener l : stateful) {
+        for (org.evanesce.solver.record.StatefulListener l : stateful) {
             String kind = in.readUTF();
             if (!kind.equals(l.getClass().getSimpleName())) {
                 throw new java.io.IOException("checkpoint holds a " + kind + " where this run has a " + l.getClass().getSimpleName());
@@ -231,10 +231,10 @@ public final class Simulation implements StepView, AutoCloseable {
         step = s;
     }
 
-    private List<org.evanesce.solver.monitor.StatefulListener> statefulListeners() {
-        List<org.evanesce.solver.monitor.StatefulListener> out = new ArrayList<>();
+    private List<org.evanesce.solver.record.StatefulListener> statefulListeners() {
+        List<org.evanesce.solver.record.StatefulListener> out = new ArrayList<>();
         for (StepListener l : listeners) {
-            if (l instanceof org.evanesce.solver.monitor.StatefulListener sl) {
+            if (l instanceof org.evanesce.solver.record.StatefulListener sl) {
                 out.add(sl);
             }
         }

@@ -10,7 +10,7 @@ import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
 import org.evanesce.solver.grid.Side;
-import org.evanesce.solver.monitor.Probe;
+import org.evanesce.solver.record.Probe;
 import org.evanesce.solver.source.Source;
 import org.evanesce.solver.source.TimeSignal;
 import org.junit.jupiter.params.ParameterizedTest;

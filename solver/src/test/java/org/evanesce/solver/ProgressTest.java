@@ -7,7 +7,7 @@ import java.util.List;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.solver.boundary.Boundary;
-import org.evanesce.solver.monitor.Progress;
+import org.evanesce.solver.record.Progress;
 import org.junit.jupiter.api.Test;
 
 /** Progress is a step listener and reports the last step. */

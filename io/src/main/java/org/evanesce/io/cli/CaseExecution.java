@@ -20,7 +20,7 @@ import org.evanesce.io.run.Checkpoints;
 import org.evanesce.io.run.FieldOutputs;
 import org.evanesce.io.run.MapOutputs;
 import org.evanesce.solver.grid.Component;
-import org.evanesce.solver.monitor.Snapshots;
+import org.evanesce.solver.record.Snapshots;
 import org.evanesce.io.run.CaseRunner;
 import org.evanesce.io.run.FluxResults;
 import org.evanesce.io.run.FluxTable;

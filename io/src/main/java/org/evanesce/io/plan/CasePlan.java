@@ -5,7 +5,7 @@ import org.evanesce.geometry.GridSpec;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.io.casefile.CaseSpec;
 import org.evanesce.solver.Simulation;
-import org.evanesce.solver.monitor.Probe;
+import org.evanesce.solver.record.Probe;
 
 /**
  * A case mapped onto the solver: the rasterised materials, a configured simulation builder, the

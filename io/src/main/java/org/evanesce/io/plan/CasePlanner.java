@@ -40,7 +40,7 @@ import org.evanesce.solver.Simulation;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Side;
-import org.evanesce.solver.monitor.Probe;
+import org.evanesce.solver.record.Probe;
 import org.evanesce.solver.source.CarrierSignal;
 import org.evanesce.solver.source.GaussianBeam;
 import org.evanesce.solver.source.GaussianPulse;
@@ -274,25 +274,25 @@ public final class CasePlanner {
                     : "output.region", g, interior);
             if (mbox != null) {
                 double[] f = m.frequencies().stream().mapToDouble(v -> v.si()).toArray();
-                org.evanesce.solver.monitor.FieldMap fm = new org.evanesce.solver.monitor.FieldMap(spec.polarization().value(),
+                org.evanesce.solver.record.FieldMap fm = new org.evanesce.solver.record.FieldMap(spec.polarization().value(),
                         mbox[0], mbox[1], mbox[2], mbox[3], f);
                 // a continuous wave's maps: whole periods after the fields settle, as its flux, checked on the
                 // region's middle row; with several sources there is no one period to window (flagged after the run)
                 var ramped = spec.sources().stream().map(x -> x.signal())
                         .filter(x -> x instanceof org.evanesce.io.casefile.SignalSpec.RampedWave).findFirst();
                 Optional<SteadyState> steady = Optional.empty();
-                List<org.evanesce.solver.monitor.FluxLine> monitor = List.of();
+                List<org.evanesce.solver.record.FluxLine> halves = List.of();
                 if (ramped.isPresent() && spec.sources().size() == 1) {
                     SteadyState w = FluxPlanner.continuousWindow(spec, g,
                             (org.evanesce.io.casefile.SignalSpec.RampedWave) ramped.get(), stop.maxSteps() * dt, errors);
                     if (w != null) {
                         fm.window(w.start(), w.end() + 1e-6 * w.period());
                         steady = Optional.of(w);
-                        var middle = new org.evanesce.solver.monitor.FluxLine(spec.polarization().value(),
+                        var middle = new org.evanesce.solver.record.FluxLine(spec.polarization().value(),
                                 (mbox[1] + mbox[3] - 1) / 2, mbox[0], mbox[2], f);
-                        monitor = List.of(w.halfLine(middle, 0, f, spec.polarization().value()),
+                        halves = List.of(w.halfLine(middle, 0, f, spec.polarization().value()),
                                 w.halfLine(middle, 1, f, spec.polarization().value()));
-                        monitor.forEach(run::listener);
+                        halves.forEach(run::listener);
                     }
                 }
                 run.listener(fm);

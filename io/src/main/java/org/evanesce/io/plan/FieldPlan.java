@@ -4,7 +4,7 @@ import java.util.List;
 import java.util.Optional;
 import org.evanesce.io.casefile.MapsSpec;
 import org.evanesce.solver.grid.Component;
-import org.evanesce.solver.monitor.FieldMap;
+import org.evanesce.solver.record.FieldMap;
 
 /**
  * What field output a run writes: the node box and components of `fields` and `field_frames`, the
@@ -35,7 +35,7 @@ public record FieldPlan(int[] box, List<Component> components, long[] frameSteps
      *                included (the case has several sources, so no one period to window)
      */
     public record Maps(MapsSpec spec, FieldMap map, int[] box, Optional<SteadyState> steady,
-                       List<org.evanesce.solver.monitor.FluxLine> monitor, boolean continuousUnwindowed) {
+                       List<org.evanesce.solver.record.FluxLine> monitor, boolean continuousUnwindowed) {
         public Maps {
             box = box.clone();
             monitor = List.copyOf(monitor);

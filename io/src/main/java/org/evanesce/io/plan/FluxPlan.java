@@ -7,7 +7,7 @@ import org.evanesce.io.casefile.FluxSpec;
 import org.evanesce.io.casefile.SourceSpec;
 import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.Simulation;
-import org.evanesce.solver.monitor.FluxLine;
+import org.evanesce.solver.record.FluxLine;
 import org.evanesce.solver.reference.PlanarStack;
 
 /**

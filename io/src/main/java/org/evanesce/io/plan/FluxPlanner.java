@@ -21,7 +21,7 @@ import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.Simulation;
-import org.evanesce.solver.monitor.FluxLine;
+import org.evanesce.solver.record.FluxLine;
 
 /** Plans a case's flux lines, the reference run that normalises them and, for a layered scene, the exact stack. */
 final class FluxPlanner {

@@ -2,7 +2,7 @@ package org.evanesce.io.plan;
 
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
-import org.evanesce.solver.monitor.FluxLine;
+import org.evanesce.solver.record.FluxLine;
 
 /**
  * A continuous wave's transform window and the check that it lies in the steady state. Flux lines and

@@ -9,7 +9,7 @@ import org.evanesce.io.casefile.FluxSpec;
 import org.evanesce.io.output.image.LinePlot;
 import org.evanesce.io.plan.FluxPlan;
 import org.evanesce.solver.grid.Polarization;
-import org.evanesce.solver.monitor.BeamProfile;
+import org.evanesce.solver.record.BeamProfile;
 import org.evanesce.solver.reference.AngularSpectrum;
 import org.evanesce.solver.reference.PlanarStack;
 

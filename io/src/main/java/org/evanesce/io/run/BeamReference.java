@@ -111,8 +111,8 @@ final class BeamReference {
             return specular(plan, y);
         }
         double dx = plan.cellSize();
-        double c1 = org.evanesce.solver.monitor.BeamProfile.of(plan.incident(), q, dx, plan.gridX0()).centroid();
-        double c2 = org.evanesce.solver.monitor.BeamProfile.of(plan.path().get().line(), q, dx, plan.gridX0()).centroid();
+        double c1 = org.evanesce.solver.record.BeamProfile.of(plan.incident(), q, dx, plan.gridX0()).centroid();
+        double c2 = org.evanesce.solver.record.BeamProfile.of(plan.path().get().line(), q, dx, plan.gridX0()).centroid();
         double y1 = plan.incidentY();
         double interfaceY = plan.exact().orElseThrow().firstInterface();
         double travel = Math.abs(interfaceY - y1) + Math.abs(y - interfaceY);

@@ -3,7 +3,7 @@ package org.evanesce.io.run;
 import java.util.function.Consumer;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.solver.Simulation;
-import org.evanesce.solver.monitor.Progress;
+import org.evanesce.solver.record.Progress;
 
 /**
  * Steps a planned case to its stopping rule: a fixed number of steps, or until the field energy
@@ -100,7 +100,7 @@ public final class CaseRunner {
      * simulation is closed (the fields at the end are written from there).
      */
     public static Result run(CasePlan plan, Consumer<Progress.Report> progress, double progressSeconds,
-                             Consumer<org.evanesce.solver.monitor.StepView> atEnd) {
+                             Consumer<org.evanesce.solver.record.StepView> atEnd) {
         return run(plan, progress, progressSeconds, atEnd, null);
     }
 
@@ -111,7 +111,7 @@ public final class CaseRunner {
      * run stopped during its flux reference run repeats only the reference run.
      */
     public static Result run(CasePlan plan, Consumer<Progress.Report> progress, double progressSeconds,
-                             Consumer<org.evanesce.solver.monitor.StepView> atEnd, Checkpoints ck) {
+                             Consumer<org.evanesce.solver.record.StepView> atEnd, Checkpoints ck) {
         JitWarmUp.run(plan.spec().polarization().value(), plan.spec().numerics().precision().value());
         try (Simulation sim = build(plan)) {
             if (progress != null) {

@@ -18,9 +18,9 @@ import org.evanesce.io.output.image.FieldPicture;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
-import org.evanesce.solver.monitor.Nodes;
-import org.evanesce.solver.monitor.Snapshots;
-import org.evanesce.solver.monitor.StepView;
+import org.evanesce.solver.record.Nodes;
+import org.evanesce.solver.record.Snapshots;
+import org.evanesce.solver.record.StepView;
 
 /**
  * Field files of a run: `fields` (the fields at the last step), `field_frames` (one HDF5 file per

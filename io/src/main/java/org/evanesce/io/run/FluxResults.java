@@ -8,7 +8,7 @@ import java.util.Map;
 import org.evanesce.io.casefile.FluxSpec;
 import org.evanesce.io.plan.FluxPlan;
 import org.evanesce.solver.grid.Polarization;
-import org.evanesce.solver.monitor.BeamProfile;
+import org.evanesce.solver.record.BeamProfile;
 import org.evanesce.solver.reference.AngularSpectrum;
 import org.evanesce.solver.reference.PlanarStack;
 

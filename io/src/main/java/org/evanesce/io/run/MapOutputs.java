@@ -21,8 +21,8 @@ import org.evanesce.io.plan.PlaneWaves;
 import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
-import org.evanesce.solver.monitor.FieldMap;
-import org.evanesce.solver.monitor.Nodes;
+import org.evanesce.solver.record.FieldMap;
+import org.evanesce.solver.record.Nodes;
 import org.evanesce.solver.reference.DecayFit;
 
 /**

@@ -3,7 +3,7 @@ package org.evanesce.io.run;
 import java.io.PrintWriter;
 import java.util.Locale;
 import java.util.function.Consumer;
-import org.evanesce.solver.monitor.Progress;
+import org.evanesce.solver.record.Progress;
 
 /**
  * Prints progress reports: one line rewritten in place on a terminal, or plain lines (for the

@@ -12,7 +12,7 @@ import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.FieldPlan;
 import org.evanesce.io.plan.FluxPlan;
 import org.evanesce.io.plan.SteadyState;
-import org.evanesce.solver.monitor.FluxLine;
+import org.evanesce.solver.record.FluxLine;
 
 /**
  * Whether a finished run's transforms (flux, maps) cover the whole response, judged from what the

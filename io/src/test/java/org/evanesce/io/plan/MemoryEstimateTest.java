@@ -25,7 +25,7 @@ import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
 import org.evanesce.solver.grid.Side;
-import org.evanesce.solver.monitor.FluxLine;
+import org.evanesce.solver.record.FluxLine;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 

@@ -17,7 +17,7 @@ import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Side;
-import org.evanesce.solver.monitor.FieldMap;
+import org.evanesce.solver.record.FieldMap;
 import org.evanesce.solver.source.Source;
 import org.evanesce.solver.source.TimeSignal;
 import org.junit.jupiter.api.Test;

@@ -1,4 +1,4 @@
-package org.evanesce.solver.monitor;
+package org.evanesce.solver.record;
 
 /** Observes a run: called on the run's thread after every completed step. Must not keep the view. */
 @FunctionalInterface

@@ -1,4 +1,4 @@
-package org.evanesce.solver.monitor;
+package org.evanesce.solver.record;
 
 import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.grid.Component;

@@ -1,4 +1,4 @@
-package org.evanesce.solver.monitor;
+package org.evanesce.solver.record;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
@@ -7,7 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
-import org.evanesce.solver.monitor.BeamProfile.PlaneWaveSpectrum;
+import org.evanesce.solver.record.BeamProfile.PlaneWaveSpectrum;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;

@@ -1,4 +1,4 @@
-package org.evanesce.solver.monitor;
+package org.evanesce.solver.record;
 
 import java.io.IOException;
 import java.io.UncheckedIOException;

@@ -1,4 +1,4 @@
-package org.evanesce.solver.monitor;
+package org.evanesce.solver.record;
 
 import java.util.function.Consumer;
 import java.util.function.LongSupplier;
