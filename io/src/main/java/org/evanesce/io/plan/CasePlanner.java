@@ -307,7 +307,7 @@ public final class CasePlanner {
                         }
                     }
                 }
-                maps = Optional.of(new FieldPlan.Maps(m, fm, mbox, steady, monitor, ramped.isPresent() && steady.isEmpty()));
+                maps = Optional.of(new FieldPlan.Maps(m, fm, mbox, steady, halves, ramped.isPresent() && steady.isEmpty()));
             }
         }
         return new FieldPlan(box == null ? interior : box, comps, frames, maps);
