@@ -103,6 +103,8 @@ public final class RedrawCommand implements Callable<Integer> {
     private static int readable(Path file, Drawing d) throws IOException {
         try {
             return d.draw();
+        } catch (ParameterException e) {
+            throw e;
         } catch (RuntimeException e) {
             String why = e.getMessage() == null ? e.getClass().getSimpleName()
                     : e.getMessage().strip().replaceAll("\\s*\\R\\s*", "; ");

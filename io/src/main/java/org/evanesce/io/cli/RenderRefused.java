@@ -1,5 +1,6 @@
 package org.evanesce.io.cli;
 
+import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -20,7 +21,7 @@ public final class RenderRefused implements Callable<Integer> {
 
     /** Whatever followed the old name; only echoed in the message. */
     @Unmatched
-    private List<String> arguments = List.of();
+    private List<String> arguments = new ArrayList<>();
 
     @Override
     public Integer call() {
