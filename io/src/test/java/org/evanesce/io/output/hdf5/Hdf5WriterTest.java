@@ -118,14 +118,19 @@ class Hdf5WriterTest {
 
     /** A stack E_z_real of three layers, layer k holding i + 100 j + 1000 k + 0.1, and its index wavelength_m. */
     static List<Hdf5Dataset> sampleStack() {
+        return sampleStack(NX, NY);
+    }
+
+    /** As {@link #sampleStack()}, nx by ny. */
+    static List<Hdf5Dataset> sampleStack(int nx, int ny) {
         List<double[]> layers = new java.util.ArrayList<>();
         for (int k = 0; k < WAVELENGTHS.length; k++) {
-            layers.add(ramp(NX, NY, 1000.0 * k + 0.1));
+            layers.add(ramp(nx, ny, 1000.0 * k + 0.1));
         }
         Map<String, Object> a = fieldAttributes("E_z", "V/m s", 0.0);
         a.put("wavelength_index", "wavelength_m");
         return List.of(new AxisDataset("wavelength_m", WAVELENGTHS, Map.of("unit", "m")),
-                new FieldStack("E_z_real", layers, NX, NY, Precision.SINGLE, a));
+                new FieldStack("E_z_real", layers, nx, ny, Precision.SINGLE, a));
     }
 
     @Test

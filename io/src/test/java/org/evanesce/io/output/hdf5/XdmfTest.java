@@ -157,16 +157,16 @@ class XdmfTest {
     }
 
     /**
-     * Writes maps.h5 ({@link Hdf5WriterTest#sampleStack}: E_z_real of three layers and wavelength_m) and returns a
+     * Writes maps.h5 ({@link Hdf5WriterTest#sampleStack}, NX by NY: E_z_real of three layers and wavelength_m) and returns a
      * spatial XDMF document with one grid per layer, each naming its layer of the stack.
      */
     static String writeStack(Path dir) throws Exception {
-        List<Hdf5Dataset> sets = Hdf5WriterTest.sampleStack();
+        List<Hdf5Dataset> sets = Hdf5WriterTest.sampleStack(NX, NY);
         Hdf5Writer.write(dir.resolve("maps.h5"), Map.of(), sets);
         FieldStack stack = (FieldStack) sets.get(1);
         List<Xdmf.Grid> grids = new ArrayList<>();
         for (int k = 0; k < stack.layers().size(); k++) {
-            grids.add(new Xdmf.Grid("map " + k, Hdf5WriterTest.NX, Hdf5WriterTest.NY, X0, Y0, CELL,
+            grids.add(new Xdmf.Grid("map " + k, NX, NY, X0, Y0, CELL,
                     List.of(Xdmf.Attribute.of("E_z_real", "maps.h5", stack, k))));
         }
         return Xdmf.spatial("maps", grids);
@@ -177,8 +177,8 @@ class XdmfTest {
         String xml = writeStack(tmp);
         Element collection = only(only(parse(xml).getDocumentElement(), "Domain"), "Grid");
         List<Element> grids = children(collection, "Grid");
-        int nx = Hdf5WriterTest.NX;
-        int ny = Hdf5WriterTest.NY;
+        int nx = NX;
+        int ny = NY;
         int layers = Hdf5WriterTest.WAVELENGTHS.length;
         assertEquals(layers, grids.size(), "one grid per layer");
         try (HdfFile h = new HdfFile(tmp.resolve("maps.h5"))) {
