@@ -60,7 +60,8 @@ public final class RedrawCommand implements Callable<Integer> {
     public Integer call() throws IOException {
         PrintWriter o = spec.commandLine().getOut();
         if (!Files.isDirectory(folder)) {
-            throw new ParameterException(spec.commandLine(), folder + ": no such folder");
+            throw new ParameterException(spec.commandLine(), folder + (Files.exists(folder)
+                    ? ": is a file, not a folder; expected a results folder written by 'evanesce run'" : ": no such folder"));
         }
         if (decades != null && !(decades > 0 && decades <= 300)) {
             throw new ParameterException(spec.commandLine(), "--log-decades " + decades + ": expected a number of decades in (0, 300]");
@@ -181,9 +182,12 @@ public final class RedrawCommand implements Callable<Integer> {
     private void refuseEarlierLayout(Path file, HdfFile h, String expected) {
         if (!h.getChildren().containsKey(expected)
                 && h.getChildren().keySet().stream().anyMatch(k -> EARLIER.matcher(k).matches())) {
-            throw new ParameterException(spec.commandLine(), file + ": written by an earlier version of evanesce (datasets "
-                    + "such as " + h.getChildren().keySet().stream().filter(k -> EARLIER.matcher(k).matches()).findFirst()
-                    .orElseThrow() + " instead of " + expected + ", docs/outputs.md); run its case again to redraw it");
+            // name an old dataset, one with the wavelength in its name where there is one
+            String old = h.getChildren().keySet().stream().filter(k -> EARLIER.matcher(k).matches())
+                    .sorted(java.util.Comparator.comparing((String k) -> !k.endsWith("nm")).thenComparing(k -> k)).findFirst()
+                    .orElseThrow();
+            throw new ParameterException(spec.commandLine(), file + ": written by an earlier build of evanesce (datasets such as "
+                    + old + " instead of " + expected + ", docs/outputs.md); run its case again to redraw it");
         }
     }
 

@@ -5,7 +5,7 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
-import picocli.CommandLine.ParameterException;
+import org.evanesce.io.Main;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Unmatched;
 
@@ -23,10 +23,12 @@ public final class RenderRefused implements Callable<Integer> {
     @Unmatched
     private List<String> arguments = new ArrayList<>();
 
+    /** Prints one line naming {@code redraw} on the error stream; exit 2 (bad usage). */
     @Override
     public Integer call() {
-        throw new ParameterException(spec.commandLine(), "the command 'render' is now called 'redraw': run 'evanesce redraw "
-                + (arguments.isEmpty() ? "FOLDER" : String.join(" ", arguments)) + "' (it redraws the pictures of a results "
-                + "folder from its HDF5 files)");
+        spec.commandLine().getErr().printf("evanesce render: the command 'render' is now called 'redraw': run 'evanesce redraw "
+                + "%s' (it redraws the pictures of a results folder from its HDF5 files)%n",
+                arguments.isEmpty() ? "FOLDER" : String.join(" ", arguments));
+        return Main.USAGE;
     }
 }
