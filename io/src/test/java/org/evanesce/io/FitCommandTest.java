@@ -155,11 +155,12 @@ class FitCommandTest {
             double g = rnd.nextGaussian();
             truth += g * g;
         }
+        double atTruth = truth;
         Matcher chi = Pattern.compile("chi-square (\\S+) for 29").matcher(o.out());
         assertTrue(chi.find(), o.out());
         double atFit = Double.parseDouble(chi.group(1));
-        assertTrue(atFit <= truth * (1 + 1e-5) && truth - atFit < 10.8, () -> "chi-square " + atFit + " at the fit, " + truth
-                + " at the true gap");
+        assertTrue(atFit <= atTruth * (1 + 1e-5) && atTruth - atFit < 10.8, () -> "chi-square " + atFit + " at the fit, "
+                + atTruth + " at the true gap");
     }
 
     @Test

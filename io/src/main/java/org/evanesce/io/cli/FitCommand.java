@@ -69,18 +69,22 @@ public final class FitCommand implements Callable<Integer> {
         }
         Path folder = (out != null ? out : defaultFolder(caseFile)).toAbsolutePath().normalize();
         List<OutputFolders.Protected> protect = OutputFolders.around(caseFile);
-        OutputFolders.checkResults(folder, force, protect);
-        try (RunFolder rf = RunFolder.begin(folder, force, protect)) {
-            rf.cleaned().forEach(line -> o.println("note: " + line));
-            List<String> warnings = FitRun.run(caseFile, overrides, data, free, rf, o, RunOutputs.CAUTION);
-            rf.commit();
-            o.println("results: " + rf.target());
-            if (!warnings.isEmpty()) {
-                err.printf("evanesce fit: warning: %d warning(s) about the result (printed above, and in fit.json)%n",
-                        warnings.size());
+        try {
+            FitRun.Prepared prepared = FitRun.prepare(caseFile, overrides, data, free);
+            // refused before anything is written (exit 2, see Main): nothing beside the folder is touched either
+            OutputFolders.checkResults(folder, force, protect);
+            try (RunFolder rf = RunFolder.begin(folder, force, protect)) {
+                rf.cleaned().forEach(line -> o.println("note: " + line));
+                List<String> warnings = FitRun.run(prepared, rf, o, RunOutputs.CAUTION);
+                rf.commit();
+                o.println("results: " + rf.target());
+                if (!warnings.isEmpty()) {
+                    err.printf("evanesce fit: warning: %d warning(s) about the result (printed above, and in fit.json)%n",
+                            warnings.size());
+                }
+                o.println("Caution: " + RunOutputs.CAUTION);
+                return Main.OK;
             }
-            o.println("Caution: " + RunOutputs.CAUTION);
-            return Main.OK;
         } catch (NoSuchFileException e) {
             err.println("evanesce fit: " + e.getFile() + ": no such file");
             return Main.USAGE;

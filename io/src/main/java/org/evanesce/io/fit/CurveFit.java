@@ -63,7 +63,8 @@ final class CurveFit {
     private CurveFit() {
     }
 
-    static Result fit(FitModel model, MeasuredCurve curve, List<FreeParameter> free) throws IOException, FitInputException {
+    /** Refuses a fit that cannot start: too few points, or a starting value outside its bounds. */
+    static double[] check(FitModel model, MeasuredCurve curve, List<FreeParameter> free) throws IOException, FitInputException {
         int n = curve.size();
         int np = free.size();
         if (n <= np) {
@@ -81,6 +82,13 @@ final class CurveFit {
             }
             q0[k] = (start[k] - f.low()) / f.span();
         }
+        return q0;
+    }
+
+    static Result fit(FitModel model, MeasuredCurve curve, List<FreeParameter> free) throws IOException, FitInputException {
+        int n = curve.size();
+        int np = free.size();
+        double[] q0 = check(model, curve, free);
         double[] weight = new double[n];
         for (int i = 0; i < n; i++) {
             weight[i] = curve.u() == null ? 1 : 1 / curve.u()[i];

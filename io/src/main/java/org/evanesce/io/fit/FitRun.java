@@ -15,15 +15,17 @@ public final class FitRun {
     private FitRun() {
     }
 
+    /** A fit whose curve, free parameters and case were read and checked, ready to run. */
+    public record Prepared(Path caseFile, MeasuredCurve curve, List<FreeParameter> params, FitModel model) { }
+
     /**
-     * Reads the curve and the case and fits; prints the result to {@code out}.
+     * Reads and checks the curve, the free parameters and the case (before any folder is touched).
      *
      * @param free the --free options as written
-     * @return the fit's warnings (already printed)
      * @throws FitInputException bad data, options or a case the model cannot read (exit 2)
      */
-    public static List<String> run(Path caseFile, Map<String, String> overrides, Path data, List<String> free, RunFolder rf,
-                                   PrintWriter out, String caution) throws IOException, FitInputException {
+    public static Prepared prepare(Path caseFile, Map<String, String> overrides, Path data, List<String> free)
+            throws IOException, FitInputException {
         MeasuredCurve curve = MeasuredCurve.read(data);
         List<FreeParameter> params = new java.util.ArrayList<>();
         for (String f : free) {
@@ -34,6 +36,21 @@ public final class FitRun {
             params.add(p);
         }
         FitModel model = new FitModel(caseFile, overrides, curve, params);
+        CurveFit.check(model, curve, params);
+        return new Prepared(caseFile, curve, params, model);
+    }
+
+    /**
+     * Fits, prints the result to {@code out} and writes the files into {@code rf}.
+     *
+     * @return the fit's warnings (already printed)
+     * @throws FitInputException a trial parameter set the model cannot evaluate (exit 2)
+     */
+    public static List<String> run(Prepared p, RunFolder rf, PrintWriter out, String caution) throws IOException, FitInputException {
+        Path caseFile = p.caseFile();
+        MeasuredCurve curve = p.curve();
+        List<FreeParameter> params = p.params();
+        FitModel model = p.model();
         long t0 = System.nanoTime();
         CurveFit.Result r = CurveFit.fit(model, curve, params);
         double seconds = (System.nanoTime() - t0) * 1e-9;
