@@ -35,7 +35,7 @@ import picocli.CommandLine.Spec;
         description = "2D FDTD field simulator for optical tunnelling and near-field geometries.",
         subcommands = {RunCommand.class, CheckCommand.class, BenchCommand.class, org.evanesce.io.cli.StackCommand.class,
             org.evanesce.io.cli.AccuracyCommand.class, org.evanesce.io.cli.RenderCommand.class,
-            org.evanesce.io.cli.SweepCommand.class, org.evanesce.io.cli.FitCommand.class},
+            org.evanesce.io.cli.SweepCommand.class, org.evanesce.io.cli.FitCommand.class, org.evanesce.io.cli.ToleranceCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
             "0:success",

@@ -73,6 +73,11 @@ class FitCommandTest {
         return 1 / (1 + f * f * sh * sh);
     }
 
+    /** The case these tests fit (also used by ToleranceCommandTest). */
+    static String caseText() {
+        return CASE;
+    }
+
     private Path caseFile() throws IOException {
         Path c = tmp.resolve("gap.yaml");
         Files.writeString(c, CASE);
