@@ -36,7 +36,8 @@ import picocli.CommandLine.Spec;
         subcommands = {RunCommand.class, CheckCommand.class, BenchCommand.class, org.evanesce.io.cli.StackCommand.class,
             org.evanesce.io.cli.AccuracyCommand.class, org.evanesce.io.cli.RedrawCommand.class,
             org.evanesce.io.cli.RenderRefused.class,
-            org.evanesce.io.cli.SweepCommand.class},
+            org.evanesce.io.cli.SweepCommand.class, org.evanesce.io.cli.FitCommand.class,
+            org.evanesce.io.cli.ToleranceCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
             "0:success",
