@@ -91,7 +91,8 @@ class ExamplePhysicsTest {
 
     /**
      * Measured at cpw 16: T − closed form = 0.0049 at 632 nm (0.023 at cpw 8, 0.0024 at cpw 20: second order).
-     * The case's 200 nm gap gives T = 0.384; a 180 nm gap 0.442 and a 220 nm gap 0.332, both outside.
+     * The case's 200 nm gap gives T = 0.384; a 175 nm gap (0.458) or a 230 nm gap (0.310) fail. Not fine
+     * enough for 20 nm: run with --set gap=220nm, the example gives 0.337 (closed form 0.332), which passes.
      */
     private static final double GAP_T_TOLERANCE = 0.05;
 
@@ -128,7 +129,8 @@ class ExamplePhysicsTest {
 
     /**
      * Measured at cpw 12: |E(gap)/E(no gap)|² at 633 nm − angular-spectrum value = −0.0037 (0.339 against 0.342).
-     * A 200 nm gap gives about 0.25, a 100 nm gap about 0.45 (plane-wave estimate at the probe's 59 degrees).
+     * Run with --set gap=200nm the example gives 0.185 (its own integral 0.190): it fails; a 120 nm gap gives
+     * about 0.47 by the integral.
      */
     private static final double POINT_TOLERANCE = 0.04;
 
@@ -147,8 +149,8 @@ class ExamplePhysicsTest {
     // --- prism-evanescent-tail: decay over the first 100 nm outside the face ----------------------------
 
     /**
-     * Measured at cpw 10: 158.6 nm against the plane wave's 151.0 nm (5 %; 154.6 nm at cpw 16). At 50 % a
-     * prism of n = 1.5 (285 nm) or 1.35 (below the critical angle: no decay) fails.
+     * Measured at cpw 10: 158.6 nm against the plane wave's 151.0 nm (5 %; 154.6 nm at cpw 16). Run with
+     * --set n_prism=1.5 the example gives 328 nm (+117 %) and fails; so does 1.35 (below the critical angle).
      */
     private static final double TAIL_RELATIVE_TOLERANCE = 0.5;
 
@@ -240,8 +242,8 @@ class ExamplePhysicsTest {
 
     /**
      * Measured at cpw 6: T = 1.1e-4 at 632 nm (1.0e-4 at cpw 12 and 16: light scattered at the prism's ends).
-     * Below the substrate's critical angle (arcsin(1.45/1.8) = 53.7 degrees) the film and substrate take most
-     * of the light that is not reflected, T of order 0.1 or more.
+     * Below the substrate's critical angle (arcsin(1.45/1.8) = 53.7 degrees) light crosses into it: run with
+     * --set theta=50deg the example gives T = 0.32 and fails.
      */
     private static final double COUPLER_T_TOLERANCE = 1e-3;
 
