@@ -97,13 +97,14 @@ class ExampleCasesTest {
     }
 
     /**
-     * The run {@code o} wrote run.json with its overrides, and every file the example's {@code output.write}
-     * asks for, into {@code out} ({@link ExamplePhysicsTest} runs every example).
+     * The run {@code o} wrote run.json with its {@code cpw} override, and every file the example's
+     * {@code output.write} asks for, into {@code out} ({@link ExamplePhysicsTest} runs every example).
      */
-    static void assertWroteWhatItAsks(Path example, Path out, Cli.Outcome o) throws IOException {
+    static void assertWroteWhatItAsks(Path example, Path out, Cli.Outcome o, String cpw) throws IOException {
         Path record = out.resolve("run.json");
         assertTrue(Files.isRegularFile(record), "no run.json: " + o);
-        assertTrue(Files.readString(record).contains("\"cpw\": \""), "the cpw override is not in run.json: " + o);
+        String json = Files.readString(record);
+        assertTrue(json.contains("\"cpw\": \"" + cpw + "\""), "the override cpw=" + cpw + " is not in run.json: " + json);
         Object write = yaml(example).get("output") instanceof Map<?, ?> m ? m.get("write") : null;
         List<?> items = write instanceof List<?> l ? l : List.of("probes");
         for (Object item : items) {

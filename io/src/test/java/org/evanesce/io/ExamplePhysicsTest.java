@@ -70,7 +70,7 @@ class ExamplePhysicsTest {
             overrides.forEach((k, v) -> args.addAll(List.of("--set", k + "=" + v)));
             Cli.Outcome o = Cli.run(args.toArray(String[]::new));
             assertEquals(Main.OK, o.code(), o::toString);
-            ExampleCasesTest.assertWroteWhatItAsks(example, out, o);
+            ExampleCasesTest.assertWroteWhatItAsks(example, out, o, overrides.get("cpw"));
             outs.add(out);
         }
         check.evaluation().check(name, outs);
