@@ -356,6 +356,18 @@ public final class Simulation implements StepView, AutoCloseable {
     }
 
     @Override
+    public void readRow(Component c, int j, int i0, int i1, double[] re, double[] im) {
+        if (i0 < 0 || i1 > engine.nx() || j < 0 || j >= engine.ny() || i1 < i0) {
+            throw new IndexOutOfBoundsException(String.format("row %d from %d to %d is outside the %d x %d grid", j, i0, i1,
+                    engine.nx(), engine.ny()));
+        }
+        engine.read(c, j * engine.nx() + i0, i1 - i0, re);
+        if (im != null) {
+            engine.readImag(c, j * engine.nx() + i0, i1 - i0, im);
+        }
+    }
+
+    @Override
     public boolean complexFields() {
         return engine.isComplex();
     }

@@ -128,6 +128,16 @@ final class BlochPair extends Engine {
     }
 
     @Override
+    public void read(Component c, int k, int n, double[] dst) {
+        re.read(c, k, n, dst);
+    }
+
+    @Override
+    public void readImag(Component c, int k, int n, double[] dst) {
+        im.read(c, k, n, dst);
+    }
+
+    @Override
     public void setImag(Component c, int k, double v) {
         im.set(c, k, v);
     }

@@ -126,14 +126,7 @@ public final class FieldMap implements StatefulListener {
                 Component comp = components[c];
                 double[] a = rowRe[c];
                 double[] b = rowIm[c];
-                for (int i = i0; i < i1; i++) {
-                    a[i - i0] = v.field(comp, i, j);
-                }
-                if (complex) {
-                    for (int i = i0; i < i1; i++) {
-                        b[i - i0] = v.fieldImag(comp, i, j);
-                    }
-                }
+                v.readRow(comp, j, i0, i1, a, complex ? b : null);
             }
             for (int c = 0; c < components.length; c++) {
                 boolean electric = components[c].electric;

@@ -52,6 +52,8 @@ public final class FluxLine implements StatefulListener {
     private final double[][] eRe, eIm, hRe, hIm;
     /** This step's fields on the line (E averaged onto it), real and imaginary parts. */
     private final double[] ea, eb, ha, hb;
+    /** This step's E on the row above the line (before averaging). */
+    private final double[] e1a, e1b;
     /** Only field samples at times in [windowStart, windowEnd) are transformed. */
     private double windowStart = Double.NEGATIVE_INFINITY;
     private double windowEnd = Double.POSITIVE_INFINITY;
@@ -106,6 +108,8 @@ public final class FluxLine implements StatefulListener {
         eb = new double[n];
         ha = new double[n];
         hb = new double[n];
+        e1a = new double[n];
+        e1b = new double[n];
     }
 
     /**
@@ -134,6 +138,7 @@ public final class FluxLine implements StatefulListener {
         eSamples += eIn ? 1 : 0;
         hSamples += hIn ? 1 : 0;
         // read the line once per step, then accumulate every frequency from the copies
+        boolean complex = v.complexFields();
         if (vertical) {
             for (int j = i0; j < i1; j++) {
                 int k = j - i0;
@@ -143,15 +148,15 @@ public final class FluxLine implements StatefulListener {
                 hb[k] = v.fieldImag(h, row, j);
             }
         } else {
-            for (int i = i0; i < i1; i++) {
-                int k = i - i0;
-                ea[k] = 0.5 * (v.field(e, i, row) + v.field(e, i, row + 1));
-                eb[k] = 0.5 * (v.fieldImag(e, i, row) + v.fieldImag(e, i, row + 1));
-                ha[k] = v.field(h, i, row);
-                hb[k] = v.fieldImag(h, i, row);
+            // whole rows at once: E on rows row and row + 1 (averaged onto the line), H on row
+            v.readRow(e, row, i0, i1, ea, complex ? eb : null);
+            v.readRow(e, row + 1, i0, i1, e1a, complex ? e1b : null);
+            v.readRow(h, row, i0, i1, ha, complex ? hb : null);
+            for (int k = 0; k < ea.length; k++) {
+                ea[k] = 0.5 * (ea[k] + e1a[k]);
+                eb[k] = 0.5 * (eb[k] + e1b[k]);
             }
         }
-        boolean complex = v.complexFields();
         double dt = v.dt();
         double we = eIn ? dt : 0;
         double wh = hIn ? dt : 0;
@@ -309,10 +314,10 @@ public final class FluxLine implements StatefulListener {
         return s;
     }
 
-    /** Bytes held by the accumulators and the per-step scratch: 8 · n · (4F + 4) for n cells and F frequencies. */
+    /** Bytes held by the accumulators and the per-step scratch: 8 · n · (4F + 6) for n cells and F frequencies. */
     public long bytes() {
         long n = i1 - i0;
-        return Double.BYTES * n * (4L * omega.length + 4);
+        return Double.BYTES * n * (4L * omega.length + 6);
     }
 
     @Override

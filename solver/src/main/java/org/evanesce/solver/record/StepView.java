@@ -32,6 +32,19 @@ public interface StepView {
     double cellSize();
 
     /**
+     * Reads a component along row j from node i0 (inclusive) to i1 (exclusive) into {@code re} (and, when not
+     * null, the imaginary parts into {@code im}), from index 0: what {@link #field} gives, value for value.
+     */
+    default void readRow(Component c, int j, int i0, int i1, double[] re, double[] im) {
+        for (int i = i0; i < i1; i++) {
+            re[i - i0] = field(c, i, j);
+            if (im != null) {
+                im[i - i0] = fieldImag(c, i, j);
+            }
+        }
+    }
+
+    /**
      * Whether the fields are complex (Bloch-periodic sides); when false every {@link #fieldImag} is zero and
      * recorders may leave the imaginary parts out of their work.
      */
