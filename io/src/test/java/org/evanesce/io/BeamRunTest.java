@@ -12,6 +12,7 @@ import java.util.List;
 import java.util.function.DoubleUnaryOperator;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -171,7 +172,7 @@ class BeamRunTest {
     private FluxRow runFlux(String name, String text) throws IOException {
         Path out = tmp.resolve(name + "-out");
         Cli.Outcome o = Cli.run("run", write(name + ".yaml", text).toString(), "--out", out.toString());
-        assertEquals(Main.OK, o.code(), () -> name + ": " + o);
+        assertEquals(ExitCode.OK, o.code(), () -> name + ": " + o);
         return FluxRow.read(out.resolve("flux.csv"));
     }
 
@@ -439,7 +440,7 @@ class BeamRunTest {
         Path out = tmp.resolve("shift-" + pol + "-out");
         Cli.Outcome o = Cli.run("run", write("shift-" + pol + ".yaml", SHIFT_CASE.replace("POL", pol)).toString(), "--out",
                 out.toString());
-        assertEquals(Main.OK, o.code(), () -> pol + ": " + o);
+        assertEquals(ExitCode.OK, o.code(), () -> pol + ": " + o);
         FluxRow f = FluxRow.read(out.resolve("flux.csv"));
         String summary = Files.readString(out.resolve("summary.json"));
         String what = pol + " polarization, glass (1.5) | vacuum at 50 deg, waist 20 wavelengths, 16 cells per wavelength";
@@ -649,7 +650,7 @@ class BeamRunTest {
         Path file = write(name + ".yaml", text);
         Path out = tmp.resolve(name + "-out");
         Cli.Outcome o = Cli.run("run", file.toString(), "--out", out.toString());
-        assertEquals(Main.USAGE, o.code(), () -> name + ": " + o);
+        assertEquals(ExitCode.USAGE, o.code(), () -> name + ": " + o);
         List<Message> found = errorsAt(o, file, path);
         assertEquals(1, found.size(), () -> name + ": expected one error at " + path + ": " + o);
         assertFalse(Files.exists(out), () -> name + ": a refused case wrote its folder");
@@ -677,7 +678,7 @@ class BeamRunTest {
         // the same block 7 um from the axis, beyond the part of the line the beam uses, is accepted
         String outside = small(block.replace("[3 um", "[7 um"), PML, WAIST_LINE);
         Cli.Outcome ok = Cli.run("check", write("outside.yaml", outside).toString());
-        assertEquals(Main.OK, ok.code(), () -> "a block beyond 4 footprints of the axis should not matter: " + ok);
+        assertEquals(ExitCode.OK, ok.code(), () -> "a block beyond 4 footprints of the axis should not matter: " + ok);
     }
 
     @Test

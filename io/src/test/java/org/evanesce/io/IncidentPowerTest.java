@@ -10,6 +10,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
@@ -103,7 +104,7 @@ class IncidentPowerTest {
         Files.writeString(f, text);
         Path out = tmp.resolve(name);
         Cli.Outcome o = Cli.run("run", f.toString(), "--out", out.toString(), "--set", "cpw=" + cpw, "--set", "t=" + duration);
-        assertEquals(Main.OK, o.code(), () -> name + ": " + o);
+        assertEquals(ExitCode.OK, o.code(), () -> name + ": " + o);
         List<String> lines = Files.readAllLines(out.resolve("flux.csv"));
         String[] header = lines.get(0).split(",");
         int col = header.length - 1;

@@ -14,7 +14,6 @@ import java.util.concurrent.Callable;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.evanesce.geometry.GridSpec;
-import org.evanesce.io.Main;
 import org.evanesce.io.output.image.FieldPicture;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -83,7 +82,7 @@ public final class RenderCommand implements Callable<Integer> {
             written += readable(fields, () -> renderFields(fields, folder.resolve("permittivity.h5"), dir));
         }
         o.printf(Locale.ROOT, "rendered %d pictures into %s%n", written, dir);
-        return Main.OK;
+        return ExitCode.OK;
     }
 
     /** Reading one HDF5 file and drawing its pictures. */

@@ -8,7 +8,6 @@ import java.util.concurrent.Callable;
 import java.util.function.ToDoubleFunction;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
-import org.evanesce.io.Main;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.solver.grid.Polarization;
@@ -199,7 +198,7 @@ public final class StackCommand implements Callable<Integer> {
             out.println(tableRow(head));
         }
         rows.forEach(out::println);
-        return Main.OK;
+        return ExitCode.OK;
     }
 
     /**

@@ -18,8 +18,6 @@ import java.util.Set;
 import java.util.concurrent.Callable;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
-import org.evanesce.io.Main;
-import org.evanesce.io.RunFailedException;
 import org.evanesce.io.casefile.CaseFileException;
 import org.evanesce.io.casefile.CaseReader;
 import org.evanesce.io.casefile.CaseText;
@@ -255,7 +253,7 @@ public final class SweepCommand implements Callable<Integer> {
                         threads));
 
         boolean complete = all.stream().allMatch(r -> folder.finished(r.point().number(), r.hash()));
-        int code = Main.OK;
+        int code = ExitCode.OK;
         if (shardOf == null || complete) {
             code = merge(folder, mergePoints, kinds, title, o, err, false);
         } else {
@@ -266,7 +264,7 @@ public final class SweepCommand implements Callable<Integer> {
             err.printf(Locale.ROOT, "evanesce sweep: %d point(s) failed: %s (see above); the others are kept. Running the same "
                     + "command again retries them.%n", outcome.failed().size(),
                     SweepMerge.ranges(new ArrayList<>(outcome.failed().keySet())));
-            code = Main.RUN_FAILED;
+            code = ExitCode.RUN_FAILED;
         }
         o.println("Caution: " + RunOutputs.CAUTION);
         return code;
@@ -436,15 +434,15 @@ public final class SweepCommand implements Callable<Integer> {
                     SweepMerge.ranges(m.unsettled()));
         }
         if (m.missing().isEmpty()) {
-            return Main.OK;
+            return ExitCode.OK;
         }
         if (report) {
             err.printf(Locale.ROOT, "evanesce sweep: %d of %d points are missing (not finished, or computed from another "
                     + "case): %s. Run their shards again (or the sweep without --shard), then merge again.%n",
                     m.missing().size(), points.size(), SweepMerge.ranges(m.missing()));
-            return Main.RUN_FAILED;
+            return ExitCode.RUN_FAILED;
         }
-        return Main.OK;
+        return ExitCode.OK;
     }
 
     private int slurm(SweepFolder folder, Map<String, Object> record, Path caseFile, int points, PrintWriter o)
@@ -474,7 +472,7 @@ public final class SweepCommand implements Callable<Integer> {
                 points, slurmTasks, slurmTasks);
         o.println("submit:  sbatch " + SlurmScript.quote(f.toString()));
         o.println("merge:   " + SlurmScript.command(exe, absCase, folder.dir(), extra) + " --merge-only");
-        return Main.OK;
+        return ExitCode.OK;
     }
 
     static Path defaultFolder(Path caseFile, CaseSpec s) {
