@@ -1,5 +1,8 @@
 package org.evanesce.io;
 
+import static org.evanesce.geometry.PhysicalConstants.C0;
+import static org.evanesce.geometry.PhysicalConstants.EPS0;
+import static org.evanesce.geometry.PhysicalConstants.ETA0;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -12,6 +15,7 @@ import java.util.List;
 import java.util.function.DoubleUnaryOperator;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.evanesce.geometry.Complex;
 import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -35,8 +39,6 @@ class BeamRunTest {
     static final double N_GLASS = 1.5;
     /** The index of the vacuum above the glass or in the gap (a material {index: 1.0}, not the library's air). */
     static final double N_VACUUM = 1.0;
-    static final double C0 = 299_792_458.0;
-    static final double EPSILON0 = 8.8541878128e-12;
 
     /** Issue #5's bound on the simulated lateral shift against Artmann's closed form, relative. */
     static final double SHIFT_TOLERANCE = 0.05;
@@ -319,7 +321,7 @@ class BeamRunTest {
     /** ε of a conductor-loaded dielectric at vacuum wavelength λ: ε' + iσ/(ω ε0). */
     static Complex conductorPermittivity(double epsilonReal, double sigma, double wavelength) {
         double omega = 2 * Math.PI * C0 / wavelength;
-        return new Complex(epsilonReal, sigma / (omega * EPSILON0));
+        return new Complex(epsilonReal, sigma / (omega * EPS0));
     }
 
     @Test
@@ -425,7 +427,6 @@ class BeamRunTest {
      * order in the cell size (the flux line averages E over two rows: cos(kyΔ/2) ≈ 1 − 0.8 %).
      */
     static final double BEAM_POWER_TOLERANCE = 0.03;
-    static final double ETA0 = 376.730313668;
 
     /**
      * Issue #13: the lateral shift measured from where the incident beam itself goes on the grid. At 50° the

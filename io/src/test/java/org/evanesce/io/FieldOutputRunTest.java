@@ -1,5 +1,6 @@
 package org.evanesce.io;
 
+import static org.evanesce.geometry.PhysicalConstants.C0;
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
@@ -52,8 +53,6 @@ import org.w3c.dom.NodeList;
  */
 class FieldOutputRunTest {
 
-    /** Speed of light in vacuum, m/s (exact, SI). */
-    static final double C0 = 299_792_458.0;
     /** Index of the glass the plane wave comes from. */
     static final double N_GLASS = 1.5;
     /** Index of the medium beyond the face (vacuum, not the library's air). */

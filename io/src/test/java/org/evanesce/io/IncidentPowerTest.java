@@ -1,5 +1,7 @@
 package org.evanesce.io;
 
+import static org.evanesce.geometry.PhysicalConstants.C0;
+import static org.evanesce.geometry.PhysicalConstants.ETA0;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -42,8 +44,6 @@ import org.junit.jupiter.params.provider.ValueSource;
  */
 class IncidentPowerTest {
 
-    static final double ETA0 = 376.730313668;
-    static final double C0 = 299_792_458.0;
     static final double N_GLASS = 1.5;
     static final double AMPLITUDE = 2;
     static final double ANGLE_DEG = 30;

@@ -6,9 +6,9 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.Arrays;
 import java.util.List;
+import org.evanesce.geometry.Complex;
 import org.evanesce.io.cli.ExitCode;
 import org.evanesce.solver.grid.Polarization;
-import org.evanesce.solver.reference.Complex;
 import org.evanesce.solver.reference.Evanescent;
 import org.evanesce.solver.reference.PlanarStack;
 import org.junit.jupiter.api.Test;

@@ -43,7 +43,6 @@ import org.evanesce.io.sweep.SweepPoint;
 import org.evanesce.io.sweep.SweepRecord;
 import org.evanesce.io.sweep.SweepRunner;
 import org.evanesce.solver.DivergenceException;
-import org.evanesce.solver.grid.Precision;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -383,8 +382,7 @@ public final class SweepCommand implements Callable<Integer> {
                     cells = c;
                     rows = plan.grid().ny();
                 }
-                long perNode = lc.spec().numerics().precision().value() == Precision.DOUBLE ? 56 : 28;
-                bytes = Math.max(bytes, c * perNode * (plan.flux().isPresent() ? 2 : 1));
+                bytes = Math.max(bytes, plan.memory().total());
             } catch (PlanException e) {
                 bad++;
                 for (Diagnostic d : e.diagnostics()) {

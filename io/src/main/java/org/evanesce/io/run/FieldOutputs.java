@@ -12,12 +12,12 @@ import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.GridSpec;
 import org.evanesce.io.output.hdf5.FieldDataset;
 import org.evanesce.io.output.hdf5.Hdf5Writer;
-import org.evanesce.io.output.hdf5.Precision;
 import org.evanesce.io.output.hdf5.Xdmf;
 import org.evanesce.io.output.image.FieldPicture;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.grid.Precision;
 import org.evanesce.solver.record.Nodes;
 import org.evanesce.solver.record.Snapshots;
 import org.evanesce.solver.record.StepView;
@@ -89,11 +89,11 @@ public final class FieldOutputs {
                 Map<String, Object> a = attributes(plan, r, comps.get(c), "field");
                 a.put("time_s", times[c]);
                 a.put("step", step);
-                FieldDataset d = new FieldDataset(name(comps.get(c)), re[c], r.nx(), r.ny(), Precision.SINGLE, a);
+                FieldDataset d = new FieldDataset(name(comps.get(c)), re[c], r.nx(), r.ny(), Precision.FLOAT, a);
                 sets.add(d);
                 attrs.add(Xdmf.Attribute.of(d.name(), "frames/" + file, d));
                 if (im != null) {
-                    FieldDataset di = new FieldDataset(name(comps.get(c)) + "_imag", im[c], r.nx(), r.ny(), Precision.SINGLE, a);
+                    FieldDataset di = new FieldDataset(name(comps.get(c)) + "_imag", im[c], r.nx(), r.ny(), Precision.FLOAT, a);
                     sets.add(di);
                     attrs.add(Xdmf.Attribute.of(di.name(), "frames/" + file, di));
                 }
@@ -134,12 +134,12 @@ public final class FieldOutputs {
             Map<String, Object> a = attributes(plan, r, c, "field");
             a.put("time_s", v.time(c));
             a.put("step", v.stepCount());
-            FieldDataset d = new FieldDataset(name(c), nodes, r.nx(), r.ny(), Precision.SINGLE, a);
+            FieldDataset d = new FieldDataset(name(c), nodes, r.nx(), r.ny(), Precision.FLOAT, a);
             sets.add(d);
             attrs.add(Xdmf.Attribute.of(d.name(), "fields.h5", d));
             if (bloch) {
                 FieldDataset di = new FieldDataset(name(c) + "_imag", Nodes.average(c, rawIm, r.nx(), r.ny()), r.nx(), r.ny(),
-                        Precision.SINGLE, a);
+                        Precision.FLOAT, a);
                 sets.add(di);
                 attrs.add(Xdmf.Attribute.of(di.name(), "fields.h5", di));
             }

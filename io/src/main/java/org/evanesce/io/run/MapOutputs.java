@@ -8,19 +8,19 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import org.evanesce.geometry.GridSpec;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.io.casefile.MapsSpec;
 import org.evanesce.io.casefile.SourceSpec;
 import org.evanesce.io.output.hdf5.FieldDataset;
 import org.evanesce.io.output.hdf5.Hdf5Writer;
-import org.evanesce.io.output.hdf5.Precision;
 import org.evanesce.io.output.hdf5.Xdmf;
 import org.evanesce.io.output.image.FieldPicture;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.FieldPlan;
 import org.evanesce.io.plan.PlaneWaves;
-import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.grid.Precision;
 import org.evanesce.solver.record.FieldMap;
 import org.evanesce.solver.record.Nodes;
 import org.evanesce.solver.reference.DecayFit;
@@ -76,7 +76,7 @@ public final class MapOutputs {
                     a.put("frequency_hz", f);
                     a.put("wavelength_m", wl);
                     FieldDataset d = new FieldDataset(FieldOutputs.name(c) + "_" + part + "_" + tag, part.equals("real") ? re : im,
-                            r.nx(), r.ny(), Precision.SINGLE, a);
+                            r.nx(), r.ny(), Precision.FLOAT, a);
                     sets.add(d);
                     attrs.add(Xdmf.Attribute.of(FieldOutputs.name(c) + "_" + part, "maps.h5", d));
                 }
@@ -103,7 +103,7 @@ public final class MapOutputs {
             a.put("unit", "V/m s");
             a.put("frequency_hz", f);
             a.put("wavelength_m", wl);
-            FieldDataset d = new FieldDataset("E_magnitude_" + tag, mag, r.nx(), r.ny(), Precision.SINGLE, a);
+            FieldDataset d = new FieldDataset("E_magnitude_" + tag, mag, r.nx(), r.ny(), Precision.FLOAT, a);
             sets.add(d);
             attrs.add(Xdmf.Attribute.of("E_magnitude", "maps.h5", d));
             grids.add(new Xdmf.Grid("map " + tag, r.nx(), r.ny(), r.x0(), r.y0(), r.cellSize(), attrs));

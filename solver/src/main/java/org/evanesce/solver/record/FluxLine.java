@@ -1,6 +1,6 @@
 package org.evanesce.solver.record;
 
-import org.evanesce.solver.PhysicalConstants;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
 

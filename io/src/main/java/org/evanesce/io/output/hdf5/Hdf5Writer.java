@@ -13,6 +13,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import org.evanesce.io.output.SafeFiles;
+import org.evanesce.solver.grid.Precision;
 
 /**
  * Writes 2D field datasets to one HDF5 file with jhdf, atomically.
@@ -20,7 +21,7 @@ import org.evanesce.io.output.SafeFiles;
  * <p>Layout: every dataset sits in the root group under its name, contiguous (no chunking or
  * compression), with shape {@code [ny][nx]}: the slowest axis is y, the fastest x, so element
  * {@code [j][i]} is the value at x index i and y index j ({@code values[j*nx + i]} of the
- * {@link FieldDataset}). {@link Precision#SINGLE} is stored as {@code H5T_IEEE_F32LE},
+ * {@link FieldDataset}). {@link Precision#FLOAT} is stored as {@code H5T_IEEE_F32LE},
  * {@link Precision#DOUBLE} as {@code H5T_IEEE_F64LE}. Attributes are written as jhdf writes them:
  * strings as fixed-length UTF-8, {@code Double}/{@code double[]} as float64 scalar/1D,
  * {@code Integer} as int32, {@code Long} as int64. jhdf adds a root attribute {@code _jHDF} with
@@ -52,7 +53,7 @@ public final class Hdf5Writer {
      * @param rootAttributes attributes of the root group (same value types as {@link FieldDataset})
      * @param datasets       the datasets, with distinct names, written in this order
      * @throws IllegalArgumentException if names repeat, an attribute is not allowed, or a finite
-     *         value overflows float32 in a {@link Precision#SINGLE} dataset; nothing is written then
+     *         value overflows float32 in a {@link Precision#FLOAT} dataset; nothing is written then
      * @throws IOException if the target is a folder, its folder is missing, or writing or renaming
      *         fails; the target is then unchanged and no temporary is left
      */
@@ -78,7 +79,7 @@ public final class Hdf5Writer {
             if (!names.add(d.name())) {
                 throw new IllegalArgumentException("dataset name " + d.name() + " appears twice in " + abs);
             }
-            arrays[k] = d.precision() == Precision.SINGLE ? floatRows(d) : doubleRows(d);
+            arrays[k] = d.precision() == Precision.FLOAT ? floatRows(d) : doubleRows(d);
         }
         Path dir = abs.getParent();
         if (dir == null || !Files.isDirectory(dir)) {

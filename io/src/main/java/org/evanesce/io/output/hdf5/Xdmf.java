@@ -3,6 +3,7 @@ package org.evanesce.io.output.hdf5;
 import java.util.HashSet;
 import java.util.List;
 import java.util.Set;
+import org.evanesce.solver.grid.Precision;
 
 /**
  * XDMF 3 documents (an open XML standard read by general viewers) that describe 2D field datasets
@@ -106,7 +107,7 @@ public final class Xdmf {
 
         /** The attribute for a dataset written by {@link Hdf5Writer} to {@code file}. */
         public static Attribute of(String name, String file, FieldDataset dataset) {
-            return new Attribute(name, file, dataset.name(), dataset.precision().bytes());
+            return new Attribute(name, file, dataset.name(), dataset.precision().bytes);
         }
     }
 
