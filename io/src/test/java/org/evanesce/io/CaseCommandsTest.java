@@ -16,7 +16,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 /**
- * The contract of {@code evanesce run} and {@code check} (README exit codes, DESIGN.md output
+ * The contract of {@code evanesce run} and {@code check} (README exit codes, docs/architecture.md output
  * conventions): a finished folder is never overwritten without {@code --force}; a case with errors
  * reports each at file:line:column, exits 2 and writes nothing; a run that diverges exits 3 and
  * leaves no folder; {@code --set} of a parameter the case does not define exits 2.

@@ -17,7 +17,7 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 
 /**
- * Threaded runs must equal the single-threaded run bit for bit (STYLE.md: awkward sizes, 1, 2 and
+ * Threaded runs must equal the single-threaded run bit for bit (common practice: awkward sizes, 1, 2 and
  * 3 threads, threading threshold lowered), with every boundary kind, losses and sources present.
  */
 class ThreadEqualityTest {

@@ -10,7 +10,7 @@ import org.evanesce.geometry.PhysicalConstants;
  * permittivity, a conductivity, and any number of Drude and Lorentz terms.
  *
  * <h2>Continuous model</h2>
- * Time dependence exp(−iωt) (the project's convention, DESIGN.md), ω in rad/s:
+ * Time dependence exp(−iωt) (the project's convention, docs/architecture.md), ω in rad/s:
  * <pre>
  *     ε(ω) = ε∞ + iσ/(ε0 ω) − Σ_Drude ωp²/(ω² + iγω) + Σ_Lorentz W/(ω0² − ω² − iγω)
  * </pre>

@@ -49,7 +49,7 @@ import org.evanesce.solver.source.Source;
 import org.evanesce.solver.source.TimeSignal;
 
 /**
- * Maps a validated {@link CaseSpec} onto the geometry and the solver (DESIGN.md: CaseSpec →
+ * Maps a validated {@link CaseSpec} onto the geometry and the solver (docs/architecture.md: CaseSpec →
  * Scene + GridSpec → MaterialGrid → the solver's plan). Whatever the file format allows but this
  * version cannot run is refused here with the case file's position.
  */

@@ -30,7 +30,7 @@ import org.evanesce.solver.record.StepView;
  */
 public final class FieldOutputs {
 
-    /** Electric fields are stored in V/m; magnetic ones as η0·H, also in V/m (DESIGN.md). */
+    /** Electric fields are stored in V/m; magnetic ones as η0·H, also in V/m (docs/architecture.md). */
     static String unit(Component c) {
         return c.electric ? "V/m" : "V/m (eta0*H)";
     }

@@ -6,7 +6,7 @@ import org.evanesce.solver.grid.Polarization;
 
 /**
  * Running discrete Fourier transforms of the tangential fields on a horizontal line, and the
- * Poynting flux through it per frequency (time dependence exp(−iωt), DESIGN.md).
+ * Poynting flux through it per frequency (time dependence exp(−iωt), docs/architecture.md).
  *
  * <p>The line lies at y = (row + ½)Δ, where the magnetic component that pairs with the
  * electric one sits: for s, Hx(i, row) with Ez averaged over rows row and row + 1; for p,
