@@ -59,17 +59,18 @@ class BeamRunTest {
      */
     static final double BEAM_AVERAGE_TOLERANCE = 4e-6;
     /**
-     * R + T = 1 in a lossless scene with the beam far from the sides (issue #5's 1 %). Measured: a few
-     * 1e-6.
+     * R + T = 1 in a lossless scene with the beam far from the sides (issue #5 asked for 1 %). Measured:
+     * R + T = 1.000005 (the gap case, 20 cells per wavelength); about 10 times that.
      */
-    static final double ENERGY_TOLERANCE = 0.01;
+    static final double ENERGY_TOLERANCE = 5e-5;
     /** Issue #5's bound on the simulated A = 1 − R − T against the angular-spectrum A_beam. */
     static final double ABSORPTANCE_TOLERANCE = 0.01;
     /**
-     * Issue #5's bound on A_beam of a wide beam against the plane-wave absorptance at the beam's angle
-     * (the beam's angular spread changes A by about 2e-5 here).
+     * A_beam of a wide beam against the plane-wave absorptance at the beam's angle: the beam's angular
+     * spread changes A by 1.7e-5 here (measured: A_beam 0.432727, plane wave 0.432710); about 10 times
+     * that (issue #5 asked for 5e-3).
      */
-    static final double WIDE_BEAM_TOLERANCE = 5e-3;
+    static final double WIDE_BEAM_TOLERANCE = 2e-4;
     /**
      * The program's A_plane_wave against the characteristic matrix written here: the same exact result,
      * so round-off plus the 9 decimals of flux.csv.

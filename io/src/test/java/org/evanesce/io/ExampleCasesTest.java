@@ -36,7 +36,7 @@ class ExampleCasesTest {
     static final String COARSE_CPW = "6";
     /** Long enough for every source to have started and fields to reach the probes' neighbourhood. */
     static final String SHORT_DURATION = "50 fs";
-    /** The output files each {@code output.write} item asks for (only these exist in this version). */
+    /** The file each {@code output.write} item of the shipped examples asks for (an example with another item fails until it is added here). */
     static final Map<String, String> WRITTEN = Map.of("probes", "probes.csv", "preview", "preview.png");
 
 
