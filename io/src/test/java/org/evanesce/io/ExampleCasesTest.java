@@ -14,6 +14,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -89,7 +90,7 @@ class ExampleCasesTest {
     void checks(Path example, @TempDir Path tmp) {
         Path png = tmp.resolve("preview.png");
         Cli.Outcome o = Cli.run("check", example.toString(), "--trial-seconds", "0", "--preview", png.toString());
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         assertTrue(o.out().contains("valid"), o::toString);
         assertFalse(o.err().lines().anyMatch(l -> l.matches(".*:\\d+:\\d+: warning:.*")),
                 () -> "an example at its own resolution should raise no warnings:\n" + o);

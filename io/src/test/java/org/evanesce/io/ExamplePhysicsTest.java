@@ -11,6 +11,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.stream.Stream;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.MethodSource;
@@ -69,7 +70,7 @@ class ExamplePhysicsTest {
             List<String> args = new ArrayList<>(List.of("run", example.toString(), "--out", out.toString()));
             overrides.forEach((k, v) -> args.addAll(List.of("--set", k + "=" + v)));
             Cli.Outcome o = Cli.run(args.toArray(String[]::new));
-            assertEquals(Main.OK, o.code(), o::toString);
+            assertEquals(ExitCode.OK, o.code(), o::toString);
             ExampleCasesTest.assertWroteWhatItAsks(example, out, o, overrides.get("cpw"));
             outs.add(out);
         }

@@ -16,6 +16,8 @@ import java.util.List;
 import java.util.Random;
 import java.util.concurrent.TimeUnit;
 import java.util.stream.Stream;
+import org.evanesce.io.cli.ExitCode;
+import org.evanesce.io.output.Faults;
 import org.evanesce.io.output.SafeFiles;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -54,7 +56,7 @@ class FaultsTest {
 
     /** The outcome failed with exit 3 and one line naming {@code path} and containing {@code cause}. */
     private static void failedWith(Cli.Outcome o, String path, String cause) {
-        assertEquals(Main.RUN_FAILED, o.code(), o::toString);
+        assertEquals(ExitCode.RUN_FAILED, o.code(), o::toString);
         List<String> lines = o.err().lines().filter(l -> !l.contains(": note: ") && !l.startsWith("WARNING")).toList();
         assertEquals(1, lines.size(), () -> "one line on stderr: " + o);
         assertTrue(lines.get(0).contains(path) && lines.get(0).contains(cause), () -> "names " + path + " and " + cause + ": " + o);
@@ -92,7 +94,7 @@ class FaultsTest {
         try {
             Path out = small.resolve("out");
             Cli.Outcome o = Cli.run("run", caseFile().toString(), "--out", out.toString());
-            assertEquals(Main.RUN_FAILED, o.code(), o::toString);
+            assertEquals(ExitCode.RUN_FAILED, o.code(), o::toString);
             failedWith(o, out.toString(), "no space left on the device");
             assertEquals(List.of(), names(small), "nothing partial left on the full file system");
         } finally {
@@ -135,10 +137,10 @@ class FaultsTest {
         Path c = caseFile();
         Path longOut = tmp.resolve("x".repeat(200));
         Cli.Outcome o = Cli.run("run", c.toString(), "--out", longOut.toString());
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains("200 bytes long") && o.err().contains("at most"), o::toString);
         Cli.Outcome deep = Cli.run("run", c.toString(), "--out", tmp.resolve("y".repeat(300)).resolve("out").toString());
-        assertEquals(Main.USAGE, deep.code(), deep::toString);
+        assertEquals(ExitCode.USAGE, deep.code(), deep::toString);
         assertEquals(List.of("tiny.yaml"), names(tmp));
     }
 
@@ -164,7 +166,7 @@ class FaultsTest {
     void aDamagedHdf5FileGivenToRedrawEndsWithOneSentence() throws IOException {
         Path out = tmp.resolve("out");
         Cli.Outcome run = Cli.run("run", caseFile().toString(), "--out", out.toString());
-        assertEquals(Main.OK, run.code(), run::toString);
+        assertEquals(ExitCode.OK, run.code(), run::toString);
         byte[] good = Files.readAllBytes(out.resolve("fields.h5"));
 
         Path cut = Files.createDirectories(tmp.resolve("cut"));
@@ -178,7 +180,7 @@ class FaultsTest {
         failedWith(Cli.run("redraw", noise.toString()), noise.resolve("fields.h5").toString(), "not a readable HDF5 file");
 
         Cli.Outcome missing = Cli.run("redraw", tmp.resolve("nowhere").toString());
-        assertEquals(Main.USAGE, missing.code(), missing::toString);
+        assertEquals(ExitCode.USAGE, missing.code(), missing::toString);
         assertEquals(List.of("fields.h5"), names(cut), "no pictures half written");
     }
 

@@ -1,5 +1,6 @@
 package org.evanesce.io;
 
+import static org.evanesce.geometry.PhysicalConstants.C0;
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
@@ -53,8 +54,6 @@ import org.w3c.dom.NodeList;
  */
 class FieldOutputRunTest {
 
-    /** Speed of light in vacuum, m/s (exact, SI). */
-    static final double C0 = 299_792_458.0;
     /** Index of the glass the plane wave comes from. */
     static final double N_GLASS = 1.5;
     /** Index of the medium beyond the face (vacuum, not the library's air). */
@@ -689,9 +688,9 @@ class FieldOutputRunTest {
         a.put("origin_m", new double[] {0, 0});
         org.evanesce.io.output.hdf5.Hdf5Writer.write(dir.resolve("maps.h5"), Map.of(), List.of(
                 new org.evanesce.io.output.hdf5.FieldDataset("Ez_real_633.00nm", new double[12], 4, 3,
-                        org.evanesce.io.output.hdf5.Precision.SINGLE, a),
+                        org.evanesce.solver.grid.Precision.FLOAT, a),
                 new org.evanesce.io.output.hdf5.FieldDataset("material_id", new double[12], 4, 3,
-                        org.evanesce.io.output.hdf5.Precision.DOUBLE, Map.of("log_decades", 5.0))));
+                        org.evanesce.solver.grid.Precision.DOUBLE, Map.of("log_decades", 5.0))));
         Cli.Outcome o = Cli.run("redraw", dir.toString());
         assertEquals(2, o.code(), () -> "redraw of an earlier maps.h5: " + o);
         assertTrue(o.err().contains(dir.resolve("maps.h5").toString()) && o.err().contains("Ez_real_633.00nm")

@@ -12,6 +12,7 @@ import java.util.Locale;
 import java.util.Random;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -114,7 +115,7 @@ class FitCommandTest {
         Path d = angleScan(230e-9, 0, false);
         Path out = tmp.resolve("fit-exact");
         Cli.Outcome o = Cli.run("fit", c.toString(), "--data", d.toString(), "--free", "gap=100nm..400nm", "--out", out.toString());
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         // the printed value has 6 digits; fit.json every digit. Measured: |gap - 230 nm| < 1e-6 nm
         String json = Files.readString(out.resolve("fit.json"));
         Matcher v = Pattern.compile("\"value\": (\\S+),").matcher(json);
@@ -133,7 +134,7 @@ class FitCommandTest {
         Path d = angleScan(gap, sigma, true);
         Cli.Outcome o = Cli.run("fit", c.toString(), "--data", d.toString(), "--free", "gap=100nm..400nm",
                 "--out", tmp.resolve("fit-noisy").toString());
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         double fitted = printed(o.out(), "gap");
         // one parameter, weights 1/u: sigma_d = u / sqrt(sum (dT/dd)^2) (Press et al., Numerical Recipes, 3rd ed., 15.4),
         // the derivative taken from the closed form
@@ -174,7 +175,7 @@ class FitCommandTest {
         Path d = angleScan(230e-9, 0.003, false);
         Cli.Outcome o = Cli.run("fit", c.toString(), "--data", d.toString(), "--free", "gap=100nm..400nm",
                 "--free", "scale=0.5..1.5", "--free", "angle_offset=-2deg..2deg", "--out", tmp.resolve("fit-3").toString());
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         assertTrue(o.out().contains("are correlated"), o.out());
         String json = Files.readString(tmp.resolve("fit-3/fit.json"));
         assertTrue(json.contains("are correlated"), json);
@@ -186,7 +187,7 @@ class FitCommandTest {
         Path d = angleScan(230e-9, 0, false);
         Cli.Outcome o = Cli.run("fit", c.toString(), "--data", d.toString(), "--free", "gap=100nm..210nm",
                 "--out", tmp.resolve("fit-bound").toString());
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         assertTrue(o.out().contains("gap = 210 nm sits on its upper bound"), o.out());
     }
 
@@ -200,7 +201,7 @@ class FitCommandTest {
         }
         Cli.Outcome o = Cli.run("fit", caseFile().toString(), "--data", data("gaps.csv", sb.toString()).toString(),
                 "--free", "scale=0.5..1.5", "--out", tmp.resolve("fit-gaps").toString());
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         Matcher m = Pattern.compile("scale\\s+(\\S+) \\+/-").matcher(o.out());
         assertTrue(m.find(), o.out());
         assertEquals(0.9, Double.parseDouble(m.group(1)), 1e-6, o.out());
@@ -222,7 +223,7 @@ class FitCommandTest {
             Path d = data("bad.csv", k[0]);
             Path out = tmp.resolve("never");
             Cli.Outcome o = Cli.run("fit", c.toString(), "--data", d.toString(), "--free", "gap=100nm..400nm", "--out", out.toString());
-            assertEquals(Main.USAGE, o.code(), o::toString);
+            assertEquals(ExitCode.USAGE, o.code(), o::toString);
             assertTrue(o.err().contains(k[1]), () -> "expected '" + k[1] + "' in\n" + o);
             assertFalse(o.err().contains("Exception"), o::toString);
             assertFalse(Files.exists(out), "nothing written");
@@ -242,7 +243,7 @@ class FitCommandTest {
             {"scale=1nm..2nm", "scale takes plain numbers"}};
         for (String[] k : cases) {
             Cli.Outcome o = Cli.run("fit", c.toString(), "--data", d.toString(), "--free", k[0], "--out", tmp.resolve("never").toString());
-            assertEquals(Main.USAGE, o.code(), o::toString);
+            assertEquals(ExitCode.USAGE, o.code(), o::toString);
             assertTrue(o.err().contains(k[1]), () -> "expected '" + k[1] + "' in\n" + o);
             assertFalse(Files.exists(tmp.resolve("never")));
         }

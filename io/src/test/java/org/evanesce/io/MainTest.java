@@ -8,6 +8,7 @@ import java.util.HashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.Test;
 
 /** Runs the command line in-process and checks exit codes and output. */
@@ -19,7 +20,7 @@ class MainTest {
     @Test
     void versionPrintsTheMavenVersionAndTheBuild() {
         Cli.Outcome o = Cli.run("--version");
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         assertTrue(o.out().startsWith("evanesce 0."), o::toString);
         String first = o.out().lines().findFirst().orElse("");
         assertTrue(first.matches("evanesce 0\\.[^ ,]+, build ([0-9a-f]{12}|unknown)( with uncommitted changes)? \\([^)]+\\)"),
@@ -30,7 +31,7 @@ class MainTest {
     @Test
     void unknownOptionIsAUsageErrorOnOneLine() {
         Cli.Outcome o = Cli.run("bench", "--no-such-option");
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertEquals("", o.out(), o::toString);
         assertEquals(1, o.err().lines().count(), o::toString);
         assertTrue(o.err().contains("--no-such-option"), o::toString);
@@ -39,14 +40,14 @@ class MainTest {
     @Test
     void missingCommandIsAUsageError() {
         Cli.Outcome o = Cli.run();
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertEquals(1, o.err().lines().count(), o::toString);
     }
 
     @Test
     void unknownPrecisionIsAUsageError() {
         Cli.Outcome o = Cli.run("bench", "--precision", "quadruple");
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertEquals(1, o.err().lines().count(), o::toString);
         assertTrue(o.err().contains("quadruple"), o::toString);
     }
@@ -57,7 +58,7 @@ class MainTest {
             {"bench", "--size", "10"}, {"bench", "--threads", "0"}, {"bench", "--seconds", "0"},
             {"bench", "--repeats", "0"}, {"bench", "--min-cells-per-thread", "0"}, {"bench", "--threads", "many"}}) {
             Cli.Outcome o = Cli.run(args);
-            assertEquals(Main.USAGE, o.code(), () -> String.join(" ", args) + ": " + o);
+            assertEquals(ExitCode.USAGE, o.code(), () -> String.join(" ", args) + ": " + o);
             assertEquals("", o.out(), () -> String.join(" ", args) + ": " + o);
             assertEquals(1, o.err().lines().count(), () -> String.join(" ", args) + ": " + o);
         }
@@ -78,7 +79,7 @@ class MainTest {
         Cli.Outcome o = Cli.run("bench", "--csv", "--size", "64", "--threads", "1", "--polarization", "s",
                 "--polarization", "p", "--precision", "float", "--precision", "double", "--seconds", "0.05",
                 "--warm-up", "0", "--repeats", "1");
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         String[] lines = o.out().split("\\R");
         assertEquals(5, lines.length, o::toString);
         List<String> head = Arrays.asList(lines[0].split(","));
@@ -100,7 +101,7 @@ class MainTest {
     void benchCsvHasOneRowPerCase() {
         Cli.Outcome o = Cli.run("bench", "--csv", "--size", "48", "--size", "64", "--threads", "1", "--seconds", "0.05",
                 "--warm-up", "0", "--repeats", "1");
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         String[] lines = o.out().split("\\R");
         assertEquals(3, lines.length, o::toString);
         String[] head = lines[0].split(",");
@@ -117,7 +118,7 @@ class MainTest {
     void benchInterleavedTimesEveryCase() {
         Cli.Outcome o = Cli.run("bench", "--csv", "--interleave", "--size", "64", "--threads", "1", "--threads", "2",
                 "--min-cells-per-thread", "64", "--seconds", "0.05", "--warm-up", "0", "--repeats", "3");
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         String[] lines = o.out().split("\\R");
         assertEquals(3, lines.length, o::toString);
         assertTrue(lines[1].startsWith("64,s,float,1,1,") && lines[2].startsWith("64,s,float,2,2,"), o::toString);

@@ -7,6 +7,7 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -57,8 +58,8 @@ class StackCaseTest {
         Cli.Outcome fromCase = Cli.run("stack", "--case", c.toString(), "--set", "film=170nm", "--csv", "--angle", "30:60:5");
         Cli.Outcome typed = Cli.run("stack", "--incident", "1.5", "--layer", "1.2:170nm", "--layer", "1.5:40nm", "--layer",
                 "1.2:80nm", "--exit", "1.5", "--wavelength", "600nm", "--csv", "--angle", "30:60:5");
-        assertEquals(Main.OK, fromCase.code(), fromCase::toString);
-        assertEquals(Main.OK, typed.code(), typed::toString);
+        assertEquals(ExitCode.OK, fromCase.code(), fromCase::toString);
+        assertEquals(ExitCode.OK, typed.code(), typed::toString);
         // the layer edges are found to adjacent doubles, so the thicknesses and the numbers agree to round-off
         List<String> a = rows(fromCase.out());
         List<String> b = rows(typed.out());
@@ -79,7 +80,7 @@ class StackCaseTest {
         Path c = tmp.resolve("film.yaml");
         Files.writeString(c, CASE);
         Cli.Outcome o = Cli.run("stack", "--case", c.toString());
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         assertTrue(o.out().contains("wavelength 600 nm; angle 50 deg;"), o.out());
         assertTrue(o.out().contains("the case's polarization is p"), o.out());
     }
@@ -89,10 +90,10 @@ class StackCaseTest {
         Path c = tmp.resolve("film.yaml");
         Files.writeString(c, CASE);
         Cli.Outcome o = Cli.run("stack", "--case", c.toString(), "--exit", "1.5");
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains("leave out --incident, --layer and --exit"), o.err());
         Cli.Outcome m = Cli.run("stack", "--incident", "1.5", "--exit", "1.0");
-        assertEquals(Main.USAGE, m.code(), m::toString);
+        assertEquals(ExitCode.USAGE, m.code(), m::toString);
         assertTrue(m.err().contains("missing --wavelength (or give --case FILE"), m.err());
     }
 }

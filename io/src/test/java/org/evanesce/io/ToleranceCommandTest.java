@@ -9,6 +9,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.evanesce.io.cli.ExitCode;
 import org.hipparchus.special.Erf;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -61,7 +62,7 @@ class ToleranceCommandTest {
         Path out = tmp.resolve("study");
         Cli.Outcome o = Cli.run("tolerance", caseFile().toString(), "--vary", "gap=normal(200nm,10nm)", "--require",
                 "T=" + a + ".." + b, "--samples", Integer.toString(n), "--seed", "7", "--out", out.toString());
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         Matcher m = Pattern.compile("yield: (\\d+) of 400 parts").matcher(o.out());
         assertTrue(m.find(), o.out());
         double measured = Integer.parseInt(m.group(1)) / (double) n;
@@ -75,7 +76,7 @@ class ToleranceCommandTest {
         // the same seed draws the same parts: the first 40 of them again
         Cli.Outcome again = Cli.run("tolerance", caseFile().toString(), "--vary", "gap=normal(200nm,10nm)", "--require",
                 "T=" + a + ".." + b, "--samples", "40", "--seed", "7", "--out", tmp.resolve("again").toString());
-        assertEquals(Main.OK, again.code(), again::toString);
+        assertEquals(ExitCode.OK, again.code(), again::toString);
         assertEquals(Files.readAllLines(out.resolve("samples.csv")).subList(0, 41), Files.readAllLines(tmp.resolve("again/samples.csv")));
     }
 
@@ -96,7 +97,7 @@ class ToleranceCommandTest {
                         tmp.resolve("never").toString()}
                     : new String[] {"tolerance", c.toString(), k[0], k[1], "--out", tmp.resolve("never").toString()};
             Cli.Outcome o = Cli.run(args);
-            assertEquals(Main.USAGE, o.code(), o::toString);
+            assertEquals(ExitCode.USAGE, o.code(), o::toString);
             assertTrue(o.err().contains(k[2]), () -> "expected '" + k[2] + "' in\n" + o);
             assertFalse(o.err().contains("Exception"), o::toString);
             assertFalse(Files.exists(tmp.resolve("never")));

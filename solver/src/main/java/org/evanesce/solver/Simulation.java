@@ -5,6 +5,7 @@ import java.util.EnumMap;
 import java.util.List;
 import java.util.Map;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
@@ -30,12 +31,10 @@ import org.evanesce.solver.source.Source;
 public final class Simulation implements StepView, AutoCloseable {
 
     /**
-     * The 2D Courant limit 1/√2.
-     *
-     * @deprecated {@link Courant#LIMIT_2D} is its one home; kept until io.casefile's reader switches to it
+     * The fewest cells a thread must have before the team uses another ({@link Builder#minCellsPerThread}'s
+     * default): handing a band over costs more than a smaller band's step.
      */
-    @Deprecated
-    public static final double COURANT_LIMIT_2D = Courant.LIMIT_2D;
+    public static final int MIN_CELLS_PER_THREAD = 1 << 15;
 
     private final Engine engine;
     private final BandTeam team;
@@ -438,7 +437,7 @@ public final class Simulation implements StepView, AutoCloseable {
         private double courant = Courant.DEFAULT;
         private final Map<Side, Boundary> sides = new EnumMap<>(Side.class);
         private int threads = Runtime.getRuntime().availableProcessors();
-        private int minRowsCellsPerThread = 1 << 15;
+        private int minRowsCellsPerThread = MIN_CELLS_PER_THREAD;
         private final List<Source> sources = new ArrayList<>();
         private final List<IncidentSheet> sheets = new ArrayList<>();
         private final List<StepListener> listeners = new ArrayList<>();
@@ -487,7 +486,7 @@ public final class Simulation implements StepView, AutoCloseable {
             return this;
         }
 
-        /** Fewest cells a thread must have before another thread is used (default 32768; tests lower it). */
+        /** Fewest cells a thread must have before another thread is used (default {@value #MIN_CELLS_PER_THREAD}; tests lower it). */
         public Builder minCellsPerThread(int cells) {
             minRowsCellsPerThread = cells;
             return this;

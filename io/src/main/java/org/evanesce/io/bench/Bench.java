@@ -7,7 +7,7 @@ import java.util.Arrays;
 import java.util.List;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
-import org.evanesce.solver.PhysicalConstants;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;

@@ -10,7 +10,6 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
-import org.evanesce.io.Main;
 import org.evanesce.io.fit.FitInputException;
 import org.evanesce.io.fit.FitRun;
 import org.evanesce.io.output.OutputFolders;
@@ -64,7 +63,7 @@ public final class FitCommand implements Callable<Integer> {
         for (Path p : new Path[] {caseFile, data}) {
             if (!Files.exists(p)) {
                 err.println("evanesce fit: " + p + ": no such file");
-                return Main.USAGE;
+                return ExitCode.USAGE;
             }
         }
         Path folder = (out != null ? out : defaultFolder(caseFile)).toAbsolutePath().normalize();
@@ -83,15 +82,15 @@ public final class FitCommand implements Callable<Integer> {
                             warnings.size());
                 }
                 o.println("Caution: " + RunOutputs.CAUTION);
-                return Main.OK;
+                return ExitCode.OK;
             }
         } catch (NoSuchFileException e) {
             err.println("evanesce fit: " + e.getFile() + ": no such file");
-            return Main.USAGE;
+            return ExitCode.USAGE;
         } catch (FitInputException e) {
             err.println("evanesce fit: " + e.getMessage());
             err.println("evanesce fit: nothing was written (see 'evanesce fit --help')");
-            return Main.USAGE;
+            return ExitCode.USAGE;
         }
     }
 

@@ -14,7 +14,6 @@ import java.util.concurrent.Callable;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.evanesce.geometry.GridSpec;
-import org.evanesce.io.Main;
 import org.evanesce.io.output.image.FieldPicture;
 import org.evanesce.io.run.MapOutputs;
 import org.evanesce.solver.grid.Component;
@@ -88,7 +87,7 @@ public final class RedrawCommand implements Callable<Integer> {
             written += readable(fields, () -> redrawFields(fields, folder.resolve("permittivity.h5"), dir));
         }
         o.printf(Locale.ROOT, "redrew %d pictures into %s%n", written, dir);
-        return Main.OK;
+        return ExitCode.OK;
     }
 
     /** Reading one HDF5 file and drawing its pictures. */

@@ -5,7 +5,6 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
-import org.evanesce.io.Main;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Unmatched;
 
@@ -29,6 +28,6 @@ public final class RenderRefused implements Callable<Integer> {
         spec.commandLine().getErr().printf("evanesce render: the command 'render' is now called 'redraw': run 'evanesce redraw "
                 + "%s' (it redraws the pictures of a results folder from its HDF5 files)%n",
                 arguments.isEmpty() ? "FOLDER" : String.join(" ", arguments));
-        return Main.USAGE;
+        return ExitCode.USAGE;
     }
 }

@@ -8,11 +8,10 @@ import java.util.concurrent.Callable;
 import java.util.function.ToDoubleFunction;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
-import org.evanesce.io.Main;
+import org.evanesce.geometry.Complex;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.solver.grid.Polarization;
-import org.evanesce.solver.reference.Complex;
 import org.evanesce.solver.reference.Evanescent;
 import org.evanesce.solver.reference.PlanarStack;
 import picocli.CommandLine.Command;
@@ -225,7 +224,7 @@ public final class StackCommand implements Callable<Integer> {
             out.println(tableRow(head));
         }
         rows.forEach(out::println);
-        return Main.OK;
+        return ExitCode.OK;
     }
 
     /**

@@ -9,7 +9,6 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
-import org.evanesce.io.Main;
 import org.evanesce.io.output.OutputFolders;
 import org.evanesce.io.output.RunFolder;
 import org.evanesce.io.run.RunOutputs;
@@ -68,11 +67,11 @@ public final class ToleranceCommand implements Callable<Integer> {
         PrintWriter err = spec.commandLine().getErr();
         if (!Files.exists(caseFile)) {
             err.println("evanesce tolerance: " + caseFile + ": no such file");
-            return Main.USAGE;
+            return ExitCode.USAGE;
         }
         if (samples < 1 || samples > ToleranceRun.MAX_SAMPLES) {
             err.println("evanesce tolerance: --samples " + samples + ": expected 1 to " + ToleranceRun.MAX_SAMPLES);
-            return Main.USAGE;
+            return ExitCode.USAGE;
         }
         String name = caseFile.getFileName().toString().replaceFirst("\\.[^.]*$", "");
         Path folder = (out != null ? out : caseFile.toAbsolutePath().resolveSibling(name + "-tolerance")).toAbsolutePath()
@@ -87,12 +86,12 @@ public final class ToleranceCommand implements Callable<Integer> {
                 rf.commit();
                 o.println("results: " + rf.target());
                 o.println("Caution: " + RunOutputs.CAUTION);
-                return Main.OK;
+                return ExitCode.OK;
             }
         } catch (ToleranceInputException e) {
             err.println("evanesce tolerance: " + e.getMessage());
             err.println("evanesce tolerance: nothing was written (see 'evanesce tolerance --help')");
-            return Main.USAGE;
+            return ExitCode.USAGE;
         }
     }
 }

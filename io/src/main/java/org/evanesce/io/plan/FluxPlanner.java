@@ -8,6 +8,7 @@ import java.util.function.Function;
 import org.evanesce.geometry.GridSpec;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.geometry.Rasterizer;
 import org.evanesce.geometry.Scene;
 import org.evanesce.geometry.Smoothing;
@@ -19,7 +20,6 @@ import org.evanesce.io.casefile.SignalSpec;
 import org.evanesce.io.casefile.SourceSpec;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
-import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.record.FluxLine;
 

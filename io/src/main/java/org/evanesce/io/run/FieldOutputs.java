@@ -12,12 +12,12 @@ import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.GridSpec;
 import org.evanesce.io.output.hdf5.FieldDataset;
 import org.evanesce.io.output.hdf5.Hdf5Writer;
-import org.evanesce.io.output.hdf5.Precision;
 import org.evanesce.io.output.hdf5.Xdmf;
 import org.evanesce.io.output.image.FieldPicture;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.grid.Precision;
 import org.evanesce.solver.record.Nodes;
 import org.evanesce.solver.record.Snapshots;
 import org.evanesce.solver.record.StepView;
@@ -34,7 +34,7 @@ import org.evanesce.solver.record.StepView;
  */
 public final class FieldOutputs {
 
-    /** Electric fields are stored in V/m; magnetic ones as η0·H, also in V/m (DESIGN.md). */
+    /** Electric fields are stored in V/m; magnetic ones as η0·H, also in V/m (docs/architecture.md). */
     static String unit(Component c) {
         return c.electric ? "V/m" : "V/m (eta0*H)";
     }
@@ -107,13 +107,13 @@ public final class FieldOutputs {
                 Map<String, Object> a = attributes(plan, r, comps.get(c), "field");
                 a.put("time_s", times[c]);
                 a.put("step", step);
-                FieldDataset d = new FieldDataset(datasetName(comps.get(c)), re[c], r.nx(), r.ny(), Precision.SINGLE,
+                FieldDataset d = new FieldDataset(datasetName(comps.get(c)), re[c], r.nx(), r.ny(), Precision.FLOAT,
                         part(a, im != null ? "real" : null));
                 sets.add(d);
                 attrs.add(Xdmf.Attribute.of(d.name(), "frames/" + file, d));
                 if (im != null) {
                     FieldDataset di = new FieldDataset(datasetName(comps.get(c)) + IMAGINARY, im[c], r.nx(), r.ny(),
-                            Precision.SINGLE, part(a, "imaginary"));
+                            Precision.FLOAT, part(a, "imaginary"));
                     sets.add(di);
                     attrs.add(Xdmf.Attribute.of(di.name(), "frames/" + file, di));
                 }
@@ -154,12 +154,12 @@ public final class FieldOutputs {
             Map<String, Object> a = attributes(plan, r, c, "field");
             a.put("time_s", v.time(c));
             a.put("step", v.stepCount());
-            FieldDataset d = new FieldDataset(datasetName(c), nodes, r.nx(), r.ny(), Precision.SINGLE, part(a, bloch ? "real" : null));
+            FieldDataset d = new FieldDataset(datasetName(c), nodes, r.nx(), r.ny(), Precision.FLOAT, part(a, bloch ? "real" : null));
             sets.add(d);
             attrs.add(Xdmf.Attribute.of(d.name(), "fields.h5", d));
             if (bloch) {
                 FieldDataset di = new FieldDataset(datasetName(c) + IMAGINARY, Nodes.average(c, rawIm, r.nx(), r.ny()), r.nx(),
-                        r.ny(), Precision.SINGLE, part(a, "imaginary"));
+                        r.ny(), Precision.FLOAT, part(a, "imaginary"));
                 sets.add(di);
                 attrs.add(Xdmf.Attribute.of(di.name(), "fields.h5", di));
             }

@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import org.evanesce.geometry.GridSpec;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.io.casefile.MapsSpec;
 import org.evanesce.io.casefile.SourceSpec;
 import org.evanesce.io.output.hdf5.AxisDataset;
@@ -15,15 +16,14 @@ import org.evanesce.io.output.hdf5.FieldDataset;
 import org.evanesce.io.output.hdf5.FieldStack;
 import org.evanesce.io.output.hdf5.Hdf5Dataset;
 import org.evanesce.io.output.hdf5.Hdf5Writer;
-import org.evanesce.io.output.hdf5.Precision;
 import org.evanesce.io.output.hdf5.Xdmf;
 import org.evanesce.io.output.image.FieldPicture;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.FieldPlan;
 import org.evanesce.io.plan.PlaneWaves;
-import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.grid.Precision;
 import org.evanesce.solver.record.FieldMap;
 import org.evanesce.solver.record.Nodes;
 import org.evanesce.solver.reference.DecayFit;
@@ -145,10 +145,10 @@ public final class MapOutputs {
                 Map<String, Object> a = stackAttributes(plan, r, c, "Fourier transform, " + part + " part", FieldOutputs.unit(c) + " s");
                 a.put("part", part);
                 stacks.add(new FieldStack(partName(c, isReal), isReal ? real.get(ci) : imag.get(ci), r.nx(), r.ny(),
-                        Precision.SINGLE, a));
+                        Precision.FLOAT, a));
             }
         }
-        stacks.add(new FieldStack(MAGNITUDE, magnitudes, r.nx(), r.ny(), Precision.SINGLE, stackAttributes(plan, r,
+        stacks.add(new FieldStack(MAGNITUDE, magnitudes, r.nx(), r.ny(), Precision.FLOAT, stackAttributes(plan, r,
                 pol == Polarization.S ? Component.EZ : Component.EX, "magnitude of the transformed electric field |E|", "V/m s")));
         sets.addAll(stacks);
         // the permittivity beside the maps, once for all wavelengths

@@ -204,7 +204,7 @@ public abstract class Engine {
         };
     }
 
-    /** Width in bits of the vectors the kernels use on this JVM (DESIGN.md: capped at 256 by measurement). */
+    /** Width in bits of the vectors the kernels use on this JVM (docs/architecture.md: capped at 256 by measurement). */
     public static int vectorBits() {
         return Lanes.bits();
     }

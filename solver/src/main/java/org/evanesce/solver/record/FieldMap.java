@@ -6,7 +6,7 @@ import org.evanesce.solver.grid.Polarization;
 /**
  * Running discrete Fourier transforms of every field component of a run's polarization (s: Ez, Hx, Hy;
  * p: Hz, Ex, Ey) on a rectangle of cells [i0, i1) × [j0, j1), at a few frequencies (time dependence
- * exp(−iωt), DESIGN.md).
+ * exp(−iωt), docs/architecture.md).
  *
  * <p>Each component is transformed at its own sample time (E at nΔt, H at (n − ½)Δt, as {@link FluxLine}):
  * X(f) = Σ F(t) e^{i2πft} Δt, with complex (Bloch-periodic) fields taken as re + i·im. Node (i, j) of a

@@ -1,12 +1,12 @@
 package org.evanesce.solver.record;
 
-import org.evanesce.solver.PhysicalConstants;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
 
 /**
  * Running discrete Fourier transforms of the tangential fields on a horizontal (or vertical) line,
- * and the Poynting flux through it per frequency (time dependence exp(−iωt), DESIGN.md).
+ * and the Poynting flux through it per frequency (time dependence exp(−iωt), docs/architecture.md).
  *
  * <p>A vertical line ({@link #vertical}) is the same with x and y exchanged: at x = (col + ½)Δ,
  * Hy(col, j) with Ez averaged over columns col and col + 1 (s), Hz(col, j) with Ey averaged over

@@ -1,6 +1,7 @@
 package org.evanesce.io.output.hdf5;
 
 import java.util.Map;
+import org.evanesce.solver.grid.Precision;
 
 /**
  * The values along a {@link FieldStack}'s leading axis, stored as a 1D float64 dataset, e.g.

@@ -2,6 +2,7 @@ package org.evanesce.io.output.hdf5;
 
 import java.util.List;
 import java.util.Map;
+import org.evanesce.solver.grid.Precision;
 
 /**
  * Several 2D fields on the same nodes stacked along a leading index axis, e.g. one frequency-domain map
@@ -53,6 +54,6 @@ public record FieldStack(String name, List<double[]> layers, int nx, int ny, Pre
 
     @Override
     public long storedBytes() {
-        return (long) layers.size() * nx * ny * precision.bytes();
+        return (long) layers.size() * nx * ny * precision.bytes;
     }
 }

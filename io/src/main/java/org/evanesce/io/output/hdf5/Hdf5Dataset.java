@@ -1,6 +1,7 @@
 package org.evanesce.io.output.hdf5;
 
 import java.util.Map;
+import org.evanesce.solver.grid.Precision;
 
 /**
  * One dataset for {@link Hdf5Writer}: a 2D field ({@link FieldDataset}, shape {@code [ny][nx]}), a

@@ -13,6 +13,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import org.evanesce.io.output.SafeFiles;
+import org.evanesce.solver.grid.Precision;
 
 /**
  * Writes field datasets to one HDF5 file with jhdf, atomically.
@@ -52,7 +53,7 @@ public final class Hdf5Writer {
      * @param rootAttributes attributes of the root group (same value types as {@link FieldDataset})
      * @param datasets       the datasets, with distinct names, written in this order
      * @throws IllegalArgumentException if names repeat, an attribute is not allowed, or a finite
-     *         value overflows float32 in a {@link Precision#SINGLE} dataset; nothing is written then
+     *         value overflows float32 in a {@link Precision#FLOAT} dataset; nothing is written then
      * @throws IOException if the target is a folder, its folder is missing, or writing or renaming
      *         fails; the target is then unchanged and no temporary is left
      */
@@ -142,7 +143,7 @@ public final class Hdf5Writer {
         }
         if (d instanceof FieldStack s) {
             int n = s.layers().size();
-            if (s.precision() == Precision.SINGLE) {
+            if (s.precision() == Precision.FLOAT) {
                 float[][][] out = new float[n][][];
                 for (int k = 0; k < n; k++) {
                     out[k] = floatRows(s.layer(k));
@@ -156,7 +157,7 @@ public final class Hdf5Writer {
             return out;
         }
         FieldDataset f = (FieldDataset) d;
-        return f.precision() == Precision.SINGLE ? floatRows(f) : doubleRows(f);
+        return f.precision() == Precision.FLOAT ? floatRows(f) : doubleRows(f);
     }
 
     private static float[][] floatRows(FieldDataset d) {

@@ -3,6 +3,7 @@ package org.evanesce.io.output.hdf5;
 import java.util.HashSet;
 import java.util.List;
 import java.util.Set;
+import org.evanesce.solver.grid.Precision;
 
 /**
  * XDMF 3 documents (an open XML standard read by general viewers) that describe 2D field datasets
@@ -123,12 +124,12 @@ public final class Xdmf {
 
         /** The attribute for a 2D dataset written by {@link Hdf5Writer} to {@code file}. */
         public static Attribute of(String name, String file, FieldDataset dataset) {
-            return new Attribute(name, file, dataset.name(), dataset.precision().bytes());
+            return new Attribute(name, file, dataset.name(), dataset.precision().bytes);
         }
 
         /** The attribute for layer {@code layer} of a stack written by {@link Hdf5Writer} to {@code file}. */
         public static Attribute of(String name, String file, FieldStack stack, int layer) {
-            return new Attribute(name, file, stack.name(), stack.precision().bytes(), layer, stack.layers().size());
+            return new Attribute(name, file, stack.name(), stack.precision().bytes, layer, stack.layers().size());
         }
 
         /** Whether this is one layer of a 3D dataset. */

@@ -19,6 +19,7 @@ import java.util.Map;
 import java.util.TreeSet;
 import java.util.stream.Collectors;
 import java.util.stream.Stream;
+import org.evanesce.solver.grid.Precision;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -74,7 +75,7 @@ class Hdf5WriterTest {
             eps[k] = 1f + k / 3f;
         }
         return List.of(
-                new FieldDataset("E_z", ramp(NX, NY, 0.1), NX, NY, Precision.SINGLE, fieldAttributes("E_z", "V/m", 1.25e-15)),
+                new FieldDataset("E_z", ramp(NX, NY, 0.1), NX, NY, Precision.FLOAT, fieldAttributes("E_z", "V/m", 1.25e-15)),
                 new FieldDataset("H_y", hy, NX, NY, Precision.DOUBLE, fieldAttributes("H_y", "A/m", 1.25e-15)),
                 FieldDataset.ofFloats("relative_permittivity_z", eps, NX, NY, Map.of("unit", "1")));
     }
@@ -91,13 +92,13 @@ class Hdf5WriterTest {
                 String c = d.name() + " (" + NX + "x" + NY + ", " + d.precision() + ")";
                 Dataset ds = h.getDatasetByPath("/" + d.name());
                 assertArrayEquals(new int[] {NY, NX}, ds.getDimensions(), c + ": shape [ny][nx]");
-                assertEquals(d.precision().bytes(), ds.getDataType().getSize(), c + ": bytes a value");
+                assertEquals(d.precision().bytes, ds.getDataType().getSize(), c + ": bytes a value");
                 assertAttributes(c, d.attributes(), ds.getAttributes(), false);
                 Object data = ds.getData();
                 for (int j = 0; j < NY; j++) {
                     for (int i = 0; i < NX; i++) {
                         double want = d.values()[j * NX + i];
-                        if (d.precision() == Precision.SINGLE) {
+                        if (d.precision() == Precision.FLOAT) {
                             float got = ((float[][]) data)[j][i];
                             assertEquals(0, Float.compare((float) want, got), c + " at i=" + i + " j=" + j);
                         } else {
@@ -130,7 +131,7 @@ class Hdf5WriterTest {
         Map<String, Object> a = fieldAttributes("E_z", "V/m s", 0.0);
         a.put("wavelength_index", "wavelength_m");
         return List.of(new AxisDataset("wavelength_m", WAVELENGTHS, Map.of("unit", "m")),
-                new FieldStack("E_z_real", layers, nx, ny, Precision.SINGLE, a));
+                new FieldStack("E_z_real", layers, nx, ny, Precision.FLOAT, a));
     }
 
     @Test
@@ -157,8 +158,8 @@ class Hdf5WriterTest {
             }
         }
         assertThrows(IllegalArgumentException.class, () -> new FieldStack("E_z_real", List.of(new double[NX * NY], new double[3]),
-                NX, NY, Precision.SINGLE, Map.of()), "a layer of the wrong size");
-        assertThrows(IllegalArgumentException.class, () -> new FieldStack("E_z_real", List.of(), NX, NY, Precision.SINGLE,
+                NX, NY, Precision.FLOAT, Map.of()), "a layer of the wrong size");
+        assertThrows(IllegalArgumentException.class, () -> new FieldStack("E_z_real", List.of(), NX, NY, Precision.FLOAT,
                 Map.of()), "no layers");
         assertThrows(IllegalArgumentException.class, () -> new AxisDataset("wavelength_m", new double[0], Map.of()), "no values");
         assertThrows(IllegalArgumentException.class, () -> new AxisDataset("633.00nm/x", WAVELENGTHS, Map.of()), "a path as name");
@@ -206,7 +207,7 @@ class Hdf5WriterTest {
         byte[] before = Files.readAllBytes(f);
         double[] huge = ramp(NX, NY, 0.1);
         huge[10] = 1e39;
-        FieldDataset overflow = new FieldDataset("E_z", huge, NX, NY, Precision.SINGLE, Map.of());
+        FieldDataset overflow = new FieldDataset("E_z", huge, NX, NY, Precision.FLOAT, Map.of());
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
                 () -> Hdf5Writer.write(f, Map.of(), List.of(overflow)));
         assertTrue(e.getMessage().contains("i = 3, j = 1"), "names the cell: " + e.getMessage());

@@ -17,6 +17,7 @@ import java.util.List;
 import java.util.Map;
 import javax.xml.parsers.DocumentBuilder;
 import javax.xml.parsers.DocumentBuilderFactory;
+import org.evanesce.solver.grid.Precision;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.w3c.dom.Document;
@@ -44,7 +45,7 @@ class XdmfTest {
         List<Xdmf.Grid> frames = new ArrayList<>();
         for (int n = 0; n < TIMES.length; n++) {
             String file = String.format("frame-%06d.h5", n);
-            FieldDataset ez = new FieldDataset("E_z", Hdf5WriterTest.ramp(NX, NY, 1000.0 * n), NX, NY, Precision.SINGLE,
+            FieldDataset ez = new FieldDataset("E_z", Hdf5WriterTest.ramp(NX, NY, 1000.0 * n), NX, NY, Precision.FLOAT,
                     Map.of("unit", "V/m", "time", TIMES[n]));
             FieldDataset hy = new FieldDataset("H_y", Hdf5WriterTest.ramp(NX, NY, 1000.0 * n + 0.5), NX, NY,
                     Precision.DOUBLE, Map.of("unit", "A/m", "time", TIMES[n]));
@@ -96,7 +97,7 @@ class XdmfTest {
         FieldDataset im = new FieldDataset("E_z_imaginary", Hdf5WriterTest.ramp(NX, NY, 0.2), NX, NY, Precision.DOUBLE, Map.of());
         Hdf5Writer.write(dir.resolve("dft.h5"), Map.of("frequency", 3.0e14), List.of(re, im));
         FieldDataset eps = new FieldDataset("relative_permittivity_z", Hdf5WriterTest.ramp(NX + 1, NY + 1, 0.0), NX + 1, NY + 1,
-                Precision.SINGLE, Map.of());
+                Precision.FLOAT, Map.of());
         Files.createDirectories(dir.resolve("maps"));
         Hdf5Writer.write(dir.resolve("maps/eps.h5"), Map.of(), List.of(eps));
         return Xdmf.spatial("maps at 300 THz", List.of(
