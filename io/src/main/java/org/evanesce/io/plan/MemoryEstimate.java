@@ -142,7 +142,7 @@ public record MemoryEstimate(List<Item> items) {
             boolean periodic = sides.get(Side.LEFT) instanceof Boundary.Bloch;
             long width = periodic ? grid.nx() : interior[2] - interior[0];
             long nf = flux.frequencies().size();
-            long perLine = 8L * width * (4 * nf + 4);
+            long perLine = org.evanesce.solver.record.FluxLine.bytesFor(width, nf);
             int lines = flux.lines().size();
             held.add(new Item("flux lines", saturated(perLine, 2L * lines + 1), flux.at(), "flux", "fewer lines or wavelengths"));
             long[] r = Simulation.footprint(grid.nx(), grid.ny(), pol, precision, sides, medium.conductivity().si() != 0);

@@ -314,10 +314,17 @@ public final class FluxLine implements StatefulListener {
         return s;
     }
 
-    /** Bytes held by the accumulators and the per-step scratch: 8 · n · (4F + 6) for n cells and F frequencies. */
+    /** Bytes held by the accumulators and the per-step scratch ({@link #bytesFor}). */
     public long bytes() {
-        long n = i1 - i0;
-        return Double.BYTES * n * (4L * omega.length + 6);
+        return bytesFor(i1 - i0, omega.length);
+    }
+
+    /**
+     * Bytes a line of n cells transforming F frequencies holds: 8 · n · (4F + 6) (four accumulators per
+     * frequency, six rows of per-step scratch). The one count of it: memory estimates call this.
+     */
+    public static long bytesFor(long cells, long frequencies) {
+        return Double.BYTES * cells * (4L * frequencies + 6);
     }
 
     @Override
