@@ -54,8 +54,8 @@ class MetalReflectanceTest {
         int ny = (int) face + metalCells + MetalRuns.PML;
         List<MetalRuns.Layer> layers = List.of(new MetalRuns.Layer(face, ny + 1, null, metal));
         int top = source + 25;
-        MetalRuns.Result run = MetalRuns.run(pol, precision, nx, ny, dx, 0.0, F, 4, Material.VACUUM, layers, top, 1);
-        MetalRuns.Result ref = MetalRuns.run(pol, precision, nx, ny, dx, 0.0, F, 4, Material.VACUUM, List.of(), top, 1);
+        MetalRuns.Result run = MetalRuns.run(pol, precision, nx, ny, dx, 0.0, F, 4, 0, Material.VACUUM, layers, top, 1);
+        MetalRuns.Result ref = MetalRuns.run(pol, precision, nx, ny, dx, 0.0, F, 4, 0, Material.VACUUM, List.of(), top, 1);
         double r = MetalRuns.reflectance(run, ref, dx);
         double dt = Courant.timeStep(Courant.DEFAULT, dx);
         ComplexNumber n = metal.discreteIndex(2 * Math.PI * F, dt);

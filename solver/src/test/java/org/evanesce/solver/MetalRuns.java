@@ -75,10 +75,13 @@ final class MetalRuns {
     /**
      * One run: source on row PML + 10, bottom line 20 rows above it, top line at {@code topLine};
      * a narrow Gaussian pulse (bandwidth f/relWidth), stepped until it has passed and the slowest
-     * part crossed the grid.
+     * part crossed the grid, and then {@code settlePeriods} periods more (a resonance, such as a
+     * surface plasmon at the in-plane wavenumber of the run, rings for tens of periods; a transform cut
+     * off while it rings is wrong at its frequency).
      */
     static Result run(Polarization pol, Precision precision, int nx, int ny, double dx, double kx, double f,
-                      double relWidth, Material background, List<Layer> layers, int topLine, int threads) {
+                      double relWidth, double settlePeriods, Material background, List<Layer> layers, int topLine,
+                      int threads) {
         MaterialGrid grid = grid(nx, ny, dx, background, layers);
         int source = PML + 10;
         FluxLine bottom = new FluxLine(pol, source + 20, 0, nx, f);
@@ -92,7 +95,7 @@ final class MetalRuns {
                 .listener(bottom).listener(top);
         withMetals(b, grid, layers);
         try (Simulation s = b.build()) {
-            double periods = 12 * relWidth / (2 * Math.PI);
+            double periods = 12 * relWidth / (2 * Math.PI) + settlePeriods;
             long steps = (long) (periods / (f * s.dt())) + 6L * ny;
             s.run(steps);
             return new Result(bottom, top, steps);
