@@ -418,8 +418,9 @@ public final class Simulation implements StepView, AutoCloseable {
      * What the dispersive cells of a run will hold, in bytes, before building: the auxiliary currents
      * (1 + N_Drude + 2 N_Lorentz values per cell and electric site), a cell index per cell and the row
      * starts, per electric component of the polarization and per material with poles; twice with
-     * Bloch-periodic sides. Add it to {@link #footprint}'s arrays (and pass {@code lossy = true} there: the
-     * dispersive cells' ca' is not 1): the sum is {@link #bytes()} once built.
+     * Bloch-periodic sides. Add it to {@link #footprint}'s arrays, whose {@code lossy} says whether an ordinary
+     * (pole-free) material has conductivity: where none has, the dispersive cells fold their ca' into the
+     * post-pass and no ca array is kept. The sum is {@link #bytes()} once built.
      *
      * @param dispersive the materials {@link Builder#dispersive} will be given, by material index
      */

@@ -15,9 +15,9 @@ public final class BenchReport {
     }
 
     private static final String TABLE_HEAD = String.format(Locale.ROOT,
-            "%11s %4s %6s %6s %7s %4s %9s %9s %8s %7s %6s %9s",
-            "grid", "pol", "prec", "metal", "threads", "used", "steps/s", "Mcell/s", "ns/cell", "spread", "B/cell", "MiB");
-    private static final String TABLE_ROW = "%11s %4s %6s %5.1f%% %7d %4d %9.1f %9.1f %8.3f %6.1f%% %6.1f %9.1f%s%n";
+            "%11s %4s %6s %7s %4s %9s %9s %8s %7s %6s %9s %6s",
+            "grid", "pol", "prec", "threads", "used", "steps/s", "Mcell/s", "ns/cell", "spread", "B/cell", "MiB", "metal");
+    private static final String TABLE_ROW = "%11s %4s %6s %7d %4d %9.1f %9.1f %8.3f %6.1f%% %6.1f %9.1f %5.1f%%%s%n";
     private static final String CSV_HEAD = "size,polarization,precision,threads_requested,threads_used,steps_per_repeat,"
             + "warm_up_s,settled,repeats,steps_per_s,mcells_per_s,ns_per_cell,spread_percent,bytes_per_cell,bytes,java,cores,jvm_preferred_vector_bits,kernel_vector_bits,"
             + "fewer_threads_percent,metal_percent,metal_bytes,bytes_per_cell_with_metal";
@@ -74,16 +74,16 @@ public final class BenchReport {
         String pol = c.polarization().name().toLowerCase(Locale.ROOT);
         String prec = c.precision().name().toLowerCase(Locale.ROOT);
         if (format == Format.CSV) {
-            out.printf(Locale.ROOT, "%d,%s,%s,%d,%d,%d,%.3g,%b,%d,%.6g,%.6g,%.6g,%.3g,%d,%d,%s,%d,%d,%d,%.3g,%.4g,%d,%.4g%n",
+            out.printf(Locale.ROOT, "%d,%s,%s,%d,%d,%d,%.3g,%b,%d,%.6g,%.6g,%.6g,%.3g,%d,%d,%s,%d,%d,%d,%.3g,%.4g,%d,%.6g%n",
                     c.size(), pol, prec, c.threads(), r.threadsUsed(), r.stepsPerRepeat(), r.warmUpSeconds(), r.settled(),
                     r.repeats(), r.stepsPerSecond(), r.megacellsPerSecond(), r.nanosPerCell(), r.spreadPercent(),
                     r.bytesPerCell(), r.bytes(), csvText(machine.java()), machine.cores(), machine.preferredVectorBits(),
                     machine.kernelVectorBits(), 100 * r.fewerThreads(), 100 * metalFraction(r), r.dispersiveBytes(),
                     r.bytesPerCellWithMetal());
         } else {
-            out.printf(Locale.ROOT, TABLE_ROW, c.size() + "x" + c.size(), pol, prec, 100 * metalFraction(r), c.threads(),
-                    r.threadsUsed(), r.stepsPerSecond(), r.megacellsPerSecond(), r.nanosPerCell(), r.spreadPercent(),
-                    r.bytesPerCellWithMetal(), r.mebibytes(), (r.settled() ? "" : " *") + (r.fewerThreads() > 0 ? " +" : ""));
+            out.printf(Locale.ROOT, TABLE_ROW, c.size() + "x" + c.size(), pol, prec, c.threads(), r.threadsUsed(),
+                    r.stepsPerSecond(), r.megacellsPerSecond(), r.nanosPerCell(), r.spreadPercent(),
+                    r.bytesPerCellWithMetal(), r.mebibytes(), 100 * metalFraction(r), (r.settled() ? "" : " *") + (r.fewerThreads() > 0 ? " +" : ""));
         }
         anyUnsettled |= !r.settled();
         if (r.fewerThreads() > 0) {

@@ -47,8 +47,10 @@ abstract class DoubleEngine extends Engine {
         cbOf = new double[nc][];
         caOf = new double[nc][];
         double[][][] c = new double[nc][][];
+        boolean[] fold = new boolean[nc];
         for (Component e : el) {
             c[e.ordinal()] = coefficients(grid, site(e), materialCa, materialCb);
+            fold[e.ordinal()] = DoubleAde.foldCa(grid, site(e), c[e.ordinal()][0], adeOf);
         }
         int len = layout.length();
         // allocated one after the other with staggered lengths (see Engine.staggeredLength), with
@@ -76,7 +78,7 @@ abstract class DoubleEngine extends Engine {
         }
         ade = new DoubleAde[nc];
         for (Component e : el) {
-            ade[e.ordinal()] = DoubleAde.of(grid, e, field[e.ordinal()], adeOf, sides);
+            ade[e.ordinal()] = DoubleAde.of(grid, e, field[e.ordinal()], adeOf, sides, fold[e.ordinal()]);
             dispersive |= ade[e.ordinal()] != null;
         }
     }

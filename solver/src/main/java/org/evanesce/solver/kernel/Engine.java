@@ -455,7 +455,8 @@ public abstract class Engine {
     /**
      * What {@link #dispersiveBytes()} will report for a grid: for each electric site of the polarization
      * and each material with poles that has cells the update changes there, its state (stateSize values per
-     * cell), one cell index per cell and ny + 1 row starts; twice with Bloch-periodic sides (two parts).
+     * cell), one cell index per cell, ny + 1 row starts of cells and of runs (neighbouring cells of a row)
+     * and three ints per run; twice with Bloch-periodic sides (two parts).
      *
      * @param stateSizeOf by material index, the state values per cell of a material with poles, else 0
      */
@@ -469,17 +470,27 @@ public abstract class Engine {
                 continue;
             }
             long[] cells = new long[stateSizeOf.length];
+            long[] runs = new long[stateSizeOf.length];
             for (int j = 0; j < ny; j++) {
+                int previous = -1;
                 for (int i = 0; i < nx; i++) {
                     int m = grid.id(site(c), i, j);
                     if (stateSizeOf[m] > 0 && wouldUpdate(sides, nx, ny, c, i, j)) {
                         cells[m]++;
+                        if (previous != m) {
+                            runs[m]++;
+                        }
+                        previous = m;
+                    } else {
+                        previous = -1;
                     }
                 }
             }
             for (int m = 0; m < stateSizeOf.length; m++) {
                 if (cells[m] > 0) {
-                    b += cells[m] * stateSizeOf[m] * precision.bytes + (long) Integer.BYTES * (cells[m] + ny + 1);
+                    // state, a cell index per cell, row starts of cells and of runs, three ints per run
+                    b += cells[m] * stateSizeOf[m] * precision.bytes
+                            + (long) Integer.BYTES * (cells[m] + 2L * (ny + 1) + 3 * runs[m]);
                 }
             }
         }

@@ -47,8 +47,10 @@ abstract class FloatEngine extends Engine {
         cbOf = new float[nc][];
         caOf = new float[nc][];
         double[][][] c = new double[nc][][];
+        boolean[] fold = new boolean[nc];
         for (Component e : el) {
             c[e.ordinal()] = coefficients(grid, site(e), materialCa, materialCb);
+            fold[e.ordinal()] = FloatAde.foldCa(grid, site(e), c[e.ordinal()][0], adeOf);
         }
         int len = layout.length();
         // allocated one after the other with staggered lengths (see Engine.staggeredLength), with
@@ -76,7 +78,7 @@ abstract class FloatEngine extends Engine {
         }
         ade = new FloatAde[nc];
         for (Component e : el) {
-            ade[e.ordinal()] = FloatAde.of(grid, e, field[e.ordinal()], adeOf, sides);
+            ade[e.ordinal()] = FloatAde.of(grid, e, field[e.ordinal()], adeOf, sides, fold[e.ordinal()]);
             dispersive |= ade[e.ordinal()] != null;
         }
     }
