@@ -6,8 +6,11 @@ import java.io.PrintWriter;
 import java.util.concurrent.Callable;
 import org.evanesce.io.cli.BenchCommand;
 import org.evanesce.io.cli.CheckCommand;
+import org.evanesce.io.cli.ExitCode;
 import org.evanesce.io.cli.RunCommand;
+import org.evanesce.io.cli.RunFailedException;
 import org.evanesce.io.cli.VersionProvider;
+import org.evanesce.io.output.Faults;
 import org.evanesce.solver.DivergenceException;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
@@ -16,26 +19,19 @@ import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
 
 /**
- * The {@code evanesce} command line. Each subcommand is a {@link Callable} returning its exit code.
- *
- * <p>Exit codes:
- * <ul>
- * <li>{@value #OK}: success (also for {@code --help} and {@code --version});</li>
- * <li>{@value #USAGE}: bad input or usage: unknown option, a value out of range, a missing
- *     subcommand, an output folder evanesce will not write ({@link
- *     org.evanesce.io.output.OutputRefusedException}). One line on stderr says why;</li>
- * <li>{@value #RUN_FAILED}: the run failed: the solver diverged ({@link DivergenceException}), a
- *     command gave up for a reason outside its input ({@link RunFailedException}, e.g. the grid did
- *     not fit in memory), or a file could not be written or read (an {@link IOException}: a full
- *     disk, a read-only folder, ...; one sentence naming the path and the cause, {@link Faults});</li>
- * <li>{@value #INTERNAL}: an unexpected internal error (a bug): the stack trace goes to stderr.</li>
- * </ul>
+ * The {@code evanesce} command line. Each subcommand is a {@link Callable} returning its exit code
+ * ({@link ExitCode}); this class maps what escapes a command to one: {@link DivergenceException},
+ * {@link RunFailedException} and file-system failures ({@link Faults}) to {@link ExitCode#RUN_FAILED},
+ * refused input and output folders to {@link ExitCode#USAGE}, anything else to {@link ExitCode#INTERNAL}
+ * with its stack trace.
  */
 @Command(name = "evanesce", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
         description = "2D FDTD field simulator for optical tunnelling and near-field geometries.",
         subcommands = {RunCommand.class, CheckCommand.class, BenchCommand.class, org.evanesce.io.cli.StackCommand.class,
-            org.evanesce.io.cli.AccuracyCommand.class, org.evanesce.io.cli.RenderCommand.class,
-            org.evanesce.io.cli.SweepCommand.class},
+            org.evanesce.io.cli.AccuracyCommand.class, org.evanesce.io.cli.RedrawCommand.class,
+            org.evanesce.io.cli.RenderRefused.class,
+            org.evanesce.io.cli.SweepCommand.class, org.evanesce.io.cli.FitCommand.class,
+            org.evanesce.io.cli.ToleranceCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
             "0:success",
@@ -45,18 +41,14 @@ import picocli.CommandLine.Spec;
             "1:unexpected internal error"})
 public final class Main implements Callable<Integer> {
 
-    public static final int OK = 0;
-    public static final int INTERNAL = 1;
-    public static final int USAGE = 2;
-    public static final int RUN_FAILED = 3;
-
     @Spec
     private CommandSpec spec;
 
     @Override
     public Integer call() {
         throw new ParameterException(spec.commandLine(), "missing command: choose one of "
-                + String.join(", ", spec.subcommands().keySet()));
+                + String.join(", ", spec.subcommands().entrySet().stream()
+                        .filter(c -> !c.getValue().getCommandSpec().usageMessage().hidden()).map(c -> c.getKey()).toList()));
     }
 
     public static void main(String[] args) {
@@ -86,7 +78,7 @@ public final class Main implements Callable<Integer> {
             e.printf("evanesce: the run ran out of memory (the JVM may use %d MiB) although its estimate fitted; give the "
                     + "JVM more memory (e.g. JAVA_OPTS=-Xmx%dg) and please report the case file%n",
                     Runtime.getRuntime().maxMemory() >> 20, Math.max(2, 2 * (Runtime.getRuntime().maxMemory() >> 30)));
-            return RUN_FAILED;
+            return ExitCode.RUN_FAILED;
         } finally {
             o.flush();
             e.flush();
@@ -98,7 +90,7 @@ public final class Main implements Callable<Integer> {
         CommandLine cl = ex.getCommandLine();
         String name = cl.getCommandSpec().qualifiedName();
         cl.getErr().printf("%s: %s (see '%s --help')%n", name, oneLine(ex.getMessage()), name);
-        return USAGE;
+        return ExitCode.USAGE;
     }
 
     private static int runError(Exception ex, CommandLine cl, CommandLine.ParseResult parsed) {
@@ -106,28 +98,28 @@ public final class Main implements Callable<Integer> {
         PrintWriter err = cl.getErr();
         if (ex instanceof DivergenceException) {
             err.printf("%s: run failed: %s%n", name, ex.getMessage());
-            return RUN_FAILED;
+            return ExitCode.RUN_FAILED;
         }
         if (ex instanceof org.evanesce.io.run.CaseRunner.RefusedException) {
             err.printf("%s: %s%n", name, oneLine(ex.getMessage()));
-            return USAGE;
+            return ExitCode.USAGE;
         }
         if (ex instanceof RunFailedException) {
             err.printf("%s: run failed: %s%n", name, ex.getMessage());
-            return RUN_FAILED;
+            return ExitCode.RUN_FAILED;
         }
         if (ex instanceof org.evanesce.io.output.OutputRefusedException) {
             err.printf("%s: %s%n", name, oneLine(ex.getMessage()));
-            return USAGE;
+            return ExitCode.USAGE;
         }
         IOException io = Faults.ioCause(ex);
         if (io != null) {
             err.printf("%s: failed: %s%n", name, Faults.sentence(io));
-            return RUN_FAILED;
+            return ExitCode.RUN_FAILED;
         }
         err.printf("%s: internal error: %s%n", name, ex);
         ex.printStackTrace(err);
-        return INTERNAL;
+        return ExitCode.INTERNAL;
     }
 
     private static String oneLine(String s) {

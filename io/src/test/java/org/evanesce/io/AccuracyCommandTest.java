@@ -10,6 +10,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -98,7 +99,7 @@ class AccuracyCommandTest {
         Path out = tmp.resolve("study");
         Cli.Outcome o = Cli.run("accuracy", write("gap.yaml", CASE.replace("FLUX", FLUX).replace("POL", pol)).toString(),
                 "--levels", "2", "--out", out.toString());
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         for (String level : List.of("level1", "level2")) {
             for (int k = 0; k < 4; k++) {
                 Path run = out.resolve(level).resolve("offset" + k);
@@ -156,7 +157,7 @@ class AccuracyCommandTest {
         Path out = tmp.resolve("four");
         Cli.Outcome o = Cli.run("accuracy", write("gap.yaml", CASE.replace("FLUX", FLUX).replace("POL", "s")).toString(), "--levels", "4",
                 "--out", out.toString());
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains("--levels"), () -> "the message should name --levels: " + o);
         assertFalse(Files.exists(out), "a refused study wrote its folder");
     }
@@ -166,7 +167,7 @@ class AccuracyCommandTest {
         Path out = tmp.resolve("no-flux");
         Cli.Outcome o = Cli.run("accuracy", write("no-flux.yaml", CASE.replace("FLUX", "").replace("POL", "s")).toString(), "--out",
                 out.toString());
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains("flux"), () -> "the message should mention flux: " + o);
         assertFalse(Files.exists(out), "a refused study wrote its folder");
     }

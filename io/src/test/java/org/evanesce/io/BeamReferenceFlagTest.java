@@ -7,6 +7,7 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
@@ -63,7 +64,7 @@ class BeamReferenceFlagTest {
         Files.writeString(f, CASE.replace("GAP", gapNm + " nm"));
         Path out = tmp.resolve("gap" + gapNm);
         Cli.Outcome o = Cli.run("run", f.toString(), "--out", out.toString());
-        assertEquals(Main.OK, o.code(), () -> o.toString());
+        assertEquals(ExitCode.OK, o.code(), () -> o.toString());
         List<String> csv = Files.readAllLines(out.resolve("flux.csv"));
         List<String> header = List.of(csv.get(0).split(","));
         String[] row = csv.get(1).split(",", -1);

@@ -1,5 +1,8 @@
 package org.evanesce.io;
 
+import static org.evanesce.geometry.PhysicalConstants.C0;
+import static org.evanesce.geometry.PhysicalConstants.EPS0;
+import static org.evanesce.geometry.PhysicalConstants.ETA0;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -12,6 +15,8 @@ import java.util.List;
 import java.util.function.DoubleUnaryOperator;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.evanesce.geometry.Complex;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -34,8 +39,6 @@ class BeamRunTest {
     static final double N_GLASS = 1.5;
     /** The index of the vacuum above the glass or in the gap (a material {index: 1.0}, not the library's air). */
     static final double N_VACUUM = 1.0;
-    static final double C0 = 299_792_458.0;
-    static final double EPSILON0 = 8.8541878128e-12;
 
     /** Issue #5's bound on the simulated lateral shift against Artmann's closed form, relative. */
     static final double SHIFT_TOLERANCE = 0.05;
@@ -56,17 +59,18 @@ class BeamRunTest {
      */
     static final double BEAM_AVERAGE_TOLERANCE = 4e-6;
     /**
-     * R + T = 1 in a lossless scene with the beam far from the sides (issue #5's 1 %). Measured: a few
-     * 1e-6.
+     * R + T = 1 in a lossless scene with the beam far from the sides (issue #5 asked for 1 %). Measured:
+     * R + T = 1.000005 (the gap case, 20 cells per wavelength); about 10 times that.
      */
-    static final double ENERGY_TOLERANCE = 0.01;
+    static final double ENERGY_TOLERANCE = 5e-5;
     /** Issue #5's bound on the simulated A = 1 − R − T against the angular-spectrum A_beam. */
     static final double ABSORPTANCE_TOLERANCE = 0.01;
     /**
-     * Issue #5's bound on A_beam of a wide beam against the plane-wave absorptance at the beam's angle
-     * (the beam's angular spread changes A by about 2e-5 here).
+     * A_beam of a wide beam against the plane-wave absorptance at the beam's angle: the beam's angular
+     * spread changes A by 1.7e-5 here (measured: A_beam 0.432727, plane wave 0.432710); about 10 times
+     * that (issue #5 asked for 5e-3).
      */
-    static final double WIDE_BEAM_TOLERANCE = 5e-3;
+    static final double WIDE_BEAM_TOLERANCE = 2e-4;
     /**
      * The program's A_plane_wave against the characteristic matrix written here: the same exact result,
      * so round-off plus the 9 decimals of flux.csv.
@@ -171,7 +175,7 @@ class BeamRunTest {
     private FluxRow runFlux(String name, String text) throws IOException {
         Path out = tmp.resolve(name + "-out");
         Cli.Outcome o = Cli.run("run", write(name + ".yaml", text).toString(), "--out", out.toString());
-        assertEquals(Main.OK, o.code(), () -> name + ": " + o);
+        assertEquals(ExitCode.OK, o.code(), () -> name + ": " + o);
         return FluxRow.read(out.resolve("flux.csv"));
     }
 
@@ -318,7 +322,7 @@ class BeamRunTest {
     /** ε of a conductor-loaded dielectric at vacuum wavelength λ: ε' + iσ/(ω ε0). */
     static Complex conductorPermittivity(double epsilonReal, double sigma, double wavelength) {
         double omega = 2 * Math.PI * C0 / wavelength;
-        return new Complex(epsilonReal, sigma / (omega * EPSILON0));
+        return new Complex(epsilonReal, sigma / (omega * EPS0));
     }
 
     @Test
@@ -424,7 +428,6 @@ class BeamRunTest {
      * order in the cell size (the flux line averages E over two rows: cos(kyΔ/2) ≈ 1 − 0.8 %).
      */
     static final double BEAM_POWER_TOLERANCE = 0.03;
-    static final double ETA0 = 376.730313668;
 
     /**
      * Issue #13: the lateral shift measured from where the incident beam itself goes on the grid. At 50° the
@@ -439,7 +442,7 @@ class BeamRunTest {
         Path out = tmp.resolve("shift-" + pol + "-out");
         Cli.Outcome o = Cli.run("run", write("shift-" + pol + ".yaml", SHIFT_CASE.replace("POL", pol)).toString(), "--out",
                 out.toString());
-        assertEquals(Main.OK, o.code(), () -> pol + ": " + o);
+        assertEquals(ExitCode.OK, o.code(), () -> pol + ": " + o);
         FluxRow f = FluxRow.read(out.resolve("flux.csv"));
         String summary = Files.readString(out.resolve("summary.json"));
         String what = pol + " polarization, glass (1.5) | vacuum at 50 deg, waist 20 wavelengths, 16 cells per wavelength";
@@ -649,7 +652,7 @@ class BeamRunTest {
         Path file = write(name + ".yaml", text);
         Path out = tmp.resolve(name + "-out");
         Cli.Outcome o = Cli.run("run", file.toString(), "--out", out.toString());
-        assertEquals(Main.USAGE, o.code(), () -> name + ": " + o);
+        assertEquals(ExitCode.USAGE, o.code(), () -> name + ": " + o);
         List<Message> found = errorsAt(o, file, path);
         assertEquals(1, found.size(), () -> name + ": expected one error at " + path + ": " + o);
         assertFalse(Files.exists(out), () -> name + ": a refused case wrote its folder");
@@ -677,7 +680,7 @@ class BeamRunTest {
         // the same block 7 um from the axis, beyond the part of the line the beam uses, is accepted
         String outside = small(block.replace("[3 um", "[7 um"), PML, WAIST_LINE);
         Cli.Outcome ok = Cli.run("check", write("outside.yaml", outside).toString());
-        assertEquals(Main.OK, ok.code(), () -> "a block beyond 4 footprints of the axis should not matter: " + ok);
+        assertEquals(ExitCode.OK, ok.code(), () -> "a block beyond 4 footprints of the axis should not matter: " + ok);
     }
 
     @Test

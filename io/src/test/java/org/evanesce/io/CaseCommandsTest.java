@@ -11,11 +11,12 @@ import java.util.List;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 /**
- * The contract of {@code evanesce run} and {@code check} (README exit codes, DESIGN.md output
+ * The contract of {@code evanesce run} and {@code check} (README exit codes, docs/architecture.md output
  * conventions): a finished folder is never overwritten without {@code --force}; a case with errors
  * reports each at file:line:column, exits 2 and writes nothing; a run that diverges exits 3 and
  * leaves no folder; {@code --set} of a parameter the case does not define exits 2.
@@ -97,13 +98,13 @@ class CaseCommandsTest {
         Path c = write("tiny.yaml", TINY);
         Path out = tmp.resolve("out");
         Cli.Outcome first = Cli.run("run", c.toString(), "--out", out.toString());
-        assertEquals(Main.OK, first.code(), first::toString);
+        assertEquals(ExitCode.OK, first.code(), first::toString);
         String record = Files.readString(out.resolve("run.json"));
         String probes = Files.readString(out.resolve("probes.csv"));
         Files.writeString(out.resolve("my-notes.txt"), "keep me");
 
         Cli.Outcome again = Cli.run("run", c.toString(), "--out", out.toString(), "--set", "wl=800 nm");
-        assertEquals(Main.USAGE, again.code(), again::toString);
+        assertEquals(ExitCode.USAGE, again.code(), again::toString);
         assertTrue(again.err().contains("--force"), () -> "the message should say how to replace it: " + again);
         assertEquals(record, Files.readString(out.resolve("run.json")), "run.json changed");
         assertEquals(probes, Files.readString(out.resolve("probes.csv")), "probes.csv changed");
@@ -112,7 +113,7 @@ class CaseCommandsTest {
 
         // issue 13: --force replaces only a folder holding nothing but what evanesce wrote
         Cli.Outcome refused = Cli.run("run", c.toString(), "--out", out.toString(), "--set", "wl=800 nm", "--force");
-        assertEquals(Main.USAGE, refused.code(), refused::toString);
+        assertEquals(ExitCode.USAGE, refused.code(), refused::toString);
         assertTrue(refused.err().contains("my-notes.txt") && refused.err().contains(out.toString()), refused::toString);
         assertEquals("keep me", Files.readString(out.resolve("my-notes.txt")));
         assertEquals(record, Files.readString(out.resolve("run.json")), "run.json changed by a refused --force");
@@ -120,7 +121,7 @@ class CaseCommandsTest {
 
         Files.delete(out.resolve("my-notes.txt"));
         Cli.Outcome forced = Cli.run("run", c.toString(), "--out", out.toString(), "--set", "wl=800 nm", "--force");
-        assertEquals(Main.OK, forced.code(), forced::toString);
+        assertEquals(ExitCode.OK, forced.code(), forced::toString);
         assertTrue(Files.readString(out.resolve("run.json")).contains("800 nm"), "--force did not replace run.json");
         assertEquals(List.of("out", "tiny.yaml"), names(tmp), "leftovers of the replaced run");
     }
@@ -134,7 +135,7 @@ class CaseCommandsTest {
             {"run", c.toString(), "--out", out.toString()},
             {"check", c.toString(), "--trial-seconds", "0", "--preview", png.toString()}}) {
             Cli.Outcome o = Cli.run(args);
-            assertEquals(Main.USAGE, o.code(), o::toString);
+            assertEquals(ExitCode.USAGE, o.code(), o::toString);
             Matcher width = Pattern.compile("(?m)^" + Pattern.quote(c.toString()) + ":6:(\\d+): domain\\.width: .*-2 um")
                     .matcher(o.err());
             assertTrue(width.find(), () -> "no file:line:column line for the negative width: " + o);
@@ -158,7 +159,7 @@ class CaseCommandsTest {
         } finally {
             org.evanesce.io.run.CaseRunner.divergenceLimitForTests = plan -> Double.NaN;
         }
-        assertEquals(Main.RUN_FAILED, o.code(), o::toString);
+        assertEquals(ExitCode.RUN_FAILED, o.code(), o::toString);
         assertTrue(o.err().contains("diverged"), o::toString);
         assertFalse(Files.exists(out), "a failed run left its folder");
         assertEquals(List.of("gain.yaml"), names(tmp), "a failed run left files behind");
@@ -168,7 +169,7 @@ class CaseCommandsTest {
     void gainIsRefusedByCheckWithItsPlace() throws IOException {
         Path c = write("gain.yaml", GAIN);
         Cli.Outcome o = Cli.run("check", c.toString(), "--trial-seconds", "0");
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains(c + ":6:36: materials.gain.conductivity: a negative conductivity (-200000 S/m) is gain"),
                 o::toString);
         assertEquals(List.of("gain.yaml"), names(tmp), "a refused check wrote something");
@@ -190,7 +191,7 @@ class CaseCommandsTest {
             {"check", c.toString(), "--trial-seconds", "0", "--preview", tmp.resolve("p.png").toString()},
             {"run", c.toString(), "--out", tmp.resolve("out").toString()}}) {
             Cli.Outcome o = Cli.run(args);
-            assertEquals(Main.USAGE, o.code(), o::toString);
+            assertEquals(ExitCode.USAGE, o.code(), o::toString);
             assertTrue(o.err().contains("narrow.yaml:16:") && o.err().contains("maps.region: the region holds 2 x 25 grid nodes; "
                     + "it must hold at least 3 x 3"), o::toString);
             assertEquals(List.of("narrow.yaml"), names(tmp), () -> args[0] + " wrote something: " + o);
@@ -206,7 +207,7 @@ class CaseCommandsTest {
             {"run", c.toString(), "--out", out.toString(), "--set", "wavelength=700 nm"},
             {"check", c.toString(), "--trial-seconds", "0", "--preview", png.toString(), "--set", "wavelength=700 nm"}}) {
             Cli.Outcome o = Cli.run(args);
-            assertEquals(Main.USAGE, o.code(), o::toString);
+            assertEquals(ExitCode.USAGE, o.code(), o::toString);
             assertTrue(o.err().contains("'wavelength'"), () -> "the message should name the parameter: " + o);
             assertEquals(List.of("tiny.yaml"), names(tmp), () -> args[0] + " wrote something: " + o);
         }
@@ -216,7 +217,7 @@ class CaseCommandsTest {
     void settingAParameterToTheWrongKindIsAUsageError() throws IOException {
         Path c = write("tiny.yaml", TINY);
         Cli.Outcome o = Cli.run("run", c.toString(), "--out", tmp.resolve("out").toString(), "--set", "wl=3");
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains("wl"), o::toString);
         assertEquals(List.of("tiny.yaml"), names(tmp), "nothing should be written: " + o);
     }
@@ -224,7 +225,7 @@ class CaseCommandsTest {
     @Test
     void aMissingCaseFileIsAUsageError() {
         Cli.Outcome o = Cli.run("run", tmp.resolve("nowhere.yaml").toString(), "--out", tmp.resolve("out").toString());
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains("nowhere.yaml"), o::toString);
     }
 }

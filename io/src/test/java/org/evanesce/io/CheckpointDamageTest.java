@@ -16,6 +16,7 @@ import java.util.List;
 import java.util.Random;
 import java.util.stream.Stream;
 import java.util.zip.CRC32C;
+import org.evanesce.io.cli.ExitCode;
 import org.evanesce.io.output.SafeFiles;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -60,7 +61,7 @@ class CheckpointDamageTest {
     void damagedCheckpointsAreSetAsideAndTheRunStartsOver() throws IOException {
         Path c = Files.writeString(tmp.resolve("gap.yaml"), GAP);
         Path whole = tmp.resolve("whole");
-        assertEquals(Main.OK, Cli.run("run", c.toString(), "--out", whole.toString(), "--checkpoint-minutes", "0").code());
+        assertEquals(ExitCode.OK, Cli.run("run", c.toString(), "--out", whole.toString(), "--checkpoint-minutes", "0").code());
         byte[] expected = Files.readAllBytes(whole.resolve("flux.csv"));
 
         // a run that fails on a full disk once its stepping (and the checkpoint after it) is done
@@ -72,7 +73,7 @@ class CheckpointDamageTest {
         } finally {
             System.clearProperty(SafeFiles.NO_SPACE_PROPERTY);
         }
-        assertEquals(Main.RUN_FAILED, f.code(), f::toString);
+        assertEquals(ExitCode.RUN_FAILED, f.code(), f::toString);
         Path ck = tmp.resolve("failed.checkpoint");
         assertTrue(Files.isRegularFile(ck), "the checkpoint survives the fault: " + f);
         byte[] sound = Files.readAllBytes(ck);
@@ -92,7 +93,7 @@ class CheckpointDamageTest {
             Files.write(file, damaged[k]);
             Cli.Outcome o = Cli.run("run", c.toString(), "--out", out.toString());
             String what = "damage " + k + ": " + o;
-            assertEquals(Main.OK, o.code(), what);
+            assertEquals(ExitCode.OK, o.code(), what);
             assertTrue(o.out().contains("set aside as d" + k + ".checkpoint.corrupt-1"), what);
             assertFalse(o.out().contains("continued from the checkpoint"), what);
             assertArrayEquals(damaged[k], Files.readAllBytes(tmp.resolve("d" + k + ".checkpoint.corrupt-1")), "kept as it was");
@@ -104,13 +105,13 @@ class CheckpointDamageTest {
         Path out = tmp.resolve("other");
         Files.write(tmp.resolve("other.checkpoint"), otherGrid(sound));
         Cli.Outcome o = Cli.run("run", c.toString(), "--out", out.toString());
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         assertTrue(o.out().contains("did not fit this run") && o.out().contains("other.checkpoint.corrupt-1"), o::toString);
         assertArrayEquals(expected, Files.readAllBytes(out.resolve("flux.csv")));
 
         // the intact one continues
         Cli.Outcome resumed = Cli.run("run", c.toString(), "--out", failed.toString());
-        assertEquals(Main.OK, resumed.code(), resumed::toString);
+        assertEquals(ExitCode.OK, resumed.code(), resumed::toString);
         assertTrue(resumed.out().contains("continued from the checkpoint at step"), resumed::toString);
         assertArrayEquals(expected, Files.readAllBytes(failed.resolve("flux.csv")));
         try (Stream<Path> s = Files.list(tmp)) {

@@ -16,13 +16,15 @@ import java.util.List;
 import java.util.Random;
 import java.util.concurrent.TimeUnit;
 import java.util.stream.Stream;
+import org.evanesce.io.cli.ExitCode;
+import org.evanesce.io.output.Faults;
 import org.evanesce.io.output.SafeFiles;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 /**
  * Issue 13, faults: a full disk, a read-only or unwritable folder, an over-long name and a damaged
- * HDF5 file given to {@code render} end with exit 3 (exit 2 where the user gave a path evanesce
+ * HDF5 file given to {@code redraw} end with exit 3 (exit 2 where the user gave a path evanesce
  * refuses) and one plain sentence naming the path and the cause, never a stack trace, and leave
  * nothing partial behind. A full disk is a real small tmpfs where the tests may mount one (as root),
  * and always a simulated write failure ({@link SafeFiles#NO_SPACE_PROPERTY}); the error texts are
@@ -54,7 +56,7 @@ class FaultsTest {
 
     /** The outcome failed with exit 3 and one line naming {@code path} and containing {@code cause}. */
     private static void failedWith(Cli.Outcome o, String path, String cause) {
-        assertEquals(Main.RUN_FAILED, o.code(), o::toString);
+        assertEquals(ExitCode.RUN_FAILED, o.code(), o::toString);
         List<String> lines = o.err().lines().filter(l -> !l.contains(": note: ") && !l.startsWith("WARNING")).toList();
         assertEquals(1, lines.size(), () -> "one line on stderr: " + o);
         assertTrue(lines.get(0).contains(path) && lines.get(0).contains(cause), () -> "names " + path + " and " + cause + ": " + o);
@@ -92,7 +94,7 @@ class FaultsTest {
         try {
             Path out = small.resolve("out");
             Cli.Outcome o = Cli.run("run", caseFile().toString(), "--out", out.toString());
-            assertEquals(Main.RUN_FAILED, o.code(), o::toString);
+            assertEquals(ExitCode.RUN_FAILED, o.code(), o::toString);
             failedWith(o, out.toString(), "no space left on the device");
             assertEquals(List.of(), names(small), "nothing partial left on the full file system");
         } finally {
@@ -135,10 +137,10 @@ class FaultsTest {
         Path c = caseFile();
         Path longOut = tmp.resolve("x".repeat(200));
         Cli.Outcome o = Cli.run("run", c.toString(), "--out", longOut.toString());
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains("200 bytes long") && o.err().contains("at most"), o::toString);
         Cli.Outcome deep = Cli.run("run", c.toString(), "--out", tmp.resolve("y".repeat(300)).resolve("out").toString());
-        assertEquals(Main.USAGE, deep.code(), deep::toString);
+        assertEquals(ExitCode.USAGE, deep.code(), deep::toString);
         assertEquals(List.of("tiny.yaml"), names(tmp));
     }
 
@@ -161,24 +163,24 @@ class FaultsTest {
     }
 
     @Test
-    void aDamagedHdf5FileGivenToRenderEndsWithOneSentence() throws IOException {
+    void aDamagedHdf5FileGivenToRedrawEndsWithOneSentence() throws IOException {
         Path out = tmp.resolve("out");
         Cli.Outcome run = Cli.run("run", caseFile().toString(), "--out", out.toString());
-        assertEquals(Main.OK, run.code(), run::toString);
+        assertEquals(ExitCode.OK, run.code(), run::toString);
         byte[] good = Files.readAllBytes(out.resolve("fields.h5"));
 
         Path cut = Files.createDirectories(tmp.resolve("cut"));
         Files.write(cut.resolve("fields.h5"), java.util.Arrays.copyOf(good, good.length / 2));
-        failedWith(Cli.run("render", cut.toString()), cut.resolve("fields.h5").toString(), "not a readable HDF5 file");
+        failedWith(Cli.run("redraw", cut.toString()), cut.resolve("fields.h5").toString(), "not a readable HDF5 file");
 
         Path noise = Files.createDirectories(tmp.resolve("noise"));
         byte[] random = new byte[good.length];
         new Random(13).nextBytes(random);
         Files.write(noise.resolve("fields.h5"), random);
-        failedWith(Cli.run("render", noise.toString()), noise.resolve("fields.h5").toString(), "not a readable HDF5 file");
+        failedWith(Cli.run("redraw", noise.toString()), noise.resolve("fields.h5").toString(), "not a readable HDF5 file");
 
-        Cli.Outcome missing = Cli.run("render", tmp.resolve("nowhere").toString());
-        assertEquals(Main.USAGE, missing.code(), missing::toString);
+        Cli.Outcome missing = Cli.run("redraw", tmp.resolve("nowhere").toString());
+        assertEquals(ExitCode.USAGE, missing.code(), missing::toString);
         assertEquals(List.of("fields.h5"), names(cut), "no pictures half written");
     }
 

@@ -1,5 +1,6 @@
 package org.evanesce.io;
 
+import static org.evanesce.geometry.PhysicalConstants.C0;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -73,8 +74,6 @@ class FrameMemoryStudyTest {
     static final int FRAME_STEPS = 100;
     /** The program's default Courant number c0 Δt / Δ (docs/case-file.md, numerics.courant). */
     static final double COURANT = 0.5;
-    /** Speed of light in vacuum, m/s (exact, SI). */
-    static final double C0 = 299_792_458.0;
     /** Heap sampling period, ms. */
     static final long SAMPLE_MILLIS = 50;
     /** Frames the bound allows in memory at once: the one being taken and the previous one's buffers. */
@@ -296,7 +295,7 @@ class FrameMemoryStudyTest {
         long regionNodes;
         try (io.jhdf.HdfFile h = new io.jhdf.HdfFile(out.resolve("frames").resolve(String.format(Locale.ROOT,
                 "frame-%09d.h5", STEPS)))) {
-            int[] dims = h.getDatasetByPath("/Ez").getDimensions();
+            int[] dims = h.getDatasetByPath("/E_z").getDimensions();
             regionNodes = (long) dims[0] * dims[1];
         }
         long frameBytes = (long) FRAME_BYTES_PER_VALUE * count * regionNodes;

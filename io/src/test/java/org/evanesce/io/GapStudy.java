@@ -1,15 +1,16 @@
 package org.evanesce.io;
 
 import java.util.List;
+import org.evanesce.geometry.Complex;
 import org.evanesce.geometry.GridSpec;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.geometry.Rasterizer;
 import org.evanesce.geometry.Scene;
 import org.evanesce.geometry.Smoothing;
 import org.evanesce.geometry.shape.Slab;
 import org.evanesce.solver.DispersionCorrection;
-import org.evanesce.solver.PhysicalConstants;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
@@ -17,7 +18,6 @@ import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
 import org.evanesce.solver.grid.Side;
 import org.evanesce.solver.record.FluxLine;
-import org.evanesce.solver.reference.Complex;
 import org.evanesce.solver.reference.PlanarStack;
 import org.evanesce.solver.source.Source;
 import org.evanesce.solver.source.TimeSignal;

@@ -7,6 +7,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -38,7 +39,7 @@ class GoosHanchenAccuracyStudyTest {
                 "cells_per_wavelength: " + cpw));
         Path out = tmp.resolve(pol + cpw);
         Cli.Outcome o = Cli.run("run", f.toString(), "--out", out.toString());
-        assertEquals(Main.OK, o.code(), () -> o.toString());
+        assertEquals(ExitCode.OK, o.code(), () -> o.toString());
         List<String> lines = Files.readAllLines(out.resolve("flux.csv"));
         List<String> header = List.of(lines.get(0).split(","));
         String[] row = lines.get(1).split(",", -1);

@@ -1,5 +1,7 @@
 package org.evanesce.io;
 
+import static org.evanesce.geometry.PhysicalConstants.C0;
+import static org.evanesce.geometry.PhysicalConstants.ETA0;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -10,6 +12,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
@@ -41,8 +44,6 @@ import org.junit.jupiter.params.provider.ValueSource;
  */
 class IncidentPowerTest {
 
-    static final double ETA0 = 376.730313668;
-    static final double C0 = 299_792_458.0;
     static final double N_GLASS = 1.5;
     static final double AMPLITUDE = 2;
     static final double ANGLE_DEG = 30;
@@ -103,7 +104,7 @@ class IncidentPowerTest {
         Files.writeString(f, text);
         Path out = tmp.resolve(name);
         Cli.Outcome o = Cli.run("run", f.toString(), "--out", out.toString(), "--set", "cpw=" + cpw, "--set", "t=" + duration);
-        assertEquals(Main.OK, o.code(), () -> name + ": " + o);
+        assertEquals(ExitCode.OK, o.code(), () -> name + ": " + o);
         List<String> lines = Files.readAllLines(out.resolve("flux.csv"));
         String[] header = lines.get(0).split(",");
         int col = header.length - 1;

@@ -10,6 +10,7 @@ import java.nio.file.Path;
 import java.util.Map;
 import java.util.TreeMap;
 import java.util.stream.Stream;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -67,7 +68,7 @@ class OutputSafetyTest {
         };
         for (String[] r : refused) {
             Cli.Outcome o = Cli.run("run", c.toString(), "--out", r[0], "--force");
-            assertEquals(Main.USAGE, o.code(), () -> "--out " + r[0] + " --force: " + o);
+            assertEquals(ExitCode.USAGE, o.code(), () -> "--out " + r[0] + " --force: " + o);
             assertTrue(o.err().contains(r[0]) && o.err().contains(r[1]), () -> "the message names the path and why: " + o);
             assertEquals(1, o.err().lines().filter(l -> l.startsWith("evanesce run:")).count(), o::toString);
             assertEquals(before, snapshot(tmp), "--out " + r[0] + " --force changed files");
@@ -78,12 +79,12 @@ class OutputSafetyTest {
     void aFinishedFolderWithAFileAddedIsNotReplaced() throws IOException {
         Path c = project();
         Path out = tmp.resolve("out");
-        assertEquals(Main.OK, Cli.run("run", c.toString(), "--out", out.toString()).code());
+        assertEquals(ExitCode.OK, Cli.run("run", c.toString(), "--out", out.toString()).code());
         Files.writeString(out.resolve("my-plot.py"), "print('mine')");
         Files.createDirectories(out.resolve("frames"));
         Map<String, String> before = snapshot(tmp);
         Cli.Outcome o = Cli.run("run", c.toString(), "--out", out.toString(), "--force");
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains("my-plot.py") && o.err().contains("frames/"), o::toString);
         assertEquals(before, snapshot(tmp));
     }
@@ -94,12 +95,12 @@ class OutputSafetyTest {
         Path cwd = Path.of("").toAbsolutePath();
         for (Path p : new Path[] {cwd, cwd.getParent(), cwd.getRoot()}) {
             Cli.Outcome o = Cli.run("run", "../cases/gap-tunnelling-plane-wave.yaml", "--out", p.toString());
-            assertEquals(Main.USAGE, o.code(), () -> p + ": " + o);
+            assertEquals(ExitCode.USAGE, o.code(), () -> p + ": " + o);
             assertTrue(o.err().contains("current folder") || o.err().contains("root of the file system")
                     || o.err().contains("case file's folder"), o::toString);
         }
         Cli.Outcome empty = Cli.run("run", "../cases/gap-tunnelling-plane-wave.yaml", "--out", "");
-        assertEquals(Main.USAGE, empty.code(), empty::toString);
+        assertEquals(ExitCode.USAGE, empty.code(), empty::toString);
         assertTrue(empty.err().contains("is the current folder"), empty::toString);
     }
 
@@ -111,15 +112,15 @@ class OutputSafetyTest {
                     "  write: [probes]\n  folder: " + folder));
             Map<String, String> before = snapshot(tmp);
             Cli.Outcome o = Cli.run("run", c.toString(), "--force");
-            assertEquals(Main.USAGE, o.code(), () -> folder + ": " + o);
+            assertEquals(ExitCode.USAGE, o.code(), () -> folder + ": " + o);
             assertTrue(o.err().contains("case.yaml:11:") && o.err().contains("output.folder"), () -> folder + ": " + o);
             assertEquals(before, snapshot(tmp), folder);
             Cli.Outcome check = Cli.run("check", c.toString());
-            assertEquals(Main.USAGE, check.code(), () -> "check with folder " + folder + ": " + check);
+            assertEquals(ExitCode.USAGE, check.code(), () -> "check with folder " + folder + ": " + check);
         }
         Path c = Files.writeString(proj.resolve("case.yaml"), TINY.replace("  write: [probes]", "  write: [probes]\n  folder: ../results"));
         Cli.Outcome ok = Cli.run("run", c.toString());
-        assertEquals(Main.OK, ok.code(), ok::toString);
+        assertEquals(ExitCode.OK, ok.code(), ok::toString);
         assertTrue(Files.isRegularFile(tmp.resolve("work").resolve("results").resolve("run.json")));
     }
 
@@ -127,11 +128,11 @@ class OutputSafetyTest {
     void aSymbolicLinkIsNeverReplacedNorFollowed() throws IOException {
         Path c = project();
         Path real = tmp.resolve("real");
-        assertEquals(Main.OK, Cli.run("run", c.toString(), "--out", real.toString()).code());
+        assertEquals(ExitCode.OK, Cli.run("run", c.toString(), "--out", real.toString()).code());
         Path link = Files.createSymbolicLink(tmp.resolve("link"), real);
         Map<String, String> before = snapshot(tmp);
         Cli.Outcome o = Cli.run("run", c.toString(), "--out", link.toString(), "--force");
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains("symbolic link"), o::toString);
         assertEquals(before, snapshot(tmp));
     }
@@ -159,7 +160,7 @@ class OutputSafetyTest {
             Files.createSymbolicLink(tmp.resolve("out.checkpoint.part"), victimFile),  // the name versions before issue 13 used
         };
         Cli.Outcome o = Cli.run("run", c.toString(), "--out", out.toString(), "--checkpoint-minutes", "0.00001");
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         assertEquals("keep", Files.readString(victim));
         assertEquals("keep too", Files.readString(victimFile));
         for (Path l : links) {

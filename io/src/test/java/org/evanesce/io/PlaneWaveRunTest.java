@@ -14,6 +14,7 @@ import java.util.Map;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -132,7 +133,7 @@ class PlaneWaveRunTest {
     private FluxCsv runFlux(String name, String text) throws IOException {
         Path out = tmp.resolve(name + "-out");
         Cli.Outcome o = Cli.run("run", write(name + ".yaml", text).toString(), "--out", out.toString());
-        assertEquals(Main.OK, o.code(), () -> name + ": " + o);
+        assertEquals(ExitCode.OK, o.code(), () -> name + ": " + o);
         assertTrue(Files.isRegularFile(out.resolve("summary.json")), () -> name + ": no summary.json; " + o);
         assertTrue(Files.isRegularFile(out.resolve("run.json")), () -> name + ": no run.json; " + o);
         return FluxCsv.read(out.resolve("flux.csv"));
@@ -316,7 +317,7 @@ class PlaneWaveRunTest {
         Path out = tmp.resolve("no-periodic-out");
         Path file = write("no-periodic.yaml", text);
         Cli.Outcome o = Cli.run("run", file.toString(), "--out", out.toString());
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         Map<String, Integer> found = positions(o, file, "sources[0].plane_wave");
         assertEquals(1, found.size(), () -> "expected one message at sources[0].plane_wave: " + o);
         String message = found.keySet().iterator().next();
@@ -331,7 +332,7 @@ class PlaneWaveRunTest {
         String text = caseText("s", 45, UP, UP_LINES, PERIODIC, disk, "[633 nm]");
         Path file = write("disk.yaml", text);
         Cli.Outcome o = Cli.run("run", file.toString(), "--out", tmp.resolve("disk-out").toString());
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         Map<String, Integer> found = positions(o, file, "flux.transfer_matrix");
         assertEquals(1, found.size(), () -> "expected one message at flux.transfer_matrix: " + o);
         String message = found.keySet().iterator().next();
@@ -346,7 +347,7 @@ class PlaneWaveRunTest {
         // at 60 degrees the in-plane wavenumber 1.5 k0(633 nm) sin 60° exceeds 1.5 k0(λ) for λ > 633 nm / sin 60° = 731 nm
         Path out = tmp.resolve("results");
         Cli.Outcome good = Cli.run("run", write("good.yaml", upCase("s", 60)).toString(), "--out", out.toString());
-        assertEquals(Main.OK, good.code(), good::toString);
+        assertEquals(ExitCode.OK, good.code(), good::toString);
         Path flux = out.resolve("flux.csv");
         Path record = out.resolve("run.json");
         byte[] fluxBefore = Files.readAllBytes(flux);
@@ -356,7 +357,7 @@ class PlaneWaveRunTest {
         String text = caseText("s", 60, UP, UP_LINES, PERIODIC, "", "[633 nm, 800 nm]");
         Path file = write("cut-off.yaml", text);
         Cli.Outcome o = Cli.run("run", file.toString(), "--out", out.toString(), "--force");
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         Map<String, Integer> found = positions(o, file, "flux");
         assertEquals(1, found.size(), () -> "expected one message at flux: " + o);
         String message = found.keySet().iterator().next();

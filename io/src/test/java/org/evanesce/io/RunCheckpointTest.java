@@ -11,6 +11,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Random;
 import java.util.concurrent.TimeUnit;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -58,7 +59,7 @@ class RunCheckpointTest {
         Files.writeString(caseFile, CASE);
         Path whole = tmp.resolve("whole");
         Cli.Outcome w = Cli.run("run", caseFile.toString(), "--out", whole.toString(), "--checkpoint-minutes", "0", "--threads", "1");
-        assertEquals(Main.OK, w.code(), w.err());
+        assertEquals(ExitCode.OK, w.code(), w.err());
 
         Path killed = tmp.resolve("killed");
         Path checkpoint = tmp.resolve("killed.checkpoint");
@@ -82,7 +83,7 @@ class RunCheckpointTest {
         System.out.println("RunCheckpointTest: the killed run left " + left);
 
         Cli.Outcome again = Cli.run("run", caseFile.toString(), "--out", killed.toString(), "--checkpoint-minutes", "0.002", "--threads", "2");
-        assertEquals(Main.OK, again.code(), again.err());
+        assertEquals(ExitCode.OK, again.code(), again.err());
         assertTrue(again.out().contains("continued from the checkpoint at step"), again.out());
         assertArrayEquals(Files.readAllBytes(whole.resolve("flux.csv")), Files.readAllBytes(killed.resolve("flux.csv")),
                 "flux.csv of the restarted run differs from the uninterrupted one");

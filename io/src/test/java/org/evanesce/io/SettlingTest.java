@@ -10,6 +10,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
+import org.evanesce.io.cli.ExitCode;
 import org.evanesce.io.plan.SteadyState;
 import org.evanesce.io.run.Settling;
 import org.evanesce.io.sweep.SweepFolder;
@@ -77,7 +78,7 @@ class SettlingTest {
         // 40 fs: the pulse (about 30 fs long) has not yet passed the lines
         Path out = tmp.resolve("short");
         Cli.Outcome o = Cli.run("run", c.toString(), "--set", "limit=40fs", "--out", out.toString());
-        assertEquals(Main.OK, o.code(), "flagged, not refused: " + o);
+        assertEquals(ExitCode.OK, o.code(), "flagged, not refused: " + o);
         assertTrue(o.out().contains("warning: results: the results did not settle: the run ended at 40"), o.toString());
         assertTrue(o.out().contains("warning: results: implausible flux: A = 1 − R − T = "), o.toString());
         assertTrue(o.err().contains("evanesce run: warning: the results did not settle"), o.toString());
@@ -95,7 +96,7 @@ class SettlingTest {
 
         Path full = tmp.resolve("full");
         Cli.Outcome ok = Cli.run("run", c.toString(), "--out", full.toString());
-        assertEquals(Main.OK, ok.code(), ok.toString());
+        assertEquals(ExitCode.OK, ok.code(), ok.toString());
         assertFalse(ok.out().contains("warning: results:"), ok.toString());
         assertFalse(ok.err().contains("warning"), ok.toString());
         Map<?, ?> fullRun = json(full.resolve("run.json"));
@@ -111,7 +112,7 @@ class SettlingTest {
         Path c = write("gap.yaml", GAP.replace("STOP", "stop: {time: limit}"));
         Path out = tmp.resolve("short");
         Cli.Outcome o = Cli.run("run", c.toString(), "--set", "limit=100fs", "--out", out.toString());
-        assertEquals(Main.OK, o.code(), o.toString());
+        assertEquals(ExitCode.OK, o.code(), o.toString());
         Map<?, ?> s = settling(json(out.resolve("run.json")));
         double fraction = ((Number) s.get("energy_fraction")).doubleValue();
         assertEquals(fraction > Settling.FIXED_LENGTH_FRACTION, Boolean.FALSE.equals(s.get("settled")), s.toString());
@@ -120,7 +121,7 @@ class SettlingTest {
 
         Path full = tmp.resolve("full");
         Cli.Outcome ok = Cli.run("run", c.toString(), "--set", "limit=300fs", "--out", full.toString());
-        assertEquals(Main.OK, ok.code(), ok.toString());
+        assertEquals(ExitCode.OK, ok.code(), ok.toString());
         assertEquals(true, settling(json(full.resolve("run.json"))).get("settled"), ok.toString());
         assertFalse(ok.out().contains("warning: results:"), ok.toString());
     }
@@ -134,7 +135,7 @@ class SettlingTest {
                     limit: [40 fs, 400 fs]"""));
         Path out = tmp.resolve("sweep");
         Cli.Outcome o = Cli.run("sweep", c.toString(), "--out", out.toString());
-        assertEquals(Main.OK, o.code(), o.toString());
+        assertEquals(ExitCode.OK, o.code(), o.toString());
         assertTrue(o.err().contains("evanesce sweep: warning: 1 of 2 merged points did not settle: 0 "), o.toString());
         List<String> rows = Files.readAllLines(out.resolve("sweep.csv"));
         assertTrue(rows.get(0).endsWith(",settled"), rows.get(0));
@@ -183,7 +184,7 @@ class SettlingTest {
         Path c = write("tir.yaml", TOTAL_REFLECTION);
         Path out = tmp.resolve("settled");
         Cli.Outcome o = Cli.run("run", c.toString(), "--out", out.toString());
-        assertEquals(Main.OK, o.code(), o.toString());
+        assertEquals(ExitCode.OK, o.code(), o.toString());
         Map<?, ?> s = settling(json(out.resolve("run.json")));
         assertEquals(true, s.get("settled"), s.toString());
         Map<?, ?> changes = assertInstanceOf(Map.class, s.get("steady_state_changes"));
@@ -194,7 +195,7 @@ class SettlingTest {
 
         Path early = tmp.resolve("early");
         Cli.Outcome e = Cli.run("run", c.toString(), "--set", "t=200fs", "--out", early.toString());
-        assertEquals(Main.OK, e.code(), e.toString());
+        assertEquals(ExitCode.OK, e.code(), e.toString());
         Map<?, ?> se = settling(json(early.resolve("run.json")));
         assertEquals(false, se.get("settled"), se.toString());
         assertTrue(((Number) se.get("steady_state_change")).doubleValue() > SteadyState.TOLERANCE, se.toString());
@@ -223,7 +224,7 @@ class SettlingTest {
                 """);
         Path out = tmp.resolve("out");
         Cli.Outcome o = Cli.run("run", c.toString(), "--out", out.toString());
-        assertEquals(Main.OK, o.code(), o.toString());
+        assertEquals(ExitCode.OK, o.code(), o.toString());
         Map<?, ?> s = settling(json(out.resolve("run.json")));
         assertTrue(s.containsKey("settled") && s.get("settled") == null, s.toString());
         assertTrue(((Number) s.get("energy_fraction")).doubleValue() > 0.1, "40 steps: the pulse is still there " + s);

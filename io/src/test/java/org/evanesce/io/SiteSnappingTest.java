@@ -10,6 +10,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
@@ -67,7 +68,7 @@ class SiteSnappingTest {
         Files.writeString(f, text);
         Path out = tmp.resolve(pol + "-" + size + "-" + sourceComponent);
         Cli.Outcome o = Cli.run("run", f.toString(), "--out", out.toString());
-        assertEquals(Main.OK, o.code(), () -> f + ": " + o);
+        assertEquals(ExitCode.OK, o.code(), () -> f + ": " + o);
         return Files.readString(out.resolve("run.json"));
     }
 

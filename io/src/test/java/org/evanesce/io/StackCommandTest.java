@@ -6,8 +6,9 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.Arrays;
 import java.util.List;
+import org.evanesce.geometry.Complex;
+import org.evanesce.io.cli.ExitCode;
 import org.evanesce.solver.grid.Polarization;
-import org.evanesce.solver.reference.Complex;
 import org.evanesce.solver.reference.Evanescent;
 import org.evanesce.solver.reference.PlanarStack;
 import org.junit.jupiter.api.Test;
@@ -35,7 +36,7 @@ class StackCommandTest {
         // angle 41.81 deg
         Cli.Outcome o = Cli.run("stack", "--incident", "1.5", "--layer", "1.0:200nm", "--exit", "1.5", "--wavelength", "633nm",
                 "--angle", "40:70:1", "--csv");
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         assertEquals("", o.err(), o::toString);
         List<String[]> rows = csvRows(o, "angle_deg,R_s,T_s,A_s,phase_r_s_deg,phase_t_s_deg,"
                 + "R_p,T_p,A_p,phase_r_p_deg,phase_t_p_deg,depth_nm");
@@ -85,7 +86,7 @@ class StackCommandTest {
     void tableNamesTheStackAndTheCriticalAngle() {
         Cli.Outcome o = Cli.run("stack", "--incident", "1.5", "--layer", "1.0:200nm", "--exit", "1.5", "--wavelength", "633nm",
                 "--angle", "45");
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         String[] lines = o.out().split("\\R");
         assertEquals(5, lines.length, o::toString);
         assertTrue(lines[0].contains("n = 1.5") && lines[0].contains("200 nm"), o::toString);
@@ -102,7 +103,7 @@ class StackCommandTest {
     void thicknessSweepFromContactToAMicron() {
         Cli.Outcome o = Cli.run("stack", "--incident", "1.5", "--layer", "1.0:200nm", "--exit", "1.5", "--wavelength", "633nm",
                 "--angle", "45", "--thickness", "1:0:1um:10nm", "--polarization", "s", "--csv");
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         List<String[]> rows = csvRows(o, "thickness_nm,R_s,T_s,A_s,phase_r_s_deg,phase_t_s_deg,depth_nm");
         assertEquals(101, rows.size(), o::toString);
         assertEquals("0", rows.get(0)[0]);
@@ -126,7 +127,7 @@ class StackCommandTest {
         // of glass and air, so nothing is transmitted and A = 1 − R
         Cli.Outcome o = Cli.run("stack", "--incident", "1.515", "--layer", "0.2,3.4:50nm", "--exit", "1", "--wavelength",
                 "400nm:800nm:10nm", "--angle", "44", "--polarization", "P", "--csv");
-        assertEquals(Main.OK, o.code(), o::toString);
+        assertEquals(ExitCode.OK, o.code(), o::toString);
         List<String[]> rows = csvRows(o, "wavelength_nm,R_p,T_p,A_p,phase_r_p_deg,phase_t_p_deg,depth_nm");
         assertEquals(41, rows.size(), o::toString);
         PlanarStack film = new PlanarStack(1.515, List.of(new PlanarStack.Layer(Complex.of(0.2, 3.4), 50e-9)),
@@ -146,7 +147,7 @@ class StackCommandTest {
         for (String[] form : new String[][] {{"1.5+0.01i", "1.5", "0.01"}, {"0.2,3.4", "0.2", "3.4"},
             {"1e-1+2.5e0i", "0.1", "2.5"}, {"2", "2", "0"}}) {
             Cli.Outcome o = Cli.run("stack", "--incident", "1.5", "--exit", form[0], "--wavelength", "633nm", "--csv");
-            assertEquals(Main.OK, o.code(), () -> form[0] + ": " + o);
+            assertEquals(ExitCode.OK, o.code(), () -> form[0] + ": " + o);
             double n = Double.parseDouble(form[1]);
             double k = Double.parseDouble(form[2]);
             PlanarStack.Response resp = PlanarStack.interfaceBetween(1.5, Complex.of(n, k)).atAngle(Polarization.S,
@@ -179,13 +180,13 @@ class StackCommandTest {
             System.arraycopy(c, 0, args, base.length, c.length - 2);
             Cli.Outcome o = Cli.run(args);
             String what = String.join(" ", args) + ": " + o;
-            assertEquals(Main.USAGE, o.code(), what);
+            assertEquals(ExitCode.USAGE, o.code(), what);
             assertEquals("", o.out(), what);
             assertEquals(1, o.err().lines().count(), what);
             assertTrue(o.err().contains(c[c.length - 2]) && o.err().contains(c[c.length - 1]), what);
         }
         Cli.Outcome lossyIncidence = Cli.run("stack", "--incident", "1.5+0.1i", "--exit", "1", "--wavelength", "633nm");
-        assertEquals(Main.USAGE, lossyIncidence.code(), lossyIncidence::toString);
+        assertEquals(ExitCode.USAGE, lossyIncidence.code(), lossyIncidence::toString);
         assertTrue(lossyIncidence.err().contains("--incident 1.5+0.1i") && lossyIncidence.err().contains("transparent"),
                 lossyIncidence::toString);
     }
@@ -217,7 +218,7 @@ class StackCommandTest {
             System.arraycopy(c, 0, args, 1, c.length - 1);
             Cli.Outcome o = Cli.run(args);
             String what = String.join(" ", args) + ": " + o;
-            assertEquals(Main.USAGE, o.code(), what);
+            assertEquals(ExitCode.USAGE, o.code(), what);
             assertEquals("", o.out(), what);
             assertEquals(1, o.err().lines().count(), what);
             assertTrue(o.err().contains(c[c.length - 1]), what);
@@ -226,7 +227,7 @@ class StackCommandTest {
         // a zero thickness is a layer that is not there: the bare interface glass | glass reflects nothing
         Cli.Outcome zero = Cli.run("stack", "--incident", "1.5", "--layer", "1.0:0nm", "--exit", "1.5", "--wavelength", "633nm",
                 "--csv");
-        assertEquals(Main.OK, zero.code(), zero::toString);
+        assertEquals(ExitCode.OK, zero.code(), zero::toString);
         assertTrue(zero.out().lines().skip(1).allMatch(l -> l.startsWith("0,0,1,0,")), zero::toString);
     }
 }

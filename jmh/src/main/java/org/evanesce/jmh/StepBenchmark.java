@@ -3,7 +3,7 @@ package org.evanesce.jmh;
 import java.util.concurrent.TimeUnit;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
-import org.evanesce.solver.PhysicalConstants;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;

@@ -1,6 +1,7 @@
 package org.evanesce.solver;
 
 import java.util.Optional;
+import org.evanesce.geometry.PhysicalConstants;
 
 /**
  * The Courant number S = c0Δt/Δ and the time step it sets: the one place that decides the default

@@ -1,5 +1,7 @@
 package org.evanesce.solver;
 
+import org.evanesce.geometry.PhysicalConstants;
+
 /**
  * Cancels the Yee grid's numerical dispersion for one plane-wave direction at one frequency, by
  * replacing each lossless material's relative permittivity with the value for which the

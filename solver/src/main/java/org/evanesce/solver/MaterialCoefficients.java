@@ -2,6 +2,7 @@ package org.evanesce.solver;
 
 import java.util.List;
 import org.evanesce.geometry.Material;
+import org.evanesce.geometry.PhysicalConstants;
 
 /**
  * The electric update coefficients of each material, e ← ca·e + cb·curl in the kernels'

@@ -7,6 +7,7 @@ import java.util.Map;
 import java.util.TreeMap;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.geometry.dispersion.AdeCoefficients;
 import org.evanesce.geometry.dispersion.DispersiveMaterial;
 import org.evanesce.solver.boundary.Boundary;
@@ -34,12 +35,10 @@ import org.evanesce.solver.source.Source;
 public final class Simulation implements StepView, AutoCloseable {
 
     /**
-     * The 2D Courant limit 1/√2.
-     *
-     * @deprecated {@link Courant#LIMIT_2D} is its one home; kept until io.casefile's reader switches to it
+     * The fewest cells a thread must have before the team uses another ({@link Builder#minCellsPerThread}'s
+     * default): handing a band over costs more than a smaller band's step.
      */
-    @Deprecated
-    public static final double COURANT_LIMIT_2D = Courant.LIMIT_2D;
+    public static final int MIN_CELLS_PER_THREAD = 1 << 15;
 
     private final Engine engine;
     private final BandTeam team;
@@ -383,6 +382,23 @@ public final class Simulation implements StepView, AutoCloseable {
     }
 
     @Override
+    public void readRow(Component c, int j, int i0, int i1, double[] re, double[] im) {
+        if (i0 < 0 || i1 > engine.nx() || j < 0 || j >= engine.ny() || i1 < i0) {
+            throw new IndexOutOfBoundsException(String.format("row %d from %d to %d is outside the %d x %d grid", j, i0, i1,
+                    engine.nx(), engine.ny()));
+        }
+        engine.read(c, j * engine.nx() + i0, i1 - i0, re);
+        if (im != null) {
+            engine.readImag(c, j * engine.nx() + i0, i1 - i0, im);
+        }
+    }
+
+    @Override
+    public boolean complexFields() {
+        return engine.isComplex();
+    }
+
+    @Override
     public double fieldImag(Component c, int i, int j) {
         return engine.getImag(c, j * engine.nx() + i);
     }
@@ -478,7 +494,7 @@ public final class Simulation implements StepView, AutoCloseable {
         private double courant = Courant.DEFAULT;
         private final Map<Side, Boundary> sides = new EnumMap<>(Side.class);
         private int threads = Runtime.getRuntime().availableProcessors();
-        private int minRowsCellsPerThread = 1 << 15;
+        private int minRowsCellsPerThread = MIN_CELLS_PER_THREAD;
         private final List<Source> sources = new ArrayList<>();
         private final List<IncidentSheet> sheets = new ArrayList<>();
         private final List<StepListener> listeners = new ArrayList<>();
@@ -528,7 +544,7 @@ public final class Simulation implements StepView, AutoCloseable {
             return this;
         }
 
-        /** Fewest cells a thread must have before another thread is used (default 32768; tests lower it). */
+        /** Fewest cells a thread must have before another thread is used (default {@value #MIN_CELLS_PER_THREAD}; tests lower it). */
         public Builder minCellsPerThread(int cells) {
             minRowsCellsPerThread = cells;
             return this;

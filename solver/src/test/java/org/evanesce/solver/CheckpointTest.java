@@ -11,6 +11,7 @@ import java.util.List;
 import org.evanesce.geometry.GridSpec;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.geometry.Rasterizer;
 import org.evanesce.geometry.Scene;
 import org.evanesce.geometry.Smoothing;

@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import org.evanesce.geometry.GridSpec;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.geometry.Rasterizer;
 import org.evanesce.geometry.Scene;
 import org.evanesce.geometry.Smoothing;
@@ -25,8 +26,8 @@ import org.junit.jupiter.params.provider.CsvSource;
  * ({@link FluxLine#window}) matches Fresnel's (Hecht, Optics, 4th ed., sec. 4.6:
  * t_s = 2 cos θi / (cos θi + n cos θt), T = n cos θt / cos θi · |t_s|²; for p,
  * t_p = 2 cos θi / (n cos θi + cos θt), T = n cos θt / cos θi · |t_p|² with t_p the ratio of E
- * amplitudes). Transforming from the start instead mixes in the switch-on, which reaches the
- * transmitted line later than the incident one; the message gives that error too.
+ * amplitudes). (Transforming from the start instead mixes in the switch-on, which reaches the
+ * transmitted line later than the incident one: measured 8e-2 off when this test was written.)
  */
 class ContinuousWaveFluxTest {
 
@@ -35,7 +36,7 @@ class ContinuousWaveFluxTest {
     private static final int CPW = 20;
     private static final int NX = 8;
     private static final int PML = 20;
-    /** Measured 1.6e-4 (s) and 1.5e-4 (p) at 20 cells per wavelength in the glass (8e-2 without the window); the margin covers the grid's dispersion. */
+    /** Measured 1.6e-4 (s) and 1.5e-4 (p) at 20 cells per wavelength in the glass (the grid's dispersion); about 10 times that. */
     private static final double TOL = 1.5e-3;
     private static final int PERIODS = 30;
 
@@ -46,22 +47,20 @@ class ContinuousWaveFluxTest {
         double theta = Math.toRadians(30);
         double kx = 2 * Math.PI / WAVELENGTH * Math.sin(theta);
         double f = PhysicalConstants.C0 / WAVELENGTH;
-        double[] windowed = transmittance(pol, dx, kx, f, true);
-        double[] whole = transmittance(pol, dx, kx, f, false);
+        double windowed = transmittance(pol, dx, kx, f);
         double ci = Math.cos(theta);
         double ct = Math.sqrt(1 - Math.pow(Math.sin(theta) / N, 2));
         double t = pol == Polarization.S ? 2 * ci / (ci + N * ct) : 2 * ci / (N * ci + ct);
         double exact = N * ct / ci * t * t;
-        String ctx = String.format("%s 30°: T windowed %.6f, from the start %.6f, Fresnel %.6f", pol, windowed[0], whole[0],
-                exact);
+        String ctx = String.format("%s 30°: T windowed %.6f, Fresnel %.6f (diff %+.2e)", pol, windowed, exact, windowed - exact);
         if (Boolean.getBoolean("evanesce.printTables")) {
             System.out.println(ctx);
         }
-        assertTrue(Math.abs(windowed[0] - exact) < TOL, ctx);
+        assertTrue(Math.abs(windowed - exact) < TOL, ctx);
     }
 
-    /** {T} from a run whose lines transform the last PERIODS whole periods (windowed) or every step. */
-    private static double[] transmittance(Polarization pol, double dx, double kx, double f, boolean windowed) {
+    /** T from a run whose lines transform the last PERIODS whole periods. */
+    private static double transmittance(Polarization pol, double dx, double kx, double f) {
         int source = PML + 10;
         double interface0 = source + 20.3;
         int top = (int) interface0 + 30;
@@ -81,13 +80,11 @@ class ContinuousWaveFluxTest {
         double end = steps * dt;
         FluxLine line = new FluxLine(pol, top, 0, NX, f);
         FluxLine incident = new FluxLine(pol, source + 3, 0, NX, f);
-        if (windowed) {
-            line.window(end - PERIODS / f, end + 1e-6 / f);
-            incident.window(end - PERIODS / f, end + 1e-6 / f);
-        }
+        line.window(end - PERIODS / f, end + 1e-6 / f);
+        incident.window(end - PERIODS / f, end + 1e-6 / f);
         run(grid, pol, c, kx, dx, f, ramp, source, ny, steps, line);
         run(vacuum, pol, c, kx, dx, f, ramp, source, ny, steps, incident);
-        return new double[] {line.flux(0, dx) / incident.flux(0, dx)};
+        return line.flux(0, dx) / incident.flux(0, dx);
     }
 
     private static void run(MaterialGrid grid, Polarization pol, Component c, double kx, double dx, double f, double ramp,

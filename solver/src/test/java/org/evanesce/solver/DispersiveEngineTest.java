@@ -12,6 +12,7 @@ import java.util.Map;
 import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.geometry.dispersion.DispersiveMaterial;
 import org.evanesce.geometry.dispersion.MetalLibrary;
 import org.evanesce.solver.boundary.Boundary;

@@ -21,8 +21,13 @@ import org.junit.jupiter.params.provider.CsvSource;
  */
 class EnergyConservationTest {
 
-    /** The bound over 10,000 steps; float rounding alone is expected near 1e-6. */
-    private static final double TOLERANCE = 1e-4;
+    /**
+     * Largest relative change over 10,000 steps in float: rounding alone, measured 0.80e-6 to 1.57e-6 (s
+     * and p, PEC and mixed walls); about 10 times that.
+     */
+    private static final double FLOAT_TOLERANCE = 1.5e-5;
+    /** The same in double: measured 9.1e-15 and 9.2e-15; about 10 times that. */
+    private static final double DOUBLE_TOLERANCE = 1e-13;
     private static final int STEPS = 10_000;
 
     @ParameterizedTest(name = "{0} {1}, walls {2}")
@@ -60,7 +65,7 @@ class EnergyConservationTest {
             }
             String ctx = String.format("%s %s walls %s, grid %d×%d, S = 0.6: largest relative energy change %.3g at step %d",
                     pol, precision, walls, nx, ny, worst, worstStep);
-            assertTrue(worst < TOLERANCE, ctx);
+            assertTrue(worst < (precision == Precision.FLOAT ? FLOAT_TOLERANCE : DOUBLE_TOLERANCE), ctx);
         }
     }
 }

@@ -3,9 +3,11 @@ package org.evanesce.solver;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
+import org.evanesce.geometry.Complex;
 import org.evanesce.geometry.GridSpec;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.geometry.Rasterizer;
 import org.evanesce.geometry.Scene;
 import org.evanesce.geometry.Smoothing;
@@ -16,7 +18,6 @@ import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
 import org.evanesce.solver.grid.Side;
 import org.evanesce.solver.record.FluxLine;
-import org.evanesce.solver.reference.Complex;
 import org.evanesce.solver.reference.PlanarStack;
 import org.evanesce.solver.source.Source;
 import org.evanesce.solver.source.TimeSignal;
@@ -28,7 +29,7 @@ import org.junit.jupiter.params.provider.CsvSource;
  * half-spaces of index 1.5, beyond the critical angle, simulated with Bloch-periodic sides (fixed
  * in-plane wavenumber) and compared with the transfer matrix of the same stack (Born &amp; Wolf sec.
  * 1.6; the transfer matrix itself is checked against the closed form 1/T = 1 + α sinh²(κd) of
- * S. Zhu et al., Am. J. Phys. 54, 601 (1986) in PlanarStackTest). Transmittance and reflectance are
+ * S. Zhu et al., Am. J. Phys. 54, 601 (1986) in FrustratedTotalReflectionTest). Transmittance and reflectance are
  * flux ratios at the design frequency, normalised by an all-glass reference run of the same source;
  * the reflected flux is that of the difference between the two runs' fields.
  */

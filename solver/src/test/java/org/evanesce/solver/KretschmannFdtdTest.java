@@ -4,13 +4,12 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
 import org.evanesce.geometry.Material;
-import org.evanesce.geometry.dispersion.ComplexNumber;
+import org.evanesce.geometry.PhysicalConstants;
+import org.evanesce.geometry.Complex;
 import org.evanesce.geometry.dispersion.DispersiveMaterial;
 import org.evanesce.geometry.dispersion.MetalLibrary;
-import org.evanesce.geometry.dispersion.Spectral;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
-import org.evanesce.solver.reference.Complex;
 import org.evanesce.solver.reference.PlanarStack;
 import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
@@ -39,7 +38,7 @@ import org.junit.jupiter.api.Test;
 class KretschmannFdtdTest {
 
     static final double LAMBDA = 633e-9;
-    static final double F = Spectral.C0 / LAMBDA;
+    static final double F = PhysicalConstants.C0 / LAMBDA;
     static final double GLASS = 1.515;
     static final double FILM = 50e-9;
     static final DispersiveMaterial GOLD = MetalLibrary.get("gold").material();
@@ -68,8 +67,8 @@ class KretschmannFdtdTest {
     /** The stack with the gold's discrete index at the run's time step. */
     static PlanarStack stack(double dx) {
         double dt = Courant.timeStep(Courant.DEFAULT, dx);
-        ComplexNumber n = GOLD.discreteIndex(2 * Math.PI * F, dt);
-        return new PlanarStack(GLASS, List.of(new PlanarStack.Layer(Complex.of(n.re(), n.im()), FILM)), Complex.real(1.0));
+        Complex n = GOLD.discreteIndex(2 * Math.PI * F, dt);
+        return new PlanarStack(GLASS, List.of(new PlanarStack.Layer(n, FILM)), Complex.real(1.0));
     }
 
     /** R of the full run and the TMM at one angle, cells of dx (the film is FILM/dx cells thick). */

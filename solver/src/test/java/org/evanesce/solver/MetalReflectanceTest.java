@@ -4,11 +4,11 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
 import org.evanesce.geometry.Material;
-import org.evanesce.geometry.dispersion.ComplexNumber;
+import org.evanesce.geometry.PhysicalConstants;
+import org.evanesce.geometry.Complex;
 import org.evanesce.geometry.dispersion.DispersiveMaterial;
 import org.evanesce.geometry.dispersion.DrudeTerm;
 import org.evanesce.geometry.dispersion.LorentzTerm;
-import org.evanesce.geometry.dispersion.Spectral;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
 import org.junit.jupiter.api.Test;
@@ -28,7 +28,7 @@ import org.junit.jupiter.params.provider.CsvSource;
 class MetalReflectanceTest {
 
     private static final double WAVELENGTH = 633e-9;
-    private static final double F = Spectral.C0 / WAVELENGTH;
+    private static final double F = PhysicalConstants.C0 / WAVELENGTH;
     /** A free-electron metal like silver's conduction electrons: ħωp = 9 eV, ħγ = 0.07 eV (common practice, a made-up metal). */
     static final DispersiveMaterial DRUDE = new DispersiveMaterial("drude", 1.0, 0,
             List.of(DrudeTerm.ofElectronVolts(9.0, 0.07)), List.of());
@@ -58,7 +58,7 @@ class MetalReflectanceTest {
         MetalRuns.Result ref = MetalRuns.run(pol, precision, nx, ny, dx, 0.0, F, 4, 0, Material.VACUUM, List.of(), top, 1);
         double r = MetalRuns.reflectance(run, ref, dx);
         double dt = Courant.timeStep(Courant.DEFAULT, dx);
-        ComplexNumber n = metal.discreteIndex(2 * Math.PI * F, dt);
+        Complex n = metal.discreteIndex(2 * Math.PI * F, dt);
         double a = 1 - n.re();
         double b = -n.im();
         double c = 1 + n.re();

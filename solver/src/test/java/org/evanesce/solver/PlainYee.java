@@ -3,6 +3,7 @@ package org.evanesce.solver;
 import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.solver.boundary.PmlParameters;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;

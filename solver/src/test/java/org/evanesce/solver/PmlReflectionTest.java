@@ -8,6 +8,7 @@ import java.util.List;
 import org.evanesce.geometry.CellRegion;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.boundary.PmlParameters;
 import org.evanesce.solver.grid.Component;

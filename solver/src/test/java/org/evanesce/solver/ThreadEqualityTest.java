@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import org.evanesce.geometry.CellRegion;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
@@ -16,7 +17,7 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 
 /**
- * Threaded runs must equal the single-threaded run bit for bit (STYLE.md: awkward sizes, 1, 2 and
+ * Threaded runs must equal the single-threaded run bit for bit (common practice: awkward sizes, 1, 2 and
  * 3 threads, threading threshold lowered), with every boundary kind, losses and sources present.
  */
 class ThreadEqualityTest {

@@ -2,6 +2,7 @@ package org.evanesce.geometry.dispersion;
 
 import java.util.Arrays;
 import java.util.Objects;
+import org.evanesce.geometry.PhysicalConstants;
 
 /**
  * The time stepping of a {@link DispersiveMaterial} on the Yee grid by auxiliary differential
@@ -110,7 +111,7 @@ public record AdeCoefficients(double courant, double dt, double ca, double cb, d
                     "Courant number %g and time step %g s must be finite and > 0", courant, dt));
         }
         double epsInf = material.epsInfinity();
-        double l = material.conductivity() * dt / (2 * Spectral.EPS0 * epsInf);
+        double l = material.conductivity() * dt / (2 * PhysicalConstants.EPS0 * epsInf);
         int nd = material.drude().size();
         int nl = material.lorentz().size();
         double[] k = new double[nd];

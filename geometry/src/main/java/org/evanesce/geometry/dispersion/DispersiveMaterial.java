@@ -1,14 +1,16 @@
 package org.evanesce.geometry.dispersion;
 
 import java.util.List;
+import org.evanesce.geometry.Complex;
 import org.evanesce.geometry.Material;
+import org.evanesce.geometry.PhysicalConstants;
 
 /**
  * A linear isotropic non-magnetic material whose permittivity depends on frequency: a background
  * permittivity, a conductivity, and any number of Drude and Lorentz terms.
  *
  * <h2>Continuous model</h2>
- * Time dependence exp(−iωt) (the project's convention, DESIGN.md), ω in rad/s:
+ * Time dependence exp(−iωt) (the project's convention, docs/architecture.md), ω in rad/s:
  * <pre>
  *     ε(ω) = ε∞ + iσ/(ε0 ω) − Σ_Drude ωp²/(ω² + iγω) + Σ_Lorentz W/(ω0² − ω² − iγω)
  * </pre>
@@ -70,12 +72,12 @@ public record DispersiveMaterial(String name, double epsInfinity, double conduct
     }
 
     /** ε(ω) of the continuous model at ω &gt; 0 (rad/s). */
-    public ComplexNumber permittivity(double omega) {
+    public Complex permittivity(double omega) {
         if (!(omega > 0) || Double.isInfinite(omega)) {
             throw new IllegalArgumentException(String.format(
                     "material '%s': angular frequency %g rad/s must be finite and > 0", name, omega));
         }
-        ComplexNumber e = new ComplexNumber(epsInfinity, conductivity / (Spectral.EPS0 * omega));
+        Complex e = new Complex(epsInfinity, conductivity / (PhysicalConstants.EPS0 * omega));
         for (DrudeTerm d : drude) {
             e = e.plus(d.susceptibility(omega));
         }
@@ -86,7 +88,7 @@ public record DispersiveMaterial(String name, double epsInfinity, double conduct
     }
 
     /** ε at a vacuum wavelength λ in metres. */
-    public ComplexNumber permittivityAtWavelength(double wavelength) {
+    public Complex permittivityAtWavelength(double wavelength) {
         return permittivity(Spectral.omegaOfWavelength(wavelength));
     }
 
@@ -94,17 +96,17 @@ public record DispersiveMaterial(String name, double epsInfinity, double conduct
      * ε_d(ω, Δt) = ε((2/Δt) tan(ωΔt/2)): what the time stepping of {@link AdeCoefficients} realises
      * at ω (see the class comment). Requires 0 &lt; ωΔt &lt; π (below the grid's Nyquist frequency).
      */
-    public ComplexNumber discretePermittivity(double omega, double dt) {
+    public Complex discretePermittivity(double omega, double dt) {
         return permittivity(warpedFrequency(omega, dt));
     }
 
     /** n + iκ = √ε(ω) with κ ≥ 0. */
-    public ComplexNumber index(double omega) {
+    public Complex index(double omega) {
         return permittivity(omega).sqrtUpper();
     }
 
     /** n + iκ = √ε_d(ω, Δt) with κ ≥ 0. */
-    public ComplexNumber discreteIndex(double omega, double dt) {
+    public Complex discreteIndex(double omega, double dt) {
         return discretePermittivity(omega, dt).sqrtUpper();
     }
 

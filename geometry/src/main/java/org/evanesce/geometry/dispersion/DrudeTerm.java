@@ -1,5 +1,7 @@
 package org.evanesce.geometry.dispersion;
 
+import org.evanesce.geometry.Complex;
+
 /**
  * A free-electron (Drude) term of a permittivity, time dependence exp(−iωt):
  * <pre>
@@ -25,8 +27,8 @@ public record DrudeTerm(double plasmaFrequency, double damping) {
     }
 
     /** χ(ω) of this term alone, for ω &gt; 0 in rad/s. */
-    public ComplexNumber susceptibility(double omega) {
+    public Complex susceptibility(double omega) {
         // −ωp²/(ω² + iγω)
-        return new ComplexNumber(omega * omega, damping * omega).dividedInto(-plasmaFrequency * plasmaFrequency);
+        return Complex.real(-plasmaFrequency * plasmaFrequency).divide(new Complex(omega * omega, damping * omega));
     }
 }

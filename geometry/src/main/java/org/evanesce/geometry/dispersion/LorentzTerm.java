@@ -1,5 +1,7 @@
 package org.evanesce.geometry.dispersion;
 
+import org.evanesce.geometry.Complex;
+
 /**
  * A bound-electron (Lorentz) term of a permittivity, time dependence exp(−iωt):
  * <pre>
@@ -64,7 +66,7 @@ public record LorentzTerm(double weight, double resonance, double damping) {
     }
 
     /** χ(ω) of this term alone, for ω &gt; 0 in rad/s. */
-    public ComplexNumber susceptibility(double omega) {
-        return new ComplexNumber(resonance * resonance - omega * omega, -damping * omega).dividedInto(weight);
+    public Complex susceptibility(double omega) {
+        return Complex.real(weight).divide(new Complex(resonance * resonance - omega * omega, -damping * omega));
     }
 }

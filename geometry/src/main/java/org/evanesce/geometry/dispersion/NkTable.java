@@ -2,6 +2,7 @@ package org.evanesce.geometry.dispersion;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.evanesce.geometry.Complex;
 
 /**
  * A validated table of measured complex indices n + iκ against vacuum wavelength, each row with the
@@ -27,8 +28,8 @@ public record NkTable(String name, List<Row> rows) {
     public record Row(double wavelength, double n, double k, int line) {
 
         /** ε = (n + iκ)². */
-        public ComplexNumber permittivity() {
-            return new ComplexNumber(n, k).square();
+        public Complex permittivity() {
+            return new Complex(n, k).square();
         }
 
         public double omega() {

@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
+import org.evanesce.geometry.Complex;
 import org.hipparchus.exception.MathIllegalStateException;
 import org.hipparchus.linear.Array2DRowRealMatrix;
 import org.hipparchus.linear.ArrayRealVector;
@@ -56,7 +57,7 @@ public final class PoleFit {
     private static final int MAX_EVALUATIONS = 1000;
 
     /** The error at one row of the table. */
-    public record RowError(NkTable.Row row, ComplexNumber fitted, double error) {
+    public record RowError(NkTable.Row row, Complex fitted, double error) {
     }
 
     /**
@@ -179,8 +180,8 @@ public final class PoleFit {
         List<RowError> errors = new ArrayList<>();
         RowError worst = null;
         for (NkTable.Row r : rows) {
-            ComplexNumber f = m.permittivity(r.omega());
-            ComplexNumber d = r.permittivity();
+            Complex f = m.permittivity(r.omega());
+            Complex d = r.permittivity();
             RowError e = new RowError(r, f, f.minus(d).abs() / d.abs());
             errors.add(e);
             if (worst == null || e.error() > worst.error()) {
@@ -223,7 +224,7 @@ public final class PoleFit {
         for (int i = 0; i < REFIT_SAMPLES; i++) {
             double lambda = i == 0 ? band.longest() : i == REFIT_SAMPLES - 1 ? band.shortest()
                     : Spectral.wavelengthOfOmega(wLow + (wHigh - wLow) * i / (REFIT_SAMPLES - 1));
-            ComplexNumber n = material.permittivityAtWavelength(lambda).sqrtUpper();
+            Complex n = material.permittivityAtWavelength(lambda).sqrtUpper();
             rows.add(new NkTable.Row(lambda, n.re(), n.im(), i + 1));
         }
         return fit(material.name(), new NkTable(material.name() + " (model sampled)", rows), band, tolerance);
@@ -290,7 +291,7 @@ public final class PoleFit {
             for (int i = 0; i < m; i++) {
                 NkTable.Row r = rows.get(i);
                 x[i] = r.omega() / omegaScale;
-                ComplexNumber e = r.permittivity();
+                Complex e = r.permittivity();
                 dataRe[i] = e.re();
                 dataIm[i] = e.im();
                 norm[i] = e.abs();

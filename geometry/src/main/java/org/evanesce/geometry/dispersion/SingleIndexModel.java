@@ -2,6 +2,8 @@ package org.evanesce.geometry.dispersion;
 
 import java.util.List;
 import java.util.Locale;
+import org.evanesce.geometry.Complex;
+import org.evanesce.geometry.PhysicalConstants;
 
 /**
  * A passive model that reproduces one measured complex index n + iκ at one wavelength exactly.
@@ -25,7 +27,7 @@ import java.util.Locale;
  * @param index      the measured n + iκ
  * @param wavelength the wavelength of the measurement, m
  */
-public record SingleIndexModel(DispersiveMaterial material, Kind kind, ComplexNumber index, double wavelength) {
+public record SingleIndexModel(DispersiveMaterial material, Kind kind, Complex index, double wavelength) {
 
     /** The form of the model. */
     public enum Kind {
@@ -52,8 +54,8 @@ public record SingleIndexModel(DispersiveMaterial material, Kind kind, ComplexNu
                     "material '%s': wavelength %g m must be finite and > 0", name, wavelength));
         }
         double omega = Spectral.omegaOfWavelength(wavelength);
-        ComplexNumber idx = new ComplexNumber(n, k);
-        ComplexNumber eps = idx.square();
+        Complex idx = new Complex(n, k);
+        Complex eps = idx.square();
         double a = eps.re();
         double b = eps.im();
         if (a < 1) {
@@ -64,7 +66,7 @@ public record SingleIndexModel(DispersiveMaterial material, Kind kind, ComplexNu
                     List.of(new DrudeTerm(Math.sqrt(wp2), gamma)), List.of());
             return new SingleIndexModel(m, Kind.DRUDE, idx, wavelength);
         }
-        double sigma = Spectral.EPS0 * omega * b;
+        double sigma = PhysicalConstants.EPS0 * omega * b;
         return new SingleIndexModel(new DispersiveMaterial(name, a, sigma, List.of(), List.of()), Kind.CONDUCTIVE,
                 idx, wavelength);
     }
@@ -82,8 +84,8 @@ public record SingleIndexModel(DispersiveMaterial material, Kind kind, ComplexNu
     }
 
     /** ε of the model at the band's shortest and longest wavelengths, in that order. */
-    public ComplexNumber[] atBandEnds(WavelengthBand band) {
-        return new ComplexNumber[] {material.permittivityAtWavelength(band.shortest()),
+    public Complex[] atBandEnds(WavelengthBand band) {
+        return new Complex[] {material.permittivityAtWavelength(band.shortest()),
                 material.permittivityAtWavelength(band.longest())};
     }
 }

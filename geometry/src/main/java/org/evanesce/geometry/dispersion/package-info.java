@@ -14,7 +14,7 @@
  *     gives a {@link org.evanesce.geometry.dispersion.SourcedMaterial} with citation and validity band.</li>
  * </ul>
  *
- * <p>Conventions (DESIGN.md): time dependence exp(−iωt), so a lossy material has Im ε ≥ 0 and an
+ * <p>Conventions (docs/architecture.md): time dependence exp(−iωt), so a lossy material has Im ε ≥ 0 and an
  * index n + iκ with κ ≥ 0; SI units inside (ω in rad/s, wavelengths in metres), with constructors
  * from photon energies in eV (ħω). This package computes coefficients but holds no fields, no time
  * loop and no files.

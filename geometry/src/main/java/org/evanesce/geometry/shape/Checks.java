@@ -1,6 +1,6 @@
 package org.evanesce.geometry.shape;
 
-/** Argument checks with messages naming the parameter, value, bound and unit (STYLE.md §10). */
+/** Argument checks with messages naming the parameter, value, bound and unit (docs/architecture.md, code conventions). */
 final class Checks {
 
     private Checks() {

@@ -9,6 +9,7 @@ import org.ejml.data.Complex_F64;
 import org.ejml.data.DMatrixRMaj;
 import org.ejml.dense.row.factory.DecompositionFactory_DDRM;
 import org.ejml.interfaces.decomposition.EigenDecomposition_F64;
+import org.evanesce.geometry.PhysicalConstants;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -74,7 +75,7 @@ class AdeStabilityTest {
 
     /** Δt for N cells per vacuum wavelength λ at Courant number S: Δ = λ/N, Δt = SΔ/c0. */
     static double dt(double wavelength, double cellsPerWavelength, double courant) {
-        return courant * wavelength / cellsPerWavelength / Spectral.C0;
+        return courant * wavelength / cellsPerWavelength / PhysicalConstants.C0;
     }
 
     @Test

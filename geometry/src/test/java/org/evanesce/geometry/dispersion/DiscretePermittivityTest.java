@@ -4,6 +4,8 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
+import org.evanesce.geometry.Complex;
+import org.evanesce.geometry.PhysicalConstants;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -38,13 +40,13 @@ class DiscretePermittivityTest {
     void discreteTendsToContinuousAtSecondOrder() {
         double omega = Spectral.omegaOfWavelength(LAMBDA);
         for (DispersiveMaterial m : models()) {
-            ComplexNumber exact = m.permittivity(omega);
+            Complex exact = m.permittivity(omega);
             int levels = 6;
             double[] logDt = new double[levels];
             double[] logErr = new double[levels];
             for (int i = 0; i < levels; i++) {
                 double cells = 10 * Math.pow(2, i); // 10 … 320 cells per wavelength at S = 0.5
-                double dt = 0.5 * LAMBDA / cells / Spectral.C0;
+                double dt = 0.5 * LAMBDA / cells / PhysicalConstants.C0;
                 double err = m.discretePermittivity(omega, dt).minus(exact).abs();
                 logDt[i] = Math.log(dt);
                 logErr[i] = Math.log(err);
@@ -79,10 +81,10 @@ class DiscretePermittivityTest {
             for (double cells : new double[] {5, 20, 60}) {
                 for (double wavelength : new double[] {450e-9, 633e-9, 1000e-9}) {
                     double s = 0.6;
-                    double dt = s * 633e-9 / cells / Spectral.C0;
+                    double dt = s * 633e-9 / cells / PhysicalConstants.C0;
                     double omega = Spectral.omegaOfWavelength(wavelength);
-                    ComplexNumber extracted = extract(m, s, dt, omega);
-                    ComplexNumber formula = m.discretePermittivity(omega, dt);
+                    Complex extracted = extract(m, s, dt, omega);
+                    Complex formula = m.discretePermittivity(omega, dt);
                     double rel = extracted.minus(formula).abs() / formula.abs();
                     worst = Math.max(worst, rel);
                     assertTrue(rel < EXTRACTION_TOLERANCE, String.format(
@@ -100,7 +102,7 @@ class DiscretePermittivityTest {
      * post-pass returns the prescribed E^{n+1}), fits curl^{n+½} = Re(C·exp(−iω(n+½)Δt)) over the last
      * 20 000 steps, and returns ε_d = S·C/(−2i sin(ωΔt/2)) (Ampère's law with E amplitude 1).
      */
-    static ComplexNumber extract(DispersiveMaterial m, double s, double dt, double omega) {
+    static Complex extract(DispersiveMaterial m, double s, double dt, double omega) {
         AdeCoefficients c = AdeCoefficients.of(m, s, dt);
         double[] state = new double[c.stateSize()];
         int steps = 40_000;
@@ -136,8 +138,8 @@ class DiscretePermittivityTest {
         double a = (syc * sss - sys * scs) / det;
         double b = (sys * scc - syc * scs) / det;
         // A cos φ + B sin φ = Re((A + iB) e^{−iφ})
-        ComplexNumber amp = new ComplexNumber(a, b);
-        ComplexNumber denom = new ComplexNumber(0, -2 * Math.sin(omega * dt / 2));
+        Complex amp = new Complex(a, b);
+        Complex denom = new Complex(0, -2 * Math.sin(omega * dt / 2));
         return amp.times(s).divide(denom);
     }
 

@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import org.evanesce.geometry.Complex;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -18,15 +19,15 @@ class MetalLibraryTest {
 
     /** |ε_model − ε_data|/|ε_data| for n, κ pairs. */
     static double relativeError(SourcedMaterial m, double nm, double n, double k) {
-        ComplexNumber data = new ComplexNumber(n, k).square();
-        ComplexNumber model = m.material().permittivityAtWavelength(nm * 1e-9);
+        Complex data = new Complex(n, k).square();
+        Complex model = m.material().permittivityAtWavelength(nm * 1e-9);
         return model.minus(data).abs() / data.abs();
     }
 
     /** Normal-incidence reflectance |(N − 1)/(N + 1)|² from vacuum (Born &amp; Wolf sec. 1.5). */
     static double reflectance(SourcedMaterial m, double nm) {
-        ComplexNumber n = m.material().index(Spectral.omegaOfWavelength(nm * 1e-9));
-        ComplexNumber r = n.plus(-1).divide(n.plus(1));
+        Complex n = m.material().index(Spectral.omegaOfWavelength(nm * 1e-9));
+        Complex r = n.plus(-1).divide(n.plus(1));
         return r.abs() * r.abs();
     }
 

@@ -7,6 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.evanesce.geometry.Complex;
 import org.junit.jupiter.api.Test;
 
 /** Automatic Drude–Lorentz fits to n, k tables, their error report and their refusals. */
@@ -34,7 +35,7 @@ class PoleFitTest {
         List<NkTable.Row> out = new ArrayList<>();
         for (int i = 0; i < rows; i++) {
             double lambda = (fromNm + (toNm - fromNm) * i / (rows - 1)) * 1e-9;
-            ComplexNumber n = m.permittivityAtWavelength(lambda).sqrtUpper();
+            Complex n = m.permittivityAtWavelength(lambda).sqrtUpper();
             out.add(new NkTable.Row(lambda, n.re(), n.im(), i + 2));
         }
         return new NkTable("generated.csv", out);
@@ -52,8 +53,8 @@ class PoleFitTest {
         double worstBetween = 0;
         for (int i = 0; i < 200; i++) {
             double lambda = (401 + 598 * i / 199.0) * 1e-9;
-            ComplexNumber a = truth.permittivityAtWavelength(lambda);
-            ComplexNumber b = r.material().permittivityAtWavelength(lambda);
+            Complex a = truth.permittivityAtWavelength(lambda);
+            Complex b = r.material().permittivityAtWavelength(lambda);
             worstBetween = Math.max(worstBetween, b.minus(a).abs() / a.abs());
         }
         assertTrue(worstBetween <= RECOVERY_TOLERANCE, "between rows: " + worstBetween);
@@ -82,8 +83,8 @@ class PoleFitTest {
         assertEquals(jc.rowsIn(band).size(), r.errors().size());
         // the reported errors are what the model gives at each row
         for (PoleFit.RowError e : r.errors()) {
-            ComplexNumber d = e.row().permittivity();
-            ComplexNumber f = r.material().permittivity(e.row().omega());
+            Complex d = e.row().permittivity();
+            Complex f = r.material().permittivity(e.row().omega());
             assertEquals(f.minus(d).abs() / d.abs(), e.error(), 1e-12);
             assertTrue(e.error() <= r.worstError());
         }
@@ -108,7 +109,7 @@ class PoleFitTest {
         double between = 0;
         for (int i = 0; i <= 400; i++) {
             double lambda = (500 + i) * 1e-9;
-            ComplexNumber a = gold.permittivityAtWavelength(lambda);
+            Complex a = gold.permittivityAtWavelength(lambda);
             between = Math.max(between, r.material().permittivityAtWavelength(lambda).minus(a).abs() / a.abs());
         }
         System.out.printf("Rakić gold refitted over 500-900 nm: %d Lorentz terms (was %d), state %d values per cell"

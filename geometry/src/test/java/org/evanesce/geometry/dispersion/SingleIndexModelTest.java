@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import org.evanesce.geometry.Complex;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -20,14 +21,14 @@ class SingleIndexModelTest {
         // n = 0.18 + 3.43i at 633 nm: Johnson & Christy's gold interpolated (issue 15's example)
         SingleIndexModel m = SingleIndexModel.of("gold-633", 0.18, 3.43, 633e-9);
         assertEquals(SingleIndexModel.Kind.DRUDE, m.kind());
-        ComplexNumber want = new ComplexNumber(0.18, 3.43).square();
-        ComplexNumber got = m.material().permittivityAtWavelength(633e-9);
+        Complex want = new Complex(0.18, 3.43).square();
+        Complex got = m.material().permittivityAtWavelength(633e-9);
         assertEquals(0, got.minus(want).abs() / want.abs(), EXACT);
-        ComplexNumber n = m.material().index(Spectral.omegaOfWavelength(633e-9));
+        Complex n = m.material().index(Spectral.omegaOfWavelength(633e-9));
         assertEquals(0.18, n.re(), EXACT);
         assertEquals(3.43, n.im(), EXACT);
         assertPassiveEverywhere(m.material());
-        ComplexNumber[] ends = m.atBandEnds(WavelengthBand.ofNanometres(500, 800));
+        Complex[] ends = m.atBandEnds(WavelengthBand.ofNanometres(500, 800));
         DrudeTerm d = m.material().drude().get(0);
         System.out.printf("gold 0.18+3.43i at 633 nm → Drude ħωp = %.4f eV, ħγ = %.4f eV; ε(500 nm) = %s,"
                         + " ε(800 nm) = %s%n", Spectral.electronVoltsOfOmega(d.plasmaFrequency()),
@@ -45,8 +46,8 @@ class SingleIndexModelTest {
     void lossyDielectricBecomesBackgroundAndConductivity() {
         SingleIndexModel m = SingleIndexModel.of("lossy glass", 1.5, 0.01, 800e-9);
         assertEquals(SingleIndexModel.Kind.CONDUCTIVE, m.kind());
-        ComplexNumber want = new ComplexNumber(1.5, 0.01).square();
-        ComplexNumber got = m.material().permittivityAtWavelength(800e-9);
+        Complex want = new Complex(1.5, 0.01).square();
+        Complex got = m.material().permittivityAtWavelength(800e-9);
         assertEquals(0, got.minus(want).abs() / want.abs(), EXACT);
         assertPassiveEverywhere(m.material());
         // Re ε just above 1 with no loss: still the background form, σ = 0

@@ -10,12 +10,13 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.io.casefile.Context.Expect;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Quantity;
 import org.evanesce.io.casefile.expr.Suggest;
 import org.evanesce.io.casefile.expr.Units;
-import org.evanesce.solver.Simulation;
+import org.evanesce.solver.Courant;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
@@ -167,7 +168,7 @@ final class CaseParser {
             designWavelength = ctx.positive(wl, "design_wavelength", Expect.LENGTH);
         } else if (fr != null) {
             Value f = ctx.positive(fr, "design_frequency", Expect.FREQUENCY);
-            designWavelength = f == null ? null : new Value(SignalSpec.SPEED_OF_LIGHT / f.si(), f.at());
+            designWavelength = f == null ? null : new Value(PhysicalConstants.C0 / f.si(), f.at());
             if (designWavelength != null && Double.isInfinite(designWavelength.si())) {
                 ctx.error(f.at(), "design_frequency", Units.format(f.si(), Dimension.FREQUENCY) + " gives a wavelength too large "
                         + "for a number; expected an optical frequency");
@@ -796,7 +797,7 @@ final class CaseParser {
         Optional<Value> courant = Optional.empty();
         if (cn != null) {
             Value s = ctx.value(cn, v.path("courant"), Expect.PLAIN);
-            double limit = Simulation.COURANT_LIMIT_2D;
+            double limit = Courant.LIMIT_2D;
             if (s != null && !(s.si() > 0 && s.si() < limit)) {
                 ctx.error(s.at(), v.path("courant"), "must lie between 0 and the 2D stability limit 1/sqrt(2) = "
                         + Units.number(limit) + " (exclusive), got " + Units.number(s.si()));

@@ -5,6 +5,7 @@ import java.util.HashMap;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.io.casefile.Context.Expect;
 import org.evanesce.io.casefile.expr.Suggest;
 import org.snakeyaml.engine.v2.nodes.MappingNode;
@@ -132,7 +133,7 @@ final class FluxReader {
         }
         List<Value> out = new ArrayList<>();
         for (Value x : given) {
-            out.add(wavelengths ? new Value(SignalSpec.SPEED_OF_LIGHT / x.si(), x.at()) : x);
+            out.add(wavelengths ? new Value(PhysicalConstants.C0 / x.si(), x.at()) : x);
         }
         return out;
     }

@@ -2,6 +2,7 @@ package org.evanesce.io.casefile;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.solver.grid.Side;
@@ -179,14 +180,14 @@ final class PlaneWaveChecks {
         for (int k = 0; k < p.flux.frequencies().size(); k++) {
             Value f = p.flux.frequencies().get(k);
             double s = sin * centre / f.si();
-            String what = String.format("%s (%s)", Units.format(SignalSpec.SPEED_OF_LIGHT / f.si(), Dimension.LENGTH),
+            String what = String.format("%s (%s)", Units.format(PhysicalConstants.C0 / f.si(), Dimension.LENGTH),
                     Units.format(f.si(), Dimension.FREQUENCY));
             if (w instanceof SourceSpec.PlaneWave && Math.abs(s) >= 1) {
                 double fMin = Math.abs(sin) * centre;
                 ctx.error(f.at(), "flux", String.format("at %s the plane wave's in-plane wavenumber exceeds the wavenumber in %s "
                         + "(n = %s): no incident wave propagates there; expected frequencies above %s (wavelengths below %s)",
                         what, medium.name(), Units.number(n), Units.format(fMin, Dimension.FREQUENCY),
-                        Units.format(SignalSpec.SPEED_OF_LIGHT / fMin, Dimension.LENGTH)));
+                        Units.format(PhysicalConstants.C0 / fMin, Dimension.LENGTH)));
                 continue;
             }
             if (w.signal() instanceof SignalSpec.Pulse pulse) {
@@ -194,7 +195,7 @@ final class PlaneWaveChecks {
                 if (Math.exp(-x * x) < MIN_SPECTRAL_POWER) {
                     ctx.warn(f.at(), "flux", String.format("at %s the pulse carries %.1e of its peak power; the normalised flux "
                             + "there is unreliable (widen the bandwidth or move the frequency towards %s)", what, Math.exp(-x * x),
-                            Units.format(SignalSpec.SPEED_OF_LIGHT / centre, Dimension.LENGTH)));
+                            Units.format(PhysicalConstants.C0 / centre, Dimension.LENGTH)));
                 }
             } else if (Math.abs(f.si() / centre - 1) > 1e-9) {
                 ctx.warn(f.at(), "flux", String.format("at %s: a ramped wave carries only its own frequency (%s); other frequencies "

@@ -1,6 +1,8 @@
 package org.evanesce.io.casefile;
 
 import java.util.Optional;
+import org.evanesce.solver.Simulation;
+import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
 
 /**
@@ -20,12 +22,13 @@ import org.evanesce.solver.grid.Precision;
 public record ResolutionSpec(Value cellSize, int nx, int ny, Optional<Value> cellsPerWavelength, double offset) {
 
     /**
-     * Estimated bytes per cell of a run, field and coefficient arrays together: 28 in float (the
-     * largest case, p polarization with lossy cells; a lossless s run needs about 16) and twice that
-     * in double. The estimate ignores the PML strips, which are small against the grid.
+     * Bytes per cell of a run's field and coefficient arrays before the polarization and materials
+     * are known: the solver's figure for the largest case without Bloch sides (p polarization with
+     * lossy cells: 28 in float, 56 in double; a lossless s run needs 16). The PML strips are left out,
+     * small against the grid; the planner's {@code MemoryEstimate} counts everything.
      */
     public static int bytesPerCell(Precision precision) {
-        return precision == Precision.FLOAT ? 28 : 56;
+        return Simulation.predictBytesPerCell(Polarization.P, precision, true, false);
     }
 
     public long cells() {

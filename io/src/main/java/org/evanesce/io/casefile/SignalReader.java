@@ -1,5 +1,6 @@
 package org.evanesce.io.casefile;
 
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.io.casefile.Context.Expect;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Quantity;
@@ -81,7 +82,7 @@ final class SignalReader {
             if (wl == null) {
                 return null;
             }
-            return finiteReciprocal(new Value(SignalSpec.SPEED_OF_LIGHT / wl.si(), wl.at()), v.path("wavelength"), wl.si(),
+            return finiteReciprocal(new Value(PhysicalConstants.C0 / wl.si(), wl.at()), v.path("wavelength"), wl.si(),
                     Dimension.LENGTH);
         }
         Value f = ctx.positive(v.get("frequency"), v.path("frequency"), Expect.FREQUENCY);
@@ -90,7 +91,7 @@ final class SignalReader {
 
     /** The frequency, unless it or the wavelength c0/f is too large for a number (an error then, null). */
     private Value finiteReciprocal(Value f, String path, double given, Dimension kind) {
-        if (!Double.isFinite(f.si()) || !Double.isFinite(SignalSpec.SPEED_OF_LIGHT / f.si())) {
+        if (!Double.isFinite(f.si()) || !Double.isFinite(PhysicalConstants.C0 / f.si())) {
             ctx.error(f.at(), path, Units.format(given, kind) + " gives a " + (kind == Dimension.LENGTH ? "frequency" : "wavelength")
                     + " too large for a number; expected an optical " + (kind == Dimension.LENGTH ? "wavelength" : "frequency"));
             return null;
@@ -116,13 +117,13 @@ final class SignalReader {
             return new Value(q.value(), s.start());
         }
         if (q.dimension().equals(Dimension.LENGTH)) {
-            double wl = SignalSpec.SPEED_OF_LIGHT / f.si();
+            double wl = PhysicalConstants.C0 / f.si();
             if (q.value() >= 2 * wl) {
                 ctx.error(s.start(), path, "a span of " + q + " around " + Units.format(wl, Dimension.LENGTH) + " reaches zero wavelength; expected less than "
                         + Units.format(2 * wl, Dimension.LENGTH));
                 return null;
             }
-            double c = SignalSpec.SPEED_OF_LIGHT;
+            double c = PhysicalConstants.C0;
             double width = c / (wl - q.value() / 2) - c / (wl + q.value() / 2);
             if (!(width > 0) || Double.isInfinite(width)) {
                 ctx.error(s.start(), path, "a span of " + q + " around " + Units.format(wl, Dimension.LENGTH)

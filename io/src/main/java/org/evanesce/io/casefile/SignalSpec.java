@@ -1,13 +1,12 @@
 package org.evanesce.io.casefile;
 
+import static org.evanesce.geometry.PhysicalConstants.C0;
+
 /**
  * A source's time dependence, frequencies in Hz and times in seconds. Wavelengths in the case file
  * are vacuum wavelengths, converted with the speed of light c0 = 299 792 458 m/s.
  */
 public sealed interface SignalSpec {
-
-    /** Speed of light in vacuum, m/s (exact by the SI definition of the metre). */
-    double SPEED_OF_LIGHT = 299_792_458.0;
 
     /** The frequency the signal is built around (centre, carrier or spectral peak), Hz. */
     Value frequency();
@@ -26,7 +25,7 @@ public sealed interface SignalSpec {
 
     /** Vacuum wavelength at {@link #frequency()}, metres. */
     default double wavelength() {
-        return SPEED_OF_LIGHT / frequency().si();
+        return C0 / frequency().si();
     }
 
     /**
@@ -50,7 +49,7 @@ public sealed interface SignalSpec {
 
         @Override
         public double shortestWavelength() {
-            return SPEED_OF_LIGHT / (frequency.si() + bandwidth.si() / 2);
+            return C0 / (frequency.si() + bandwidth.si() / 2);
         }
 
         /** The envelope's peak: six times its width 1/(2πσf), as the solver's pulse (GaussianPulse.delay). */

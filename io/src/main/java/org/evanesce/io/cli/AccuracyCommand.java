@@ -7,7 +7,6 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
-import org.evanesce.io.Main;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.output.Json;
 import org.evanesce.io.output.OutputFolders;
@@ -144,7 +143,7 @@ public final class AccuracyCommand implements Callable<Integer> {
             print(o, s);
             o.println("results: " + study.target());
             o.println("Caution: " + RunOutputs.CAUTION);
-            return Main.OK;
+            return ExitCode.OK;
         }
     }
 

@@ -5,8 +5,6 @@ import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Set;
 import java.util.concurrent.Callable;
-import org.evanesce.io.Main;
-import org.evanesce.io.RunFailedException;
 import org.evanesce.io.bench.Bench;
 import org.evanesce.io.bench.BenchCase;
 import org.evanesce.io.bench.BenchReport;
@@ -128,7 +126,7 @@ public final class BenchCommand implements Callable<Integer> {
             }
         }
         report.footer();
-        return Main.OK;
+        return ExitCode.OK;
     }
 
     /** Every combination of the options, each validated before anything runs. */

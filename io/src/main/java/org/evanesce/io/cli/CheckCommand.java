@@ -5,7 +5,6 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.Locale;
 import java.util.concurrent.Callable;
-import org.evanesce.io.Main;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.MemoryEstimate;
 import org.evanesce.io.run.CaseRunner;
@@ -80,7 +79,7 @@ public final class CheckCommand implements Callable<Integer> {
         Path png = preview != null ? preview : defaultPreview(options.caseFile);
         RunOutputs.preview(plan, png);
         o.println("preview: " + png.toAbsolutePath());
-        return Main.OK;
+        return ExitCode.OK;
     }
 
     static Path defaultPreview(Path caseFile) {

@@ -6,9 +6,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
-import org.evanesce.io.Main;
 import org.evanesce.io.casefile.CaseSpec;
-import org.evanesce.io.RunFailedException;
 import org.evanesce.io.output.OutputFolders;
 import org.evanesce.io.output.RunFolder;
 import org.evanesce.io.run.Checkpoints;
@@ -80,7 +78,7 @@ public final class RunCommand implements Callable<Integer> {
                             + " more warning(s)" : "", f.flux() != null ? " and summary.json" : "");
                 }
                 o.println("Caution: " + RunOutputs.CAUTION);
-                return Main.OK;
+                return ExitCode.OK;
             } catch (Checkpoints.Unusable e) {
                 if (attempt > 0) {
                     throw new RunFailedException(e.getMessage(), e);

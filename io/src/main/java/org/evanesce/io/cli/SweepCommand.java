@@ -18,8 +18,6 @@ import java.util.Set;
 import java.util.concurrent.Callable;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
-import org.evanesce.io.Main;
-import org.evanesce.io.RunFailedException;
 import org.evanesce.io.casefile.CaseFileException;
 import org.evanesce.io.casefile.CaseReader;
 import org.evanesce.io.casefile.CaseText;
@@ -45,7 +43,6 @@ import org.evanesce.io.sweep.SweepPoint;
 import org.evanesce.io.sweep.SweepRecord;
 import org.evanesce.io.sweep.SweepRunner;
 import org.evanesce.solver.DivergenceException;
-import org.evanesce.solver.grid.Precision;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -255,7 +252,7 @@ public final class SweepCommand implements Callable<Integer> {
                         threads));
 
         boolean complete = all.stream().allMatch(r -> folder.finished(r.point().number(), r.hash()));
-        int code = Main.OK;
+        int code = ExitCode.OK;
         if (shardOf == null || complete) {
             code = merge(folder, mergePoints, kinds, title, o, err, false);
         } else {
@@ -266,7 +263,7 @@ public final class SweepCommand implements Callable<Integer> {
             err.printf(Locale.ROOT, "evanesce sweep: %d point(s) failed: %s (see above); the others are kept. Running the same "
                     + "command again retries them.%n", outcome.failed().size(),
                     SweepMerge.ranges(new ArrayList<>(outcome.failed().keySet())));
-            code = Main.RUN_FAILED;
+            code = ExitCode.RUN_FAILED;
         }
         o.println("Caution: " + RunOutputs.CAUTION);
         return code;
@@ -385,8 +382,7 @@ public final class SweepCommand implements Callable<Integer> {
                     cells = c;
                     rows = plan.grid().ny();
                 }
-                long perNode = lc.spec().numerics().precision().value() == Precision.DOUBLE ? 56 : 28;
-                bytes = Math.max(bytes, c * perNode * (plan.flux().isPresent() ? 2 : 1));
+                bytes = Math.max(bytes, plan.memory().total());
             } catch (PlanException e) {
                 bad++;
                 for (Diagnostic d : e.diagnostics()) {
@@ -436,15 +432,15 @@ public final class SweepCommand implements Callable<Integer> {
                     SweepMerge.ranges(m.unsettled()));
         }
         if (m.missing().isEmpty()) {
-            return Main.OK;
+            return ExitCode.OK;
         }
         if (report) {
             err.printf(Locale.ROOT, "evanesce sweep: %d of %d points are missing (not finished, or computed from another "
                     + "case): %s. Run their shards again (or the sweep without --shard), then merge again.%n",
                     m.missing().size(), points.size(), SweepMerge.ranges(m.missing()));
-            return Main.RUN_FAILED;
+            return ExitCode.RUN_FAILED;
         }
-        return Main.OK;
+        return ExitCode.OK;
     }
 
     private int slurm(SweepFolder folder, Map<String, Object> record, Path caseFile, int points, PrintWriter o)
@@ -474,7 +470,7 @@ public final class SweepCommand implements Callable<Integer> {
                 points, slurmTasks, slurmTasks);
         o.println("submit:  sbatch " + SlurmScript.quote(f.toString()));
         o.println("merge:   " + SlurmScript.command(exe, absCase, folder.dir(), extra) + " --merge-only");
-        return Main.OK;
+        return ExitCode.OK;
     }
 
     static Path defaultFolder(Path caseFile, CaseSpec s) {

@@ -15,7 +15,7 @@ import java.util.List;
 
 /**
  * A run's output folder, written under a temporary name beside the final one and renamed into
- * place only when the run has finished (DESIGN.md: a folder either is complete or does not exist
+ * place only when the run has finished (docs/architecture.md: a folder either is complete or does not exist
  * under its name). A finished folder is never overwritten unless the caller asks to replace it;
  * even then it is removed only after the new one is complete, and only while it is a finished
  * evanesce folder holding nothing else ({@link OutputFolders#checkResults}).

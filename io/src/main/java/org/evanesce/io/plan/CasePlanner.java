@@ -49,7 +49,7 @@ import org.evanesce.solver.source.Source;
 import org.evanesce.solver.source.TimeSignal;
 
 /**
- * Maps a validated {@link CaseSpec} onto the geometry and the solver (DESIGN.md: CaseSpec →
+ * Maps a validated {@link CaseSpec} onto the geometry and the solver (docs/architecture.md: CaseSpec →
  * Scene + GridSpec → MaterialGrid → the solver's plan). Whatever the file format allows but this
  * version cannot run is refused here with the case file's position.
  */
@@ -88,7 +88,6 @@ public final class CasePlanner {
     private long memoryLimit = Long.MAX_VALUE;
 
     private CasePlan plan(Integer threads) throws PlanException {
-        checkOutputs();
         ResolutionSpec r = spec.resolution();
         double dx = r.cellSize().si();
         // periodic sides: the width is one period, so the node at x = +W/2 is the image of the one at −W/2
@@ -205,10 +204,6 @@ public final class CasePlanner {
 
     private void error(SourcePosition at, String path, String message) {
         errors.add(new Diagnostic(Diagnostic.Severity.ERROR, at, path, message));
-    }
-
-    private void checkOutputs() {
-        // every output item is available in this version
     }
 
     /** The nodes inside a region, clamped to the grid: {i0, j0, i1, j1} (i1, j1 exclusive; may be empty). */

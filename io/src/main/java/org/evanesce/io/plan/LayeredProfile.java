@@ -6,13 +6,13 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import java.util.TreeSet;
+import org.evanesce.geometry.Complex;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.io.casefile.CaseSpec;
 import org.evanesce.io.casefile.MaterialSpec;
 import org.evanesce.io.casefile.ShapeSpec;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
-import org.evanesce.solver.PhysicalConstants;
-import org.evanesce.solver.reference.Complex;
 import org.evanesce.solver.reference.PlanarStack;
 
 /**

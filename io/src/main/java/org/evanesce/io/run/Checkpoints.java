@@ -15,7 +15,7 @@ import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.function.Consumer;
 import java.util.zip.CRC32C;
-import org.evanesce.io.Faults;
+import org.evanesce.io.output.Faults;
 import org.evanesce.io.output.Leftovers;
 import org.evanesce.io.output.SafeFiles;
 import org.evanesce.solver.Simulation;

@@ -3,6 +3,8 @@ package org.evanesce.io.run;
 import java.io.PrintWriter;
 import java.util.Locale;
 import java.util.function.Consumer;
+import org.evanesce.io.casefile.expr.Dimension;
+import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.solver.record.Progress;
 
 /**
@@ -29,8 +31,8 @@ public final class ProgressLine implements Consumer<Progress.Report> {
     @Override
     public void accept(Progress.Report r) {
         String line = String.format(Locale.ROOT, "%5.1f%%  step %d/%d  t = %s  %.0f Mcell/s  left %s",
-                100 * r.fraction(), r.step(), r.totalSteps(), Units.time(r.step() * dt),
-                r.cellUpdatesPerSecond() / 1e6, Units.duration(r.secondsLeft()));
+                100 * r.fraction(), r.step(), r.totalSteps(), Units.format(r.step() * dt, Dimension.TIME, 4),
+                r.cellUpdatesPerSecond() / 1e6, duration(r.secondsLeft()));
         if (terminal) {
             out.print("\r" + line + "   ");
             dirty = true;
@@ -38,6 +40,15 @@ public final class ProgressLine implements Consumer<Progress.Report> {
             out.println(line);
         }
         out.flush();
+    }
+
+    /** A wall-clock duration as h:mm:ss, or "?" if unknown. */
+    static String duration(double s) {
+        if (!Double.isFinite(s)) {
+            return "?";
+        }
+        long t = Math.round(s);
+        return String.format(Locale.ROOT, "%d:%02d:%02d", t / 3600, t / 60 % 60, t % 60);
     }
 
     /** Ends the rewritten line, if any. */

@@ -85,7 +85,7 @@ public final class RunOutputs {
     }
 
     /**
-     * The run record (DESIGN.md: version, case hash, resolved case, grid, steps, threads, wall time, rate,
+     * The run record (docs/architecture.md: version, case hash, resolved case, grid, steps, threads, wall time, rate,
      * warnings), with the build, command line and host, and whether the results settled.
      *
      * @param diagnostics the case file's warnings and notes

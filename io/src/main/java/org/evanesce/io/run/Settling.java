@@ -16,7 +16,7 @@ import org.evanesce.solver.record.FluxLine;
 
 /**
  * Whether a finished run's transforms (flux, maps) cover the whole response, judged from what the
- * run measured (DESIGN.md: a result is right, or flagged):
+ * run measured (docs/architecture.md: a result is right, or flagged):
  *
  * <ul>
  * <li>pulses: the field energy inside the PMLs must have decayed to the asked fraction of its largest value

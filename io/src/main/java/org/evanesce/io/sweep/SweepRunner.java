@@ -13,7 +13,7 @@ import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.concurrent.atomic.AtomicInteger;
 import java.io.UncheckedIOException;
-import org.evanesce.io.Faults;
+import org.evanesce.io.output.Faults;
 import org.evanesce.io.output.Json;
 import org.evanesce.io.output.OutputRefusedException;
 import org.evanesce.io.output.RunFolder;

@@ -1,5 +1,6 @@
 package org.evanesce.io.casefile;
 
+import static org.evanesce.geometry.PhysicalConstants.C0;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertInstanceOf;
 import static org.junit.jupiter.api.Assertions.assertThrows;
@@ -24,7 +25,6 @@ class CaseReaderTest {
 
     /** Values written with units pass through one or two roundings. */
     private static final double REL = 1e-12;
-    private static final double C0 = 299_792_458.0;
     private static final ReadOptions ENOUGH_MEMORY = new ReadOptions(1L << 34);
 
     static final String FULL = """

@@ -15,7 +15,6 @@ import java.util.HexFormat;
 import java.util.List;
 import java.util.Map;
 import org.evanesce.io.Cli;
-import org.evanesce.io.Main;
 import org.evanesce.io.output.BuildInfo;
 import org.evanesce.io.sweep.PointHash;
 import org.evanesce.io.sweep.SweepFolder;
@@ -61,7 +60,7 @@ class BuildIdentityTest {
         Path out = tmp.resolve("out");
         String[] args = {"run", c.toString(), "--set", "wl=600nm", "--out", out.toString(), "--threads", "1"};
         Cli.Outcome o = Cli.run(args);
-        assertEquals(Main.OK, o.code(), o.toString());
+        assertEquals(ExitCode.OK, o.code(), o.toString());
         Map<?, ?> run = assertInstanceOf(Map.class, SweepFolder.readJson(out.resolve("run.json")));
         BuildInfo b = BuildInfo.current();
         assertEquals(Map.of("commit", b.commit(), "modified", b.modified(), "time", b.time(), "id", b.id()), run.get("build"));
@@ -106,7 +105,7 @@ class BuildIdentityTest {
                 """);
         Path out = tmp.resolve("sweep");
         Cli.Outcome first = Cli.run("sweep", c.toString(), "--out", out.toString());
-        assertEquals(Main.OK, first.code(), first.toString());
+        assertEquals(ExitCode.OK, first.code(), first.toString());
         // point 1 as another build would have left it: its record names that build and carries that build's hash
         Path rec = out.resolve("point-0001/point.json");
         byte[] text = Files.readAllBytes(c);
@@ -115,7 +114,7 @@ class BuildIdentityTest {
                 .replaceAll("\"point_hash\": \"[0-9a-f]+\"", "\"point_hash\": \"" + other + "\"")
                 .replaceAll("\"build\": \"[^\"]*\"", "\"build\": \"an-older-build\""));
         Cli.Outcome again = Cli.run("sweep", c.toString(), "--out", out.toString());
-        assertEquals(Main.OK, again.code(), again.toString());
+        assertEquals(ExitCode.OK, again.code(), again.toString());
         assertTrue(again.out().contains("1 finished point(s) run again (made by another build of evanesce: an-older-build, this is "
                 + BuildInfo.current().id() + "): 1"), again.toString());
         assertTrue(again.out().contains("1 finished already, 1 to run"), again.toString());

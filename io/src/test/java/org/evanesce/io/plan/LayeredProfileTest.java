@@ -1,5 +1,7 @@
 package org.evanesce.io.plan;
 
+import static org.evanesce.geometry.PhysicalConstants.C0;
+import static org.evanesce.geometry.PhysicalConstants.EPS0;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
@@ -9,6 +11,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.evanesce.geometry.Complex;
 import org.evanesce.io.casefile.CaseFileException;
 import org.evanesce.io.casefile.CaseReader;
 import org.evanesce.io.casefile.CaseSpec;
@@ -17,7 +20,6 @@ import org.evanesce.io.plan.LayeredProfile.Band;
 import org.evanesce.io.plan.LayeredProfile.Direction;
 import org.evanesce.io.plan.LayeredProfile.Result;
 import org.evanesce.solver.grid.Polarization;
-import org.evanesce.solver.reference.Complex;
 import org.evanesce.solver.reference.PlanarStack;
 import org.junit.jupiter.api.Test;
 
@@ -46,10 +48,6 @@ class LayeredProfileTest {
     /** The index from the case's permittivity and conductivity: only rounding separates the two computations. */
     private static final double INDEX_REL = 1e-12;
 
-    /** Speed of light, m/s: exact by the SI definition of the metre. */
-    private static final double C0 = 299_792_458.0;
-    /** Vacuum permittivity, F/m: CODATA 2018 recommended value. */
-    private static final double EPS0 = 8.8541878128e-12;
 
     private static final String HEAD = """
             polarization: s

@@ -15,11 +15,11 @@ import java.util.Random;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.io.Cli;
-import org.evanesce.io.Main;
 import org.evanesce.io.casefile.CaseFileException;
 import org.evanesce.io.casefile.CaseReader;
 import org.evanesce.io.casefile.CaseSpec;
 import org.evanesce.io.casefile.ReadOptions;
+import org.evanesce.io.cli.ExitCode;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Polarization;
@@ -199,7 +199,7 @@ class MemoryEstimateTest {
         Path file = Files.writeString(dir.resolve("probes.yaml"), text);
         Path out = dir.resolve("out");
         Cli.Outcome o = Cli.run("run", file.toString(), "--out", out.toString());
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains(file + ":8:5: probes: the run needs about"), o::toString);
         assertTrue(!Files.exists(out) && List.of(file).equals(Files.list(dir).toList()), "nothing written");
     }
@@ -236,7 +236,7 @@ class MemoryEstimateTest {
             Path file = Files.writeString(dir.resolve(text == shapes ? "shapes.yaml" : "probes.yaml"), text);
             Cli.Outcome o = assertTimeoutPreemptively(Duration.ofMinutes(5),
                     () -> Cli.run("check", file.toString(), "--trial-seconds", "0"));
-            assertEquals(Main.OK, o.code(), o::toString);
+            assertEquals(ExitCode.OK, o.code(), o::toString);
             assertTrue(o.out().contains("memory: about"), o::toString);
         }
     }

@@ -9,7 +9,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.TimeUnit;
-import org.evanesce.io.Main;
+import org.evanesce.io.cli.ExitCode;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -64,7 +64,7 @@ class SlurmScriptTest {
         Path cf = SweepCases.write(tmp, "gap.yaml", SweepCases.gapCase(SweepCases.FOUR_POINTS));
         Path bad = tmp.resolve("out\nx");
         SweepCases.Outcome o = SweepCases.run("sweep", cf.toString(), "--out", bad.toString(), "--slurm-script", "2");
-        assertEquals(Main.USAGE, o.code(), o::toString);
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains("line break"), o::toString);
         assertEquals(List.of("gap.yaml"), List.of(tmp.toFile().list()), "nothing written");
     }

@@ -8,7 +8,7 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
-import org.evanesce.io.Main;
+import org.evanesce.io.cli.ExitCode;
 import org.evanesce.io.output.SafeFiles;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -36,7 +36,7 @@ class SweepFaultTest {
         } finally {
             System.clearProperty(SafeFiles.NO_SPACE_PROPERTY);
         }
-        assertEquals(Main.RUN_FAILED, o.code(), o::toString);
+        assertEquals(ExitCode.RUN_FAILED, o.code(), o::toString);
         assertTrue(o.out().contains("point 2 (") && o.out().contains(out.resolve("point-0002").resolve("flux.csv")
                 + ": no space left on the device"), o::toString);
         assertTrue(o.err().contains("1 point(s) failed: 2"), o::toString);
@@ -67,7 +67,7 @@ class SweepFaultTest {
                     args.add("2");
                 }
                 SweepCases.Outcome o = SweepCases.run(args.toArray(new String[0]));
-                assertEquals(Main.USAGE, o.code(), () -> args + ": " + o);
+                assertEquals(ExitCode.USAGE, o.code(), () -> args + ": " + o);
                 assertTrue(o.err().contains(dir), o::toString);
             }
         }

@@ -1,9 +1,9 @@
 package org.evanesce.solver.farfield;
 
-import org.evanesce.solver.PhysicalConstants;
+import org.evanesce.geometry.Complex;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Side;
-import org.evanesce.solver.reference.Complex;
 import org.jtransforms.fft.DoubleFFT_1D;
 
 /**

@@ -1,8 +1,8 @@
 package org.evanesce.solver.farfield;
 
-import org.evanesce.solver.PhysicalConstants;
+import org.evanesce.geometry.Complex;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.solver.grid.Polarization;
-import org.evanesce.solver.reference.Complex;
 
 /**
  * The 2D near-to-far-field transformation in the frequency domain: from the tangential fields on a closed contour

@@ -1,6 +1,6 @@
 package org.evanesce.solver.farfield;
 
-import org.evanesce.solver.PhysicalConstants;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.solver.grid.Polarization;
 
 /**

@@ -3,7 +3,7 @@ package org.evanesce.solver.farfield;
 /**
  * A complex scalar sampled at the points of a contour: the field U along z (Ez for s, η0·Hz for p) or the
  * tangential in-plane field V_t (η0·H_t for s, E_t for p; t̂ = ẑ × n̂) — whichever the consumer asks for. Complex
- * amplitudes with time dependence exp(−iωt), in V/m (H stored as η0·H, DESIGN.md). Made by
+ * amplitudes with time dependence exp(−iωt), in V/m (H stored as η0·H, docs/architecture.md). Made by
  * {@link ContourPoints#scalar} or {@link ContourPoints#tangential}; the arrays are copied in and out.
  *
  * @param points where the values are, with normals and weights

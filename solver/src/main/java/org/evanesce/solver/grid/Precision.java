@@ -1,6 +1,10 @@
 package org.evanesce.solver.grid;
 
-/** Floating-point width of the field arrays. Float is the default; double halves the speed. */
+/**
+ * A floating-point width: of a run's field arrays (float is the default; double halves the speed)
+ * or of the values a dataset stores in a file (IEEE 754 binary32 or binary64, XDMF's {@code
+ * Precision="4"} or {@code "8"}).
+ */
 public enum Precision {
     FLOAT(4), DOUBLE(8);
 

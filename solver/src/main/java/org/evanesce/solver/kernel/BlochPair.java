@@ -118,8 +118,23 @@ final class BlochPair extends Engine {
     }
 
     @Override
+    public boolean isComplex() {
+        return true;
+    }
+
+    @Override
     public double getImag(Component c, int k) {
         return im.get(c, k);
+    }
+
+    @Override
+    public void read(Component c, int k, int n, double[] dst) {
+        re.read(c, k, n, dst);
+    }
+
+    @Override
+    public void readImag(Component c, int k, int n, double[] dst) {
+        im.read(c, k, n, dst);
     }
 
     @Override

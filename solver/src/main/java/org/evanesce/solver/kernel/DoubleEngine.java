@@ -171,6 +171,14 @@ abstract class DoubleEngine extends Engine {
     }
 
     @Override
+    public void read(Component c, int k, int n, double[] dst) {
+        double[] f = field(c);
+        for (int m = 0; m < n; m++) {
+            dst[m] = f[k + m];
+        }
+    }
+
+    @Override
     public void set(Component c, int k, double v) {
         field(c)[k] = v;
         if (ade[c.ordinal()] != null) {

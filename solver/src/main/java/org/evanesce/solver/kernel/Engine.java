@@ -220,7 +220,7 @@ public abstract class Engine {
         };
     }
 
-    /** Width in bits of the vectors the kernels use on this JVM (DESIGN.md: capped at 256 by measurement). */
+    /** Width in bits of the vectors the kernels use on this JVM (docs/architecture.md: capped at 256 by measurement). */
     public static int vectorBits() {
         return Lanes.bits();
     }
@@ -515,8 +515,28 @@ public abstract class Engine {
     /** The value of a component at flat cell index k. */
     public abstract double get(Component c, int k);
 
+    /**
+     * Copies n values of a component from flat cell index k onwards into {@code dst} (a recorder's row read
+     * at once, rather than a call per value).
+     */
+    public void read(Component c, int k, int n, double[] dst) {
+        for (int m = 0; m < n; m++) {
+            dst[m] = get(c, k + m);
+        }
+    }
+
+    /** The same for the imaginary parts: zeros for a real engine. */
+    public void readImag(Component c, int k, int n, double[] dst) {
+        java.util.Arrays.fill(dst, 0, n, 0.0);
+    }
+
     /** Overwrites a component at flat cell index k (for initial conditions and tests). */
     public abstract void set(Component c, int k, double v);
+
+    /** Whether the fields are complex (a Bloch-periodic pair); a real engine's imaginary parts are all zero. */
+    public boolean isComplex() {
+        return false;
+    }
 
     /** The imaginary part of a component at flat cell index k: zero for a real engine. */
     public double getImag(Component c, int k) {

@@ -8,7 +8,7 @@ import jdk.incubator.vector.VectorSpecies;
 /**
  * Picks the vector width of the kernels once per JVM. The stencil's unaligned neighbour loads
  * straddle cache lines more often with 512-bit vectors, which measured 1.15–1.6× slower than
- * 256-bit ones on this project's machines (DESIGN.md), so the width is capped at 256 bits.
+ * 256-bit ones on this project's machines (docs/architecture.md), so the width is capped at 256 bits.
  * Developers may override it for measurements with {@code -Devanesce.vectorBits=128|256|512}.
  */
 final class Lanes {

@@ -8,7 +8,7 @@ import java.util.function.LongSupplier;
 /**
  * Persistent worker threads that split rows into bands and run a two-phase step on them, with
  * one barrier between the phases and one hand-over to the calling thread after the step
- * (DESIGN.md: the same workers for the whole run, no task submission per step). The calling
+ * (docs/architecture.md: the same workers for the whole run, no task submission per step). The calling
  * thread is worker 0; band b covers rows [bandStart(b), bandStart(b + 1)).
  *
  * <p>Waiting threads spin for a short budget and then park ({@link SpinThenPark}), so that on a

@@ -6,7 +6,7 @@ import org.evanesce.solver.grid.Polarization;
 /**
  * Running discrete Fourier transforms of every field component of a run's polarization (s: Ez, Hx, Hy;
  * p: Hz, Ex, Ey) on a rectangle of cells [i0, i1) × [j0, j1), at a few frequencies (time dependence
- * exp(−iωt), DESIGN.md).
+ * exp(−iωt), docs/architecture.md).
  *
  * <p>Each component is transformed at its own sample time (E at nΔt, H at (n − ½)Δt, as {@link FluxLine}):
  * X(f) = Σ F(t) e^{i2πft} Δt, with complex (Bloch-periodic) fields taken as re + i·im. Node (i, j) of a
@@ -119,16 +119,14 @@ public final class FieldMap implements StatefulListener {
             sinH[q] = Math.sin(omega[q] * th) * wh;
         }
         int w = i1 - i0;
+        boolean complex = v.complexFields();
         for (int j = j0; j < j1; j++) {
             int row = (j - j0) * w;
             for (int c = 0; c < components.length; c++) {
                 Component comp = components[c];
                 double[] a = rowRe[c];
                 double[] b = rowIm[c];
-                for (int i = i0; i < i1; i++) {
-                    a[i - i0] = v.field(comp, i, j);
-                    b[i - i0] = v.fieldImag(comp, i, j);
-                }
+                v.readRow(comp, j, i0, i1, a, complex ? b : null);
             }
             for (int c = 0; c < components.length; c++) {
                 boolean electric = components[c].electric;
@@ -142,6 +140,14 @@ public final class FieldMap implements StatefulListener {
                     }
                     double[] xr = re[c][q];
                     double[] xi = im[c][q];
+                    if (!complex) {
+                        // real fields: the imaginary parts are zero, and so are their products
+                        for (int k = 0; k < w; k++) {
+                            xr[row + k] += a[k] * cs;
+                            xi[row + k] += a[k] * sn;
+                        }
+                        continue;
+                    }
                     for (int k = 0; k < w; k++) {
                         xr[row + k] += a[k] * cs - b[k] * sn;
                         xi[row + k] += a[k] * sn + b[k] * cs;

@@ -31,6 +31,27 @@ public interface StepView {
     /** Cell size Δ, metres. */
     double cellSize();
 
+    /**
+     * Reads a component along row j from node i0 (inclusive) to i1 (exclusive) into {@code re} (and, when not
+     * null, the imaginary parts into {@code im}), from index 0: what {@link #field} gives, value for value.
+     */
+    default void readRow(Component c, int j, int i0, int i1, double[] re, double[] im) {
+        for (int i = i0; i < i1; i++) {
+            re[i - i0] = field(c, i, j);
+            if (im != null) {
+                im[i - i0] = fieldImag(c, i, j);
+            }
+        }
+    }
+
+    /**
+     * Whether the fields are complex (Bloch-periodic sides); when false every {@link #fieldImag} is zero and
+     * recorders may leave the imaginary parts out of their work.
+     */
+    default boolean complexFields() {
+        return false;
+    }
+
     /** A component's value at node (i, j) (its site is offset per {@link Component}); the real part if complex. */
     double field(Component c, int i, int j);
 

@@ -1,5 +1,6 @@
 package org.evanesce.solver.reference;
 
+import org.evanesce.geometry.Complex;
 import org.evanesce.solver.grid.Polarization;
 import org.jtransforms.fft.DoubleFFT_1D;
 

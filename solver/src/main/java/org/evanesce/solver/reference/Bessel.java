@@ -1,5 +1,7 @@
 package org.evanesce.solver.reference;
 
+import org.evanesce.geometry.Complex;
+
 /**
  * Bessel functions of the first and second kind of integer order, J_n and Y_n, for the cylinder series
  * ({@link CylinderSeries}) and the 2D Green's function; all orders 0 … maxOrder in one call.

@@ -1,10 +1,11 @@
 package org.evanesce.solver.reference;
 
+import org.evanesce.geometry.Complex;
 import org.evanesce.solver.grid.Polarization;
 
 /**
  * The complex amplitudes (time dependence exp(−iωt)) of the three field components of one in-plane polarization at
- * one point, in the project's units: E in V/m and H stored as η0·H, also in V/m (DESIGN.md), per unit amplitude of
+ * one point, in the project's units: E in V/m and H stored as η0·H, also in V/m (docs/architecture.md), per unit amplitude of
  * whatever source produced them.
  *
  * <p>{@code u} is the component along z: Ez for s, η0·Hz for p; ({@code vx}, {@code vy}) is the in-plane vector:

@@ -3,6 +3,7 @@ package org.evanesce.solver.reference;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
+import org.evanesce.geometry.Complex;
 import org.evanesce.solver.grid.Polarization;
 
 /**

@@ -3,10 +3,10 @@ package org.evanesce.solver.farfield;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import org.evanesce.solver.PhysicalConstants;
+import org.evanesce.geometry.Complex;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Side;
-import org.evanesce.solver.reference.Complex;
 import org.evanesce.solver.reference.GaussLegendre;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;

@@ -3,11 +3,11 @@ package org.evanesce.solver.farfield;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import org.evanesce.solver.PhysicalConstants;
+import org.evanesce.geometry.Complex;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.solver.farfield.ContourPoints.Rule;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.reference.Bessel;
-import org.evanesce.solver.reference.Complex;
 import org.evanesce.solver.reference.CylinderSeries;
 import org.evanesce.solver.reference.Phasors;
 import org.junit.jupiter.api.Test;

@@ -6,6 +6,7 @@ import java.util.List;
 import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.geometry.dispersion.AdeCoefficients;
 import org.evanesce.geometry.dispersion.DispersiveMaterial;
 import org.evanesce.geometry.dispersion.Spectral;
@@ -25,7 +26,7 @@ class AdeCoefficientMatchTest {
                 new Material("lossy", 2.25, 4e4), new Material("conductor", 1, 5.8e7), new Material("gain", 3, -1e3));
         double dx = 20e-9;
         for (double courant : new double[] {0.3, 0.5, 0.7}) {
-            double dt = courant * dx / Spectral.C0;
+            double dt = courant * dx / PhysicalConstants.C0;
             for (Material m : materials) {
                 MaterialGrid grid = MaterialGrid.builder(4, 4, dx, m).build();
                 // what Simulation gives the engine, spread over the cells as the engine does

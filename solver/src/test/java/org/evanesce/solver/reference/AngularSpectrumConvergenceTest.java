@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
+import org.evanesce.geometry.Complex;
 import org.evanesce.solver.grid.Polarization;
 import org.junit.jupiter.api.Test;
 

@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
+import org.evanesce.geometry.Complex;
 import org.evanesce.solver.grid.Polarization;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
@@ -26,8 +27,11 @@ class AngularSpectrumTest {
      * (measured at most 1.4e-6).
      */
     private static final double WIDE_BEAM = 1e-4;
-    /** R + T = 1 for a lossless stack: the transfer matrix holds it to 1e-14 per plane wave; sums add rounding only. */
-    private static final double ENERGY = 1e-9;
+    /**
+     * R + T = 1 for a lossless stack: the transfer matrix holds it to 1e-14 per plane wave and the sums add
+     * rounding only; measured at most 8.9e-16 over these beams, about 10 times below this.
+     */
+    private static final double ENERGY = 1e-14;
     /** The bars for the Goos–Hänchen shift against Artmann at 20 and 50 wavelengths of waist. */
     private static final double SHIFT_20 = 0.03;
     private static final double SHIFT_50 = 0.01;

@@ -3,6 +3,7 @@ package org.evanesce.solver.reference;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import org.evanesce.geometry.Complex;
 import org.evanesce.solver.grid.Polarization;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;

@@ -5,6 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import org.evanesce.geometry.Complex;
 import org.junit.jupiter.api.Test;
 
 /** Critical angle and evanescent decay (Hecht, Optics, 4th ed., sec. 4.7). */

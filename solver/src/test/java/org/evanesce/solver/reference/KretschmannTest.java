@@ -4,7 +4,8 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
-import org.evanesce.geometry.dispersion.ComplexNumber;
+import org.evanesce.geometry.Complex;
+import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.geometry.dispersion.DispersiveMaterial;
 import org.evanesce.geometry.dispersion.MetalLibrary;
 import org.evanesce.geometry.dispersion.Spectral;
@@ -121,17 +122,13 @@ class KretschmannTest {
         return Math.toDegrees(Math.asin(kx / (K0 * GLASS)));
     }
 
-    static Complex toComplex(ComplexNumber z) {
-        return Complex.of(z.re(), z.im());
-    }
-
     @Test
     void dipLiesNearTheSurfacePlasmonEstimateAndThePoleApproachesItForAThickFilm() {
         for (String key : List.of("gold", "gold-jc")) {
             DispersiveMaterial gold = MetalLibrary.get(key).material();
             double omega = Spectral.omegaOfWavelength(LAMBDA);
-            Complex eps = toComplex(gold.permittivity(omega));
-            Complex n = toComplex(gold.index(omega));
+            Complex eps = gold.permittivity(omega);
+            Complex n = gold.index(omega);
             Complex ew = Complex.real(WATER * WATER);
             Complex kspp = eps.times(ew).divide(eps.plus(ew)).sqrt().times(K0);
             double estimate = angleDeg(kspp.re());
@@ -162,8 +159,8 @@ class KretschmannTest {
             assertEquals(estimate, pole80, THICK_FILM_POLE_DEG, key + " 80 nm pole");
 
             // the discrete ε at 20 cells per wavelength in the glass, S = 0.5: what a run would realise
-            double dt = 0.5 * (LAMBDA / GLASS / 20) / Spectral.C0;
-            Dip discrete = dip(toComplex(gold.discreteIndex(omega, dt)), 50e-9);
+            double dt = 0.5 * (LAMBDA / GLASS / 20) / PhysicalConstants.C0;
+            Dip discrete = dip(gold.discreteIndex(omega, dt), 50e-9);
             System.out.printf("%s: with the discrete ε (20 cells per wavelength in glass, S = 0.5): 50 nm dip %.3f°%n",
                     key, discrete.angleDeg());
         }

@@ -1,6 +1,7 @@
 package org.evanesce.io.output.hdf5;
 
 import java.util.Map;
+import org.evanesce.solver.grid.Precision;
 
 /**
  * One 2D field dataset for {@link Hdf5Writer}.
@@ -18,11 +19,11 @@ import java.util.Map;
  * @param values     row-major values, length {@code nx*ny}, not modified
  * @param nx         values along x, at least 1
  * @param ny         values along y, at least 1
- * @param precision  how the values are stored; {@link Precision#SINGLE} rounds each to the nearest float
+ * @param precision  how the values are stored; {@link Precision#FLOAT} rounds each to the nearest float
  * @param attributes the dataset's attributes, in the order they are written
  */
 public record FieldDataset(String name, double[] values, int nx, int ny, Precision precision,
-        Map<String, Object> attributes) {
+        Map<String, Object> attributes) implements Hdf5Dataset {
 
     /** @throws IllegalArgumentException naming the dataset and the value at fault */
     public FieldDataset {
@@ -39,7 +40,7 @@ public record FieldDataset(String name, double[] values, int nx, int ny, Precisi
                     + " for nx*ny = " + nx + "*" + ny + " = " + (long) nx * ny);
         }
         if (precision == null) {
-            throw new IllegalArgumentException("dataset " + name + ": precision must be SINGLE or DOUBLE, not null");
+            throw new IllegalArgumentException("dataset " + name + ": precision must be FLOAT or DOUBLE, not null");
         }
         attributes = AttributeValues.checkedCopy("dataset " + name, attributes);
     }
@@ -56,11 +57,11 @@ public record FieldDataset(String name, double[] values, int nx, int ny, Precisi
         for (int k = 0; k < values.length; k++) {
             wide[k] = values[k];
         }
-        return new FieldDataset(name, wide, nx, ny, Precision.SINGLE, attributes);
+        return new FieldDataset(name, wide, nx, ny, Precision.FLOAT, attributes);
     }
 
-    /** Bytes the values take in the file. */
+    @Override
     public long storedBytes() {
-        return (long) nx * ny * precision.bytes();
+        return (long) nx * ny * precision.bytes;
     }
 }

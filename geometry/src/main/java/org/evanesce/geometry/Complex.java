@@ -1,12 +1,13 @@
-package org.evanesce.solver.reference;
+package org.evanesce.geometry;
 
 /**
- * An immutable complex number {@code re + i·im}, with the few operations the plane-wave references
- * need. Every operation returns a new value; none changes this one.
+ * An immutable complex number {@code re + i·im}: the one complex type of the project, for the
+ * permittivities and indices of materials here and the plane-wave references and far-field
+ * transforms of the solver. Every operation returns a new value; none changes this one.
  *
  * <p>Two square roots are offered: {@link #sqrt()} is the principal root (Re ≥ 0, branch cut along
  * the negative real axis), and {@link #sqrtUpper()} is the root with non-negative imaginary part,
- * the branch this project uses for normal wavenumbers (see {@link PlanarStack}).
+ * the branch this project uses for normal wavenumbers and for a material's index n + iκ (κ ≥ 0).
  */
 public record Complex(double re, double im) {
 

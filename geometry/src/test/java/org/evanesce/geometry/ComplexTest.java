@@ -1,4 +1,4 @@
-package org.evanesce.solver.reference;
+package org.evanesce.geometry;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;

@@ -1,4 +1,4 @@
-package org.evanesce.io;
+package org.evanesce.io.output;
 
 import java.io.IOException;
 import java.io.UncheckedIOException;

@@ -1,9 +1,9 @@
-package org.evanesce.io;
+package org.evanesce.io.cli;
 
 /**
  * A command could not complete for a reason outside the user's input (the solver diverged, the
- * grid did not fit in memory). {@link Main} prints the message on one line and exits with
- * {@link Main#RUN_FAILED}.
+ * grid did not fit in memory). {@code Main} prints the message on one line and exits with
+ * {@link ExitCode#RUN_FAILED}.
  */
 public final class RunFailedException extends RuntimeException {
 
