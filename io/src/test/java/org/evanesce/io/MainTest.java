@@ -56,7 +56,8 @@ class MainTest {
     void outOfRangeValuesAreUsageErrorsBeforeAnythingRuns() {
         for (String[] args : new String[][] {
             {"bench", "--size", "10"}, {"bench", "--threads", "0"}, {"bench", "--seconds", "0"},
-            {"bench", "--repeats", "0"}, {"bench", "--min-cells-per-thread", "0"}, {"bench", "--threads", "many"}}) {
+            {"bench", "--repeats", "0"}, {"bench", "--min-cells-per-thread", "0"}, {"bench", "--threads", "many"},
+            {"bench", "--metal-fraction", "0.7"}, {"bench", "--metal-fraction", "-0.1"}}) {
             Cli.Outcome o = Cli.run(args);
             assertEquals(ExitCode.USAGE, o.code(), () -> String.join(" ", args) + ": " + o);
             assertEquals("", o.out(), () -> String.join(" ", args) + ": " + o);
@@ -131,5 +132,28 @@ class MainTest {
             double f = Double.parseDouble(cells[fewer]);
             assertTrue(f >= 0 && f <= 100, o::toString);
         }
+    }
+
+    /** --metal-fraction: rows of gold, their share of the cells and the bytes their auxiliary currents take. */
+    @Test
+    void benchWithMetalReportsItsShareAndBytes() {
+        Cli.Outcome o = Cli.run("bench", "--csv", "--size", "64", "--threads", "1", "--metal-fraction", "0",
+                "--metal-fraction", "0.1", "--seconds", "0.05", "--warm-up", "0", "--repeats", "1");
+        assertEquals(ExitCode.OK, o.code(), o::toString);
+        String[] lines = o.out().split("\\R");
+        assertEquals(3, lines.length, o::toString);
+        java.util.List<String> head = java.util.Arrays.asList(lines[0].split(","));
+        String[] plain = lines[1].split(",");
+        String[] metal = lines[2].split(",");
+        assertEquals(0.0, Double.parseDouble(plain[head.indexOf("metal_percent")]), o::toString);
+        assertEquals("0", plain[head.indexOf("metal_bytes")], o::toString);
+        // round(0.1 * 64) = 6 rows of 64: 9.375 % of the cells; Rakic gold keeps 12 values (48 bytes) per site,
+        // held for the 62 sites of a row that the update changes (not on the PEC walls behind the CPML), one run
+        // per row; with the cell indices, 65 row starts of cells and of runs, and three ints per run
+        assertEquals(9.375, Double.parseDouble(metal[head.indexOf("metal_percent")]), 1e-9, o::toString);
+        long bytes = Long.parseLong(metal[head.indexOf("metal_bytes")]);
+        assertEquals(6L * 62 * (48 + 4) + (2 * 65 + 3 * 6) * 4, bytes, o::toString);
+        double perCell = Double.parseDouble(metal[head.indexOf("bytes_per_cell_with_metal")]);
+        assertEquals(Integer.parseInt(metal[head.indexOf("bytes_per_cell")]) + bytes / 4096.0, perCell, 1e-3, o::toString);
     }
 }

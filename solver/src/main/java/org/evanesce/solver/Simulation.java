@@ -4,8 +4,12 @@ import java.util.ArrayList;
 import java.util.EnumMap;
 import java.util.List;
 import java.util.Map;
+import java.util.TreeMap;
+import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.geometry.PhysicalConstants;
+import org.evanesce.geometry.dispersion.AdeCoefficients;
+import org.evanesce.geometry.dispersion.DispersiveMaterial;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
@@ -55,6 +59,8 @@ public final class Simulation implements StepView, AutoCloseable {
     private final int flushInterval;
     private final double divergenceLimit;
     private final List<StepListener> listeners;
+    /** The dispersive materials by material index (empty for a dielectric-only run). */
+    private final Map<Integer, DispersiveMaterial> dispersive;
     private final BandTeam.Phase plain;
     private final BandTeam.Phase flushing;
     private long step;
@@ -70,7 +76,18 @@ public final class Simulation implements StepView, AutoCloseable {
         this.flushInterval = b.flushInterval;
         this.listeners = new ArrayList<>(b.listeners);
         double[][] coefficients = MaterialCoefficients.of(g.materials(), b.courant, dt);
-        engine = Engine.create(g, b.polarization, b.precision, b.courant, coefficients[0], coefficients[1], b.sides);
+        AdeCoefficients[] ade = null;
+        if (!b.dispersive.isEmpty()) {
+            ade = new AdeCoefficients[g.materials().size()];
+            for (Map.Entry<Integer, DispersiveMaterial> e : b.dispersive.entrySet()) {
+                AdeCoefficients c = AdeCoefficients.of(e.getValue(), b.courant, dt);
+                coefficients[0][e.getKey()] = c.ca();
+                coefficients[1][e.getKey()] = c.cb();
+                ade[e.getKey()] = c.stateSize() > 0 ? c : null;
+            }
+        }
+        dispersive = Map.copyOf(b.dispersive);
+        engine = Engine.create(g, b.polarization, b.precision, b.courant, coefficients[0], coefficients[1], ade, b.sides);
         sourceTermStart = new int[sources.length + 1];
         int n = 0;
         double amplitudeSum = 0;
@@ -166,8 +183,14 @@ public final class Simulation implements StepView, AutoCloseable {
         }
     }
 
-    /** Identifies checkpoint files and their layout. */
-    private static final String CHECKPOINT_MAGIC = "evanesce checkpoint 1";
+    /** Starts every checkpoint; the format number follows. */
+    private static final String CHECKPOINT_PREFIX = "evanesce checkpoint ";
+    /**
+     * Identifies checkpoint files and their layout. Format 2 (issue 15) adds, after the CPML arrays, the
+     * auxiliary currents of the dispersive cells of each electric component (a count of materials, then
+     * cells, values per cell and the values), also where there are none.
+     */
+    private static final String CHECKPOINT_MAGIC = CHECKPOINT_PREFIX + "2";
 
     /**
      * Writes the whole state of the run, so that a simulation built the same way and given it with
@@ -202,8 +225,12 @@ public final class Simulation implements StepView, AutoCloseable {
      */
     public void restoreState(java.io.InputStream stream) throws java.io.IOException {
         java.io.DataInputStream in = new java.io.DataInputStream(new java.io.BufferedInputStream(stream, 1 << 16));
-        if (!CHECKPOINT_MAGIC.equals(in.readUTF())) {
-            throw new java.io.IOException("not an evanesce checkpoint (or one of another version)");
+        String magic = in.readUTF();
+        if (!CHECKPOINT_MAGIC.equals(magic)) {
+            throw new java.io.IOException(magic.startsWith(CHECKPOINT_PREFIX)
+                    ? String.format("checkpoint of format %s; this program reads format %s only (start the run again)",
+                    magic.substring(CHECKPOINT_PREFIX.length()), CHECKPOINT_MAGIC.substring(CHECKPOINT_PREFIX.length()))
+                    : "not an evanesce checkpoint");
         }
         int cnx = in.readInt();
         int cny = in.readInt();
@@ -404,11 +431,41 @@ public final class Simulation implements StepView, AutoCloseable {
     }
 
     /**
-     * Bytes held by the field, coefficient, CPML and Bloch seam arrays, counted from the arrays
-     * themselves; {@link #footprint} gives the same figure before building.
+     * What the dispersive cells of a run will hold, in bytes, before building: the auxiliary currents
+     * (1 + N_Drude + 2 N_Lorentz values per cell and electric site), a cell index per cell and the row
+     * starts, per electric component of the polarization and per material with poles; twice with
+     * Bloch-periodic sides. Add it to {@link #footprint}'s arrays, whose {@code lossy} says whether an ordinary
+     * (pole-free) material has conductivity: where none has, the dispersive cells fold their ca' into the
+     * post-pass and no ca array is kept. The sum is {@link #bytes()} once built.
+     *
+     * @param dispersive the materials {@link Builder#dispersive} will be given, by material index
+     */
+    public static long dispersiveFootprint(MaterialGrid grid, Polarization polarization, Precision precision,
+                                           Map<Side, Boundary> sides, Map<Integer, DispersiveMaterial> dispersive) {
+        int[] size = new int[grid.materials().size()];
+        for (Map.Entry<Integer, DispersiveMaterial> e : dispersive.entrySet()) {
+            size[e.getKey()] = e.getValue().stateSize();
+        }
+        return Engine.dispersiveFootprint(grid, polarization, precision, sides, size);
+    }
+
+    /**
+     * Bytes held by the field, coefficient, CPML and Bloch seam arrays and the dispersive cells' state,
+     * counted from the arrays themselves; {@link #footprint} (plus {@link #dispersiveFootprint}) gives the
+     * same figure before building.
      */
     public long bytes() {
         return engine.bytes();
+    }
+
+    /** The part of {@link #bytes()} held by the dispersive cells (0 for a dielectric-only run). */
+    public long dispersiveBytes() {
+        return engine.dispersiveBytes();
+    }
+
+    /** The dispersive materials of this run by material index (empty when there are none). */
+    public Map<Integer, DispersiveMaterial> dispersiveMaterials() {
+        return dispersive;
     }
 
     /** Bytes per cell of the arrays that span the whole grid (outside the PML); {@link #predictBytesPerCell} beforehand. */
@@ -443,6 +500,7 @@ public final class Simulation implements StepView, AutoCloseable {
         private final List<StepListener> listeners = new ArrayList<>();
         private int flushInterval = 64;
         private double divergenceLimit;
+        private final Map<Integer, DispersiveMaterial> dispersive = new TreeMap<>();
 
         private Builder(MaterialGrid grid) {
             this.grid = grid;
@@ -492,6 +550,21 @@ public final class Simulation implements StepView, AutoCloseable {
             return this;
         }
 
+        /**
+         * Makes material {@code materialIndex} of the grid's table a dispersive material: its cells are
+         * updated by the ADE scheme of {@link AdeCoefficients} (ca', cb' and, where the material has
+         * Drude or Lorentz terms, auxiliary currents kept for those cells alone) instead of the grid's
+         * {@link Material} at that index, whose εr and σ are then ignored (only its name and place in the
+         * table count). Each electric component takes the material of its own site (Ez at the node, Ex at
+         * (i+½, j), Ey at (i, j+½)), so cells are staircased: no averaging of a dispersive material with
+         * a neighbour is done here (a smoothed cell must be given its own entry by the caller).
+         * Works inside a CPML and with Bloch-periodic sides.
+         */
+        public Builder dispersive(int materialIndex, DispersiveMaterial material) {
+            dispersive.put(materialIndex, material);
+            return this;
+        }
+
         /** Adds an incident-field sheet (e.g. one of a {@link org.evanesce.solver.source.GaussianBeam}'s pair). */
         public Builder incident(IncidentSheet s) {
             sheets.add(s);
@@ -531,7 +604,21 @@ public final class Simulation implements StepView, AutoCloseable {
 
         /** The largest stable Courant number for this grid's materials. */
         public double courantLimit() {
-            return Courant.limit(grid.minPermittivity());
+            return Courant.limit(minPermittivity());
+        }
+
+        /**
+         * The smallest permittivity that sets the stability limit: εr of the ordinary materials and ε∞ of
+         * the dispersive ones (their poles do not lower the limit; {@code DispersiveMaterial.courantLimit}).
+         */
+        private double minPermittivity() {
+            double m = Double.POSITIVE_INFINITY;
+            List<Material> table = grid.materials();
+            for (int k = 0; k < table.size(); k++) {
+                DispersiveMaterial d = dispersive.get(k);
+                m = Math.min(m, d != null ? d.epsInfinity() : table.get(k).relativePermittivity());
+            }
+            return m;
         }
 
         /**
@@ -541,7 +628,16 @@ public final class Simulation implements StepView, AutoCloseable {
          */
         public Simulation build() {
             List<String> errors = new ArrayList<>();
-            Courant.refusal(courant, grid.minPermittivity()).ifPresent(errors::add);
+            for (Integer k : dispersive.keySet()) {
+                if (k < 0 || k >= grid.materials().size()) {
+                    errors.add(String.format("dispersive material index %d is outside the grid's table of %d materials",
+                            k, grid.materials().size()));
+                }
+            }
+            if (!errors.isEmpty()) {
+                throw new IllegalArgumentException(String.join("\n", errors));
+            }
+            Courant.refusal(courant, minPermittivity()).ifPresent(errors::add);
             if (threads < 1) {
                 errors.add("threads " + threads + " must be >= 1");
             }

@@ -5,9 +5,12 @@ import java.lang.management.ManagementFactory;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.geometry.PhysicalConstants;
+import org.evanesce.geometry.dispersion.DispersiveMaterial;
+import org.evanesce.geometry.dispersion.MetalLibrary;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
@@ -81,10 +84,41 @@ public final class Bench {
         return Math.max(3.0, 4 * t.warmUpSeconds());
     }
 
+    /** The metal of {@code --metal-fraction}: Rakić et al.'s gold (1 Drude and 5 Lorentz terms, 12 values of state per site). */
+    public static final String METAL = "gold";
+
+    /**
+     * The rows made of metal for a metal fraction: round(fraction × size) whole rows (every column, CPML
+     * strips included), spread evenly over the grid between the bottom and top CPML and never on the
+     * source's row. A row of metal holds a dispersive value at every electric site of its cells.
+     */
+    public static int[] metalRows(int size, double fraction) {
+        int m = (int) Math.round(fraction * size);
+        int lo = PML_LAYERS + 1;
+        int span = size - 2 * PML_LAYERS - 2;
+        m = Math.min(m, span - 1);
+        int[] rows = new int[m];
+        for (int k = 0; k < m; k++) {
+            int j = lo + (int) ((k + 0.5) * span / m);
+            rows[k] = j == size / 2 ? j + 1 : j;
+        }
+        return rows;
+    }
+
     /** Plans the benchmark run for one case; the caller closes it. */
     public static Simulation simulation(BenchCase c) {
         int n = c.size();
-        MaterialGrid grid = MaterialGrid.builder(n, n, CELL_SIZE, Material.VACUUM).build();
+        MaterialGrid.Builder gb = MaterialGrid.builder(n, n, CELL_SIZE, Material.VACUUM);
+        DispersiveMaterial gold = MetalLibrary.get(METAL).material();
+        Material metal = new Material(gold.name(), gold.epsInfinity(), 0);
+        for (int j : metalRows(n, c.metalFraction())) {
+            for (FieldSite site : FieldSite.values()) {
+                for (int i = 0; i < n; i++) {
+                    gb.set(site, i, j, metal);
+                }
+            }
+        }
+        MaterialGrid grid = gb.build();
         double f = PhysicalConstants.C0 / WAVELENGTH;
         Component driven = c.polarization() == Polarization.S ? Component.EZ : Component.HZ;
         Simulation.Builder b = Simulation.builder(grid)
@@ -95,6 +129,10 @@ public final class Bench {
                 .source(Source.point(driven, n, n / 2, n / 2, 1.0, TimeSignal.rampedContinuous(f, RAMP_PERIODS / f)));
         if (c.minCellsPerThread() != BenchCase.SOLVER_DEFAULT) {
             b.minCellsPerThread(c.minCellsPerThread());
+        }
+        int metalIndex = grid.materials().indexOf(metal);
+        if (metalIndex >= 0) {
+            b.dispersive(metalIndex, gold);
         }
         return b.build();
     }
@@ -148,7 +186,7 @@ public final class Bench {
                 double median = x.length % 2 == 1 ? x[m] : 0.5 * (x[m - 1] + x[m]);
                 Simulation sim = sims.get(k);
                 out.add(new BenchResult(cases.get(k), sim.threads(), warm.get(k).seconds(), warm.get(k).settled(), perRepeat[k],
-                        x.length, median, x[0], x[x.length - 1], sim.bytesPerCell(), sim.bytes(),
+                        x.length, median, x[0], x[x.length - 1], sim.bytesPerCell(), sim.bytes(), sim.dispersiveBytes(),
                         (sim.stepsOnFewerThreads() - fewer0[k]) / (double) (perRepeat[k] * x.length)));
             }
             return out;

@@ -12,8 +12,11 @@ import org.evanesce.solver.grid.Precision;
  * @param precision         field precision
  * @param polarization      s (Ez, Hx, Hy) or p (Hz, Ex, Ey)
  * @param minCellsPerThread the solver's threading threshold, or {@link #SOLVER_DEFAULT} to keep its default
+ * @param metalFraction     fraction of the grid's cells, in [0, 0.5], made of Rakić's gold (whole rows, see
+ *                          {@link Bench#metalRows}); 0 for the plain vacuum grid
  */
-public record BenchCase(int size, int threads, Precision precision, Polarization polarization, int minCellsPerThread) {
+public record BenchCase(int size, int threads, Precision precision, Polarization polarization, int minCellsPerThread,
+                        double metalFraction) {
 
     /** Keep the solver's own threading threshold. */
     public static final int SOLVER_DEFAULT = 0;
@@ -33,9 +36,21 @@ public record BenchCase(int size, int threads, Precision precision, Polarization
         if (threads < 1) {
             throw new IllegalArgumentException("threads " + threads + " must be >= 1");
         }
+        if (!(metalFraction >= 0 && metalFraction <= MAX_METAL_FRACTION)) {
+            throw new IllegalArgumentException(String.format(
+                    "--metal-fraction %s must lie in [0, %s]", metalFraction, MAX_METAL_FRACTION));
+        }
         if (minCellsPerThread < 0) {
             throw new IllegalArgumentException("minimum cells per thread " + minCellsPerThread + " must be >= 1 (or 0 for the solver's default)");
         }
+    }
+
+    /** Largest metal fraction: beyond half the grid the rows of metal would touch each other. */
+    public static final double MAX_METAL_FRACTION = 0.5;
+
+    /** A vacuum grid without metal. */
+    public BenchCase(int size, int threads, Precision precision, Polarization polarization, int minCellsPerThread) {
+        this(size, threads, precision, polarization, minCellsPerThread, 0);
     }
 
     /** Cells in the grid, size². */

@@ -15,12 +15,12 @@ public final class BenchReport {
     }
 
     private static final String TABLE_HEAD = String.format(Locale.ROOT,
-            "%11s %4s %6s %7s %4s %9s %9s %8s %7s %6s %9s",
-            "grid", "pol", "prec", "threads", "used", "steps/s", "Mcell/s", "ns/cell", "spread", "B/cell", "MiB");
-    private static final String TABLE_ROW = "%11s %4s %6s %7d %4d %9.1f %9.1f %8.3f %6.1f%% %6d %9.1f%s%n";
+            "%11s %4s %6s %7s %4s %9s %9s %8s %7s %6s %9s %6s",
+            "grid", "pol", "prec", "threads", "used", "steps/s", "Mcell/s", "ns/cell", "spread", "B/cell", "MiB", "metal");
+    private static final String TABLE_ROW = "%11s %4s %6s %7d %4d %9.1f %9.1f %8.3f %6.1f%% %6.1f %9.1f %5.1f%%%s%n";
     private static final String CSV_HEAD = "size,polarization,precision,threads_requested,threads_used,steps_per_repeat,"
             + "warm_up_s,settled,repeats,steps_per_s,mcells_per_s,ns_per_cell,spread_percent,bytes_per_cell,bytes,java,cores,jvm_preferred_vector_bits,kernel_vector_bits,"
-            + "fewer_threads_percent";
+            + "fewer_threads_percent,metal_percent,metal_bytes,bytes_per_cell_with_metal";
 
     private final PrintWriter out;
     private final Format format;
@@ -54,6 +54,8 @@ public final class BenchReport {
         out.printf(Locale.ROOT, "evanesce %s bench: %s%n", programVersion, machine.describe());
         out.printf(Locale.ROOT, "vacuum N x N grid, %d nm cells, %d-cell CPML on all sides, continuous point source at the centre%n",
                 Math.round(Bench.CELL_SIZE * 1e9), Bench.PML_LAYERS);
+        out.println("metal: the percentage of cells made of Rakic's gold (whole rows, --metal-fraction); "
+                + "B/cell counts its auxiliary currents spread over every cell");
         out.printf(Locale.ROOT, "%d case(s): at least %.2g s warm-up (until the rate settles), then the median of %d timed repeats over about %.2g s each case%n",
                 cases, timing.warmUpSeconds(), timing.repeats(), timing.seconds());
         if (interleaved) {
@@ -72,15 +74,16 @@ public final class BenchReport {
         String pol = c.polarization().name().toLowerCase(Locale.ROOT);
         String prec = c.precision().name().toLowerCase(Locale.ROOT);
         if (format == Format.CSV) {
-            out.printf(Locale.ROOT, "%d,%s,%s,%d,%d,%d,%.3g,%b,%d,%.6g,%.6g,%.6g,%.3g,%d,%d,%s,%d,%d,%d,%.3g%n",
+            out.printf(Locale.ROOT, "%d,%s,%s,%d,%d,%d,%.3g,%b,%d,%.6g,%.6g,%.6g,%.3g,%d,%d,%s,%d,%d,%d,%.3g,%.4g,%d,%.6g%n",
                     c.size(), pol, prec, c.threads(), r.threadsUsed(), r.stepsPerRepeat(), r.warmUpSeconds(), r.settled(),
                     r.repeats(), r.stepsPerSecond(), r.megacellsPerSecond(), r.nanosPerCell(), r.spreadPercent(),
                     r.bytesPerCell(), r.bytes(), csvText(machine.java()), machine.cores(), machine.preferredVectorBits(),
-                    machine.kernelVectorBits(), 100 * r.fewerThreads());
+                    machine.kernelVectorBits(), 100 * r.fewerThreads(), 100 * metalFraction(r), r.dispersiveBytes(),
+                    r.bytesPerCellWithMetal());
         } else {
             out.printf(Locale.ROOT, TABLE_ROW, c.size() + "x" + c.size(), pol, prec, c.threads(), r.threadsUsed(),
                     r.stepsPerSecond(), r.megacellsPerSecond(), r.nanosPerCell(), r.spreadPercent(),
-                    r.bytesPerCell(), r.mebibytes(), (r.settled() ? "" : " *") + (r.fewerThreads() > 0 ? " +" : ""));
+                    r.bytesPerCellWithMetal(), r.mebibytes(), 100 * metalFraction(r), (r.settled() ? "" : " *") + (r.fewerThreads() > 0 ? " +" : ""));
         }
         anyUnsettled |= !r.settled();
         if (r.fewerThreads() > 0) {
@@ -101,6 +104,11 @@ public final class BenchReport {
                     + "held the cores) or the solver was trying whether they would be: %s%n", fewer);
         }
         out.flush();
+    }
+
+    /** The fraction of the grid's cells actually made of metal (whole rows). */
+    private static double metalFraction(BenchResult r) {
+        return Bench.metalRows(r.benchCase().size(), r.benchCase().metalFraction()).length / (double) r.benchCase().size();
     }
 
     private static String csvText(String s) {

@@ -15,14 +15,21 @@ package org.evanesce.io.bench;
  * @param slowest       the slowest repeat's cell updates per second
  * @param fastest       the fastest repeat's cell updates per second
  * @param bytesPerCell  bytes of the arrays spanning the whole grid, per cell (Simulation.bytesPerCell)
- * @param bytes         bytes of field, coefficient and CPML arrays held by the run (Simulation.bytes)
+ * @param bytes         bytes of field, coefficient and CPML arrays and of the metal's auxiliary state held by the
+ *                      run (Simulation.bytes)
+ * @param dispersiveBytes the part of {@code bytes} held by the metal cells' auxiliary state (Simulation.dispersiveBytes)
  * @param fewerThreads  fraction of the timed steps that ran on fewer threads than {@code threadsUsed}
  *                      (the solver measured that fewer were faster: cores taken by other work)
  */
 public record BenchResult(BenchCase benchCase, int threadsUsed, double warmUpSeconds, boolean settled,
                           long stepsPerRepeat, int repeats,
                           double cellsPerSecond, double slowest, double fastest, int bytesPerCell, long bytes,
-                          double fewerThreads) {
+                          long dispersiveBytes, double fewerThreads) {
+
+    /** Bytes per cell of the arrays spanning the grid plus the metal's auxiliary state spread over every cell. */
+    public double bytesPerCellWithMetal() {
+        return bytesPerCell + dispersiveBytes / (double) benchCase.cells();
+    }
 
     /** Median cell updates per second, in millions. */
     public double megacellsPerSecond() {

@@ -54,6 +54,11 @@ public final class BenchCommand implements Callable<Integer> {
             description = "s (Ez, Hx, Hy) or p (Hz, Ex, Ey); repeat for both (default: s).")
     private List<Polarization> polarizations;
 
+    @Option(names = "--metal-fraction", paramLabel = "F",
+            description = "Fraction of the grid's cells, 0 to 0.5, made of gold (Rakic et al. 1998: 1 Drude and 5 Lorentz "
+                    + "terms), as whole rows spread over the grid; repeat for several (default: 0, vacuum only).")
+    private List<Double> metalFractions;
+
     @Option(names = "--seconds", paramLabel = "S", defaultValue = "2",
             description = "Timed stepping per case, in seconds (default: ${DEFAULT-VALUE}).")
     private double seconds;
@@ -131,6 +136,7 @@ public final class BenchCommand implements Callable<Integer> {
         Set<Integer> t = new LinkedHashSet<>(threads == null ? List.of(1, cores) : threads);
         Set<Precision> prec = new LinkedHashSet<>(precisions == null ? List.of(Precision.FLOAT) : precisions);
         Set<Polarization> pol = new LinkedHashSet<>(polarizations == null ? List.of(Polarization.S) : polarizations);
+        Set<Double> metal = new LinkedHashSet<>(metalFractions == null ? List.of(0.0) : metalFractions);
         int minCells = BenchCase.SOLVER_DEFAULT;
         if (minCellsPerThread != null) {
             if (minCellsPerThread < 1) {
@@ -143,11 +149,13 @@ public final class BenchCommand implements Callable<Integer> {
         for (int size : n) {
             for (Precision p : prec) {
                 for (Polarization q : pol) {
-                    for (int th : t) {
-                        try {
-                            out.add(new BenchCase(size, th, p, q, minCells));
-                        } catch (IllegalArgumentException e) {
-                            throw new ParameterException(spec.commandLine(), e.getMessage(), e);
+                    for (double fraction : metal) {
+                        for (int th : t) {
+                            try {
+                                out.add(new BenchCase(size, th, p, q, minCells, fraction));
+                            } catch (IllegalArgumentException e) {
+                                throw new ParameterException(spec.commandLine(), e.getMessage(), e);
+                            }
                         }
                     }
                 }

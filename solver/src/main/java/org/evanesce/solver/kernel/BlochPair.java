@@ -154,6 +154,11 @@ final class BlochPair extends Engine {
     }
 
     @Override
+    public long dispersiveBytes() {
+        return re.dispersiveBytes() + im.dispersiveBytes();
+    }
+
+    @Override
     public int bytesPerCell() {
         return re.bytesPerCell() + im.bytesPerCell();
     }

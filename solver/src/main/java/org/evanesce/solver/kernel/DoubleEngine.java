@@ -2,6 +2,7 @@ package org.evanesce.solver.kernel;
 
 import java.util.Map;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.dispersion.AdeCoefficients;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.boundary.PmlProfile;
 import org.evanesce.solver.grid.Component;
@@ -26,10 +27,15 @@ abstract class DoubleEngine extends Engine {
     private final Polarization pol;
     /** CPML strips on the x sides (widened to whole vectors) and the y sides, as {@link Layout} says. */
     final DoubleStrip[] xs, ys;
+    /** The dispersive cells of each electric component by {@link Component#ordinal()}: null where it has none. */
+    private final DoubleAde[] ade;
 
-    /** Arrays for grid's cells with ca and cb of each of its materials (see {@link Engine#create}). */
+    /**
+     * Arrays for grid's cells with ca and cb of each of its materials (see {@link Engine#create});
+     * {@code adeOf[m]} the ADE coefficients of material m where it has poles, else null.
+     */
     DoubleEngine(MaterialGrid grid, Polarization pol, double courant, double[] materialCa, double[] materialCb,
-            Map<Side, Boundary> sides) {
+            AdeCoefficients[] adeOf, Map<Side, Boundary> sides) {
         super(grid.nx(), grid.ny(), courant, sides);
         this.pol = pol;
         s = courant;
@@ -41,8 +47,10 @@ abstract class DoubleEngine extends Engine {
         cbOf = new double[nc][];
         caOf = new double[nc][];
         double[][][] c = new double[nc][][];
+        boolean[] fold = new boolean[nc];
         for (Component e : el) {
             c[e.ordinal()] = coefficients(grid, site(e), materialCa, materialCb);
+            fold[e.ordinal()] = DoubleAde.foldCa(grid, site(e), c[e.ordinal()][0], adeOf);
         }
         int len = layout.length();
         // allocated one after the other with staggered lengths (see Engine.staggeredLength), with
@@ -67,6 +75,11 @@ abstract class DoubleEngine extends Engine {
         ys = new DoubleStrip[yProfiles.length];
         for (int q = 0; q < ys.length; q++) {
             ys[q] = new DoubleStrip(yProfiles[q], layout.yPsiLength(yProfiles[q].layers));
+        }
+        ade = new DoubleAde[nc];
+        for (Component e : el) {
+            ade[e.ordinal()] = DoubleAde.of(grid, e, field[e.ordinal()], adeOf, sides, fold[e.ordinal()]);
+            dispersive |= ade[e.ordinal()] != null;
         }
     }
 
@@ -124,7 +137,23 @@ abstract class DoubleEngine extends Engine {
 
     @Override
     protected double flushE(int j) {
+        if (dispersive) {
+            for (DoubleAde a : ade) {
+                if (a != null) {
+                    a.flushRow(j);
+                }
+            }
+        }
         return flush(electric, j);
+    }
+
+    @Override
+    protected void dispersiveRow(int j) {
+        for (DoubleAde a : ade) {
+            if (a != null) {
+                a.row(j);
+            }
+        }
     }
 
     private double flush(double[][] arrays, int j) {
@@ -152,6 +181,9 @@ abstract class DoubleEngine extends Engine {
     @Override
     public void set(Component c, int k, double v) {
         field(c)[k] = v;
+        if (ade[c.ordinal()] != null) {
+            ade[c.ordinal()].setField(k, v);
+        }
     }
 
     /** Counts the arrays actually held; {@link Engine#footprint} must give the same figure (arrays + pml). */
@@ -169,7 +201,16 @@ abstract class DoubleEngine extends Engine {
         for (DoubleStrip y : ys) {
             values += y.values();
         }
-        return values * Double.BYTES + seamBytes();
+        return values * Double.BYTES + seamBytes() + dispersiveBytes();
+    }
+
+    @Override
+    public long dispersiveBytes() {
+        long b = 0;
+        for (DoubleAde a : ade) {
+            b += a == null ? 0 : a.bytes();
+        }
+        return b;
     }
 
     @Override
@@ -194,6 +235,16 @@ abstract class DoubleEngine extends Engine {
         for (DoubleStrip y : ys) {
             y.writeState(out);
         }
+        for (Component e : pol.components()) {
+            if (e.electric) {
+                DoubleAde a = ade[e.ordinal()];
+                if (a == null) {
+                    DoubleAde.writeNone(out);
+                } else {
+                    a.writeState(out);
+                }
+            }
+        }
     }
 
     @Override
@@ -206,6 +257,16 @@ abstract class DoubleEngine extends Engine {
         }
         for (DoubleStrip y : ys) {
             y.readState(in);
+        }
+        for (Component e : pol.components()) {
+            if (e.electric) {
+                DoubleAde a = ade[e.ordinal()];
+                if (a == null) {
+                    DoubleAde.readNone(in);
+                } else {
+                    a.readState(in);
+                }
+            }
         }
     }
 }

@@ -2,6 +2,7 @@ package org.evanesce.solver.kernel;
 
 import java.util.Map;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.dispersion.AdeCoefficients;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
@@ -19,8 +20,9 @@ final class DoubleP extends DoubleEngine {
     /** ca per cell, or null when every cell at that site is lossless (ca = 1). */
     final double[] cax, cay;
 
-    DoubleP(MaterialGrid grid, double courant, double[] caOfMaterial, double[] cbOfMaterial, Map<Side, Boundary> sides) {
-        super(grid, Polarization.P, courant, caOfMaterial, cbOfMaterial, sides);
+    DoubleP(MaterialGrid grid, double courant, double[] caOfMaterial, double[] cbOfMaterial, AdeCoefficients[] adeOf,
+            Map<Side, Boundary> sides) {
+        super(grid, Polarization.P, courant, caOfMaterial, cbOfMaterial, adeOf, sides);
         hz = field(Component.HZ);
         ex = field(Component.EX);
         ey = field(Component.EY);

@@ -2,6 +2,7 @@ package org.evanesce.solver.kernel;
 
 import java.util.Map;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.dispersion.AdeCoefficients;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
@@ -18,8 +19,9 @@ final class DoubleS extends DoubleEngine {
     /** ca per cell, or null when every cell is lossless (ca = 1). */
     final double[] ca;
 
-    DoubleS(MaterialGrid grid, double courant, double[] caOfMaterial, double[] cbOfMaterial, Map<Side, Boundary> sides) {
-        super(grid, Polarization.S, courant, caOfMaterial, cbOfMaterial, sides);
+    DoubleS(MaterialGrid grid, double courant, double[] caOfMaterial, double[] cbOfMaterial, AdeCoefficients[] adeOf,
+            Map<Side, Boundary> sides) {
+        super(grid, Polarization.S, courant, caOfMaterial, cbOfMaterial, adeOf, sides);
         ez = field(Component.EZ);
         hx = field(Component.HX);
         hy = field(Component.HY);

@@ -4,6 +4,7 @@ import java.util.EnumMap;
 import java.util.Map;
 import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.geometry.dispersion.AdeCoefficients;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.boundary.PmlProfile;
 import org.evanesce.solver.grid.Component;
@@ -57,6 +58,11 @@ public abstract class Engine {
     private double[] eValue = new double[0], hValue = new double[0];
     /** For source term t: its index among electric terms (≥ 0) or −1 − its index among magnetic terms. */
     private int[] termOrder = new int[0];
+    /**
+     * Whether any electric site holds a dispersive cell (set by the engine's constructor); when false
+     * the electric rows take no post-pass and no extra work.
+     */
+    protected boolean dispersive;
 
     protected Engine(int nx, int ny, double courant, Map<Side, Boundary> sides) {
         this.nx = nx;
@@ -95,9 +101,12 @@ public abstract class Engine {
      *
      * @param caOfMaterial ca of each material of {@code grid.materials()}, by index
      * @param cbOfMaterial cb of each material, by index (the facade computes both, with the physical constants)
+     * @param adeOf        by material index, the ADE coefficients of a dispersive material with poles (its ca', cb'
+     *                     must be those given in caOfMaterial, cbOfMaterial), else null; null for none at all
      */
     public static Engine create(MaterialGrid grid, Polarization pol, Precision precision, double courant,
-                                double[] caOfMaterial, double[] cbOfMaterial, Map<Side, Boundary> sides) {
+                                double[] caOfMaterial, double[] cbOfMaterial, AdeCoefficients[] adeOf,
+                                Map<Side, Boundary> sides) {
         Map<Side, Boundary> all = new EnumMap<>(sides);
         for (Side s : Side.values()) {
             if (!all.containsKey(s)) {
@@ -109,19 +118,26 @@ public abstract class Engine {
             throw new IllegalArgumentException(String.format("%d ca and %d cb values given for %d materials",
                     caOfMaterial.length, cbOfMaterial.length, nm));
         }
-        if (all.get(Side.LEFT) instanceof Boundary.Bloch b) {
-            double phase = b.wavenumber() * grid.nx() * grid.cellSize();
-            return new BlochPair(real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, all),
-                    real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, all), pol, phase);
+        AdeCoefficients[] ade = adeOf == null ? new AdeCoefficients[nm] : adeOf.clone();
+        if (ade.length != nm) {
+            throw new IllegalArgumentException(String.format("%d ADE entries given for %d materials", ade.length, nm));
         }
-        return real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, all);
+        if (all.get(Side.LEFT) instanceof Boundary.Bloch b) {
+            // each part keeps its own auxiliary currents: the real and the imaginary field are driven apart
+            double phase = b.wavenumber() * grid.nx() * grid.cellSize();
+            return new BlochPair(real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, ade, all),
+                    real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, ade, all), pol, phase);
+        }
+        return real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, ade, all);
     }
 
     private static Engine real(MaterialGrid grid, Polarization pol, Precision precision, double courant, double[] ca,
-                               double[] cb, Map<Side, Boundary> all) {
+                               double[] cb, AdeCoefficients[] ade, Map<Side, Boundary> all) {
         return switch (precision) {
-            case FLOAT -> pol == Polarization.S ? new FloatS(grid, courant, ca, cb, all) : new FloatP(grid, courant, ca, cb, all);
-            case DOUBLE -> pol == Polarization.S ? new DoubleS(grid, courant, ca, cb, all) : new DoubleP(grid, courant, ca, cb, all);
+            case FLOAT -> pol == Polarization.S ? new FloatS(grid, courant, ca, cb, ade, all)
+                    : new FloatP(grid, courant, ca, cb, ade, all);
+            case DOUBLE -> pol == Polarization.S ? new DoubleS(grid, courant, ca, cb, ade, all)
+                    : new DoubleP(grid, courant, ca, cb, ade, all);
         };
     }
 
@@ -408,12 +424,77 @@ public abstract class Engine {
         return flush ? flushH(j) : 0;
     }
 
-    /** Adds the electric sources of row j, after its update, and flushes it when asked. */
+    /**
+     * Adds the electric sources of row j, after its update, then runs the dispersive cells'
+     * post-pass of the row (when the grid has any) and flushes it when asked. The post-pass
+     * comes after everything else that changes E in the row (ordinary update with ca', cb', CPML
+     * corrections, sources), and reads and writes row j alone, so results stay those of any band split.
+     */
     protected final double eFinish(int j, boolean flush) {
         for (int t = eRowStart[j]; t < eRowStart[j + 1]; t++) {
             addSource(eComp[t], eCell[t], eValue[t]);
         }
+        if (dispersive) {
+            dispersiveRow(j);
+        }
         return flush ? flushE(j) : 0;
+    }
+
+    /** The dispersive cells' post-pass of row j ({@link AdeCoefficients#postPass} per cell); engines with poles override it. */
+    protected void dispersiveRow(int j) {
+    }
+
+    /**
+     * Bytes of the dispersive cells' auxiliary state, cell indices and row starts (included in {@link #bytes()});
+     * {@link #dispersiveFootprint} gives the same figure before building.
+     */
+    public long dispersiveBytes() {
+        return 0;
+    }
+
+    /**
+     * What {@link #dispersiveBytes()} will report for a grid: for each electric site of the polarization
+     * and each material with poles that has cells the update changes there, its state (stateSize values per
+     * cell), one cell index per cell, ny + 1 row starts of cells and of runs (neighbouring cells of a row)
+     * and three ints per run; twice with Bloch-periodic sides (two parts).
+     *
+     * @param stateSizeOf by material index, the state values per cell of a material with poles, else 0
+     */
+    public static long dispersiveFootprint(MaterialGrid grid, Polarization pol, Precision precision,
+                                           Map<Side, Boundary> sides, int[] stateSizeOf) {
+        int nx = grid.nx();
+        int ny = grid.ny();
+        long b = 0;
+        for (Component c : pol.components()) {
+            if (!c.electric) {
+                continue;
+            }
+            long[] cells = new long[stateSizeOf.length];
+            long[] runs = new long[stateSizeOf.length];
+            for (int j = 0; j < ny; j++) {
+                int previous = -1;
+                for (int i = 0; i < nx; i++) {
+                    int m = grid.id(site(c), i, j);
+                    if (stateSizeOf[m] > 0 && wouldUpdate(sides, nx, ny, c, i, j)) {
+                        cells[m]++;
+                        if (previous != m) {
+                            runs[m]++;
+                        }
+                        previous = m;
+                    } else {
+                        previous = -1;
+                    }
+                }
+            }
+            for (int m = 0; m < stateSizeOf.length; m++) {
+                if (cells[m] > 0) {
+                    // state, a cell index per cell, row starts of cells and of runs, three ints per run
+                    b += cells[m] * stateSizeOf[m] * precision.bytes
+                            + (long) Integer.BYTES * (cells[m] + 2L * (ny + 1) + 3 * runs[m]);
+                }
+            }
+        }
+        return sides.get(Side.LEFT) instanceof Boundary.Bloch ? 2 * b : b;
     }
 
     /** Magnetic update of row j, including CPML corrections. */

@@ -68,7 +68,7 @@ class BlockEqualityTest {
         });
         double courant = 0.6;
         double[][] coefficients = MaterialCoefficients.of(grid.materials(), courant, Courant.timeStep(courant, 40e-9));
-        Engine e = Engine.create(grid, pol, precision, courant, coefficients[0], coefficients[1], sides);
+        Engine e = Engine.create(grid, pol, precision, courant, coefficients[0], coefficients[1], null, sides);
         Component[] comps = pol.components();
         // one electric and one magnetic source term, inside the left and bottom layers' reach
         e.setSources(new int[] {20 * NX + 9, 6 * NX + 26}, new Component[] {comps[pol == Polarization.S ? 0 : 1],

@@ -68,7 +68,7 @@ class MovingBandsTest {
             sides.put(s, Boundary.pml(8));
         }
         double[][] coefficients = MaterialCoefficients.of(grid.materials(), 0.6, Courant.timeStep(0.6, 40e-9));
-        Engine e = Engine.create(grid, pol, precision, 0.6, coefficients[0], coefficients[1], sides);
+        Engine e = Engine.create(grid, pol, precision, 0.6, coefficients[0], coefficients[1], null, sides);
         Component[] comps = pol.components();
         e.setSources(new int[] {(NY / 2) * NX + NX / 3}, new Component[] {comps[pol == Polarization.S ? 0 : 1]});
         Thread caller = Thread.currentThread();
