@@ -105,7 +105,7 @@ class BeamRunTest {
             design_wavelength: 633 nm
             polarization: POL
             domain: {width: WIDTH um, height: 3 um, background: glass}
-            resolution: {cells_per_wavelength: cpw}
+            grid: {cells_per_wavelength: cpw}
             materials:
               glass: {index: 1.5}
             MATERIALS
@@ -124,7 +124,7 @@ class BeamRunTest {
                 - {y: -0.8 um, measures: reflected}
                 - {y: 0.9 um, measures: transmitted}
               transfer_matrix: true
-            stop: {time: STOP fs}
+            until: {time: STOP fs}
             """;
 
     private static final String VACUUM = "  vac: {index: 1.0}";
@@ -369,7 +369,7 @@ class BeamRunTest {
             design_wavelength: 633 nm
             polarization: POL
             domain: {width: 120 um, height: 4 um, background: glass}
-            resolution: {cells_per_wavelength: 16}
+            grid: {cells_per_wavelength: 16}
             materials:
               glass: {index: 1.5}
               vac: {index: 1.0}
@@ -389,7 +389,7 @@ class BeamRunTest {
                 - {y: -1.4 um, measures: reflected, name: far}
                 - {y: 0.9 um, measures: transmitted}
               transfer_matrix: true
-            stop: {time: 250 fs}
+            until: {time: 250 fs}
             """;
 
     /**
@@ -596,7 +596,7 @@ class BeamRunTest {
             design_wavelength: 633 nm
             polarization: s
             domain: {width: 20 um, height: 3 um, background: glass}
-            resolution: {cells_per_wavelength: 16}
+            grid: {cells_per_wavelength: 16}
             materials:
               glass: {index: 1.5}
               vac: {index: 1.0}
@@ -609,7 +609,7 @@ class BeamRunTest {
             WAIST_LINE
                   waist_at: [0, 0.5 um]
                   signal: {ramped_wave: {wavelength: 633 nm}}
-            stop: {time: 20 fs}
+            until: {time: 20 fs}
             """;
     private static final String WAIST_LINE = "      waist: 1 um";
     private static final String INTERFACE = "  - half_plane: {through: [0, 0.5 um], fill: above, material: vac}";

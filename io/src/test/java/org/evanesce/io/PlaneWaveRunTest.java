@@ -82,7 +82,7 @@ class PlaneWaveRunTest {
             design_wavelength: 633 nm
             polarization: POL
             domain: {width: 0.1 um, height: 3.2 um, background: glass}
-            resolution: {cells_per_wavelength: 20}
+            grid: {cells_per_wavelength: 20}
             materials:
               glass: {index: 1.5}
               gap_vacuum: {index: 1.0}
@@ -102,7 +102,7 @@ class PlaneWaveRunTest {
               lines:
             LINES
               transfer_matrix: true
-            stop: {decay: 1e-6, limit: 400 fs}
+            until: {energy_below: 1e-6, latest: 400 fs}
             """;
 
     private static final String PERIODIC = "{left: periodic, right: periodic, bottom: pml 0.5 um, top: pml 0.5 um}";

@@ -9,6 +9,12 @@ public sealed interface StopSpec {
      */
     long MAX_STEPS = 1_000_000_000L;
 
+    /**
+     * The energy fraction of {@code until: {latest: ...}} when {@code energy_below} is not given: the figure the examples
+     * and the settling rule used so far (Settling.FIXED_LENGTH_FRACTION).
+     */
+    double DEFAULT_ENERGY_FRACTION = 1e-5;
+
     /** Where the stopping rule was written. */
     SourcePosition at();
 
@@ -30,13 +36,13 @@ public sealed interface StopSpec {
 
     /**
      * When the field energy in the domain has fallen below {@code fraction} of its largest value
-     * (checked only once every source has faded), or at {@code limit} seconds of simulated time,
+     * (checked only once every source has faded), or at {@code latest} seconds of simulated time,
      * whichever comes first.
      */
-    record WhenDecayed(Value fraction, Value limit) implements StopSpec {
+    record WhenEnergyBelow(Value fraction, Value latest) implements StopSpec {
         @Override
         public SourcePosition at() {
-            return limit.at();
+            return latest.at();
         }
     }
 }

@@ -162,7 +162,7 @@ final class FluxPlanner {
         double period = 1 / rw.frequency().si();
         long periods = (long) Math.floor((end - settle) / period);
         if (periods < MIN_PERIODS) {
-            errors.add(new Diagnostic(Diagnostic.Severity.ERROR, spec.stop().at(), "stop", String.format(java.util.Locale.ROOT,
+            errors.add(new Diagnostic(Diagnostic.Severity.ERROR, spec.stop().at(), "until", String.format(java.util.Locale.ROOT,
                     "a continuous wave's flux is read over whole periods after the fields have settled (%s: three ramps and "
                             + "two crossings of the domain); the run ends at %s, leaving %d periods, fewer than %d; run until at "
                             + "least %s (or use a pulse)", Units.format(settle, Dimension.TIME), Units.format(end, Dimension.TIME),

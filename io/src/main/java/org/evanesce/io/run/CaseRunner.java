@@ -153,7 +153,7 @@ public final class CaseRunner {
                     energy = sim.energy(r[0], r[1], r[2], r[3]);
                     peak = Math.max(peak, energy);
                     if (sim.stepCount() >= d.fadeSteps() && energy <= d.fraction() * peak) {
-                        reason = String.format("the field energy decayed to %.3g of its largest value (asked: %.3g)",
+                        reason = String.format("the field energy fell to %.3g of its largest value (asked: below %.3g)",
                                 peak > 0 ? energy / peak : 0.0, d.fraction());
                         break;
                     }
@@ -163,10 +163,10 @@ public final class CaseRunner {
                     }
                 }
                 if (reason == null && plan.continuous()) {
-                    reason = String.format("ran to the time limit (%d steps): a continuous wave does not decay", d.limitSteps());
+                    reason = String.format("ran to the latest time (%d steps): a continuous wave's field energy does not fall", d.limitSteps());
                 } else if (reason == null) {
                     byLimit = true;
-                    reason = String.format("reached the time limit (%d steps) before the energy decayed to %.3g of its "
+                    reason = String.format("reached the latest time (%d steps) before the energy fell below %.3g of its "
                             + "largest value (now %.3g)", d.limitSteps(), d.fraction(), peak > 0 ? energy / peak : 0.0);
                 }
             }
@@ -178,7 +178,7 @@ public final class CaseRunner {
             if (atEnd != null) {
                 atEnd.accept(sim);
             }
-            if (restored != null && restored.reason() != null && reason.startsWith("reached the time limit")) {
+            if (restored != null && restored.reason() != null && (reason.startsWith("reached the latest time") || reason.startsWith("reached the time limit"))) {
                 byLimit = true;
             }
             double[] reference = {0, Double.NaN, Double.NaN};
