@@ -24,7 +24,7 @@ import org.junit.jupiter.params.provider.ValueSource;
  * characteristic matrix of an absorbing film; and the beam's bad-input checks.
  *
  * <p>Each run is a continuous (ramped) wave at 633 nm in glass (n = 1.5) on a grid 3 um high and 44 to
- * 100 um wide (0.2 to 0.44 million cells), followed by the program's reference run of the same size. The
+ * 100 um wide (0.2 to 0.44 million cells), followed by the program's incident-power run of the same size. The
  * beams are 10 or 20 vacuum wavelengths wide at the waist; the domains hold about ±2.7 footprints
  * (waist / cos angle) either side of the axis, where the beam's power has fallen below 1e-6 of its peak.
  */
@@ -429,7 +429,7 @@ class BeamRunTest {
     /**
      * Issue #13: the lateral shift measured from where the incident beam itself goes on the grid. At 50° the
      * grid turns the beam by about 0.13° (at 45° not at all), which the nominal specular position counts as
-     * shift; the reference run's measured path takes it out, so both lines agree and the shift is the
+     * shift; the incident-power run's measured path takes it out, so both lines agree and the shift is the
      * interface's.
      */
     @ParameterizedTest(name = "{0} polarization")

@@ -32,7 +32,7 @@ class CheckpointDamageTest {
     @TempDir
     Path tmp;
 
-    /** A plane wave through a gap (as in the sweep tests): a fraction of a second with its reference run. */
+    /** A plane wave through a gap (as in the sweep tests): a fraction of a second with its incident-power run. */
     private static final String GAP = """
             design_wavelength: 633 nm
             polarization: s

@@ -25,7 +25,7 @@ import org.junit.jupiter.params.provider.MethodSource;
  * internal reflection through a vacuum gap between two glass blocks (written out below, independently of
  * the program), and the plane wave's bad-input checks.
  *
- * <p>The grid is a few cells wide (periodic sides) and 3.2 um high, so each run, with its reference run,
+ * <p>The grid is a few cells wide (periodic sides) and 3.2 um high, so each run, with its incident-power run,
  * takes well under a second. The runs use the case file's default for plane waves, the dispersion
  * correction (without it s at 60° is off by about 0.0056 at 20 cells per wavelength, over the issue's
  * 0.005; see the solver's GapTunnellingTest).

@@ -101,7 +101,7 @@ class SettlingTest {
         Map<?, ?> fullRun = json(full.resolve("run.json"));
         assertEquals(true, settling(fullRun).get("settled"), fullRun.toString());
         assertTrue(((Number) settling(fullRun).get("energy_fraction")).doubleValue() <= 1e-6);
-        assertTrue(((Number) settling(fullRun).get("reference_energy_fraction")).doubleValue() <= 1e-6);
+        assertTrue(((Number) settling(fullRun).get("incident_power_run_energy_fraction")).doubleValue() <= 1e-6);
         assertEquals(true, json(full.resolve("summary.json")).get("settled"));
         assertEquals(List.of(), json(full.resolve("summary.json")).get("warnings"));
     }

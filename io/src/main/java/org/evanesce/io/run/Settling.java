@@ -21,7 +21,7 @@ import org.evanesce.solver.record.FluxLine;
  * <ul>
  * <li>pulses: the field energy inside the PMLs must have decayed to the asked fraction of its largest value
  *     ({@code until: {energy_below, latest}}), or to {@link #FIXED_LENGTH_FRACTION} for a run of fixed length
- *     ({@code until: time} or {@code steps}) with flux or maps; the flux normalisation's reference run the same;</li>
+ *     ({@code until: time} or {@code steps}) with flux or maps; the flux normalisation's incident-power run the same;</li>
  * <li>a continuous (ramped) wave: the normalised flux, and the maps' middle row, must not change between
  *     the two halves of the transform window by more than {@link SteadyState#TOLERANCE}, and maps must be
  *     transformed over such a window at all.</li>
@@ -33,13 +33,13 @@ import org.evanesce.solver.record.FluxLine;
  * @param settled        true, false, or null when not judged
  * @param rule           the rule applied, in words
  * @param energyFraction the field energy at the end over its largest value (NaN if not measured)
- * @param referenceEnergyFraction the same for the reference run (NaN without one)
+ * @param incidentPowerRunEnergyFraction the same for the incident-power run (NaN without one)
  * @param steadyChange   a continuous wave's largest change between the window's halves (NaN otherwise)
  * @param steadyChanges  each quantity's change between the halves, by name (flux.csv's column names,
  *                       {@code incident_power}, {@code maps}); empty without a continuous wave's window
  * @param warnings       what to tell the user, one sentence each (empty when settled)
  */
-public record Settling(Boolean settled, String rule, double energyFraction, double referenceEnergyFraction,
+public record Settling(Boolean settled, String rule, double energyFraction, double incidentPowerRunEnergyFraction,
                        double steadyChange, Map<String, Double> steadyChanges, List<String> warnings) {
 
     /**
@@ -76,13 +76,13 @@ public record Settling(Boolean settled, String rule, double energyFraction, doub
         boolean maps = plan.fields().maps().isPresent();
         boolean hasFlux = plan.flux().isPresent();
         double fraction = r.energyFraction();
-        double refFraction = r.referenceEnergyFraction();
+        double incidentRunFraction = r.incidentPowerRunEnergyFraction();
         List<String> warn = new ArrayList<>();
         String end = Units.format(r.steps() * plan.dt(), Dimension.TIME, 3);
         if (continuous) {
             if (!hasFlux && !maps) {
                 return new Settling(null, "not judged: a continuous wave without flux or maps (time series and snapshots "
-                        + "are taken when asked)", fraction, refFraction, Double.NaN, Map.of(), warn);
+                        + "are taken when asked)", fraction, incidentRunFraction, Double.NaN, Map.of(), warn);
             }
             Map<String, Double> changes = new LinkedHashMap<>();
             if (hasFlux && plan.flux().get().steady().isPresent()) {
@@ -119,16 +119,16 @@ public record Settling(Boolean settled, String rule, double energyFraction, doub
                                 + "at an oblique angle settles slowly after a short ramp; docs/case-file.md, until)",
                                 LONG_RAMP_PERIODS) : ""));
             }
-            return new Settling(warn.isEmpty(), rule, fraction, refFraction, w == null ? Double.NaN : change, changes, warn);
+            return new Settling(warn.isEmpty(), rule, fraction, incidentRunFraction, w == null ? Double.NaN : change, changes, warn);
         }
         boolean decayStop = plan.stop() instanceof CasePlan.Stop.Decay;
         if (!decayStop && !hasFlux && !maps) {
             return new Settling(null, "not judged: a run of fixed length without flux or maps (time series and snapshots "
-                    + "are taken when asked)", fraction, refFraction, Double.NaN, Map.of(), warn);
+                    + "are taken when asked)", fraction, incidentRunFraction, Double.NaN, Map.of(), warn);
         }
         double asked = decayStop ? ((CasePlan.Stop.Decay) plan.stop()).fraction() : FIXED_LENGTH_FRACTION;
         String rule = String.format(Locale.ROOT, "the field energy inside the PMLs must decay to %.3g of its largest value "
-                + "by the end of the run%s", asked, hasFlux ? ", in the case's run and in the reference run" : "");
+                + "by the end of the run%s", asked, hasFlux ? ", in the case's run and in the incident-power run" : "");
         boolean ok = decayStop ? !r.stoppedByLimit() : !(fraction > asked);
         if (!ok) {
             String what = hasFlux && maps ? "flux and maps" : hasFlux ? "the flux" : maps ? "the maps" : null;
@@ -140,12 +140,12 @@ public record Settling(Boolean settled, String rule, double energyFraction, doub
                     decayStop ? "raise until.latest" : "a longer until.time, or until: {latest: ...}, which runs until the energy "
                             + "falls below " + org.evanesce.io.casefile.StopSpec.DEFAULT_ENERGY_FRACTION));
         }
-        if (hasFlux && refFraction > asked) {
-            warn.add(String.format(Locale.ROOT, "the flux normalisation did not settle: the reference run (the incident "
-                    + "power) ended at %s with its field energy still at %.3g of its largest value (settled means below "
-                    + "%.3g), so the incident power and every T and R are off; run longer", end, refFraction, asked));
+        if (hasFlux && incidentRunFraction > asked) {
+            warn.add(String.format(Locale.ROOT, "the flux normalisation did not settle: the incident-power run "
+                    + "ended at %s with its field energy still at %.3g of its largest value (settled means below "
+                    + "%.3g), so the incident power and every T and R are off; run longer", end, incidentRunFraction, asked));
         }
-        return new Settling(warn.isEmpty(), rule, fraction, refFraction, Double.NaN, Map.of(), warn);
+        return new Settling(warn.isEmpty(), rule, fraction, incidentRunFraction, Double.NaN, Map.of(), warn);
     }
 
     /**
@@ -225,7 +225,7 @@ public record Settling(Boolean settled, String rule, double energyFraction, doub
         m.put("settled", settled);
         m.put("rule", rule);
         m.put("energy_fraction", energyFraction);
-        m.put("reference_energy_fraction", referenceEnergyFraction);
+        m.put("incident_power_run_energy_fraction", incidentPowerRunEnergyFraction);
         m.put("steady_state_change", steadyChange);
         m.put("steady_state_changes", steadyChanges.isEmpty() ? null : new LinkedHashMap<>(steadyChanges));
         m.put("steady_state_tolerance", Double.isNaN(steadyChange) ? null : SteadyState.TOLERANCE);

@@ -147,8 +147,8 @@ class MemoryEstimateTest {
         try (Simulation sim = org.evanesce.io.run.CaseRunner.build(plan)) {
             long solver = item(m, "fields and coefficients") + item(m, "PML");
             assertEquals(1, (double) solver / sim.bytes(), FOOTPRINT_TOLERANCE, "fields, coefficients and PML");
-            // what the case holds now: the material grids (the reference run's too), the case's simulation and every
-            // recorder; the reference run's fields, the passing needs and the program's allowance come later or are not heap
+            // what the case holds now: the material grids (the incident-power run's too), the case's simulation and every
+            // recorder; the incident-power run's fields, the passing needs and the program's allowance come later or are not heap
             long held = retained(rt) - before;
             long nodes = (long) plan.grid().nx() * plan.grid().ny();
             long estimated = item(m, "material grid") + solver + item(m, "flux lines") + item(m, "maps") + 6 * nodes;

@@ -42,7 +42,7 @@ final class SweepCases {
 
     /**
      * A plane wave through a vacuum gap between glass blocks (as in PlaneWaveRunTest): 5 x 153 cells of
-     * 21.1 nm with periodic sides, so each run with its reference run takes a fraction of a second.
+     * 21.1 nm with periodic sides, so each run with its incident-power run takes a fraction of a second.
      * SWEEP is replaced by the sweep section's lines.
      */
     static final String GAP_CASE = """
