@@ -47,7 +47,10 @@ public record Settling(Boolean settled, String rule, double energyFraction, doub
      * Measured on cases/gap-tunnelling-plane-wave.yaml (run shortened with --set duration): a run ending with
      * 5.1e-6 of the largest energy left had A = 1 − R − T = 9e-4 (exact 0) and T off by 2.5e-4, one ending with
      * 2.9e-3 left had A = 0.027; the error goes as about 0.4 √fraction, so 1e-5 keeps it near 1e-3, a fifth of the
-     * discretisation error at 20 cells per wavelength (0.005, README).
+     * discretisation error at 20 cells per wavelength (0.005, README). A warning threshold, so ten times looser than
+     * the default energy fraction of {@code until: {latest: ...}} ({@link org.evanesce.io.casefile.StopSpec#DEFAULT_ENERGY_FRACTION},
+     * which aims at errors below 1e-4): a run flagged here is off by about 1e-3 or more, one that
+     * reaches the default by some 1e-4 or less.
      */
     public static final double FIXED_LENGTH_FRACTION = 1e-5;
 
