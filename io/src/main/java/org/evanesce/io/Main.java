@@ -34,8 +34,10 @@ import picocli.CommandLine.Spec;
 @Command(name = "evanesce", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
         description = "2D FDTD field simulator for optical tunnelling and near-field geometries.",
         subcommands = {RunCommand.class, CheckCommand.class, BenchCommand.class, org.evanesce.io.cli.StackCommand.class,
-            org.evanesce.io.cli.AccuracyCommand.class, org.evanesce.io.cli.RenderCommand.class,
-            org.evanesce.io.cli.SweepCommand.class},
+            org.evanesce.io.cli.AccuracyCommand.class, org.evanesce.io.cli.RedrawCommand.class,
+            org.evanesce.io.cli.RenderRefused.class,
+            org.evanesce.io.cli.SweepCommand.class, org.evanesce.io.cli.FitCommand.class,
+            org.evanesce.io.cli.ToleranceCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
             "0:success",
@@ -56,7 +58,8 @@ public final class Main implements Callable<Integer> {
     @Override
     public Integer call() {
         throw new ParameterException(spec.commandLine(), "missing command: choose one of "
-                + String.join(", ", spec.subcommands().keySet()));
+                + String.join(", ", spec.subcommands().entrySet().stream()
+                        .filter(c -> !c.getValue().getCommandSpec().usageMessage().hidden()).map(c -> c.getKey()).toList()));
     }
 
     public static void main(String[] args) {

@@ -22,7 +22,7 @@ import org.junit.jupiter.api.io.TempDir;
 
 /**
  * Issue 13, faults: a full disk, a read-only or unwritable folder, an over-long name and a damaged
- * HDF5 file given to {@code render} end with exit 3 (exit 2 where the user gave a path evanesce
+ * HDF5 file given to {@code redraw} end with exit 3 (exit 2 where the user gave a path evanesce
  * refuses) and one plain sentence naming the path and the cause, never a stack trace, and leave
  * nothing partial behind. A full disk is a real small tmpfs where the tests may mount one (as root),
  * and always a simulated write failure ({@link SafeFiles#NO_SPACE_PROPERTY}); the error texts are
@@ -161,7 +161,7 @@ class FaultsTest {
     }
 
     @Test
-    void aDamagedHdf5FileGivenToRenderEndsWithOneSentence() throws IOException {
+    void aDamagedHdf5FileGivenToRedrawEndsWithOneSentence() throws IOException {
         Path out = tmp.resolve("out");
         Cli.Outcome run = Cli.run("run", caseFile().toString(), "--out", out.toString());
         assertEquals(Main.OK, run.code(), run::toString);
@@ -169,15 +169,15 @@ class FaultsTest {
 
         Path cut = Files.createDirectories(tmp.resolve("cut"));
         Files.write(cut.resolve("fields.h5"), java.util.Arrays.copyOf(good, good.length / 2));
-        failedWith(Cli.run("render", cut.toString()), cut.resolve("fields.h5").toString(), "not a readable HDF5 file");
+        failedWith(Cli.run("redraw", cut.toString()), cut.resolve("fields.h5").toString(), "not a readable HDF5 file");
 
         Path noise = Files.createDirectories(tmp.resolve("noise"));
         byte[] random = new byte[good.length];
         new Random(13).nextBytes(random);
         Files.write(noise.resolve("fields.h5"), random);
-        failedWith(Cli.run("render", noise.toString()), noise.resolve("fields.h5").toString(), "not a readable HDF5 file");
+        failedWith(Cli.run("redraw", noise.toString()), noise.resolve("fields.h5").toString(), "not a readable HDF5 file");
 
-        Cli.Outcome missing = Cli.run("render", tmp.resolve("nowhere").toString());
+        Cli.Outcome missing = Cli.run("redraw", tmp.resolve("nowhere").toString());
         assertEquals(Main.USAGE, missing.code(), missing::toString);
         assertEquals(List.of("fields.h5"), names(cut), "no pictures half written");
     }

@@ -42,7 +42,8 @@ import org.w3c.dom.NodeList;
 /**
  * {@code evanesce run} with field files, frames, the permittivity and frequency-domain maps, read back
  * with jhdf, javax.xml and (where installed) h5py; the decay fits against the closed form of the
- * evanescent field beyond total internal reflection; {@code evanesce render}; and the bad-input checks of
+ * evanescent field beyond total internal reflection; {@code evanesce redraw} (and the old name {@code render}
+ * refused); and the bad-input checks of
  * frames and decay lines.
  *
  * <p>The complete case is the last example of docs/case-file.md ("Evanescent field beyond a totally
@@ -269,15 +270,17 @@ class FieldOutputRunTest {
         // p with Bloch-periodic sides: each written component has a real and an imaginary part
         assertEquals(4, checkXdmf(complete.resolve("fields.xmf"), out), "fields.xmf: Hz, Ex and their imaginary parts");
         assertEquals(2 * 4, checkXdmf(complete.resolve("frames.xmf"), out), "frames.xmf: two frames of four datasets");
-        assertEquals(3, checkXdmf(complete.resolve("permittivity.xmf"), out), "permittivity.xmf: eps_x, eps_y, material_id");
-        assertEquals(3 * 9, checkXdmf(complete.resolve("maps.xmf"), maps),
-                "maps.xmf: three wavelengths of Hz, Ex, Ey (real, imaginary), |E| and the permittivity eps_x, eps_y");
+        assertEquals(3, checkXdmf(complete.resolve("permittivity.xmf"), out),
+                "permittivity.xmf: relative_permittivity_x, relative_permittivity_y, material_id");
+        assertEquals(3 * 9, checkXdmf(complete.resolve("maps.xmf"), maps), "maps.xmf: three wavelengths of H_z, E_x, E_y "
+                + "(real, imaginary), E_magnitude (layers of the stacks) and relative_permittivity_x, relative_permittivity_y");
     }
 
     /**
      * Parses an .xmf file with javax.xml and opens every HDF DataItem with jhdf: the dataset exists, has the
      * Topology's shape (less the Z layer), which is also the region's node count, the stated precision, and its
-     * origin and cell size attributes match the Geometry.
+     * origin and cell size attributes match the Geometry. A DataItem inside a HyperSlab (a layer of a maps.h5
+     * stack) selects layer k of a stack [n][ny][nx] whose k-th wavelength_m is the grid's wavelength.
      *
      * @param box {nx, ny, i0, j0} of the region
      * @return the number of HDF DataItems
@@ -313,6 +316,15 @@ class FieldOutputRunTest {
                     if (!"HDF".equals(item.getAttribute("Format"))) {
                         continue;
                     }
+                    Element parent = (Element) item.getParentNode();
+                    int layer = -1;
+                    if ("HyperSlab".equals(parent.getAttribute("ItemType"))) {
+                        assertArrayEquals(dims, ints(parent.getAttribute("Dimensions")), c + ": the hyperslab is one Z layer");
+                        int[] sel = ints(children(parent, "DataItem").get(0).getTextContent());
+                        layer = sel[0];
+                        assertArrayEquals(new int[] {0, 0, 1, 1, 1, 1, box[1], box[0]}, java.util.Arrays.copyOfRange(sel, 1, 9),
+                                c + ": start, stride and count select one whole layer");
+                    }
                     items++;
                     String ref = item.getTextContent().trim();
                     int colon = ref.lastIndexOf(":/");
@@ -322,8 +334,17 @@ class FieldOutputRunTest {
                     HdfFile h = open.computeIfAbsent(file, HdfFile::new);
                     Dataset d = h.getDatasetByPath(ref.substring(colon + 1));
                     String cd = c + ", " + ref;
-                    assertArrayEquals(new int[] {box[1], box[0]}, d.getDimensions(), cd + ": [ny][nx]");
-                    assertArrayEquals(dims, ints(item.getAttribute("Dimensions")), cd + ": DataItem dimensions");
+                    if (layer < 0) {
+                        assertArrayEquals(new int[] {box[1], box[0]}, d.getDimensions(), cd + ": [ny][nx]");
+                        assertArrayEquals(dims, ints(item.getAttribute("Dimensions")), cd + ": DataItem dimensions");
+                    } else {
+                        double[] wavelengths = (double[]) h.getDatasetByPath("/wavelength_m").getData();
+                        assertArrayEquals(new int[] {wavelengths.length, box[1], box[0]}, d.getDimensions(), cd + ": [n][ny][nx]");
+                        assertArrayEquals(d.getDimensions(), ints(item.getAttribute("Dimensions")), cd + ": DataItem dimensions");
+                        assertEquals("wavelength_m", d.getAttribute("wavelength_index").getData(), cd + ": names its index");
+                        assertEquals(String.format(Locale.ROOT, "map at %.2f nm", wavelengths[layer] * 1e9), e.getAttribute("Name"),
+                                cd + ": the grid of layer " + layer + " is named after its wavelength");
+                    }
                     assertEquals(Integer.parseInt(item.getAttribute("Precision")), d.getDataType().getSize(), cd + ": precision");
                     assertArrayEquals(new double[] {x0, y0}, (double[]) d.getAttribute("origin_m").getData(), cell * TEXT_TOLERANCE,
                             cd + ": origin_m");
@@ -375,7 +396,7 @@ class FieldOutputRunTest {
                     if (a == 0) {
                         assertEquals(time, t, time * TEXT_TIME_TOLERANCE, c + ": frames.xmf Time is the first dataset's time_s");
                     }
-                    boolean electric = ((String) d.getAttribute("component").getData()).startsWith("e");
+                    boolean electric = ((String) d.getAttribute("component").getData()).startsWith("E_");
                     double expected = electric ? step * dt : (step - 0.5) * dt;
                     assertEquals(expected, time, dt * 1e-6, c + ": time_s (E at n dt, H at (n - 1/2) dt)");
                     assertTrue(Math.abs(time - FRAME_TIMES[n]) <= dt, c + ": within a step of the requested time");
@@ -384,7 +405,7 @@ class FieldOutputRunTest {
         }
         long steps = (long) number(section(completeRecord, "run"), "steps");
         try (HdfFile h = new HdfFile(complete.resolve("fields.h5"))) {
-            Dataset ex = h.getDatasetByPath("/Ex");
+            Dataset ex = h.getDatasetByPath("/E_x");
             assertEquals(steps, (long) number(ex, "step"), "fields.h5 after the last step");
             assertEquals(steps * dt, number(ex, "time_s"), dt * 1e-6, "fields.h5 Ex time");
         }
@@ -405,11 +426,12 @@ class FieldOutputRunTest {
     /**
      * Every permittivity dataset equals {@code glass} on nodes more than two cells below the face (y = 0),
      * {@code vacuum} more than two cells above it, and lies between the two everywhere; for p the normal
-     * component (eps_y) is averaged across the face, so some node near it is strictly between.
+     * component (relative_permittivity_y) is averaged across the face, so some node near it is strictly between.
      */
     private static void assertPermittivity(Path out, String pol, double glass, double vacuum, String context) throws IOException {
         try (HdfFile h = new HdfFile(out.resolve("permittivity.h5"))) {
-            List<String> names = pol.equals("s") ? List.of("eps_z") : List.of("eps_x", "eps_y");
+            List<String> names = pol.equals("s") ? List.of("relative_permittivity_z")
+                    : List.of("relative_permittivity_x", "relative_permittivity_y");
             for (String name : names) {
                 Dataset d = h.getDatasetByPath("/" + name);
                 double cell = number(d, "cell_size_m");
@@ -430,8 +452,8 @@ class FieldOutputRunTest {
                         }
                     }
                 }
-                if (name.equals("eps_y")) {
-                    assertTrue(between, context + ": eps_y averaged across the face");
+                if (name.equals("relative_permittivity_y")) {
+                    assertTrue(between, context + ": relative_permittivity_y averaged across the face");
                 }
             }
         }
@@ -443,44 +465,46 @@ class FieldOutputRunTest {
     }
 
     /**
-     * At every node and wavelength, E_magnitude equals √(Σ re² + im²) over the electric components (Ez for s;
-     * Ex, Ey for p), computed here from the stored parts.
+     * At every node and wavelength, E_magnitude equals √(Σ re² + im²) over the electric components (E_z for s;
+     * E_x, E_y for p), computed here from the stored parts; every stack has one layer per entry of wavelength_m.
      */
     private static void assertMagnitudeIsTheElectricNorm(Path maps, String pol, String context) throws IOException {
-        List<String> electric = pol.equals("s") ? List.of("Ez") : List.of("Ex", "Ey");
-        Pattern magnitude = Pattern.compile("E_magnitude_(.+nm)");
+        List<String> electric = pol.equals("s") ? List.of("E_z") : List.of("E_x", "E_y");
         int checked = 0;
         try (HdfFile h = new HdfFile(maps)) {
-            for (String key : new TreeSet<>(h.getChildren().keySet())) {
-                Matcher m = magnitude.matcher(key);
-                if (!m.matches()) {
-                    continue;
+            double[] wavelengths = (double[]) h.getDatasetByPath("/wavelength_m").getData();
+            double[] frequencies = (double[]) h.getDatasetByPath("/frequency_hz").getData();
+            assertEquals(wavelengths.length, frequencies.length, context + ": one frequency per wavelength");
+            for (int q = 0; q < wavelengths.length; q++) {
+                assertEquals(C0, wavelengths[q] * frequencies[q], C0 * 1e-15, context + ": wavelength_m times frequency_hz");
+            }
+            float[][][] mag = (float[][][]) h.getDatasetByPath("/E_magnitude").getData();
+            assertEquals(wavelengths.length, mag.length, context + ": E_magnitude has a layer per wavelength");
+            List<float[][][]> parts = new ArrayList<>();
+            for (String comp : electric) {
+                for (String part : List.of("real", "imaginary")) {
+                    parts.add((float[][][]) h.getDatasetByPath("/" + comp + "_" + part).getData());
                 }
-                float[][] mag = (float[][]) h.getDatasetByPath("/" + key).getData();
-                List<float[][]> parts = new ArrayList<>();
-                for (String comp : electric) {
-                    for (String part : List.of("real", "imag")) {
-                        parts.add((float[][]) h.getDatasetByPath("/" + comp + "_" + part + "_" + m.group(1)).getData());
-                    }
-                }
+            }
+            for (int q = 0; q < mag.length; q++) {
                 double peak = 0;
-                for (int j = 0; j < mag.length; j++) {
-                    for (int i = 0; i < mag[j].length; i++) {
+                for (int j = 0; j < mag[q].length; j++) {
+                    for (int i = 0; i < mag[q][j].length; i++) {
                         double sum = 0;
-                        for (float[][] p : parts) {
-                            sum += (double) p[j][i] * p[j][i];
+                        for (float[][][] p : parts) {
+                            sum += (double) p[q][j][i] * p[q][j][i];
                         }
                         double want = Math.sqrt(sum);
                         peak = Math.max(peak, want);
-                        assertEquals(want, mag[j][i], want * MAGNITUDE_TOLERANCE, String.format(Locale.ROOT,
-                                "%s, %s at node (%d, %d)", context, key, i, j));
+                        assertEquals(want, mag[q][j][i], want * MAGNITUDE_TOLERANCE, String.format(Locale.ROOT,
+                                "%s, E_magnitude at %.2f nm, node (%d, %d)", context, wavelengths[q] * 1e9, i, j));
                         checked++;
                     }
                 }
-                assertTrue(peak > 0, context + ": " + key + " is not all zero");
+                assertTrue(peak > 0, context + ": E_magnitude at layer " + q + " is not all zero");
             }
         }
-        assertTrue(checked > 0, context + ": no E_magnitude dataset in " + maps);
+        assertTrue(checked > 0, context + ": no E_magnitude values in " + maps);
     }
 
     // ---- an independent reader ----
@@ -510,7 +534,7 @@ class FieldOutputRunTest {
             def attrs(name, d, shape, origin):
                 a = d.attrs
                 check(d.shape == shape, '%s shape %s, expected %s' % (name, d.shape, shape))
-                check('unit' in a and text(a['unit']).startswith('V/m') or name.startswith(('eps', 'material')),
+                check('unit' in a and text(a['unit']).startswith('V/m') or name.startswith(('relative_permittivity', 'material')),
                       '%s unit %r' % (name, a.get('unit')))
                 check('cell_size_m' in a and close(float(a['cell_size_m']), cell), '%s cell_size_m %r' % (name, a.get('cell_size_m')))
                 check('origin_m' in a and len(a['origin_m']) == 2 and all(close(float(u), v) for u, v in zip(a['origin_m'], origin)),
@@ -518,19 +542,31 @@ class FieldOutputRunTest {
                 check('polarization' in a and text(a['polarization']) == pol, '%s polarization %r' % (name, a.get('polarization')))
             with h5py.File(frame, 'r') as f:
                 names = sorted(f.keys())
-                check(names == ['Ex', 'Ex_imag', 'Hz', 'Hz_imag'], 'frame datasets %s' % names)
+                check(names == ['E_x', 'E_x_imaginary', 'H_z', 'H_z_imaginary'], 'frame datasets %s' % names)
                 for name in names:
                     d = f[name]
                     check(d.dtype == np.dtype('<f4'), '%s dtype %s' % (name, d.dtype))
                     attrs(name, d, (ny, nx), fo)
+                    check(text(d.attrs['component']) == name[:3], '%s component %r' % (name, d.attrs['component']))
+                    check(text(d.attrs['part']) == ('imaginary' if name.endswith('_imaginary') else 'real'), name + ' part')
                     check(np.all(np.isfinite(d[...])), name + ' finite')
             with h5py.File(maps, 'r') as f:
                 names = sorted(f.keys())
-                check(len(names) == 3 * 7 + 3, 'maps datasets %s' % names)
-                for name in names:
+                stacks = ['E_magnitude'] + [c + p for c in ('E_x', 'E_y', 'H_z') for p in ('_imaginary', '_real')]
+                fixed = ['material_id', 'relative_permittivity_x', 'relative_permittivity_y']
+                check(names == sorted(stacks + fixed + ['frequency_hz', 'wavelength_m']), 'maps datasets %s' % names)
+                w = f['wavelength_m']
+                check(w.shape == (3,) and w.dtype == np.dtype('<f8') and text(w.attrs['unit']) == 'm', 'wavelength_m')
+                check(np.allclose(w[...], [630e-9, 633e-9, 636e-9], rtol=1e-12, atol=0), 'wavelength_m %r' % w[...])
+                check(text(f['frequency_hz'].attrs['unit']) == 'Hz', 'frequency_hz unit')
+                for name in stacks:
                     d = f[name]
-                    want = '<f8' if name in ('material_id', 'eps_x', 'eps_y') else '<f4'
-                    check(d.dtype == np.dtype(want), '%s dtype %s' % (name, d.dtype))
+                    check(d.dtype == np.dtype('<f4'), '%s dtype %s' % (name, d.dtype))
+                    attrs(name, d, (3, my, mx), mo)
+                    check(text(d.attrs['wavelength_index']) == 'wavelength_m', name + ' wavelength_index')
+                for name in fixed:
+                    d = f[name]
+                    check(d.dtype == np.dtype('<f8'), '%s dtype %s' % (name, d.dtype))
                     attrs(name, d, (my, mx), mo)
             print('OK' if not problems else 'FAILED: ' + '; '.join(problems))
             """;
@@ -577,10 +613,10 @@ class FieldOutputRunTest {
         }
     }
 
-    // ---- render ----
+    // ---- redraw ----
 
     @Test
-    void renderRedrawsThePicturesFromTheFiles() throws Exception {
+    void redrawRedrawsThePicturesFromTheFiles() throws Exception {
         Path dir = tmp.resolve("copy");
         copyTree(complete, dir);
         List<String> pictures = new ArrayList<>();
@@ -592,8 +628,8 @@ class FieldOutputRunTest {
         }
         // per wavelength Re Hz and log |E| (3 x 2), and per written component of fields (Hz, Ex)
         assertEquals(3 * 2 + 2, pictures.size(), "pictures of the run: " + pictures);
-        Cli.Outcome o = Cli.run("render", dir.toString());
-        assertEquals(0, o.code(), () -> "render: " + o);
+        Cli.Outcome o = Cli.run("redraw", dir.toString());
+        assertEquals(0, o.code(), () -> "redraw: " + o);
         for (String name : pictures) {
             Path p = dir.resolve(name);
             assertTrue(Files.isRegularFile(p), name + " recreated; " + o);
@@ -604,23 +640,62 @@ class FieldOutputRunTest {
         String log = "map-E-633.00nm-log.png";
         byte[] five = Files.readAllBytes(dir.resolve(log));
         Path two = tmp.resolve("two-decades");
-        Cli.Outcome o2 = Cli.run("render", dir.toString(), "--log-decades", "2", "--out", two.toString());
-        assertEquals(0, o2.code(), () -> "render --log-decades 2: " + o2);
+        Cli.Outcome o2 = Cli.run("redraw", dir.toString(), "--log-decades", "2", "--out", two.toString());
+        assertEquals(0, o2.code(), () -> "redraw --log-decades 2: " + o2);
         assertFalse(java.util.Arrays.equals(five, Files.readAllBytes(two.resolve(log))),
                 "--log-decades 2 draws another log picture than the case's 5 decades");
         Path bare = tmp.resolve("no-outlines");
-        Cli.Outcome o3 = Cli.run("render", dir.toString(), "--no-outlines", "--out", bare.toString());
-        assertEquals(0, o3.code(), () -> "render --no-outlines: " + o3);
+        Cli.Outcome o3 = Cli.run("redraw", dir.toString(), "--no-outlines", "--out", bare.toString());
+        assertEquals(0, o3.code(), () -> "redraw --no-outlines: " + o3);
         assertFalse(java.util.Arrays.equals(five, Files.readAllBytes(bare.resolve(log))),
                 "--no-outlines leaves out the glass-vacuum outline");
     }
 
     @Test
-    void renderRefusesAFolderWithoutHdf5() throws Exception {
+    void redrawRefusesAFolderWithoutHdf5() throws Exception {
         Path empty = Files.createDirectories(tmp.resolve("not-a-results-folder"));
-        Cli.Outcome o = Cli.run("render", empty.toString());
-        assertEquals(2, o.code(), () -> "render of a folder without maps.h5 or fields.h5: " + o);
+        Cli.Outcome o = Cli.run("redraw", empty.toString());
+        assertEquals(2, o.code(), () -> "redraw of a folder without maps.h5 or fields.h5: " + o);
         assertTrue(o.err().contains(empty.toString()), () -> "the message names the folder: " + o);
+    }
+
+    /** The old command name is refused with exit 2, a message naming redraw, and nothing drawn. */
+    @Test
+    void theOldNameRenderIsRefusedNamingRedraw() throws Exception {
+        Path dir = tmp.resolve("copy");
+        copyTree(complete, dir);
+        Cli.Outcome o = Cli.run("render", dir.toString(), "--log-decades", "2");
+        assertEquals(2, o.code(), () -> "render: " + o);
+        assertTrue(o.err().contains("'redraw'") && o.err().contains("evanesce redraw " + dir + " --log-decades 2"),
+                () -> "the message names the new command with the arguments given: " + o);
+        assertEquals(1, o.err().strip().lines().count(), () -> "one line: " + o);
+        Cli.Outcome bare = Cli.run("render");
+        assertEquals(2, bare.code(), () -> "render alone: " + bare);
+        assertTrue(bare.err().contains("evanesce redraw FOLDER"), () -> "render alone: " + bare);
+        Cli.Outcome none = Cli.run();
+        assertFalse(none.err().contains("render"), () -> "the old name is not offered: " + none);
+    }
+
+    /**
+     * A maps.h5 written before the datasets said what they hold (wavelength in the name) is refused with exit 2,
+     * naming the file and one of its old names.
+     */
+    @Test
+    void redrawRefusesFilesOfTheEarlierLayout() throws Exception {
+        Path dir = Files.createDirectories(tmp.resolve("earlier"));
+        Map<String, Object> a = new java.util.LinkedHashMap<>();
+        a.put("unit", "V/m s");
+        a.put("cell_size_m", 1e-8);
+        a.put("origin_m", new double[] {0, 0});
+        org.evanesce.io.output.hdf5.Hdf5Writer.write(dir.resolve("maps.h5"), Map.of(), List.of(
+                new org.evanesce.io.output.hdf5.FieldDataset("Ez_real_633.00nm", new double[12], 4, 3,
+                        org.evanesce.io.output.hdf5.Precision.SINGLE, a),
+                new org.evanesce.io.output.hdf5.FieldDataset("material_id", new double[12], 4, 3,
+                        org.evanesce.io.output.hdf5.Precision.DOUBLE, Map.of("log_decades", 5.0))));
+        Cli.Outcome o = Cli.run("redraw", dir.toString());
+        assertEquals(2, o.code(), () -> "redraw of an earlier maps.h5: " + o);
+        assertTrue(o.err().contains(dir.resolve("maps.h5").toString()) && o.err().contains("Ez_real_633.00nm")
+                && o.err().contains("run its case again"), () -> "names the file, the old name and what to do: " + o);
     }
 
     // ---- bad input ----

@@ -296,7 +296,7 @@ class FrameMemoryStudyTest {
         long regionNodes;
         try (io.jhdf.HdfFile h = new io.jhdf.HdfFile(out.resolve("frames").resolve(String.format(Locale.ROOT,
                 "frame-%09d.h5", STEPS)))) {
-            int[] dims = h.getDatasetByPath("/Ez").getDimensions();
+            int[] dims = h.getDatasetByPath("/E_z").getDimensions();
             regionNodes = (long) dims[0] * dims[1];
         }
         long frameBytes = (long) FRAME_BYTES_PER_VALUE * count * regionNodes;

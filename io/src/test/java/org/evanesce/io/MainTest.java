@@ -3,8 +3,11 @@ package org.evanesce.io;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.util.regex.Matcher;
-import java.util.regex.Pattern;
+import java.util.Arrays;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
 import org.junit.jupiter.api.Test;
 
 /** Runs the command line in-process and checks exit codes and output. */
@@ -60,13 +63,37 @@ class MainTest {
         }
     }
 
+    /**
+     * The bench's grid is a vacuum without conductivity, so each cell holds the three field components of its
+     * polarization and one update coefficient per electric component (the lossless Yee update; a second one,
+     * ca, exists only where cells have conductivity: common practice, K. S. Yee (1966), Taflove &amp; Hagness
+     * ch. 3): s (Ez, Hx, Hy; cb for Ez) 4 values, p (Hz, Ex, Ey; cb for Ex and Ey) 5 values, times 4 bytes in
+     * float and 8 in double: 16, 20, 32, 40 bytes per cell, as Simulation.predictBytesPerCell documents. The
+     * arrays held (bytes) cover at least the N x N grid at that size, plus the CPML's own arrays. A wrong count
+     * (the fields of the other polarization, a coefficient per cell in double in a float run, a lost
+     * component) changes the figure by 4 bytes or more. No timing is asserted.
+     */
     @Test
-    void benchReportsAPositiveRate() {
-        Cli.Outcome o = Cli.run("bench", "--size", "64", "--threads", "1", "--seconds", "0.2", "--warm-up", "0.2");
+    void benchReportsTheDocumentedBytesPerCell() {
+        Cli.Outcome o = Cli.run("bench", "--csv", "--size", "64", "--threads", "1", "--polarization", "s",
+                "--polarization", "p", "--precision", "float", "--precision", "double", "--seconds", "0.05",
+                "--warm-up", "0", "--repeats", "1");
         assertEquals(Main.OK, o.code(), o::toString);
-        Matcher m = Pattern.compile("(?m)^\\s+64x64\\s+s\\s+float\\s+1\\s+1\\s+\\S+\\s+(\\S+)\\s").matcher(o.out());
-        assertTrue(o.out().contains("Mcell/s") && m.find(), o::toString);
-        assertTrue(Double.parseDouble(m.group(1)) > 0, o::toString);
+        String[] lines = o.out().split("\\R");
+        assertEquals(5, lines.length, o::toString);
+        List<String> head = Arrays.asList(lines[0].split(","));
+        Map<String, Integer> documented = Map.of("s,float", 16, "p,float", 20, "s,double", 32, "p,double", 40);
+        Set<String> seen = new HashSet<>();
+        for (int r = 1; r < lines.length; r++) {
+            String[] cells = lines[r].split(",");
+            String key = cells[head.indexOf("polarization")] + "," + cells[head.indexOf("precision")];
+            int perCell = Integer.parseInt(cells[head.indexOf("bytes_per_cell")]);
+            long bytes = Long.parseLong(cells[head.indexOf("bytes")]);
+            assertEquals(documented.get(key), perCell, key + ": " + o);
+            assertTrue(bytes >= (long) perCell * 64 * 64, key + ": " + bytes + " bytes for a 64 x 64 grid: " + o);
+            seen.add(key);
+        }
+        assertEquals(documented.keySet(), seen, o::toString);
     }
 
     @Test
@@ -77,7 +104,7 @@ class MainTest {
         String[] lines = o.out().split("\\R");
         assertEquals(3, lines.length, o::toString);
         String[] head = lines[0].split(",");
-        int mcells = java.util.Arrays.asList(head).indexOf("mcells_per_s");
+        int mcells = Arrays.asList(head).indexOf("mcells_per_s");
         for (int r = 1; r < lines.length; r++) {
             String[] cells = lines[r].split(",");
             assertEquals(head.length, cells.length, o::toString);
@@ -95,8 +122,8 @@ class MainTest {
         assertEquals(3, lines.length, o::toString);
         assertTrue(lines[1].startsWith("64,s,float,1,1,") && lines[2].startsWith("64,s,float,2,2,"), o::toString);
         String[] head = lines[0].split(",");
-        int repeats = java.util.Arrays.asList(head).indexOf("repeats");
-        int fewer = java.util.Arrays.asList(head).indexOf("fewer_threads_percent");
+        int repeats = Arrays.asList(head).indexOf("repeats");
+        int fewer = Arrays.asList(head).indexOf("fewer_threads_percent");
         for (int r = 1; r < lines.length; r++) {
             String[] cells = lines[r].split(",");
             assertEquals("3", cells[repeats], o::toString);

@@ -356,6 +356,11 @@ public final class Simulation implements StepView, AutoCloseable {
     }
 
     @Override
+    public boolean complexFields() {
+        return engine.isComplex();
+    }
+
+    @Override
     public double fieldImag(Component c, int i, int j) {
         return engine.getImag(c, j * engine.nx() + i);
     }

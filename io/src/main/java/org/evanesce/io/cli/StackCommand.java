@@ -60,7 +60,17 @@ public final class StackCommand implements Callable<Integer> {
     @Spec
     private CommandSpec spec;
 
-    @Option(names = "--incident", required = true, paramLabel = "INDEX", converter = IndexConverter.class,
+    @Option(names = "--case", paramLabel = "FILE",
+            description = "Take the stack from a case file (its layers under its plane wave or beam, as "
+                    + "flux.transfer_matrix reads them, each material's index at each wavelength), and its design wavelength "
+                    + "and source angle as the defaults of --wavelength and --angle; instead of --incident, --layer, --exit.")
+    private java.nio.file.Path caseFile;
+
+    @Option(names = "--set", paramLabel = "NAME=VALUE", mapFallbackValue = "",
+            description = "With --case: override a parameter of the case, e.g. --set gap=250nm; repeat for several.")
+    private java.util.Map<String, String> overrides = new java.util.LinkedHashMap<>();
+
+    @Option(names = "--incident", paramLabel = "INDEX", converter = IndexConverter.class,
             description = "Index of the incidence medium (transparent: a real index).")
     private Complex incident;
 
@@ -68,18 +78,18 @@ public final class StackCommand implements Callable<Integer> {
             description = "A layer, e.g. 1.0:200nm; repeat for more, from the incidence side. Layers are numbered from 1.")
     private List<PlanarStack.Layer> layers = new ArrayList<>();
 
-    @Option(names = "--exit", required = true, paramLabel = "INDEX", converter = IndexConverter.class,
+    @Option(names = "--exit", paramLabel = "INDEX", converter = IndexConverter.class,
             description = "Index of the exit medium (may absorb).")
     private Complex exit;
 
-    @Option(names = "--wavelength", required = true, paramLabel = "LENGTH|FROM:TO:STEP", converter = LengthSweep.class,
+    @Option(names = "--wavelength", paramLabel = "LENGTH|FROM:TO:STEP", converter = LengthSweep.class,
             description = "Vacuum wavelength, e.g. 633nm, or a range 400nm:800nm:10nm (indices are taken as constant "
-                    + "over it).")
+                    + "over it, except a case's materials, evaluated at each wavelength).")
     private Sweep wavelength;
 
-    @Option(names = "--angle", paramLabel = "DEG|FROM:TO:STEP", converter = AngleSweep.class, defaultValue = "0",
+    @Option(names = "--angle", paramLabel = "DEG|FROM:TO:STEP", converter = AngleSweep.class,
             description = "Angle of incidence in the incidence medium, degrees in [0, 90), or a range 40:70:1 "
-                    + "(default: ${DEFAULT-VALUE}).")
+                    + "(default: 0, or the case's source angle).")
     private Sweep angle;
 
     @Option(names = "--thickness", paramLabel = "LAYER:FROM:TO:STEP", converter = ThicknessSweep.class,
@@ -118,6 +128,20 @@ public final class StackCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
+        java.util.function.DoubleFunction<PlanarStack> fromCase = caseFile == null ? null : fromCase(out);
+        if (fromCase == null) {
+            for (Object[] o : new Object[][] {{incident, "--incident"}, {exit, "--exit"}, {wavelength, "--wavelength"}}) {
+                if (o[0] == null) {
+                    throw usage("missing " + o[1] + " (or give --case FILE to take the stack from a case file)");
+                }
+            }
+            if (!overrides.isEmpty()) {
+                throw usage("--set overrides a case's parameters; give it with --case FILE");
+            }
+            if (angle == null) {
+                angle = new AngleSweep().convert("0");
+            }
+        }
         if (incident.im() != 0) {
             throw usage("--incident " + incident + ": the incidence medium must be transparent (a real index, k = 0): "
                     + "an angle of incidence and an incident power are only defined there");
@@ -144,7 +168,8 @@ public final class StackCommand implements Callable<Integer> {
             throw usage(String.format(Locale.ROOT, "--thickness %s: there is no layer %d; the stack has %d layer(s) "
                     + "(--layer), numbered from 1", thickness.text(), thickness.layer(), layers.size()));
         }
-        PlanarStack stack = new PlanarStack(incident.re(), layers, exit);
+        PlanarStack stack = fromCase != null ? fromCase.apply(wavelength.values().get(0))
+                : new PlanarStack(incident.re(), layers, exit);
         Variable variable = thickness != null ? Variable.THICKNESS : wavelength.isRange() ? Variable.WAVELENGTH
                 : Variable.ANGLE;
         List<Double> values = switch (variable) {
@@ -170,7 +195,8 @@ public final class StackCommand implements Callable<Integer> {
         // every row is computed before anything is printed, so a refused row leaves no partial table
         List<String> rows = new ArrayList<>();
         for (double value : values) {
-            PlanarStack st = variable == Variable.THICKNESS ? stack.withThickness(thickness.layer() - 1, value) : stack;
+            PlanarStack st = variable == Variable.THICKNESS ? stack.withThickness(thickness.layer() - 1, value)
+                    : variable == Variable.WAVELENGTH && fromCase != null ? fromCase.apply(value) : stack;
             double lambda = variable == Variable.WAVELENGTH ? value : wavelength.values().get(0);
             double theta = variable == Variable.ANGLE ? value : angle.values().get(0);
             List<String> row = new ArrayList<>();
@@ -200,6 +226,44 @@ public final class StackCommand implements Callable<Integer> {
         }
         rows.forEach(out::println);
         return Main.OK;
+    }
+
+    /**
+     * Reads the case's stack and sets the options it fills: the incidence and exit media and the layers (at the
+     * first wavelength), the wavelength and angle unless given. Prints which case and parameters were read.
+     */
+    private java.util.function.DoubleFunction<PlanarStack> fromCase(PrintWriter out) {
+        if (incident != null || exit != null || !layers.isEmpty()) {
+            throw usage("--case " + caseFile + " gives the stack; leave out --incident, --layer and --exit");
+        }
+        org.evanesce.io.plan.ExactStack e;
+        try {
+            e = org.evanesce.io.plan.ExactStack.of(org.evanesce.io.casefile.CaseReader.read(caseFile, overrides).spec());
+        } catch (java.nio.file.NoSuchFileException x) {
+            throw usage(caseFile + ": no such file");
+        } catch (java.io.IOException x) {
+            throw usage(caseFile + ": cannot read: " + x.getMessage());
+        } catch (org.evanesce.io.casefile.CaseFileException x) {
+            throw usage(String.join("\n", x.errors().stream().map(Object::toString).toList()));
+        } catch (org.evanesce.io.plan.PlanException x) {
+            throw usage(String.join("\n", x.diagnostics().stream().map(Object::toString).toList()));
+        }
+        if (wavelength == null) {
+            wavelength = new Sweep(Units.format(e.wavelength(), Dimension.LENGTH), List.of(e.wavelength()));
+        }
+        if (angle == null) {
+            angle = new Sweep(Units.number(Math.toDegrees(e.angle())), List.of(e.angle()));
+        }
+        PlanarStack first = e.stack().apply(wavelength.values().get(0));
+        incident = Complex.real(first.incidentIndex());
+        exit = first.exitIndex();
+        layers = new ArrayList<>(first.layers());
+        if (!csv) {
+            out.println("case: " + caseFile + (overrides.isEmpty() ? "" : " with " + overrides) + " (the layers under its "
+                    + "source, as flux.transfer_matrix reads them; the case's polarization is "
+                    + e.polarization().toString().toLowerCase(Locale.ROOT) + ")");
+        }
+        return e.stack();
     }
 
     /**

@@ -182,9 +182,13 @@ final class FluxPlanner {
      * edges are what the simulation adds). Either way the wave must be launched in the outermost
      * medium, transmitted lines lie in the last medium and reflected ones in the first.
      */
-    private static Optional<FluxPlan.Exact> transferMatrix(CaseSpec spec, GridSpec grid, SourceSpec.Launched w,
+    /**
+     * The exact stack under the case's plane wave or beam, with the flux lines checked against it when the case
+     * has a flux section (without one, as for a fit, only the stack is read; findings then point at the source).
+     */
+    static Optional<FluxPlan.Exact> transferMatrix(CaseSpec spec, GridSpec grid, SourceSpec.Launched w,
                                                           int[] interior, List<Diagnostic> errors) {
-        FluxSpec f = spec.flux().orElseThrow();
+        FluxSpec f = spec.flux().orElse(null);
         double dx = grid.cellSize();
         double yLow = grid.y0() + interior[1] * dx;
         double yHigh = grid.y0() + (interior[3] - 1) * dx;
@@ -198,7 +202,8 @@ final class FluxPlanner {
         } else {
             LayeredProfile.Result r = LayeredProfile.of(spec, grid.x0(), grid.x0() + grid.nx() * dx, yLow, yHigh, dx);
             if (!r.isLayered()) {
-                errors.add(new Diagnostic(Diagnostic.Severity.ERROR, f.transferMatrix().at(), path, "the scene is not layered (the "
+                errors.add(new Diagnostic(Diagnostic.Severity.ERROR, f != null ? f.transferMatrix().at() : w.at(),
+                        f != null ? path : "sources", "the scene is not layered (the "
                         + "same at every x across the domain), so it has no exact plane-wave answer: " + r.whyNot()
                         + "; expected horizontal layers (half_plane, layer_stack, or full-width rectangles) or "
                         + "transfer_matrix: false"));
@@ -218,7 +223,7 @@ final class FluxPlanner {
                     w instanceof SourceSpec.GaussianBeamSource ? ", under the beam at x = " + len(column) : "")));
             return Optional.empty();
         }
-        for (int k = 0; k < f.lines().size(); k++) {
+        for (int k = 0; f != null && k < f.lines().size(); k++) {
             FluxSpec.Line l = f.lines().get(k);
             boolean t = l.measures().value() == FluxSpec.Measure.TRANSMITTED;
             LayeredProfile.Band b = t ? last : first;

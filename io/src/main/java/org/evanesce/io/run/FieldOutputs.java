@@ -27,6 +27,10 @@ import org.evanesce.solver.record.StepView;
  * frame and one XDMF time series) and `permittivity`, all on the nodes of the output region, with
  * a PNG per component for `fields`. Attributes on every dataset: component, unit, cell size,
  * origin, time, polarization, and where the values sit (averaged onto the nodes).
+ *
+ * <p>Dataset names say what they hold (docs/outputs.md): a field component is {@code E_z}, {@code H_x},
+ * ... ({@link #datasetName}), the imaginary part of a complex (Bloch-periodic) field adds
+ * {@code _imaginary}, the permittivity at a component's sites is {@code relative_permittivity_z} (x, y).
  */
 public final class FieldOutputs {
 
@@ -35,10 +39,24 @@ public final class FieldOutputs {
         return c.electric ? "V/m" : "V/m (eta0*H)";
     }
 
+    /** "Ez", "Hx", ...: the component as pictures and titles write it. */
     static String name(Component c) {
         String n = c.name().toLowerCase(Locale.ROOT);
         return n.substring(0, 1).toUpperCase(Locale.ROOT) + n.substring(1);
     }
+
+    /** "E_z", "H_x", ...: the component's dataset name, also its {@code component} attribute. */
+    public static String datasetName(Component c) {
+        return c.name().substring(0, 1) + "_" + axis(c);
+    }
+
+    /** "x", "y" or "z": the component's axis. */
+    static String axis(Component c) {
+        return c.name().substring(1).toLowerCase(Locale.ROOT);
+    }
+
+    /** Suffix of the dataset holding the imaginary part of a complex field. */
+    static final String IMAGINARY = "_imaginary";
 
     private FieldOutputs() {
     }
@@ -52,7 +70,7 @@ public final class FieldOutputs {
 
     static Map<String, Object> attributes(CasePlan plan, GridSpec r, Component c, String quantity) {
         Map<String, Object> a = new LinkedHashMap<>();
-        a.put("component", c.name().toLowerCase(Locale.ROOT));
+        a.put("component", datasetName(c));
         a.put("quantity", quantity);
         a.put("unit", unit(c));
         a.put("cell_size_m", r.cellSize());
@@ -89,11 +107,13 @@ public final class FieldOutputs {
                 Map<String, Object> a = attributes(plan, r, comps.get(c), "field");
                 a.put("time_s", times[c]);
                 a.put("step", step);
-                FieldDataset d = new FieldDataset(name(comps.get(c)), re[c], r.nx(), r.ny(), Precision.SINGLE, a);
+                FieldDataset d = new FieldDataset(datasetName(comps.get(c)), re[c], r.nx(), r.ny(), Precision.SINGLE,
+                        part(a, im != null ? "real" : null));
                 sets.add(d);
                 attrs.add(Xdmf.Attribute.of(d.name(), "frames/" + file, d));
                 if (im != null) {
-                    FieldDataset di = new FieldDataset(name(comps.get(c)) + "_imag", im[c], r.nx(), r.ny(), Precision.SINGLE, a);
+                    FieldDataset di = new FieldDataset(datasetName(comps.get(c)) + IMAGINARY, im[c], r.nx(), r.ny(),
+                            Precision.SINGLE, part(a, "imaginary"));
                     sets.add(di);
                     attrs.add(Xdmf.Attribute.of(di.name(), "frames/" + file, di));
                 }
@@ -134,12 +154,12 @@ public final class FieldOutputs {
             Map<String, Object> a = attributes(plan, r, c, "field");
             a.put("time_s", v.time(c));
             a.put("step", v.stepCount());
-            FieldDataset d = new FieldDataset(name(c), nodes, r.nx(), r.ny(), Precision.SINGLE, a);
+            FieldDataset d = new FieldDataset(datasetName(c), nodes, r.nx(), r.ny(), Precision.SINGLE, part(a, bloch ? "real" : null));
             sets.add(d);
             attrs.add(Xdmf.Attribute.of(d.name(), "fields.h5", d));
             if (bloch) {
-                FieldDataset di = new FieldDataset(name(c) + "_imag", Nodes.average(c, rawIm, r.nx(), r.ny()), r.nx(), r.ny(),
-                        Precision.SINGLE, a);
+                FieldDataset di = new FieldDataset(datasetName(c) + IMAGINARY, Nodes.average(c, rawIm, r.nx(), r.ny()), r.nx(),
+                        r.ny(), Precision.SINGLE, part(a, "imaginary"));
                 sets.add(di);
                 attrs.add(Xdmf.Attribute.of(di.name(), "fields.h5", di));
             }
@@ -167,7 +187,28 @@ public final class FieldOutputs {
                 new Xdmf.Grid("permittivity", r.nx(), r.ny(), r.x0(), r.y0(), r.cellSize(), attrs))));
     }
 
-    /** εr on the grid at each electric component's sites over the box, averaged onto the nodes: eps_z (s); eps_x, eps_y (p). */
+    /**
+     * With Bloch-periodic sides the fields are complex: {@code part} "real" or "imaginary" is added to a copy
+     * of {@code a} (the physical field is the real part); null leaves {@code a} as it is.
+     */
+    static Map<String, Object> part(Map<String, Object> a, String part) {
+        if (part == null) {
+            return a;
+        }
+        Map<String, Object> out = new LinkedHashMap<>(a);
+        out.put("part", part);
+        return out;
+    }
+
+    /** Name of the permittivity at component {@code c}'s sites: {@code relative_permittivity_z} (x, y). */
+    static String permittivityName(Component c) {
+        return "relative_permittivity_" + axis(c);
+    }
+
+    /**
+     * εr on the grid at each electric component's sites over the box, averaged onto the nodes:
+     * relative_permittivity_z (s); relative_permittivity_x, relative_permittivity_y (p).
+     */
     static List<FieldDataset> permittivity(CasePlan plan, int[] box, String quantity) {
         GridSpec r = regionGrid(plan, box);
         List<FieldDataset> out = new ArrayList<>();
@@ -184,7 +225,7 @@ public final class FieldOutputs {
             }
             Map<String, Object> a = attributes(plan, r, c, quantity);
             a.put("unit", "1");
-            out.add(new FieldDataset("eps_" + c.name().substring(1).toLowerCase(Locale.ROOT),
+            out.add(new FieldDataset(permittivityName(c),
                     Nodes.average(c, eps, r.nx(), r.ny()), r.nx(), r.ny(), Precision.DOUBLE, a));
         }
         return out;

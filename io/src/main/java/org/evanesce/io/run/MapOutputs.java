@@ -10,7 +10,10 @@ import java.util.Map;
 import org.evanesce.geometry.GridSpec;
 import org.evanesce.io.casefile.MapsSpec;
 import org.evanesce.io.casefile.SourceSpec;
+import org.evanesce.io.output.hdf5.AxisDataset;
 import org.evanesce.io.output.hdf5.FieldDataset;
+import org.evanesce.io.output.hdf5.FieldStack;
+import org.evanesce.io.output.hdf5.Hdf5Dataset;
 import org.evanesce.io.output.hdf5.Hdf5Writer;
 import org.evanesce.io.output.hdf5.Precision;
 import org.evanesce.io.output.hdf5.Xdmf;
@@ -27,7 +30,8 @@ import org.evanesce.solver.reference.DecayFit;
 
 /**
  * The frequency-domain maps of a run: maps.h5 (real and imaginary parts of every component at each
- * frequency, averaged onto the nodes, and |E|), maps.xmf, the pictures, and the decay-length fits.
+ * frequency, averaged onto the nodes, and |E|, each a stack over the wavelengths that the index dataset
+ * {@code wavelength_m} names), maps.xmf, the pictures, and the decay-length fits.
  */
 public final class MapOutputs {
 
@@ -45,41 +49,64 @@ public final class MapOutputs {
      */
     public record Decay(String name, double wavelength, DecayFit fit, double planeWave, String problem) { }
 
-    /** Writes the maps and their pictures into {@code dir}; returns the decay fits. */
+    /** Name of the index dataset of maps.h5: the vacuum wavelength of each layer of the map stacks, m. */
+    public static final String WAVELENGTH = "wavelength_m";
+    /** Name of the index dataset of maps.h5: the frequency of each layer, Hz. */
+    public static final String FREQUENCY = "frequency_hz";
+    /** Name of the stack of |E| in maps.h5. */
+    public static final String MAGNITUDE = "E_magnitude";
+
+    /** The dataset names of a component's transform: "E_z_real", "E_z_imaginary". */
+    public static String partName(Component c, boolean real) {
+        return FieldOutputs.datasetName(c) + (real ? "_real" : FieldOutputs.IMAGINARY);
+    }
+
+    /** The wavelength as picture file names carry it: "633.00nm". */
+    public static String pictureTag(double wavelength) {
+        return String.format(Locale.ROOT, "%.2fnm", wavelength * 1e9);
+    }
+
+    /**
+     * Writes the maps and their pictures into {@code dir}; returns the decay fits. maps.h5 holds each
+     * component's transform as two stacks, {@code E_z_real} and {@code E_z_imaginary} (shape
+     * {@code [wavelengths][ny][nx]}), |E| as the stack {@code E_magnitude}, the index datasets
+     * {@code wavelength_m} and {@code frequency_hz} that give each layer's wavelength and frequency, the
+     * permittivity and {@code material_id}.
+     */
     public static List<Decay> write(CasePlan plan, Path dir) throws IOException {
         FieldPlan.Maps maps = plan.fields().maps().orElseThrow();
         FieldMap fm = maps.map();
         int[] box = maps.box();
         GridSpec r = FieldOutputs.regionGrid(plan, box);
         Polarization pol = plan.spec().polarization().value();
+        List<Component> comps = List.of(pol.components());
         int[] ids = FieldOutputs.ids(plan, box);
-        List<FieldDataset> sets = new ArrayList<>();
-        List<Xdmf.Grid> grids = new ArrayList<>();
+        int count = fm.frequencyCount();
+        double[] frequencies = new double[count];
+        double[] wavelengths = new double[count];
+        List<List<double[]>> real = new ArrayList<>();
+        List<List<double[]>> imag = new ArrayList<>();
+        for (int c = 0; c < comps.size(); c++) {
+            real.add(new ArrayList<>());
+            imag.add(new ArrayList<>());
+        }
+        List<double[]> magnitudes = new ArrayList<>();
         List<Decay> decays = new ArrayList<>();
         double decades = maps.spec().logDecades().si();
-        // the permittivity beside the maps, once for all frequencies
-        List<FieldDataset> permittivity = FieldOutputs.permittivity(plan, box, "relative permittivity on the grid");
-        sets.addAll(permittivity);
-        for (int q = 0; q < fm.frequencyCount(); q++) {
+        for (int q = 0; q < count; q++) {
             double f = fm.frequency(q);
             double wl = PhysicalConstants.C0 / f;
-            String tag = String.format(Locale.ROOT, "%.2fnm", wl * 1e9);
-            List<Xdmf.Attribute> attrs = new ArrayList<>();
+            frequencies[q] = f;
+            wavelengths[q] = wl;
+            String tag = pictureTag(wl);
             double[] e2 = new double[r.nx() * r.ny()];
-            for (Component c : pol.components()) {
+            for (int ci = 0; ci < comps.size(); ci++) {
+                Component c = comps.get(ci);
                 double[][] t = fm.transform(c, q);
                 double[] re = Nodes.average(c, t[0], r.nx(), r.ny());
                 double[] im = Nodes.average(c, t[1], r.nx(), r.ny());
-                for (String part : List.of("real", "imag")) {
-                    Map<String, Object> a = FieldOutputs.attributes(plan, r, c, "Fourier transform, " + part + " part");
-                    a.put("unit", FieldOutputs.unit(c) + " s");
-                    a.put("frequency_hz", f);
-                    a.put("wavelength_m", wl);
-                    FieldDataset d = new FieldDataset(FieldOutputs.name(c) + "_" + part + "_" + tag, part.equals("real") ? re : im,
-                            r.nx(), r.ny(), Precision.SINGLE, a);
-                    sets.add(d);
-                    attrs.add(Xdmf.Attribute.of(FieldOutputs.name(c) + "_" + part, "maps.h5", d));
-                }
+                real.get(ci).add(re);
+                imag.get(ci).add(im);
                 if (c.electric) {
                     for (int k = 0; k < e2.length; k++) {
                         e2[k] += re[k] * re[k] + im[k] * im[k];
@@ -91,22 +118,11 @@ public final class MapOutputs {
                             .writePng(dir.resolve("map-" + c.name().toLowerCase(Locale.ROOT) + "-" + tag + ".png"));
                 }
             }
-            for (FieldDataset eps : permittivity) {
-                attrs.add(Xdmf.Attribute.of(eps.name(), "maps.h5", eps));
-            }
             double[] mag = new double[e2.length];
             for (int k = 0; k < e2.length; k++) {
                 mag[k] = Math.sqrt(e2[k]);
             }
-            Map<String, Object> a = FieldOutputs.attributes(plan, r, pol == Polarization.S ? Component.EZ : Component.EX,
-                    "magnitude of the transformed electric field |E|");
-            a.put("unit", "V/m s");
-            a.put("frequency_hz", f);
-            a.put("wavelength_m", wl);
-            FieldDataset d = new FieldDataset("E_magnitude_" + tag, mag, r.nx(), r.ny(), Precision.SINGLE, a);
-            sets.add(d);
-            attrs.add(Xdmf.Attribute.of("E_magnitude", "maps.h5", d));
-            grids.add(new Xdmf.Grid("map " + tag, r.nx(), r.ny(), r.x0(), r.y0(), r.cellSize(), attrs));
+            magnitudes.add(mag);
             FieldPicture.of(mag, r, "E", "V/m s", FieldPicture.Quantity.MAGNITUDE).outlines(ids).logScale(decades)
                     .title(String.format(Locale.ROOT, "|E| at %.2f nm, log scale", wl * 1e9))
                     .writePng(dir.resolve("map-E-" + tag + "-log.png"));
@@ -118,10 +134,51 @@ public final class MapOutputs {
                 }
             }
         }
+        List<Hdf5Dataset> sets = new ArrayList<>();
+        sets.add(new AxisDataset(WAVELENGTH, wavelengths, Map.of("quantity", "vacuum wavelength of each map", "unit", "m")));
+        sets.add(new AxisDataset(FREQUENCY, frequencies, Map.of("quantity", "frequency of each map", "unit", "Hz")));
+        List<FieldStack> stacks = new ArrayList<>();
+        for (int ci = 0; ci < comps.size(); ci++) {
+            Component c = comps.get(ci);
+            for (boolean isReal : new boolean[] {true, false}) {
+                String part = isReal ? "real" : "imaginary";
+                Map<String, Object> a = stackAttributes(plan, r, c, "Fourier transform, " + part + " part", FieldOutputs.unit(c) + " s");
+                a.put("part", part);
+                stacks.add(new FieldStack(partName(c, isReal), isReal ? real.get(ci) : imag.get(ci), r.nx(), r.ny(),
+                        Precision.SINGLE, a));
+            }
+        }
+        stacks.add(new FieldStack(MAGNITUDE, magnitudes, r.nx(), r.ny(), Precision.SINGLE, stackAttributes(plan, r,
+                pol == Polarization.S ? Component.EZ : Component.EX, "magnitude of the transformed electric field |E|", "V/m s")));
+        sets.addAll(stacks);
+        // the permittivity beside the maps, once for all wavelengths
+        List<FieldDataset> permittivity = FieldOutputs.permittivity(plan, box, "relative permittivity on the grid");
+        sets.addAll(permittivity);
         sets.add(FieldOutputs.materialIds(plan, box, Map.of("log_decades", decades)));
+        List<Xdmf.Grid> grids = new ArrayList<>();
+        for (int q = 0; q < count; q++) {
+            List<Xdmf.Attribute> attrs = new ArrayList<>();
+            for (FieldStack st : stacks) {
+                attrs.add(Xdmf.Attribute.of(st.name(), "maps.h5", st, q));
+            }
+            for (FieldDataset eps : permittivity) {
+                attrs.add(Xdmf.Attribute.of(eps.name(), "maps.h5", eps));
+            }
+            grids.add(new Xdmf.Grid(String.format(Locale.ROOT, "map at %.2f nm", wavelengths[q] * 1e9), r.nx(), r.ny(), r.x0(),
+                    r.y0(), r.cellSize(), attrs));
+        }
         Hdf5Writer.write(dir.resolve("maps.h5"), FieldOutputs.fileAttributes(plan), sets);
         FieldOutputs.writeText(dir.resolve("maps.xmf"), Xdmf.spatial("frequency-domain maps", grids));
         return decays;
+    }
+
+    /** A stack's attributes: those of a field dataset, and what indexes its first axis. */
+    private static Map<String, Object> stackAttributes(CasePlan plan, GridSpec r, Component c, String quantity, String unit) {
+        Map<String, Object> a = FieldOutputs.attributes(plan, r, c, quantity);
+        a.put("unit", unit);
+        a.put("axes", "wavelength, y, x");
+        a.put("wavelength_index", WAVELENGTH);
+        return a;
     }
 
     /** |E| sampled every cell along the line (bilinear between nodes), fitted by A e^{−s/L}. */

@@ -118,6 +118,11 @@ final class BlochPair extends Engine {
     }
 
     @Override
+    public boolean isComplex() {
+        return true;
+    }
+
+    @Override
     public double getImag(Component c, int k) {
         return im.get(c, k);
     }

@@ -437,6 +437,11 @@ public abstract class Engine {
     /** Overwrites a component at flat cell index k (for initial conditions and tests). */
     public abstract void set(Component c, int k, double v);
 
+    /** Whether the fields are complex (a Bloch-periodic pair); a real engine's imaginary parts are all zero. */
+    public boolean isComplex() {
+        return false;
+    }
+
     /** The imaginary part of a component at flat cell index k: zero for a real engine. */
     public double getImag(Component c, int k) {
         return 0.0;

@@ -91,6 +91,9 @@ public record BeamProfile(double total, double centroid, double width, double[] 
 
     /** Where the first cell's electric field sits, metres. */
     static double firstSite(FluxLine line, double cellSize, double originX) {
+        if (line.isVertical()) {
+            throw new IllegalArgumentException("a beam profile is taken across a horizontal line; this one is vertical");
+        }
         return originX + (line.firstCell() + line.electricComponent().dx) * cellSize;
     }
 

@@ -119,6 +119,7 @@ public final class FieldMap implements StatefulListener {
             sinH[q] = Math.sin(omega[q] * th) * wh;
         }
         int w = i1 - i0;
+        boolean complex = v.complexFields();
         for (int j = j0; j < j1; j++) {
             int row = (j - j0) * w;
             for (int c = 0; c < components.length; c++) {
@@ -127,7 +128,11 @@ public final class FieldMap implements StatefulListener {
                 double[] b = rowIm[c];
                 for (int i = i0; i < i1; i++) {
                     a[i - i0] = v.field(comp, i, j);
-                    b[i - i0] = v.fieldImag(comp, i, j);
+                }
+                if (complex) {
+                    for (int i = i0; i < i1; i++) {
+                        b[i - i0] = v.fieldImag(comp, i, j);
+                    }
                 }
             }
             for (int c = 0; c < components.length; c++) {
@@ -142,6 +147,14 @@ public final class FieldMap implements StatefulListener {
                     }
                     double[] xr = re[c][q];
                     double[] xi = im[c][q];
+                    if (!complex) {
+                        // real fields: the imaginary parts are zero, and so are their products
+                        for (int k = 0; k < w; k++) {
+                            xr[row + k] += a[k] * cs;
+                            xi[row + k] += a[k] * sn;
+                        }
+                        continue;
+                    }
                     for (int k = 0; k < w; k++) {
                         xr[row + k] += a[k] * cs - b[k] * sn;
                         xi[row + k] += a[k] * sn + b[k] * cs;

@@ -5,8 +5,12 @@ import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
 
 /**
- * Running discrete Fourier transforms of the tangential fields on a horizontal line, and the
- * Poynting flux through it per frequency (time dependence exp(−iωt), DESIGN.md).
+ * Running discrete Fourier transforms of the tangential fields on a horizontal (or vertical) line,
+ * and the Poynting flux through it per frequency (time dependence exp(−iωt), DESIGN.md).
+ *
+ * <p>A vertical line ({@link #vertical}) is the same with x and y exchanged: at x = (col + ½)Δ,
+ * Hy(col, j) with Ez averaged over columns col and col + 1 (s), Hz(col, j) with Ey averaged over
+ * them (p); its flux is along +x: S_x = −½ Re(Ez Hy*) for s, +½ Re(Ey Hz*) for p.
  *
  * <p>The line lies at y = (row + ½)Δ, where the magnetic component that pairs with the
  * electric one sits: for s, Hx(i, row) with Ez averaged over rows row and row + 1; for p,
@@ -39,6 +43,7 @@ public final class FluxLine implements StatefulListener {
     private final Component e;
     private final Component h;
     private final double sign;
+    private final boolean vertical;
     private final int row;
     private final int i0;
     private final int i1;
@@ -63,13 +68,28 @@ public final class FluxLine implements StatefulListener {
      * @param frequencies in Hz
      */
     public FluxLine(Polarization pol, int row, int i0, int i1, double... frequencies) {
+        this(pol, false, row, i0, i1, frequencies);
+    }
+
+    /**
+     * A vertical line at x = (col + ½)Δ over the cells j0 ≤ j &lt; j1, measuring the flux along +x.
+     *
+     * @param col needs col + 1 &lt; nx
+     */
+    public static FluxLine vertical(Polarization pol, int col, int j0, int j1, double... frequencies) {
+        return new FluxLine(pol, true, col, j0, j1, frequencies);
+    }
+
+    private FluxLine(Polarization pol, boolean vertical, int row, int i0, int i1, double... frequencies) {
         if (i1 <= i0 || row < 0) {
-            throw new IllegalArgumentException(String.format("flux line cells [%d, %d) at row %d: need i0 < i1, row >= 0",
-                    i0, i1, row));
+            throw new IllegalArgumentException(String.format("flux line cells [%d, %d) at %s %d: need a first cell below the "
+                    + "last and a non-negative %s", i0, i1, vertical ? "column" : "row", row, vertical ? "column" : "row"));
         }
-        e = pol == Polarization.S ? Component.EZ : Component.EX;
-        h = pol == Polarization.S ? Component.HX : Component.HZ;
-        sign = pol == Polarization.S ? 1.0 : -1.0;
+        boolean s = pol == Polarization.S;
+        e = s ? Component.EZ : vertical ? Component.EY : Component.EX;
+        h = s ? vertical ? Component.HY : Component.HX : Component.HZ;
+        sign = s == !vertical ? 1.0 : -1.0;
+        this.vertical = vertical;
         this.row = row;
         this.i0 = i0;
         this.i1 = i1;
@@ -114,13 +134,24 @@ public final class FluxLine implements StatefulListener {
         eSamples += eIn ? 1 : 0;
         hSamples += hIn ? 1 : 0;
         // read the line once per step, then accumulate every frequency from the copies
-        for (int i = i0; i < i1; i++) {
-            int k = i - i0;
-            ea[k] = 0.5 * (v.field(e, i, row) + v.field(e, i, row + 1));
-            eb[k] = 0.5 * (v.fieldImag(e, i, row) + v.fieldImag(e, i, row + 1));
-            ha[k] = v.field(h, i, row);
-            hb[k] = v.fieldImag(h, i, row);
+        if (vertical) {
+            for (int j = i0; j < i1; j++) {
+                int k = j - i0;
+                ea[k] = 0.5 * (v.field(e, row, j) + v.field(e, row + 1, j));
+                eb[k] = 0.5 * (v.fieldImag(e, row, j) + v.fieldImag(e, row + 1, j));
+                ha[k] = v.field(h, row, j);
+                hb[k] = v.fieldImag(h, row, j);
+            }
+        } else {
+            for (int i = i0; i < i1; i++) {
+                int k = i - i0;
+                ea[k] = 0.5 * (v.field(e, i, row) + v.field(e, i, row + 1));
+                eb[k] = 0.5 * (v.fieldImag(e, i, row) + v.fieldImag(e, i, row + 1));
+                ha[k] = v.field(h, i, row);
+                hb[k] = v.fieldImag(h, i, row);
+            }
         }
+        boolean complex = v.complexFields();
         double dt = v.dt();
         double we = eIn ? dt : 0;
         double wh = hIn ? dt : 0;
@@ -134,6 +165,16 @@ public final class FluxLine implements StatefulListener {
             double[] ei = eIm[q];
             double[] hr = hRe[q];
             double[] hi = hIm[q];
+            if (!complex) {
+                // real fields: the imaginary parts are zero, and so are their products (half the work)
+                for (int k = 0; k < ea.length; k++) {
+                    er[k] += ea[k] * ce;
+                    ei[k] += ea[k] * se;
+                    hr[k] += ha[k] * ch;
+                    hi[k] += ha[k] * sh;
+                }
+                continue;
+            }
             for (int k = 0; k < ea.length; k++) {
                 er[k] += ea[k] * ce - eb[k] * se;
                 ei[k] += ea[k] * se + eb[k] * ce;
@@ -197,9 +238,14 @@ public final class FluxLine implements StatefulListener {
         return i1 - i0;
     }
 
-    /** The line lies at y = (row + ½)Δ. */
+    /** The line lies at y = (row + ½)Δ (a vertical line: at x = (row + ½)Δ, see {@link #isVertical}). */
     public int row() {
         return row;
+    }
+
+    /** Whether the line is vertical (its cells run along y and its flux is along +x). */
+    public boolean isVertical() {
+        return vertical;
     }
 
     /** The electric component transformed; its site's x offset ({@link Component#dx}) places cell i at x = (i + dx)Δ. */

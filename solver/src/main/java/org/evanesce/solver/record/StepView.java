@@ -31,6 +31,14 @@ public interface StepView {
     /** Cell size Δ, metres. */
     double cellSize();
 
+    /**
+     * Whether the fields are complex (Bloch-periodic sides); when false every {@link #fieldImag} is zero and
+     * recorders may leave the imaginary parts out of their work.
+     */
+    default boolean complexFields() {
+        return false;
+    }
+
     /** A component's value at node (i, j) (its site is offset per {@link Component}); the real part if complex. */
     double field(Component c, int i, int j);
 

@@ -22,7 +22,7 @@ import java.util.Map;
  * @param attributes the dataset's attributes, in the order they are written
  */
 public record FieldDataset(String name, double[] values, int nx, int ny, Precision precision,
-        Map<String, Object> attributes) {
+        Map<String, Object> attributes) implements Hdf5Dataset {
 
     /** @throws IllegalArgumentException naming the dataset and the value at fault */
     public FieldDataset {
@@ -59,7 +59,7 @@ public record FieldDataset(String name, double[] values, int nx, int ny, Precisi
         return new FieldDataset(name, wide, nx, ny, Precision.SINGLE, attributes);
     }
 
-    /** Bytes the values take in the file. */
+    @Override
     public long storedBytes() {
         return (long) nx * ny * precision.bytes();
     }

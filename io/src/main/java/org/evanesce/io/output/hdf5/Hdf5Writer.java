@@ -15,12 +15,12 @@ import java.util.Set;
 import org.evanesce.io.output.SafeFiles;
 
 /**
- * Writes 2D field datasets to one HDF5 file with jhdf, atomically.
+ * Writes field datasets to one HDF5 file with jhdf, atomically.
  *
  * <p>Layout: every dataset sits in the root group under its name, contiguous (no chunking or
- * compression), with shape {@code [ny][nx]}: the slowest axis is y, the fastest x, so element
- * {@code [j][i]} is the value at x index i and y index j ({@code values[j*nx + i]} of the
- * {@link FieldDataset}). {@link Precision#SINGLE} is stored as {@code H5T_IEEE_F32LE},
+ * compression). A {@link FieldDataset} has shape {@code [ny][nx]}: the slowest axis is y, the fastest x,
+ * so element {@code [j][i]} is the value at x index i and y index j ({@code values[j*nx + i]}); a
+ * {@link FieldStack} has shape {@code [n][ny][nx]}, layer k first; an {@link AxisDataset} is 1D float64. {@link Precision#SINGLE} is stored as {@code H5T_IEEE_F32LE},
  * {@link Precision#DOUBLE} as {@code H5T_IEEE_F64LE}. Attributes are written as jhdf writes them:
  * strings as fixed-length UTF-8, {@code Double}/{@code double[]} as float64 scalar/1D,
  * {@code Integer} as int32, {@code Long} as int64. jhdf adds a root attribute {@code _jHDF} with
@@ -56,12 +56,12 @@ public final class Hdf5Writer {
      * @throws IOException if the target is a folder, its folder is missing, or writing or renaming
      *         fails; the target is then unchanged and no temporary is left
      */
-    public static void write(Path target, Map<String, Object> rootAttributes, List<FieldDataset> datasets)
+    public static void write(Path target, Map<String, Object> rootAttributes, List<? extends Hdf5Dataset> datasets)
             throws IOException {
         write(target, rootAttributes, datasets, temporary -> { });
     }
 
-    static void write(Path target, Map<String, Object> rootAttributes, List<FieldDataset> datasets,
+    static void write(Path target, Map<String, Object> rootAttributes, List<? extends Hdf5Dataset> datasets,
             BeforeRename beforeRename) throws IOException {
         if (target == null || datasets == null) {
             throw new IllegalArgumentException("target and datasets must not be null");
@@ -71,14 +71,14 @@ public final class Hdf5Writer {
         Object[] arrays = new Object[datasets.size()];
         Set<String> names = new HashSet<>();
         for (int k = 0; k < arrays.length; k++) {
-            FieldDataset d = datasets.get(k);
+            Hdf5Dataset d = datasets.get(k);
             if (d == null) {
                 throw new IllegalArgumentException("dataset " + k + " of " + abs + " is null");
             }
             if (!names.add(d.name())) {
                 throw new IllegalArgumentException("dataset name " + d.name() + " appears twice in " + abs);
             }
-            arrays[k] = d.precision() == Precision.SINGLE ? floatRows(d) : doubleRows(d);
+            arrays[k] = array(d);
         }
         Path dir = abs.getParent();
         if (dir == null || !Files.isDirectory(dir)) {
@@ -94,7 +94,7 @@ public final class Hdf5Writer {
                     file.putAttribute(e.getKey(), e.getValue());
                 }
                 for (int k = 0; k < arrays.length; k++) {
-                    FieldDataset d = datasets.get(k);
+                    Hdf5Dataset d = datasets.get(k);
                     WritableDataset ds = file.putDataset(d.name(), arrays[k]);
                     for (Map.Entry<String, Object> e : d.attributes().entrySet()) {
                         ds.putAttribute(e.getKey(), e.getValue());
@@ -133,6 +133,30 @@ public final class Hdf5Writer {
             }
             throw e;
         }
+    }
+
+    /** The values in jhdf's layout: float[][] or double[][] for a field, [][][] for a stack, double[] for an axis. */
+    private static Object array(Hdf5Dataset d) {
+        if (d instanceof AxisDataset a) {
+            return a.values();
+        }
+        if (d instanceof FieldStack s) {
+            int n = s.layers().size();
+            if (s.precision() == Precision.SINGLE) {
+                float[][][] out = new float[n][][];
+                for (int k = 0; k < n; k++) {
+                    out[k] = floatRows(s.layer(k));
+                }
+                return out;
+            }
+            double[][][] out = new double[n][][];
+            for (int k = 0; k < n; k++) {
+                out[k] = doubleRows(s.layer(k));
+            }
+            return out;
+        }
+        FieldDataset f = (FieldDataset) d;
+        return f.precision() == Precision.SINGLE ? floatRows(f) : doubleRows(f);
     }
 
     private static float[][] floatRows(FieldDataset d) {

@@ -15,6 +15,10 @@ import java.util.Set;
  * it is given the cell size rather than 0 so that no reader sees a degenerate cell. A 2D field so
  * described lands in the viewer's XY plane, node (i, j) at (x0 + i·d, y0 + j·d).
  *
+ * <p>A layer of a {@link FieldStack} (shape {@code [n][ny][nx]}) is selected with an XDMF
+ * {@code HyperSlab} data item whose first child holds start, stride and count (slowest axis first)
+ * and whose second names the whole 3D dataset.
+ *
  * <p>Documents are returned as strings (UTF-8 XML, all names escaped); write them next to the HDF5
  * files, since file names in them are relative to the {@code .xmf} file's folder.
  */
@@ -73,14 +77,18 @@ public final class Xdmf {
     }
 
     /**
-     * One node-centred scalar field stored in an HDF5 file.
+     * One node-centred scalar field stored in an HDF5 file: a whole 2D dataset, or one layer of a
+     * {@link FieldStack} (an XDMF {@code HyperSlab} of the 3D dataset: start {@code layer 0 0},
+     * stride {@code 1 1 1}, count {@code 1 ny nx}).
      *
      * @param name      the field's name shown by viewers
      * @param file      the HDF5 file, relative to the folder of the {@code .xmf} file, '/' separated; no ':'
-     * @param dataset   the dataset's path in that file, e.g. {@code /Ez} (a leading '/' is added if missing)
+     * @param dataset   the dataset's path in that file, e.g. {@code /E_z} (a leading '/' is added if missing)
      * @param precision 4 (float32) or 8 (float64), as stored
+     * @param layer     the layer of a 3D dataset, from 0; -1 for a 2D dataset
+     * @param layers    the 3D dataset's layer count, above {@code layer}; 0 for a 2D dataset
      */
-    public record Attribute(String name, String file, String dataset, int precision) {
+    public record Attribute(String name, String file, String dataset, int precision, int layer, int layers) {
 
         /** @throws IllegalArgumentException naming the attribute and the value at fault */
         public Attribute {
@@ -102,11 +110,30 @@ public final class Xdmf {
                 throw new IllegalArgumentException("XDMF attribute " + name + ": precision " + precision
                         + " must be 4 (float32) or 8 (float64)");
             }
+            if (!(layer == -1 && layers == 0) && !(layer >= 0 && layer < layers)) {
+                throw new IllegalArgumentException("XDMF attribute " + name + ": layer " + layer + " of " + layers
+                        + "; expected -1 of 0 (a 2D dataset) or 0 <= layer < layers");
+            }
         }
 
-        /** The attribute for a dataset written by {@link Hdf5Writer} to {@code file}. */
+        /** A whole 2D dataset. */
+        public Attribute(String name, String file, String dataset, int precision) {
+            this(name, file, dataset, precision, -1, 0);
+        }
+
+        /** The attribute for a 2D dataset written by {@link Hdf5Writer} to {@code file}. */
         public static Attribute of(String name, String file, FieldDataset dataset) {
             return new Attribute(name, file, dataset.name(), dataset.precision().bytes());
+        }
+
+        /** The attribute for layer {@code layer} of a stack written by {@link Hdf5Writer} to {@code file}. */
+        public static Attribute of(String name, String file, FieldStack stack, int layer) {
+            return new Attribute(name, file, stack.name(), stack.precision().bytes(), layer, stack.layers().size());
+        }
+
+        /** Whether this is one layer of a 3D dataset. */
+        public boolean isLayer() {
+            return layer >= 0;
         }
     }
 
@@ -189,9 +216,20 @@ public final class Xdmf {
         for (Attribute a : g.attributes()) {
             s.append("        <Attribute Name=\"").append(escape(a.name()))
                     .append("\" AttributeType=\"Scalar\" Center=\"Node\">\n");
-            s.append("          <DataItem Format=\"HDF\" NumberType=\"Float\" Precision=\"").append(a.precision())
-                    .append("\" Dimensions=\"").append(dims).append("\">")
-                    .append(escape(a.file())).append(':').append(escape(a.dataset())).append("</DataItem>\n");
+            if (a.isLayer()) {
+                s.append("          <DataItem ItemType=\"HyperSlab\" Type=\"HyperSlab\" Dimensions=\"").append(dims).append("\">\n");
+                s.append("            <DataItem Format=\"XML\" NumberType=\"Int\" Dimensions=\"3 3\">")
+                        .append(a.layer()).append(" 0 0 1 1 1 1 ").append(g.ny()).append(' ').append(g.nx())
+                        .append("</DataItem>\n");
+                s.append("            <DataItem Format=\"HDF\" NumberType=\"Float\" Precision=\"").append(a.precision())
+                        .append("\" Dimensions=\"").append(a.layers()).append(' ').append(g.ny()).append(' ').append(g.nx())
+                        .append("\">").append(escape(a.file())).append(':').append(escape(a.dataset())).append("</DataItem>\n");
+                s.append("          </DataItem>\n");
+            } else {
+                s.append("          <DataItem Format=\"HDF\" NumberType=\"Float\" Precision=\"").append(a.precision())
+                        .append("\" Dimensions=\"").append(dims).append("\">")
+                        .append(escape(a.file())).append(':').append(escape(a.dataset())).append("</DataItem>\n");
+            }
             s.append("        </Attribute>\n");
         }
         s.append("      </Grid>\n");

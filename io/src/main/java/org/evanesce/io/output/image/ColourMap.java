@@ -12,9 +12,15 @@ import java.util.List;
  *   <li>{@link #LUMEN}, {@linkplain Kind#SEQUENTIAL sequential}: lightness rises steadily from a
  *       dark indigo through blue, teal and sage to a pale cream, for quantities with a natural
  *       bottom such as relative permittivity and intensity;</li>
- *   <li>{@link #TILT}, {@linkplain Kind#DIVERGING diverging}: a deep blue for the most negative
- *       value, near white at zero and a deep red for the most positive, with the same lightness at
- *       t and 1 − t, for signed fields.</li>
+ *   <li>{@link #SHOAL}, {@linkplain Kind#DIVERGING diverging}, for signed fields: a deep sea teal
+ *       for the most negative value through a pale warm parchment at zero to a deep burnt amber for
+ *       the most positive. Construction: five anchors in Oklab (L, C, h), interpolated linearly in
+ *       (L, a, b): teal (0.38, 0.062, 210°), light teal (0.68, 0.080, 198°), parchment (0.955, 0.008,
+ *       90°), amber (0.68, 0.115, 68°), burnt amber (0.38, 0.080, 48°). The lightness is the same at
+ *       t and 1 − t (so neither sign looks stronger) and rises to the middle on both sides, each
+ *       chroma is the largest (to two figures) that keeps every entry inside the sRGB gamut, and the
+ *       two hue families sit roughly opposite in hue so that the sign reads even in grey-ish
+ *       print; missing values are a violet (0.60, 0.16, 320°) that no entry comes near.</li>
  * </ul>
  * Each map also names a {@linkplain #missingColour() colour for missing values} (NaN) that is far
  * from every colour of the map.
@@ -65,14 +71,14 @@ public final class ColourMap {
             new ControlPoint(1.00, 0.96, 0.040, 92)),
             new ControlPoint(0, 0.62, 0.220, 338));
 
-    /** Diverging map for signed fields, symmetric about its middle (see the class comment). */
-    public static final ColourMap TILT = new ColourMap("tilt", Kind.DIVERGING, List.of(
-            new ControlPoint(0.00, 0.36, 0.120, 262),
-            new ControlPoint(0.25, 0.67, 0.100, 248),
-            new ControlPoint(0.50, 0.97, 0.000, 0),
-            new ControlPoint(0.75, 0.67, 0.120, 38),
-            new ControlPoint(1.00, 0.36, 0.125, 26)),
-            new ControlPoint(0, 0.72, 0.170, 140));
+    /** Diverging map for signed fields, teal through parchment to amber (see the class comment). */
+    public static final ColourMap SHOAL = new ColourMap("shoal", Kind.DIVERGING, List.of(
+            new ControlPoint(0.00, 0.38, 0.062, 210),
+            new ControlPoint(0.25, 0.68, 0.080, 198),
+            new ControlPoint(0.50, 0.955, 0.008, 90),
+            new ControlPoint(0.75, 0.68, 0.115, 68),
+            new ControlPoint(1.00, 0.38, 0.080, 48)),
+            new ControlPoint(0, 0.60, 0.160, 320));
 
     private final String name;
     private final Kind kind;

@@ -11,7 +11,7 @@ import org.evanesce.geometry.MaterialGrid;
  * the values are:
  * <ul>
  *   <li>{@link Quantity#REAL}, a signed component such as Ez at one instant: the diverging
- *       {@link ColourMap#TILT} over ±max|v|, so zero is the map's middle colour; bar label
+ *       {@link ColourMap#SHOAL} over ±max|v|, so zero is the map's middle colour; bar label
  *       "Ez (V/m)";</li>
  *   <li>{@link Quantity#MAGNITUDE}, values ≥ 0 such as |Ez| of a phasor: the sequential
  *       {@link ColourMap#LUMEN} from the minimum to the maximum; bar label "|Ez| (V/m)";</li>
@@ -143,7 +143,7 @@ public final class FieldPicture {
 
     /** The colour map the picture uses. */
     public ColourMap colourMap() {
-        return quantity == Quantity.REAL && Double.isNaN(logDecades) ? ColourMap.TILT : ColourMap.LUMEN;
+        return quantity == Quantity.REAL && Double.isNaN(logDecades) ? ColourMap.SHOAL : ColourMap.LUMEN;
     }
 
     /** Builds the heat map. */

@@ -43,8 +43,12 @@ import org.evanesce.geometry.MaterialGrid;
  * pixel column or bottom pixel row. On reduced grids a pixel is outlined when any cell of its
  * k × k block has a left or lower neighbour of another id (boundaries along the block's own left
  * and bottom sides included), so a straight boundary is still a one-pixel line. Each outline pixel
- * is dark over light colours and light over dark ones ({@link #outlineColour}), so it reads on both
- * ends of every map.
+ * is drawn dashed ({@link #onDash}: {@value #DASH_ON} pixels on, then off up to {@value #DASH_PERIOD},
+ * counted along x for an outline pixel with an outline pixel beside it in its row, else along y, so
+ * horizontal, vertical and stepped lines are all dashed) and semi-transparent: a
+ * dark grey laid over light colours, a light grey over dark ones, each at {@value #OUTLINE_OPACITY}
+ * opacity ({@link #outlineColour}), so the field stays visible under the line and the line reads on
+ * both ends of every map.
  *
  * <p>Text is drawn with {@link PixelFont}, so nothing depends on installed fonts; the picture is
  * built in a {@link BufferedImage} of type {@code TYPE_INT_RGB} and written with
@@ -69,10 +73,16 @@ public final class Heatmap {
     public static final int MAX_PLOT_SIDE = 1000;
     /** Oklab lightness of a drawn colour from which its outline is dark rather than light. */
     static final double OUTLINE_SWITCH = 0.6;
-    /** Outline over light colours. */
-    static final int OUTLINE_DARK = 0x141414;
-    /** Outline over dark colours. */
-    static final int OUTLINE_LIGHT = 0xffffff;
+    /** Outline ink over light colours: a dark grey. */
+    static final int OUTLINE_DARK = 0x262626;
+    /** Outline ink over dark colours: a light grey. */
+    static final int OUTLINE_LIGHT = 0xf2f2f2;
+    /** Opacity of the outline ink over the colour under it (sRGB components blended). */
+    static final double OUTLINE_OPACITY = 0.75;
+    /** Length of one dash and the gap after it, pixels. */
+    static final int DASH_PERIOD = 6;
+    /** Pixels drawn of each dash period. */
+    static final int DASH_ON = 4;
 
     private final double[] doubles;
     private final float[] floats;
@@ -220,9 +230,24 @@ public final class Heatmap {
         return logDecades;
     }
 
-    /** The outline colour drawn over a pixel of colour {@code under} (0xRRGGBB). */
+    /**
+     * The outline colour drawn over a pixel of colour {@code under} (0xRRGGBB): {@link #OUTLINE_DARK} or
+     * {@link #OUTLINE_LIGHT}, chosen by the lightness under it, blended over it at {@link #OUTLINE_OPACITY}.
+     */
     static int outlineColour(int under) {
-        return Oklab.fromRgb(under)[0] >= OUTLINE_SWITCH ? OUTLINE_DARK : OUTLINE_LIGHT;
+        int ink = Oklab.fromRgb(under)[0] >= OUTLINE_SWITCH ? OUTLINE_DARK : OUTLINE_LIGHT;
+        int out = 0;
+        for (int shift = 16; shift >= 0; shift -= 8) {
+            double u = (under >> shift) & 0xff;
+            double o = (ink >> shift) & 0xff;
+            out |= (int) Math.round(OUTLINE_OPACITY * o + (1 - OUTLINE_OPACITY) * u) << shift;
+        }
+        return out;
+    }
+
+    /** Whether an outline pixel at plot position {@code along} (x or y, see the class comment) is drawn. */
+    static boolean onDash(int along) {
+        return along % DASH_PERIOD < DASH_ON;
     }
 
     /** Where everything goes; package-private for tests. */

@@ -444,7 +444,12 @@ final class HeatmapLayout {
             for (int py = 0; py < plotHeight; py++) {
                 int row = py * plotWidth;
                 for (int px = 0; px < plotWidth; px++) {
-                    if (outline[row + px]) {
+                    if (!outline[row + px]) {
+                        continue;
+                    }
+                    // dashes run along x on a line that continues in this row, else along y (Heatmap's class comment)
+                    boolean inRow = px > 0 && outline[row + px - 1] || px + 1 < plotWidth && outline[row + px + 1];
+                    if (Heatmap.onDash(inRow ? px : py)) {
                         int x = plot.x() + px;
                         int y = plot.y() + py;
                         c.set(x, y, Heatmap.outlineColour(c.get(x, y)));

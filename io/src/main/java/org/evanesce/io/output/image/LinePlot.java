@@ -413,6 +413,38 @@ public final class LinePlot {
         return PngFile.write(render(), file);
     }
 
+    /**
+     * Writes several plots one above the other as one PNG file (e.g. a fit over its residuals),
+     * atomically like {@link #writePng(Path)}.
+     *
+     * @return the absolute path written
+     */
+    public static Path writeStacked(Path file, LinePlot... panels) throws IOException {
+        List<BufferedImage> images = new ArrayList<>();
+        int width = 0;
+        int height = 0;
+        for (LinePlot p : panels) {
+            BufferedImage img = p.render();
+            images.add(img);
+            width = Math.max(width, img.getWidth());
+            height += img.getHeight();
+        }
+        BufferedImage all = new BufferedImage(width, height, BufferedImage.TYPE_INT_RGB);
+        java.awt.Graphics2D g = all.createGraphics();
+        try {
+            g.setColor(java.awt.Color.WHITE);
+            g.fillRect(0, 0, width, height);
+            int y = 0;
+            for (BufferedImage img : images) {
+                g.drawImage(img, 0, y, null);
+                y += img.getHeight();
+            }
+        } finally {
+            g.dispose();
+        }
+        return PngFile.write(all, file);
+    }
+
     private static int oklch(double lightness, double chroma, double hueDegrees) {
         double h = Math.toRadians(hueDegrees);
         return Oklab.pack(Oklab.toSrgb(lightness, chroma * Math.cos(h), chroma * Math.sin(h)));

@@ -64,7 +64,7 @@ class Hdf5WriterTest {
         return a;
     }
 
-    /** Ez single, Hy double with NaN and -inf, Eps from floats: the file {@link #writeSample} writes. */
+    /** E_z single, H_y double with NaN and -inf, relative_permittivity_z from floats: the file {@link #writeSample} writes. */
     static List<FieldDataset> sampleDatasets() {
         double[] hy = ramp(NX, NY, 0.3);
         hy[5] = Double.NaN;
@@ -74,9 +74,9 @@ class Hdf5WriterTest {
             eps[k] = 1f + k / 3f;
         }
         return List.of(
-                new FieldDataset("Ez", ramp(NX, NY, 0.1), NX, NY, Precision.SINGLE, fieldAttributes("Ez", "V/m", 1.25e-15)),
-                new FieldDataset("Hy", hy, NX, NY, Precision.DOUBLE, fieldAttributes("Hy", "A/m", 1.25e-15)),
-                FieldDataset.ofFloats("Eps", eps, NX, NY, Map.of("unit", "1")));
+                new FieldDataset("E_z", ramp(NX, NY, 0.1), NX, NY, Precision.SINGLE, fieldAttributes("E_z", "V/m", 1.25e-15)),
+                new FieldDataset("H_y", hy, NX, NY, Precision.DOUBLE, fieldAttributes("H_y", "A/m", 1.25e-15)),
+                FieldDataset.ofFloats("relative_permittivity_z", eps, NX, NY, Map.of("unit", "1")));
     }
 
     @Test
@@ -86,7 +86,7 @@ class Hdf5WriterTest {
         Hdf5Writer.write(f, rootAttributes(), sets);
         try (HdfFile h = new HdfFile(f)) {
             assertAttributes("root", rootAttributes(), h.getAttributes(), true);
-            assertEquals(List.of("Eps", "Ez", "Hy"), new TreeSet<>(h.getChildren().keySet()).stream().toList());
+            assertEquals(List.of("E_z", "H_y", "relative_permittivity_z"), new TreeSet<>(h.getChildren().keySet()).stream().toList());
             for (FieldDataset d : sets) {
                 String c = d.name() + " (" + NX + "x" + NY + ", " + d.precision() + ")";
                 Dataset ds = h.getDatasetByPath("/" + d.name());
@@ -107,10 +107,61 @@ class Hdf5WriterTest {
                     }
                 }
             }
-            float[][] eps = (float[][]) h.getDatasetByPath("/Eps").getData();
+            float[][] eps = (float[][]) h.getDatasetByPath("/relative_permittivity_z").getData();
             assertEquals(1f + (2 * NX + 4) / 3f, eps[2][4], "ofFloats keeps the given floats, at [j][i]");
         }
         assertEquals(List.of("frame.h5"), names(), "no temporary left beside the file");
+    }
+
+    /** Wavelengths indexing {@link #sampleStack}'s layers, m. */
+    static final double[] WAVELENGTHS = {630e-9, 633e-9, 636e-9};
+
+    /** A stack E_z_real of three layers, layer k holding i + 100 j + 1000 k + 0.1, and its index wavelength_m. */
+    static List<Hdf5Dataset> sampleStack() {
+        return sampleStack(NX, NY);
+    }
+
+    /** As {@link #sampleStack()}, nx by ny. */
+    static List<Hdf5Dataset> sampleStack(int nx, int ny) {
+        List<double[]> layers = new java.util.ArrayList<>();
+        for (int k = 0; k < WAVELENGTHS.length; k++) {
+            layers.add(ramp(nx, ny, 1000.0 * k + 0.1));
+        }
+        Map<String, Object> a = fieldAttributes("E_z", "V/m s", 0.0);
+        a.put("wavelength_index", "wavelength_m");
+        return List.of(new AxisDataset("wavelength_m", WAVELENGTHS, Map.of("unit", "m")),
+                new FieldStack("E_z_real", layers, nx, ny, Precision.SINGLE, a));
+    }
+
+    @Test
+    void aStackAndItsIndexReadBackWithJhdf() throws Exception {
+        Path f = tmp.resolve("maps.h5");
+        List<Hdf5Dataset> sets = sampleStack();
+        Hdf5Writer.write(f, Map.of(), sets);
+        try (HdfFile h = new HdfFile(f)) {
+            Dataset w = h.getDatasetByPath("/wavelength_m");
+            assertArrayEquals(new int[] {WAVELENGTHS.length}, w.getDimensions(), "wavelength_m is 1D");
+            assertArrayEquals(WAVELENGTHS, (double[]) w.getData(), 0.0, "wavelength_m values");
+            assertEquals("m", w.getAttribute("unit").getData());
+            Dataset s = h.getDatasetByPath("/E_z_real");
+            assertArrayEquals(new int[] {WAVELENGTHS.length, NY, NX}, s.getDimensions(), "stack shape [layers][ny][nx]");
+            assertEquals(4, s.getDataType().getSize(), "float32");
+            assertAttributes("E_z_real", sets.get(1).attributes(), s.getAttributes(), false);
+            float[][][] v = (float[][][]) s.getData();
+            for (int k = 0; k < WAVELENGTHS.length; k++) {
+                for (int j = 0; j < NY; j++) {
+                    for (int i = 0; i < NX; i++) {
+                        assertEquals((float) (i + 100 * j + 1000 * k + 0.1), v[k][j][i], "E_z_real[" + k + "][" + j + "][" + i + "]");
+                    }
+                }
+            }
+        }
+        assertThrows(IllegalArgumentException.class, () -> new FieldStack("E_z_real", List.of(new double[NX * NY], new double[3]),
+                NX, NY, Precision.SINGLE, Map.of()), "a layer of the wrong size");
+        assertThrows(IllegalArgumentException.class, () -> new FieldStack("E_z_real", List.of(), NX, NY, Precision.SINGLE,
+                Map.of()), "no layers");
+        assertThrows(IllegalArgumentException.class, () -> new AxisDataset("wavelength_m", new double[0], Map.of()), "no values");
+        assertThrows(IllegalArgumentException.class, () -> new AxisDataset("633.00nm/x", WAVELENGTHS, Map.of()), "a path as name");
     }
 
     private static void assertAttributes(String where, Map<String, Object> want, Map<String, Attribute> got, boolean root) {
@@ -134,20 +185,20 @@ class Hdf5WriterTest {
     @Test
     void aValueArrayOfTheWrongLengthIsRefusedBeforeAnythingIsWritten() {
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
-                () -> new FieldDataset("Ez", new double[NX * NY - 1], NX, NY, Precision.DOUBLE, Map.of()));
+                () -> new FieldDataset("E_z", new double[NX * NY - 1], NX, NY, Precision.DOUBLE, Map.of()));
         assertTrue(e.getMessage().contains("20 values") && e.getMessage().contains("7*3"), e.getMessage());
         assertThrows(IllegalArgumentException.class,
                 () -> new FieldDataset("a/b", new double[1], 1, 1, Precision.DOUBLE, Map.of()), "name with '/'");
         assertThrows(IllegalArgumentException.class,
-                () -> new FieldDataset("Ez", new double[1], 1, 1, Precision.DOUBLE, Map.of("x", 1.5f)), "Float attribute");
+                () -> new FieldDataset("E_z", new double[1], 1, 1, Precision.DOUBLE, Map.of("x", 1.5f)), "Float attribute");
         assertThrows(IllegalArgumentException.class,
-                () -> new FieldDataset("Ez", new double[1], 1, 1, Precision.DOUBLE, Map.of("x", new double[0])));
+                () -> new FieldDataset("E_z", new double[1], 1, 1, Precision.DOUBLE, Map.of("x", new double[0])));
     }
 
     @Test
     void invalidInputLeavesNoFileAndKeepsTheOldOne() throws Exception {
         Path f = tmp.resolve("frame.h5");
-        FieldDataset ez = new FieldDataset("Ez", ramp(NX, NY, 0.1), NX, NY, Precision.DOUBLE, Map.of());
+        FieldDataset ez = new FieldDataset("E_z", ramp(NX, NY, 0.1), NX, NY, Precision.DOUBLE, Map.of());
         assertThrows(IllegalArgumentException.class, () -> Hdf5Writer.write(f, Map.of(), List.of(ez, ez)), "repeated name");
         assertEquals(List.of(), names(), "nothing written for repeated names");
 
@@ -155,7 +206,7 @@ class Hdf5WriterTest {
         byte[] before = Files.readAllBytes(f);
         double[] huge = ramp(NX, NY, 0.1);
         huge[10] = 1e39;
-        FieldDataset overflow = new FieldDataset("Ez", huge, NX, NY, Precision.SINGLE, Map.of());
+        FieldDataset overflow = new FieldDataset("E_z", huge, NX, NY, Precision.SINGLE, Map.of());
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
                 () -> Hdf5Writer.write(f, Map.of(), List.of(overflow)));
         assertTrue(e.getMessage().contains("i = 3, j = 1"), "names the cell: " + e.getMessage());
@@ -167,7 +218,7 @@ class Hdf5WriterTest {
 
     @Test
     void anUnwritableTargetLeavesNothing() throws Exception {
-        FieldDataset ez = new FieldDataset("Ez", ramp(NX, NY, 0.1), NX, NY, Precision.DOUBLE, Map.of());
+        FieldDataset ez = new FieldDataset("E_z", ramp(NX, NY, 0.1), NX, NY, Precision.DOUBLE, Map.of());
         Path folder = Files.createDirectory(tmp.resolve("taken.h5"));
         assertThrows(IOException.class, () -> Hdf5Writer.write(folder, Map.of(), List.of(ez)), "target is a folder");
         assertTrue(Files.isDirectory(folder));
@@ -179,7 +230,7 @@ class Hdf5WriterTest {
     @Test
     void aFailureAfterJhdfClosedTheFileDeletesTheTemporaryAndKeepsTheOldFile() throws Exception {
         Path f = tmp.resolve("frame.h5");
-        FieldDataset old = new FieldDataset("Ez", ramp(NX, NY, 0.1), NX, NY, Precision.DOUBLE, Map.of());
+        FieldDataset old = new FieldDataset("E_z", ramp(NX, NY, 0.1), NX, NY, Precision.DOUBLE, Map.of());
         Hdf5Writer.write(f, Map.of(), List.of(old));
         byte[] before = Files.readAllBytes(f);
         List<Path> seen = new java.util.ArrayList<>();
@@ -188,7 +239,7 @@ class Hdf5WriterTest {
                 seen.add(t);
                 assertEquals(tmp, t.getParent(), "temporary in the target's folder");
                 try (HdfFile h = new HdfFile(t)) {
-                    assertArrayEquals(new int[] {NY, NX}, h.getDatasetByPath("/Hy").getDimensions(),
+                    assertArrayEquals(new int[] {NY, NX}, h.getDatasetByPath("/H_y").getDimensions(),
                             "the temporary is complete before the rename");
                 }
                 assertArrayEquals(before, Files.readAllBytes(f), "target untouched while writing");

@@ -37,20 +37,20 @@ class XdmfTest {
     Path tmp;
 
     /**
-     * Writes three frames (Ez float32, Hy float64) as frame-00000N.h5 and returns the temporal
-     * XDMF document describing them; values are i + 100 j + 1000 n (+0.5 for Hy) for frame n.
+     * Writes three frames (E_z float32, H_y float64) as frame-00000N.h5 and returns the temporal
+     * XDMF document describing them; values are i + 100 j + 1000 n (+0.5 for H_y) for frame n.
      */
     static String writeSeries(Path dir) throws Exception {
         List<Xdmf.Grid> frames = new ArrayList<>();
         for (int n = 0; n < TIMES.length; n++) {
             String file = String.format("frame-%06d.h5", n);
-            FieldDataset ez = new FieldDataset("Ez", Hdf5WriterTest.ramp(NX, NY, 1000.0 * n), NX, NY, Precision.SINGLE,
+            FieldDataset ez = new FieldDataset("E_z", Hdf5WriterTest.ramp(NX, NY, 1000.0 * n), NX, NY, Precision.SINGLE,
                     Map.of("unit", "V/m", "time", TIMES[n]));
-            FieldDataset hy = new FieldDataset("Hy", Hdf5WriterTest.ramp(NX, NY, 1000.0 * n + 0.5), NX, NY,
+            FieldDataset hy = new FieldDataset("H_y", Hdf5WriterTest.ramp(NX, NY, 1000.0 * n + 0.5), NX, NY,
                     Precision.DOUBLE, Map.of("unit", "A/m", "time", TIMES[n]));
             Hdf5Writer.write(dir.resolve(file), Map.of("frame", n), List.of(ez, hy));
             frames.add(new Xdmf.Grid("frame " + n, TIMES[n], NX, NY, X0, Y0, CELL,
-                    List.of(Xdmf.Attribute.of("Ez", file, ez), Xdmf.Attribute.of("Hy", file, hy))));
+                    List.of(Xdmf.Attribute.of("E_z", file, ez), Xdmf.Attribute.of("H_y", file, hy))));
         }
         return Xdmf.temporal("fields", frames);
     }
@@ -87,23 +87,23 @@ class XdmfTest {
     }
 
     /**
-     * Writes dft.h5 (Ez_re, Ez_im: float64, NX x NY, values i + 100 j + 0.1 and + 0.2) and
-     * maps/eps.h5 (eps: float32, one node more each way, half a cell lower left) and returns the
+     * Writes dft.h5 (E_z_real, E_z_imaginary: float64, NX x NY, values i + 100 j + 0.1 and + 0.2) and
+     * maps/eps.h5 (relative_permittivity_z: float32, one node more each way, half a cell lower left) and returns the
      * spatial XDMF document describing them.
      */
     static String writeMaps(Path dir) throws Exception {
-        FieldDataset re = new FieldDataset("Ez_re", Hdf5WriterTest.ramp(NX, NY, 0.1), NX, NY, Precision.DOUBLE, Map.of());
-        FieldDataset im = new FieldDataset("Ez_im", Hdf5WriterTest.ramp(NX, NY, 0.2), NX, NY, Precision.DOUBLE, Map.of());
+        FieldDataset re = new FieldDataset("E_z_real", Hdf5WriterTest.ramp(NX, NY, 0.1), NX, NY, Precision.DOUBLE, Map.of());
+        FieldDataset im = new FieldDataset("E_z_imaginary", Hdf5WriterTest.ramp(NX, NY, 0.2), NX, NY, Precision.DOUBLE, Map.of());
         Hdf5Writer.write(dir.resolve("dft.h5"), Map.of("frequency", 3.0e14), List.of(re, im));
-        FieldDataset eps = new FieldDataset("eps", Hdf5WriterTest.ramp(NX + 1, NY + 1, 0.0), NX + 1, NY + 1,
+        FieldDataset eps = new FieldDataset("relative_permittivity_z", Hdf5WriterTest.ramp(NX + 1, NY + 1, 0.0), NX + 1, NY + 1,
                 Precision.SINGLE, Map.of());
         Files.createDirectories(dir.resolve("maps"));
         Hdf5Writer.write(dir.resolve("maps/eps.h5"), Map.of(), List.of(eps));
         return Xdmf.spatial("maps at 300 THz", List.of(
-                new Xdmf.Grid("Ez", NX, NY, X0, Y0, CELL,
-                        List.of(Xdmf.Attribute.of("Re Ez", "dft.h5", re), Xdmf.Attribute.of("Im Ez", "dft.h5", im))),
+                new Xdmf.Grid("E_z", NX, NY, X0, Y0, CELL,
+                        List.of(Xdmf.Attribute.of("E_z_real", "dft.h5", re), Xdmf.Attribute.of("E_z_imaginary", "dft.h5", im))),
                 new Xdmf.Grid("permittivity", NX + 1, NY + 1, X0 - CELL / 2, Y0 - CELL / 2, CELL,
-                        List.of(Xdmf.Attribute.of("eps", "maps/eps.h5", eps)))));
+                        List.of(Xdmf.Attribute.of("relative_permittivity_z", "maps/eps.h5", eps)))));
     }
 
     @Test
@@ -156,6 +156,54 @@ class XdmfTest {
         }
     }
 
+    /**
+     * Writes maps.h5 ({@link Hdf5WriterTest#sampleStack}, NX by NY: E_z_real of three layers and wavelength_m) and returns a
+     * spatial XDMF document with one grid per layer, each naming its layer of the stack.
+     */
+    static String writeStack(Path dir) throws Exception {
+        List<Hdf5Dataset> sets = Hdf5WriterTest.sampleStack(NX, NY);
+        Hdf5Writer.write(dir.resolve("maps.h5"), Map.of(), sets);
+        FieldStack stack = (FieldStack) sets.get(1);
+        List<Xdmf.Grid> grids = new ArrayList<>();
+        for (int k = 0; k < stack.layers().size(); k++) {
+            grids.add(new Xdmf.Grid("map " + k, NX, NY, X0, Y0, CELL,
+                    List.of(Xdmf.Attribute.of("E_z_real", "maps.h5", stack, k))));
+        }
+        return Xdmf.spatial("maps", grids);
+    }
+
+    @Test
+    void aLayerOfAStackIsAHyperSlabOfTheStoredDataset() throws Exception {
+        String xml = writeStack(tmp);
+        Element collection = only(only(parse(xml).getDocumentElement(), "Domain"), "Grid");
+        List<Element> grids = children(collection, "Grid");
+        int nx = NX;
+        int ny = NY;
+        int layers = Hdf5WriterTest.WAVELENGTHS.length;
+        assertEquals(layers, grids.size(), "one grid per layer");
+        try (HdfFile h = new HdfFile(tmp.resolve("maps.h5"))) {
+            Dataset d = h.getDatasetByPath("/E_z_real");
+            float[][][] stored = (float[][][]) d.getData();
+            for (int k = 0; k < layers; k++) {
+                String c = "grid " + k;
+                Element slab = only(only(grids.get(k), "Attribute"), "DataItem");
+                assertEquals("HyperSlab", slab.getAttribute("ItemType"), c);
+                assertArrayEquals(new int[] {1, ny, nx}, ints(slab.getAttribute("Dimensions")), c + ": one Z layer of the topology");
+                List<Element> parts = children(slab, "DataItem");
+                assertEquals(2, parts.size(), c + ": selection and data");
+                int[] sel = ints(parts.get(0).getTextContent());
+                assertArrayEquals(new int[] {k, 0, 0, 1, 1, 1, 1, ny, nx}, sel, c + ": start, stride, count");
+                assertEquals("HDF", parts.get(1).getAttribute("Format"), c);
+                assertArrayEquals(d.getDimensions(), ints(parts.get(1).getAttribute("Dimensions")), c + ": the stored shape");
+                assertEquals("maps.h5:/E_z_real", parts.get(1).getTextContent().trim(), c);
+                // the selected layer holds layer k's values (i + 100 j + 1000 k + 0.1)
+                assertEquals((float) (3 + 100 * 2 + 1000 * k + 0.1), stored[sel[0]][2][3], c + ": value at i = 3, j = 2");
+            }
+        }
+        assertThrows(IllegalArgumentException.class, () -> new Xdmf.Attribute("E_z_real", "maps.h5", "E_z_real", 4, 3, 3),
+                "layer beyond the stack");
+    }
+
     @Test
     void namesAreEscaped() throws Exception {
         String awkward = "E & H <\"a\"> 'b'";
@@ -173,8 +221,8 @@ class XdmfTest {
 
     @Test
     void invalidSeriesAreRefused() {
-        List<Xdmf.Attribute> a = List.of(new Xdmf.Attribute("Ez", "f.h5", "Ez", 4));
-        assertEquals("/Ez", a.get(0).dataset(), "leading '/' added");
+        List<Xdmf.Attribute> a = List.of(new Xdmf.Attribute("E_z", "f.h5", "E_z", 4));
+        assertEquals("/E_z", a.get(0).dataset(), "leading '/' added");
         Xdmf.Grid t1 = new Xdmf.Grid("a", 1.0, 2, 2, 0, 0, 1, a);
         Xdmf.Grid t0 = new Xdmf.Grid("b", 0.5, 2, 2, 0, 0, 1, a);
         Xdmf.Grid none = new Xdmf.Grid("c", 2, 2, 0, 0, 1, a);
@@ -184,9 +232,9 @@ class XdmfTest {
         assertThrows(IllegalArgumentException.class, () -> Xdmf.temporal("s", List.of()), "no frames");
         assertThrows(IllegalArgumentException.class, () -> new Xdmf.Grid("g", 2, 2, 0, 0, 0.0, a), "zero spacing");
         assertThrows(IllegalArgumentException.class, () -> new Xdmf.Grid("g", 2, 2, Double.NaN, 0, 1, a), "NaN origin");
-        assertThrows(IllegalArgumentException.class, () -> new Xdmf.Attribute("Ez", "f.h5", "Ez", 2), "precision 2");
-        assertThrows(IllegalArgumentException.class, () -> new Xdmf.Attribute("Ez", "/abs/f.h5", "Ez", 4), "absolute file");
-        assertThrows(IllegalArgumentException.class, () -> new Xdmf.Attribute("Ez", "c:f.h5", "Ez", 4), "':' in file");
+        assertThrows(IllegalArgumentException.class, () -> new Xdmf.Attribute("E_z", "f.h5", "E_z", 2), "precision 2");
+        assertThrows(IllegalArgumentException.class, () -> new Xdmf.Attribute("E_z", "/abs/f.h5", "E_z", 4), "absolute file");
+        assertThrows(IllegalArgumentException.class, () -> new Xdmf.Attribute("E_z", "c:f.h5", "E_z", 4), "':' in file");
         assertThrows(IllegalArgumentException.class, () -> new Xdmf.Grid("g", 2, 2, 0, 0, 1, List.of(a.get(0), a.get(0))),
                 "repeated attribute");
     }

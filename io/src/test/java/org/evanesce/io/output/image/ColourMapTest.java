@@ -40,24 +40,24 @@ class ColourMapTest {
 
     @Test
     void divergingLightnessIsSymmetricAndLightestInTheMiddle() {
-        double mid = ColourMap.TILT.lab(0.5)[0];
+        double mid = ColourMap.SHOAL.lab(0.5)[0];
         for (int k = 0; k <= STEPS; k++) {
             double t = k / (double) STEPS;
-            double l = ColourMap.TILT.lab(t)[0];
-            assertEquals(l, ColourMap.TILT.lab(1 - t)[0], SYMMETRY, "tilt lightness at t = " + t + " and 1 - t");
-            assertTrue(l <= mid, "tilt at t = " + t + " is not lighter than the middle");
+            double l = ColourMap.SHOAL.lab(t)[0];
+            assertEquals(l, ColourMap.SHOAL.lab(1 - t)[0], SYMMETRY, "shoal lightness at t = " + t + " and 1 - t");
+            assertTrue(l <= mid, "shoal at t = " + t + " is not lighter than the middle");
         }
-        double[] lo = ColourMap.TILT.lab(0);
-        double[] hi = ColourMap.TILT.lab(1);
-        assertTrue(lo[2] < 0, "negative end is bluish (Oklab b < 0)");
-        assertTrue(hi[1] > 0, "positive end is reddish (Oklab a > 0)");
-        assertEquals(ColourMap.Kind.DIVERGING, ColourMap.TILT.kind());
+        double[] lo = ColourMap.SHOAL.lab(0);
+        double[] hi = ColourMap.SHOAL.lab(1);
+        assertTrue(lo[1] < 0 && lo[2] < 0, "negative end is a teal (Oklab a < 0, b < 0)");
+        assertTrue(hi[1] > 0 && hi[2] > 0, "positive end is an amber (Oklab a > 0, b > 0)");
+        assertEquals(ColourMap.Kind.DIVERGING, ColourMap.SHOAL.kind());
         assertEquals(ColourMap.Kind.SEQUENTIAL, ColourMap.LUMEN.kind());
     }
 
     @Test
     void everyColourIsInsideTheSrgbGamut() {
-        for (ColourMap m : List.of(ColourMap.LUMEN, ColourMap.TILT)) {
+        for (ColourMap m : List.of(ColourMap.LUMEN, ColourMap.SHOAL)) {
             for (int k = 0; k < ColourMap.TABLE_SIZE; k++) {
                 double[] c = m.lab(k / (double) (ColourMap.TABLE_SIZE - 1));
                 double[] rgb = Oklab.toSrgb(c[0], c[1], c[2]);
@@ -71,7 +71,7 @@ class ColourMapTest {
 
     @Test
     void theMissingColourStandsOut() {
-        for (ColourMap m : List.of(ColourMap.LUMEN, ColourMap.TILT)) {
+        for (ColourMap m : List.of(ColourMap.LUMEN, ColourMap.SHOAL)) {
             double[] nan = Oklab.fromRgb(m.missingColour());
             for (int k = 0; k < ColourMap.TABLE_SIZE; k++) {
                 double[] c = Oklab.fromRgb(m.rgb(k / (double) (ColourMap.TABLE_SIZE - 1)));

@@ -50,14 +50,14 @@ class FieldPictureTest {
     @Test
     void aRealFieldIsDivergingWithZeroAtTheMiddleColour() {
         Heatmap h = FieldPicture.of(wave(), GRID, "Ez", "V/m", Quantity.REAL).heatmap();
-        assertSame(ColourMap.TILT, h.colourMap());
+        assertSame(ColourMap.SHOAL, h.colourMap());
         assertEquals("Ez (V/m)", h.colourBarLabel());
         HeatmapLayout l = h.layout();
         assertEquals(-l.high, l.low, 0.0, "range symmetric about zero");
         BufferedImage img = h.render();
-        int middle = ColourMap.TILT.rgb(0.5);
+        int middle = ColourMap.SHOAL.rgb(0.5);
         double[] lab = Oklab.fromRgb(middle);
-        assertTrue(Math.hypot(lab[1], lab[2]) < NEUTRAL && lab[0] > 0.9, "TILT's middle is a near-white grey");
+        assertTrue(Math.hypot(lab[1], lab[2]) < NEUTRAL && lab[0] > 0.9, "SHOAL's middle is a pale, nearly neutral parchment");
         for (int i : new int[] {16, 32, 48}) {
             for (int j = 0; j < GRID.ny(); j += 13) {
                 int x = l.plot.x() + i * l.up + l.up / 2;
@@ -109,10 +109,15 @@ class FieldPictureTest {
         try (Stream<Path> s = Files.list(tmp)) {
             assertEquals(List.of("ex.png"), s.map(q -> q.getFileName().toString()).toList(), "no temporary file left");
         }
-        int y = l.plot.y() + l.plot.h() / 2;
-        assertEquals(Heatmap.OUTLINE_DARK, rgb(img, l.plot.x() + 36 * l.up, y), "outline on the first pixel column of cell 36");
-        assertEquals(ColourMap.TILT.rgb(0.5), rgb(img, l.plot.x() + 36 * l.up - 1, y), "no outline left of it");
-        assertEquals(ColourMap.TILT.rgb(0.5), rgb(img, l.plot.x() + 36 * l.up + 1, y), "no outline right of it");
+        // a vertical outline is dashed along y: a plot row where a dash starts, and the gap after it
+        int py = l.plotHeight / 2 / Heatmap.DASH_PERIOD * Heatmap.DASH_PERIOD;
+        int y = l.plot.y() + py;
+        assertEquals(Heatmap.outlineColour(ColourMap.SHOAL.rgb(0.5)), rgb(img, l.plot.x() + 36 * l.up, y),
+                "outline on the first pixel column of cell 36");
+        assertEquals(ColourMap.SHOAL.rgb(0.5), rgb(img, l.plot.x() + 36 * l.up, y + Heatmap.DASH_ON),
+                "a gap of the dashes, the field shows through");
+        assertEquals(ColourMap.SHOAL.rgb(0.5), rgb(img, l.plot.x() + 36 * l.up - 1, y), "no outline left of it");
+        assertEquals(ColourMap.SHOAL.rgb(0.5), rgb(img, l.plot.x() + 36 * l.up + 1, y), "no outline right of it");
         assertTrue(l.texts.stream().anyMatch(t -> t.text().equals("x (nm)")));
     }
 

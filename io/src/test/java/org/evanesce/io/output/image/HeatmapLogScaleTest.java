@@ -141,7 +141,7 @@ class HeatmapLogScaleTest {
         assertThrows(IllegalArgumentException.class, () -> Heatmap.builder(v, 2, 3).logScale(Double.NaN));
         assertThrows(IllegalArgumentException.class, () -> Heatmap.builder(v, 2, 3).logScale(Double.POSITIVE_INFINITY));
         assertThrows(IllegalStateException.class,
-                () -> Heatmap.builder(v, 2, 3).cellSize(1).logScale(3).colourMap(ColourMap.TILT).build());
+                () -> Heatmap.builder(v, 2, 3).cellSize(1).logScale(3).colourMap(ColourMap.SHOAL).build());
         assertThrows(IllegalStateException.class, () -> Heatmap.builder(v, 2, 3).cellSize(1).logScale(3).range(0, 1).build());
     }
 }

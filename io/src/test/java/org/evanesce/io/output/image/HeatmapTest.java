@@ -170,13 +170,13 @@ class HeatmapTest {
 
     @Test
     void divergingRangeIsSymmetricAboutZero() {
-        Heatmap h = steps(10, 4, -1, 3).colourMap(ColourMap.TILT).build();
+        Heatmap h = steps(10, 4, -1, 3).colourMap(ColourMap.SHOAL).build();
         HeatmapLayout l = h.layout();
         assertEquals(-3, l.low);
         assertEquals(3, l.high);
         assertEquals(0.5, l.position(0));
         BufferedImage img = h.render();
-        assertEquals(ColourMap.TILT.rgb(1.0 / 3), rgb(img, l.plot.x() + 1, l.plot.y() + 1));
+        assertEquals(ColourMap.SHOAL.rgb(1.0 / 3), rgb(img, l.plot.x() + 1, l.plot.y() + 1));
         assertTrue(Arrays.stream(l.barTicks).anyMatch(t -> t == 0), "zero is a bar tick");
     }
 
@@ -199,7 +199,7 @@ class HeatmapTest {
                 v[j * nx + i] = (i + j) % 2 == 0 ? 1f : -1f; // a checkerboard: means 0, extremes ±1
             }
         }
-        Heatmap mean = Heatmap.builder(v, nx, ny).cellSize(10e-9).colourMap(ColourMap.TILT).build();
+        Heatmap mean = Heatmap.builder(v, nx, ny).cellSize(10e-9).colourMap(ColourMap.SHOAL).build();
         HeatmapLayout l = mean.layout();
         assertEquals(3, l.down);
         assertEquals(834, l.plotWidth);
@@ -224,7 +224,7 @@ class HeatmapTest {
             HeatmapLayout l = Heatmap.builder(v, s[0], s[1]).cellSize(7e-9).origin(-1e-6, 3e-6)
                     .title("a rather long title line that is wider than a small plot")
                     .colourBarLabel("a colour bar label that is longer than the bar itself")
-                    .colourMap(ColourMap.TILT).build().layout();
+                    .colourMap(ColourMap.SHOAL).build().layout();
             String where = s[0] + " × " + s[1] + " cells";
             List<HeatmapLayout.Box> boxes = new java.util.ArrayList<>(l.texts.stream().map(HeatmapLayout.Text::box).toList());
             for (HeatmapLayout.Box b : boxes) {

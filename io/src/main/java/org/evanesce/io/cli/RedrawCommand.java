@@ -16,6 +16,8 @@ import java.util.regex.Pattern;
 import org.evanesce.geometry.GridSpec;
 import org.evanesce.io.Main;
 import org.evanesce.io.output.image.FieldPicture;
+import org.evanesce.io.run.MapOutputs;
+import org.evanesce.solver.grid.Component;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -24,17 +26,19 @@ import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 
 /**
- * {@code evanesce render FOLDER}: redraws the pictures of a results folder from its HDF5 files
- * (maps.h5, fields.h5) with other settings, without running the case again.
+ * {@code evanesce redraw FOLDER}: redraws the pictures of a results folder from its HDF5 files
+ * (maps.h5, fields.h5) with other settings, without running the case again. It reads the datasets by
+ * the names docs/outputs.md gives: in maps.h5 the stacks {@code E_z_real} or {@code H_z_real} and
+ * {@code E_magnitude}, one layer per entry of the index dataset {@code wavelength_m}; in fields.h5
+ * every component {@code E_x} ... {@code H_z} (not the {@code _imaginary} parts).
  */
-@Command(name = "render", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class, sortOptions = false,
+@Command(name = "redraw", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class, sortOptions = false,
         description = {"Redraw the PNG pictures of a results folder from its maps.h5 and fields.h5, e.g. with another "
                 + "log-scale depth, without running the case again."})
-public final class RenderCommand implements Callable<Integer> {
+public final class RedrawCommand implements Callable<Integer> {
 
-    private static final Pattern MAP_REAL = Pattern.compile("([A-Z][a-z])_real_(.+nm)");
-    private static final Pattern MAGNITUDE = Pattern.compile("E_magnitude_(.+nm)");
-    private static final Pattern FIELD = Pattern.compile("([A-Z][a-z])");
+    /** A field component's dataset in fields.h5: "E_z", "H_x", ... */
+    private static final Pattern FIELD = Pattern.compile("([EH])_([xyz])");
 
     @Spec
     private CommandSpec spec;
@@ -56,7 +60,8 @@ public final class RenderCommand implements Callable<Integer> {
     public Integer call() throws IOException {
         PrintWriter o = spec.commandLine().getOut();
         if (!Files.isDirectory(folder)) {
-            throw new ParameterException(spec.commandLine(), folder + ": no such folder");
+            throw new ParameterException(spec.commandLine(), folder + (Files.exists(folder)
+                    ? ": is a file, not a folder; expected a results folder written by 'evanesce run'" : ": no such folder"));
         }
         if (decades != null && !(decades > 0 && decades <= 300)) {
             throw new ParameterException(spec.commandLine(), "--log-decades " + decades + ": expected a number of decades in (0, 300]");
@@ -77,12 +82,12 @@ public final class RenderCommand implements Callable<Integer> {
         }
         int written = 0;
         if (Files.isRegularFile(maps)) {
-            written += readable(maps, () -> renderMaps(maps, dir));
+            written += readable(maps, () -> redrawMaps(maps, dir));
         }
         if (Files.isRegularFile(fields)) {
-            written += readable(fields, () -> renderFields(fields, folder.resolve("permittivity.h5"), dir));
+            written += readable(fields, () -> redrawFields(fields, folder.resolve("permittivity.h5"), dir));
         }
-        o.printf(Locale.ROOT, "rendered %d pictures into %s%n", written, dir);
+        o.printf(Locale.ROOT, "redrew %d pictures into %s%n", written, dir);
         return Main.OK;
     }
 
@@ -99,6 +104,8 @@ public final class RenderCommand implements Callable<Integer> {
     private static int readable(Path file, Drawing d) throws IOException {
         try {
             return d.draw();
+        } catch (ParameterException e) {
+            throw e;
         } catch (RuntimeException e) {
             String why = e.getMessage() == null ? e.getClass().getSimpleName()
                     : e.getMessage().strip().replaceAll("\\s*\\R\\s*", "; ");
@@ -109,35 +116,35 @@ public final class RenderCommand implements Callable<Integer> {
         }
     }
 
-    private int renderMaps(Path file, Path dir) throws IOException {
+    private int redrawMaps(Path file, Path dir) throws IOException {
         int n = 0;
         try (HdfFile h = new HdfFile(file)) {
             int[] ids = noOutlines ? null : ids(h);
             double logDecades = decades != null ? decades : ((Number) attribute(h.getDatasetByPath("/material_id"),
                     "log_decades")).doubleValue();
-            for (Map.Entry<String, Node> e : h.getChildren().entrySet()) {
-                if (!(e.getValue() instanceof Dataset d)) {
-                    continue;
-                }
-                Matcher real = MAP_REAL.matcher(e.getKey());
-                Matcher mag = MAGNITUDE.matcher(e.getKey());
-                if (real.matches() && (real.group(1).equals("Ez") || real.group(1).equals("Hz"))) {
-                    picture(d, real.group(1), (String) attribute(d, "unit"), FieldPicture.Quantity.REAL, ids, null,
-                            "Re " + real.group(1) + " at " + real.group(2).replace("nm", " nm"))
-                            .writePng(dir.resolve("map-" + real.group(1).toLowerCase(Locale.ROOT) + "-" + real.group(2) + ".png"));
-                    n++;
-                } else if (mag.matches()) {
-                    picture(d, "E", (String) attribute(d, "unit"), FieldPicture.Quantity.MAGNITUDE, ids, logDecades,
-                            "|E| at " + mag.group(1).replace("nm", " nm") + ", log scale")
-                            .writePng(dir.resolve("map-E-" + mag.group(1) + "-log.png"));
-                    n++;
-                }
+            refuseEarlierLayout(file, h, MapOutputs.WAVELENGTH);
+            double[] wavelengths = axis(h.getDatasetByPath("/" + MapOutputs.WAVELENGTH));
+            Dataset magnitude = h.getDatasetByPath("/" + MapOutputs.MAGNITUDE);
+            // the z component's real part: Ez for s, Hz for p
+            Component z = h.getChildren().containsKey(MapOutputs.partName(Component.EZ, true)) ? Component.EZ : Component.HZ;
+            Dataset real = h.getDatasetByPath("/" + MapOutputs.partName(z, true));
+            String name = z == Component.EZ ? "Ez" : "Hz";
+            for (int q = 0; q < wavelengths.length; q++) {
+                String tag = MapOutputs.pictureTag(wavelengths[q]);
+                String nm = String.format(Locale.ROOT, "%.2f nm", wavelengths[q] * 1e9);
+                picture(real, q, name, (String) attribute(real, "unit"), FieldPicture.Quantity.REAL, ids, null,
+                        "Re " + name + " at " + nm)
+                        .writePng(dir.resolve("map-" + z.name().toLowerCase(Locale.ROOT) + "-" + tag + ".png"));
+                picture(magnitude, q, "E", (String) attribute(magnitude, "unit"), FieldPicture.Quantity.MAGNITUDE, ids,
+                        logDecades, "|E| at " + nm + ", log scale")
+                        .writePng(dir.resolve("map-E-" + tag + "-log.png"));
+                n += 2;
             }
         }
         return n;
     }
 
-    private int renderFields(Path file, Path permittivity, Path dir) throws IOException {
+    private int redrawFields(Path file, Path permittivity, Path dir) throws IOException {
         int[] ids = null;
         if (!noOutlines && Files.isRegularFile(permittivity)) {
             try (HdfFile p = new HdfFile(permittivity)) {
@@ -146,13 +153,18 @@ public final class RenderCommand implements Callable<Integer> {
         }
         int n = 0;
         try (HdfFile h = new HdfFile(file)) {
+            if (h.getChildren().keySet().stream().noneMatch(k -> FIELD.matcher(k).matches())) {
+                refuseEarlierLayout(file, h, "E_z");
+            }
             for (Map.Entry<String, Node> e : h.getChildren().entrySet()) {
-                if (e.getValue() instanceof Dataset d && FIELD.matcher(e.getKey()).matches()) {
+                Matcher m = FIELD.matcher(e.getKey());
+                if (e.getValue() instanceof Dataset d && m.matches()) {
+                    String name = m.group(1) + m.group(2);
                     int[] use = ids != null && ids.length == size(d) ? ids : null;
-                    picture(d, e.getKey(), (String) attribute(d, "unit"), FieldPicture.Quantity.REAL, use, null,
-                            String.format(Locale.ROOT, "%s at t = %.4g fs", e.getKey(),
+                    picture(d, -1, name, (String) attribute(d, "unit"), FieldPicture.Quantity.REAL, use, null,
+                            String.format(Locale.ROOT, "%s at t = %.4g fs", name,
                                     ((Number) attribute(d, "time_s")).doubleValue() * 1e15))
-                            .writePng(dir.resolve("field-" + e.getKey().toLowerCase(Locale.ROOT) + ".png"));
+                            .writePng(dir.resolve("field-" + name.toLowerCase(Locale.ROOT) + ".png"));
                     n++;
                 }
             }
@@ -160,12 +172,34 @@ public final class RenderCommand implements Callable<Integer> {
         return n;
     }
 
-    private static FieldPicture picture(Dataset d, String component, String unit, FieldPicture.Quantity q, int[] ids,
-                                        Double logDecades, String title) {
+    /** Dataset names of files written before the names said what they hold ("Ez", "Ez_real_633.00nm", "eps_z"). */
+    private static final Pattern EARLIER = Pattern.compile("[EH][xyz](_imag|_real_.*nm)?|E_magnitude_.*nm|eps_[xyz]");
+
+    /**
+     * Refuses (exit 2, naming the file) a file whose datasets carry the names of earlier builds
+     * (before the self-describing layout), when it lacks {@code expected}: such a folder is redrawn by running its case again.
+     */
+    private void refuseEarlierLayout(Path file, HdfFile h, String expected) {
+        if (!h.getChildren().containsKey(expected)
+                && h.getChildren().keySet().stream().anyMatch(k -> EARLIER.matcher(k).matches())) {
+            // name an old dataset, one with the wavelength in its name where there is one
+            String old = h.getChildren().keySet().stream().filter(k -> EARLIER.matcher(k).matches())
+                    .sorted(java.util.Comparator.comparing((String k) -> !k.endsWith("nm")).thenComparing(k -> k)).findFirst()
+                    .orElseThrow();
+            throw new ParameterException(spec.commandLine(), file + ": written by an earlier build of evanesce (datasets such as "
+                    + old + " instead of " + expected + ", docs/outputs.md); run its case again to redraw it");
+        }
+    }
+
+    /**
+     * A picture of a 2D dataset ({@code layer} -1) or of one layer of a 3D stack {@code [n][ny][nx]}.
+     */
+    private static FieldPicture picture(Dataset d, int layer, String component, String unit, FieldPicture.Quantity q,
+                                        int[] ids, Double logDecades, String title) {
         int[] dims = d.getDimensions();
-        int ny = dims[0];
-        int nx = dims[1];
-        double[] v = values(d, nx, ny);
+        int ny = dims[dims.length - 2];
+        int nx = dims[dims.length - 1];
+        double[] v = values(d, layer, nx, ny);
         double[] origin = (double[]) attribute(d, "origin_m");
         double cell = ((Number) attribute(d, "cell_size_m")).doubleValue();
         FieldPicture p = FieldPicture.of(v, new GridSpec(origin[0], origin[1], cell, nx, ny), component, unit, q).title(title);
@@ -183,8 +217,12 @@ public final class RenderCommand implements Callable<Integer> {
         return dims[0] * dims[1];
     }
 
-    private static double[] values(Dataset d, int nx, int ny) {
+    /** Values {@code v[j*nx + i]} of a 2D dataset ({@code layer} -1) or of one layer of a 3D one. */
+    private static double[] values(Dataset d, int layer, int nx, int ny) {
         Object data = d.getData();
+        if (layer >= 0) {
+            data = data instanceof float[][][] f ? f[layer] : ((double[][][]) data)[layer];
+        }
         double[] v = new double[nx * ny];
         for (int j = 0; j < ny; j++) {
             for (int i = 0; i < nx; i++) {
@@ -194,10 +232,19 @@ public final class RenderCommand implements Callable<Integer> {
         return v;
     }
 
+    /** The values of a 1D index dataset. */
+    private static double[] axis(Dataset d) {
+        Object data = d.getData();
+        if (data instanceof double[] v) {
+            return v;
+        }
+        throw new IllegalStateException(d.getPath() + " is not a 1D float64 dataset");
+    }
+
     private static int[] ids(HdfFile h) {
         Dataset d = h.getDatasetByPath("/material_id");
         int[] dims = d.getDimensions();
-        double[] v = values(d, dims[1], dims[0]);
+        double[] v = values(d, -1, dims[1], dims[0]);
         int[] ids = new int[v.length];
         for (int k = 0; k < v.length; k++) {
             ids[k] = (int) Math.round(v[k]);

@@ -1,0 +1,61 @@
+package org.evanesce.io.plan;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import org.evanesce.geometry.GridSpec;
+import org.evanesce.io.casefile.BoundarySpec;
+import org.evanesce.io.casefile.CaseSpec;
+import org.evanesce.io.casefile.Diagnostic;
+import org.evanesce.io.casefile.ResolutionSpec;
+import org.evanesce.io.casefile.SourceSpec;
+import org.evanesce.solver.grid.Polarization;
+import org.evanesce.solver.grid.Side;
+import org.evanesce.solver.reference.PlanarStack;
+
+/**
+ * A case's layered stack as the exact plane-wave reference reads it ({@code flux.transfer_matrix}), found
+ * without building the grid's materials or the simulation: the fit command evaluates it for every trial
+ * parameter set, where planning the whole run each time would cost seconds.
+ *
+ * @param stack        the stack at a vacuum wavelength, m, from the source's medium in its direction
+ * @param polarization the case's
+ * @param wavelength   the case's design wavelength (vacuum), m: a pulse's centre frequency is the middle of its band in
+ *                     frequency, a little off the wavelength the case names
+ * @param angle        the source's angle of incidence (at its centre frequency), in the medium at its line, rad
+ */
+public record ExactStack(java.util.function.DoubleFunction<PlanarStack> stack, Polarization polarization,
+                         double wavelength, double angle) {
+
+    /**
+     * Reads the stack of a case with one plane wave or Gaussian beam over horizontal layers.
+     *
+     * @throws PlanException naming the case's line when it has no such source or is not layered
+     */
+    public static ExactStack of(CaseSpec spec) throws PlanException {
+        List<Diagnostic> errors = new ArrayList<>();
+        Optional<SourceSpec.Launched> launched = PlaneWaves.launched(spec);
+        if (launched.isEmpty()) {
+            errors.add(new Diagnostic(Diagnostic.Severity.ERROR, spec.polarization().at(), "sources",
+                    "the case has no plane_wave or gaussian_beam source, so it has no exact plane-wave answer; expected one "
+                            + "of them over horizontal layers"));
+            throw new PlanException(errors);
+        }
+        SourceSpec.Launched w = launched.get();
+        ResolutionSpec r = spec.resolution();
+        boolean periodic = spec.boundary(Side.LEFT) instanceof BoundarySpec.Periodic;
+        // the same grid and interior as CasePlanner's, so that the layers are read where a run reads them
+        GridSpec grid = new GridSpec(r.x(0), r.y(0), r.cellSize().si(), periodic ? r.nx() - 1 : r.nx(), r.ny());
+        int[] interior = {pml(spec, Side.LEFT), pml(spec, Side.BOTTOM), grid.nx() - pml(spec, Side.RIGHT),
+            grid.ny() - pml(spec, Side.TOP)};
+        Optional<FluxPlan.Exact> exact = FluxPlanner.transferMatrix(spec, grid, w, interior, errors);
+        if (exact.isEmpty() || !errors.isEmpty()) {
+            throw new PlanException(errors);
+        }
+        return new ExactStack(exact.get().stack(), spec.polarization().value(), spec.designWavelength().si(), w.angle().si());
+    }
+
+    private static int pml(CaseSpec spec, Side side) {
+        return spec.boundary(side) instanceof BoundarySpec.Pml p ? p.cells() : 0;
+    }
+}
