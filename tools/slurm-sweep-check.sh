@@ -32,7 +32,7 @@ parameters:
 design_wavelength: 633 nm
 polarization: s
 domain: {width: 0.1 um, height: 3 um, background: glass}
-resolution: {cells_per_wavelength: 16}
+grid: {cells_per_wavelength: 16}
 materials:
   glass: {index: 1.5}
   gap_fill: {index: 1.0}
@@ -46,7 +46,7 @@ flux:
   lines:
     - {y: -1 um, measures: reflected}
     - {y: 0.8 um, measures: transmitted}
-stop: {decay: 1e-6, limit: 400 fs}
+until: {energy_below: 1e-6, latest: 400 fs}
 sweep:
   parameters:
     gap: [100 nm, 200 nm, 300 nm]

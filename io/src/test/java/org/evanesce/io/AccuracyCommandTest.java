@@ -47,7 +47,7 @@ class AccuracyCommandTest {
             design_wavelength: 633 nm
             polarization: POL
             domain: {width: 0.1 um, height: 3.2 um, background: glass}
-            resolution: {cells_per_wavelength: cpw}
+            grid: {cells_per_wavelength: cpw}
             materials:
               glass: {index: 1.5}
               gap_vacuum: {index: 1.0}
@@ -62,7 +62,7 @@ class AccuracyCommandTest {
                   angle: 45 deg
                   signal: {pulse: {wavelength: 633 nm, bandwidth: 20 nm}}
             FLUX
-            stop: {decay: 1e-6, limit: 400 fs}
+            until: {energy_below: 1e-6, latest: 400 fs}
             """.replace("CPW", Integer.toString(COARSE_CPW));
 
     private static final String FLUX = """

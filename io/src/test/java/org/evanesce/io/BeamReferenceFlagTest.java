@@ -30,7 +30,7 @@ class BeamReferenceFlagTest {
             design_wavelength: 633 nm
             polarization: s
             domain: {width: 40 um, height: 4 um, background: prism}
-            resolution: {cells_per_wavelength: 8}
+            grid: {cells_per_wavelength: 8}
             materials:
               prism: {index: 1.8}
               film_layer: {index: 1.6}
@@ -54,7 +54,7 @@ class BeamReferenceFlagTest {
                 - {y: 1.3 um, measures: reflected}
                 - {y: -1.3 um, measures: transmitted}
               transfer_matrix: true
-            stop: {steps: 40}
+            until: {steps: 40}
             """;
 
     @ParameterizedTest(name = "gap {0} nm")

@@ -29,7 +29,7 @@ import org.junit.jupiter.params.provider.ValueSource;
  * characteristic matrix of an absorbing film; and the beam's bad-input checks.
  *
  * <p>Each run is a continuous (ramped) wave at 633 nm in glass (n = 1.5) on a grid 3 um high and 44 to
- * 100 um wide (0.2 to 0.44 million cells), followed by the program's reference run of the same size. The
+ * 100 um wide (0.2 to 0.44 million cells), followed by the program's incident-power run of the same size. The
  * beams are 10 or 20 vacuum wavelengths wide at the waist; the domains hold about ±2.7 footprints
  * (waist / cos angle) either side of the axis, where the beam's power has fallen below 1e-6 of its peak.
  */
@@ -109,7 +109,7 @@ class BeamRunTest {
             design_wavelength: 633 nm
             polarization: POL
             domain: {width: WIDTH um, height: 3 um, background: glass}
-            resolution: {cells_per_wavelength: cpw}
+            grid: {cells_per_wavelength: cpw}
             materials:
               glass: {index: 1.5}
             MATERIALS
@@ -128,7 +128,7 @@ class BeamRunTest {
                 - {y: -0.8 um, measures: reflected}
                 - {y: 0.9 um, measures: transmitted}
               transfer_matrix: true
-            stop: {time: STOP fs}
+            until: {time: STOP fs}
             """;
 
     private static final String VACUUM = "  vac: {index: 1.0}";
@@ -373,7 +373,7 @@ class BeamRunTest {
             design_wavelength: 633 nm
             polarization: POL
             domain: {width: 120 um, height: 4 um, background: glass}
-            resolution: {cells_per_wavelength: 16}
+            grid: {cells_per_wavelength: 16}
             materials:
               glass: {index: 1.5}
               vac: {index: 1.0}
@@ -393,7 +393,7 @@ class BeamRunTest {
                 - {y: -1.4 um, measures: reflected, name: far}
                 - {y: 0.9 um, measures: transmitted}
               transfer_matrix: true
-            stop: {time: 250 fs}
+            until: {time: 250 fs}
             """;
 
     /**
@@ -432,7 +432,7 @@ class BeamRunTest {
     /**
      * Issue #13: the lateral shift measured from where the incident beam itself goes on the grid. At 50° the
      * grid turns the beam by about 0.13° (at 45° not at all), which the nominal specular position counts as
-     * shift; the reference run's measured path takes it out, so both lines agree and the shift is the
+     * shift; the incident-power run's measured path takes it out, so both lines agree and the shift is the
      * interface's.
      */
     @ParameterizedTest(name = "{0} polarization")
@@ -599,7 +599,7 @@ class BeamRunTest {
             design_wavelength: 633 nm
             polarization: s
             domain: {width: 20 um, height: 3 um, background: glass}
-            resolution: {cells_per_wavelength: 16}
+            grid: {cells_per_wavelength: 16}
             materials:
               glass: {index: 1.5}
               vac: {index: 1.0}
@@ -612,7 +612,7 @@ class BeamRunTest {
             WAIST_LINE
                   waist_at: [0, 0.5 um]
                   signal: {ramped_wave: {wavelength: 633 nm}}
-            stop: {time: 20 fs}
+            until: {time: 20 fs}
             """;
     private static final String WAIST_LINE = "      waist: 1 um";
     private static final String INTERFACE = "  - half_plane: {through: [0, 0.5 um], fill: above, material: vac}";

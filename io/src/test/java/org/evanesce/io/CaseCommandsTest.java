@@ -34,14 +34,14 @@ class CaseCommandsTest {
             design_wavelength: wl
             polarization: s
             domain: {width: 2 um, height: 2 um}
-            resolution: {cell: 40 nm}
+            grid: {cell: 40 nm}
             sources:
               - point: {at: [0, 0], signal: {pulse: {wavelength: wl, bandwidth: 100 nm}}}
             probes:
               - {name: p, at: [0.3 um, 0]}
             output:
               write: [probes]
-            stop: {steps: 40}
+            until: {steps: 40}
             """;
 
     /** Errors on lines 6 and 9 (counted from 1): a negative width and a misspelt parameter. */
@@ -52,12 +52,12 @@ class CaseCommandsTest {
             design_wavelength: wl
             polarization: s
             domain: {width: -2 um, height: 2 um}
-            resolution: {cell: 40 nm}
+            grid: {cell: 40 nm}
             shapes:
               - disk: {centre: [0, 0], radius: gapp, material: vacuum}
             sources:
               - point: {at: [0, 0], signal: {pulse: {wavelength: wl, bandwidth: 100 nm}}}
-            stop: {steps: 40}
+            until: {steps: 40}
             """;
 
     /**
@@ -69,7 +69,7 @@ class CaseCommandsTest {
             design_wavelength: 633 nm
             polarization: s
             domain: {width: 2 um, height: 2 um}
-            resolution: {cell: 35 nm}
+            grid: {cell: 35 nm}
             materials:
               gain: {index: 1.5, conductivity: -2e5 S/m}
             shapes:
@@ -78,7 +78,7 @@ class CaseCommandsTest {
               - point: {at: [0, 0], signal: {pulse: {wavelength: 633 nm, bandwidth: 100 nm}}}
             output:
               write: [probes, preview]
-            stop: {steps: 5000}
+            until: {steps: 5000}
             """;
 
 
@@ -181,11 +181,11 @@ class CaseCommandsTest {
      */
     @Test
     void aMapRegionTooNarrowForAGridIsRefusedByCheck() throws IOException {
-        Path c = write("narrow.yaml", TINY.replace("stop: {steps: 40}", """
+        Path c = write("narrow.yaml", TINY.replace("until: {steps: 40}", """
                 maps:
                   wavelengths: wl
                   region: {from: [0, -0.5 um], to: [40 nm, 0.5 um]}
-                stop: {steps: 40}
+                until: {steps: 40}
                 """));
         for (String[] args : new String[][] {
             {"check", c.toString(), "--trial-seconds", "0", "--preview", tmp.resolve("p.png").toString()},

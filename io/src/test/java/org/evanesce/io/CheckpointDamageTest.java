@@ -33,12 +33,12 @@ class CheckpointDamageTest {
     @TempDir
     Path tmp;
 
-    /** A plane wave through a gap (as in the sweep tests): a fraction of a second with its reference run. */
+    /** A plane wave through a gap (as in the sweep tests): a fraction of a second with its incident-power run. */
     private static final String GAP = """
             design_wavelength: 633 nm
             polarization: s
             domain: {width: 0.1 um, height: 3.2 um, background: glass}
-            resolution: {cells_per_wavelength: 20}
+            grid: {cells_per_wavelength: 20}
             materials:
               glass: {index: 1.5}
               gap_vacuum: {index: 1.0}
@@ -52,7 +52,7 @@ class CheckpointDamageTest {
               lines:
                 - {name: front, y: -0.95 um, measures: reflected}
                 - {name: back, y: 0.7 um, measures: transmitted}
-            stop: {decay: 1e-6, limit: 400 fs}
+            until: {energy_below: 1e-6, latest: 400 fs}
             """;
 
     private static final byte[] MAGIC = "evanesce run checkpoint 2\n".getBytes(java.nio.charset.StandardCharsets.US_ASCII);

@@ -24,8 +24,8 @@ import org.snakeyaml.engine.v2.api.LoadSettings;
 
 /**
  * Every example in {@code cases/} checks and runs. The examples follow a convention (cases/README.md):
- * each declares the parameters {@code cpw} (used as {@code resolution.cells_per_wavelength}) and
- * {@code duration} (used as the stop time or the decay limit), so that {@link ExamplePhysicsTest} can
+ * each declares the parameters {@code cpw} (used as {@code grid.cells_per_wavelength}) and
+ * {@code duration} (used as {@code until.time} or {@code until.latest}), so that {@link ExamplePhysicsTest} can
  * run it at a reduced resolution whatever its full size.
  */
 class ExampleCasesTest {
@@ -63,7 +63,7 @@ class ExampleCasesTest {
         Map<?, ?> doc = yaml(example);
         String how = example.getFileName() + " does not follow the examples' convention (see cases/README.md): ";
         if (!(doc.get("parameters") instanceof Map<?, ?> params)) {
-            fail(how + "it has no 'parameters'; declare cpw (cells per wavelength) and duration (stop time or decay limit)");
+            fail(how + "it has no 'parameters'; declare cpw (cells per wavelength) and duration (until.time or until.latest)");
             return;
         }
         List<String> problems = new ArrayList<>();
@@ -71,16 +71,16 @@ class ExampleCasesTest {
             problems.add("no parameter 'cpw' (cells per wavelength)");
         }
         if (!params.containsKey("duration")) {
-            problems.add("no parameter 'duration' (the stop time or the decay limit)");
+            problems.add("no parameter 'duration' (until.time or until.latest)");
         }
-        Object cpwUse = doc.get("resolution") instanceof Map<?, ?> r ? r.get("cells_per_wavelength") : null;
+        Object cpwUse = doc.get("grid") instanceof Map<?, ?> r ? r.get("cells_per_wavelength") : null;
         if (!mentions(cpwUse, "cpw")) {
-            problems.add("resolution.cells_per_wavelength should be cpw, found " + cpwUse);
+            problems.add("grid.cells_per_wavelength should be cpw, found " + cpwUse);
         }
-        Object stop = doc.get("stop");
-        Object durationUse = stop instanceof Map<?, ?> s ? (s.containsKey("time") ? s.get("time") : s.get("limit")) : null;
+        Object until = doc.get("until");
+        Object durationUse = until instanceof Map<?, ?> s ? (s.containsKey("time") ? s.get("time") : s.get("latest")) : null;
         if (!mentions(durationUse, "duration")) {
-            problems.add("stop.time (or stop.limit with decay) should be duration, found " + durationUse);
+            problems.add("until.time (or until.latest) should be duration, found " + durationUse);
         }
         assertTrue(problems.isEmpty(), () -> how + String.join("; ", problems));
     }

@@ -169,7 +169,7 @@ class ExamplePhysicsTest {
     /**
      * Measured at cpw 12: T + R − 1 = −0.011 (+0.012 at cpw 8, −0.038 at cpw 10, +0.002 at cpw 16: the pulse
      * energy at one point stands for the beam's only as well as the beam keeps its shape). A reflected probe that
-     * saw nothing, or a reference run that did not fill the gap, fail.
+     * saw nothing, or a comparison run that did not fill the gap, fail.
      */
     private static final double CUBE_ENERGY_TOLERANCE = 0.1;
     /**

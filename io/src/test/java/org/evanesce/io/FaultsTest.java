@@ -40,14 +40,14 @@ class FaultsTest {
             design_wavelength: 633 nm
             polarization: s
             domain: {width: 2 um, height: 2 um}
-            resolution: {cell: 40 nm}
+            grid: {cell: 40 nm}
             sources:
               - point: {at: [0, 0], signal: {pulse: {wavelength: 633 nm, bandwidth: 100 nm}}}
             probes:
               - {name: p, at: [0.3 um, 0]}
             output:
               write: [probes, fields]
-            stop: {steps: 2000}
+            until: {steps: 2000}
             """;
 
     private Path caseFile() throws IOException {

@@ -96,7 +96,7 @@ class FieldOutputRunTest {
             design_wavelength: 633 nm
             polarization: p
             domain: {width: 0.2 um, height: 4 um, background: glass}
-            resolution: {cells_per_wavelength: 30}
+            grid: {cells_per_wavelength: 30}
             materials:
               glass: {index: 1.5}
               vac: {index: 1.0}
@@ -116,7 +116,7 @@ class FieldOutputRunTest {
               frame_times: [20 fs, 40 fs]
               components: [hz, ex]
               region: {from: [-0.1 um, -1 um], to: [0.1 um, 1 um]}
-            stop: {decay: 1e-6, limit: 400 fs}
+            until: {energy_below: 1e-6, latest: 400 fs}
             """;
     /** The complete case's angle of incidence in the glass at the centre wavelength, degrees. */
     static final double COMPLETE_ANGLE = 60;
@@ -179,7 +179,7 @@ class FieldOutputRunTest {
             design_wavelength: 633 nm
             polarization: POL
             domain: {width: 0.1 um, height: 4 um, background: glass}
-            resolution: {cells_per_wavelength: CPW}
+            grid: {cells_per_wavelength: CPW}
             materials:
               glass: {index: 1.5}
               vac: {index: 1.0}
@@ -194,7 +194,7 @@ class FieldOutputRunTest {
               decay:
                 - {name: beyond, from: [0, 0.05 um], to: [0, END um]}
             OUTPUT
-            stop: {decay: 1e-6, limit: 400 fs}
+            until: {energy_below: 1e-6, latest: 400 fs}
             numerics: {dispersion_correction: CORRECTION}
             """;
 

@@ -38,7 +38,7 @@ class FitCommandTest {
             design_wavelength: wl
             polarization: s
             domain: {width: 0.4 um, height: 4 um, background: glass}
-            resolution: {cells_per_wavelength: 20}
+            grid: {cells_per_wavelength: 20}
             materials:
               glass: {index: 1.5}
               vacuum_gap: {index: 1.0}
@@ -52,7 +52,7 @@ class FitCommandTest {
                   y: -1 um
                   angle: theta
                   signal: {pulse: {wavelength: wl, bandwidth: 20 nm}}
-            stop: {steps: 10}
+            until: {steps: 10}
             """;
 
     /** The noise's seed (its 30 draws happen to sum to a chi-square of 61, a rare draw: the checks do not assume a typical one). */

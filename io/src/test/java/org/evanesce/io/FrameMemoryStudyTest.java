@@ -237,7 +237,7 @@ class FrameMemoryStudyTest {
                 design_wavelength: 633 nm
                 polarization: s
                 domain: {width: %.6f um, height: %.6f um, background: vacuum}
-                resolution: {cell: 20 nm}
+                grid: {cell: 20 nm}
                 boundaries: {all: pml}
                 sources:
                   - point: {at: [0, 0], signal: {ramped_wave: {wavelength: 633 nm}}}
@@ -245,7 +245,7 @@ class FrameMemoryStudyTest {
                   write: [field_frames]
                   frame_interval: %.12g fs
                   components: %s
-                stop: {steps: %d}
+                until: {steps: %d}
                 """, NODES, NODES, STEPS, FRAME_STEPS, (NODES - 1) * CELL * 1e6, (NODES - 1) * CELL * 1e6,
                 FRAME_STEPS * dt * 1e15, components, STEPS);
         Path file = tmp.resolve("memory.yaml");

@@ -27,7 +27,7 @@ import org.evanesce.solver.source.TimeSignal;
  * index 1.0 between two half-spaces of index 1.5 at a given angle in the glass, simulated with
  * Bloch-periodic sides (fixed in-plane wavenumber kx), a complex plane-wave line source, PML above
  * and below, and flux lines below and above the gap; the set-up of the solver's
- * {@code GapTunnellingTest}. T is the flux above the gap over that of an all-glass reference run
+ * {@code GapTunnellingTest}. T is the flux above the gap over that of an all-glass incident-power run
  * with the same source (made once per instance); R is the flux of the difference between the two
  * runs' fields below the gap. The exact answer is the transfer matrix of the same stack
  * ({@link PlanarStack}).
@@ -83,7 +83,7 @@ final class GapStudy {
         return stack.atTransverseWavenumber(pol, WAVELENGTH, kx).transmittance();
     }
 
-    /** Simulates one gap (thickness in vacuum wavelengths, &gt; 0) against the shared reference run. */
+    /** Simulates one gap (thickness in vacuum wavelengths, &gt; 0) against the shared incident-power run. */
     Point measure(double gapWavelengths) {
         double d = gapWavelengths * WAVELENGTH;
         Run ref = reference();

@@ -70,7 +70,7 @@ class IncidentPowerTest {
             design_wavelength: 633 nm
             polarization: POL
             domain: {width: 0.4 um, height: 3 um, background: glass}
-            resolution: {cells_per_wavelength: cpw}
+            grid: {cells_per_wavelength: cpw}
             materials:
               glass: {index: 1.5}
             boundaries: {left: periodic, right: periodic, bottom: pml 0.5 um, top: pml 0.5 um}
@@ -84,7 +84,7 @@ class IncidentPowerTest {
               WAVELENGTHS
               lines:
                 - {y: 0.8 um, measures: transmitted}
-            stop: STOP
+            until: STOP
             """;
 
     private static final String CW = "{ramped_wave: {wavelength: 633 nm}}";
@@ -99,7 +99,7 @@ class IncidentPowerTest {
     private Result run(String name, String pol, boolean pulse, int cpw, String duration) throws IOException {
         String text = CASE.replace("POL", pol).replace("SIGNAL", pulse ? PULSE : CW)
                 .replace("WAVELENGTHS", pulse ? "wavelengths: {from: 610 nm, to: 660 nm, count: 6}" : "wavelengths: 633 nm")
-                .replace("STOP", pulse ? "{decay: 1e-7, limit: 400 fs}" : "{time: t}");
+                .replace("STOP", pulse ? "{energy_below: 1e-7, latest: 400 fs}" : "{time: t}");
         Path f = tmp.resolve(name + ".yaml");
         Files.writeString(f, text);
         Path out = tmp.resolve(name);

@@ -31,14 +31,14 @@ class OutputSafetyTest {
             design_wavelength: 633 nm
             polarization: s
             domain: {width: 2 um, height: 2 um}
-            resolution: {cell: 40 nm}
+            grid: {cell: 40 nm}
             sources:
               - point: {at: [0, 0], signal: {pulse: {wavelength: 633 nm, bandwidth: 100 nm}}}
             probes:
               - {name: p, at: [0.3 um, 0]}
             output:
               write: [probes]
-            stop: {steps: 40}
+            until: {steps: 40}
             """;
 
     /** The project: {@code tmp/work/proj/case.yaml}, the user's notes beside it and a file one level up. */

@@ -26,7 +26,7 @@ import org.junit.jupiter.params.provider.MethodSource;
  * internal reflection through a vacuum gap between two glass blocks (written out below, independently of
  * the program), and the plane wave's bad-input checks.
  *
- * <p>The grid is a few cells wide (periodic sides) and 3.2 um high, so each run, with its reference run,
+ * <p>The grid is a few cells wide (periodic sides) and 3.2 um high, so each run, with its incident-power run,
  * takes well under a second. The runs use the case file's default for plane waves, the dispersion
  * correction (without it s at 60° is off by about 0.0056 at 20 cells per wavelength, over the issue's
  * 0.005; see the solver's GapTunnellingTest).
@@ -83,7 +83,7 @@ class PlaneWaveRunTest {
             design_wavelength: 633 nm
             polarization: POL
             domain: {width: 0.1 um, height: 3.2 um, background: glass}
-            resolution: {cells_per_wavelength: 20}
+            grid: {cells_per_wavelength: 20}
             materials:
               glass: {index: 1.5}
               gap_vacuum: {index: 1.0}
@@ -103,7 +103,7 @@ class PlaneWaveRunTest {
               lines:
             LINES
               transfer_matrix: true
-            stop: {decay: 1e-6, limit: 400 fs}
+            until: {energy_below: 1e-6, latest: 400 fs}
             """;
 
     private static final String PERIODIC = "{left: periodic, right: periodic, bottom: pml 0.5 um, top: pml 0.5 um}";

@@ -34,7 +34,7 @@ class RunCheckpointTest {
             design_wavelength: 633 nm
             polarization: s
             domain: {width: 0.1 um, height: 4 um, background: glass}
-            resolution: {cells_per_wavelength: cpw}
+            grid: {cells_per_wavelength: cpw}
             materials:
               glass: {index: 1.5}
               gap_fill: {index: 1.0}
@@ -48,7 +48,7 @@ class RunCheckpointTest {
               lines:
                 - {y: -1.3 um, measures: reflected}
                 - {y: 1 um, measures: transmitted}
-            stop: {decay: 1e-6, limit: 600 fs}
+            until: {energy_below: 1e-6, latest: 600 fs}
             """;
 
 

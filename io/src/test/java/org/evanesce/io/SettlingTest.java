@@ -32,11 +32,11 @@ class SettlingTest {
     static final String GAP = """
             title: vacuum gap between glass blocks
             parameters:
-              limit: 400 fs
+              end: 400 fs
             design_wavelength: 633 nm
             polarization: s
             domain: {width: 0.1 um, height: 3.2 um, background: glass}
-            resolution: {cells_per_wavelength: 20}
+            grid: {cells_per_wavelength: 20}
             materials:
               glass: {index: 1.5}
               gap_vacuum: {index: 1.0}
@@ -74,10 +74,10 @@ class SettlingTest {
 
     @Test
     void aDecayRunCutShortByItsLimitIsFlaggedEverywhereAndAFullOneIsNot() throws IOException {
-        Path c = write("gap.yaml", GAP.replace("STOP", "stop: {decay: 1e-6, limit: limit}"));
+        Path c = write("gap.yaml", GAP.replace("STOP", "until: {energy_below: 1e-6, latest: end}"));
         // 40 fs: the pulse (about 30 fs long) has not yet passed the lines
         Path out = tmp.resolve("short");
-        Cli.Outcome o = Cli.run("run", c.toString(), "--set", "limit=40fs", "--out", out.toString());
+        Cli.Outcome o = Cli.run("run", c.toString(), "--set", "end=40fs", "--out", out.toString());
         assertEquals(ExitCode.OK, o.code(), "flagged, not refused: " + o);
         assertTrue(o.out().contains("warning: results: the results did not settle: the run ended at 40"), o.toString());
         assertTrue(o.out().contains("warning: results: implausible flux: A = 1 − R − T = "), o.toString());
@@ -102,16 +102,16 @@ class SettlingTest {
         Map<?, ?> fullRun = json(full.resolve("run.json"));
         assertEquals(true, settling(fullRun).get("settled"), fullRun.toString());
         assertTrue(((Number) settling(fullRun).get("energy_fraction")).doubleValue() <= 1e-6);
-        assertTrue(((Number) settling(fullRun).get("reference_energy_fraction")).doubleValue() <= 1e-6);
+        assertTrue(((Number) settling(fullRun).get("incident_power_run_energy_fraction")).doubleValue() <= 1e-6);
         assertEquals(true, json(full.resolve("summary.json")).get("settled"));
         assertEquals(List.of(), json(full.resolve("summary.json")).get("warnings"));
     }
 
     @Test
     void aFixedLengthRunIsJudgedByTheEnergyItLeft() throws IOException {
-        Path c = write("gap.yaml", GAP.replace("STOP", "stop: {time: limit}"));
+        Path c = write("gap.yaml", GAP.replace("STOP", "until: {time: end}"));
         Path out = tmp.resolve("short");
-        Cli.Outcome o = Cli.run("run", c.toString(), "--set", "limit=100fs", "--out", out.toString());
+        Cli.Outcome o = Cli.run("run", c.toString(), "--set", "end=100fs", "--out", out.toString());
         assertEquals(ExitCode.OK, o.code(), o.toString());
         Map<?, ?> s = settling(json(out.resolve("run.json")));
         double fraction = ((Number) s.get("energy_fraction")).doubleValue();
@@ -120,7 +120,7 @@ class SettlingTest {
         assertTrue(o.out().contains("did not settle"), o.toString());
 
         Path full = tmp.resolve("full");
-        Cli.Outcome ok = Cli.run("run", c.toString(), "--set", "limit=300fs", "--out", full.toString());
+        Cli.Outcome ok = Cli.run("run", c.toString(), "--set", "end=300fs", "--out", full.toString());
         assertEquals(ExitCode.OK, ok.code(), ok.toString());
         assertEquals(true, settling(json(full.resolve("run.json"))).get("settled"), ok.toString());
         assertFalse(ok.out().contains("warning: results:"), ok.toString());
@@ -129,10 +129,10 @@ class SettlingTest {
     @Test
     void aSweepMarksEachPointAndItsMergeCountsThoseThatDidNotSettle() throws IOException {
         Path c = write("gap.yaml", GAP.replace("STOP", """
-                stop: {decay: 1e-6, limit: limit}
+                until: {energy_below: 1e-6, latest: end}
                 sweep:
                   parameters:
-                    limit: [40 fs, 400 fs]"""));
+                    end: [40 fs, 400 fs]"""));
         Path out = tmp.resolve("sweep");
         Cli.Outcome o = Cli.run("sweep", c.toString(), "--out", out.toString());
         assertEquals(ExitCode.OK, o.code(), o.toString());
@@ -159,7 +159,7 @@ class SettlingTest {
             design_wavelength: 633 nm
             polarization: s
             domain: {width: 0.2 um, height: 2.5 um, background: glass}
-            resolution: {cells_per_wavelength: 12}
+            grid: {cells_per_wavelength: 12}
             materials:
               glass: {index: 1.5}
               vac: {index: 1.0}
@@ -173,7 +173,7 @@ class SettlingTest {
                 - {y: -0.6 um, measures: reflected}
             maps:
               region: {from: [-0.1 um, 0], to: [0.1 um, 0.7 um]}
-            stop: {time: t}
+            until: {time: t}
             """;
 
     /** Lossless total reflection: R = 1 exactly (Hecht, Optics, sec. 4.7); the rule's promise is its tolerance. */
@@ -215,12 +215,12 @@ class SettlingTest {
         Path c = write("probe.yaml", """
                 polarization: s
                 domain: {width: 2 um, height: 2 um}
-                resolution: {cell: 40 nm}
+                grid: {cell: 40 nm}
                 sources:
                   - point: {at: [0, 0], signal: {pulse: {wavelength: 633 nm, bandwidth: 100 nm}}}
                 probes:
                   - {at: [0.5 um, 0]}
-                stop: {steps: 40}
+                until: {steps: 40}
                 """);
         Path out = tmp.resolve("out");
         Cli.Outcome o = Cli.run("run", c.toString(), "--out", out.toString());

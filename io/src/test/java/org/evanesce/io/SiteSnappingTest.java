@@ -38,13 +38,13 @@ class SiteSnappingTest {
             design_wavelength: 633 nm
             polarization: POL
             domain: {width: SIZE um, height: SIZE um, background: vacuum}
-            resolution: {cell: 20 nm}
+            grid: {cell: 20 nm}
             boundaries: {all: pec}
             sources:
               - point: {at: [0.1 um, -0.06 um], SOURCE_COMPONENT signal: {pulse: {wavelength: 633 nm, bandwidth: 40 nm}}}
             probes:
             PROBES
-            stop: {steps: 4}
+            until: {steps: 4}
             """;
 
     /** [x, y] of every "site_m" (probes), "first_site_m" (sources) in run.json, in order. */

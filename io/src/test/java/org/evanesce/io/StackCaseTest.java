@@ -27,7 +27,7 @@ class StackCaseTest {
             design_wavelength: 600 nm
             polarization: p
             domain: {width: 0.4 um, height: 4 um, background: glass}
-            resolution: {cells_per_wavelength: 20}
+            grid: {cells_per_wavelength: 20}
             materials:
               glass: {index: 1.5}
               low: {index: 1.2}
@@ -41,7 +41,7 @@ class StackCaseTest {
                   y: -1 um
                   angle: theta
                   signal: {pulse: {wavelength: 600 nm, bandwidth: 20 nm}}
-            stop: {steps: 10}
+            until: {steps: 10}
             """;
 
     @TempDir

@@ -30,7 +30,7 @@ import org.junit.jupiter.params.provider.CsvSource;
  * in-plane wavenumber) and compared with the transfer matrix of the same stack (Born &amp; Wolf sec.
  * 1.6; the transfer matrix itself is checked against the closed form 1/T = 1 + α sinh²(κd) of
  * S. Zhu et al., Am. J. Phys. 54, 601 (1986) in FrustratedTotalReflectionTest). Transmittance and reflectance are
- * flux ratios at the design frequency, normalised by an all-glass reference run of the same source;
+ * flux ratios at the design frequency, normalised by an all-glass incident-power run of the same source;
  * the reflected flux is that of the difference between the two runs' fields.
  */
 class GapTunnellingTest {

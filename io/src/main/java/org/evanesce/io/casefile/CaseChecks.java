@@ -284,10 +284,10 @@ final class CaseChecks {
         return Units.number(bytes / (1L << 30)) + " GiB";
     }
 
-    /** The run's end in seconds from a time or a limit; NaN for a number of steps. */
+    /** The run's end in seconds from a time or a latest time; NaN for a number of steps. */
     private double runEnd() {
         return p.stop instanceof StopSpec.AfterTime t ? t.time().si()
-                : p.stop instanceof StopSpec.WhenDecayed d ? d.limit().si() : Double.NaN;
+                : p.stop instanceof StopSpec.WhenEnergyBelow d ? d.latest().si() : Double.NaN;
     }
 
     /** Frames asked for after the run's end are never written; an interval longer than the run gives none. */
@@ -327,13 +327,13 @@ final class CaseChecks {
     }
 
     private void decayWithContinuousWave() {
-        if (!(p.stop instanceof StopSpec.WhenDecayed d)) {
+        if (!(p.stop instanceof StopSpec.WhenEnergyBelow d)) {
             return;
         }
         for (int k = 0; k < p.sources.size(); k++) {
             if (p.sources.get(k).signal() instanceof SignalSpec.RampedWave) {
-                ctx.warn(d.fraction().at(), "stop.decay", String.format("%s drives a ramped wave, which never decays; the run will end at the limit %s",
-                        p.sourcePaths.get(k), Units.format(d.limit().si(), Dimension.TIME)));
+                ctx.warn(d.fraction().at(), "until", String.format("%s drives a ramped wave, whose field energy never falls; the run "
+                        + "will end at the latest time %s", p.sourcePaths.get(k), Units.format(d.latest().si(), Dimension.TIME)));
                 return;
             }
         }

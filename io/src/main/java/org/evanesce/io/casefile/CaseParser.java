@@ -75,8 +75,8 @@ final class CaseParser {
     /** The grid's nodes are moved by this fraction of a cell (an accuracy study's offset runs); 0 normally. */
     double gridOffset;
     SourcePosition resolutionAt;
-    /** The key the cell size came from: resolution.cell or resolution.cells_per_wavelength. */
-    String resolutionPath = "resolution";
+    /** The key the cell size came from: grid.cell or grid.cells_per_wavelength. */
+    String resolutionPath = "grid";
     final Map<Side, BoundarySpec> boundaries = new EnumMap<>(Side.class);
     final List<SourceSpec> sources = new ArrayList<>();
     final List<String> sourcePaths = new ArrayList<>();
@@ -135,10 +135,10 @@ final class CaseParser {
         }
         readShapes(top.get("shapes"));
         resolveUsedMaterials();
-        Node r = top.require("resolution", "a mapping with cell or cells_per_wavelength");
+        Node r = top.require("grid", "a mapping with cell or cells_per_wavelength");
         if (r != null) {
-            resolutionAt = top.keyAt("resolution");
-            readResolution(MapView.of(ctx, r, Schema.RESOLUTION, "resolution", resolutionAt));
+            resolutionAt = top.keyAt("grid");
+            readResolution(MapView.of(ctx, r, Schema.GRID, "grid", resolutionAt));
         }
         readBoundaries(top.get("boundaries"), top.has("boundaries") ? top.keyAt("boundaries") : top.at());
         readProbes(top.get("probes"));
@@ -147,9 +147,9 @@ final class CaseParser {
         mapsFailed = top.has("maps") && maps == null;
         Node o = top.get("output");
         readOutput(o == null ? null : MapView.of(ctx, o, Schema.OUTPUT, "output", top.keyAt("output")));
-        Node s = top.require("stop", "a mapping with time, steps or decay");
+        Node s = top.require("until", "a mapping with time, steps or latest (and energy_below)");
         if (s != null) {
-            readStop(MapView.of(ctx, s, Schema.STOP, "stop", top.keyAt("stop")));
+            readUntil(MapView.of(ctx, s, Schema.UNTIL, "until", top.keyAt("until")));
         }
         Node n = top.get("numerics");
         readNumerics(n == null ? null : MapView.of(ctx, n, Schema.NUMERICS, "numerics", top.keyAt("numerics")), top.at());
@@ -366,7 +366,7 @@ final class CaseParser {
         }
     }
 
-    // ---------------------------------------------------------------- resolution and boundaries
+    // ---------------------------------------------------------------- grid and boundaries
 
     private void readResolution(MapView v) {
         if (v == null) {
@@ -676,7 +676,7 @@ final class CaseParser {
         return new Located<>(c, ctx.pos(n));
     }
 
-    // ---------------------------------------------------------------- probes, output, stop, numerics
+    // ---------------------------------------------------------------- probes, output, until, numerics
 
     private void readProbes(Node node) {
         if (node == null || Context.isNull(node)) {
@@ -729,17 +729,27 @@ final class CaseParser {
         output = new OutputReader(ctx).readOutput(v, !probes.isEmpty(), polarization);
     }
 
-    private void readStop(MapView v) {
+    /**
+     * The stopping rule: a fixed time or number of steps, or the field energy falling below a fraction of its
+     * largest value ({@link StopSpec#DEFAULT_ENERGY_FRACTION} unless given) with a latest time.
+     */
+    private void readUntil(MapView v) {
         if (v == null) {
             return;
         }
-        String how = v.oneOf(false, "time", "steps", "decay");
-        Node ln = v.get("limit");
-        if (ln != null && !"decay".equals(how) && how != null) {
-            ctx.error(v.keyAt("limit"), v.path("limit"), "limit goes with decay only; with " + how + " the run length is already fixed");
+        Node fn = v.get("energy_below");
+        if (fn != null && !v.has("time") && !v.has("steps") && !v.has("latest") && !v.writtenAsOld("latest")) {
+            ctx.error(v.at(), v.path("latest"), "missing, expected a time such as 2 ps that ends the run if the field energy "
+                    + "never falls below energy_below");
             return;
         }
+        String how = v.oneOf(false, "time", "steps", "latest");
         if (how == null) {
+            return;
+        }
+        if (fn != null && !"latest".equals(how)) {
+            ctx.error(v.keyAt("energy_below"), v.path("energy_below"), "energy_below goes with latest only; with " + how
+                    + " the run length is already fixed");
             return;
         }
         switch (how) {
@@ -759,15 +769,15 @@ final class CaseParser {
                 break;
             }
             default: {
-                Value fraction = ctx.value(v.get("decay"), v.path("decay"), Expect.PLAIN);
+                Value latest = ctx.positive(v.get("latest"), v.path("latest"), Expect.TIME);
+                Value fraction = fn == null ? (latest == null ? null : new Value(StopSpec.DEFAULT_ENERGY_FRACTION, latest.at()))
+                        : ctx.value(fn, v.path("energy_below"), Expect.PLAIN);
                 if (fraction != null && !(fraction.si() > 0 && fraction.si() < 1)) {
-                    ctx.error(fraction.at(), v.path("decay"), "the energy fraction must lie between 0 and 1 (exclusive), got "
+                    ctx.error(fraction.at(), v.path("energy_below"), "the energy fraction must lie between 0 and 1 (exclusive), got "
                             + Units.number(fraction.si()));
                     fraction = null;
                 }
-                Node lim = v.require("limit", "a time such as 2 ps that ends the run if the fields never decay");
-                Value limit = lim == null ? null : ctx.positive(lim, v.path("limit"), Expect.TIME);
-                stop = fraction == null || limit == null ? null : new StopSpec.WhenDecayed(fraction, limit);
+                stop = fraction == null || latest == null ? null : new StopSpec.WhenEnergyBelow(fraction, latest);
             }
         }
     }

@@ -98,7 +98,7 @@ public final class CaseReader {
             Optional<Node> root = new Compose(settings).composeString(text);
             if (root.isEmpty()) {
                 ctx.error(new SourcePosition(source, 1, 1), "", "the file is empty; a case needs at least polarization, domain, "
-                        + "resolution, sources and stop");
+                        + "grid, sources and until");
                 return null;
             }
             return root.get();
@@ -119,9 +119,9 @@ public final class CaseReader {
         check(missing, p.polarization, "polarization");
         check(missing, p.designWavelength, "design_wavelength");
         check(missing, p.domain, "domain");
-        check(missing, p.resolution, "resolution");
+        check(missing, p.resolution, "grid");
         check(missing, p.output, "output");
-        check(missing, p.stop, "stop");
+        check(missing, p.stop, "until");
         check(missing, p.numerics, "numerics");
         if (p.boundaries.size() != 4) {
             missing.add("boundaries");

@@ -1,9 +1,11 @@
 package org.evanesce.io.casefile;
 
 import java.util.ArrayList;
+import java.util.HashSet;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import org.evanesce.io.casefile.expr.Suggest;
 import org.snakeyaml.engine.v2.nodes.MappingNode;
 import org.snakeyaml.engine.v2.nodes.Node;
@@ -21,6 +23,8 @@ final class MapView {
     private final String path;
     private final SourcePosition at;
     private final Map<String, NodeTuple> entries = new LinkedHashMap<>();
+    /** Keys whose earlier name was written (and refused): a missing key of this name is not reported again. */
+    private final Set<String> writtenAsOld = new HashSet<>();
 
     private MapView(Context ctx, Schema.Section section, String path, SourcePosition at) {
         this.ctx = ctx;
@@ -49,6 +53,11 @@ final class MapView {
             if (v.entries.containsKey(key)) {
                 ctx.error(ctx.pos(t.getKeyNode()), Context.join(path, key), "duplicate key, first given at line "
                         + ctx.pos(v.entries.get(key).getKeyNode()).line());
+            } else if (section.renamed().containsKey(key)) {
+                Schema.Renamed r = section.renamed().get(key);
+                v.writtenAsOld.add(r.now());
+                ctx.error(ctx.pos(t.getKeyNode()), Context.join(path, key), "no longer read: '" + key + "' is now '"
+                        + r.now() + "'; write " + r.advice());
             } else if (!section.accepts(key)) {
                 ctx.error(ctx.pos(t.getKeyNode()), Context.join(path, key), "unknown key" + Suggest.didYouMean(key, section.keys())
                         + ", expected one of " + String.join(", ", section.keys()));
@@ -102,10 +111,15 @@ final class MapView {
     /** The value of a key that must be present; reports and returns null when it is not. */
     Node require(String key, String expected) {
         Node n = get(key);
-        if (n == null) {
+        if (n == null && !writtenAsOld.contains(key)) {
             ctx.error(at, path(key), "missing, expected " + expected);
         }
         return n;
+    }
+
+    /** Whether the key an earlier version called {@code key} was written (and refused with advice). */
+    boolean writtenAsOld(String key) {
+        return writtenAsOld.contains(key);
     }
 
     /** Where a present key was written. */
@@ -129,7 +143,7 @@ final class MapView {
             return present.get(0);
         }
         if (present.isEmpty()) {
-            if (!optional) {
+            if (!optional && java.util.Arrays.stream(keys).noneMatch(writtenAsOld::contains)) {
                 ctx.error(at, path, "needs one of " + String.join(" or ", keys));
             }
             return null;

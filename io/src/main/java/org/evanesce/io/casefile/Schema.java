@@ -1,6 +1,7 @@
 package org.evanesce.io.casefile;
 
 import java.util.List;
+import java.util.Map;
 
 /**
  * The keys each section of a case file accepts. The reader refuses any other key, and
@@ -12,12 +13,30 @@ import java.util.List;
  */
 final class Schema {
 
-    /** One section of the file: a mapping with a fixed set of keys. */
-    record Section(String id, List<String> keys) {
+    /**
+     * One section of the file: a mapping with a fixed set of keys.
+     *
+     * @param renamed keys an earlier version of the program read here, each with the key that replaced it; the
+     *                reader refuses them with that advice, so that no case file silently changes meaning
+     */
+    record Section(String id, List<String> keys, Map<String, Renamed> renamed) {
+
+        Section(String id, List<String> keys) {
+            this(id, keys, Map.of());
+        }
 
         boolean accepts(String key) {
             return keys.contains(key);
         }
+    }
+
+    /**
+     * A key of an earlier version and its replacement.
+     *
+     * @param now    the key to write instead (one of the section's keys)
+     * @param advice how to write it, one clause (e.g. the new keys inside it)
+     */
+    record Renamed(String now, String advice) {
     }
 
     /** The most characters of a name that heads output columns (probes, flux lines, decay lines). */
@@ -26,10 +45,13 @@ final class Schema {
     static final String NAME = "[A-Za-z0-9_.-]{1," + NAME_LENGTH + "}";
 
     static final Section ROOT = new Section("(top level)", List.of("title", "parameters", "design_wavelength",
-            "design_frequency", "polarization", "domain", "resolution", "materials", "shapes", "boundaries", "sources",
-            "probes", "flux", "maps", "output", "stop", "numerics"));
+            "design_frequency", "polarization", "domain", "grid", "materials", "shapes", "boundaries", "sources",
+            "probes", "flux", "maps", "output", "until", "numerics"),
+            Map.of("resolution", new Renamed("grid", "grid: {cell: ...} or grid: {cells_per_wavelength: ...}, with the same keys"),
+                    "stop", new Renamed("until", "until: {time: ...}, {steps: ...} or {energy_below: ..., latest: ...}; "
+                            + "decay is now energy_below and limit is now latest")));
     static final Section DOMAIN = new Section("domain", List.of("width", "height", "background"));
-    static final Section RESOLUTION = new Section("resolution", List.of("cell", "cells_per_wavelength"));
+    static final Section GRID = new Section("grid", List.of("cell", "cells_per_wavelength"));
     static final Section MATERIAL = new Section("materials.NAME", List.of("index", "permittivity", "library", "conductivity"));
 
     /** The kinds of shape: each list entry has one of these as its only key. */
@@ -73,7 +95,9 @@ final class Schema {
     static final Section MAP_WAVELENGTH_RANGE = new Section("maps.wavelengths", List.of("from", "to", "count"));
     static final Section MAP_FREQUENCY_RANGE = new Section("maps.frequencies", List.of("from", "to", "count"));
     static final Section DECAY_LINE = new Section("maps.decay[]", List.of("name", "from", "to"));
-    static final Section STOP = new Section("stop", List.of("time", "steps", "decay", "limit"));
+    static final Section UNTIL = new Section("until", List.of("time", "steps", "energy_below", "latest"),
+            Map.of("decay", new Renamed("energy_below", "energy_below: FRACTION, the same fraction of the largest field energy"),
+                    "limit", new Renamed("latest", "latest: TIME, the same simulated time")));
     static final Section NUMERICS = new Section("numerics", List.of("precision", "threads", "courant",
             "dispersion_correction"));
 
@@ -84,10 +108,10 @@ final class Schema {
     static final Section SWEEP = new Section("sweep", List.of("parameters", "combine"));
     static final Section SWEEP_RANGE = new Section("sweep.parameters.NAME", List.of("from", "to", "count", "spacing"));
 
-    static final List<Section> ALL = List.of(ROOT, DOMAIN, RESOLUTION, MATERIAL, SHAPES, RECTANGLE, POLYGON, DISK,
+    static final List<Section> ALL = List.of(ROOT, DOMAIN, GRID, MATERIAL, SHAPES, RECTANGLE, POLYGON, DISK,
             ELLIPSE, HALF_PLANE, LAYER_STACK, LAYER, BOUNDARIES, SOURCES, POINT_SOURCE, LINE_SOURCE, PLANE_WAVE, GAUSSIAN_BEAM, SIGNAL,
             PULSE, RAMPED_WAVE, GAUSSIAN_DERIVATIVE, PROBE, FLUX, WAVELENGTH_RANGE, FREQUENCY_RANGE, FLUX_LINE, MAPS, MAP_WAVELENGTH_RANGE,
-            MAP_FREQUENCY_RANGE, DECAY_LINE, OUTPUT, REGION, STOP,
+            MAP_FREQUENCY_RANGE, DECAY_LINE, OUTPUT, REGION, UNTIL,
             NUMERICS, SWEEP, SWEEP_RANGE);
 
     private Schema() {

@@ -64,7 +64,7 @@ final class CaseExecution {
         o.printf(Locale.ROOT, "%s: %d x %d cells of %.4g nm, up to %d steps, %s polarization%s; writing %s%n",
                 s.source(), plan.grid().nx(), plan.grid().ny(), plan.grid().cellSize() * 1e9, plan.stop().maxSteps(),
                 s.polarization().value().name().toLowerCase(Locale.ROOT),
-                plan.flux().isPresent() ? ", then a reference run for the incident power" : "", rf.target());
+                plan.flux().isPresent() ? ", then an incident-power run" : "", rf.target());
         ProgressLine progress = new ProgressLine(o, terminal, plan.dt());
         List<Xdmf.Grid> frames = new ArrayList<>();
         if (plan.fields().frameSteps().length > 0) {
@@ -121,7 +121,7 @@ final class CaseExecution {
         long cells = (long) plan.grid().nx() * plan.grid().ny();
         o.printf(Locale.ROOT, "done: %d steps in %.1f s (%.0f Mcell/s, %d threads)%s; %s%n", r.steps(), r.wallSeconds(),
                 r.cellUpdatesPerSecond(cells) / 1e6, r.threads(),
-                plan.flux().isPresent() ? String.format(Locale.ROOT, ", reference run %.1f s", r.referenceWallSeconds()) : "",
+                plan.flux().isPresent() ? String.format(Locale.ROOT, ", incident-power run %.1f s", r.incidentPowerRunWallSeconds()) : "",
                 r.stopReason());
         if (flux != null && table) {
             FluxTable.print(o, flux);

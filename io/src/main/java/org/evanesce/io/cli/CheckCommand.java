@@ -68,12 +68,12 @@ public final class CheckCommand implements Callable<Integer> {
                 }
                 double sec = (System.nanoTime() - t0) * 1e-9;
                 double rate = steps / sec;
-                // a flux case runs a reference of the same grid for as many steps
+                // a flux case runs an incident-power run of the same grid for as many steps
                 int runs = plan.flux().isPresent() ? 2 : 1;
                 o.printf(Locale.ROOT, "trial: %d steps in %.2f s (%.0f Mcell/s); estimated run time "
                         + "%.0f s%s%s%n", steps, sec, rate * cells / 1e6, runs * maxSteps / rate,
                         plan.stop() instanceof CasePlan.Stop.Decay ? " at most" : "",
-                        runs == 2 ? " (with the reference run for the incident power)" : "");
+                        runs == 2 ? " (with the incident-power run)" : "");
             }
         }
         Path png = preview != null ? preview : defaultPreview(options.caseFile);

@@ -574,10 +574,10 @@ public final class CasePlanner {
             return new CasePlan.Stop.Steps(s.steps().value());
         }
         if (st instanceof StopSpec.AfterTime t) {
-            return new CasePlan.Stop.Steps(steps(t.time(), "stop.time", dt));
+            return new CasePlan.Stop.Steps(steps(t.time(), "until.time", dt));
         }
-        StopSpec.WhenDecayed d = (StopSpec.WhenDecayed) st;
-        long limit = steps(d.limit(), "stop.limit", dt);
+        StopSpec.WhenEnergyBelow d = (StopSpec.WhenEnergyBelow) st;
+        long limit = steps(d.latest(), "until.latest", dt);
         long fadeSteps = Double.isFinite(fade) ? (long) Math.ceil(fade / dt) : limit;
         return new CasePlan.Stop.Decay(d.fraction().si(), Math.min(fadeSteps, limit), limit, DECAY_CHECK_INTERVAL);
     }

@@ -12,8 +12,8 @@ import org.evanesce.solver.reference.PlanarStack;
 
 /**
  * The frequency-domain flux of a plane-wave case and how it is normalised: the same lines are
- * recorded in the case's run and in a reference run of the same grid, source and boundaries with
- * the whole domain filled with the plane wave's medium. The incident power is the reference run's
+ * recorded in the case's run and in an incident-power run of the same grid, source and boundaries with
+ * the whole domain filled with the plane wave's medium. The incident power is the incident-power run's
  * flux through a line a few cells ahead of the source; a reflected line reports the flux of the
  * difference of the two runs' fields (the scattered field, which there is the reflected wave).
  *
@@ -23,9 +23,9 @@ import org.evanesce.solver.reference.PlanarStack;
  * @param mediumIndex    its index
  * @param direction      +1 when the incident wave travels towards +y, −1 towards −y
  * @param lines          the case's lines, in its order
- * @param incident       the reference run's line just ahead of the source
+ * @param incident       the incident-power run's line just ahead of the source
  * @param incidentY      where that line lies, m
- * @param reference      the reference run, ready to build (lines registered)
+ * @param reference      the incident-power run, ready to build (lines registered)
  * @param cellSize       Δ, m
  * @param exact          the exact reference when asked for: the stack at a vacuum wavelength, from the source's
  *                       medium towards {@code direction} (for a beam, the stack under it)
@@ -38,7 +38,7 @@ import org.evanesce.solver.reference.PlanarStack;
  * @param lineLength     the length of the lines (and of the incident line) along x, m
  * @param sourceAmplitude the source's amplitude as the case states it: a plane wave's sheet current (η0 J_s in V/m
  *                       for s, the magnetic sheet current in V/m for p), a beam's z field at the waist centre (V/m)
- * @param path           a beam's path line in the reference run, when the case compares reflected lines with the
+ * @param path           a beam's path line in the incident-power run, when the case compares reflected lines with the
  *                       exact answer (see {@link Path})
  */
 public record FluxPlan(double[] frequencies, double kx, String medium, double mediumIndex, int direction, List<Line> lines,
@@ -52,8 +52,8 @@ public record FluxPlan(double[] frequencies, double kx, String medium, double me
      *
      * @param window    the transform window
      * @param run       per case line (in order), its early and late halves in the case's run
-     * @param reference the same in the reference run
-     * @param incident  the incident line's early and late halves (reference run)
+     * @param reference the same in the incident-power run
+     * @param incident  the incident line's early and late halves (incident-power run)
      */
     public record Steady(SteadyState window, List<FluxLine[]> run, List<FluxLine[]> reference, FluxLine[] incident) {
         public Steady {
@@ -79,11 +79,11 @@ public record FluxPlan(double[] frequencies, double kx, String medium, double me
     public record Exact(DoubleFunction<PlanarStack> stack, double firstInterface, double column) { }
 
     /**
-     * A line of the reference run farther along the incident beam's path (at the mirror image of a reflected
+     * A line of the incident-power run farther along the incident beam's path (at the mirror image of a reflected
      * line through the first interface, where it fits): with the incident line it gives where the incident beam
      * travels on the grid, the baseline of the lateral shift.
      *
-     * @param line the line, recorded in the reference run
+     * @param line the line, recorded in the incident-power run
      * @param y    its height, m
      */
     public record Path(FluxLine line, double y) { }
@@ -100,7 +100,7 @@ public record FluxPlan(double[] frequencies, double kx, String medium, double me
      * @param row       the grid row it follows: the line is at y = y0 + (row + ½)Δ
      * @param y         that height, m
      * @param run       the line in the case's run
-     * @param reference the same line in the reference run
+     * @param reference the same line in the incident-power run
      */
     public record Line(FluxSpec.Line spec, int row, double y, FluxLine run, FluxLine reference) { }
 

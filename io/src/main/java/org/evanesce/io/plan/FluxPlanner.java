@@ -23,7 +23,7 @@ import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.record.FluxLine;
 
-/** Plans a case's flux lines, the reference run that normalises them and, for a layered scene, the exact stack. */
+/** Plans a case's flux lines, the incident-power run that normalises them and, for a layered scene, the exact stack. */
 final class FluxPlanner {
 
     /** The incident power is read this many cells ahead of the launching line (clear of the source row's own cells). */
@@ -109,7 +109,7 @@ final class FluxPlanner {
     static final int MIN_PATH_CELLS = 10;
 
     /**
-     * The reference run's row for the beam's path line: the mirror image, through the first interface, of the
+     * The incident-power run's row for the beam's path line: the mirror image, through the first interface, of the
      * reflected line farthest from it (where the incident beam would be after the same vertical travel as the
      * reflected one), moved inside the interior (one cell clear of its edges) if it falls outside; −1 when the
      * case has no reflected line or the row would lie fewer than {@value #MIN_PATH_CELLS} cells beyond the
@@ -162,7 +162,7 @@ final class FluxPlanner {
         double period = 1 / rw.frequency().si();
         long periods = (long) Math.floor((end - settle) / period);
         if (periods < MIN_PERIODS) {
-            errors.add(new Diagnostic(Diagnostic.Severity.ERROR, spec.stop().at(), "stop", String.format(java.util.Locale.ROOT,
+            errors.add(new Diagnostic(Diagnostic.Severity.ERROR, spec.stop().at(), "until", String.format(java.util.Locale.ROOT,
                     "a continuous wave's flux is read over whole periods after the fields have settled (%s: three ramps and "
                             + "two crossings of the domain); the run ends at %s, leaving %d periods, fewer than %d; run until at "
                             + "least %s (or use a pulse)", Units.format(settle, Dimension.TIME), Units.format(end, Dimension.TIME),

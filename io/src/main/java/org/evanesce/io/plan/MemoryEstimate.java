@@ -22,7 +22,7 @@ import org.evanesce.solver.grid.Side;
  *
  * <p>The estimate is the sum of what stays allocated during the run (the material grid, the fields,
  * coefficients and CPML arrays, the recorders: flux lines, maps, probes; and for a flux case the
- * reference run's grid, fields and lines, which exist at the same time as the case's own) plus the
+ * incident-power run's grid, fields and lines, which exist at the same time as the case's own) plus the
  * largest of what exists only for a while (the subpixel smoothing's work, the coefficients in double
  * while the fields are built, one output file or picture being written), plus a fixed allowance for
  * the program itself. It is an upper bound for the arrays the solver counts itself
@@ -112,7 +112,7 @@ public record MemoryEstimate(List<Item> items) {
      * @param sides    the solver's sides
      * @param interior the nodes outside every PML, {i0, j0, i1, j1}
      * @param maxSteps the most steps the run can take
-     * @param medium   the plane wave's or beam's medium, for the flux reference run (null without flux)
+     * @param medium   the plane wave's or beam's medium, for the incident-power run (null without flux)
      */
     static MemoryEstimate of(CaseSpec spec, GridSpec grid, Map<Side, Boundary> sides, int[] interior, long maxSteps,
                              MaterialSpec medium) {
@@ -146,7 +146,7 @@ public record MemoryEstimate(List<Item> items) {
             int lines = flux.lines().size();
             held.add(new Item("flux lines", saturated(perLine, 2L * lines + 1), flux.at(), "flux", "fewer lines or wavelengths"));
             long[] r = Simulation.footprint(grid.nx(), grid.ny(), pol, precision, sides, medium.conductivity().si() != 0);
-            held.add(new Item("reference run", 6 * nodes + r[0] + r[1], flux.at(), "flux", gridAdvice));
+            held.add(new Item("incident-power run", 6 * nodes + r[0] + r[1], flux.at(), "flux", gridAdvice));
         }
         if (spec.maps().isPresent()) {
             var m = spec.maps().get();

@@ -20,7 +20,7 @@ import org.evanesce.solver.reference.PlanarStack;
  * carried from the interface to the line along the specular (reflected lines) or refracted
  * (transmitted lines) direction: a geometric move for the eye, without the diffraction over that
  * distance. Lines that see less than {@link FluxResults#MIN_BEAM_POWER} of the incident power are not
- * drawn. {@code beam-incident.png} shows the incident beam on the reference run's incident line.
+ * drawn. {@code beam-incident.png} shows the incident beam on the incident-power run's incident line.
  */
 public final class BeamPlots {
 
@@ -113,7 +113,7 @@ public final class BeamPlots {
         for (int k = 0; k < ix.length; k++) {
             ix[k] *= 1e6;
         }
-        LinePlot.builder().title(String.format(Locale.ROOT, "incident beam at y = %.4g um (reference run), %.1f nm",
+        LinePlot.builder().title(String.format(Locale.ROOT, "incident beam at y = %.4g um (incident-power run), %.1f nm",
                         plan.incidentY() * 1e6, wl * 1e9))
                 .xTitle("x (um)").yTitle("flux density (peak = 1)")
                 .series("simulated", ix, normalised(in.weight()), LinePlot.Style.LINES)

@@ -97,8 +97,8 @@ final class BeamReference {
 
     /**
      * Where the specular beam crosses height y on the grid at frequency number q, m: the incident beam's own
-     * path, measured in the reference run (the homogeneous medium), carried over the same vertical travel as
-     * the reflected beam's. The reference run's beam has its flux-weighted centroid c1 on the incident line (y1)
+     * path, measured in the incident-power run (the homogeneous medium), carried over the same vertical travel as
+     * the reflected beam's. The incident-power run's beam has its flux-weighted centroid c1 on the incident line (y1)
      * and c2 on the path line (y2, beyond the interface's height); the centroid of a beam in a homogeneous
      * medium moves in a straight line, and the grid's dispersion does not change between a wave going up and
      * one coming down (its dispersion relation is even in ky), so the specularly reflected beam, after a

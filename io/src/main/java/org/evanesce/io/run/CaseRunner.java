@@ -22,24 +22,24 @@ public final class CaseRunner {
      * @param finalEnergy    energy inside the PMLs at the end, J/m (NaN if never measured)
      * @param peakEnergy     largest energy measured, J/m (NaN if never measured)
      * @param bytes          bytes of field, coefficient and PML arrays
-     * @param referenceWallSeconds wall time of the flux normalisation's reference run (0 when there is none)
+     * @param incidentPowerRunWallSeconds wall time of the flux normalisation's incident-power run (0 when there is none)
      * @param resumedFromStep the step the run continued from a checkpoint at, or −1
      * @param stoppedByLimit the run ended at its time limit before its fields decayed as asked (a decay stop only)
-     * @param referenceFinalEnergy energy inside the PMLs of the reference run at its end, J/m (NaN without one)
-     * @param referencePeakEnergy  the largest energy measured in the reference run, J/m (NaN without one)
+     * @param incidentPowerRunFinalEnergy energy inside the PMLs of the incident-power run at its end, J/m (NaN without one)
+     * @param incidentPowerRunPeakEnergy  the largest energy measured in the incident-power run, J/m (NaN without one)
      */
     public record Result(long steps, double wallSeconds, int threads, String stopReason, double finalEnergy,
-                         double peakEnergy, long bytes, double referenceWallSeconds, long resumedFromStep,
-                         boolean stoppedByLimit, double referenceFinalEnergy, double referencePeakEnergy) {
+                         double peakEnergy, long bytes, double incidentPowerRunWallSeconds, long resumedFromStep,
+                         boolean stoppedByLimit, double incidentPowerRunFinalEnergy, double incidentPowerRunPeakEnergy) {
 
         /** The energy at the end over the largest measured, or NaN when never measured (0 when none ever arrived). */
         public double energyFraction() {
             return fraction(finalEnergy, peakEnergy);
         }
 
-        /** The same for the reference run. */
-        public double referenceEnergyFraction() {
-            return fraction(referenceFinalEnergy, referencePeakEnergy);
+        /** The same for the incident-power run. */
+        public double incidentPowerRunEnergyFraction() {
+            return fraction(incidentPowerRunFinalEnergy, incidentPowerRunPeakEnergy);
         }
 
         private static double fraction(double last, double peak) {
@@ -108,7 +108,7 @@ public final class CaseRunner {
      * The same with checkpoints: the run's whole state is saved to {@code ck.file()} (atomically) at
      * least every {@code ck.intervalSeconds()} of wall time and when its stepping ends; if that file
      * holds a checkpoint of the same case (same identity) the run continues from it, bit for bit. A
-     * run stopped during its flux reference run repeats only the reference run.
+     * run stopped during its incident-power run repeats only the incident-power run.
      */
     public static Result run(CasePlan plan, Consumer<Progress.Report> progress, double progressSeconds,
                              Consumer<org.evanesce.solver.record.StepView> atEnd, Checkpoints ck) {
@@ -153,7 +153,7 @@ public final class CaseRunner {
                     energy = sim.energy(r[0], r[1], r[2], r[3]);
                     peak = Math.max(peak, energy);
                     if (sim.stepCount() >= d.fadeSteps() && energy <= d.fraction() * peak) {
-                        reason = String.format("the field energy decayed to %.3g of its largest value (asked: %.3g)",
+                        reason = String.format("the field energy fell to %.3g of its largest value (asked: below %.3g)",
                                 peak > 0 ? energy / peak : 0.0, d.fraction());
                         break;
                     }
@@ -163,28 +163,28 @@ public final class CaseRunner {
                     }
                 }
                 if (reason == null && plan.continuous()) {
-                    reason = String.format("ran to the time limit (%d steps): a continuous wave does not decay", d.limitSteps());
+                    reason = String.format("ran to the latest time (%d steps): a continuous wave's field energy does not fall", d.limitSteps());
                 } else if (reason == null) {
                     byLimit = true;
-                    reason = String.format("reached the time limit (%d steps) before the energy decayed to %.3g of its "
+                    reason = String.format("reached the latest time (%d steps) before the energy fell below %.3g of its "
                             + "largest value (now %.3g)", d.limitSteps(), d.fraction(), peak > 0 ? energy / peak : 0.0);
                 }
             }
             double wall = before + (restored != null && restored.reason() != null ? 0 : (System.nanoTime() - t0) * 1e-9);
             if (ck != null && plan.flux().isPresent() && (restored == null || restored.reason() == null)) {
-                // the stepping is done and the reference run follows: a restart from here repeats only that
+                // the stepping is done and the incident-power run follows: a restart from here repeats only that
                 ck.save(sim, peak, energy, reason, wall);
             }
             if (atEnd != null) {
                 atEnd.accept(sim);
             }
-            if (restored != null && restored.reason() != null && reason.startsWith("reached the time limit")) {
+            if (restored != null && restored.reason() != null && (reason.startsWith("reached the latest time") || reason.startsWith("reached the time limit"))) {
                 byLimit = true;
             }
             double[] reference = {0, Double.NaN, Double.NaN};
             if (plan.flux().isPresent()) {
-                reference = runReference(plan, sim.stepCount(), progress, progressSeconds);
-                reason += "; the reference run (for the incident power) took the same number of steps";
+                reference = runIncidentPower(plan, sim.stepCount(), progress, progressSeconds);
+                reason += "; the incident-power run took the same number of steps";
             }
             return new Result(sim.stepCount(), wall, sim.threads(), reason, energy, peak, sim.bytes(), reference[0],
                     resumedFrom, byLimit, reference[1], reference[2]);
@@ -197,13 +197,13 @@ public final class CaseRunner {
      *
      * @return its wall time, s, its energy inside the PMLs at the end and the largest measured, J/m
      */
-    private static double[] runReference(CasePlan plan, long steps, Consumer<Progress.Report> progress, double progressSeconds) {
+    private static double[] runIncidentPower(CasePlan plan, long steps, Consumer<Progress.Report> progress, double progressSeconds) {
         Simulation.Builder b = plan.flux().orElseThrow().reference();
         Simulation ref;
         try {
             ref = b.build();
         } catch (IllegalArgumentException e) {
-            throw new RefusedException(plan.spec().source() + ": the solver refused the reference run: "
+            throw new RefusedException(plan.spec().source() + ": the solver refused the incident-power run: "
                     + e.getMessage().replace("\n", "; "), e);
         }
         try (ref) {

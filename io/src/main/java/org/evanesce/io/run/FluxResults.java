@@ -13,7 +13,7 @@ import org.evanesce.solver.reference.AngularSpectrum;
 import org.evanesce.solver.reference.PlanarStack;
 
 /**
- * Normalised flux per frequency from a finished run and its reference run: T through each
+ * Normalised flux per frequency from a finished run and its incident-power run: T through each
  * transmitted line, R through each reflected line, the absorptance A = 1 − R − T when there is one
  * line of each, and, for a layered scene, the transfer-matrix values beside them with the difference.
  *
@@ -57,8 +57,8 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
 
     /** Where the normalisation comes from, written into summary.json and the command's output. */
     public static final String METHOD = "T = flux of the run's fields through the line in the incident direction / incident "
-            + "power; R = flux of (run's fields − reference run's fields) against the incident direction / incident power; "
-            + "the incident power is the reference run's flux through a line just ahead of the source; the reference run "
+            + "power; R = flux of (run's fields − incident-power run's fields) against the incident direction / incident power; "
+            + "the incident power is the incident-power run's flux through a line just ahead of the source; the incident-power run "
             + "is the same grid, source, boundaries and number of steps with the whole domain filled with the plane wave's "
             + "medium. A = 1 − R − T.";
 
@@ -257,7 +257,7 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
                         + "X_beam. X_beam − X_plane_wave is the part due to the beam's angular spread, X_diff the part due to "
                         + "edges and geometry (and the grid). shift_name_um: the simulated reflected centroid minus "
                         + "where the incident beam itself lies after the same path on the grid (its centroids in the "
-                        + "reference run on the incident line and on a line at the mirror image of the reflected line "
+                        + "incident-power run on the incident line and on a line at the mirror image of the reflected line "
                         + "through the interface" + (plan.path().isPresent() ? ", y = " + plan.path().get().y() + " m"
                         : ": none fitted, so the nominal specular position") + ", carried along its straight path), so "
                         + "that the grid's effect on the beam's direction is not counted as shift; shift_name_beam_um: the angular spectrum's on the same line (flux-weighted, carried from "

@@ -183,13 +183,13 @@ public final class RunOutputs {
         run.put("cell_updates_per_second", r.cellUpdatesPerSecond(cells));
         run.put("memory_bytes", r.bytes());
         if (plan.flux().isPresent()) {
-            run.put("reference_run_wall_time_s", r.referenceWallSeconds());
+            run.put("incident_power_run_wall_time_s", r.incidentPowerRunWallSeconds());
         }
         run.put("final_energy_j_per_m", r.finalEnergy());
         run.put("peak_energy_j_per_m", r.peakEnergy());
         if (plan.flux().isPresent()) {
-            run.put("reference_final_energy_j_per_m", r.referenceFinalEnergy());
-            run.put("reference_peak_energy_j_per_m", r.referencePeakEnergy());
+            run.put("incident_power_run_final_energy_j_per_m", r.incidentPowerRunFinalEnergy());
+            run.put("incident_power_run_peak_energy_j_per_m", r.incidentPowerRunPeakEnergy());
         }
         run.put("settling", settling.record());
         m.put("run", run);

@@ -20,8 +20,8 @@ import org.evanesce.solver.record.FluxLine;
  *
  * <ul>
  * <li>pulses: the field energy inside the PMLs must have decayed to the asked fraction of its largest value
- *     (a decay stop), or to {@link #FIXED_LENGTH_FRACTION} for a run of fixed length ({@code stop: time} or
- *     {@code steps}) with flux or maps; the flux normalisation's reference run the same;</li>
+ *     ({@code until: {energy_below, latest}}), or to {@link #FIXED_LENGTH_FRACTION} for a run of fixed length
+ *     ({@code until: time} or {@code steps}) with flux or maps; the flux normalisation's incident-power run the same;</li>
  * <li>a continuous (ramped) wave: the normalised flux, and the maps' middle row, must not change between
  *     the two halves of the transform window by more than {@link SteadyState#TOLERANCE}, and maps must be
  *     transformed over such a window at all.</li>
@@ -33,27 +33,30 @@ import org.evanesce.solver.record.FluxLine;
  * @param settled        true, false, or null when not judged
  * @param rule           the rule applied, in words
  * @param energyFraction the field energy at the end over its largest value (NaN if not measured)
- * @param referenceEnergyFraction the same for the reference run (NaN without one)
+ * @param incidentPowerRunEnergyFraction the same for the incident-power run (NaN without one)
  * @param steadyChange   a continuous wave's largest change between the window's halves (NaN otherwise)
  * @param steadyChanges  each quantity's change between the halves, by name (flux.csv's column names,
  *                       {@code incident_power}, {@code maps}); empty without a continuous wave's window
  * @param warnings       what to tell the user, one sentence each (empty when settled)
  */
-public record Settling(Boolean settled, String rule, double energyFraction, double referenceEnergyFraction,
+public record Settling(Boolean settled, String rule, double energyFraction, double incidentPowerRunEnergyFraction,
                        double steadyChange, Map<String, Double> steadyChanges, List<String> warnings) {
 
     /**
      * The energy fraction a fixed-length pulse run with flux or maps must reach to count as settled.
-     * Measured on cases/gap-tunnelling-plane-wave.yaml (limit shortened with --set duration): a run ending with
+     * Measured on cases/gap-tunnelling-plane-wave.yaml (run shortened with --set duration): a run ending with
      * 5.1e-6 of the largest energy left had A = 1 − R − T = 9e-4 (exact 0) and T off by 2.5e-4, one ending with
      * 2.9e-3 left had A = 0.027; the error goes as about 0.4 √fraction, so 1e-5 keeps it near 1e-3, a fifth of the
-     * discretisation error at 20 cells per wavelength (0.005, README).
+     * discretisation error at 20 cells per wavelength (0.005, README). A warning threshold, so ten times looser than
+     * the default energy fraction of {@code until: {latest: ...}} ({@link org.evanesce.io.casefile.StopSpec#DEFAULT_ENERGY_FRACTION},
+     * which aims at errors below 1e-4): a run flagged here is off by about 1e-3 or more, one that
+     * reaches the default by some 1e-4 or less.
      */
     public static final double FIXED_LENGTH_FRACTION = 1e-5;
 
     /**
      * A ramp this long (in periods) keeps the grazing part of a plane wave's switch-on small: the plane wave
-     * totally reflected at 45° of docs/case-file.md (`stop`) settled to 6.5e-5 with 10 periods, not below 6e-4 with 5.
+     * totally reflected at 45° of docs/case-file.md (`until`) settled to 6.5e-5 with 10 periods, not below 6e-4 with 5.
      */
     static final int LONG_RAMP_PERIODS = 10;
 
@@ -76,13 +79,13 @@ public record Settling(Boolean settled, String rule, double energyFraction, doub
         boolean maps = plan.fields().maps().isPresent();
         boolean hasFlux = plan.flux().isPresent();
         double fraction = r.energyFraction();
-        double refFraction = r.referenceEnergyFraction();
+        double incidentRunFraction = r.incidentPowerRunEnergyFraction();
         List<String> warn = new ArrayList<>();
         String end = Units.format(r.steps() * plan.dt(), Dimension.TIME, 3);
         if (continuous) {
             if (!hasFlux && !maps) {
                 return new Settling(null, "not judged: a continuous wave without flux or maps (time series and snapshots "
-                        + "are taken when asked)", fraction, refFraction, Double.NaN, Map.of(), warn);
+                        + "are taken when asked)", fraction, incidentRunFraction, Double.NaN, Map.of(), warn);
             }
             Map<String, Double> changes = new LinkedHashMap<>();
             if (hasFlux && plan.flux().get().steady().isPresent()) {
@@ -112,39 +115,40 @@ public record Settling(Boolean settled, String rule, double energyFraction, doub
             if (w != null && change > SteadyState.TOLERANCE) {
                 warn.add(String.format(Locale.ROOT, "the results did not settle: %s changed by %.3g between the two halves of "
                         + "the transform window (%s), more than the tolerance %.3g; the continuous wave had not reached its "
-                        + "steady state, so flux%s are biased; run longer (stop time, or the limit; e.g. twice %s)%s",
+                        + "steady state, so flux%s are biased; run longer (until.time, or until.latest; e.g. twice %s)%s",
                         describe(what), change, w.describe(), SteadyState.TOLERANCE, maps ? " and maps" : "", end,
                         plan.flux().isPresent() && plan.flux().get().kx() != 0 && ramp(plan) < LONG_RAMP_PERIODS - 1e-6
                                 ? String.format(Locale.ROOT, ", or give the wave a ramp of %d periods or more (a plane wave "
-                                + "at an oblique angle settles slowly after a short ramp; docs/case-file.md, stop)",
+                                + "at an oblique angle settles slowly after a short ramp; docs/case-file.md, until)",
                                 LONG_RAMP_PERIODS) : ""));
             }
-            return new Settling(warn.isEmpty(), rule, fraction, refFraction, w == null ? Double.NaN : change, changes, warn);
+            return new Settling(warn.isEmpty(), rule, fraction, incidentRunFraction, w == null ? Double.NaN : change, changes, warn);
         }
         boolean decayStop = plan.stop() instanceof CasePlan.Stop.Decay;
         if (!decayStop && !hasFlux && !maps) {
             return new Settling(null, "not judged: a run of fixed length without flux or maps (time series and snapshots "
-                    + "are taken when asked)", fraction, refFraction, Double.NaN, Map.of(), warn);
+                    + "are taken when asked)", fraction, incidentRunFraction, Double.NaN, Map.of(), warn);
         }
         double asked = decayStop ? ((CasePlan.Stop.Decay) plan.stop()).fraction() : FIXED_LENGTH_FRACTION;
         String rule = String.format(Locale.ROOT, "the field energy inside the PMLs must decay to %.3g of its largest value "
-                + "by the end of the run%s", asked, hasFlux ? ", in the case's run and in the reference run" : "");
+                + "by the end of the run%s", asked, hasFlux ? ", in the case's run and in the incident-power run" : "");
         boolean ok = decayStop ? !r.stoppedByLimit() : !(fraction > asked);
         if (!ok) {
             String what = hasFlux && maps ? "flux and maps" : hasFlux ? "the flux" : maps ? "the maps" : null;
             warn.add(String.format(Locale.ROOT, "the results did not settle: the run ended at %s with the field energy still "
                     + "at %.3g of its largest value (%s %.3g); %s; run longer (%s)", end, fraction,
-                    decayStop ? "the case asks for a decay to" : "settled means below", asked,
+                    decayStop ? "the case asks for energy below" : "settled means below", asked,
                     what == null ? "the fields had not decayed as the case asks"
                             : "the transforms miss what had not yet passed, so " + what + " can be far off",
-                    decayStop ? "raise the stop's limit" : "a longer stop time, or stop: {decay: 1e-5, limit: ...}"));
+                    decayStop ? "raise until.latest" : "a longer until.time, or until: {latest: ...}, which runs until the energy "
+                            + "falls below " + org.evanesce.io.casefile.StopSpec.DEFAULT_ENERGY_FRACTION));
         }
-        if (hasFlux && refFraction > asked) {
-            warn.add(String.format(Locale.ROOT, "the flux normalisation did not settle: the reference run (the incident "
-                    + "power) ended at %s with its field energy still at %.3g of its largest value (settled means below "
-                    + "%.3g), so the incident power and every T and R are off; run longer", end, refFraction, asked));
+        if (hasFlux && incidentRunFraction > asked) {
+            warn.add(String.format(Locale.ROOT, "the flux normalisation did not settle: the incident-power run "
+                    + "ended at %s with its field energy still at %.3g of its largest value (settled means below "
+                    + "%.3g), so the incident power and every T and R are off; run longer", end, incidentRunFraction, asked));
         }
-        return new Settling(warn.isEmpty(), rule, fraction, refFraction, Double.NaN, Map.of(), warn);
+        return new Settling(warn.isEmpty(), rule, fraction, incidentRunFraction, Double.NaN, Map.of(), warn);
     }
 
     /**
@@ -224,7 +228,7 @@ public record Settling(Boolean settled, String rule, double energyFraction, doub
         m.put("settled", settled);
         m.put("rule", rule);
         m.put("energy_fraction", energyFraction);
-        m.put("reference_energy_fraction", referenceEnergyFraction);
+        m.put("incident_power_run_energy_fraction", incidentPowerRunEnergyFraction);
         m.put("steady_state_change", steadyChange);
         m.put("steady_state_changes", steadyChanges.isEmpty() ? null : new LinkedHashMap<>(steadyChanges));
         m.put("steady_state_tolerance", Double.isNaN(steadyChange) ? null : SteadyState.TOLERANCE);

@@ -26,8 +26,8 @@ public record Parallelism(int parallel, int threadsPerPoint, String reason) {
      * @param cores        threads the sweep may use in all
      * @param cells        the largest grid of the points to run (nx × ny)
      * @param rows         the rows (ny) of that grid
-     * @param bytesPerPoint memory one point needs (the planner's estimate: its grid, recorders and the flux
-     *                     reference run's beside it)
+     * @param bytesPerPoint memory one point needs (the planner's estimate: its grid, recorders and the
+     *                     incident-power run's beside it)
      * @param memory       memory the JVM may use
      * @param points       points to run
      * @param forced       {@code --parallel}, or null

@@ -21,10 +21,10 @@ class CaseErrorsTest {
     private static final String BASE = """
             polarization: s
             domain: {width: 4 um, height: 3 um}
-            resolution: {cell: 20 nm}
+            grid: {cell: 20 nm}
             sources:
               - point: {at: [0, 0], signal: {pulse: {wavelength: 633 nm, bandwidth: 40 nm}}}
-            stop: {time: 100 fs}
+            until: {time: 100 fs}
             """;
 
     private static List<String> errors(String text) {
@@ -52,13 +52,13 @@ class CaseErrorsTest {
         assertEquals(List.of(
                 "case.yaml:1:1: domain: missing, expected a mapping with width and height",
                 "case.yaml:2:1: domian: unknown key (did you mean 'domain'?), expected one of title, parameters, design_wavelength, "
-                        + "design_frequency, polarization, domain, resolution, materials, shapes, boundaries, sources, probes, flux, maps, output, "
-                        + "stop, numerics"),
+                        + "design_frequency, polarization, domain, grid, materials, shapes, boundaries, sources, probes, flux, maps, output, "
+                        + "until, numerics"),
                 errors(replace("domain:", "domian:")));
         assertEquals(List.of("case.yaml:2:37: domain.centre: unknown key, expected one of width, height, background"),
                 errors(replace("height: 3 um}", "height: 3 um, centre: [0, 0]}")));
-        assertEquals(List.of("case.yaml:3:1: resolution: needs one of cell or cells_per_wavelength",
-                "case.yaml:3:14: resolution.cel: unknown key (did you mean 'cell'?), expected one of cell, cells_per_wavelength"),
+        assertEquals(List.of("case.yaml:3:1: grid: needs one of cell or cells_per_wavelength",
+                "case.yaml:3:8: grid.cel: unknown key (did you mean 'cell'?), expected one of cell, cells_per_wavelength"),
                 errors(replace("{cell: 20 nm}", "{cel: 20 nm}")));
         assertEquals(List.of("case.yaml:5:34: sources[0].point.signal.puls: unknown kind (did you mean 'pulse'?), expected one of pulse, "
                 + "ramped_wave, gaussian_derivative"), errors(replace("{pulse:", "{puls:")));
@@ -68,8 +68,8 @@ class CaseErrorsTest {
     void missingRequiredKeys() {
         assertEquals(List.of("case.yaml:2:1: domain.height: missing, expected a length such as 10 um"),
                 errors(replace("{width: 4 um, height: 3 um}", "{width: 4 um}")));
-        assertEquals(List.of("case.yaml:1:1: stop: missing, expected a mapping with time, steps or decay"),
-                errors(replace("stop: {time: 100 fs}\n", "")));
+        assertEquals(List.of("case.yaml:1:1: until: missing, expected a mapping with time, steps or latest (and energy_below)"),
+                errors(replace("until: {time: 100 fs}\n", "")));
         assertEquals(List.of("case.yaml:5:34: sources[0].point.signal.pulse.bandwidth: missing, expected a wavelength span such as 40 nm "
                 + "or a frequency span such as 30 THz"), errors(replace(", bandwidth: 40 nm", "")));
     }
@@ -88,16 +88,16 @@ class CaseErrorsTest {
                 + "of the same kind"), errors(replace("width: 4 um", "width: 4 um + 1")));
         assertEquals(List.of("case.yaml:1:15: polarization: unknown choice 'z', expected one of s, p"),
                 errors(replace("polarization: s", "polarization: z")));
-        assertEquals(List.of("case.yaml:6:7: stop: expected a mapping with keys such as time, steps, decay, limit, got '100 fs'"),
-                errors(replace("stop: {time: 100 fs}", "stop: 100 fs")));
-        assertEquals(List.of("case.yaml:6:15: stop.steps: expected a whole number, got 10.5"),
-                errors(replace("stop: {time: 100 fs}", "stop: {steps: 10.5}")));
+        assertEquals(List.of("case.yaml:6:8: until: expected a mapping with keys such as time, steps, energy_below, latest, got '100 fs'"),
+                errors(replace("until: {time: 100 fs}", "until: 100 fs")));
+        assertEquals(List.of("case.yaml:6:16: until.steps: expected a whole number, got 10.5"),
+                errors(replace("until: {time: 100 fs}", "until: {steps: 10.5}")));
     }
 
     @Test
     void negativeAndZeroSizes() {
         assertEquals(List.of("case.yaml:2:17: domain.width: must be positive, got -4 um"), errors(replace("width: 4 um", "width: -4 um")));
-        assertEquals(List.of("case.yaml:3:20: resolution.cell: must be positive, got 0 um"), errors(replace("cell: 20 nm", "cell: 0")));
+        assertEquals(List.of("case.yaml:3:14: grid.cell: must be positive, got 0 um"), errors(replace("cell: 20 nm", "cell: 0")));
         String disk = BASE + "shapes:\n  - disk: {centre: [0, 0], radius: -1 um, material: water}\n";
         assertEquals(List.of("case.yaml:8:36: shapes[0].disk.radius: must be positive, got -1 um"), errors(disk));
     }
@@ -148,10 +148,10 @@ class CaseErrorsTest {
         String both = "materials:\n  film: {index: 1.4, permittivity: 2}\n" + BASE;
         assertEquals(List.of("case.yaml:2:22: materials.film.permittivity: give only one of index and permittivity"), errors(both));
 
-        assertEquals(List.of("case.yaml:6:22: stop.limit: limit goes with decay only; with time the run length is already fixed"),
-                errors(replace("{time: 100 fs}", "{time: 100 fs, limit: 1 ps}")));
-        assertEquals(List.of("case.yaml:6:1: stop.limit: missing, expected a time such as 2 ps that ends the run if the fields never decay"),
-                errors(replace("{time: 100 fs}", "{decay: 1e-4}")));
+        assertEquals(List.of("case.yaml:6:23: until.energy_below: energy_below goes with latest only; with time the run length is already fixed"),
+                errors(replace("{time: 100 fs}", "{time: 100 fs, energy_below: 1e-4}")));
+        assertEquals(List.of("case.yaml:6:1: until.latest: missing, expected a time such as 2 ps that ends the run if the field energy never falls below energy_below"),
+                errors(replace("{time: 100 fs}", "{energy_below: 1e-4}")));
         assertEquals(List.of("case.yaml:7:55: numerics.courant: must lie between 0 and the 2D stability limit 1/sqrt(2) = 0.707107 "
                 + "(exclusive), got 0.75"), errors(BASE + "numerics: {precision: double, threads: auto, courant: 0.75}\n"));
         assertEquals(List.of("case.yaml:7:1: output.frame_interval: missing, expected frame_interval (a time such as 5 fs) or "
@@ -172,31 +172,31 @@ class CaseErrorsTest {
     void memoryIsCheckedBeforeAllocation() {
         CaseFileException e = assertThrows(CaseFileException.class,
                 () -> CaseReader.parse(BASE, "case.yaml", Map.of(), new ReadOptions(100_000)));
-        assertEquals(List.of("case.yaml:3:20: resolution.cell: the grid of 201 x 151 nodes needs about 0.000791464 GiB in float "
+        assertEquals(List.of("case.yaml:3:14: grid.cell: the grid of 201 x 151 nodes needs about 0.000791464 GiB in float "
                 + "(28 bytes per cell) but the JVM can use at most 9.31323e-5 GiB; use a larger cell or a smaller domain, or give the JVM more memory (-Xmx)"),
                 e.errors().stream().map(Diagnostic::toString).toList());
-        assertEquals(List.of("case.yaml:3:20: resolution.cell: the grid would have 400001 x 300001 nodes, more than one array can hold "
+        assertEquals(List.of("case.yaml:3:14: grid.cell: the grid would have 400001 x 300001 nodes, more than one array can hold "
                 + "(2147483583 values); use a larger cell or a smaller domain"), errors(replace("cell: 20 nm", "cell: 0.01 nm")));
     }
 
     @Test
     void yamlProblems() {
-        assertEquals(List.of("case.yaml:3:11: not valid YAML: expected ',' or '}', but got : (while parsing a flow mapping)"),
+        assertEquals(List.of("case.yaml:3:5: not valid YAML: expected ',' or '}', but got : (while parsing a flow mapping)"),
                 errors(replace("height: 3 um}", "height: 3 um")));
-        assertEquals(List.of("case.yaml:1:1: the file is empty; a case needs at least polarization, domain, resolution, sources and stop"),
+        assertEquals(List.of("case.yaml:1:1: the file is empty; a case needs at least polarization, domain, grid, sources and until"),
                 errors("# nothing here\n"));
         assertEquals(List.of("case.yaml:1:1: expected a mapping with keys such as title, parameters, design_wavelength, design_frequency, "
-                + "polarization, domain, resolution, materials, shapes, boundaries, sources, probes, flux, maps, output, stop, numerics, got a list"),
+                + "polarization, domain, grid, materials, shapes, boundaries, sources, probes, flux, maps, output, until, numerics, got a list"),
                 errors("- polarization: s\n"));
         String flat = """
                 polarization: s
                 domain: {width: 4 um, height: 3 um}
-                resolution: {cell: 20 nm}
+                grid: {cell: 20 nm}
                 sources:
                   - point:
                     at: [0, 0]
                     signal: {pulse: {wavelength: 633 nm, bandwidth: 40 nm}}
-                stop: {time: 100 fs}
+                until: {time: 100 fs}
                 """;
         assertEquals(List.of("case.yaml:6:5: sources[0]: an entry has exactly one key, its kind (one of point, line, plane_wave, gaussian_beam); found point, at, "
                 + "signal (indent the settings under 'point:')"), errors(flat));
@@ -210,13 +210,13 @@ class CaseErrorsTest {
                   n: 1.5
                 polarization: s
                 domain: {width: 4 um, height: -3 um, colour: red}
-                resolution: {cell: 20}
+                grid: {cell: 20}
                 shapes:
                   - disk: {centre: [0, 0], radius: gapp, material: glas}
                   - square: {}
                 sources:
                   - point: {at: [0, 0], component: hz, signal: {pulse: {wavelength: 633 nm}}}
-                stop: {time: n}
+                until: {time: n}
                 numerics: {precision: quad}
                 """;
         List<String> found = errors(text);
@@ -225,7 +225,7 @@ class CaseErrorsTest {
                         + "PHz, deg, rad, S (to multiply by a parameter write '*')",
                 "case.yaml:5:31: domain.height: must be positive, got -3 um",
                 "case.yaml:5:38: domain.colour: unknown key, expected one of width, height, background",
-                "case.yaml:6:20: resolution.cell: 20 has no unit, expected a length such as 2 um",
+                "case.yaml:6:14: grid.cell: 20 has no unit, expected a length such as 2 um",
                 "case.yaml:8:36: shapes[0].disk.radius: undefined parameter 'gapp' (did you mean 'gap'?)",
                 "case.yaml:8:52: shapes[0].disk.material: unknown material 'glas'; define it under materials or use one of vacuum, air, water, "
                         + "fused_silica, borosilicate_crown",
@@ -233,7 +233,7 @@ class CaseErrorsTest {
                 "case.yaml:11:36: sources[0].point.component: hz belongs to p polarization but the case is s (line 4); use ez, hx, hy",
                 "case.yaml:11:49: sources[0].point.signal.pulse.bandwidth: missing, expected a wavelength span such as 40 nm or a frequency "
                         + "span such as 30 THz",
-                "case.yaml:12:14: stop.time: n (1.5) has no unit, expected a time such as 100 fs",
+                "case.yaml:12:15: until.time: n (1.5) has no unit, expected a time such as 100 fs",
                 "case.yaml:13:23: numerics.precision: unknown choice 'quad', expected one of float, double"), found);
     }
 
@@ -242,7 +242,7 @@ class CaseErrorsTest {
         String text = """
                 polarization: p
                 domain: {width: 4 um, height: 3 um}
-                resolution: {cell: 60 nm}
+                grid: {cell: 60 nm}
                 materials:
                   prism: {index: 1.9}
                 shapes:
@@ -255,10 +255,10 @@ class CaseErrorsTest {
                   - point: {at: [1.9 um, 0], signal: {gaussian_derivative: {frequency: 400 THz}}}
                 probes:
                   - {name: p1, at: [0, 1.45 um], component: ey}
-                stop: {steps: 1000}
+                until: {steps: 1000}
                 """;
         assertEquals(List.of(
-                "case.yaml:3:20: warning: resolution.cell: 4.01711 cells per wavelength in prism (n = 1.9) at 457.95 nm with a 60 nm cell, "
+                "case.yaml:3:14: warning: grid.cell: 4.01711 cells per wavelength in prism (n = 1.9) at 457.95 nm with a 60 nm cell, "
                         + "below 10; numerical dispersion will be visible, use a cell of at most 24.1026 nm",
                 "case.yaml:8:5: warning: shapes[1].disk: lies entirely outside the domain (x from -2 um to 2 um, y from -1.5 um to 1.5 um) "
                         + "and has no effect",
@@ -281,13 +281,13 @@ class CaseErrorsTest {
         String text = """
                 polarization: s
                 domain: {width: 6 um, height: 6 um}
-                resolution: {cell: 50 nm}
+                grid: {cell: 50 nm}
                 materials: {glass: {index: 1.5}}
                 shapes:
                   - half_plane: {through: [0, 0], fill: below, material: glass}
                 sources:
                   - line: {from: [-1 um, -1 um], to: [1 um, -1 um], angle: 60, signal: {ramped_wave: {wavelength: 600 nm}}}
-                stop: {steps: 10}
+                until: {steps: 10}
                 """;
         double n1 = 1.5;
         double s = n1 * Math.sin(Math.toRadians(60));
@@ -309,8 +309,8 @@ class CaseErrorsTest {
     void oddInputsAreReportedNotThrown() {
         String[] odd = {
             "polarization: [s]", "polarization:", "domain: null", "domain: {width: 1e400 um, height: 3 um}",
-            "domain: {width: 4 um, height: 3 um, background: {a: 1}}", "resolution: {cell: [1]}",
-            "resolution: {cells_per_wavelength: -3}", "stop: {steps: 1e30}", "stop: {time: 100 fs, steps: 3}", "stop: []",
+            "domain: {width: 4 um, height: 3 um, background: {a: 1}}", "grid: {cell: [1]}",
+            "grid: {cells_per_wavelength: -3}", "until: {steps: 1e30}", "until: {time: 100 fs, steps: 3}", "until: []",
             "sources: []", "sources: {point: 1}", "sources:\n  - point:\n", "sources:\n  - 3\n", "sources:\n  - {}\n",
             "? [a]\n: b", "title: {a: 1}", "parameters: [a]", "parameters: {a: }", "parameters: {a: [1]}",
             "materials: {film: null}", "materials: {film: {library: glass}}", "materials: [film]", "materials: {2x: {index: 1}}",

@@ -35,10 +35,10 @@ class CaseLimitsTest {
     private static final String BASE = """
             polarization: s
             domain: {width: WIDTH, height: 3 um}
-            resolution: {cell: 20 nm}
+            grid: {cell: 20 nm}
             sources:
               - point: {at: [0, 0], signal: {pulse: {wavelength: 633 nm, bandwidth: 40 nm}}}
-            stop: {time: 100 fs}
+            until: {time: 100 fs}
             """;
 
     @TempDir

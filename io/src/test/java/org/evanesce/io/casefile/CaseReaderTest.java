@@ -40,7 +40,7 @@ class CaseReaderTest {
               width: 12 um
               height: 10 um
               background: air
-            resolution:
+            grid:
               cells_per_wavelength: 20
             materials:
               glass: {library: borosilicate_crown}
@@ -84,9 +84,9 @@ class CaseReaderTest {
               folder: results/gap
               write: [probes, field_frames, preview]
               frame_interval: 5 fs
-            stop:
-              decay: 1e-5
-              limit: 2 ps
+            until:
+              energy_below: 1e-5
+              latest: 2 ps
             numerics:
               precision: double
               threads: 4
@@ -133,7 +133,7 @@ class CaseReaderTest {
         assertEquals((int) Math.ceil(10e-6 / cell) + 1, c.resolution().ny());
         assertSi(20, c.resolution().cellsPerWavelength().orElseThrow(), "cells per wavelength");
         assertTrue(loaded.notes().stream().anyMatch(d -> d.toString().startsWith(
-                "case.yaml:14:25: note: resolution.cells_per_wavelength: cell size 20.89 nm: 20 cells per wavelength of 633 nm in glass (n = 1.51508)")),
+                "case.yaml:14:25: note: grid.cells_per_wavelength: cell size 20.89 nm: 20 cells per wavelength of 633 nm in glass (n = 1.51508)")),
                 loaded.notes().toString());
 
         // materials: defined, built in and used directly, all at the design wavelength; unused ones are left out
@@ -209,30 +209,30 @@ class CaseReaderTest {
         assertEquals(Component.EZ, c.probes().get(1).component().value());
         assertSi(-2.5e-6, c.probes().get(1).location().y(), "probe y");
 
-        // output, stop, numerics
+        // output, until, numerics
         assertEquals("results/gap", c.output().folder().orElseThrow().value());
         assertEquals(List.of(OutputSpec.Item.PROBES, OutputSpec.Item.FIELD_FRAMES, OutputSpec.Item.PREVIEW),
                 c.output().write().stream().map(Located::value).toList());
         assertSi(5e-15, c.output().frameInterval().orElseThrow(), "frame interval");
-        StopSpec.WhenDecayed stop = assertInstanceOf(StopSpec.WhenDecayed.class, c.stop());
-        assertSi(1e-5, stop.fraction(), "decay");
-        assertSi(2e-12, stop.limit(), "limit");
+        StopSpec.WhenEnergyBelow stop = assertInstanceOf(StopSpec.WhenEnergyBelow.class, c.stop());
+        assertSi(1e-5, stop.fraction(), "energy_below");
+        assertSi(2e-12, stop.latest(), "latest");
         assertEquals(Precision.DOUBLE, c.numerics().precision().value());
         assertEquals(4, c.numerics().threads().orElseThrow().value());
         assertSi(0.5, c.numerics().courant().orElseThrow(), "courant");
 
         // a ramped wave under decay is a warning
-        assertEquals(List.of("case.yaml:58:10: warning: stop.decay: sources[1].point drives a ramped wave, which never decays; "
-                + "the run will end at the limit 2 ps"), loaded.warnings().stream().map(Diagnostic::toString).toList());
+        assertEquals(List.of("case.yaml:58:17: warning: until: sources[1].point drives a ramped wave, whose field energy never falls; "
+                + "the run will end at the latest time 2 ps"), loaded.warnings().stream().map(Diagnostic::toString).toList());
     }
 
     static final String MINIMAL = """
             polarization: p
             domain: {width: 4 um, height: 3 um}
-            resolution: {cell: 20 nm}
+            grid: {cell: 20 nm}
             sources:
               - point: {at: [0, 0], signal: {gaussian_derivative: {wavelength: 800 nm}}}
-            stop: {steps: 500}
+            until: {steps: 500}
             """;
 
     @Test
@@ -315,6 +315,6 @@ class CaseReaderTest {
         Path file = dir.resolve("gap.yaml");
         Files.writeString(file, MINIMAL.replace("20 nm", "20 nmm"));
         CaseFileException e = assertThrows(CaseFileException.class, () -> CaseReader.read(file, Map.of(), ENOUGH_MEMORY));
-        assertTrue(e.getMessage().startsWith(file + ":3:23: resolution.cell: unknown unit 'nmm'"), e.getMessage());
+        assertTrue(e.getMessage().startsWith(file + ":3:17: grid.cell: unknown unit 'nmm'"), e.getMessage());
     }
 }

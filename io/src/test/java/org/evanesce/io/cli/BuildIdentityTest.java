@@ -36,10 +36,10 @@ class BuildIdentityTest {
               wl: 633 nm
             polarization: s
             domain: {width: 2 um, height: 2 um}
-            resolution: {cell: 40 nm}
+            grid: {cell: 40 nm}
             sources:
               - point: {at: [0, 0], signal: {pulse: {wavelength: wl, bandwidth: 100 nm}}}
-            stop: {steps: 40}
+            until: {steps: 40}
             """;
 
     @Test

@@ -70,7 +70,7 @@ class CaseFuzzTest {
               r: 0.2 um
             polarization: s
             domain: {width: 1.2 um, height: 1.2 um}
-            resolution: {cell: 40 nm}
+            grid: {cell: 40 nm}
             materials:
               lossy: {index: 1.5, conductivity: 1e3 S/m}
             shapes:
@@ -85,7 +85,7 @@ class CaseFuzzTest {
             output:
               write: [probes, fields, field_frames, permittivity, preview]
               frame_interval: 5 fs
-            stop: {time: 20 fs}
+            until: {time: 20 fs}
             """, """
             title: tiny plane wave with flux and maps
             parameters:
@@ -93,7 +93,7 @@ class CaseFuzzTest {
             design_wavelength: 633 nm
             polarization: p
             domain: {width: 0.2 um, height: 2.8 um, background: glass}
-            resolution: {cells_per_wavelength: 8}
+            grid: {cells_per_wavelength: 8}
             materials:
               glass: {index: 1.5}
             shapes:
@@ -112,13 +112,13 @@ class CaseFuzzTest {
               log_decades: 5
               decay:
                 - {from: [0, 0.1 um], to: [0, 0.4 um]}
-            stop: {decay: 1e-3, limit: 60 fs}
+            until: {energy_below: 1e-3, latest: 60 fs}
             """, """
             title: tiny beam with flux
             design_wavelength: 633 nm
             polarization: s
             domain: {width: 9 um, height: 2.4 um, background: glass}
-            resolution: {cells_per_wavelength: 6}
+            grid: {cells_per_wavelength: 6}
             materials:
               glass: {index: 1.5}
             shapes:
@@ -130,7 +130,7 @@ class CaseFuzzTest {
               lines:
                 - {y: -0.5 um, measures: reflected}
                 - {y: 0.5 um, measures: transmitted}
-            stop: {time: 150 fs}
+            until: {time: 150 fs}
             """);
 
     @TempDir

@@ -53,10 +53,10 @@ class LayeredProfileTest {
             polarization: s
             design_wavelength: 633 nm
             domain: {width: 4 um, height: 3 um}
-            resolution: {cell: 30 nm}
+            grid: {cell: 30 nm}
             sources:
               - point: {at: [0, -1 um], signal: {pulse: {wavelength: 633 nm, bandwidth: 40 nm}}}
-            stop: {time: 100 fs}
+            until: {time: 100 fs}
             """;
 
     /** Two glass half-planes with a vacuum gap of 173 nm centred on y = 0. */

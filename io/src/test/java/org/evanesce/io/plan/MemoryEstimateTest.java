@@ -98,7 +98,7 @@ class MemoryEstimateTest {
             design_wavelength: 633 nm
             polarization: p
             domain: {width: 1 um, height: 12 um, background: glass}
-            resolution: {cell: 20 nm}
+            grid: {cell: 20 nm}
             materials:
               glass: {index: 1.5}
               film: {index: 2.0, conductivity: 1e4 S/m}
@@ -118,7 +118,7 @@ class MemoryEstimateTest {
               wavelengths: {from: 620 nm, to: 640 nm, count: 3}
               region: {from: [-0.5 um, -2 um], to: [0.5 um, 4 um]}
             numerics: {precision: double}
-            stop: {time: 100 fs}
+            until: {time: 100 fs}
             """;
 
     private static CaseSpec spec(String text) throws CaseFileException {
@@ -147,8 +147,8 @@ class MemoryEstimateTest {
         try (Simulation sim = org.evanesce.io.run.CaseRunner.build(plan)) {
             long solver = item(m, "fields and coefficients") + item(m, "PML");
             assertEquals(1, (double) solver / sim.bytes(), FOOTPRINT_TOLERANCE, "fields, coefficients and PML");
-            // what the case holds now: the material grids (the reference run's too), the case's simulation and every
-            // recorder; the reference run's fields, the passing needs and the program's allowance come later or are not heap
+            // what the case holds now: the material grids (the incident-power run's too), the case's simulation and every
+            // recorder; the incident-power run's fields, the passing needs and the program's allowance come later or are not heap
             long held = retained(rt) - before;
             long nodes = (long) plan.grid().nx() * plan.grid().ny();
             long estimated = item(m, "material grid") + solver + item(m, "flux lines") + item(m, "maps") + 6 * nodes;
@@ -180,10 +180,10 @@ class MemoryEstimateTest {
         StringBuilder text = new StringBuilder("""
                 polarization: s
                 domain: {width: 4 um, height: 3 um}
-                resolution: {cell: 20 nm}
+                grid: {cell: 20 nm}
                 sources:
                   - point: {at: [0, 0], signal: {pulse: {wavelength: 633 nm, bandwidth: 40 nm}}}
-                stop: {steps: 10000000}
+                until: {steps: 10000000}
                 probes:
                 """);
         for (int k = 0; k < 200; k++) {
@@ -215,12 +215,12 @@ class MemoryEstimateTest {
         StringBuilder shapes = new StringBuilder("""
                 polarization: s
                 domain: {width: 20 um, height: 20 um}
-                resolution: {cell: 40 nm}
+                grid: {cell: 40 nm}
                 materials:
                   glass: {index: 1.5}
                 sources:
                   - point: {at: [0, 0], signal: {pulse: {wavelength: 633 nm, bandwidth: 40 nm}}}
-                stop: {time: 10 fs}
+                until: {time: 10 fs}
                 shapes:
                 """);
         StringBuilder probes = new StringBuilder(shapes.toString().replace("shapes:\n", "probes:\n"));

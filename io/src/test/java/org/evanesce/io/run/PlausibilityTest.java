@@ -23,7 +23,7 @@ class PlausibilityTest {
             design_wavelength: 633 nm
             polarization: s
             domain: {width: 0.2 um, height: 3.2 um, background: glass}
-            resolution: {cells_per_wavelength: CPW}
+            grid: {cells_per_wavelength: CPW}
             materials:
               glass: {index: 1.5}
               other: {index: 1.0, conductivity: SIGMA}
@@ -36,7 +36,7 @@ class PlausibilityTest {
               lines:
                 - {name: front, y: REFLECTED_Y, measures: reflected}
                 - {name: back, y: 0.7 um, measures: transmitted}
-            stop: {decay: 1e-6, limit: 400 fs}
+            until: {energy_below: 1e-6, latest: 400 fs}
             """;
 
     private static CasePlan plan(int cpw, String sigma, String reflectedY) throws Exception {

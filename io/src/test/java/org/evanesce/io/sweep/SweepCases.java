@@ -42,7 +42,7 @@ final class SweepCases {
 
     /**
      * A plane wave through a vacuum gap between glass blocks (as in PlaneWaveRunTest): 5 x 153 cells of
-     * 21.1 nm with periodic sides, so each run with its reference run takes a fraction of a second.
+     * 21.1 nm with periodic sides, so each run with its incident-power run takes a fraction of a second.
      * SWEEP is replaced by the sweep section's lines.
      */
     static final String GAP_CASE = """
@@ -53,7 +53,7 @@ final class SweepCases {
             design_wavelength: 633 nm
             polarization: s
             domain: {width: 0.1 um, height: 3.2 um, background: glass}
-            resolution: {cells_per_wavelength: 20}
+            grid: {cells_per_wavelength: 20}
             materials:
               glass: {index: 1.5}
               gap_vacuum: {index: 1.0}
@@ -74,7 +74,7 @@ final class SweepCases {
                 - {name: front, y: -0.95 um, measures: reflected}
                 - {name: back, y: 0.7 um, measures: transmitted}
               transfer_matrix: true
-            stop: {decay: 1e-6, limit: 400 fs}
+            until: {energy_below: 1e-6, latest: 400 fs}
             SWEEP""";
 
     /** Four points: gap 100 and 200 nm (slowest), theta 45 and 50 degrees. */

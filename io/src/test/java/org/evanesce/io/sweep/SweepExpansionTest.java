@@ -41,10 +41,10 @@ class SweepExpansionTest {
               loss: 0.01
             polarization: s
             domain: {width: 4 um, height: 3 um}
-            resolution: {cell: 20 nm}
+            grid: {cell: 20 nm}
             sources:
               - point: {at: [0, 0], signal: {pulse: {wavelength: 633 nm, bandwidth: 40 nm}}}
-            stop: {time: 100 fs}
+            until: {time: 100 fs}
             sweep:
               parameters:
                 gap: {from: 100 nm, to: 300 nm, count: 5}
@@ -195,7 +195,7 @@ class SweepExpansionTest {
     @Test
     void everyPointIsReadBeforeAnythingRuns() throws IOException {
         // the disk's radius is the swept gap: the first two points (-100 nm, 0) are not valid cases
-        String text = replace("stop: {time: 100 fs}", "shapes:\n  - disk: {centre: [0, 0], radius: gap, material: water}\nstop: "
+        String text = replace("until: {time: 100 fs}", "shapes:\n  - disk: {centre: [0, 0], radius: gap, material: water}\nuntil: "
                 + "{time: 100 fs}").replace("gap: {from: 100 nm, to: 300 nm, count: 5}", "gap: {from: -100 nm, to: 100 nm, count: 3}");
         Path f = SweepCases.write(tmp, "case.yaml", text);
         Path out = tmp.resolve("out");

@@ -145,10 +145,10 @@ class SweepRunTest {
                   wl: 633 nm
                 polarization: s
                 domain: {width: 2 um, height: 2 um}
-                resolution: {cell: 40 nm}
+                grid: {cell: 40 nm}
                 sources:
                   - point: {at: [0, 0], signal: {pulse: {wavelength: wl, bandwidth: 100 nm}}}
-                stop: {steps: 40}
+                until: {steps: 40}
                 sweep:
                   parameters:
                     wl: [600 nm, "max(633 nm, 640 nm)"]
@@ -174,14 +174,14 @@ class SweepRunTest {
                 design_wavelength: 633 nm
                 polarization: s
                 domain: {width: 2 um, height: 2 um}
-                resolution: {cell: 35 nm}
+                grid: {cell: 35 nm}
                 materials:
                   block: {index: 1.5, conductivity: sigma}
                 shapes:
                   - rectangle: {centre: [0, 0], size: [1 um, 1 um], material: block}
                 sources:
                   - point: {at: [0, 0], signal: {pulse: {wavelength: 633 nm, bandwidth: 100 nm}}}
-                stop: {steps: 2000}
+                until: {steps: 2000}
                 sweep:
                   parameters:
                     sigma: [0 S/m, 5e3 S/m, 1e3 S/m]
