@@ -12,6 +12,7 @@ import org.evanesce.geometry.dispersion.AdeCoefficients;
 import org.evanesce.geometry.dispersion.DispersiveMaterial;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Courant;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
 import org.evanesce.solver.grid.Side;

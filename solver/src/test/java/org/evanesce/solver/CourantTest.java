@@ -7,6 +7,7 @@ import java.util.Optional;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.solver.boundary.Boundary;
+import org.evanesce.solver.grid.Courant;
 import org.junit.jupiter.api.Test;
 
 /** The one home of the Courant number: the time step it sets, the stability limit and the refusal. */

@@ -8,6 +8,7 @@ import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.geometry.Complex;
 import org.evanesce.geometry.dispersion.DispersiveMaterial;
 import org.evanesce.geometry.dispersion.MetalLibrary;
+import org.evanesce.solver.grid.Courant;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
 import org.evanesce.solver.reference.PlanarStack;

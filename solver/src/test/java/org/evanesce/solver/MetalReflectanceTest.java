@@ -9,6 +9,7 @@ import org.evanesce.geometry.Complex;
 import org.evanesce.geometry.dispersion.DispersiveMaterial;
 import org.evanesce.geometry.dispersion.DrudeTerm;
 import org.evanesce.geometry.dispersion.LorentzTerm;
+import org.evanesce.solver.grid.Courant;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
 import org.junit.jupiter.api.Test;

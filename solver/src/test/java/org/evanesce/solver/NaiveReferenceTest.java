@@ -11,6 +11,7 @@ import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.boundary.PmlParameters;
 import org.evanesce.solver.grid.Component;
+import org.evanesce.solver.grid.Courant;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
 import org.evanesce.solver.grid.Side;

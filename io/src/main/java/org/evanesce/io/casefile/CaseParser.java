@@ -16,7 +16,7 @@ import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Quantity;
 import org.evanesce.io.casefile.expr.Suggest;
 import org.evanesce.io.casefile.expr.Units;
-import org.evanesce.solver.Courant;
+import org.evanesce.solver.grid.Courant;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;

@@ -34,7 +34,7 @@ import org.evanesce.io.casefile.SourceSpec;
 import org.evanesce.io.casefile.StopSpec;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
-import org.evanesce.solver.Courant;
+import org.evanesce.solver.grid.Courant;
 import org.evanesce.solver.DispersionCorrection;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.boundary.Boundary;

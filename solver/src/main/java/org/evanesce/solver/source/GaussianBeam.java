@@ -4,7 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import org.evanesce.geometry.PhysicalConstants;
-import org.evanesce.solver.Courant;
+import org.evanesce.solver.grid.Courant;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;

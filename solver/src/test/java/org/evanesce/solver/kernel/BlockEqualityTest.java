@@ -8,7 +8,7 @@ import java.util.Map;
 import org.evanesce.geometry.CellRegion;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
-import org.evanesce.solver.Courant;
+import org.evanesce.solver.grid.Courant;
 import org.evanesce.solver.MaterialCoefficients;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;

@@ -1,4 +1,4 @@
-package org.evanesce.solver;
+package org.evanesce.solver.grid;
 
 import java.util.Optional;
 import org.evanesce.geometry.PhysicalConstants;
