@@ -19,7 +19,7 @@ import org.evanesce.solver.source.TimeSignal;
  * Plane-wave runs through layered media with a dispersive layer, for the metal tests: Bloch-periodic
  * x sides (a fixed in-plane wavenumber), CPML at the bottom and top, a Bloch-row source in the
  * incidence medium, and two flux lines (below the layers, to read the reflected flux by the
- * difference with a reference run of the incidence medium alone, and above them). Every electric
+ * difference with an incident-power run of the incidence medium alone, and above them). Every electric
  * site takes the material at its own y position (staircase, no averaging), so a layer whose faces
  * lie a quarter cell above a node holds the same number of Ez, Ex and Ey samples.
  */
@@ -103,7 +103,7 @@ final class MetalRuns {
         }
     }
 
-    /** R from a run and its reference run of the incidence medium alone: −(reflected flux)/(incident flux). */
+    /** R from a run and its incident-power run of the incidence medium alone: −(reflected flux)/(incident flux). */
     static double reflectance(Result run, Result reference, double dx) {
         return -run.bottom().flux(0, dx, reference.bottom()) / reference.bottom().flux(0, dx);
     }
