@@ -120,7 +120,7 @@ final class FitModel {
         for (int i = 0; i < out.length; i++) {
             double x = curve.x()[i];
             if (perPoint) {
-                set.put(curve.swept(), new FreeParameter(curve.swept(), sweptDimension, 0, 1, "").override(x));
+                set.put(curve.swept(), org.evanesce.io.casefile.expr.Units.override(x, sweptDimension));
                 stack = stack(set, p);
             }
             double wavelength = curve.swept().equals("wavelength") ? x : stack.wavelength();

@@ -28,7 +28,6 @@ public record FreeParameter(String name, Dimension dimension, double low, double
     public static final String SCALE = "scale";
 
     private static final Pattern FORM = Pattern.compile("([A-Za-z_][A-Za-z0-9_]*)=(.+?)\\.\\.(.+)");
-    private static final Pattern VALUE = Pattern.compile("\\s*([-+]?(?:\\d+\\.?\\d*|\\.\\d+)(?:[eE][-+]?\\d+)?)\\s*([A-Za-z]*)\\s*");
 
     /** Whether the parameter belongs to the fit (not to the case). */
     public boolean own() {
@@ -70,26 +69,13 @@ public record FreeParameter(String name, Dimension dimension, double low, double
     }
 
     private static Quantity value(String written, String text) throws FitInputException {
-        Matcher v = VALUE.matcher(text);
-        if (!v.matches()) {
-            throw new FitInputException("--free " + written + ": '" + text + "' is not a number with an optional unit (e.g. 100nm, "
-                    + "-0.5deg, 1.2)");
-        }
-        double number = Double.parseDouble(v.group(1));
-        String unit = v.group(2);
-        if (unit.isEmpty()) {
-            return Quantity.plain(number);
-        }
-        if (!Units.isUnit(unit)) {
-            throw new FitInputException(String.format(Locale.ROOT, "--free %s: unknown unit '%s'; expected one of %s", written, unit,
-                    String.join(", ", Units.all().keySet())));
-        }
-        return Units.times(number, unit);
+        return Units.parse(text).orElseThrow(() -> new FitInputException(String.format(Locale.ROOT, "--free %s: '%s' is not a "
+                + "number with an optional unit (e.g. 100nm, -0.5deg, 1.2; units: %s)", written, text.strip(),
+                String.join(", ", Units.all().keySet()))));
     }
 
     /** A value of this parameter as a case-file override: every digit, in SI units. */
     String override(double si) {
-        String unit = dimension.siUnit();
-        return unit.isEmpty() ? Double.toString(si) : Double.toString(si) + " " + unit;
+        return Units.override(si, dimension);
     }
 }

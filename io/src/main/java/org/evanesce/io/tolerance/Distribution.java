@@ -35,7 +35,6 @@ public record Distribution(String name, Kind kind, Dimension dimension, double a
     static final double MIN_MASS = 1e-3;
 
     private static final Pattern FORM = Pattern.compile("([A-Za-z_][A-Za-z0-9_]*)=(normal|uniform)\\((.*)\\)");
-    private static final Pattern VALUE = Pattern.compile("\\s*([-+]?(?:\\d+\\.?\\d*|\\.\\d+)(?:[eE][-+]?\\d+)?)\\s*([A-Za-z]*)\\s*");
 
     /**
      * Parses a --vary option.
@@ -86,20 +85,8 @@ public record Distribution(String name, Kind kind, Dimension dimension, double a
     }
 
     private static Quantity value(String written, String text) throws ToleranceInputException {
-        Matcher v = VALUE.matcher(text);
-        if (!v.matches()) {
-            throw new ToleranceInputException("--vary " + written + ": '" + text.strip() + "' is not a number with an optional unit");
-        }
-        double number = Double.parseDouble(v.group(1));
-        String unit = v.group(2);
-        if (unit.isEmpty()) {
-            return Quantity.plain(number);
-        }
-        if (!Units.isUnit(unit)) {
-            throw new ToleranceInputException("--vary " + written + ": unknown unit '" + unit + "'; expected one of "
-                    + String.join(", ", Units.all().keySet()));
-        }
-        return Units.times(number, unit);
+        return Units.parse(text).orElseThrow(() -> new ToleranceInputException("--vary " + written + ": '" + text.strip()
+                + "' is not a number with an optional unit (units: " + String.join(", ", Units.all().keySet()) + ")"));
     }
 
     /** The share of a normal distribution's mass inside [low, high] (1 when not truncated). */
@@ -127,7 +114,6 @@ public record Distribution(String name, Kind kind, Dimension dimension, double a
 
     /** A value of the parameter as a case-file override: every digit, in SI units. */
     String override(double si) {
-        String unit = dimension.siUnit();
-        return unit.isEmpty() ? Double.toString(si) : Double.toString(si) + " " + unit;
+        return Units.override(si, dimension);
     }
 }

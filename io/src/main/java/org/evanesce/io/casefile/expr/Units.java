@@ -62,6 +62,32 @@ public final class Units {
         return new Quantity(v, u.dimension());
     }
 
+    private static final java.util.regex.Pattern NUMBER_WITH_UNIT = java.util.regex.Pattern.compile(
+            "\\s*([-+]?(?:\\d+\\.?\\d*|\\.\\d+)(?:[eE][-+]?\\d+)?)\\s*([A-Za-z]*)\\s*");
+
+    /**
+     * A number with an optional unit as a command-line option writes it ({@code 100nm}, {@code -0.5 deg},
+     * {@code 1.2}), in SI; empty when the text is not one, or the unit is unknown.
+     */
+    public static java.util.Optional<Quantity> parse(String text) {
+        java.util.regex.Matcher m = NUMBER_WITH_UNIT.matcher(text);
+        if (!m.matches()) {
+            return java.util.Optional.empty();
+        }
+        double number = Double.parseDouble(m.group(1));
+        String unit = m.group(2);
+        if (unit.isEmpty()) {
+            return java.util.Optional.of(Quantity.plain(number));
+        }
+        return isUnit(unit) ? java.util.Optional.of(times(number, unit)) : java.util.Optional.empty();
+    }
+
+    /** A value as a case-file override ({@code --set}): every digit, in SI units ({@code 2.3E-7 m}). */
+    public static String override(double si, Dimension d) {
+        String unit = d.siUnit();
+        return unit.isEmpty() ? Double.toString(si) : Double.toString(si) + " " + unit;
+    }
+
     /** The value of one of {@code name}, or null when it is not a unit. */
     public static Quantity unit(String name) {
         return UNITS.get(name);
