@@ -25,9 +25,9 @@ final class ToleranceOutputs {
         out.printf(Locale.ROOT, "%-3s %12s %12s %12s %12s %12s%n", "", "mean", "std dev", "5 %", "50 %", "95 %");
         for (Map.Entry<String, double[]> e : st.results().entrySet()) {
             double[] v = e.getValue();
-            out.printf(Locale.ROOT, "%-3s %12.6f %12.6f %12.6f %12.6f %12.6f%n", e.getKey(), Statistics.mean(v),
-                    Statistics.standardDeviation(v), Statistics.quantile(v, 0.05), Statistics.quantile(v, 0.5),
-                    Statistics.quantile(v, 0.95));
+            out.printf(Locale.ROOT, "%-3s %12.6f %12.6f %12.6f %12.6f %12.6f%n", e.getKey(), shown(Statistics.mean(v)),
+                    shown(Statistics.standardDeviation(v)), shown(Statistics.quantile(v, 0.05)),
+                    shown(Statistics.quantile(v, 0.5)), shown(Statistics.quantile(v, 0.95)));
         }
         if (!reqs.isEmpty()) {
             long k = st.passing(reqs);
@@ -150,6 +150,11 @@ final class ToleranceOutputs {
             }
         }
         return p.build();
+    }
+
+    /** A value for the six-decimal table: round-off below its last digit (A = 1 − R − T ≈ −1e-16) shows as 0. */
+    private static double shown(double v) {
+        return Math.abs(v) < 5e-7 ? 0.0 : v;
     }
 
     private static String num(double v) {
