@@ -12,8 +12,6 @@ import java.util.Map;
 import java.util.concurrent.Callable;
 import org.evanesce.io.fit.FitInputException;
 import org.evanesce.io.fit.FitRun;
-import org.evanesce.io.output.OutputFolders;
-import org.evanesce.io.output.RunFolder;
 import org.evanesce.io.run.RunOutputs;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -66,24 +64,11 @@ public final class FitCommand implements Callable<Integer> {
                 return ExitCode.USAGE;
             }
         }
-        Path folder = (out != null ? out : defaultFolder(caseFile)).toAbsolutePath().normalize();
-        List<OutputFolders.Protected> protect = OutputFolders.around(caseFile);
+        Path folder = StudyFolder.target(out, caseFile, "-fit");
         try {
             FitRun.Prepared prepared = FitRun.prepare(caseFile, overrides, data, free);
-            // refused before anything is written (exit 2, see Main): nothing beside the folder is touched either
-            OutputFolders.checkResults(folder, force, protect);
-            try (RunFolder rf = RunFolder.begin(folder, force, protect)) {
-                rf.cleaned().forEach(line -> o.println("note: " + line));
-                List<String> warnings = FitRun.run(prepared, rf, o, RunOutputs.CAUTION);
-                rf.commit();
-                o.println("results: " + rf.target());
-                if (!warnings.isEmpty()) {
-                    err.printf("evanesce fit: warning: %d warning(s) about the result (printed above, and in fit.json)%n",
-                            warnings.size());
-                }
-                o.println("Caution: " + RunOutputs.CAUTION);
-                return ExitCode.OK;
-            }
+            return StudyFolder.write(folder, force, caseFile, o, err, "evanesce fit", "fit.json",
+                    rf -> FitRun.run(prepared, rf, o, RunOutputs.CAUTION));
         } catch (NoSuchFileException e) {
             err.println("evanesce fit: " + e.getFile() + ": no such file");
             return ExitCode.USAGE;
@@ -92,11 +77,5 @@ public final class FitCommand implements Callable<Integer> {
             err.println("evanesce fit: nothing was written (see 'evanesce fit --help')");
             return ExitCode.USAGE;
         }
-    }
-
-    static Path defaultFolder(Path caseFile) {
-        String name = caseFile.getFileName().toString();
-        int dot = name.lastIndexOf('.');
-        return caseFile.toAbsolutePath().resolveSibling((dot > 0 ? name.substring(0, dot) : name) + "-fit");
     }
 }

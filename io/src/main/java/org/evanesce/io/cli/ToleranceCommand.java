@@ -9,8 +9,6 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
-import org.evanesce.io.output.OutputFolders;
-import org.evanesce.io.output.RunFolder;
 import org.evanesce.io.run.RunOutputs;
 import org.evanesce.io.tolerance.ToleranceInputException;
 import org.evanesce.io.tolerance.ToleranceRun;
@@ -73,21 +71,13 @@ public final class ToleranceCommand implements Callable<Integer> {
             err.println("evanesce tolerance: --samples " + samples + ": expected 1 to " + ToleranceRun.MAX_SAMPLES);
             return ExitCode.USAGE;
         }
-        String name = caseFile.getFileName().toString().replaceFirst("\\.[^.]*$", "");
-        Path folder = (out != null ? out : caseFile.toAbsolutePath().resolveSibling(name + "-tolerance")).toAbsolutePath()
-                .normalize();
-        List<OutputFolders.Protected> protect = OutputFolders.around(caseFile);
+        Path folder = StudyFolder.target(out, caseFile, "-tolerance");
         try {
             ToleranceRun.Prepared p = ToleranceRun.prepare(caseFile, overrides, vary, require);
-            OutputFolders.checkResults(folder, force, protect);
-            try (RunFolder rf = RunFolder.begin(folder, force, protect)) {
-                rf.cleaned().forEach(line -> o.println("note: " + line));
+            return StudyFolder.write(folder, force, caseFile, o, err, "evanesce tolerance", "tolerance.json", rf -> {
                 ToleranceRun.run(p, samples, seed, rf, o, RunOutputs.CAUTION);
-                rf.commit();
-                o.println("results: " + rf.target());
-                o.println("Caution: " + RunOutputs.CAUTION);
-                return ExitCode.OK;
-            }
+                return List.<String>of();
+            });
         } catch (ToleranceInputException e) {
             err.println("evanesce tolerance: " + e.getMessage());
             err.println("evanesce tolerance: nothing was written (see 'evanesce tolerance --help')");
