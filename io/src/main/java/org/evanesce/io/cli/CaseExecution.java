@@ -119,8 +119,8 @@ final class CaseExecution {
         RunOutputs.writeRunRecord(rf, RunOutputs.runRecord(new RunOutputs.Invocation(BuildInfo.current(), commandLine),
                 l.sha256(), plan, r, settling, l.loaded().diagnostics(), warnings, overrides));
         long cells = (long) plan.grid().nx() * plan.grid().ny();
-        o.printf(Locale.ROOT, "done: %d steps in %.1f s (%.0f Mcell/s, %d threads)%s; %s%n", r.steps(), r.wallSeconds(),
-                r.cellUpdatesPerSecond(cells) / 1e6, r.threads(),
+        o.printf(Locale.ROOT, "done: %d steps in %.1f s (%.0f Mcell/s, %d thread%s)%s; %s%n", r.steps(), r.wallSeconds(),
+                r.cellUpdatesPerSecond(cells) / 1e6, r.threads(), r.threads() == 1 ? "" : "s",
                 plan.flux().isPresent() ? String.format(Locale.ROOT, ", incident-power run %.1f s", r.incidentPowerRunWallSeconds()) : "",
                 r.stopReason());
         if (flux != null && table) {
