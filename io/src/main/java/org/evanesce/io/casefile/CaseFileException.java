@@ -2,6 +2,7 @@ package org.evanesce.io.casefile;
 
 import java.util.List;
 import java.util.stream.Collectors;
+import org.evanesce.io.casefile.text.Diagnostic;
 
 /**
  * A case file that cannot run. Carries every finding at once: all errors, and the warnings and

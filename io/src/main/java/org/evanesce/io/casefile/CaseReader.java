@@ -7,6 +7,15 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
+import org.evanesce.io.casefile.checks.CaseChecks;
+import org.evanesce.io.casefile.sections.CaseParser;
+import org.evanesce.io.casefile.sections.Context;
+import org.evanesce.io.casefile.sections.ParameterTable;
+import org.evanesce.io.casefile.spec.CaseSpec;
+import org.evanesce.io.casefile.text.Diagnostic;
+import org.evanesce.io.casefile.text.Located;
+import org.evanesce.io.casefile.text.SourcePosition;
+import org.evanesce.io.casefile.text.YamlLimits;
 import org.snakeyaml.engine.v2.api.LoadSettings;
 import org.snakeyaml.engine.v2.api.lowlevel.Compose;
 import org.snakeyaml.engine.v2.exceptions.Mark;
@@ -64,10 +73,10 @@ public final class CaseReader {
     }
 
     /** What one reading produced: the spec (null when there are errors) and its context. */
-    record Reading(CaseSpec spec, Context context) { }
+    public record Reading(CaseSpec spec, Context context) { }
 
     /** The whole reading with its context, for tests that look at which keys were read. */
-    static Reading reading(String text, String source, Map<String, String> overrides, ReadOptions options) {
+    public static Reading reading(String text, String source, Map<String, String> overrides, ReadOptions options) {
         Context ctx = new Context(source);
         ctx.parameters = new ParameterTable(ctx);
         Node root = compose(text, source, ctx);

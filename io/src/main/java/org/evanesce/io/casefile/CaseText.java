@@ -13,6 +13,8 @@ import java.nio.file.Path;
 import java.nio.file.attribute.BasicFileAttributes;
 import java.util.List;
 import java.util.Locale;
+import org.evanesce.io.casefile.text.Diagnostic;
+import org.evanesce.io.casefile.text.SourcePosition;
 
 /**
  * A case file's bytes and text, read safely: only a regular file (not a folder, a device such as

@@ -1,6 +1,8 @@
 package org.evanesce.io.casefile;
 
 import java.util.List;
+import org.evanesce.io.casefile.spec.CaseSpec;
+import org.evanesce.io.casefile.text.Diagnostic;
 
 /**
  * A case that may run, with the warnings and notes found while reading it (in file order).

@@ -12,7 +12,7 @@ import java.util.LinkedHashMap;
 import java.util.Map;
 import org.evanesce.io.casefile.CaseFileException;
 import org.evanesce.io.casefile.CaseReader;
-import org.evanesce.io.casefile.Diagnostic;
+import org.evanesce.io.casefile.text.Diagnostic;
 import org.evanesce.io.casefile.LoadedCase;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.plan.CasePlan;

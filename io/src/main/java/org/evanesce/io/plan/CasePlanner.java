@@ -18,20 +18,20 @@ import org.evanesce.geometry.shape.HalfPlane;
 import org.evanesce.geometry.shape.Polygon;
 import org.evanesce.geometry.shape.Rectangle;
 import org.evanesce.geometry.shape.Shape;
-import org.evanesce.io.casefile.BoundarySpec;
-import org.evanesce.io.casefile.CaseSpec;
-import org.evanesce.io.casefile.Diagnostic;
-import org.evanesce.io.casefile.OutputSpec;
-import org.evanesce.io.casefile.Value;
-import org.evanesce.io.casefile.Located;
-import org.evanesce.io.casefile.MaterialSpec;
-import org.evanesce.io.casefile.ProbeSpec;
-import org.evanesce.io.casefile.ResolutionSpec;
-import org.evanesce.io.casefile.ShapeSpec;
-import org.evanesce.io.casefile.SignalSpec;
-import org.evanesce.io.casefile.SourcePosition;
-import org.evanesce.io.casefile.SourceSpec;
-import org.evanesce.io.casefile.StopSpec;
+import org.evanesce.io.casefile.spec.BoundarySpec;
+import org.evanesce.io.casefile.spec.CaseSpec;
+import org.evanesce.io.casefile.text.Diagnostic;
+import org.evanesce.io.casefile.spec.OutputSpec;
+import org.evanesce.io.casefile.text.Value;
+import org.evanesce.io.casefile.text.Located;
+import org.evanesce.io.casefile.spec.MaterialSpec;
+import org.evanesce.io.casefile.spec.ProbeSpec;
+import org.evanesce.io.casefile.spec.ResolutionSpec;
+import org.evanesce.io.casefile.spec.ShapeSpec;
+import org.evanesce.io.casefile.spec.SignalSpec;
+import org.evanesce.io.casefile.text.SourcePosition;
+import org.evanesce.io.casefile.spec.SourceSpec;
+import org.evanesce.io.casefile.spec.StopSpec;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.solver.grid.Courant;
@@ -274,12 +274,12 @@ public final class CasePlanner {
                 // a continuous wave's maps: whole periods after the fields settle, as its flux, checked on the
                 // region's middle row; with several sources there is no one period to window (flagged after the run)
                 var ramped = spec.sources().stream().map(x -> x.signal())
-                        .filter(x -> x instanceof org.evanesce.io.casefile.SignalSpec.RampedWave).findFirst();
+                        .filter(x -> x instanceof org.evanesce.io.casefile.spec.SignalSpec.RampedWave).findFirst();
                 Optional<SteadyState> steady = Optional.empty();
                 List<org.evanesce.solver.record.FluxLine> halves = List.of();
                 if (ramped.isPresent() && spec.sources().size() == 1) {
                     SteadyState w = FluxPlanner.continuousWindow(spec, g,
-                            (org.evanesce.io.casefile.SignalSpec.RampedWave) ramped.get(), stop.maxSteps() * dt, errors);
+                            (org.evanesce.io.casefile.spec.SignalSpec.RampedWave) ramped.get(), stop.maxSteps() * dt, errors);
                     if (w != null) {
                         fm.window(w.start(), w.end() + 1e-6 * w.period());
                         steady = Optional.of(w);

@@ -1,7 +1,7 @@
 package org.evanesce.io.plan;
 
 import java.util.List;
-import org.evanesce.io.casefile.Diagnostic;
+import org.evanesce.io.casefile.text.Diagnostic;
 
 /** The case is valid as a file but cannot be planned; each finding names where in the file. Exit code 2. */
 public final class PlanException extends Exception {

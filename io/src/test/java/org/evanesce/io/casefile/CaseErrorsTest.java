@@ -7,6 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.util.List;
 import java.util.Map;
 import org.evanesce.io.casefile.expr.Units;
+import org.evanesce.io.casefile.text.Diagnostic;
 import org.junit.jupiter.api.Test;
 
 /**

@@ -1,0 +1,51 @@
+package org.evanesce.io.casefile.spec;
+
+import java.util.List;
+import org.evanesce.io.casefile.text.Located;
+import org.evanesce.io.casefile.text.SourcePosition;
+import org.evanesce.io.casefile.text.Value;
+
+/**
+ * Frequency-domain power through horizontal lines across the (periodic) width, normalised by the
+ * incident power of the case's plane wave.
+ *
+ * @param frequencies    the frequencies at which the fields are transformed, Hz, each with where it was written
+ * @param lines          at least one line
+ * @param transferMatrix whether to write the exact plane-wave answer of the layered scene beside the simulated one
+ * @param at             where the {@code flux} section starts
+ */
+public record FluxSpec(List<Value> frequencies, List<Line> lines, Located<Boolean> transferMatrix, SourcePosition at) {
+
+    public FluxSpec {
+        frequencies = List.copyOf(frequencies);
+        lines = List.copyOf(lines);
+    }
+
+    /** What a line's power is reported as. */
+    public enum Measure {
+        /** The flux of the fields in the incident direction, over the incident power. */
+        TRANSMITTED("transmitted"),
+        /** The flux of the fields minus the incident fields, against the incident direction, over the incident power. */
+        REFLECTED("reflected");
+
+        private final String caseName;
+
+        Measure(String caseName) {
+            this.caseName = caseName;
+        }
+
+        public String caseName() {
+            return caseName;
+        }
+    }
+
+    /**
+     * One line.
+     *
+     * @param name     names the line's columns in flux.csv
+     * @param y        the line's height, metres
+     * @param measures transmitted or reflected
+     * @param at       where the entry starts
+     */
+    public record Line(Located<String> name, Value y, Located<Measure> measures, SourcePosition at) { }
+}
