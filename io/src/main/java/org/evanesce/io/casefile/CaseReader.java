@@ -8,12 +8,10 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.evanesce.io.casefile.checks.CaseChecks;
-import org.evanesce.io.casefile.sections.CaseParser;
 import org.evanesce.io.casefile.sections.Context;
-import org.evanesce.io.casefile.sections.ParameterTable;
+import org.evanesce.io.casefile.sections.Sections;
 import org.evanesce.io.casefile.spec.CaseSpec;
 import org.evanesce.io.casefile.text.Diagnostic;
-import org.evanesce.io.casefile.text.Located;
 import org.evanesce.io.casefile.text.SourcePosition;
 import org.evanesce.io.casefile.text.YamlLimits;
 import org.snakeyaml.engine.v2.api.LoadSettings;
@@ -78,20 +76,17 @@ public final class CaseReader {
     /** The whole reading with its context, for tests that look at which keys were read. */
     public static Reading reading(String text, String source, Map<String, String> overrides, ReadOptions options) {
         Context ctx = new Context(source);
-        ctx.parameters = new ParameterTable(ctx);
         Node root = compose(text, source, ctx);
         if (root == null) {
             return new Reading(null, ctx);
         }
-        CaseParser parser = new CaseParser(ctx);
-        parser.resolutionScale = options.resolutionScale();
-        parser.gridOffset = options.gridOffset();
-        parser.parse(root, overrides);
-        new CaseChecks(ctx, parser, options).run();
-        if (ctx.hasErrors()) {
+        Sections.Result read = Sections.read(root, overrides, ctx, options.resolutionScale(), options.gridOffset());
+        if (read.spec().isEmpty()) {
             return new Reading(null, ctx);
         }
-        return new Reading(assemble(ctx, parser), ctx);
+        // the cross-section checks read the finished case; they run once every section was read without errors
+        CaseChecks.run(read.spec().get(), read.paths(), options.memoryLimit(), ctx.diagnostics);
+        return new Reading(ctx.hasErrors() ? null : read.spec().get(), ctx);
     }
 
     private static Node compose(String text, String source, Context ctx) {
@@ -120,34 +115,6 @@ public final class CaseReader {
         } catch (YamlEngineException e) {
             ctx.error(new SourcePosition(source, 1, 1), "", "not valid YAML: " + e.getMessage());
             return null;
-        }
-    }
-
-    private static CaseSpec assemble(Context ctx, CaseParser p) {
-        List<String> missing = new ArrayList<>();
-        check(missing, p.polarization, "polarization");
-        check(missing, p.designWavelength, "design_wavelength");
-        check(missing, p.domain, "domain");
-        check(missing, p.resolution, "grid");
-        check(missing, p.output, "output");
-        check(missing, p.stop, "until");
-        check(missing, p.numerics, "numerics");
-        if (p.boundaries.size() != 4) {
-            missing.add("boundaries");
-        }
-        if (!missing.isEmpty()) {
-            // every path to a null part reports an error first; reaching here is a reader bug
-            throw new IllegalStateException("case parts left unresolved without an error: " + missing);
-        }
-        return new CaseSpec(ctx.source, Optional.ofNullable(p.title), ctx.parameters.resolved(),
-                new Located<>(p.polarization, p.polarizationAt), p.designWavelength, p.domain, p.resolution, p.used, p.shapes,
-                p.boundaries, p.sources, p.probes, Optional.ofNullable(p.flux), Optional.ofNullable(p.maps), p.output, p.stop,
-                p.numerics, Optional.ofNullable(p.sweep));
-    }
-
-    private static void check(List<String> missing, Object part, String name) {
-        if (part == null) {
-            missing.add(name);
         }
     }
 

@@ -1,14 +1,12 @@
 package org.evanesce.io.casefile.checks;
 
 import java.util.HashSet;
+import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Set;
-import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
-import org.evanesce.io.casefile.sections.CaseParser;
-import org.evanesce.io.casefile.sections.Context;
 import org.evanesce.io.casefile.spec.BoundarySpec;
 import org.evanesce.io.casefile.spec.CaseSpec;
 import org.evanesce.io.casefile.spec.DomainSpec;
@@ -20,6 +18,8 @@ import org.evanesce.io.casefile.spec.ShapeSpec;
 import org.evanesce.io.casefile.spec.SignalSpec;
 import org.evanesce.io.casefile.spec.SourceSpec;
 import org.evanesce.io.casefile.spec.StopSpec;
+import org.evanesce.io.casefile.text.Diagnostic;
+import org.evanesce.io.casefile.text.KeyPaths;
 import org.evanesce.io.casefile.text.SourcePosition;
 import org.evanesce.io.casefile.text.Value;
 import org.evanesce.solver.grid.Precision;
@@ -27,8 +27,9 @@ import org.evanesce.solver.grid.Side;
 
 /**
  * Checks that look at several parts of a case together: where things sit in the domain and the
- * PML, resolution, evanescent decay, memory. Each check runs only when the parts it needs were
- * read without errors.
+ * PML, resolution, evanescent decay, memory. They read the finished {@link CaseSpec} (the reader
+ * runs them once every section was read without errors) and the key paths its parts came from;
+ * they never see the parser.
  */
 public final class CaseChecks {
 
@@ -39,41 +40,47 @@ public final class CaseChecks {
     /** An evanescent field decaying in fewer cells than this is poorly resolved. */
     static final double MIN_DECAY_CELLS = 4;
 
-    private final Context ctx;
-    private final CaseParser p;
-    private final ReadOptions options;
+    private final CaseSpec spec;
+    private final KeyPaths paths;
+    private final long memoryLimit;
+    private final List<Diagnostic> out;
 
-    public CaseChecks(Context ctx, CaseParser p, ReadOptions options) {
-        this.ctx = ctx;
-        this.p = p;
-        this.options = options;
+    private CaseChecks(CaseSpec spec, KeyPaths paths, long memoryLimit, List<Diagnostic> out) {
+        this.spec = spec;
+        this.paths = paths;
+        this.memoryLimit = memoryLimit;
+        this.out = out;
     }
 
-    public void run() {
-        if (p.domain != null) {
-            shapesInDomain();
-        }
-        if (p.resolution != null && p.boundaries.size() == Side.values().length) {
-            pml();
-            if (p.domain != null) {
-                placement();
-            }
-        }
-        if (p.resolution != null && p.materialsComplete && p.designWavelength != null) {
-            resolution();
-            if (p.domain != null && p.shapesComplete) {
-                evanescent();
-            }
-        }
-        if (p.resolution != null) {
-            memory();
-        }
+    /**
+     * Runs every check on a finished case and adds what it finds to {@code out}.
+     *
+     * @param paths       the key paths the case's parts were written under
+     * @param memoryLimit bytes the run may use for its grid; a larger estimate is an error
+     */
+    public static void run(CaseSpec spec, KeyPaths paths, long memoryLimit, List<Diagnostic> out) {
+        new CaseChecks(spec, paths, memoryLimit, out).run();
+    }
+
+    private void run() {
+        shapesInDomain();
+        pml();
+        placement();
+        resolution();
+        evanescent();
+        memory();
         decayWithContinuousWave();
         sourcesWithinTheRun();
         framesWithinTheRun();
-        if (p.boundaries.size() == Side.values().length) {
-            new PlaneWaveChecks(ctx, p, this).run();
-        }
+        new PlaneWaveChecks(spec, paths, this).run();
+    }
+
+    void error(SourcePosition at, String path, String message) {
+        out.add(new Diagnostic(Diagnostic.Severity.ERROR, at, path, message));
+    }
+
+    void warn(SourcePosition at, String path, String message) {
+        out.add(new Diagnostic(Diagnostic.Severity.WARNING, at, path, message));
     }
 
     private String fmt(double metres) {
@@ -81,15 +88,15 @@ public final class CaseChecks {
     }
 
     private String domainText() {
-        DomainSpec d = p.domain;
+        DomainSpec d = spec.domain();
         return String.format("x from %s to %s, y from %s to %s", fmt(d.xMin()), fmt(d.xMax()), fmt(d.yMin()), fmt(d.yMax()));
     }
 
     private void shapesInDomain() {
-        DomainSpec d = p.domain;
+        DomainSpec d = spec.domain();
         double[][] corners = {{d.xMin(), d.yMin()}, {d.xMax(), d.yMin()}, {d.xMin(), d.yMax()}, {d.xMax(), d.yMax()}};
-        for (int k = 0; k < p.shapes.size(); k++) {
-            ShapeSpec s = p.shapes.get(k);
+        for (int k = 0; k < spec.shapes().size(); k++) {
+            ShapeSpec s = spec.shapes().get(k);
             boolean outside;
             if (s instanceof ShapeSpec.HalfPlane h) {
                 double most = Double.NEGATIVE_INFINITY;
@@ -113,39 +120,39 @@ public final class CaseChecks {
                 outside = b[2] < d.xMin() || b[0] > d.xMax() || b[3] < d.yMin() || b[1] > d.yMax();
             }
             if (outside) {
-                ctx.warn(s.at(), p.shapePaths.get(k), "lies entirely outside the domain (" + domainText() + ") and has no effect");
+                warn(s.at(), paths.shapes().get(k), "lies entirely outside the domain (" + domainText() + ") and has no effect");
             }
         }
     }
 
     private int pmlCells(Side side) {
-        return p.boundaries.get(side) instanceof BoundarySpec.Pml pml ? pml.cells() : 0;
+        return spec.boundaries().get(side) instanceof BoundarySpec.Pml pml ? pml.cells() : 0;
     }
 
     private void pml() {
         Set<SourcePosition> warned = new HashSet<>();
-        for (Map.Entry<Side, BoundarySpec> e : p.boundaries.entrySet()) {
+        for (Map.Entry<Side, BoundarySpec> e : spec.boundaries().entrySet()) {
             if (e.getValue() instanceof BoundarySpec.Pml pml && pml.cells() < MIN_PML_CELLS && warned.add(pml.at())) {
-                ctx.warn(pml.at(), p.boundaryPaths.get(e.getKey()), String.format("a PML of %d cells (%s) is thinner than %d cells and reflects noticeably; use at least %d",
+                warn(pml.at(), paths.boundaries().get(e.getKey()), String.format("a PML of %d cells (%s) is thinner than %d cells and reflects noticeably; use at least %d",
                         pml.cells(), fmt(pml.thickness().si()), MIN_PML_CELLS, MIN_PML_CELLS));
             }
         }
-        if (p.boundaries.get(Side.LEFT) instanceof BoundarySpec.Periodic per && p.resolution.nx() - 1 < 3) {
+        if (spec.boundaries().get(Side.LEFT) instanceof BoundarySpec.Periodic per && spec.resolution().nx() - 1 < 3) {
             // the node at x = +W/2 is the image of the one at −W/2, so a period holds one column fewer
-            ctx.error(per.at(), p.boundaryPaths.get(Side.LEFT), String.format("with periodic sides a period needs at least 3 "
+            error(per.at(), paths.boundaries().get(Side.LEFT), String.format("with periodic sides a period needs at least 3 "
                     + "cells across, but the domain's width is %d cells of %s; use a smaller cell or a wider domain",
-                    p.resolution.nx() - 1, fmt(p.resolution.cellSize().si())));
+                    spec.resolution().nx() - 1, fmt(spec.resolution().cellSize().si())));
         }
-        across(Side.LEFT, Side.RIGHT, p.resolution.nx() - 1, "wide");
-        across(Side.BOTTOM, Side.TOP, p.resolution.ny() - 1, "high");
+        across(Side.LEFT, Side.RIGHT, spec.resolution().nx() - 1, "wide");
+        across(Side.BOTTOM, Side.TOP, spec.resolution().ny() - 1, "high");
     }
 
     private void across(Side a, Side b, int cells, String what) {
         long used = (long) pmlCells(a) + pmlCells(b); // long: a thickness may be written as a huge count
         // the solver needs at least two interior cells between the layers
         if (used > cells - 2) {
-            BoundarySpec where = p.boundaries.get(pmlCells(b) > 0 ? b : a);
-            ctx.error(where.at(), p.boundaryPaths.get(pmlCells(b) > 0 ? b : a), String.format(
+            BoundarySpec where = spec.boundaries().get(pmlCells(b) > 0 ? b : a);
+            error(where.at(), paths.boundaries().get(pmlCells(b) > 0 ? b : a), String.format(
                     "the %s and %s PMLs (%d + %d cells) leave no interior in a grid %d cells %s; thin them or enlarge the domain",
                     a.name().toLowerCase(Locale.ROOT), b.name().toLowerCase(Locale.ROOT), pmlCells(a), pmlCells(b), cells, what));
         }
@@ -157,13 +164,13 @@ public final class CaseChecks {
         if (in[0] >= in[2] || in[1] >= in[3]) {
             return; // the PMLs leave no interior, already an error
         }
-        for (int k = 0; k < p.sources.size(); k++) {
-            SourceSpec s = p.sources.get(k);
-            String path = p.sourcePaths.get(k);
+        for (int k = 0; k < spec.sources().size(); k++) {
+            SourceSpec s = spec.sources().get(k);
+            String path = paths.sources().get(k);
             if (s instanceof SourceSpec.PointSource ps) {
                 place(ps.location(), path + ".at", "the source");
-            } else if (s instanceof SourceSpec.PlaneWave w && p.domain.contains(0, w.y().si()) && pmlAt(0, w.y().si()) != null) {
-                ctx.warn(w.y().at(), path + ".y", String.format("the launching line at y = %s lies inside the %s; sources belong in "
+            } else if (s instanceof SourceSpec.PlaneWave w && spec.domain().contains(0, w.y().si()) && pmlAt(0, w.y().si()) != null) {
+                warn(w.y().at(), path + ".y", String.format("the launching line at y = %s lies inside the %s; sources belong in "
                         + "the interior (%s)", fmt(w.y().si()), pmlAt(0, w.y().si()), interiorText()));
             } else if (s instanceof SourceSpec.LineSource ls) {
                 // both ends inside the interior keep the whole segment there (the interior is convex)
@@ -171,8 +178,8 @@ public final class CaseChecks {
                 place(ls.to(), path + ".to", "the line's end");
             }
         }
-        for (int k = 0; k < p.probes.size(); k++) {
-            place(p.probes.get(k).location(), p.probePaths.get(k) + ".at", "the probe");
+        for (int k = 0; k < spec.probes().size(); k++) {
+            place(spec.probes().get(k).location(), paths.probes().get(k) + ".at", "the probe");
         }
     }
 
@@ -180,13 +187,13 @@ public final class CaseChecks {
     private boolean place(Point pt, String path, String what) {
         double x = pt.x().si();
         double y = pt.y().si();
-        if (!p.domain.contains(x, y)) {
-            ctx.error(pt.at(), path, String.format("%s at (%s, %s) lies outside the domain (%s)", what, fmt(x), fmt(y), domainText()));
+        if (!spec.domain().contains(x, y)) {
+            error(pt.at(), path, String.format("%s at (%s, %s) lies outside the domain (%s)", what, fmt(x), fmt(y), domainText()));
             return false;
         }
         String side = pmlAt(x, y);
         if (side != null) {
-            ctx.warn(pt.at(), path, String.format("%s at (%s, %s) lies inside the %s; sources and probes belong in the interior (%s)",
+            warn(pt.at(), path, String.format("%s at (%s, %s) lies inside the %s; sources and probes belong in the interior (%s)",
                     what, fmt(x), fmt(y), side, interiorText()));
         }
         return true;
@@ -194,9 +201,9 @@ public final class CaseChecks {
 
     /** The interior (outside every PML) as {xmin, ymin, xmax, ymax}, metres. */
     double[] interior() {
-        double d = p.resolution.cellSize().si();
-        return new double[] {p.resolution.x(0) + pmlCells(Side.LEFT) * d, p.resolution.y(0) + pmlCells(Side.BOTTOM) * d,
-            p.resolution.x(p.resolution.nx() - 1) - pmlCells(Side.RIGHT) * d, p.resolution.y(p.resolution.ny() - 1) - pmlCells(Side.TOP) * d};
+        double d = spec.resolution().cellSize().si();
+        return new double[] {spec.resolution().x(0) + pmlCells(Side.LEFT) * d, spec.resolution().y(0) + pmlCells(Side.BOTTOM) * d,
+            spec.resolution().x(spec.resolution().nx() - 1) - pmlCells(Side.RIGHT) * d, spec.resolution().y(spec.resolution().ny() - 1) - pmlCells(Side.TOP) * d};
     }
 
     private String interiorText() {
@@ -207,7 +214,7 @@ public final class CaseChecks {
     /** "left PML" etc. when (x, y) lies in a PML, else null. */
     private String pmlAt(double x, double y) {
         double[] in = interior();
-        double tol = 1e-6 * p.resolution.cellSize().si();
+        double tol = 1e-6 * spec.resolution().cellSize().si();
         if (x < in[0] - tol) {
             return "left PML";
         } else if (x > in[2] + tol) {
@@ -222,12 +229,12 @@ public final class CaseChecks {
 
     /** Cells per wavelength in the densest material at the shortest wavelength any source carries. */
     private void resolution() {
-        double shortest = p.designWavelength.si();
-        for (SourceSpec s : p.sources) {
+        double shortest = spec.designWavelength().si();
+        for (SourceSpec s : spec.sources()) {
             shortest = Math.min(shortest, s.signal().shortestWavelength());
         }
         MaterialSpec densest = null;
-        for (MaterialSpec m : p.used.values()) {
+        for (MaterialSpec m : spec.materials().values()) {
             if (densest == null || m.index() > densest.index()) {
                 densest = m;
             }
@@ -235,11 +242,11 @@ public final class CaseChecks {
         if (densest == null) {
             return;
         }
-        double cells = shortest / (densest.index() * p.resolution.cellSize().si());
+        double cells = shortest / (densest.index() * spec.resolution().cellSize().si());
         if (cells < MIN_CELLS_PER_WAVELENGTH) {
-            ctx.warn(p.resolution.cellSize().at(), p.resolutionPath, String.format(
+            warn(spec.resolution().cellSize().at(), paths.grid(), String.format(
                     "%s cells per wavelength in %s (n = %s) at %s with a %s cell, below %s; numerical dispersion will be visible, use a cell of at most %s",
-                    Units.number(cells), densest.name(), Units.number(densest.index()), fmt(shortest), fmt(p.resolution.cellSize().si()),
+                    Units.number(cells), densest.name(), Units.number(densest.index()), fmt(shortest), fmt(spec.resolution().cellSize().si()),
                     Units.number(MIN_CELLS_PER_WAVELENGTH), fmt(shortest / (densest.index() * MIN_CELLS_PER_WAVELENGTH))));
         }
     }
@@ -250,13 +257,13 @@ public final class CaseChecks {
      * Point sources radiate at every angle, so only tilted line sources can be checked.
      */
     private void evanescent() {
-        double cell = p.resolution.cellSize().si();
-        for (int k = 0; k < p.sources.size(); k++) {
-            if (!(p.sources.get(k) instanceof SourceSpec.LineSource ls) || ls.angle().si() == 0) {
+        double cell = spec.resolution().cellSize().si();
+        for (int k = 0; k < spec.sources().size(); k++) {
+            if (!(spec.sources().get(k) instanceof SourceSpec.LineSource ls) || ls.angle().si() == 0) {
                 continue;
             }
             double[] c = ls.centre();
-            MaterialSpec here = p.used.get(CaseSpec.materialAt(p.shapes, p.domain.background().value(), c[0], c[1]));
+            MaterialSpec here = spec.materials().get(spec.materialAt(c[0], c[1]));
             if (here == null) {
                 continue;
             }
@@ -264,7 +271,7 @@ public final class CaseChecks {
             double wl = ls.signal().wavelength();
             MaterialSpec worst = null;
             double shortest = Double.POSITIVE_INFINITY;
-            for (MaterialSpec m : p.used.values()) {
+            for (MaterialSpec m : spec.materials().values()) {
                 if (m.index() < transverse) {
                     double decay = wl / (2 * Math.PI * Math.sqrt(transverse * transverse - m.index() * m.index()));
                     if (decay < shortest) {
@@ -274,7 +281,7 @@ public final class CaseChecks {
                 }
             }
             if (worst != null && shortest < MIN_DECAY_CELLS * cell) {
-                ctx.warn(ls.angle().at(), p.sourcePaths.get(k) + ".angle", String.format(
+                warn(ls.angle().at(), paths.sources().get(k) + ".angle", String.format(
                         "at %s in %s (n = %s) the wave is evanescent in %s (n = %s) with a 1/e decay length of %s at %s, %s cells; "
                                 + "fewer than %s cells resolve it poorly, use a cell of at most %s",
                         Units.format(ls.angle().si(), Dimension.ANGLE), here.name(), Units.number(here.index()), worst.name(),
@@ -285,14 +292,14 @@ public final class CaseChecks {
     }
 
     private void memory() {
-        Precision precision = p.numerics == null ? Precision.FLOAT : p.numerics.precision().value();
-        double bytes = p.resolution.estimatedBytes(precision);
-        if (bytes > options.memoryLimit()) {
-            ctx.error(p.resolution.cellSize().at(), p.resolutionPath, String.format(
+        Precision precision = spec.numerics().precision().value();
+        double bytes = spec.resolution().estimatedBytes(precision);
+        if (bytes > memoryLimit) {
+            error(spec.resolution().cellSize().at(), paths.grid(), String.format(
                     "the grid of %d x %d nodes needs about %s in %s (%d bytes per cell) but the JVM can use at most %s; "
                             + "use a larger cell or a smaller domain, or give the JVM more memory (-Xmx)",
-                    p.resolution.nx(), p.resolution.ny(), gib(bytes), precision.name().toLowerCase(Locale.ROOT), ResolutionSpec.bytesPerCell(precision),
-                    gib(options.memoryLimit())));
+                    spec.resolution().nx(), spec.resolution().ny(), gib(bytes), precision.name().toLowerCase(Locale.ROOT), ResolutionSpec.bytesPerCell(precision),
+                    gib(memoryLimit)));
         }
     }
 
@@ -302,24 +309,24 @@ public final class CaseChecks {
 
     /** The run's end in seconds from a time or a latest time; NaN for a number of steps. */
     private double runEnd() {
-        return p.stop instanceof StopSpec.AfterTime t ? t.time().si()
-                : p.stop instanceof StopSpec.WhenEnergyBelow d ? d.latest().si() : Double.NaN;
+        return spec.stop() instanceof StopSpec.AfterTime t ? t.time().si()
+                : spec.stop() instanceof StopSpec.WhenEnergyBelow d ? d.latest().si() : Double.NaN;
     }
 
     /** Frames asked for after the run's end are never written; an interval longer than the run gives none. */
     private void framesWithinTheRun() {
         double end = runEnd();
-        if (p.output == null || !(end > 0) || !p.output.writes(OutputSpec.Item.FIELD_FRAMES)) {
+        if (!(end > 0) || !spec.output().writes(OutputSpec.Item.FIELD_FRAMES)) {
             return;
         }
-        for (int k = 0; k < p.output.frameTimes().size(); k++) {
-            Value t = p.output.frameTimes().get(k);
+        for (int k = 0; k < spec.output().frameTimes().size(); k++) {
+            Value t = spec.output().frameTimes().get(k);
             if (t.si() > end) {
-                ctx.warn(t.at(), "output.frame_times[" + k + "]", String.format("%s is after the run ends at %s; no frame is "
+                warn(t.at(), "output.frame_times[" + k + "]", String.format("%s is after the run ends at %s; no frame is "
                         + "written for it", Units.format(t.si(), Dimension.TIME), Units.format(end, Dimension.TIME)));
             }
         }
-        p.output.frameInterval().filter(i -> i.si() > end).ifPresent(i -> ctx.warn(i.at(), "output.frame_interval",
+        spec.output().frameInterval().filter(i -> i.si() > end).ifPresent(i -> warn(i.at(), "output.frame_interval",
                 String.format("%s is longer than the run (%s); no frame is written", Units.format(i.si(), Dimension.TIME),
                         Units.format(end, Dimension.TIME))));
     }
@@ -330,10 +337,10 @@ public final class CaseChecks {
         if (!(end > 0)) {
             return;
         }
-        for (int k = 0; k < p.sources.size(); k++) {
-            SignalSpec s = p.sources.get(k).signal();
+        for (int k = 0; k < spec.sources().size(); k++) {
+            SignalSpec s = spec.sources().get(k).signal();
             if (s.peakTime() > end) {
-                ctx.warn(s.at(), p.sourcePaths.get(k) + ".signal", String.format("the %s %s at %s, after the run ends at %s; "
+                warn(s.at(), paths.sources().get(k) + ".signal", String.format("the %s %s at %s, after the run ends at %s; "
                         + "the run sees %s of it (%s)", s.kind().replace('_', ' '), s instanceof SignalSpec.RampedWave
                                 ? "reaches full amplitude" : "peaks", Units.format(s.peakTime(), Dimension.TIME),
                         Units.format(end, Dimension.TIME), s instanceof SignalSpec.RampedWave ? "only the switch-on" : "little",
@@ -343,13 +350,13 @@ public final class CaseChecks {
     }
 
     private void decayWithContinuousWave() {
-        if (!(p.stop instanceof StopSpec.WhenEnergyBelow d)) {
+        if (!(spec.stop() instanceof StopSpec.WhenEnergyBelow d)) {
             return;
         }
-        for (int k = 0; k < p.sources.size(); k++) {
-            if (p.sources.get(k).signal() instanceof SignalSpec.RampedWave) {
-                ctx.warn(d.fraction().at(), "until", String.format("%s drives a ramped wave, whose field energy never falls; the run "
-                        + "will end at the latest time %s", p.sourcePaths.get(k), Units.format(d.latest().si(), Dimension.TIME)));
+        for (int k = 0; k < spec.sources().size(); k++) {
+            if (spec.sources().get(k).signal() instanceof SignalSpec.RampedWave) {
+                warn(d.fraction().at(), "until", String.format("%s drives a ramped wave, whose field energy never falls; the run "
+                        + "will end at the latest time %s", paths.sources().get(k), Units.format(d.latest().si(), Dimension.TIME)));
                 return;
             }
         }

@@ -47,10 +47,11 @@ import org.snakeyaml.engine.v2.nodes.ScalarNode;
 
 /**
  * Walks a composed case file section by section into the spec records. Problems are collected in
- * the {@link Context}; a part that could not be read stays null and the checks that need it are
- * skipped, so every independent problem is still found.
+ * the {@link Context}; a part that could not be read stays null and the readers that need it skip
+ * it, so every independent problem in the sections is still found. {@link Sections} assembles the
+ * finished spec; the cross-section checks run on that, never on this class's state.
  */
-public final class CaseParser {
+final class CaseParser {
 
     /** The most nodes one grid may have: one Java array per field, with the geometry module's margin. */
     static final long MAX_NODES = Integer.MAX_VALUE - 64;
@@ -74,45 +75,45 @@ public final class CaseParser {
     private final SignalReader signalReader;
 
     // the parts read so far; null when missing or wrong
-    public String title;
-    public Polarization polarization;
-    public SourcePosition polarizationAt;
-    public Value designWavelength;
-    public DomainSpec domain;
+    String title;
+    Polarization polarization;
+    SourcePosition polarizationAt;
+    Value designWavelength;
+    DomainSpec domain;
     final Map<String, MaterialSpec> defined = new LinkedHashMap<>();
-    public final Map<String, MaterialSpec> used = new LinkedHashMap<>();
-    public boolean materialsComplete = true;
+    final Map<String, MaterialSpec> used = new LinkedHashMap<>();
+    boolean materialsComplete = true;
     /** Names whose definitions failed: references to them are not reported again. */
     final Set<String> failedMaterials = new HashSet<>();
     /** False when the materials section is not a mapping at all, so no reference can be checked. */
     boolean materialsReadable = true;
-    public final List<ShapeSpec> shapes = new ArrayList<>();
-    public final List<String> shapePaths = new ArrayList<>();
-    public boolean shapesComplete = true;
-    public ResolutionSpec resolution;
+    final List<ShapeSpec> shapes = new ArrayList<>();
+    final List<String> shapePaths = new ArrayList<>();
+    boolean shapesComplete = true;
+    ResolutionSpec resolution;
     /** The resolution as written is multiplied by this (an accuracy study's finer levels); 1 normally. */
-    public double resolutionScale = 1;
+    double resolutionScale = 1;
     /** The grid's nodes are moved by this fraction of a cell (an accuracy study's offset runs); 0 normally. */
-    public double gridOffset;
+    double gridOffset;
     SourcePosition resolutionAt;
     /** The key the cell size came from: grid.cell or grid.cells_per_wavelength. */
-    public String resolutionPath = "grid";
-    public final Map<Side, BoundarySpec> boundaries = new EnumMap<>(Side.class);
-    public final List<SourceSpec> sources = new ArrayList<>();
-    public final List<String> sourcePaths = new ArrayList<>();
+    String resolutionPath = "grid";
+    final Map<Side, BoundarySpec> boundaries = new EnumMap<>(Side.class);
+    final List<SourceSpec> sources = new ArrayList<>();
+    final List<String> sourcePaths = new ArrayList<>();
     boolean sourcesComplete = true;
-    public final List<ProbeSpec> probes = new ArrayList<>();
-    public final List<String> probePaths = new ArrayList<>();
-    public final Map<Side, String> boundaryPaths = new EnumMap<>(Side.class);
-    public FluxSpec flux;
-    public MapsSpec maps;
+    final List<ProbeSpec> probes = new ArrayList<>();
+    final List<String> probePaths = new ArrayList<>();
+    final Map<Side, String> boundaryPaths = new EnumMap<>(Side.class);
+    FluxSpec flux;
+    MapsSpec maps;
     boolean mapsFailed;
-    public OutputSpec output;
-    public StopSpec stop;
-    public NumericsSpec numerics;
-    public SweepSpec sweep;
+    OutputSpec output;
+    StopSpec stop;
+    NumericsSpec numerics;
+    SweepSpec sweep;
 
-    public CaseParser(Context ctx) {
+    CaseParser(Context ctx) {
         this.ctx = ctx;
         this.shapeReader = new ShapeReader(ctx, materialPaths);
         this.signalReader = new SignalReader(ctx);
@@ -128,7 +129,7 @@ public final class CaseParser {
         return m;
     }
 
-    public void parse(Node root, Map<String, String> overrides) {
+    void parse(Node root, Map<String, String> overrides) {
         SweepReader sweepReader = new SweepReader(ctx);
         MapView top = MapView.of(ctx, sweepReader.take(root), Schema.ROOT, "", ctx.pos(root));
         if (top == null) {

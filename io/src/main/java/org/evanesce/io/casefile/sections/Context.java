@@ -48,11 +48,11 @@ public final class Context {
         }
     }
 
-    public final String source;
+    final String source;
     public final List<Diagnostic> diagnostics = new ArrayList<>();
     /** "section-id key" for every schema key the reader looked up: the documentation test uses it. */
-    public final Set<String> consumed = new LinkedHashSet<>();
-    public ParameterTable parameters;
+    final Set<String> consumed = new LinkedHashSet<>();
+    ParameterTable parameters;
 
     public Context(String source) {
         this.source = source;
@@ -67,7 +67,7 @@ public final class Context {
         diagnostics.add(new Diagnostic(Diagnostic.Severity.ERROR, at, path, message));
     }
 
-    public void warn(SourcePosition at, String path, String message) {
+    void warn(SourcePosition at, String path, String message) {
         diagnostics.add(new Diagnostic(Diagnostic.Severity.WARNING, at, path, message));
     }
 

@@ -27,7 +27,7 @@ import org.snakeyaml.engine.v2.nodes.NodeTuple;
  * dependency order. Undefined names and circular definitions are reported once, where they are
  * written; expressions that use a parameter whose definition failed stay quiet.
  */
-public final class ParameterTable {
+final class ParameterTable {
 
     static final Pattern NAME = Pattern.compile("[A-Za-z_][A-Za-z0-9_]*");
 
@@ -43,7 +43,7 @@ public final class ParameterTable {
     private final Map<String, Quantity> values = new HashMap<>();
     private final Set<String> failed = new HashSet<>();
 
-    public ParameterTable(Context ctx) {
+    ParameterTable(Context ctx) {
         this.ctx = ctx;
     }
 
@@ -258,7 +258,7 @@ public final class ParameterTable {
     }
 
     /** Every parameter that has a value, in file order. */
-    public Map<String, Parameter> resolved() {
+    Map<String, Parameter> resolved() {
         Map<String, Parameter> out = new LinkedHashMap<>();
         for (Def d : defs.values()) {
             Quantity q = values.get(d.name);

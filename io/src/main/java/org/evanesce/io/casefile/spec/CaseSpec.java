@@ -13,7 +13,7 @@ import org.evanesce.solver.grid.Side;
 
 /**
  * A validated case: every value resolved to SI units and remembering where it was written.
- * Build one with {@link CaseReader}; the records are immutable.
+ * Built by {@code org.evanesce.io.casefile.CaseReader}; the records are immutable.
  *
  * @param source           the case file's name as given
  * @param title            the case's one-line title
@@ -58,7 +58,7 @@ public record CaseSpec(String source, Optional<String> title, Map<String, Parame
         return materialAt(shapes, domain.background().value(), x, y);
     }
 
-    public static String materialAt(List<ShapeSpec> shapes, String background, double x, double y) {
+    static String materialAt(List<ShapeSpec> shapes, String background, double x, double y) {
         for (int k = shapes.size() - 1; k >= 0; k--) {
             String m = shapes.get(k).materialAt(x, y);
             if (m != null) {
