@@ -1,7 +1,7 @@
 package org.evanesce.io.casefile;
 
 import java.util.List;
-import org.evanesce.io.casefile.spec.CaseSpec;
+import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.text.Diagnostic;
 
 /**

@@ -6,7 +6,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
-import org.evanesce.io.casefile.spec.CaseSpec;
+import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.output.OutputFolders;
 import org.evanesce.io.output.RunFolder;
 import org.evanesce.io.run.Checkpoints;

@@ -3,7 +3,7 @@ package org.evanesce.io.plan;
 import java.util.List;
 import org.evanesce.geometry.GridSpec;
 import org.evanesce.geometry.MaterialGrid;
-import org.evanesce.io.casefile.spec.CaseSpec;
+import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.record.Probe;
 
@@ -33,7 +33,7 @@ public record CasePlan(CaseSpec spec, GridSpec grid, MaterialGrid materials, Sim
 
     /** Whether a source drives a continuous (ramped) wave, which never decays. */
     public boolean continuous() {
-        return spec.sources().stream().anyMatch(s -> s.signal() instanceof org.evanesce.io.casefile.spec.SignalSpec.RampedWave);
+        return spec.sources().stream().anyMatch(s -> s.signal() instanceof org.evanesce.io.casefile.model.SignalSpec.RampedWave);
     }
 
     /**

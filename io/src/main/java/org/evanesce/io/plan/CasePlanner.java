@@ -18,20 +18,20 @@ import org.evanesce.geometry.shape.HalfPlane;
 import org.evanesce.geometry.shape.Polygon;
 import org.evanesce.geometry.shape.Rectangle;
 import org.evanesce.geometry.shape.Shape;
-import org.evanesce.io.casefile.spec.BoundarySpec;
-import org.evanesce.io.casefile.spec.CaseSpec;
+import org.evanesce.io.casefile.model.BoundarySpec;
+import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.text.Diagnostic;
-import org.evanesce.io.casefile.spec.OutputSpec;
+import org.evanesce.io.casefile.model.OutputSpec;
 import org.evanesce.io.casefile.text.Value;
 import org.evanesce.io.casefile.text.Located;
-import org.evanesce.io.casefile.spec.MaterialSpec;
-import org.evanesce.io.casefile.spec.ProbeSpec;
-import org.evanesce.io.casefile.spec.ResolutionSpec;
-import org.evanesce.io.casefile.spec.ShapeSpec;
-import org.evanesce.io.casefile.spec.SignalSpec;
+import org.evanesce.io.casefile.model.MaterialSpec;
+import org.evanesce.io.casefile.model.ProbeSpec;
+import org.evanesce.io.casefile.model.ResolutionSpec;
+import org.evanesce.io.casefile.model.ShapeSpec;
+import org.evanesce.io.casefile.model.SignalSpec;
 import org.evanesce.io.casefile.text.SourcePosition;
-import org.evanesce.io.casefile.spec.SourceSpec;
-import org.evanesce.io.casefile.spec.StopSpec;
+import org.evanesce.io.casefile.model.SourceSpec;
+import org.evanesce.io.casefile.model.StopSpec;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.solver.grid.Courant;
@@ -274,12 +274,12 @@ public final class CasePlanner {
                 // a continuous wave's maps: whole periods after the fields settle, as its flux, checked on the
                 // region's middle row; with several sources there is no one period to window (flagged after the run)
                 var ramped = spec.sources().stream().map(x -> x.signal())
-                        .filter(x -> x instanceof org.evanesce.io.casefile.spec.SignalSpec.RampedWave).findFirst();
+                        .filter(x -> x instanceof org.evanesce.io.casefile.model.SignalSpec.RampedWave).findFirst();
                 Optional<SteadyState> steady = Optional.empty();
                 List<org.evanesce.solver.record.FluxLine> halves = List.of();
                 if (ramped.isPresent() && spec.sources().size() == 1) {
                     SteadyState w = FluxPlanner.continuousWindow(spec, g,
-                            (org.evanesce.io.casefile.spec.SignalSpec.RampedWave) ramped.get(), stop.maxSteps() * dt, errors);
+                            (org.evanesce.io.casefile.model.SignalSpec.RampedWave) ramped.get(), stop.maxSteps() * dt, errors);
                     if (w != null) {
                         fm.window(w.start(), w.end() + 1e-6 * w.period());
                         steady = Optional.of(w);

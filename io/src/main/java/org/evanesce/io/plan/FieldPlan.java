@@ -2,7 +2,7 @@ package org.evanesce.io.plan;
 
 import java.util.List;
 import java.util.Optional;
-import org.evanesce.io.casefile.spec.MapsSpec;
+import org.evanesce.io.casefile.model.MapsSpec;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.record.FieldMap;
 

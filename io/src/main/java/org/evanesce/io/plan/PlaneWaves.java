@@ -2,9 +2,9 @@ package org.evanesce.io.plan;
 
 import java.util.Optional;
 import org.evanesce.geometry.PhysicalConstants;
-import org.evanesce.io.casefile.spec.CaseSpec;
-import org.evanesce.io.casefile.spec.MaterialSpec;
-import org.evanesce.io.casefile.spec.SourceSpec;
+import org.evanesce.io.casefile.model.CaseSpec;
+import org.evanesce.io.casefile.model.MaterialSpec;
+import org.evanesce.io.casefile.model.SourceSpec;
 
 /** The case's plane wave (at most one, the case file's checks ensure) and the quantities derived from it. */
 public final class PlaneWaves {

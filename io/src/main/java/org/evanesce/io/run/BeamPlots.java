@@ -5,7 +5,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
-import org.evanesce.io.casefile.spec.FluxSpec;
+import org.evanesce.io.casefile.model.FluxSpec;
 import org.evanesce.io.output.image.LinePlot;
 import org.evanesce.io.plan.FluxPlan;
 import org.evanesce.solver.grid.Polarization;

@@ -2,8 +2,8 @@ package org.evanesce.io.run;
 
 import java.util.ArrayList;
 import java.util.List;
-import org.evanesce.io.casefile.spec.FluxSpec;
-import org.evanesce.io.casefile.spec.SourceSpec;
+import org.evanesce.io.casefile.model.FluxSpec;
+import org.evanesce.io.casefile.model.SourceSpec;
 import org.evanesce.io.plan.FluxPlan;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.reference.AngularSpectrum;

@@ -249,7 +249,7 @@ public final class FieldOutputs {
 
     /** Whether the run has Bloch-periodic sides (complex fields). */
     public static boolean periodic(CasePlan plan) {
-        return plan.spec().boundary(org.evanesce.solver.grid.Side.LEFT) instanceof org.evanesce.io.casefile.spec.BoundarySpec.Periodic;
+        return plan.spec().boundary(org.evanesce.solver.grid.Side.LEFT) instanceof org.evanesce.io.casefile.model.BoundarySpec.Periodic;
     }
 
     /** Material ids at the z component's site (s) or Ex's (p) over the box, for outlines. */

@@ -5,7 +5,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import org.evanesce.io.casefile.spec.FluxSpec;
+import org.evanesce.io.casefile.model.FluxSpec;
 import org.evanesce.io.plan.FluxPlan;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.record.BeamProfile;

@@ -5,7 +5,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import org.evanesce.io.casefile.spec.FluxSpec;
+import org.evanesce.io.casefile.model.FluxSpec;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.io.plan.CasePlan;
@@ -48,7 +48,7 @@ public record Settling(Boolean settled, String rule, double energyFraction, doub
      * 5.1e-6 of the largest energy left had A = 1 − R − T = 9e-4 (exact 0) and T off by 2.5e-4, one ending with
      * 2.9e-3 left had A = 0.027; the error goes as about 0.4 √fraction, so 1e-5 keeps it near 1e-3, a fifth of the
      * discretisation error at 20 cells per wavelength (0.005, README). A warning threshold, so ten times looser than
-     * the default energy fraction of {@code until: {latest: ...}} ({@link org.evanesce.io.casefile.spec.StopSpec#DEFAULT_ENERGY_FRACTION},
+     * the default energy fraction of {@code until: {latest: ...}} ({@link org.evanesce.io.casefile.model.StopSpec#DEFAULT_ENERGY_FRACTION},
      * which aims at errors below 1e-4): a run flagged here is off by about 1e-3 or more, one that
      * reaches the default by some 1e-4 or less.
      */
@@ -63,8 +63,8 @@ public record Settling(Boolean settled, String rule, double energyFraction, doub
     /** The continuous source's ramp in periods (0 without one). */
     private static double ramp(CasePlan plan) {
         return plan.spec().sources().stream().map(x -> x.signal())
-                .filter(x -> x instanceof org.evanesce.io.casefile.spec.SignalSpec.RampedWave)
-                .map(x -> (org.evanesce.io.casefile.spec.SignalSpec.RampedWave) x)
+                .filter(x -> x instanceof org.evanesce.io.casefile.model.SignalSpec.RampedWave)
+                .map(x -> (org.evanesce.io.casefile.model.SignalSpec.RampedWave) x)
                 .mapToDouble(w -> w.rampTime().si() * w.frequency().si()).max().orElse(0);
     }
 
@@ -141,7 +141,7 @@ public record Settling(Boolean settled, String rule, double energyFraction, doub
                     what == null ? "the fields had not decayed as the case asks"
                             : "the transforms miss what had not yet passed, so " + what + " can be far off",
                     decayStop ? "raise until.latest" : "a longer until.time, or until: {latest: ...}, which runs until the energy "
-                            + "falls below " + org.evanesce.io.casefile.spec.StopSpec.DEFAULT_ENERGY_FRACTION));
+                            + "falls below " + org.evanesce.io.casefile.model.StopSpec.DEFAULT_ENERGY_FRACTION));
         }
         if (hasFlux && incidentRunFraction > asked) {
             warn.add(String.format(Locale.ROOT, "the flux normalisation did not settle: the incident-power run "

@@ -5,7 +5,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import org.evanesce.io.casefile.spec.SweepSpec;
+import org.evanesce.io.casefile.model.SweepSpec;
 
 /**
  * One point of a sweep: the swept parameters' expression texts, which are applied as

@@ -5,7 +5,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
-import org.evanesce.io.casefile.spec.SweepSpec;
+import org.evanesce.io.casefile.model.SweepSpec;
 
 /**
  * {@code sweep.json}: what a sweep folder holds, so that a later run of the same sweep can tell

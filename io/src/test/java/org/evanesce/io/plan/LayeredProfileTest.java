@@ -14,7 +14,7 @@ import java.util.regex.Pattern;
 import org.evanesce.geometry.Complex;
 import org.evanesce.io.casefile.CaseFileException;
 import org.evanesce.io.casefile.CaseReader;
-import org.evanesce.io.casefile.spec.CaseSpec;
+import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.plan.LayeredProfile.Band;
 import org.evanesce.io.plan.LayeredProfile.Direction;

@@ -17,7 +17,7 @@ import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.io.Cli;
 import org.evanesce.io.casefile.CaseFileException;
 import org.evanesce.io.casefile.CaseReader;
-import org.evanesce.io.casefile.spec.CaseSpec;
+import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.cli.ExitCode;
 import org.evanesce.solver.Simulation;

@@ -12,9 +12,9 @@ import java.util.List;
 import java.util.Map;
 import org.evanesce.io.casefile.CaseFileException;
 import org.evanesce.io.casefile.CaseReader;
-import org.evanesce.io.casefile.spec.CaseSpec;
+import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.ReadOptions;
-import org.evanesce.io.casefile.spec.SweepSpec;
+import org.evanesce.io.casefile.model.SweepSpec;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 

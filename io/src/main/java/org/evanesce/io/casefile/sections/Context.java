@@ -12,7 +12,7 @@ import org.evanesce.io.casefile.expr.ExpressionException;
 import org.evanesce.io.casefile.expr.Quantity;
 import org.evanesce.io.casefile.expr.Suggest;
 import org.evanesce.io.casefile.expr.Units;
-import org.evanesce.io.casefile.spec.Point;
+import org.evanesce.io.casefile.model.Point;
 import org.evanesce.io.casefile.text.Diagnostic;
 import org.evanesce.io.casefile.text.Scalar;
 import org.evanesce.io.casefile.text.SourcePosition;

@@ -8,7 +8,7 @@ import java.util.Map;
 import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.io.casefile.sections.Context.Expect;
 import org.evanesce.io.casefile.expr.Suggest;
-import org.evanesce.io.casefile.spec.FluxSpec;
+import org.evanesce.io.casefile.model.FluxSpec;
 import org.evanesce.io.casefile.text.Located;
 import org.evanesce.io.casefile.text.SourcePosition;
 import org.evanesce.io.casefile.text.Value;

@@ -2,10 +2,10 @@ package org.evanesce.io.casefile.sections;
 
 import java.util.LinkedHashMap;
 import java.util.Map;
+import org.evanesce.io.casefile.model.Point;
+import org.evanesce.io.casefile.model.SignalSpec;
+import org.evanesce.io.casefile.model.SourceSpec;
 import org.evanesce.io.casefile.sections.Context.Expect;
-import org.evanesce.io.casefile.spec.Point;
-import org.evanesce.io.casefile.spec.SignalSpec;
-import org.evanesce.io.casefile.spec.SourceSpec;
 import org.evanesce.io.casefile.text.Located;
 import org.evanesce.io.casefile.text.Value;
 import org.evanesce.solver.grid.Component;

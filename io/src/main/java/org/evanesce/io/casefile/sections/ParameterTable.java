@@ -15,7 +15,7 @@ import org.evanesce.io.casefile.expr.Expression;
 import org.evanesce.io.casefile.expr.ExpressionException;
 import org.evanesce.io.casefile.expr.Quantity;
 import org.evanesce.io.casefile.expr.Suggest;
-import org.evanesce.io.casefile.spec.Parameter;
+import org.evanesce.io.casefile.model.Parameter;
 import org.evanesce.io.casefile.text.Scalar;
 import org.evanesce.io.casefile.text.SourcePosition;
 import org.snakeyaml.engine.v2.nodes.MappingNode;

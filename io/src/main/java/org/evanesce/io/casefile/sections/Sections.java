@@ -4,7 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
-import org.evanesce.io.casefile.spec.CaseSpec;
+import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.text.KeyPaths;
 import org.evanesce.io.casefile.text.Located;
 import org.snakeyaml.engine.v2.nodes.Node;

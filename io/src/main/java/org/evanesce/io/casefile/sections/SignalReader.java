@@ -5,7 +5,7 @@ import org.evanesce.io.casefile.sections.Context.Expect;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Quantity;
 import org.evanesce.io.casefile.expr.Units;
-import org.evanesce.io.casefile.spec.SignalSpec;
+import org.evanesce.io.casefile.model.SignalSpec;
 import org.evanesce.io.casefile.text.Scalar;
 import org.evanesce.io.casefile.text.Value;
 import org.snakeyaml.engine.v2.nodes.Node;

@@ -10,7 +10,7 @@ import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.io.casefile.expr.ExpressionException;
 import org.evanesce.io.casefile.expr.Quantity;
 import org.evanesce.io.casefile.expr.Suggest;
-import org.evanesce.io.casefile.spec.SweepSpec;
+import org.evanesce.io.casefile.model.SweepSpec;
 import org.evanesce.io.casefile.text.Scalar;
 import org.evanesce.io.casefile.text.SourcePosition;
 import org.snakeyaml.engine.v2.nodes.MappingNode;

@@ -20,7 +20,7 @@ import java.util.regex.Pattern;
 import java.util.stream.Collectors;
 import org.evanesce.io.casefile.CaseReader;
 import org.evanesce.io.casefile.ReadOptions;
-import org.evanesce.io.casefile.spec.LibraryMaterial;
+import org.evanesce.io.casefile.model.LibraryMaterial;
 import org.evanesce.io.casefile.text.Diagnostic;
 import org.junit.jupiter.api.Test;
 

@@ -1,4 +1,4 @@
-package org.evanesce.io.casefile.spec;
+package org.evanesce.io.casefile.model;
 
 import java.util.Collections;
 import java.util.EnumMap;

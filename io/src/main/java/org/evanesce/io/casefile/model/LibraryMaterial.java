@@ -1,4 +1,4 @@
-package org.evanesce.io.casefile.spec;
+package org.evanesce.io.casefile.model;
 
 /**
  * The built-in materials, each a published dispersion fit evaluated at the run's vacuum

@@ -1,4 +1,4 @@
-package org.evanesce.io.casefile.spec;
+package org.evanesce.io.casefile.model;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
