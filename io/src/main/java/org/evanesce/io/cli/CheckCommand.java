@@ -56,8 +56,8 @@ public final class CheckCommand implements Callable<Integer> {
                 MemoryEstimate.format(plan.memory().total()), plan.memory().breakdown(),
                 MemoryEstimate.format(Runtime.getRuntime().maxMemory()));
         try (Simulation sim = CaseRunner.build(plan)) {
-            o.printf(Locale.ROOT, "solver: %.1f MiB of field, coefficient and PML arrays (%d bytes per cell), %d threads%n",
-                    sim.bytes() / 1048576.0, sim.bytesPerCell(), sim.threads());
+            o.printf(Locale.ROOT, "solver: %.1f MiB of field, coefficient and PML arrays (%d bytes per cell), %d thread%s%n",
+                    sim.bytes() / 1048576.0, sim.bytesPerCell(), sim.threads(), sim.threads() == 1 ? "" : "s");
             if (trialSeconds > 0) {
                 JitWarmUp.run(plan.spec().polarization().value(), plan.spec().numerics().precision().value());
                 long t0 = System.nanoTime();
