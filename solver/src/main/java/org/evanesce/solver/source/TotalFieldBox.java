@@ -34,7 +34,8 @@ import org.jtransforms.fft.DoubleFFT_1D;
  *
  * <p>Signals: a ramped continuous wave ({@link RampedContinuous}) has at steady state the incident z component
  * (Ez for s, η0Hz for p) A·sin(2πf t) at the reference point (phasor iA with exp(−iωt)), any background.
- * A pulse ({@link GaussianPulse} or {@link DifferentiatedGaussian}, homogeneous background only) has A·g(t) there,
+ * A pulse ({@link GaussianPulse} or {@link DifferentiatedGaussian}, homogeneous background only) has A·g(t − T)
+ * there, T = {@link #pulseDelay()} (zero when the reference point is where the wave enters the box),
  * every frequency carried as the grid's plane wave of that frequency: the incident values of each edge site
  * are tabulated per step ({@link SampledSheet}) from the pulse's discrete spectrum, each frequency given its own
  * numerical wavenumber and component ratios (a per-frequency method rather than an auxiliary 1D grid: exact
@@ -68,6 +69,9 @@ public final class TotalFieldBox {
             }
         }
     }
+
+    /** Tabulated values below this fraction of the amplitude are set to zero (single precision keeps 6e-8 of it). */
+    static final double TINY = 1e-12;
 
     private final Spec spec;
     private final int nx;
@@ -200,14 +204,49 @@ public final class TotalFieldBox {
                 throw new IllegalStateException("total-field box site " + t + " is not updated");
             }
         }
+        Spectrum sp = spec.signal() instanceof RampedContinuous ? null : spectrum(pulseLength());
+        if (sp != null) {
+            // the wave must reach the box's edge no earlier than step 0: delay it if the reference point is not upstream
+            long earliest = Long.MAX_VALUE;
+            for (Term t : all) {
+                earliest = Math.min(earliest, shift(sp, t));
+            }
+            delaySteps = Math.max(0, -earliest);
+        }
         for (Component c : spec.polarization().components()) {
             List<Term> mine = all.stream().filter(t -> t.target() == c).toList();
             if (spec.signal() instanceof RampedContinuous r) {
                 continuous.add(continuousSheet(c, mine, r));
             } else {
-                sampled.add(sampledSheet(c, mine));
+                sampled.add(sampledSheet(c, mine, sp));
             }
         }
+    }
+
+    /** Steps by which a pulse is delayed so that it starts outside the box (see {@link #pulseDelay()}). */
+    private long delaySteps;
+
+    /**
+     * For a pulse, the delay T (s, whole steps) such that the incident z component at the reference point is
+     * A·g(t − T): zero when the reference point lies where the wave enters the box or upstream of it, else
+     * what keeps every edge site quiet before step 0. Zero for a continuous wave.
+     */
+    public double pulseDelay() {
+        return delaySteps * dt;
+    }
+
+    private int pulseLength() {
+        TimeSignal g = spec.signal();
+        double duration = g instanceof GaussianPulse p ? 2 * p.delay() : 12 * ((DifferentiatedGaussian) g).width();
+        return (int) Math.ceil(duration / dt) + 1;
+    }
+
+    /** The whole steps by which a term's window follows the reference point's (its incident site's group delay). */
+    private long shift(Spectrum sp, Term t) {
+        Component inc = t.incident();
+        double x = siteX(inc, t.ii());
+        double y = siteY(inc, t.jj());
+        return Math.round((x * Math.cos(spec.direction()) + y * Math.sin(spec.direction())) * sp.groupSlowness / dt);
     }
 
     private IncidentSheet continuousSheet(Component c, List<Term> terms, RampedContinuous signal) {
@@ -267,11 +306,7 @@ public final class TotalFieldBox {
     }
 
     /** The pulse's incident values per site and step (class comment). */
-    private SampledSheet sampledSheet(Component c, List<Term> terms) {
-        TimeSignal g = spec.signal();
-        double duration = g instanceof GaussianPulse p ? 2 * p.delay() : 12 * ((DifferentiatedGaussian) g).width();
-        int length = (int) Math.ceil(duration / dt) + 1;
-        Spectrum sp = spectrum(length);
+    private SampledSheet sampledSheet(Component c, List<Term> terms, Spectrum sp) {
         int size = sp.size;
         int m = terms.size();
         int[] cells = new int[m];
@@ -279,15 +314,13 @@ public final class TotalFieldBox {
         float[] values = new float[m * size];
         double[] work = new double[2 * size];
         DoubleFFT_1D fft = new DoubleFFT_1D(size);
-        double cosD = Math.cos(spec.direction());
-        double sinD = Math.sin(spec.direction());
         for (int q = 0; q < m; q++) {
             Term t = terms.get(q);
             cells[q] = t.j() * nx + t.i();
             Component inc = t.incident();
             double x = siteX(inc, t.ii());
             double y = siteY(inc, t.jj());
-            long shift = Math.round((x * cosD + y * sinD) * sp.groupSlowness / dt);
+            long shift = shift(sp, t);
             double delay = shift * dt + (inc.electric ? 0 : dt / 2);
             java.util.Arrays.fill(work, 0);
             for (int b = 1; b < size / 2; b++) {
@@ -309,9 +342,12 @@ public final class TotalFieldBox {
             }
             fft.complexForward(work);
             for (int n = 0; n < size; n++) {
-                values[q * size + n] = (float) (t.sign() * work[2 * n] / size);
+                double v = t.sign() * work[2 * n] / size;
+                // the pulse's far tails (and the transform's rounding) are kept out of the fields: values near the
+                // subnormal range would slow every update they touch
+                values[q * size + n] = Math.abs(v) < TINY * Math.abs(spec.amplitude()) ? 0f : (float) v;
             }
-            first[q] = shift - sp.lead;
+            first[q] = shift + delaySteps - sp.lead;
         }
         return new SampledSheet(c, cells, first, size, values);
     }
