@@ -43,6 +43,11 @@ final class LayeredRows {
     final double[] epsFirst;
     /** Per row (p only): ε at Ey. */
     final double[] epsSecond;
+    /**
+     * The reflected wave's z amplitude over the incident one's at the same row of the incidence medium (its
+     * modulus is |r| of the layers as the grid has them).
+     */
+    Complex reflection = Complex.ZERO;
     /** u_j, normalised. */
     final double[] re;
     final double[] im;
@@ -165,6 +170,7 @@ final class LayeredRows {
         Complex u1 = get(jr);
         Complex u2 = get(jr - 1);
         Complex x = u2.minus(rho.times(u1)).divide(rho.reciprocal().minus(rho));
+        reflection = u1.minus(x).divide(x);
         double offset = polarization == Polarization.S ? 0 : 0.5;
         double t = (yRef - (y0 + (jr + offset) * dx)) / dx;
         Complex scale = x.times(Complex.polar(1, rho.arg() * t)).reciprocal();
