@@ -135,7 +135,7 @@ class CylinderScatteringTest {
      * C_ext/C_sca − 1 0.15–0.20 %; x = 5: forward 0.4–0.7 %, backward 0.04 % (s) and −2.7 % (p), worst 0.05–0.06 dB,
      * C_sca 0.4–0.6 %, C_ext/C_sca − 1 0.02–0.04 %. The p backward value at x = 5 lies 22 dB below σ's peak, in a
      * deep minimum, and stays at −2.6 to −2.7 % from 45 to 60 cells (not converging with the cell size; cause not
-     * found): it is checked against {@link #P5_BACKWARD} instead of 2 %. About a minute on 2 busy cores.
+     * found): it is checked against {@link #P5_BACKWARD} instead of 2 %. About 15 s of stepping on 2 busy cores.
      */
     @org.junit.jupiter.api.Tag("accuracy")
     @ParameterizedTest(name = "{0} x={1} at 60 cells per wavelength")
