@@ -73,8 +73,8 @@ final class LayeredRows {
         w = Math.sin(omega * dt / 2);
         boolean up = Math.sin(direction) > 0;
         if (Math.sin(direction) == 0) {
-            throw new IllegalArgumentException("a layered background needs light that crosses the layers: the direction "
-                    + "must not be parallel to them");
+            throw new IllegalArgumentException("a layered background needs light that crosses the layers: the wave's "
+                    + "heading must not be parallel to them (0 or 180 deg)");
         }
         int top = ny - 2;
         int firstDiff = -1;

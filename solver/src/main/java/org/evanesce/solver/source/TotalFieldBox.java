@@ -148,12 +148,15 @@ public final class TotalFieldBox {
         int right = layers(sides, Side.RIGHT);
         int bottom = layers(sides, Side.BOTTOM);
         int top = layers(sides, Side.TOP);
+        if (sides.get(Side.LEFT) instanceof Boundary.Bloch) {
+            throw new IllegalArgumentException("a total-field box needs non-periodic left and right sides (a PML, PEC or PMC): "
+                    + "the box's plane wave is infinite only inside the box");
+        }
         if (!(i0 < i1 && j0 < j1) || i0 - 1 < Math.max(1, left) || j0 - 1 < Math.max(1, bottom)
-                || i1 + 1 > nx - 2 - Math.max(0, right) || j1 + 1 > ny - 2 - Math.max(0, top)
-                || sides.get(Side.LEFT) instanceof Boundary.Bloch) {
+                || i1 + 1 > nx - 2 - Math.max(0, right) || j1 + 1 > ny - 2 - Math.max(0, top)) {
             throw new IllegalArgumentException(String.format("total-field box of nodes (%d, %d) to (%d, %d) must have i0 < i1, "
                     + "j0 < j1 and lie at least one cell inside the %d x %d grid's walls and PML layers (left %d, right %d, "
-                    + "bottom %d, top %d), without Bloch-periodic sides", i0, j0, i1, j1, nx, ny, left, right, bottom, top));
+                    + "bottom %d, top %d)", i0, j0, i1, j1, nx, ny, left, right, bottom, top));
         }
         TotalFieldBox box = new TotalFieldBox(spec, grid, courant, i0, j0, i1, j1);
         box.build(sides, ny);
