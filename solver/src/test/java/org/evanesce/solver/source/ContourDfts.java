@@ -64,6 +64,18 @@ final class ContourDfts implements StepListener {
 
     /** The far field of what crosses the rectangle, in a medium of index n. */
     NearToFarField farField(double wavelength, double index) {
+        SurfaceSamples[] uv = samples();
+        return new NearToFarField(pol, wavelength, index, uv[0], uv[1]);
+    }
+
+    /** The net power (W/m) the recorded field carries out of the rectangle, in any media. */
+    double outwardPower() {
+        SurfaceSamples[] uv = samples();
+        return org.evanesce.solver.farfield.SurfaceFlux.outwardPower(pol, uv[0], uv[1]);
+    }
+
+    /** {U, V_t} at the rectangle's nodes. */
+    private SurfaceSamples[] samples() {
         ContourPoints pts = ContourPoints.rectangle(iL * dx - originX, jB * dx - originY, iR * dx - originX,
                 jT * dx - originY, dx, ContourPoints.Rule.TRAPEZOID);
         int n = pts.size();
@@ -84,8 +96,6 @@ final class ContourDfts implements StepListener {
             vy[0][q] = by.re();
             vy[1][q] = by.im();
         }
-        SurfaceSamples field = pts.scalar(u[0], u[1]);
-        SurfaceSamples tangential = pts.tangential(vx[0], vx[1], vy[0], vy[1]);
-        return new NearToFarField(pol, wavelength, index, field, tangential);
+        return new SurfaceSamples[] {pts.scalar(u[0], u[1]), pts.tangential(vx[0], vx[1], vy[0], vy[1])};
     }
 }
