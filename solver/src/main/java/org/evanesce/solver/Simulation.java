@@ -21,6 +21,7 @@ import org.evanesce.solver.record.StepListener;
 import org.evanesce.solver.record.StepView;
 import org.evanesce.solver.parallel.BandTeam;
 import org.evanesce.solver.source.IncidentSheet;
+import org.evanesce.solver.source.SampledSheet;
 import org.evanesce.solver.source.Source;
 
 /**
@@ -57,6 +58,9 @@ public final class Simulation implements StepView, AutoCloseable {
     private final int[] sheetTermStart;
     /** Per sheet: whether every cell has the same envelope delay. */
     private final boolean[] sheetUniform;
+    /** Tabulated sheets (a total-field box's pulse), their terms after the incident sheets'. */
+    private final SampledSheet[] tables;
+    private final int[] tableTermStart;
     private final int flushInterval;
     private final double divergenceLimit;
     private final List<StepListener> listeners;
@@ -114,6 +118,13 @@ public final class Simulation implements StepView, AutoCloseable {
                 amplitudeSum += Math.hypot(sheets[q].re()[t], sheets[q].im()[t]);
             }
         }
+        tables = b.tables.toArray(new SampledSheet[0]);
+        tableTermStart = new int[tables.length];
+        for (int q = 0; q < tables.length; q++) {
+            tableTermStart[q] = n;
+            n += tables[q].cells().length;
+            amplitudeSum += tables[q].peak() * tables[q].cells().length;
+        }
         sourceRe = new double[sources.length][];
         sourceIm = new double[sources.length][];
         for (int q = 0; q < sources.length; q++) {
@@ -131,6 +142,11 @@ public final class Simulation implements StepView, AutoCloseable {
             int[] c = sheets[q].cells();
             System.arraycopy(c, 0, cells, sheetTermStart[q], c.length);
             java.util.Arrays.fill(comps, sheetTermStart[q], sheetTermStart[q] + c.length, sheets[q].component());
+        }
+        for (int q = 0; q < tables.length; q++) {
+            int[] c = tables[q].cells();
+            System.arraycopy(c, 0, cells, tableTermStart[q], c.length);
+            java.util.Arrays.fill(comps, tableTermStart[q], tableTermStart[q] + c.length, tables[q].component());
         }
         engine.setSources(cells, comps);
         divergenceLimit = b.divergenceLimit > 0 ? b.divergenceLimit : 1e15 * Math.max(1.0, amplitudeSum);
@@ -171,6 +187,13 @@ public final class Simulation implements StepView, AutoCloseable {
             for (int t = 0; t < re.length; t++) {
                 double env = sheetUniform[q] ? common : sh.signal().envelope(time - delay[t]);
                 engine.sourceValue(base + t, env == 0 ? 0 : env * (re[t] * c + im[t] * sn));
+            }
+        }
+        for (int q = 0; q < tables.length; q++) {
+            SampledSheet sh = tables[q];
+            int count = sh.size();
+            for (int t = 0; t < count; t++) {
+                engine.sourceValue(tableTermStart[q] + t, sh.value(t, step));
             }
         }
         boolean flush = (step + 1) % flushInterval == 0;
@@ -498,6 +521,7 @@ public final class Simulation implements StepView, AutoCloseable {
         private int minRowsCellsPerThread = MIN_CELLS_PER_THREAD;
         private final List<Source> sources = new ArrayList<>();
         private final List<IncidentSheet> sheets = new ArrayList<>();
+        private final List<SampledSheet> tables = new ArrayList<>();
         private final List<StepListener> listeners = new ArrayList<>();
         private int flushInterval = 64;
         private double divergenceLimit;
@@ -569,6 +593,19 @@ public final class Simulation implements StepView, AutoCloseable {
         /** Adds an incident-field sheet (e.g. one of a {@link org.evanesce.solver.source.GaussianBeam}'s pair). */
         public Builder incident(IncidentSheet s) {
             sheets.add(s);
+            return this;
+        }
+
+        /** Adds a tabulated incident sheet (a total-field box's pulse). */
+        public Builder incident(SampledSheet s) {
+            tables.add(s);
+            return this;
+        }
+
+        /** Adds every sheet of a total-field/scattered-field box. */
+        public Builder totalField(org.evanesce.solver.source.TotalFieldBox box) {
+            box.continuousSheets().forEach(this::incident);
+            box.sampledSheets().forEach(this::incident);
             return this;
         }
 
@@ -693,6 +730,19 @@ public final class Simulation implements StepView, AutoCloseable {
                 for (int k : s.cells()) {
                     if (k < 0 || !Engine.wouldUpdate(sides, nx, ny, s.component(), k % nx, k / nx)) {
                         errors.add(String.format("incident sheet cell (%d, %d) of %s is not a site the update changes",
+                                k % nx, k / nx, s.component()));
+                        break;
+                    }
+                }
+            }
+            for (SampledSheet s : tables) {
+                if (s.component().polarization != polarization) {
+                    errors.add(String.format("sampled sheet component %s does not belong to the %s polarization",
+                            s.component(), polarization));
+                }
+                for (int k : s.cells()) {
+                    if (k < 0 || !Engine.wouldUpdate(sides, nx, ny, s.component(), k % nx, k / nx)) {
+                        errors.add(String.format("sampled sheet cell (%d, %d) of %s is not a site the update changes",
                                 k % nx, k / nx, s.component()));
                         break;
                     }

@@ -43,6 +43,7 @@ import org.evanesce.solver.grid.Side;
 import org.evanesce.solver.record.Probe;
 import org.evanesce.solver.source.CarrierSignal;
 import org.evanesce.solver.source.GaussianBeam;
+import org.evanesce.solver.source.TotalFieldBox;
 import org.evanesce.solver.source.GaussianPulse;
 import org.evanesce.solver.source.IncidentSheet;
 import org.evanesce.solver.source.Source;
@@ -101,6 +102,7 @@ public final class CasePlanner {
         Map<Side, Boundary> sides = boundaries(PlaneWaves.kx(spec));
         List<Source> sources = new ArrayList<>();
         List<IncidentSheet> sheets = new ArrayList<>();
+        List<Integer> boxes = new ArrayList<>();
         List<CasePlan.SourceSite> sites = new ArrayList<>();
         double fade = 0;
         for (int k = 0; k < spec.sources().size(); k++) {
@@ -111,6 +113,11 @@ public final class CasePlanner {
                 siteOf("sources[" + k + "]." + s.kind(), pair, grid).ifPresent(sites::add);
                 double latest = pair.stream().flatMapToDouble(p -> java.util.Arrays.stream(p.delays())).max().orElse(0);
                 fade = Math.max(fade, fadeTime(signal(beam.signal())) + latest);
+                continue;
+            }
+            if (s instanceof SourceSpec.PlaneWaveBox pb) {
+                boxes.add(k);
+                fade = Math.max(fade, fadeTime(signal(pb.signal())));
                 continue;
             }
             Source src = source(s, k, grid, sides);
@@ -142,6 +149,7 @@ public final class CasePlanner {
             throw new PlanException(errors);
         }
         Integer t = threads != null ? threads : spec.numerics().threads().map(l -> l.value()).orElse(null);
+        List<TotalFieldBox> planned = new ArrayList<>();
         Function<MaterialGrid, Simulation.Builder> configured = m -> {
             Simulation.Builder sb = Simulation.builder(m).polarization(spec.polarization().value())
                     .precision(spec.numerics().precision().value()).courant(courant);
@@ -151,9 +159,24 @@ public final class CasePlanner {
             }
             sources.forEach(sb::source);
             sheets.forEach(sb::incident);
+            planned.forEach(sb::totalField);
             return sb;
         };
         MaterialGrid mg = Rasterizer.rasterize(scene, grid, Smoothing.ANISOTROPIC);
+        for (int k : boxes) {
+            SourceSpec.PlaneWaveBox pb = (SourceSpec.PlaneWaveBox) spec.sources().get(k);
+            TotalFieldBox box = BoxPlanner.plan(pb, "sources[" + k + "]." + pb.kind(), mg, sides, courant, signal(pb.signal()),
+                    errors);
+            if (box != null) {
+                planned.add(box);
+                int[] n = box.nodes();
+                sites.add(new CasePlan.SourceSite("sources[" + k + "]." + pb.kind(), pb.component().value(), n[0], n[1], n[2],
+                        n[3]));
+            }
+        }
+        if (!errors.isEmpty()) {
+            throw new PlanException(errors);
+        }
         Simulation.Builder b = configured.apply(mg);
         probes.forEach(p -> b.listener(p.probe()));
         Optional<FluxPlan> flux = Optional.empty();

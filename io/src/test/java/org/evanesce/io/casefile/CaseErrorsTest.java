@@ -199,8 +199,8 @@ class CaseErrorsTest {
                     signal: {pulse: {wavelength: 633 nm, bandwidth: 40 nm}}
                 until: {time: 100 fs}
                 """;
-        assertEquals(List.of("case.yaml:6:5: sources[0]: an entry has exactly one key, its kind (one of point, line, plane_wave, gaussian_beam); found point, at, "
-                + "signal (indent the settings under 'point:')"), errors(flat));
+        assertEquals(List.of("case.yaml:6:5: sources[0]: an entry has exactly one key, its kind (one of point, line, plane_wave, gaussian_beam, "
+                + "plane_wave_box); found point, at, signal (indent the settings under 'point:')"), errors(flat));
     }
 
     @Test

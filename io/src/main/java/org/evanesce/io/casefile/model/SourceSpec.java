@@ -163,4 +163,30 @@ public sealed interface SourceSpec {
             return waistAt.x().si() + dy * Math.tan(angle.si()) * direction.value().sign();
         }
     }
+
+    /**
+     * A plane wave inside the rectangle from {@code from} to {@code to} (total field inside, on and inside the
+     * rectangle's nodes; only what the scene scatters outside it): travelling at {@code heading} from +x,
+     * counter-clockwise, its z component (Ez for s, η0Hz for p) {@code amplitude}·sin(2πft) at {@code reference}
+     * (default: the box's centre). The medium outside the box must be one lossless material or layers along y;
+     * in layers the incident field is the whole layered solution (solver.source.TotalFieldBox).
+     */
+    record PlaneWaveBox(Point from, Point to, Value heading, Optional<Point> reference, Located<Component> component,
+            Value amplitude, SignalSpec signal, SourcePosition at) implements SourceSpec {
+
+        @Override
+        public String kind() {
+            return "plane_wave_box";
+        }
+
+        @Override
+        public double[] centre() {
+            return new double[] {(from.x().si() + to.x().si()) / 2, (from.y().si() + to.y().si()) / 2};
+        }
+
+        /** The reference point, m: given, or the centre. */
+        public double[] referencePoint() {
+            return reference.map(p -> new double[] {p.x().si(), p.y().si()}).orElse(centre());
+        }
+    }
 }

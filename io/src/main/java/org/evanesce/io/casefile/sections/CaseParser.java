@@ -626,6 +626,9 @@ final class CaseParser {
         if (e.kind().equals("plane_wave") || e.kind().equals("gaussian_beam")) {
             return new LaunchReader(ctx, signalReader).read(e, polarization);
         }
+        if (e.kind().equals("plane_wave_box")) {
+            return new BoxReader(ctx, signalReader).read(e, polarization);
+        }
         boolean line = e.kind().equals("line");
         MapView v = e.view(ctx, line ? Schema.LINE_SOURCE : Schema.POINT_SOURCE);
         if (v == null) {

@@ -68,7 +68,8 @@ final class Schema {
     static final Section BOUNDARIES = new Section("boundaries", List.of("all", "left", "right", "bottom", "top"));
 
     /** The kinds of source. */
-    static final Section SOURCES = new Section("sources[]", List.of("point", "line", "plane_wave", "gaussian_beam"));
+    static final Section SOURCES = new Section("sources[]", List.of("point", "line", "plane_wave", "gaussian_beam",
+            "plane_wave_box"));
     static final Section POINT_SOURCE = new Section("sources[].point", List.of("at", "component", "amplitude", "signal"));
     static final Section LINE_SOURCE = new Section("sources[].line", List.of("from", "to", "component", "amplitude",
             "angle", "waist", "signal"));
@@ -76,6 +77,9 @@ final class Schema {
             "signal"));
     static final Section GAUSSIAN_BEAM = new Section("sources[].gaussian_beam", List.of("y", "waist", "waist_at", "angle",
             "direction", "amplitude", "signal"));
+
+    static final Section PLANE_WAVE_BOX = new Section("sources[].plane_wave_box", List.of("from", "to", "heading",
+            "reference", "amplitude", "signal"));
 
     /** The kinds of signal. */
     static final Section SIGNAL = new Section("signal", List.of("pulse", "ramped_wave", "gaussian_derivative"));
@@ -109,7 +113,7 @@ final class Schema {
     static final Section SWEEP_RANGE = new Section("sweep.parameters.NAME", List.of("from", "to", "count", "spacing"));
 
     static final List<Section> ALL = List.of(ROOT, DOMAIN, GRID, MATERIAL, SHAPES, RECTANGLE, POLYGON, DISK,
-            ELLIPSE, HALF_PLANE, LAYER_STACK, LAYER, BOUNDARIES, SOURCES, POINT_SOURCE, LINE_SOURCE, PLANE_WAVE, GAUSSIAN_BEAM, SIGNAL,
+            ELLIPSE, HALF_PLANE, LAYER_STACK, LAYER, BOUNDARIES, SOURCES, POINT_SOURCE, LINE_SOURCE, PLANE_WAVE, GAUSSIAN_BEAM, PLANE_WAVE_BOX, SIGNAL,
             PULSE, RAMPED_WAVE, GAUSSIAN_DERIVATIVE, PROBE, FLUX, WAVELENGTH_RANGE, FREQUENCY_RANGE, FLUX_LINE, MAPS, MAP_WAVELENGTH_RANGE,
             MAP_FREQUENCY_RANGE, DECAY_LINE, OUTPUT, REGION, UNTIL,
             NUMERICS, SWEEP, SWEEP_RANGE);
