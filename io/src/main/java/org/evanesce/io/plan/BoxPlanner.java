@@ -2,8 +2,8 @@ package org.evanesce.io.plan;
 
 import java.util.List;
 import java.util.Map;
-import org.evanesce.io.casefile.Diagnostic;
-import org.evanesce.io.casefile.SourceSpec;
+import org.evanesce.io.casefile.text.Diagnostic;
+import org.evanesce.io.casefile.model.SourceSpec;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.geometry.MaterialGrid;

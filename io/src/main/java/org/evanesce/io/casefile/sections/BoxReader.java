@@ -1,7 +1,12 @@
-package org.evanesce.io.casefile;
+package org.evanesce.io.casefile.sections;
 
 import java.util.Optional;
-import org.evanesce.io.casefile.Context.Expect;
+import org.evanesce.io.casefile.model.Point;
+import org.evanesce.io.casefile.model.SignalSpec;
+import org.evanesce.io.casefile.model.SourceSpec;
+import org.evanesce.io.casefile.text.Located;
+import org.evanesce.io.casefile.text.Value;
+import org.evanesce.io.casefile.sections.Context.Expect;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
 import org.snakeyaml.engine.v2.nodes.Node;
