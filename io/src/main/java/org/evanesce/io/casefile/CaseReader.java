@@ -60,6 +60,22 @@ public final class CaseReader {
         if (r.spec == null) {
             throw new CaseFileException(all);
         }
+        if (r.spec.polarizations() == PolarizationChoice.BOTH) {
+            // the p run must read too (an output component of s alone, say): its errors are this reading's
+            Map<String, String> p = new java.util.LinkedHashMap<>(overrides);
+            p.put(PolarizationChoice.KEY, PolarizationChoice.P.caseName());
+            Reading rp = reading(text, source, p, options);
+            if (rp.spec == null) {
+                List<Diagnostic> errors = new ArrayList<>();
+                for (Diagnostic d : sorted(rp.context.diagnostics)) {
+                    if (d.severity() == Diagnostic.Severity.ERROR) {
+                        errors.add(new Diagnostic(d.severity(), d.at(), d.path(), d.message()
+                                + " (in the p run of 'polarization: both')"));
+                    }
+                }
+                throw new CaseFileException(errors);
+            }
+        }
         return new LoadedCase(r.spec, all);
     }
 
@@ -133,7 +149,7 @@ public final class CaseReader {
         return new CaseSpec(ctx.source, Optional.ofNullable(p.title), ctx.parameters.resolved(),
                 new Located<>(p.polarization, p.polarizationAt), p.designWavelength, p.domain, p.resolution, p.used, p.shapes,
                 p.boundaries, p.sources, p.probes, Optional.ofNullable(p.flux), Optional.ofNullable(p.maps), p.output, p.stop,
-                p.numerics, Optional.ofNullable(p.sweep));
+                p.numerics, Optional.ofNullable(p.sweep), p.polarizationChoice);
     }
 
     private static void check(List<String> missing, Object part, String name) {

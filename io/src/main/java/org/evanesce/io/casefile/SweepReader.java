@@ -152,6 +152,9 @@ final class SweepReader {
     }
 
     private SweepSpec.Axis axis(String name, Node node, String path, SourcePosition keyAt) {
+        if (name.equals(PolarizationChoice.KEY) && !ctx.parameters.resolved().containsKey(name)) {
+            return polarizations(node, path, keyAt);
+        }
         Quantity current;
         try {
             current = ctx.parameters.lookup(name, 0);
@@ -172,6 +175,26 @@ final class SweepReader {
         ctx.error(ctx.pos(node), path, "expected a list of values such as [40 deg, 45 deg] or a range such as "
                 + "{from: 100 nm, to: 300 nm, count: 5}, got " + Context.describe(node));
         return null;
+    }
+
+    /** The case's polarization as a swept value: a list of s, p and both. */
+    private SweepSpec.Axis polarizations(Node node, String path, SourcePosition keyAt) {
+        String need = "a list of polarizations such as [s, p]";
+        if (!(node instanceof SequenceNode list) || list.getValue().isEmpty()) {
+            ctx.error(ctx.pos(node), path, "expected " + need + " (s, p or both), got " + Context.describe(node));
+            return null;
+        }
+        List<String> values = new ArrayList<>();
+        boolean ok = true;
+        for (int k = 0; k < list.getValue().size(); k++) {
+            PolarizationChoice c = ctx.choice(list.getValue().get(k), path + "[" + k + "]", PolarizationChoice.BY_NAME);
+            ok &= c != null;
+            if (c != null) {
+                values.add(c.caseName());
+            }
+        }
+        return ok ? new SweepSpec.Axis(PolarizationChoice.KEY, Dimension.NONE, values, "[" + String.join(", ", values) + "]",
+                keyAt) : null;
     }
 
     private SweepSpec.Axis list(String name, Quantity current, SequenceNode list, String path, SourcePosition keyAt) {

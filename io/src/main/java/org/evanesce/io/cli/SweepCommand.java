@@ -173,7 +173,8 @@ public final class SweepCommand implements Callable<Integer> {
                 }
                 double[] si = new double[p.names().size()];
                 for (int k = 0; k < si.length; k++) {
-                    si[k] = lc.spec().parameters().get(p.names().get(k)).value().value();
+                    var param = lc.spec().parameters().get(p.names().get(k));
+                    si[k] = param == null ? Double.NaN : param.value().value(); // NaN: the polarization (s, p, both)
                 }
                 all.add(new Read(p, ov, si, PointHash.of(text, ov, version, build)));
             } catch (CaseFileException e) {
@@ -411,6 +412,15 @@ public final class SweepCommand implements Callable<Integer> {
             LoadedCase lc = CaseReader.parse(caseText, caseFile.toString(), ov, ReadOptions.defaults());
             lc = new LoadedCase(lc.spec(), withoutSweepNote(lc.diagnostics()));
             CasePlan plan = CasePlanner.plan(lc.spec(), threads);
+            if (lc.spec().polarizations() == org.evanesce.io.casefile.PolarizationChoice.BOTH) {
+                Map<String, String> pov = PolarizationRuns.overrides(ov, org.evanesce.io.casefile.PolarizationChoice.P);
+                LoadedCase lp = CaseReader.parse(caseText, caseFile.toString(), pov, ReadOptions.defaults());
+                lp = new LoadedCase(lp.spec(), withoutSweepNote(lp.diagnostics()));
+                PolarizationRuns.run(new CaseOptions.Loaded(lc, plan, caseSha),
+                        new CaseOptions.Loaded(lp, CasePlanner.plan(lp.spec(), threads), caseSha), ov, rf, pointOut,
+                        progressSeconds, false, spec.commandLine().getParseResult().originalArgs());
+                return;
+            }
             CaseExecution.run(new CaseOptions.Loaded(lc, plan, caseSha), ov, rf, pointOut, progressSeconds, false,
                     spec.commandLine().getParseResult().originalArgs());
         } catch (CaseFileException | PlanException e) {
