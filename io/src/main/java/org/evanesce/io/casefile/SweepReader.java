@@ -88,6 +88,9 @@ final class SweepReader {
         if (v == null) {
             return null;
         }
+        if (v.has("sample")) {
+            return sample(v, at);
+        }
         Node cn = v.get("combine");
         SweepSpec.Combine combine = cn == null ? SweepSpec.Combine.PRODUCT : ctx.choice(cn, v.path("combine"), COMBINES);
         Node pn = v.require("parameters", "a mapping of parameters to values such as 'gap: {from: 100 nm, to: 300 nm, count: 5}'");
@@ -147,6 +150,31 @@ final class SweepReader {
         SweepSpec s = new SweepSpec(axes, combine, at);
         ctx.note(at, "sweep", String.format(Locale.ROOT, "%d points (%s of %s); this command uses the case as written, "
                 + "'evanesce sweep' runs the points", s.pointCount(), combine.caseName(),
+                String.join(", ", axes.stream().map(SweepSpec.Axis::name).toList())));
+        return s;
+    }
+
+    /** The sample form: its parameters become axes without listed values, the points are drawn ({@link SampleSpec}). */
+    private SweepSpec sample(MapView v, SourcePosition at) {
+        for (String k : List.of("parameters", "combine")) {
+            if (v.has(k)) {
+                ctx.error(v.keyAt(k), v.path(k), "a sweep has either listed values (parameters, combine) or a sample, not "
+                        + "both; move the parameters into sample.parameters as distributions");
+                return null;
+            }
+        }
+        SampleSpec sample = new SampleReader(ctx).read(v.get("sample"), v.path("sample"), v.keyAt("sample"), MAX_POINTS);
+        if (sample == null) {
+            return null;
+        }
+        List<SweepSpec.Axis> axes = new ArrayList<>();
+        for (SampleSpec.Varied x : sample.parameters()) {
+            axes.add(new SweepSpec.Axis(x.name(), x.dimension(), List.of(), x.definition() + ", " + sample.count()
+                    + " samples, seed " + sample.seed(), x.at()));
+        }
+        SweepSpec s = new SweepSpec(axes, SweepSpec.Combine.ZIP, at, java.util.Optional.of(sample));
+        ctx.note(at, "sweep", String.format(Locale.ROOT, "%d points drawn at random (seed %d) for %s; this command uses the "
+                + "case as written, 'evanesce sweep' runs the points", sample.count(), sample.seed(),
                 String.join(", ", axes.stream().map(SweepSpec.Axis::name).toList())));
         return s;
     }
