@@ -151,6 +151,13 @@ public final class SweepCommand implements Callable<Integer> {
         SweepSpec sweep = base.sweep().orElseThrow(() -> usage(caseFile + ": the case has no sweep section; add one "
                 + "(docs/case-file.md, 'sweep') or run it with 'evanesce run'"));
         sample = sweep.sample().orElse(null);
+        if (sample != null) {
+            try {
+                SampleSummary.checkLimits(sample, base);
+            } catch (SampleSummary.UnknownColumn e) {
+                throw usage(e.getMessage() + "; nothing was run or written");
+            }
+        }
         for (SweepSpec.Axis a : sweep.parameters()) {
             if (options.overrides.containsKey(a.name())) {
                 throw usage("--set " + a.name() + "=" + options.overrides.get(a.name()) + ": " + a.name() + " is swept (" + caseFile

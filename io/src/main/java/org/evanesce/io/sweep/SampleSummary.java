@@ -169,6 +169,46 @@ public final class SampleSummary {
         return new Written(json, text.toString());
     }
 
+    /**
+     * Checks before anything runs that each limit names a column the points will have: with {@code flux},
+     * {@code T_NAME} or {@code R_NAME} of a line, or {@code A} with one line of each kind, each possibly
+     * with {@code _exact}, {@code _plane_wave}, {@code _beam} or {@code _diff} and, with polarization both,
+     * {@code _s} or {@code _p}; a decay fit's column {@code decay_...}.
+     *
+     * @throws UnknownColumn naming the limit, where it is written and the columns there will be
+     */
+    public static void checkLimits(SampleSpec sample, org.evanesce.io.casefile.CaseSpec spec) throws UnknownColumn {
+        List<String> base = new ArrayList<>();
+        int t = 0;
+        int r = 0;
+        if (spec.flux().isPresent()) {
+            for (var l : spec.flux().get().lines()) {
+                boolean tr = l.measures().value() == org.evanesce.io.casefile.FluxSpec.Measure.TRANSMITTED;
+                base.add((tr ? "T_" : "R_") + l.name().value());
+                t += tr ? 1 : 0;
+                r += tr ? 0 : 1;
+            }
+            if (t == 1 && r == 1) {
+                base.add("A");
+            }
+        }
+        List<String> all = new ArrayList<>();
+        for (String b : base) {
+            for (String x : List.of("", "_exact", "_plane_wave", "_beam", "_diff")) {
+                for (String pol : List.of("", "_s", "_p")) {
+                    all.add(b + x + pol);
+                }
+            }
+        }
+        for (SampleSpec.Limit l : sample.require()) {
+            if (!all.contains(l.column()) && !l.column().startsWith("decay_")) {
+                throw new UnknownColumn(l.at() + ": sweep.sample.require." + l.column() + ": the points will have no result "
+                        + "column '" + l.column() + "'" + (base.isEmpty() ? " (the case has no flux lines)" : "; expected one of "
+                        + String.join(", ", base) + ", possibly with _exact, _plane_wave, _beam or _diff"));
+            }
+        }
+    }
+
     /** A column drawn as a histogram: the simulated values, not their references or differences. */
     private static boolean main(String c) {
         return !(c.endsWith("_exact") || c.endsWith("_diff") || c.endsWith("_plane_wave") || c.endsWith("_beam")
