@@ -188,7 +188,7 @@ class FitModelsTest {
         Path c = tmp.resolve("sim.yaml");
         Files.writeString(c, SIM_CASE);
         StringBuilder sb = new StringBuilder("theta (deg),T\n");
-        for (double a : new double[] {44, 46, 48, 50}) {
+        for (double a : new double[] {44, 47, 50}) {
             double t = PlaneWaveRunTest.tunnelling("s", 1.5, 1.0, 170e-9, Math.toRadians(a), 633e-9);
             sb.append(String.format(Locale.ROOT, "%.1f,%.9f%n", a, t));
         }
@@ -205,7 +205,7 @@ class FitModelsTest {
         try (Stream<Path> s = Files.list(cache)) {
             files = s.count();
         }
-        assertTrue(files > 4, "one cached run per point and trial: " + files);
+        assertTrue(files > 3, "one cached run per point and trial: " + files);
         // a damaged cache file is not used: it is run again and replaced
         Path some;
         try (Stream<Path> s = Files.list(cache)) {
