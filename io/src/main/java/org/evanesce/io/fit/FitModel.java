@@ -182,6 +182,12 @@ final class FitModel {
         return out;
     }
 
+    /** For the simulation model: how many runs were made now and how many taken from the cache; else null. */
+    String simulations() {
+        return simulation == null ? null : String.format(Locale.ROOT, "%d simulation(s) run, %d taken from the cache",
+                simulation.runs(), simulation.reused());
+    }
+
     /** How often the case was read (for the report). */
     int caseReads() {
         return caseReads;

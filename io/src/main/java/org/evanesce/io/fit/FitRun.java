@@ -87,6 +87,9 @@ public final class FitRun {
                         + "%d case reads in %.1f s%n", r.chiSquare(), r.dof(), r.reducedChiSquare(), curve.u() == null
                         ? "; no uncertainties given, so the standard errors are scaled by the reduced chi-square" : "",
                 r.iterations(), r.evaluations(), model.caseReads(), seconds);
+        if (model.simulations() != null) {
+            out.println(model.simulations());
+        }
         for (String w : r.warnings()) {
             out.println("warning: " + w);
         }

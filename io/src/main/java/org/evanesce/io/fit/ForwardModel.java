@@ -17,8 +17,8 @@ public enum ForwardModel {
      * range) stands far above a float run's round-off (about 1e-6; common practice).
      */
     SIMULATION("simulation", "simulation: the case run in full (its flux lines' R or T at the point's wavelength) for each "
-            + "point and trial parameter set, evaluations cached by parameter values in the results folder's "
-            + "evaluations/ (so that an interrupted fit resumes)", 1e-3);
+            + "point and trial parameter set, each run's flux table cached by its overrides in FOLDER.evaluations beside the "
+            + "results folder (so that an interrupted fit resumes)", 1e-3);
 
     /** The name {@code --model} takes. */
     public final String option;
