@@ -1,5 +1,7 @@
 package org.evanesce.io.casefile;
 
+import org.evanesce.io.casefile.model.PolarizationChoice;
+
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -66,6 +68,22 @@ public final class CaseReader {
         List<Diagnostic> all = sorted(r.context.diagnostics);
         if (r.spec == null) {
             throw new CaseFileException(all);
+        }
+        if (r.spec.polarizations() == PolarizationChoice.BOTH) {
+            // the p run must read too (an output component of s alone, say): its errors are this reading's
+            Map<String, String> p = new java.util.LinkedHashMap<>(overrides);
+            p.put(PolarizationChoice.KEY, PolarizationChoice.P.caseName());
+            Reading rp = reading(text, source, p, options);
+            if (rp.spec == null) {
+                List<Diagnostic> errors = new ArrayList<>();
+                for (Diagnostic d : sorted(rp.context.diagnostics)) {
+                    if (d.severity() == Diagnostic.Severity.ERROR) {
+                        errors.add(new Diagnostic(d.severity(), d.at(), d.path(), d.message()
+                                + " (in the p run of 'polarization: both')"));
+                    }
+                }
+                throw new CaseFileException(errors);
+            }
         }
         return new LoadedCase(r.spec, all);
     }

@@ -103,6 +103,10 @@ public final class AccuracyCommand implements Callable<Integer> {
             }
             loaded.add(level);
         }
+        if (loaded.get(0).get(0).plan().spec().polarizations() == org.evanesce.io.casefile.model.PolarizationChoice.BOTH) {
+            throw new ParameterException(spec.commandLine(), options.caseFile + ": polarization both: an accuracy study "
+                    + "takes one polarization at a time; add --set polarization=s (or p)");
+        }
         if (loaded.get(0).get(0).plan().flux().isEmpty()) {
             throw new ParameterException(spec.commandLine(), options.caseFile + ": an accuracy study extrapolates the flux "
                     + "table; the case has no flux section");

@@ -64,6 +64,23 @@ final class CaseOptions {
 
     /** The same with reading options (e.g. a finer resolution for an accuracy study). */
     Loaded load(PrintWriter err, ReadOptions read) throws BadInput {
+        return load(err, read, overrides);
+    }
+
+    /**
+     * The p run of a case with {@code polarization: both} (the case as {@link #load(CommandSpec)} read it is the
+     * s run); its notes and warnings, the s run's already printed, are not printed again.
+     */
+    Loaded loadPolarizationP(CommandSpec spec) {
+        try {
+            return load(new PrintWriter(java.io.Writer.nullWriter()), ReadOptions.defaults(),
+                    PolarizationRuns.overrides(overrides, org.evanesce.io.casefile.model.PolarizationChoice.P));
+        } catch (BadInput e) {
+            throw new ParameterException(spec.commandLine(), e.getMessage());
+        }
+    }
+
+    private Loaded load(PrintWriter err, ReadOptions read, Map<String, String> overrides) throws BadInput {
         if (threads != null && threads < 1) {
             throw new BadInput("--threads " + threads + " must be >= 1");
         }

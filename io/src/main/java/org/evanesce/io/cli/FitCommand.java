@@ -54,6 +54,15 @@ public final class FitCommand implements Callable<Integer> {
     @Option(names = "--force", description = "Replace an existing results folder of a fit (only once the new fit has finished).")
     private boolean force;
 
+    @Option(names = "--model", paramLabel = "MODEL", defaultValue = "transfer-matrix",
+            description = "The forward model: transfer-matrix (the plane wave; default), angular-spectrum (the case's "
+                    + "Gaussian beam through its stack) or simulation (the case run in full for each point and trial; runs are "
+                    + "cached in FOLDER.evaluations beside the results folder, so an interrupted fit continues).")
+    private String model;
+
+    @Option(names = "--threads", paramLabel = "N", description = "Threads of each simulation (--model simulation).")
+    private Integer threads;
+
     @Override
     public Integer call() throws IOException {
         PrintWriter o = spec.commandLine().getOut();
@@ -66,7 +75,13 @@ public final class FitCommand implements Callable<Integer> {
         }
         Path folder = StudyFolder.target(out, caseFile, "-fit");
         try {
-            FitRun.Prepared prepared = FitRun.prepare(caseFile, overrides, data, free);
+            org.evanesce.io.fit.ForwardModel kind = org.evanesce.io.fit.ForwardModel.of(model);
+            if (threads != null && (threads < 1 || kind != org.evanesce.io.fit.ForwardModel.SIMULATION)) {
+                throw new org.evanesce.io.fit.FitInputException("--threads " + threads + ": expected a number of threads, at "
+                        + "least 1, for --model simulation");
+            }
+            Path cache = folder.resolveSibling(folder.getFileName() + ".evaluations");
+            FitRun.Prepared prepared = FitRun.prepare(caseFile, overrides, data, free, kind, cache, threads, o);
             return StudyFolder.write(folder, force, caseFile, o, err, "evanesce fit", "fit.json",
                     rf -> FitRun.run(prepared, rf, o, RunOutputs.CAUTION));
         } catch (NoSuchFileException e) {

@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
 import org.evanesce.io.casefile.model.CaseSpec;
+import org.evanesce.io.casefile.model.PolarizationChoice;
 import org.evanesce.io.output.OutputFolders;
 import org.evanesce.io.output.RunFolder;
 import org.evanesce.io.run.Checkpoints;
@@ -56,12 +57,32 @@ public final class RunCommand implements Callable<Integer> {
         List<OutputFolders.Protected> protect = OutputFolders.around(options.caseFile);
         // refused before anything is written (exit 2, see Main): nothing beside the folder is touched either
         OutputFolders.checkResults(folder, force, protect);
-        Checkpoints ck = checkpoints(l, folder, o);
+        boolean both = l.plan().spec().polarizations() == PolarizationChoice.BOTH;
+        CaseOptions.Loaded lp = both ? options.loadPolarizationP(spec) : null;
+        if (both && checkpointMinutes > 0) {
+            o.println("note: a run with polarization both is not checkpointed (its s and p runs start from the beginning "
+                    + "when the command is run again)");
+        }
+        Checkpoints ck = both ? null : checkpoints(l, folder, o);
         for (int attempt = 0; ; attempt++) {
             try (RunFolder rf = RunFolder.begin(folder, force, protect)) {
                 rf.cleaned().forEach(line -> o.println("note: " + line));
-                CaseExecution.Finished f = CaseExecution.run(l, options.overrides, rf, o, progressSeconds, true, ck,
-                        spec.commandLine().getParseResult().originalArgs());
+                List<String> warnings;
+                Boolean settled;
+                boolean flux;
+                if (both) {
+                    PolarizationRuns.Both b = PolarizationRuns.run(l, lp, options.overrides, rf, o, progressSeconds, true,
+                            spec.commandLine().getParseResult().originalArgs());
+                    warnings = b.warnings();
+                    settled = b.settled();
+                    flux = b.averaged() != null;
+                } else {
+                    CaseExecution.Finished f = CaseExecution.run(l, options.overrides, rf, o, progressSeconds, true, ck,
+                            spec.commandLine().getParseResult().originalArgs());
+                    warnings = f.warnings();
+                    settled = f.settling().settled();
+                    flux = f.flux() != null;
+                }
                 rf.commit();
                 if (ck != null) {
                     ck.delete();
@@ -71,11 +92,11 @@ public final class RunCommand implements Callable<Integer> {
                             + rf.target() + " instead");
                 }
                 o.println("results: " + rf.target());
-                if (!f.warnings().isEmpty()) {
+                if (!warnings.isEmpty()) {
                     spec.commandLine().getErr().printf(java.util.Locale.ROOT, "evanesce run: warning: %s%s (printed above, and "
-                            + "in run.json%s)%n", Boolean.FALSE.equals(f.settling().settled()) ? "the results did not settle"
-                            : "the results look implausible", f.warnings().size() > 1 ? " and " + (f.warnings().size() - 1)
-                            + " more warning(s)" : "", f.flux() != null ? " and summary.json" : "");
+                            + "in run.json%s)%n", Boolean.FALSE.equals(settled) ? "the results did not settle"
+                            : "the results look implausible", warnings.size() > 1 ? " and " + (warnings.size() - 1)
+                            + " more warning(s)" : "", flux ? " and summary.json" : "");
                 }
                 o.println("Caution: " + RunOutputs.CAUTION);
                 return ExitCode.OK;

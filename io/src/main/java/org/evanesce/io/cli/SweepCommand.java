@@ -37,6 +37,7 @@ import org.evanesce.io.run.RunOutputs;
 import org.evanesce.io.sweep.Parallelism;
 import org.evanesce.io.sweep.PointHash;
 import org.evanesce.io.sweep.SlurmScript;
+import org.evanesce.io.sweep.SampleSummary;
 import org.evanesce.io.sweep.SweepFolder;
 import org.evanesce.io.sweep.SweepMerge;
 import org.evanesce.io.sweep.SweepPoint;
@@ -110,6 +111,9 @@ public final class SweepCommand implements Callable<Integer> {
             description = "Seconds between progress lines when the output is not a terminal (default: ${DEFAULT-VALUE}).")
     private double progressSeconds;
 
+    /** The sweep's sample form, null for listed values. */
+    private org.evanesce.io.casefile.model.SampleSpec sample;
+
     /** A point after reading: its values in SI, its overrides and hash, and (for points about to run) its grid. */
     private record Read(SweepPoint point, Map<String, String> overrides, double[] si, String hash) { }
 
@@ -146,6 +150,14 @@ public final class SweepCommand implements Callable<Integer> {
         CaseSpec base = asWritten.spec();
         SweepSpec sweep = base.sweep().orElseThrow(() -> usage(caseFile + ": the case has no sweep section; add one "
                 + "(docs/case-file.md, 'sweep') or run it with 'evanesce run'"));
+        sample = sweep.sample().orElse(null);
+        if (sample != null) {
+            try {
+                SampleSummary.checkLimits(sample, base);
+            } catch (SampleSummary.UnknownColumn e) {
+                throw usage(e.getMessage() + "; nothing was run or written");
+            }
+        }
         for (SweepSpec.Axis a : sweep.parameters()) {
             if (options.overrides.containsKey(a.name())) {
                 throw usage("--set " + a.name() + "=" + options.overrides.get(a.name()) + ": " + a.name() + " is swept (" + caseFile
@@ -173,7 +185,8 @@ public final class SweepCommand implements Callable<Integer> {
                 }
                 double[] si = new double[p.names().size()];
                 for (int k = 0; k < si.length; k++) {
-                    si[k] = lc.spec().parameters().get(p.names().get(k)).value().value();
+                    var param = lc.spec().parameters().get(p.names().get(k));
+                    si[k] = param == null ? Double.NaN : param.value().value(); // NaN: the polarization (s, p, both)
                 }
                 all.add(new Read(p, ov, si, PointHash.of(text, ov, version, build)));
             } catch (CaseFileException e) {
@@ -411,6 +424,15 @@ public final class SweepCommand implements Callable<Integer> {
             LoadedCase lc = CaseReader.parse(caseText, caseFile.toString(), ov, ReadOptions.defaults());
             lc = new LoadedCase(lc.spec(), withoutSweepNote(lc.diagnostics()));
             CasePlan plan = CasePlanner.plan(lc.spec(), threads);
+            if (lc.spec().polarizations() == org.evanesce.io.casefile.model.PolarizationChoice.BOTH) {
+                Map<String, String> pov = PolarizationRuns.overrides(ov, org.evanesce.io.casefile.model.PolarizationChoice.P);
+                LoadedCase lp = CaseReader.parse(caseText, caseFile.toString(), pov, ReadOptions.defaults());
+                lp = new LoadedCase(lp.spec(), withoutSweepNote(lp.diagnostics()));
+                PolarizationRuns.run(new CaseOptions.Loaded(lc, plan, caseSha),
+                        new CaseOptions.Loaded(lp, CasePlanner.plan(lp.spec(), threads), caseSha), ov, rf, pointOut,
+                        progressSeconds, false, spec.commandLine().getParseResult().originalArgs());
+                return;
+            }
             CaseExecution.run(new CaseOptions.Loaded(lc, plan, caseSha), ov, rf, pointOut, progressSeconds, false,
                     spec.commandLine().getParseResult().originalArgs());
         } catch (CaseFileException | PlanException e) {
@@ -426,6 +448,19 @@ public final class SweepCommand implements Callable<Integer> {
         SweepMerge.Result m = SweepMerge.write(folder, points, kinds, title);
         o.printf(Locale.ROOT, "merged %d of %d points into %s%s%n", m.finished(), points.size(),
                 folder.dir().resolve(SweepFolder.CSV), m.png() ? " and " + SweepFolder.PNG : "");
+        if (sample != null) {
+            try {
+                SampleSummary.Written w = SampleSummary.write(folder, m.csv(), sample, points.isEmpty() ? List.of()
+                        : points.get(0).point().names(), points.size(), m.missing(), options.caseFile.toString(),
+                        RunOutputs.CAUTION);
+                o.printf(Locale.ROOT, "statistics of the %d merged sample points in %s (with histograms):%n", m.finished(),
+                        folder.dir().resolve(SweepFolder.SAMPLE));
+                SampleSummary.print(o, w);
+            } catch (SampleSummary.UnknownColumn e) {
+                throw usage(e.getMessage() + "; the points are kept: correct the case's require section and run again "
+                        + "(finished points are not run again)");
+            }
+        }
         if (!m.unsettled().isEmpty()) {
             err.printf(Locale.ROOT, "evanesce sweep: warning: %d of %d merged points did not settle: %s (column 'settled' of "
                     + "sweep.csv; the reasons are in each point's run.json warnings)%n", m.unsettled().size(), m.finished(),

@@ -190,8 +190,8 @@ final class CurveFit {
             int n = f0.length;
             double[][] jac = new double[n][np];
             for (int k = 0; k < np; k++) {
-                double lo = Math.max(0, q[k] - STEP);
-                double hi = Math.min(1, q[k] + STEP);
+                double lo = Math.max(0, q[k] - model.kind().step);
+                double hi = Math.min(1, q[k] + model.kind().step);
                 double[] a = q.clone();
                 double[] b = q.clone();
                 a[k] = lo;

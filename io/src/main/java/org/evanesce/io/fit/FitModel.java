@@ -13,6 +13,7 @@ import org.evanesce.io.casefile.text.Diagnostic;
 import org.evanesce.io.casefile.model.Parameter;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.plan.ExactStack;
+import org.evanesce.solver.reference.AngularSpectrum;
 import org.evanesce.io.plan.PlanException;
 import org.evanesce.solver.reference.PlanarStack;
 
@@ -31,6 +32,11 @@ final class FitModel {
     private final MeasuredCurve curve;
     private final List<FreeParameter> free;
     private final Dimension sweptDimension;
+    private final ForwardModel kind;
+    /** The angular-spectrum model's sampling per point, chosen at its first evaluation. */
+    private final BeamModel.Sampling[] samplings;
+    /** The simulation model, or null. */
+    private final SimulationModel simulation;
     private int caseReads;
 
     /**
@@ -39,6 +45,18 @@ final class FitModel {
      */
     FitModel(Path caseFile, Map<String, String> overrides, MeasuredCurve curve, List<FreeParameter> free)
             throws IOException, FitInputException {
+        this(caseFile, overrides, curve, free, ForwardModel.TRANSFER_MATRIX, null);
+    }
+
+    /**
+     * @param kind       the forward model
+     * @param simulation the simulation model's runner (with kind {@link ForwardModel#SIMULATION}), else null
+     */
+    FitModel(Path caseFile, Map<String, String> overrides, MeasuredCurve curve, List<FreeParameter> free, ForwardModel kind,
+             SimulationModel simulation) throws IOException, FitInputException {
+        this.kind = kind;
+        this.samplings = new BeamModel.Sampling[curve.size()];
+        this.simulation = simulation;
         this.caseFile = caseFile;
         this.overrides = Map.copyOf(overrides);
         this.curve = curve;
@@ -86,6 +104,15 @@ final class FitModel {
             }
             sweptDimension = p.value().dimension();
         }
+        if (kind == ForwardModel.ANGULAR_SPECTRUM && !Double.isFinite(stack(overrides, new double[0]).waist())) {
+            throw new FitInputException("--model angular-spectrum: " + caseFile + " has a plane_wave source; the angular "
+                    + "spectrum needs a gaussian_beam (its waist and waist position make the beam); use --model transfer-matrix");
+        }
+    }
+
+    /** The forward model. */
+    ForwardModel kind() {
+        return kind;
     }
 
     /** The case's values of the free parameters (0 for angle_offset, 1 for scale): where the fit starts. */
@@ -114,6 +141,13 @@ final class FitModel {
                 set.put(f.name(), f.override(p[k]));
             }
         }
+        if (kind == ForwardModel.SIMULATION) {
+            double[] v = simulation.values(set, curve, sweptDimension, offset);
+            for (int i = 0; i < v.length; i++) {
+                v[i] *= scale;
+            }
+            return v;
+        }
         double[] out = new double[curve.size()];
         boolean perPoint = !curve.swept().equals("angle") && !curve.swept().equals("wavelength");
         ExactStack stack = perPoint ? null : stack(set, p);
@@ -125,16 +159,33 @@ final class FitModel {
             }
             double wavelength = curve.swept().equals("wavelength") ? x : stack.wavelength();
             double angle = (curve.swept().equals("angle") ? x : stack.angle()) + offset;
-            PlanarStack.Response r;
+            double[] rt;
             try {
-                r = stack.stack().apply(wavelength).atAngle(stack.polarization(), wavelength, angle);
+                PlanarStack st = stack.stack().apply(wavelength);
+                if (kind == ForwardModel.ANGULAR_SPECTRUM) {
+                    AngularSpectrum.GaussianBeam beam = new AngularSpectrum.GaussianBeam(stack.waist(), angle, wavelength,
+                            stack.waistDistance());
+                    if (samplings[i] == null) {
+                        samplings[i] = BeamModel.sampling(st, stack.polarization(), beam);
+                    }
+                    rt = BeamModel.response(st, stack.polarization(), beam, samplings[i]);
+                } else {
+                    PlanarStack.Response r = st.atAngle(stack.polarization(), wavelength, angle);
+                    rt = new double[] {r.reflectance(), r.transmittance()};
+                }
             } catch (IllegalArgumentException e) {
                 throw new FitInputException(String.format(Locale.ROOT, "%s:%d: the model cannot be evaluated at this point with %s: "
                         + "%s", curve.file(), curve.lines()[i], describe(p), e.getMessage()));
             }
-            out[i] = scale * (curve.measured() == MeasuredCurve.Measured.R ? r.reflectance() : r.transmittance());
+            out[i] = scale * (curve.measured() == MeasuredCurve.Measured.R ? rt[0] : rt[1]);
         }
         return out;
+    }
+
+    /** For the simulation model: how many runs were made now and how many taken from the cache; else null. */
+    String simulations() {
+        return simulation == null ? null : String.format(Locale.ROOT, "%d simulation(s) run, %d taken from the cache",
+                simulation.runs(), simulation.reused());
     }
 
     /** How often the case was read (for the report). */

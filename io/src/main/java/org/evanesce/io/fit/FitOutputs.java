@@ -24,7 +24,15 @@ final class FitOutputs {
 
     static void write(RunFolder rf, Path caseFile, MeasuredCurve curve, List<FreeParameter> free, CurveFit.Result r,
                       String caution) throws IOException {
-        rf.writeText("fit.json", Json.write(json(caseFile, curve, free, r, caution)));
+        write(rf, caseFile, curve, free, r, caution, MODEL);
+    }
+
+    /** The same for a fit with the model {@code model} (in words). */
+    static void write(RunFolder rf, Path caseFile, MeasuredCurve curve, List<FreeParameter> free, CurveFit.Result r,
+                      String caution, String model) throws IOException {
+        Map<String, Object> json = json(caseFile, curve, free, r, caution);
+        json.put("model", model);
+        rf.writeText("fit.json", Json.write(json));
         rf.writeText("fit.csv", csv(curve, r));
         LinePlot.writeStacked(rf.dir().resolve("fit.png"), plot(curve, r).toArray(LinePlot[]::new));
     }

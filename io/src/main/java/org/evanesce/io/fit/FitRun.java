@@ -26,6 +26,19 @@ public final class FitRun {
      */
     public static Prepared prepare(Path caseFile, Map<String, String> overrides, Path data, List<String> free)
             throws IOException, FitInputException {
+        return prepare(caseFile, overrides, data, free, ForwardModel.TRANSFER_MATRIX, null, null, null);
+    }
+
+    /**
+     * The same with a forward model.
+     *
+     * @param cache   the simulation model's cache folder (with {@link ForwardModel#SIMULATION})
+     * @param threads the simulation's threads (null: the case's or all cores)
+     * @param out     where the simulation model prints a line per run
+     */
+    public static Prepared prepare(Path caseFile, Map<String, String> overrides, Path data, List<String> free,
+                                   ForwardModel kind, Path cache, Integer threads, PrintWriter out)
+            throws IOException, FitInputException {
         MeasuredCurve curve = MeasuredCurve.read(data);
         List<FreeParameter> params = new java.util.ArrayList<>();
         for (String f : free) {
@@ -35,7 +48,15 @@ public final class FitRun {
             }
             params.add(p);
         }
-        FitModel model = new FitModel(caseFile, overrides, curve, params);
+        SimulationModel sim = null;
+        if (kind == ForwardModel.SIMULATION) {
+            if (params.stream().anyMatch(q -> q.name().equals(FreeParameter.ANGLE_OFFSET))) {
+                throw new FitInputException("--free angle_offset: the simulation model takes a curve against wavelength or a "
+                        + "case parameter, where no measured angle is offset");
+            }
+            sim = new SimulationModel(caseFile, overrides, curve, cache, threads, out);
+        }
+        FitModel model = new FitModel(caseFile, overrides, curve, params, kind, sim);
         CurveFit.check(model, curve, params);
         return new Prepared(caseFile, curve, params, model);
     }
@@ -55,7 +76,7 @@ public final class FitRun {
         CurveFit.Result r = CurveFit.fit(model, curve, params);
         double seconds = (System.nanoTime() - t0) * 1e-9;
         out.printf(Locale.ROOT, "%s: %d points of %s against %s, %d free parameter(s); model: %s%n", caseFile, curve.size(),
-                curve.measured(), curve.swept(), params.size(), FitOutputs.MODEL);
+                curve.measured(), curve.swept(), params.size(), model.kind().description);
         for (int k = 0; k < params.size(); k++) {
             FreeParameter f = params.get(k);
             out.printf(Locale.ROOT, "  %-14s %s +/- %s   (bounds %s .. %s)%n", f.name(), Units.format(r.values()[k], f.dimension(), 6),
@@ -66,10 +87,13 @@ public final class FitRun {
                         + "%d case reads in %.1f s%n", r.chiSquare(), r.dof(), r.reducedChiSquare(), curve.u() == null
                         ? "; no uncertainties given, so the standard errors are scaled by the reduced chi-square" : "",
                 r.iterations(), r.evaluations(), model.caseReads(), seconds);
+        if (model.simulations() != null) {
+            out.println(model.simulations());
+        }
         for (String w : r.warnings()) {
             out.println("warning: " + w);
         }
-        FitOutputs.write(rf, caseFile, curve, params, r, caution);
+        FitOutputs.write(rf, caseFile, curve, params, r, caution, model.kind().description);
         return r.warnings();
     }
 }

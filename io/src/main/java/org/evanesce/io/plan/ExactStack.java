@@ -23,9 +23,19 @@ import org.evanesce.solver.reference.PlanarStack;
  * @param wavelength   the case's design wavelength (vacuum), m: a pulse's centre frequency is the middle of its band in
  *                     frequency, a little off the wavelength the case names
  * @param angle        the source's angle of incidence (at its centre frequency), in the medium at its line, rad
+ * @param waist        a Gaussian beam's waist, m (NaN for a plane wave)
+ * @param waistDistance a Gaussian beam's distance along its axis from its waist to the first interface, m, positive
+ *                     when the waist lies before it (as {@code AngularSpectrum.GaussianBeam} takes it; NaN for a plane
+ *                     wave)
  */
 public record ExactStack(java.util.function.DoubleFunction<PlanarStack> stack, Polarization polarization,
-                         double wavelength, double angle) {
+                         double wavelength, double angle, double waist, double waistDistance) {
+
+    /** A plane wave's stack. */
+    public ExactStack(java.util.function.DoubleFunction<PlanarStack> stack, Polarization polarization, double wavelength,
+                      double angle) {
+        this(stack, polarization, wavelength, angle, Double.NaN, Double.NaN);
+    }
 
     /**
      * Reads the stack of a case with one plane wave or Gaussian beam over horizontal layers.
@@ -51,6 +61,13 @@ public record ExactStack(java.util.function.DoubleFunction<PlanarStack> stack, P
         Optional<FluxPlan.Exact> exact = FluxPlanner.transferMatrix(spec, grid, w, interior, errors);
         if (exact.isEmpty() || !errors.isEmpty()) {
             throw new PlanException(errors);
+        }
+        if (w instanceof SourceSpec.GaussianBeamSource b) {
+            // as the run's beam reference (io.run.BeamReference.beam) places the waist
+            double direction = b.direction().value().sign();
+            double distance = (exact.get().firstInterface() - b.waistAt().y().si()) * direction / Math.cos(b.angle().si());
+            return new ExactStack(exact.get().stack(), spec.polarization().value(), spec.designWavelength().si(),
+                    w.angle().si(), b.waist().si(), distance);
         }
         return new ExactStack(exact.get().stack(), spec.polarization().value(), spec.designWavelength().si(), w.angle().si());
     }

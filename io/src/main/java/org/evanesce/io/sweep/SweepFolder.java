@@ -31,10 +31,12 @@ public final class SweepFolder {
     public static final String PNG = "sweep.png";
     public static final String SLURM = "sweep.slurm";
     public static final String POINT_RECORD = "point.json";
+    /** A sample sweep's statistics ({@link SampleSummary}). */
+    public static final String SAMPLE = "sample.json";
 
     /** A point's folder: {@code point-0003}. */
     private static final Pattern POINT = Pattern.compile("point-(\\d{4,9})");
-    private static final Set<String> SWEEP_FILES = Set.of(RECORD, CSV, PNG, SLURM);
+    private static final Set<String> SWEEP_FILES = Set.of(RECORD, CSV, PNG, SLURM, SAMPLE);
 
     private final Path dir;
 
@@ -98,6 +100,7 @@ public final class SweepFolder {
      */
     public static boolean ours(String name) {
         return SWEEP_FILES.contains(name) || POINT.matcher(name).matches() || name.matches("slurm-\\d+_\\d+\\.out")
+                || name.matches(SampleSummary.HISTOGRAM_PATTERN)
                 || Leftovers.isTemporary(name);
     }
 

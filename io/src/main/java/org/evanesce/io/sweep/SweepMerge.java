@@ -175,7 +175,7 @@ public final class SweepMerge {
             double[] si = f.point().si();
             for (int k = 0; k < names.size(); k++) {
                 lead.append(',').append(quote(f.point().point().texts().get(k)));
-                lead.append(',').append(String.format(Locale.ROOT, "%.12e", si[k]));
+                lead.append(',').append(Double.isFinite(si[k]) ? String.format(Locale.ROOT, "%.12e", si[k]) : "");
             }
             StringBuilder tail = new StringBuilder();
             for (String d : decay) {
@@ -242,21 +242,30 @@ public final class SweepMerge {
         } else {
             return null;
         }
-        String xName = first.point().point().names().get(0);
+        // along the first numeric parameter (the polarization, s, p or both, is none)
+        int xi = 0;
+        while (xi < kinds.size() && !Double.isFinite(first.point().si()[xi])) {
+            xi++;
+        }
+        if (xi == kinds.size()) {
+            return null;
+        }
+        final int x0 = xi;
+        String xName = first.point().point().names().get(xi);
         double max = 0;
         for (Found f : found) {
-            max = Math.max(max, Math.abs(f.point().si()[0]));
+            max = Math.max(max, Math.abs(f.point().si()[xi]));
         }
-        DisplayUnit unit = DisplayUnit.of(kinds.get(0), max);
+        DisplayUnit unit = DisplayUnit.of(kinds.get(xi), max);
         // series: per value column, per combination of the other parameters
         Map<String, List<double[]>> series = new LinkedHashMap<>();
         for (String c : columns) {
             Map<String, List<double[]>> groups = new LinkedHashMap<>();
             for (Found f : found) {
                 double y = value(f, c);
-                String others = others(f.point().point());
+                String others = others(f.point().point(), x0);
                 groups.computeIfAbsent(c + (others.isEmpty() ? "" : " (" + others + ")"), k -> new ArrayList<>())
-                        .add(new double[] {f.point().si()[0] / unit.factor(), y});
+                        .add(new double[] {f.point().si()[x0] / unit.factor(), y});
             }
             series.putAll(groups);
         }
@@ -302,9 +311,12 @@ public final class SweepMerge {
         return Double.parseDouble(f.fluxRows().get(0)[at]);
     }
 
-    private static String others(SweepPoint p) {
+    private static String others(SweepPoint p, int x) {
         List<String> parts = new ArrayList<>();
-        for (int k = 1; k < p.names().size(); k++) {
+        for (int k = 0; k < p.names().size(); k++) {
+            if (k == x) {
+                continue;
+            }
             parts.add(p.names().get(k) + "=" + p.texts().get(k));
         }
         return String.join(", ", parts);

@@ -28,9 +28,12 @@ public record SweepPoint(int number, List<String> names, List<String> texts) {
     /**
      * Every point of a sweep in order. {@code product}: every combination, the first parameter
      * varying slowest (like nested loops with the first outermost); {@code zip}: the n-th value of
-     * every parameter.
+     * every parameter; a sample: the drawn points ({@link SamplePoints}).
      */
     public static List<SweepPoint> expand(SweepSpec sweep) {
+        if (sweep.sample().isPresent()) {
+            return SamplePoints.draw(sweep);
+        }
         List<SweepSpec.Axis> axes = sweep.parameters();
         List<String> names = axes.stream().map(SweepSpec.Axis::name).toList();
         long count = sweep.pointCount();

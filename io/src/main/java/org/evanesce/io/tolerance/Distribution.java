@@ -100,7 +100,7 @@ public record Distribution(String name, Kind kind, Dimension dimension, double a
     }
 
     /** One draw (a truncated normal by rejection: at most 1/{@link #MIN_MASS} tries on average). */
-    double draw(Random rnd) {
+    public double draw(Random rnd) {
         if (kind == Kind.UNIFORM) {
             return a + (b - a) * rnd.nextDouble();
         }
@@ -113,7 +113,7 @@ public record Distribution(String name, Kind kind, Dimension dimension, double a
     }
 
     /** A value of the parameter as a case-file override: every digit, in SI units. */
-    String override(double si) {
+    public String override(double si) {
         return Units.override(si, dimension);
     }
 }

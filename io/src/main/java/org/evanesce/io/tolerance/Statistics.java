@@ -2,16 +2,16 @@ package org.evanesce.io.tolerance;
 
 import java.util.Arrays;
 
-/** The summaries a tolerance study reports. */
-final class Statistics {
+/** The summaries a tolerance study and a sample sweep report. */
+public final class Statistics {
 
     /** z for a two-sided 95 % interval: Φ⁻¹(0.975) (Abramowitz & Stegun, table 26.5). */
-    static final double Z95 = 1.959963984540054;
+    public static final double Z95 = 1.959963984540054;
 
     private Statistics() {
     }
 
-    static double mean(double[] v) {
+    public static double mean(double[] v) {
         double s = 0;
         for (double x : v) {
             s += x;
@@ -20,7 +20,7 @@ final class Statistics {
     }
 
     /** The sample standard deviation (n − 1 in the denominator); 0 for one value. */
-    static double standardDeviation(double[] v) {
+    public static double standardDeviation(double[] v) {
         if (v.length < 2) {
             return 0;
         }
@@ -36,7 +36,7 @@ final class Statistics {
      * The p-quantile by linear interpolation between order statistics, h = (n − 1)p (R. J. Hyndman and
      * Y. Fan, "Sample quantiles in statistical packages", Am. Stat. 50, 361 (1996), definition 7).
      */
-    static double quantile(double[] v, double p) {
+    public static double quantile(double[] v, double p) {
         double[] s = v.clone();
         Arrays.sort(s);
         double h = (s.length - 1) * p;
@@ -53,7 +53,7 @@ final class Statistics {
      *
      * @return {lower, upper}
      */
-    static double[] wilson(long k, long n) {
+    public static double[] wilson(long k, long n) {
         double p = (double) k / n;
         double z2 = Z95 * Z95;
         double centre = (p + z2 / (2 * n)) / (1 + z2 / n);

@@ -13,7 +13,7 @@ import org.evanesce.io.output.RunFolder;
 import org.evanesce.io.output.image.LinePlot;
 
 /** Prints a tolerance study and writes tolerance.json, samples.csv and a histogram per result. */
-final class ToleranceOutputs {
+public final class ToleranceOutputs {
 
     /** Bins of the histograms. */
     static final int BINS = 40;
@@ -115,7 +115,7 @@ final class ToleranceOutputs {
     }
 
     /** A histogram drawn as a step outline, with the requirement's limits as vertical lines. */
-    private static LinePlot histogram(String name, double[] v, List<Requirement> reqs) {
+    public static LinePlot histogram(String name, double[] v, List<Requirement> reqs) {
         double lo = Statistics.quantile(v, 0);
         double hi = Statistics.quantile(v, 1);
         if (!(hi > lo)) {

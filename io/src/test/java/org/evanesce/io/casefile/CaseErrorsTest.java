@@ -87,7 +87,7 @@ class CaseErrorsTest {
                 + "Hz, GHz, THz, PHz, deg, rad, S (to multiply by a parameter write '*')"), errors(replace("width: 4 um", "width: 4 umm")));
         assertEquals(List.of("case.yaml:2:22: domain.width: cannot add a length (4 um) and a plain number (1); both sides of '+' must be "
                 + "of the same kind"), errors(replace("width: 4 um", "width: 4 um + 1")));
-        assertEquals(List.of("case.yaml:1:15: polarization: unknown choice 'z', expected one of s, p"),
+        assertEquals(List.of("case.yaml:1:15: polarization: unknown choice 'z', expected one of s, p, both"),
                 errors(replace("polarization: s", "polarization: z")));
         assertEquals(List.of("case.yaml:6:8: until: expected a mapping with keys such as time, steps, energy_below, latest, got '100 fs'"),
                 errors(replace("until: {time: 100 fs}", "until: 100 fs")));

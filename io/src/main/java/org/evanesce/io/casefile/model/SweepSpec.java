@@ -13,11 +13,18 @@ import org.evanesce.io.casefile.text.SourcePosition;
  * @param parameters the swept parameters in file order (the first one varies slowest in a product)
  * @param combine    how the parameters' values combine into points
  * @param at         where {@code sweep} was written
+ * @param sample     the sample form: points drawn at random (its parameters are then the axes, each with no listed
+ *                   values, and {@code combine} is zip)
  */
-public record SweepSpec(List<Axis> parameters, Combine combine, SourcePosition at) {
+public record SweepSpec(List<Axis> parameters, Combine combine, SourcePosition at, java.util.Optional<SampleSpec> sample) {
 
     public SweepSpec {
         parameters = List.copyOf(parameters);
+    }
+
+    /** A sweep of listed values (no sample). */
+    public SweepSpec(List<Axis> parameters, Combine combine, SourcePosition at) {
+        this(parameters, combine, at, java.util.Optional.empty());
     }
 
     /** How the swept values combine into points. */
@@ -52,7 +59,7 @@ public record SweepSpec(List<Axis> parameters, Combine combine, SourcePosition a
 
     /** The number of points: the product of the value counts, or the common count for {@code zip}. */
     public long pointCount() {
-        return count(parameters, combine);
+        return sample.isPresent() ? sample.get().count() : count(parameters, combine);
     }
 
     static long count(List<Axis> axes, Combine combine) {

@@ -1,5 +1,7 @@
 package org.evanesce.io.casefile.sections;
 
+import org.evanesce.io.casefile.model.PolarizationChoice;
+
 import java.util.ArrayList;
 import java.util.EnumMap;
 import java.util.HashMap;
@@ -60,7 +62,6 @@ final class CaseParser {
     /** PML thickness when a side says just {@code pml}, in cells. */
     static final int DEFAULT_PML_CELLS = 16;
 
-    private static final Map<String, Polarization> POLARIZATIONS = ordered("s", Polarization.S, "p", Polarization.P);
     private static final Map<String, Precision> PRECISIONS = ordered("float", Precision.FLOAT, "double", Precision.DOUBLE);
     private static final Map<String, Component> COMPONENTS = new LinkedHashMap<>();
 
@@ -78,6 +79,8 @@ final class CaseParser {
     String title;
     Polarization polarization;
     SourcePosition polarizationAt;
+    /** s, p or both; {@link #polarization} is the first run's (s for both). */
+    PolarizationChoice polarizationChoice;
     Value designWavelength;
     DomainSpec domain;
     final Map<String, MaterialSpec> defined = new LinkedHashMap<>();
@@ -119,6 +122,23 @@ final class CaseParser {
         this.signalReader = new SignalReader(ctx);
     }
 
+    /** The polarization as the file has it, or as {@code --set polarization=VALUE} replaces it. */
+    private void readPolarization(Node pol, String set) {
+        if (set == null) {
+            polarizationChoice = ctx.choice(pol, "polarization", PolarizationChoice.BY_NAME);
+            polarizationAt = ctx.pos(pol);
+        } else {
+            polarizationAt = SourcePosition.commandLine(PolarizationChoice.KEY, set);
+            polarizationChoice = PolarizationChoice.of(set);
+            if (polarizationChoice == null) {
+                ctx.error(polarizationAt, "polarization", "unknown choice '" + Suggest.shown(set.strip()) + "'"
+                        + Suggest.didYouMean(set.strip(), PolarizationChoice.BY_NAME.keySet()) + ", expected one of "
+                        + String.join(", ", PolarizationChoice.BY_NAME.keySet()));
+            }
+        }
+        polarization = polarizationChoice == null ? null : polarizationChoice.runs().get(0);
+    }
+
     private static <T> Map<String, T> ordered(Object... kv) {
         Map<String, T> m = new LinkedHashMap<>();
         for (int k = 0; k < kv.length; k += 2) {
@@ -139,13 +159,15 @@ final class CaseParser {
         if (t != null) {
             title = ctx.text(t, "title");
         }
-        ctx.parameters.read(top.get("parameters"), overrides);
+        // --set polarization=VALUE replaces the key's value; every other override is a parameter's
+        Map<String, String> parameterOverrides = new LinkedHashMap<>(overrides);
+        String polarizationSet = parameterOverrides.remove(PolarizationChoice.KEY);
+        ctx.parameters.read(top.get("parameters"), parameterOverrides);
         sweep = sweepReader.read();
 
-        Node pol = top.require("polarization", "s (Ez, Hx, Hy) or p (Hz, Ex, Ey)");
+        Node pol = top.require("polarization", "s (Ez, Hx, Hy), p (Hz, Ex, Ey) or both (an s run and a p run)");
         if (pol != null) {
-            polarization = ctx.choice(pol, "polarization", POLARIZATIONS);
-            polarizationAt = ctx.pos(pol);
+            readPolarization(pol, polarizationSet);
         }
         readSources(top.require("sources", "a list of sources"));
         readDesignWavelength(top);

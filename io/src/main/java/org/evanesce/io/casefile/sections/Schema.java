@@ -109,14 +109,18 @@ final class Schema {
      * The sweep: a top-level key of its own, read beside the case proper (the other commands run the
      * case as written), so it is not one of {@link #ROOT}'s keys.
      */
-    static final Section SWEEP = new Section("sweep", List.of("parameters", "combine"));
+    static final Section SWEEP = new Section("sweep", List.of("parameters", "combine", "sample"));
     static final Section SWEEP_RANGE = new Section("sweep.parameters.NAME", List.of("from", "to", "count", "spacing"));
+    static final Section SAMPLE = new Section("sweep.sample", List.of("count", "seed", "parameters", "require"));
+    static final Section SAMPLE_PARAMETER = new Section("sweep.sample.parameters.NAME", List.of("distribution", "mean",
+            "standard_deviation", "low", "high"));
+    static final Section SAMPLE_LIMIT = new Section("sweep.sample.require.COLUMN", List.of("min", "max"));
 
     static final List<Section> ALL = List.of(ROOT, DOMAIN, GRID, MATERIAL, SHAPES, RECTANGLE, POLYGON, DISK,
             ELLIPSE, HALF_PLANE, LAYER_STACK, LAYER, BOUNDARIES, SOURCES, POINT_SOURCE, LINE_SOURCE, PLANE_WAVE, GAUSSIAN_BEAM, PLANE_WAVE_BOX, SIGNAL,
             PULSE, RAMPED_WAVE, GAUSSIAN_DERIVATIVE, PROBE, FLUX, WAVELENGTH_RANGE, FREQUENCY_RANGE, FLUX_LINE, MAPS, MAP_WAVELENGTH_RANGE,
             MAP_FREQUENCY_RANGE, DECAY_LINE, OUTPUT, REGION, UNTIL,
-            NUMERICS, SWEEP, SWEEP_RANGE);
+            NUMERICS, SWEEP, SWEEP_RANGE, SAMPLE, SAMPLE_PARAMETER, SAMPLE_LIMIT);
 
     private Schema() {
     }

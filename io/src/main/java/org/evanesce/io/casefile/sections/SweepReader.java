@@ -1,5 +1,8 @@
 package org.evanesce.io.casefile.sections;
 
+import org.evanesce.io.casefile.model.PolarizationChoice;
+import org.evanesce.io.casefile.model.SampleSpec;
+
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -91,6 +94,9 @@ final class SweepReader {
         if (v == null) {
             return null;
         }
+        if (v.has("sample")) {
+            return sample(v, at);
+        }
         Node cn = v.get("combine");
         SweepSpec.Combine combine = cn == null ? SweepSpec.Combine.PRODUCT : ctx.choice(cn, v.path("combine"), COMBINES);
         Node pn = v.require("parameters", "a mapping of parameters to values such as 'gap: {from: 100 nm, to: 300 nm, count: 5}'");
@@ -154,7 +160,35 @@ final class SweepReader {
         return s;
     }
 
+    /** The sample form: its parameters become axes without listed values, the points are drawn ({@link SampleSpec}). */
+    private SweepSpec sample(MapView v, SourcePosition at) {
+        for (String k : List.of("parameters", "combine")) {
+            if (v.has(k)) {
+                ctx.error(v.keyAt(k), v.path(k), "a sweep has either listed values (parameters, combine) or a sample, not "
+                        + "both; move the parameters into sample.parameters as distributions");
+                return null;
+            }
+        }
+        SampleSpec sample = new SampleReader(ctx).read(v.get("sample"), v.path("sample"), v.keyAt("sample"), MAX_POINTS);
+        if (sample == null) {
+            return null;
+        }
+        List<SweepSpec.Axis> axes = new ArrayList<>();
+        for (SampleSpec.Varied x : sample.parameters()) {
+            axes.add(new SweepSpec.Axis(x.name(), x.dimension(), List.of(), x.definition() + ", " + sample.count()
+                    + " samples, seed " + sample.seed(), x.at()));
+        }
+        SweepSpec s = new SweepSpec(axes, SweepSpec.Combine.ZIP, at, java.util.Optional.of(sample));
+        ctx.note(at, "sweep", String.format(Locale.ROOT, "%d points drawn at random (seed %d) for %s; this command uses the "
+                + "case as written, 'evanesce sweep' runs the points", sample.count(), sample.seed(),
+                String.join(", ", axes.stream().map(SweepSpec.Axis::name).toList())));
+        return s;
+    }
+
     private SweepSpec.Axis axis(String name, Node node, String path, SourcePosition keyAt) {
+        if (name.equals(PolarizationChoice.KEY) && !ctx.parameters.resolved().containsKey(name)) {
+            return polarizations(node, path, keyAt);
+        }
         Quantity current;
         try {
             current = ctx.parameters.lookup(name, 0);
@@ -175,6 +209,26 @@ final class SweepReader {
         ctx.error(ctx.pos(node), path, "expected a list of values such as [40 deg, 45 deg] or a range such as "
                 + "{from: 100 nm, to: 300 nm, count: 5}, got " + Context.describe(node));
         return null;
+    }
+
+    /** The case's polarization as a swept value: a list of s, p and both. */
+    private SweepSpec.Axis polarizations(Node node, String path, SourcePosition keyAt) {
+        String need = "a list of polarizations such as [s, p]";
+        if (!(node instanceof SequenceNode list) || list.getValue().isEmpty()) {
+            ctx.error(ctx.pos(node), path, "expected " + need + " (s, p or both), got " + Context.describe(node));
+            return null;
+        }
+        List<String> values = new ArrayList<>();
+        boolean ok = true;
+        for (int k = 0; k < list.getValue().size(); k++) {
+            PolarizationChoice c = ctx.choice(list.getValue().get(k), path + "[" + k + "]", PolarizationChoice.BY_NAME);
+            ok &= c != null;
+            if (c != null) {
+                values.add(c.caseName());
+            }
+        }
+        return ok ? new SweepSpec.Axis(PolarizationChoice.KEY, Dimension.NONE, values, "[" + String.join(", ", values) + "]",
+                keyAt) : null;
     }
 
     private SweepSpec.Axis list(String name, Quantity current, SequenceNode list, String path, SourcePosition keyAt) {
