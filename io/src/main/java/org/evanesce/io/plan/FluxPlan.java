@@ -40,12 +40,16 @@ import org.evanesce.solver.reference.PlanarStack;
  *                       for s, the magnetic sheet current in V/m for p), a beam's z field at the waist centre (V/m)
  * @param path           a beam's path line in the incident-power run, when the case compares reflected lines with the
  *                       exact answer (see {@link Path})
+ * @param setupKey       the incident-power run's key without its step count ({@link IncidentKey}): runs of equal
+ *                       keys and steps give the same numbers
+ * @param recorders      every recorder of the incident-power run (its lines, the incident line, a continuous wave's
+ *                       halves, the path line) in the order registered: their state is its whole result
  */
 public record FluxPlan(double[] frequencies, double kx, String medium, double mediumIndex, int direction, List<Line> lines,
                        FluxLine incident, double incidentY, Simulation.Builder reference, double cellSize,
                        Optional<Exact> exact, Optional<SourceSpec.GaussianBeamSource> beam, double gridX0,
                        java.util.function.DoubleBinaryOperator indexAt, Optional<Steady> steady, double lineLength,
-                       double sourceAmplitude, Optional<Path> path) {
+                       double sourceAmplitude, Optional<Path> path, String setupKey, List<FluxLine> recorders) {
 
     /**
      * The steady-state check of a continuous wave (see {@link SteadyState}).
@@ -91,6 +95,7 @@ public record FluxPlan(double[] frequencies, double kx, String medium, double me
     public FluxPlan {
         frequencies = frequencies.clone();
         lines = List.copyOf(lines);
+        recorders = List.copyOf(recorders);
     }
 
     /**

@@ -36,13 +36,14 @@ final class FluxPlanner {
      * @param interior   the nodes outside every PML, {i0, j0, i1, j1} (i1, j1 exclusive)
      * @param run        the case's run, to which the lines are added
      * @param configured makes a builder with the case's sources, sides and numerics for a material grid
+     * @param setup      what {@code configured} configures besides the material grid (for the incident-power run's key)
      * @param stop       when the run ends (a continuous wave's window ends there)
      * @param dt         the time step, s
      * @param errors     receives what cannot be planned
      */
     static FluxPlan plan(CaseSpec spec, GridSpec grid, int[] interior, Map<String, Material> materials,
                          Simulation.Builder run, Function<MaterialGrid, Simulation.Builder> configured,
-                         CasePlan.Stop stop, double dt, List<Diagnostic> errors) {
+                         IncidentKey.Setup setup, CasePlan.Stop stop, double dt, List<Diagnostic> errors) {
         FluxSpec f = spec.flux().orElseThrow();
         SourceSpec.Launched w = PlaneWaves.launched(spec).orElseThrow();
         // lines span the whole width with periodic sides, else the interior between the side PMLs
@@ -56,9 +57,10 @@ final class FluxPlanner {
         var pol = spec.polarization().value();
         MaterialGrid homogeneous = Rasterizer.rasterize(Scene.builder(materials.get(medium.name())).build(), grid,
                 Smoothing.ANISOTROPIC);
-        Simulation.Builder reference = configured.apply(homogeneous);
         SteadyState steady = w.signal() instanceof SignalSpec.RampedWave rw
                 ? continuousWindow(spec, grid, rw, stop.maxSteps() * dt, errors) : null;
+        Recorders reference = new Recorders(configured.apply(homogeneous), new IncidentKey(setup, homogeneous), freqs,
+                steady == null ? "whole run" : steady.toString());
         List<FluxPlan.Line> lines = new ArrayList<>();
         List<FluxLine[]> runHalves = new ArrayList<>();
         List<FluxLine[]> referenceHalves = new ArrayList<>();
@@ -67,11 +69,11 @@ final class FluxPlanner {
             FluxLine a = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
             FluxLine b = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
             run.listener(a);
-            reference.listener(b);
+            reference.add("line", b);
             lines.add(new FluxPlan.Line(l, row, grid.y0() + (row + 0.5) * dx, a, b));
             if (steady != null) {
                 runHalves.add(halves(steady, a, freqs, pol, run));
-                referenceHalves.add(halves(steady, b, freqs, pol, reference));
+                referenceHalves.add(reference.halves(steady, b, freqs, pol));
             }
         }
         int sourceRow = CasePlanner.nearest(w.y().si(), grid.y0(), dx, w.component().value().dy);
@@ -83,9 +85,9 @@ final class FluxPlanner {
                     + "the %s edge", INCIDENT_OFFSET, dir > 0 ? "top" : "bottom")));
         }
         FluxLine incident = windowed(new FluxLine(pol, Math.max(0, incidentRow), i0, i1, freqs), steady);
-        reference.listener(incident);
+        reference.add("incident line", incident);
         Optional<FluxPlan.Steady> check = steady == null ? Optional.empty() : Optional.of(new FluxPlan.Steady(steady,
-                runHalves, referenceHalves, halves(steady, incident, freqs, pol, reference)));
+                runHalves, referenceHalves, reference.halves(steady, incident, freqs, pol)));
         Optional<FluxPlan.Exact> exact = f.transferMatrix().value()
                 ? transferMatrix(spec, grid, w, interior, errors) : Optional.empty();
         Optional<SourceSpec.GaussianBeamSource> beam = w instanceof SourceSpec.GaussianBeamSource b
@@ -95,14 +97,47 @@ final class FluxPlanner {
             int row = pathRow(lines, exact.get().firstInterface(), incidentRow, dir, grid, interior);
             if (row >= 0) {
                 FluxLine l = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
-                reference.listener(l);
+                reference.add("path line", l);
                 path = Optional.of(new FluxPlan.Path(l, grid.y0() + (row + 0.5) * dx));
             }
         }
         return new FluxPlan(freqs, PlaneWaves.kx(spec), medium.name(), medium.index(), dir, lines, incident,
-                grid.y0() + (incidentRow + 0.5) * dx, reference, dx, exact, beam, grid.x0(),
+                grid.y0() + (incidentRow + 0.5) * dx, reference.builder, dx, exact, beam, grid.x0(),
                 (x, y) -> spec.materials().get(spec.materialAt(x, y)).index(), check, (i1 - i0) * dx,
-                w.amplitude().si(), path);
+                w.amplitude().si(), path, reference.key.hex(), reference.lines);
+    }
+
+    /** The incident-power run's builder, its recorders in the order registered, and its key over them. */
+    private static final class Recorders {
+        final Simulation.Builder builder;
+        final IncidentKey key;
+        final List<FluxLine> lines = new ArrayList<>();
+        final double[] freqs;
+        final String window;
+
+        Recorders(Simulation.Builder builder, IncidentKey key, double[] freqs, String window) {
+            this.builder = builder;
+            this.key = key;
+            this.freqs = freqs;
+            this.window = window;
+        }
+
+        void add(String what, FluxLine l) {
+            add(what, l, window);
+        }
+
+        private void add(String what, FluxLine l, String window) {
+            builder.listener(l);
+            lines.add(l);
+            key.recorder(what, l.row(), l.firstCell(), l.cells(), freqs, window);
+        }
+
+        FluxLine[] halves(SteadyState steady, FluxLine like, double[] frequencies, org.evanesce.solver.grid.Polarization pol) {
+            FluxLine[] h = {steady.halfLine(like, 0, frequencies, pol), steady.halfLine(like, 1, frequencies, pol)};
+            add("early half", h[0], window + " early half");
+            add("late half", h[1], window + " late half");
+            return h;
+        }
     }
 
     /** The path line lies at least this many cells along the beam's travel from the incident line, or is left out. */

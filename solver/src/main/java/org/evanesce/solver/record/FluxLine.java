@@ -331,6 +331,7 @@ public final class FluxLine implements StatefulListener {
     public void writeState(java.io.DataOutput out) throws java.io.IOException {
         out.writeLong(eSamples);
         out.writeLong(hSamples);
+        out.writeDouble(dt);
         for (double[][] a : new double[][][] {eRe, eIm, hRe, hIm}) {
             out.writeInt(a.length);
             for (double[] row : a) {
@@ -343,6 +344,8 @@ public final class FluxLine implements StatefulListener {
     public void readState(java.io.DataInput in) throws java.io.IOException {
         eSamples = in.readLong();
         hSamples = in.readLong();
+        // the time step too, so that a restored line that takes no further step still gives its mean power
+        dt = in.readDouble();
         for (double[][] a : new double[][][] {eRe, eIm, hRe, hIm}) {
             if (in.readInt() != a.length) {
                 throw new java.io.IOException("checkpoint's flux line has another number of frequencies");
