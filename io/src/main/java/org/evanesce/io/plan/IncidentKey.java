@@ -96,6 +96,11 @@ public final class IncidentKey {
         }
     }
 
+    /** Adds how the run is done (e.g. on a strip that stands for the full width). */
+    void method(String how) {
+        text("method " + how);
+    }
+
     /** Adds a recorder of the run: what it is, where and what it transforms. */
     void recorder(String what, int row, int firstCell, int cells, double[] frequencies, String window) {
         text(what);

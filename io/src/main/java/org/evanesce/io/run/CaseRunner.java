@@ -213,13 +213,30 @@ public final class CaseRunner {
     }
 
     /**
-     * Runs the flux normalisation's reference (the case's grid filled with the plane wave's medium) for
-     * exactly as many steps as the case's run, so both transforms cover the same time window.
+     * Runs the flux normalisation's reference (the case's grid filled with the plane wave's medium, or the strip that
+     * stands for it, see {@link org.evanesce.io.plan.FluxPlan.Strip}) for exactly as many steps as the case's run, so
+     * both transforms cover the same time window.
      *
-     * @return its wall time, s, its energy inside the PMLs at the end and the largest measured, J/m
+     * @return its wall time, s, its energy inside the PMLs at the end and the largest measured, J/m (a strip's scaled
+     *         to the full width)
      */
     private static double[] runIncidentPower(CasePlan plan, long steps, Consumer<Progress.Report> progress, double progressSeconds) {
-        Simulation.Builder b = plan.flux().orElseThrow().reference();
+        org.evanesce.io.plan.FluxPlan f = plan.flux().orElseThrow();
+        if (f.strip().isPresent()) {
+            var s = f.strip().get();
+            int[] r = plan.interior();
+            double[] m = step(plan, s.builder(), steps, null, progressSeconds, new int[] {0, r[1], s.columns(), r[3]});
+            for (int k = 0; k < s.lines().size(); k++) {
+                f.recorders().get(k).spreadFrom(s.lines().get(k), f.kx(), f.cellSize());
+            }
+            double widths = (double) (r[2] - r[0]) / s.columns();
+            return new double[] {m[0], m[1] * widths, m[2] * widths};
+        }
+        return step(plan, f.reference(), steps, progress, progressSeconds, plan.interior());
+    }
+
+    private static double[] step(CasePlan plan, Simulation.Builder b, long steps, Consumer<Progress.Report> progress,
+                                 double progressSeconds, int[] r) {
         Simulation ref;
         try {
             ref = b.build();
@@ -232,7 +249,6 @@ public final class CaseRunner {
                 ref.addListener(new Progress(steps, progressSeconds, progress));
             }
             long t0 = System.nanoTime();
-            int[] r = plan.interior();
             double energy = Double.NaN;
             double peak = 0;
             while (ref.stepCount() < steps) {

@@ -71,8 +71,10 @@ public final class IncidentPowerCache {
      * @param key        the key, 64 hex digits
      * @param origin     in words: measured by this run, or where the reused result came from
      * @param measured   the measurement the numbers come from (this run's or the earlier one's)
+     * @param strip      whether that measurement stepped a strip of a few columns for a Bloch-periodic plane wave
+     *                   (else the full grid)
      */
-    public record Obtained(boolean reused, String key, String origin, Measured measured) {
+    public record Obtained(boolean reused, String key, String origin, Measured measured, boolean strip) {
         /** {@code measured} or {@code reused}, for run.json and summary.json. */
         public String how() {
             return reused ? "reused" : "measured";
@@ -82,10 +84,14 @@ public final class IncidentPowerCache {
         public Map<String, Object> record() {
             Map<String, Object> m = new LinkedHashMap<>();
             m.put("obtained", how());
-            m.put("by", reused ? "the result of an earlier incident-power run with the same key (same grid, medium, "
+            m.put("run", strip ? "strip" : "full");
+            m.put("by", (reused ? "the result of an earlier incident-power run with the same key (same grid, medium, "
                     + "sources, boundaries, numerics, lines, frequencies, steps and program build), bit for bit what this "
-                    + "run's own would have been" : "an incident-power run of this case's grid filled with the incident "
-                    + "medium, for as many steps as the case's run");
+                    + "run's own would have been: " : "") + (strip ? "the plane wave in the incident medium on a strip of "
+                    + "a few columns with the same Bloch-periodic sides, PMLs, source row and steps (the discrete "
+                    + "one-dimensional problem: the full width repeats it with the phase exp(i kx x)), its lines spread "
+                    + "over the width" : "an incident-power run of this case's whole grid filled with the incident "
+                    + "medium, for as many steps as the case's run"));
             m.put("origin", origin);
             m.put("key", key);
             m.put("measurement_wall_time_s", measured.wallSeconds());
@@ -152,7 +158,7 @@ public final class IncidentPowerCache {
     public Obtained obtain(FluxPlan plan, long steps, Supplier<Measured> measure) {
         String key = key(plan, steps);
         if (!enabled) {
-            return new Obtained(false, key, "measured by this run", measure.get());
+            return new Obtained(false, key, "measured by this run", measure.get(), plan.strip().isPresent());
         }
         synchronized (locks.computeIfAbsent(key, k -> new Object())) {
             List<FluxLine> recorders = plan.recorders();
@@ -168,7 +174,7 @@ public final class IncidentPowerCache {
             if (e != null && fits(e, recorders)) {
                 restore(e, recorders);
                 remember(key, e);
-                return new Obtained(true, key, origin, e.measured());
+                return new Obtained(true, key, origin, e.measured(), plan.strip().isPresent());
             }
             Measured m = measure.get();
             e = capture(m, recorders);
@@ -176,7 +182,7 @@ public final class IncidentPowerCache {
             if (folder != null) {
                 write(key, steps, e);
             }
-            return new Obtained(false, key, "measured by this run", m);
+            return new Obtained(false, key, "measured by this run", m, plan.strip().isPresent());
         }
     }
 
