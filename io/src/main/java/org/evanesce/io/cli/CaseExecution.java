@@ -24,6 +24,7 @@ import org.evanesce.solver.record.Snapshots;
 import org.evanesce.io.run.CaseRunner;
 import org.evanesce.io.run.FluxResults;
 import org.evanesce.io.run.FluxTable;
+import org.evanesce.io.run.IncidentPowerCache;
 import org.evanesce.io.run.Plausibility;
 import org.evanesce.io.run.ProgressLine;
 import org.evanesce.io.run.RunOutputs;
@@ -58,6 +59,13 @@ final class CaseExecution {
     static Finished run(CaseOptions.Loaded l, Map<String, String> overrides, RunFolder rf, PrintWriter o,
                         double progressSeconds, boolean table, Checkpoints checkpoints, List<String> commandLine)
             throws IOException {
+        return run(l, overrides, rf, o, progressSeconds, table, checkpoints, commandLine, IncidentPowerCache.none());
+    }
+
+    /** The same, taking the incident-power run's result from {@code incident} where it holds one of the same key. */
+    static Finished run(CaseOptions.Loaded l, Map<String, String> overrides, RunFolder rf, PrintWriter o,
+                        double progressSeconds, boolean table, Checkpoints checkpoints, List<String> commandLine,
+                        IncidentPowerCache incident) throws IOException {
         CasePlan plan = l.plan();
         CaseSpec s = plan.spec();
         boolean terminal = System.console() != null;
@@ -84,7 +92,7 @@ final class CaseExecution {
                         } catch (IOException e) {
                             throw new UncheckedIOException("writing the fields at the end of the run: " + e.getMessage(), e);
                         }
-                    }, checkpoints);
+                    }, checkpoints, incident);
         } catch (UncheckedIOException e) {
             throw e.getCause();
         } finally {
@@ -108,7 +116,13 @@ final class CaseExecution {
             warnings.addAll(flux.warnings()); // e.g. a beam's reference that did not converge
         }
         if (flux != null || !decays.isEmpty()) {
-            rf.writeText("summary.json", Json.write(RunOutputs.summary(plan, flux, decays, settling, warnings)));
+            Map<String, Object> summary = RunOutputs.summary(plan, flux, decays, settling, warnings);
+            if (flux != null && r.incidentPower() != null && summary.get("flux") instanceof Map<?, ?> fm) {
+                @SuppressWarnings("unchecked")
+                Map<String, Object> f = (Map<String, Object>) fm;
+                f.put("incident_power_obtained", r.incidentPower().record());
+            }
+            rf.writeText("summary.json", Json.write(summary));
         }
         if (s.output().writes(OutputSpec.Item.PROBES)) {
             rf.writeText("probes.csv", RunOutputs.probesCsv(plan.probes()));
@@ -121,7 +135,8 @@ final class CaseExecution {
         long cells = (long) plan.grid().nx() * plan.grid().ny();
         o.printf(Locale.ROOT, "done: %d steps in %.1f s (%.0f Mcell/s, %d thread%s)%s; %s%n", r.steps(), r.wallSeconds(),
                 r.cellUpdatesPerSecond(cells) / 1e6, r.threads(), r.threads() == 1 ? "" : "s",
-                plan.flux().isPresent() ? String.format(Locale.ROOT, ", incident-power run %.1f s", r.incidentPowerRunWallSeconds()) : "",
+                r.incidentPower() == null ? "" : r.incidentPower().reused() ? ", incident power reused"
+                        : String.format(Locale.ROOT, ", incident-power run %.1f s", r.incidentPowerRunWallSeconds()),
                 r.stopReason());
         if (flux != null && table) {
             FluxTable.print(o, flux);

@@ -68,12 +68,16 @@ public final class CheckCommand implements Callable<Integer> {
                 }
                 double sec = (System.nanoTime() - t0) * 1e-9;
                 double rate = steps / sec;
-                // a flux case runs an incident-power run of the same grid for as many steps
-                int runs = plan.flux().isPresent() ? 2 : 1;
+                // a flux case runs an incident-power run of the same grid for as many steps (a plane wave's: a strip
+                // of a few columns, counted at its share of the cells)
+                var strip = plan.flux().flatMap(f -> f.strip());
+                double runs = plan.flux().isEmpty() ? 1 : 1 + (strip.isPresent()
+                        ? (double) strip.get().columns() / plan.grid().nx() : 1);
                 o.printf(Locale.ROOT, "trial: %d steps in %.2f s (%.0f Mcell/s); estimated run time "
                         + "%.0f s%s%s%n", steps, sec, rate * cells / 1e6, runs * maxSteps / rate,
                         plan.stop() instanceof CasePlan.Stop.Decay ? " at most" : "",
-                        runs == 2 ? " (with the incident-power run)" : "");
+                        plan.flux().isEmpty() ? "" : strip.isPresent() ? " (with the incident-power run on a strip)"
+                                : " (with the incident-power run)");
             }
         }
         Path png = preview != null ? preview : defaultPreview(options.caseFile);

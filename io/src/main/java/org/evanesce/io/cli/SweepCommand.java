@@ -33,6 +33,7 @@ import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.CasePlanner;
 import org.evanesce.io.plan.PlanException;
 import org.evanesce.io.run.CaseRunner;
+import org.evanesce.io.run.IncidentPowerCache;
 import org.evanesce.io.run.RunOutputs;
 import org.evanesce.io.sweep.Parallelism;
 import org.evanesce.io.sweep.PointHash;
@@ -260,9 +261,16 @@ public final class SweepCommand implements Callable<Integer> {
         SweepRunner runner = new SweepRunner(folder, points.size(), finishedBefore, o, System.console() != null);
         List<SweepRunner.Task> tasks = todo.stream().map(r -> new SweepRunner.Task(r.point(),
                 SweepRunner.pointRecord(r.point(), r.overrides(), r.hash(), version, build))).toList();
+        // the incident-power run is done once per distinct set-up (a sweep over the scene needs one) and kept in the folder
+        IncidentPowerCache incident = IncidentPowerCache.inFolder(folder.dir(), note -> {
+            synchronized (o) {
+                o.println("note: " + note);
+                o.flush();
+            }
+        });
         SweepRunner.Outcome outcome = runner.run(tasks, choice.parallel(), choice.threadsPerPoint(),
                 (p, rf, pointOut, threads) -> runPoint(caseText, caseFile, caseSha, all.get(p.number()).overrides(), rf, pointOut,
-                        threads));
+                        threads, incident));
 
         boolean complete = all.stream().allMatch(r -> folder.finished(r.point().number(), r.hash()));
         int code = ExitCode.OK;
@@ -418,7 +426,7 @@ public final class SweepCommand implements Callable<Integer> {
 
     /** One point: read and plan the case with the point's overrides, run it into the folder. */
     private void runPoint(String caseText, Path caseFile, String caseSha, Map<String, String> ov,
-                          org.evanesce.io.output.RunFolder rf, PrintWriter pointOut, int threads)
+                          org.evanesce.io.output.RunFolder rf, PrintWriter pointOut, int threads, IncidentPowerCache incident)
             throws SweepRunner.PointFailed, IOException {
         try {
             LoadedCase lc = CaseReader.parse(caseText, caseFile.toString(), ov, ReadOptions.defaults());
@@ -433,8 +441,8 @@ public final class SweepCommand implements Callable<Integer> {
                         progressSeconds, false, spec.commandLine().getParseResult().originalArgs());
                 return;
             }
-            CaseExecution.run(new CaseOptions.Loaded(lc, plan, caseSha), ov, rf, pointOut, progressSeconds, false,
-                    spec.commandLine().getParseResult().originalArgs());
+            CaseExecution.run(new CaseOptions.Loaded(lc, plan, caseSha), ov, rf, pointOut, progressSeconds, false, null,
+                    spec.commandLine().getParseResult().originalArgs(), incident);
         } catch (CaseFileException | PlanException e) {
             throw new SweepRunner.PointFailed("the case no longer reads: " + e.getMessage().lines().findFirst().orElse(""), e);
         } catch (DivergenceException | RunFailedException | CaseRunner.RefusedException e) {

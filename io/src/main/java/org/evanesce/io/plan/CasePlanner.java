@@ -181,7 +181,10 @@ public final class CasePlanner {
         probes.forEach(p -> b.listener(p.probe()));
         Optional<FluxPlan> flux = Optional.empty();
         if (spec.flux().isPresent()) {
-            flux = Optional.of(FluxPlanner.plan(spec, grid, interior(sides, grid), materials, b, configured, stop, dt, errors));
+            IncidentKey.Setup setup = new IncidentKey.Setup(spec.polarization().value(), spec.numerics().precision().value(),
+                    courant, sides, sources, sheets);
+            flux = Optional.of(FluxPlanner.plan(spec, grid, interior(sides, grid), materials, b, configured, setup, stop, dt,
+                    errors));
             if (!errors.isEmpty()) {
                 throw new PlanException(errors);
             }

@@ -40,12 +40,36 @@ import org.evanesce.solver.reference.PlanarStack;
  *                       for s, the magnetic sheet current in V/m for p), a beam's z field at the waist centre (V/m)
  * @param path           a beam's path line in the incident-power run, when the case compares reflected lines with the
  *                       exact answer (see {@link Path})
+ * @param setupKey       the incident-power run's key without its step count ({@link IncidentKey}): runs of equal
+ *                       keys and steps give the same numbers
+ * @param recorders      every recorder of the incident-power run (its lines, the incident line, a continuous wave's
+ *                       halves, the path line) in the order registered: their state is its whole result
+ * @param strip          for a plane wave with periodic sides (unless the case asks for {@code incident_run: full}): the
+ *                       narrow strip whose run gives the recorders' state instead of the full-width incident-power run
  */
 public record FluxPlan(double[] frequencies, double kx, String medium, double mediumIndex, int direction, List<Line> lines,
                        FluxLine incident, double incidentY, Simulation.Builder reference, double cellSize,
                        Optional<Exact> exact, Optional<SourceSpec.GaussianBeamSource> beam, double gridX0,
                        java.util.function.DoubleBinaryOperator indexAt, Optional<Steady> steady, double lineLength,
-                       double sourceAmplitude, Optional<Path> path) {
+                       double sourceAmplitude, Optional<Path> path, String setupKey, List<FluxLine> recorders,
+                       Optional<Strip> strip) {
+
+    /**
+     * The incident-power run of a Bloch-periodic plane wave done on a strip of a few columns: in a homogeneous medium
+     * the wave's fields repeat from column to column with the phase e^{i kx x}, so the strip's run is the discrete
+     * one-dimensional problem of the full width's, and each full-width recorder is its strip twin spread over the
+     * width ({@link FluxLine#spreadFrom}).
+     *
+     * @param builder the strip's run, ready to build (its recorders registered)
+     * @param lines   the strip's recorders, one per entry of {@link #recorders}, in the same order
+     * @param columns the strip's width in cells
+     */
+    public record Strip(Simulation.Builder builder, List<FluxLine> lines, int columns) {
+        public Strip {
+            lines = List.copyOf(lines);
+        }
+    }
+
 
     /**
      * The steady-state check of a continuous wave (see {@link SteadyState}).
@@ -91,6 +115,7 @@ public record FluxPlan(double[] frequencies, double kx, String medium, double me
     public FluxPlan {
         frequencies = frequencies.clone();
         lines = List.copyOf(lines);
+        recorders = List.copyOf(recorders);
     }
 
     /**

@@ -36,13 +36,14 @@ final class FluxPlanner {
      * @param interior   the nodes outside every PML, {i0, j0, i1, j1} (i1, j1 exclusive)
      * @param run        the case's run, to which the lines are added
      * @param configured makes a builder with the case's sources, sides and numerics for a material grid
+     * @param setup      what {@code configured} configures besides the material grid (for the incident-power run's key)
      * @param stop       when the run ends (a continuous wave's window ends there)
      * @param dt         the time step, s
      * @param errors     receives what cannot be planned
      */
     static FluxPlan plan(CaseSpec spec, GridSpec grid, int[] interior, Map<String, Material> materials,
                          Simulation.Builder run, Function<MaterialGrid, Simulation.Builder> configured,
-                         CasePlan.Stop stop, double dt, List<Diagnostic> errors) {
+                         IncidentKey.Setup setup, CasePlan.Stop stop, double dt, List<Diagnostic> errors) {
         FluxSpec f = spec.flux().orElseThrow();
         SourceSpec.Launched w = PlaneWaves.launched(spec).orElseThrow();
         // lines span the whole width with periodic sides, else the interior between the side PMLs
@@ -56,9 +57,13 @@ final class FluxPlanner {
         var pol = spec.polarization().value();
         MaterialGrid homogeneous = Rasterizer.rasterize(Scene.builder(materials.get(medium.name())).build(), grid,
                 Smoothing.ANISOTROPIC);
-        Simulation.Builder reference = configured.apply(homogeneous);
         SteadyState steady = w.signal() instanceof SignalSpec.RampedWave rw
                 ? continuousWindow(spec, grid, rw, stop.maxSteps() * dt, errors) : null;
+        Recorders reference = new Recorders(configured.apply(homogeneous), new IncidentKey(setup, homogeneous), freqs,
+                steady, pol);
+        if (periodic && f.incidentRun().value() == FluxSpec.IncidentRun.AUTO && grid.nx() > STRIP_COLUMNS) {
+            reference.strip(setup, materials.get(medium.name()), grid);
+        }
         List<FluxPlan.Line> lines = new ArrayList<>();
         List<FluxLine[]> runHalves = new ArrayList<>();
         List<FluxLine[]> referenceHalves = new ArrayList<>();
@@ -67,11 +72,11 @@ final class FluxPlanner {
             FluxLine a = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
             FluxLine b = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
             run.listener(a);
-            reference.listener(b);
+            reference.add("line", b);
             lines.add(new FluxPlan.Line(l, row, grid.y0() + (row + 0.5) * dx, a, b));
             if (steady != null) {
                 runHalves.add(halves(steady, a, freqs, pol, run));
-                referenceHalves.add(halves(steady, b, freqs, pol, reference));
+                referenceHalves.add(reference.halves(steady, b, freqs, pol));
             }
         }
         int sourceRow = CasePlanner.nearest(w.y().si(), grid.y0(), dx, w.component().value().dy);
@@ -83,9 +88,9 @@ final class FluxPlanner {
                     + "the %s edge", INCIDENT_OFFSET, dir > 0 ? "top" : "bottom")));
         }
         FluxLine incident = windowed(new FluxLine(pol, Math.max(0, incidentRow), i0, i1, freqs), steady);
-        reference.listener(incident);
+        reference.add("incident line", incident);
         Optional<FluxPlan.Steady> check = steady == null ? Optional.empty() : Optional.of(new FluxPlan.Steady(steady,
-                runHalves, referenceHalves, halves(steady, incident, freqs, pol, reference)));
+                runHalves, referenceHalves, reference.halves(steady, incident, freqs, pol)));
         Optional<FluxPlan.Exact> exact = f.transferMatrix().value()
                 ? transferMatrix(spec, grid, w, interior, errors) : Optional.empty();
         Optional<SourceSpec.GaussianBeamSource> beam = w instanceof SourceSpec.GaussianBeamSource b
@@ -95,14 +100,100 @@ final class FluxPlanner {
             int row = pathRow(lines, exact.get().firstInterface(), incidentRow, dir, grid, interior);
             if (row >= 0) {
                 FluxLine l = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
-                reference.listener(l);
+                reference.add("path line", l);
                 path = Optional.of(new FluxPlan.Path(l, grid.y0() + (row + 0.5) * dx));
             }
         }
         return new FluxPlan(freqs, PlaneWaves.kx(spec), medium.name(), medium.index(), dir, lines, incident,
-                grid.y0() + (incidentRow + 0.5) * dx, reference, dx, exact, beam, grid.x0(),
+                grid.y0() + (incidentRow + 0.5) * dx, reference.builder, dx, exact, beam, grid.x0(),
                 (x, y) -> spec.materials().get(spec.materialAt(x, y)).index(), check, (i1 - i0) * dx,
-                w.amplitude().si(), path);
+                w.amplitude().si(), path, reference.key.hex(), reference.lines, reference.strip());
+    }
+
+    /** Columns of the strip that stands for a Bloch-periodic plane wave's incident-power run. */
+    static final int STRIP_COLUMNS = 3;
+
+    /**
+     * The incident-power run's builder, its recorders in the order registered, and its key over them; for a plane
+     * wave with periodic sides also the strip of {@value #STRIP_COLUMNS} columns that computes the same recorders
+     * (each full-width recorder has its strip twin, see {@link FluxPlan.Strip}).
+     */
+    private static final class Recorders {
+        final Simulation.Builder builder;
+        final IncidentKey key;
+        final List<FluxLine> lines = new ArrayList<>();
+        final double[] freqs;
+        final SteadyState steady;
+        final org.evanesce.solver.grid.Polarization pol;
+        private Simulation.Builder strip;
+        private final List<FluxLine> stripLines = new ArrayList<>();
+
+        Recorders(Simulation.Builder builder, IncidentKey key, double[] freqs, SteadyState steady,
+                  org.evanesce.solver.grid.Polarization pol) {
+            this.builder = builder;
+            this.key = key;
+            this.freqs = freqs;
+            this.steady = steady;
+            this.pol = pol;
+        }
+
+        /**
+         * Adds the strip: the incident medium on {@value #STRIP_COLUMNS} columns of the grid's height with the same
+         * Bloch sides, PMLs and numerics, driven by the sources' first columns (a plane wave's row repeats with the
+         * phase e^{i kx x}, so these are the same terms). Call before any recorder is added.
+         */
+        void strip(IncidentKey.Setup setup, Material medium, GridSpec grid) {
+            GridSpec g = new GridSpec(grid.x0(), grid.y0(), grid.cellSize(), STRIP_COLUMNS, grid.ny());
+            MaterialGrid m = Rasterizer.rasterize(Scene.builder(medium).build(), g, Smoothing.ANISOTROPIC);
+            Simulation.Builder b = Simulation.builder(m).polarization(setup.polarization()).precision(setup.precision())
+                    .courant(setup.courant()).threads(1);
+            setup.sides().forEach(b::boundary);
+            for (org.evanesce.solver.source.Source s : setup.sources()) {
+                List<Integer> cells = new ArrayList<>();
+                List<double[]> amp = new ArrayList<>();
+                for (int t = 0; t < s.cells().length; t++) {
+                    int i = s.cells()[t] % grid.nx();
+                    int j = s.cells()[t] / grid.nx();
+                    if (i < STRIP_COLUMNS) {
+                        cells.add(j * STRIP_COLUMNS + i);
+                        amp.add(new double[] {s.amplitudes()[t], s.imagAmplitudes()[t]});
+                    }
+                }
+                b.source(new org.evanesce.solver.source.Source(s.component(), cells.stream().mapToInt(Integer::intValue).toArray(),
+                        amp.stream().mapToDouble(a -> a[0]).toArray(), amp.stream().mapToDouble(a -> a[1]).toArray(), s.signal()));
+            }
+            strip = b;
+            key.method("strip of " + STRIP_COLUMNS + " columns");
+        }
+
+        Optional<FluxPlan.Strip> strip() {
+            return strip == null ? Optional.empty() : Optional.of(new FluxPlan.Strip(strip, stripLines, STRIP_COLUMNS));
+        }
+
+        void add(String what, FluxLine l) {
+            add(what, l, -1);
+        }
+
+        /** @param half −1 for the whole window, 0 or 1 for a continuous wave's early or late half */
+        private void add(String what, FluxLine l, int half) {
+            builder.listener(l);
+            lines.add(l);
+            String window = steady == null ? "whole run" : steady + (half < 0 ? "" : half == 0 ? " early half" : " late half");
+            key.recorder(what, l.row(), l.firstCell(), l.cells(), freqs, window);
+            if (strip != null) {
+                FluxLine s = new FluxLine(pol, l.row(), 0, STRIP_COLUMNS, freqs);
+                s = half >= 0 ? steady.halfLine(s, half, freqs, pol) : windowed(s, steady);
+                strip.listener(s);
+                stripLines.add(s);
+            }
+        }
+
+        FluxLine[] halves(SteadyState steady, FluxLine like, double[] frequencies, org.evanesce.solver.grid.Polarization pol) {
+            FluxLine[] h = {steady.halfLine(like, 0, frequencies, pol), steady.halfLine(like, 1, frequencies, pol)};
+            add("early half", h[0], 0);
+            add("late half", h[1], 1);
+            return h;
+        }
     }
 
     /** The path line lies at least this many cells along the beam's travel from the incident line, or is left out. */

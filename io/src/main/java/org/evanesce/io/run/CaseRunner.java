@@ -22,15 +22,18 @@ public final class CaseRunner {
      * @param finalEnergy    energy inside the PMLs at the end, J/m (NaN if never measured)
      * @param peakEnergy     largest energy measured, J/m (NaN if never measured)
      * @param bytes          bytes of field, coefficient and PML arrays
-     * @param incidentPowerRunWallSeconds wall time of the flux normalisation's incident-power run (0 when there is none)
+     * @param incidentPowerRunWallSeconds wall time of the flux normalisation's incident-power run in this run (0 when there is
+     *                       none, or when its result was reused)
      * @param resumedFromStep the step the run continued from a checkpoint at, or −1
      * @param stoppedByLimit the run ended at its time limit before its fields decayed as asked (a decay stop only)
      * @param incidentPowerRunFinalEnergy energy inside the PMLs of the incident-power run at its end, J/m (NaN without one)
      * @param incidentPowerRunPeakEnergy  the largest energy measured in the incident-power run, J/m (NaN without one)
+     * @param incidentPower  how the incident power was obtained (measured or reused), null without flux
      */
     public record Result(long steps, double wallSeconds, int threads, String stopReason, double finalEnergy,
                          double peakEnergy, long bytes, double incidentPowerRunWallSeconds, long resumedFromStep,
-                         boolean stoppedByLimit, double incidentPowerRunFinalEnergy, double incidentPowerRunPeakEnergy) {
+                         boolean stoppedByLimit, double incidentPowerRunFinalEnergy, double incidentPowerRunPeakEnergy,
+                         IncidentPowerCache.Obtained incidentPower) {
 
         /** The energy at the end over the largest measured, or NaN when never measured (0 when none ever arrived). */
         public double energyFraction() {
@@ -112,6 +115,16 @@ public final class CaseRunner {
      */
     public static Result run(CasePlan plan, Consumer<Progress.Report> progress, double progressSeconds,
                              Consumer<org.evanesce.solver.record.StepView> atEnd, Checkpoints ck) {
+        return run(plan, progress, progressSeconds, atEnd, ck, IncidentPowerCache.none());
+    }
+
+    /**
+     * The same, with the incident-power run's result taken from {@code incident} when it holds one of the same
+     * set-up and steps (see {@link IncidentPowerCache}), else measured and kept there.
+     */
+    public static Result run(CasePlan plan, Consumer<Progress.Report> progress, double progressSeconds,
+                             Consumer<org.evanesce.solver.record.StepView> atEnd, Checkpoints ck,
+                             IncidentPowerCache incident) {
         JitWarmUp.run(plan.spec().polarization().value(), plan.spec().numerics().precision().value());
         try (Simulation sim = build(plan)) {
             if (progress != null) {
@@ -182,23 +195,48 @@ public final class CaseRunner {
                 byLimit = true;
             }
             double[] reference = {0, Double.NaN, Double.NaN};
+            IncidentPowerCache.Obtained obtained = null;
             if (plan.flux().isPresent()) {
-                reference = runIncidentPower(plan, sim.stepCount(), progress, progressSeconds);
-                reason += "; the incident-power run took the same number of steps";
+                long steps = sim.stepCount();
+                obtained = incident.obtain(plan.flux().get(), steps, () -> {
+                    double[] m = runIncidentPower(plan, steps, progress, progressSeconds);
+                    return new IncidentPowerCache.Measured(m[0], m[1], m[2]);
+                });
+                IncidentPowerCache.Measured m = obtained.measured();
+                reference = new double[] {obtained.reused() ? 0 : m.wallSeconds(), m.finalEnergy(), m.peakEnergy()};
+                reason += obtained.reused() ? "; the incident power was reused from an incident-power run of the same set-up "
+                        + "and number of steps (" + obtained.origin() + ")" : "; the incident-power run took the same number of steps";
             }
             return new Result(sim.stepCount(), wall, sim.threads(), reason, energy, peak, sim.bytes(), reference[0],
-                    resumedFrom, byLimit, reference[1], reference[2]);
+                    resumedFrom, byLimit, reference[1], reference[2], obtained);
         }
     }
 
     /**
-     * Runs the flux normalisation's reference (the case's grid filled with the plane wave's medium) for
-     * exactly as many steps as the case's run, so both transforms cover the same time window.
+     * Runs the flux normalisation's reference (the case's grid filled with the plane wave's medium, or the strip that
+     * stands for it, see {@link org.evanesce.io.plan.FluxPlan.Strip}) for exactly as many steps as the case's run, so
+     * both transforms cover the same time window.
      *
-     * @return its wall time, s, its energy inside the PMLs at the end and the largest measured, J/m
+     * @return its wall time, s, its energy inside the PMLs at the end and the largest measured, J/m (a strip's scaled
+     *         to the full width)
      */
     private static double[] runIncidentPower(CasePlan plan, long steps, Consumer<Progress.Report> progress, double progressSeconds) {
-        Simulation.Builder b = plan.flux().orElseThrow().reference();
+        org.evanesce.io.plan.FluxPlan f = plan.flux().orElseThrow();
+        if (f.strip().isPresent()) {
+            var s = f.strip().get();
+            int[] r = plan.interior();
+            double[] m = step(plan, s.builder(), steps, null, progressSeconds, new int[] {0, r[1], s.columns(), r[3]});
+            for (int k = 0; k < s.lines().size(); k++) {
+                f.recorders().get(k).spreadFrom(s.lines().get(k), f.kx(), f.cellSize());
+            }
+            double widths = (double) (r[2] - r[0]) / s.columns();
+            return new double[] {m[0], m[1] * widths, m[2] * widths};
+        }
+        return step(plan, f.reference(), steps, progress, progressSeconds, plan.interior());
+    }
+
+    private static double[] step(CasePlan plan, Simulation.Builder b, long steps, Consumer<Progress.Report> progress,
+                                 double progressSeconds, int[] r) {
         Simulation ref;
         try {
             ref = b.build();
@@ -211,7 +249,6 @@ public final class CaseRunner {
                 ref.addListener(new Progress(steps, progressSeconds, progress));
             }
             long t0 = System.nanoTime();
-            int[] r = plan.interior();
             double energy = Double.NaN;
             double peak = 0;
             while (ref.stepCount() < steps) {

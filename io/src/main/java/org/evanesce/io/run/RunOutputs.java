@@ -184,6 +184,9 @@ public final class RunOutputs {
         run.put("memory_bytes", r.bytes());
         if (plan.flux().isPresent()) {
             run.put("incident_power_run_wall_time_s", r.incidentPowerRunWallSeconds());
+            if (r.incidentPower() != null) {
+                run.put("incident_power", r.incidentPower().record());
+            }
         }
         run.put("final_energy_j_per_m", r.finalEnergy());
         run.put("peak_energy_j_per_m", r.peakEnergy());

@@ -20,7 +20,8 @@ import org.snakeyaml.engine.v2.exceptions.YamlEngineException;
 /**
  * A sweep's folder: {@code sweep.json}, one complete run folder per finished point
  * ({@code point-NNNN/}, written under a temporary name by {@link org.evanesce.io.output.RunFolder} and
- * renamed when finished), and the merged {@code sweep.csv} and {@code sweep.png}. Shards of one sweep
+ * renamed when finished), the merged {@code sweep.csv} and {@code sweep.png}, and the incident-power results
+ * its points share ({@code incident-power-KEY.bin}, {@link org.evanesce.io.run.IncidentPowerCache}). Shards of one sweep
  * may work in the same folder at once: each touches only its own points' folders, and the shared
  * files are written whole under a unique temporary name and renamed.
  */
@@ -72,7 +73,7 @@ public final class SweepFolder {
             if (m.matches()) {
                 return points.contains(Integer.parseInt(m.group(1)));
             }
-            return sweepFiles && SWEEP_FILES.contains(name);
+            return sweepFiles && (SWEEP_FILES.contains(name) || org.evanesce.io.run.IncidentPowerCache.isCacheFile(name));
         });
     }
 
@@ -101,7 +102,7 @@ public final class SweepFolder {
     public static boolean ours(String name) {
         return SWEEP_FILES.contains(name) || POINT.matcher(name).matches() || name.matches("slurm-\\d+_\\d+\\.out")
                 || name.matches(SampleSummary.HISTOGRAM_PATTERN)
-                || Leftovers.isTemporary(name);
+                || Leftovers.isTemporary(name) || org.evanesce.io.run.IncidentPowerCache.isCacheFile(name);
     }
 
     /**

@@ -45,7 +45,11 @@ class SweepShardTest {
         assertTrue(first.out().contains("shard 0/2 has 3; 0 finished already, 3 to run"), first.toString());
         assertTrue(first.out().contains("merge with:"), first.toString());
         assertFalse(Files.exists(sharded.resolve("sweep.csv")), "a shard merges only a complete sweep");
-        assertEquals(List.of("point-0000", "point-0002", "point-0004", "sweep.json"), names(sharded));
+        // the points' shared incident-power result (one set-up: only the gap changes) is kept beside them
+        List<String> kept = names(sharded);
+        assertEquals(1, kept.stream().filter(org.evanesce.io.run.IncidentPowerCache::isCacheFile).count(), kept.toString());
+        assertEquals(List.of("point-0000", "point-0002", "point-0004", "sweep.json"),
+                kept.stream().filter(n -> !org.evanesce.io.run.IncidentPowerCache.isCacheFile(n)).toList());
 
         SweepCases.Outcome partial = SweepCases.run("sweep", c.toString(), "--out", sharded.toString(), "--merge-only");
         assertEquals(3, partial.code(), partial.toString());
@@ -53,7 +57,10 @@ class SweepShardTest {
                 partial.toString());
         assertEquals(1 + 3 * 2, Files.readAllLines(sharded.resolve("sweep.csv")).size(), "the finished points are merged");
 
-        SweepCases.ok("sweep", c.toString(), "--out", sharded.toString(), "--shard", "1/2");
+        SweepCases.Outcome second = SweepCases.ok("sweep", c.toString(), "--out", sharded.toString(), "--shard", "1/2");
+        // the other shard (another process, as on a cluster) reads the first one's incident-power result
+        assertTrue(second.out().contains("incident power reused") && !second.out().contains("incident-power run took"),
+                second.toString());
         SweepCases.Outcome merged = SweepCases.ok("sweep", c.toString(), "--out", sharded.toString(), "--merge-only");
         assertTrue(merged.out().contains("merged 5 of 5 points"), merged.toString());
         assertArrayEquals(reference, Files.readAllBytes(sharded.resolve("sweep.csv")), "two shards + merge = the whole sweep");

@@ -314,6 +314,42 @@ public final class FluxLine implements StatefulListener {
         return s;
     }
 
+    /**
+     * Sets this line's transforms to those of the full width of a Bloch-periodic plane wave recorded on a narrow
+     * strip: the fields of a wave with in-plane wavenumber kx differ from cell to cell only by the phase
+     * e^{i kx Δx}, so cell i here gets cell 0 of {@code strip} times e^{i kx (i − i0') Δ}, i0' the strip's first
+     * cell (the strip's cell 0 is taken for every cell, so each carries the same flux). The sample counts and
+     * the time step are copied. The two lines must be horizontal, on the same row, with the same frequencies
+     * and windows; {@code strip} is not modified.
+     *
+     * @param kx       the in-plane wavenumber, rad/m
+     * @param cellSize Δ, m
+     */
+    public void spreadFrom(FluxLine strip, double kx, double cellSize) {
+        if (vertical || strip.vertical || strip.row != row || strip.omega.length != omega.length || strip.e != e) {
+            throw new IllegalArgumentException("a line is spread only from a horizontal line of the same row, component and "
+                    + "frequencies");
+        }
+        eSamples = strip.eSamples;
+        hSamples = strip.hSamples;
+        dt = strip.dt;
+        for (int q = 0; q < omega.length; q++) {
+            double er = strip.eRe[q][0];
+            double ei = strip.eIm[q][0];
+            double hr = strip.hRe[q][0];
+            double hi = strip.hIm[q][0];
+            for (int k = 0; k < eRe[q].length; k++) {
+                double phase = kx * (i0 + k - strip.i0) * cellSize;
+                double c = Math.cos(phase);
+                double sn = Math.sin(phase);
+                eRe[q][k] = er * c - ei * sn;
+                eIm[q][k] = er * sn + ei * c;
+                hRe[q][k] = hr * c - hi * sn;
+                hIm[q][k] = hr * sn + hi * c;
+            }
+        }
+    }
+
     /** Bytes held by the accumulators and the per-step scratch ({@link #bytesFor}). */
     public long bytes() {
         return bytesFor(i1 - i0, omega.length);
@@ -331,6 +367,7 @@ public final class FluxLine implements StatefulListener {
     public void writeState(java.io.DataOutput out) throws java.io.IOException {
         out.writeLong(eSamples);
         out.writeLong(hSamples);
+        out.writeDouble(dt);
         for (double[][] a : new double[][][] {eRe, eIm, hRe, hIm}) {
             out.writeInt(a.length);
             for (double[] row : a) {
@@ -343,6 +380,8 @@ public final class FluxLine implements StatefulListener {
     public void readState(java.io.DataInput in) throws java.io.IOException {
         eSamples = in.readLong();
         hSamples = in.readLong();
+        // the time step too, so that a restored line that takes no further step still gives its mean power
+        dt = in.readDouble();
         for (double[][] a : new double[][][] {eRe, eIm, hRe, hIm}) {
             if (in.readInt() != a.length) {
                 throw new java.io.IOException("checkpoint's flux line has another number of frequencies");

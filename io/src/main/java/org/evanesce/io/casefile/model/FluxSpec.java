@@ -13,12 +13,37 @@ import org.evanesce.io.casefile.text.Value;
  * @param lines          at least one line
  * @param transferMatrix whether to write the exact plane-wave answer of the layered scene beside the simulated one
  * @param at             where the {@code flux} section starts
+ * @param incidentRun    how the incident power is obtained ({@code incident_run})
  */
-public record FluxSpec(List<Value> frequencies, List<Line> lines, Located<Boolean> transferMatrix, SourcePosition at) {
+public record FluxSpec(List<Value> frequencies, List<Line> lines, Located<Boolean> transferMatrix, SourcePosition at,
+                       Located<IncidentRun> incidentRun) {
 
     public FluxSpec {
         frequencies = List.copyOf(frequencies);
         lines = List.copyOf(lines);
+    }
+
+    /** The same with the default {@code incident_run: auto}. */
+    public FluxSpec(List<Value> frequencies, List<Line> lines, Located<Boolean> transferMatrix, SourcePosition at) {
+        this(frequencies, lines, transferMatrix, at, new Located<>(IncidentRun.AUTO, at));
+    }
+
+    /** How the incident power is obtained. */
+    public enum IncidentRun {
+        /** A plane wave with periodic sides: a strip two cells wide with the same sides; a beam: the full grid. */
+        AUTO("auto"),
+        /** Always the full grid filled with the incident medium. */
+        FULL("full");
+
+        private final String caseName;
+
+        IncidentRun(String caseName) {
+            this.caseName = caseName;
+        }
+
+        public String caseName() {
+            return caseName;
+        }
     }
 
     /** What a line's power is reported as. */

@@ -65,7 +65,18 @@ final class FluxReader {
             ok &= b != null;
             tmm = new Located<>(b != null && b, ctx.pos(tn));
         }
-        return ok ? new FluxSpec(frequencies, lines, tmm, v.at()) : null;
+        Node rn = v.get("incident_run");
+        Located<FluxSpec.IncidentRun> run = new Located<>(FluxSpec.IncidentRun.AUTO, v.at());
+        if (rn != null) {
+            Map<String, FluxSpec.IncidentRun> runs = new LinkedHashMap<>();
+            for (FluxSpec.IncidentRun r : FluxSpec.IncidentRun.values()) {
+                runs.put(r.caseName(), r);
+            }
+            FluxSpec.IncidentRun r = ctx.choice(rn, v.path("incident_run"), runs);
+            ok &= r != null;
+            run = new Located<>(r, ctx.pos(rn));
+        }
+        return ok ? new FluxSpec(frequencies, lines, tmm, v.at(), run) : null;
     }
 
     /**
