@@ -79,7 +79,20 @@ public final class Rasterizer {
      *                  subpixel smoothing
      */
     public static MaterialGrid rasterize(Scene scene, GridSpec grid, Smoothing smoothing) {
-        return new Run(scene, grid).rasterize(smoothing);
+        return rasterize(scene, grid, smoothing, m -> false);
+    }
+
+    /**
+     * The same, with the materials {@code sharp} accepts never averaged: a pixel cut by an interface of such a
+     * material keeps its point-sampled material (a staircase there), while interfaces between other
+     * materials are smoothed. For dispersive materials (metals), whose stand-in entry holds ε∞ only, so that an
+     * average with it would mean nothing.
+     */
+    public static MaterialGrid rasterize(Scene scene, GridSpec grid, Smoothing smoothing,
+                                         java.util.function.Predicate<Material> sharp) {
+        Run run = new Run(scene, grid);
+        run.sharp = sharp;
+        return run.rasterize(smoothing);
     }
 
     /** State of one rasterisation. */
@@ -98,6 +111,8 @@ public final class Rasterizer {
         private int[] tileStart;
         private int[] tileShapes;
         private int tilesX;
+        /** Materials never averaged with their neighbours. */
+        private java.util.function.Predicate<Material> sharp = m -> false;
 
         Run(Scene scene, GridSpec grid) {
             g = grid;
@@ -238,7 +253,10 @@ public final class Rasterizer {
                     }
                 }
                 int p = (int) pixel;
-                builder.put(site, p, resolve(site, p % nx, p / nx, cut, m));
+                int id = resolve(site, p % nx, p / nx, cut, m);
+                if (id >= 0) {
+                    builder.put(site, p, id);
+                }
             }
         }
 
@@ -326,7 +344,10 @@ public final class Rasterizer {
             }
         }
 
-        /** The smoothed material of a cut pixel: partial shapes with fractions over the base. */
+        /**
+         * The smoothed material of a cut pixel: partial shapes with fractions over the base; −1 when one of
+         * them is {@link #sharp} (the pixel keeps its point-sampled material).
+         */
         private int mix(FieldSite site, int base, int[] partial, PixelCut[] cuts, double[] frac, int np) {
             double baseFrac = 1;
             double eps = 0;
@@ -351,6 +372,13 @@ public final class Rasterizer {
             }
             if (single) {
                 return first;
+            }
+            boolean anySharp = sharp.test(materials[base]);
+            for (int q = 0; q < np; q++) {
+                anySharp |= sharp.test(materials[partial[q]]);
+            }
+            if (anySharp) {
+                return -1; // keep the point-sampled material
             }
             baseFrac = Math.max(0, baseFrac);
             Material bm = materials[base];

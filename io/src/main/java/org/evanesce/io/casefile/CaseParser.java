@@ -11,6 +11,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import org.evanesce.geometry.PhysicalConstants;
+import org.evanesce.geometry.dispersion.WavelengthBand;
 import org.evanesce.io.casefile.Context.Expect;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Quantity;
@@ -128,6 +129,10 @@ final class CaseParser {
         }
         readSources(top.require("sources", "a list of sources"));
         readDesignWavelength(top);
+        // flux and maps before the materials: a metal's model is checked (or fitted) over the run's band
+        flux = new FluxReader(ctx).read(top.get("flux"), top.has("flux") ? top.keyAt("flux") : top.at(), centreFrequency());
+        maps = new OutputReader(ctx).readMaps(top.get("maps"), top.has("maps") ? top.keyAt("maps") : top.at(), centreFrequency());
+        mapsFailed = top.has("maps") && maps == null;
         readMaterials(top.get("materials"));
         Node d = top.require("domain", "a mapping with width and height");
         if (d != null) {
@@ -142,9 +147,6 @@ final class CaseParser {
         }
         readBoundaries(top.get("boundaries"), top.has("boundaries") ? top.keyAt("boundaries") : top.at());
         readProbes(top.get("probes"));
-        flux = new FluxReader(ctx).read(top.get("flux"), top.has("flux") ? top.keyAt("flux") : top.at(), centreFrequency());
-        maps = new OutputReader(ctx).readMaps(top.get("maps"), top.has("maps") ? top.keyAt("maps") : top.at(), centreFrequency());
-        mapsFailed = top.has("maps") && maps == null;
         Node o = top.get("output");
         readOutput(o == null ? null : MapView.of(ctx, o, Schema.OUTPUT, "output", top.keyAt("output")));
         Node s = top.require("until", "a mapping with time, steps or latest (and energy_below)");
@@ -231,6 +233,11 @@ final class CaseParser {
     private MaterialSpec readMaterial(MapView v, String name, SourcePosition at) {
         if (v == null) {
             return null;
+        }
+        if (MetalReader.isMetal(v)) {
+            MetalReader.Pending metal = new MetalReader(ctx).read(v, name, at);
+            WavelengthBand band = RunBand.of(designWavelength, sources, flux, maps);
+            return metal == null || band == null ? null : metal.resolve(band);
         }
         String how = v.oneOf(false, "index", "permittivity", "library");
         Node c = v.get("conductivity");

@@ -136,6 +136,11 @@ final class PlaneWaveChecks {
             }
         }
         MaterialSpec m = p.used.get(first);
+        if (m != null && m.isDispersive()) {
+            ctx.error(w.y().at(), path + ".y", String.format("the launching line lies in %s, a dispersive (metal) material; the "
+                    + "incident medium must be a transparent dielectric for its angle and power to be defined", m.name()));
+            return null;
+        }
         if (m != null && m.conductivity().si() != 0) {
             ctx.error(w.y().at(), path + ".y", String.format("the launching line lies in %s, which conducts (%s S/m); the incident "
                     + "medium must be transparent for its angle and power to be defined", m.name(),

@@ -151,9 +151,26 @@ public final class CasePlanner {
             }
             sources.forEach(sb::source);
             sheets.forEach(sb::incident);
+            dispersive(m, materials).forEach(sb::dispersive);
             return sb;
         };
-        MaterialGrid mg = Rasterizer.rasterize(scene, grid, Smoothing.ANISOTROPIC);
+        java.util.Set<Material> standIns = new java.util.HashSet<>();
+        spec.materials().values().stream().filter(MaterialSpec::isDispersive).forEach(ms -> standIns.add(materials.get(ms.name())));
+        MaterialGrid mg = Rasterizer.rasterize(scene, grid, Smoothing.ANISOTROPIC, standIns::contains);
+        if (!standIns.isEmpty()) {
+            long metalBytes = Simulation.dispersiveFootprint(mg, spec.polarization().value(), spec.numerics().precision().value(),
+                    sides, dispersive(mg, materials));
+            MaterialSpec first = spec.materials().values().stream().filter(MaterialSpec::isDispersive).findFirst().orElseThrow();
+            memory = memory.with(new MemoryEstimate.Item("dispersive cells' currents", metalBytes, first.at(),
+                    "materials." + first.name(), "a larger cell or less metal"));
+            if (memory.total() > memoryLimit) {
+                error(first.at(), "materials." + first.name(), String.format("the run needs about %s of memory (%s) but the JVM "
+                        + "may use at most %s; give the JVM more memory (e.g. JAVA_OPTS=-Xmx%dg) or use a larger cell",
+                        MemoryEstimate.format(memory.total()), memory.breakdown(), MemoryEstimate.format(memoryLimit),
+                        (long) Math.ceil(memory.total() * 1.25 / (1L << 30))));
+                throw new PlanException(errors);
+            }
+        }
         Simulation.Builder b = configured.apply(mg);
         probes.forEach(p -> b.listener(p.probe()));
         Optional<FluxPlan> flux = Optional.empty();
@@ -320,6 +337,11 @@ public final class CasePlanner {
         Map<String, Material> out = new HashMap<>();
         for (MaterialSpec m : spec.materials().values()) {
             double eps = m.relativePermittivity().si();
+            if (m.isDispersive()) {
+                // the grid's stand-in entry: the engine replaces its εr, σ by the model's update; ε∞ sets the Courant limit
+                out.put(m.name(), new Material(m.name(), eps, 0));
+                continue;
+            }
             if (correct && m.conductivity().si() == 0) {
                 double omega = 2 * Math.PI * wave.orElseThrow().signal().frequency().si();
                 try {
@@ -335,6 +357,24 @@ public final class CasePlanner {
                 }
             }
             out.put(m.name(), new Material(m.name(), eps, m.conductivity().si()));
+        }
+        return out;
+    }
+
+    /**
+     * The dispersive materials of a grid by their stand-in entry's index (entries the grid does not hold, such as
+     * a metal in the incident-power run, are left out).
+     */
+    private Map<Integer, org.evanesce.geometry.dispersion.DispersiveMaterial> dispersive(MaterialGrid grid,
+            Map<String, Material> materials) {
+        Map<Integer, org.evanesce.geometry.dispersion.DispersiveMaterial> out = new java.util.TreeMap<>();
+        for (MaterialSpec m : spec.materials().values()) {
+            if (m.isDispersive()) {
+                int idx = grid.materials().indexOf(materials.get(m.name()));
+                if (idx >= 0) {
+                    out.put(idx, m.dispersion().orElseThrow().material());
+                }
+            }
         }
         return out;
     }
