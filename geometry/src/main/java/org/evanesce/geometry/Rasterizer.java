@@ -79,20 +79,35 @@ public final class Rasterizer {
      *                  subpixel smoothing
      */
     public static MaterialGrid rasterize(Scene scene, GridSpec grid, Smoothing smoothing) {
-        return rasterize(scene, grid, smoothing, m -> false);
+        return new Run(scene, grid).rasterize(smoothing);
     }
 
     /**
-     * The same, with the materials {@code sharp} accepts never averaged: a pixel cut by an interface of such a
-     * material keeps its point-sampled material (a staircase there), while interfaces between other
-     * materials are smoothed. For dispersive materials (metals), whose stand-in entry holds ε∞ only, so that an
-     * average with it would mean nothing.
+     * The same, with pixels cut by a face of a material {@code rule} {@linkplain FaceRule#applies applies to}
+     * resolved by the rule instead of the subpixel average (for dispersive materials, whose table entry is a
+     * stand-in holding ε∞ only, so that the average of the entries would mean nothing).
      */
-    public static MaterialGrid rasterize(Scene scene, GridSpec grid, Smoothing smoothing,
-                                         java.util.function.Predicate<Material> sharp) {
+    public static MaterialGrid rasterize(Scene scene, GridSpec grid, Smoothing smoothing, FaceRule rule) {
         Run run = new Run(scene, grid);
-        run.sharp = sharp;
+        run.rule = rule;
         return run.rasterize(smoothing);
+    }
+
+    /** How a cut pixel with a material that may not be averaged by its table entry is resolved. */
+    public interface FaceRule {
+
+        /** Whether {@code m}'s faces are resolved by {@link #mix}. */
+        boolean applies(Material m);
+
+        /**
+         * The material of a cut site, or null to keep the point-sampled one (a staircase there).
+         *
+         * @param constituents the materials in the site's pixel (not modified)
+         * @param fractions    their filling fractions, summing to 1 (not modified)
+         * @param normalWeight (u·n)² of the site's field direction u and the face normal n, generalised as in the
+         *                     class comment: 0 for a field tangential to every face in the pixel (always for Ez)
+         */
+        Material mix(FieldSite site, Material[] constituents, double[] fractions, double normalWeight);
     }
 
     /** State of one rasterisation. */
@@ -111,8 +126,8 @@ public final class Rasterizer {
         private int[] tileStart;
         private int[] tileShapes;
         private int tilesX;
-        /** Materials never averaged with their neighbours. */
-        private java.util.function.Predicate<Material> sharp = m -> false;
+        /** Resolves pixels cut by faces of materials not averaged by their entries; null: none. */
+        private FaceRule rule;
 
         Run(Scene scene, GridSpec grid) {
             g = grid;
@@ -345,8 +360,8 @@ public final class Rasterizer {
         }
 
         /**
-         * The smoothed material of a cut pixel: partial shapes with fractions over the base; −1 when one of
-         * them is {@link #sharp} (the pixel keeps its point-sampled material).
+         * The smoothed material of a cut pixel: partial shapes with fractions over the base; with a {@link #rule}
+         * that applies to one of them, the rule's material, or −1 (the pixel keeps its point-sampled material).
          */
         private int mix(FieldSite site, int base, int[] partial, PixelCut[] cuts, double[] frac, int np) {
             double baseFrac = 1;
@@ -373,14 +388,26 @@ public final class Rasterizer {
             if (single) {
                 return first;
             }
-            boolean anySharp = sharp.test(materials[base]);
-            for (int q = 0; q < np; q++) {
-                anySharp |= sharp.test(materials[partial[q]]);
-            }
-            if (anySharp) {
-                return -1; // keep the point-sampled material
-            }
             baseFrac = Math.max(0, baseFrac);
+            if (rule != null) {
+                boolean applies = rule.applies(materials[base]);
+                for (int q = 0; q < np; q++) {
+                    applies |= rule.applies(materials[partial[q]]);
+                }
+                if (applies) {
+                    Material[] ms = new Material[np + 1];
+                    double[] fs = new double[np + 1];
+                    for (int q = 0; q < np; q++) {
+                        ms[q] = materials[partial[q]];
+                        fs[q] = frac[q];
+                    }
+                    ms[np] = materials[base];
+                    fs[np] = baseFrac;
+                    double w = site == FieldSite.EZ ? 0 : len > 0 ? (site == FieldSite.EX ? txx : tyy) / len : 0.5;
+                    Material r = rule.mix(site, ms, fs, w);
+                    return r == null ? -1 : builder.idOf(r); // -1: keep the point-sampled material
+                }
+            }
             Material bm = materials[base];
             eps += baseFrac * bm.relativePermittivity();
             inv += baseFrac / bm.relativePermittivity();

@@ -79,7 +79,7 @@ final class NkTableReader {
                     + "folder, inside it");
             return null;
         }
-        Path caseDir = Path.of(caseFile).toAbsolutePath().getParent();
+        Path caseDir = Path.of(caseFile).toAbsolutePath().normalize().getParent();
         Path file = caseDir.resolve(rel).normalize();
         if (!file.startsWith(caseDir)) {
             ctx.error(s.start(), path, "'" + text + "' lies outside the case file's folder " + caseDir + "; put the table in it "

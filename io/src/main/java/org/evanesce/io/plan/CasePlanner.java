@@ -154,9 +154,12 @@ public final class CasePlanner {
             dispersive(m, materials).forEach(sb::dispersive);
             return sb;
         };
-        java.util.Set<Material> standIns = new java.util.HashSet<>();
-        spec.materials().values().stream().filter(MaterialSpec::isDispersive).forEach(ms -> standIns.add(materials.get(ms.name())));
-        MaterialGrid mg = Rasterizer.rasterize(scene, grid, Smoothing.ANISOTROPIC, standIns::contains);
+        Map<Material, org.evanesce.geometry.dispersion.DispersiveMaterial> standIns = new HashMap<>();
+        spec.materials().values().stream().filter(MaterialSpec::isDispersive)
+                .forEach(ms -> standIns.put(materials.get(ms.name()), ms.dispersion().orElseThrow().material()));
+        MetalFaces faces = new MetalFaces(standIns);
+        MaterialGrid mg = Rasterizer.rasterize(scene, grid, Smoothing.ANISOTROPIC, faces);
+        faceMixtures = faces.mixtures();
         if (!standIns.isEmpty()) {
             long metalBytes = Simulation.dispersiveFootprint(mg, spec.polarization().value(), spec.numerics().precision().value(),
                     sides, dispersive(mg, materials));
@@ -376,8 +379,17 @@ public final class CasePlanner {
                 }
             }
         }
+        faceMixtures.forEach((standIn, model) -> {
+            int idx = grid.materials().indexOf(standIn);
+            if (idx >= 0) {
+                out.put(idx, model);
+            }
+        });
         return out;
     }
+
+    /** The face averages of metals the rasteriser made ({@link MetalFaces}), by stand-in entry. */
+    private Map<Material, org.evanesce.geometry.dispersion.DispersiveMaterial> faceMixtures = Map.of();
 
     /**
      * The Courant number must lie below the 2D limit 1/√2 scaled by √εr of the smallest permittivity
