@@ -253,7 +253,14 @@ final class CaseParser {
             Value n = ctx.positive(v.get("index"), v.path("index"), Expect.PLAIN);
             eps = n == null ? null : new Value(n.si() * n.si(), n.at());
         } else if ("permittivity".equals(how)) {
-            eps = ctx.positive(v.get("permittivity"), v.path("permittivity"), Expect.PLAIN);
+            eps = ctx.value(v.get("permittivity"), v.path("permittivity"), Expect.PLAIN);
+            if (eps != null && !(eps.si() > 0)) {
+                ctx.error(eps.at(), v.path("permittivity"), "must be positive, got " + Units.number(eps.si()) + (eps.si() < 0
+                        ? "; a metal's negative permittivity depends on frequency: give drude/lorentz terms, a library metal "
+                                + "(library: gold), or its measured index (index: 0.18+3.43i at 633 nm); docs/case-file.md, \"Metals\""
+                        : ""));
+                eps = null;
+            }
         } else if ("library".equals(how)) {
             Node ln = v.get("library");
             lib = library(ln, v.path("library"));

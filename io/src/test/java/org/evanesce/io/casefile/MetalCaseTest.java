@@ -125,6 +125,10 @@ class MetalCaseTest {
                 + "as '0.2+3.4i at 633 nm' (n+ki, k >= 0 for a lossy material), with your wavelength"),
                 errors(with("{index: 0.2+3.4i}"), "case.yaml"));
         assertTrue(errors(with("{index: 0.2-3.4i at 633 nm}"), "case.yaml").get(0).contains("is gain"));
+        assertEquals(List.of("case.yaml:5:25: materials.metal.permittivity: must be positive, got -11.7; a metal's negative "
+                + "permittivity depends on frequency: give drude/lorentz terms, a library metal (library: gold), or its measured "
+                + "index (index: 0.18+3.43i at 633 nm); docs/case-file.md, \"Metals\""),
+                errors(with("{permittivity: -11.7}"), "case.yaml"));
         assertTrue(errors(with("{drude: [{plasma_frequency: 9 eV}]}"), "case.yaml").get(0)
                 .contains("drude[0].damping: missing"));
         assertTrue(errors(with("{drude: [{plasma_frequency: 9 um, damping: 0.1 eV}]}"), "case.yaml").get(0)
