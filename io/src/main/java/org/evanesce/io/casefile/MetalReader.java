@@ -159,11 +159,15 @@ final class MetalReader {
         return band -> {
             Complex[] ends = model.atBandEnds(band);
             Complex at0 = model.material().permittivityAtWavelength(wl.si());
-            ctx.warn(where, path, String.format(Locale.ROOT, "%s is a single-wavelength model (%s): ε = %s at %s exactly; "
-                    + "at the run's band ends ε = %s at %s and %s at %s; give a table of n, k over the band for a better one",
-                    name, model.kind() == SingleIndexModel.Kind.DRUDE ? "ε∞ = 1 and one Drude term" : "εr and a conductivity",
-                    eps(at0), Units.format(wl.si(), Dimension.LENGTH), eps(ends[0]), Units.format(band.shortest(), Dimension.LENGTH),
-                    eps(ends[1]), Units.format(band.longest(), Dimension.LENGTH)));
+            String kind = model.kind() == SingleIndexModel.Kind.DRUDE ? "ε∞ = 1 and one Drude term" : "εr and a conductivity";
+            String ends01 = band.shortest() == band.longest()
+                    ? String.format(Locale.ROOT, "the run uses %s only, where ε = %s", Units.format(band.shortest(), Dimension.LENGTH),
+                            eps(ends[0]))
+                    : String.format(Locale.ROOT, "at the run's band ends ε = %s at %s and %s at %s", eps(ends[0]),
+                            Units.format(band.shortest(), Dimension.LENGTH), eps(ends[1]), Units.format(band.longest(), Dimension.LENGTH));
+            ctx.warn(where, path, String.format(Locale.ROOT, "%s is a single-wavelength model (%s): ε = %s at %s exactly; %s; "
+                    + "give a table of n, k over the run's band for a better one", name, kind, eps(at0),
+                    Units.format(wl.si(), Dimension.LENGTH), ends01));
             if (model.kind() == SingleIndexModel.Kind.CONDUCTIVE) {
                 DispersiveMaterial d = model.material();
                 return new MaterialSpec(name, new Value(d.epsInfinity(), where), new Value(d.conductivity(), where),

@@ -116,7 +116,10 @@ class MetalCaseTest {
         Complex want = new Complex(0.18, 3.43).square();
         assertEquals(0, eps(c, OMEGA_633).minus(want).abs(), ROUND_OFF * want.abs());
         assertTrue(c.warnings().stream().anyMatch(w -> w.message().contains("single-wavelength model")
-                && w.message().contains("band ends")), c.warnings().toString());
+                && w.message().contains("the run uses 633 nm only")), c.warnings().toString());
+        LoadedCase wide = read(with("{index: 0.18+3.43i at 633 nm}").replace("until:", "maps: {wavelengths: [600 nm, 700 nm]}\nuntil:")
+                .replace("ramped_wave: {wavelength: 633 nm}", "pulse: {wavelength: 650 nm, bandwidth: 100 nm}"));
+        assertTrue(wide.warnings().stream().anyMatch(w -> w.message().contains("at the run's band ends")), wide.warnings().toString());
     }
 
     @Test
