@@ -82,6 +82,34 @@ public final class Rasterizer {
         return new Run(scene, grid).rasterize(smoothing);
     }
 
+    /**
+     * The same, with pixels cut by a face of a material {@code rule} {@linkplain FaceRule#applies applies to}
+     * resolved by the rule instead of the subpixel average (for dispersive materials, whose table entry is a
+     * stand-in holding ε∞ only, so that the average of the entries would mean nothing).
+     */
+    public static MaterialGrid rasterize(Scene scene, GridSpec grid, Smoothing smoothing, FaceRule rule) {
+        Run run = new Run(scene, grid);
+        run.rule = rule;
+        return run.rasterize(smoothing);
+    }
+
+    /** How a cut pixel with a material that may not be averaged by its table entry is resolved. */
+    public interface FaceRule {
+
+        /** Whether {@code m}'s faces are resolved by {@link #mix}. */
+        boolean applies(Material m);
+
+        /**
+         * The material of a cut site, or null to keep the point-sampled one (a staircase there).
+         *
+         * @param constituents the materials in the site's pixel (not modified)
+         * @param fractions    their filling fractions, summing to 1 (not modified)
+         * @param normalWeight (u·n)² of the site's field direction u and the face normal n, generalised as in the
+         *                     class comment: 0 for a field tangential to every face in the pixel (always for Ez)
+         */
+        Material mix(FieldSite site, Material[] constituents, double[] fractions, double normalWeight);
+    }
+
     /** State of one rasterisation. */
     private static final class Run {
         private final GridSpec g;
@@ -98,6 +126,8 @@ public final class Rasterizer {
         private int[] tileStart;
         private int[] tileShapes;
         private int tilesX;
+        /** Resolves pixels cut by faces of materials not averaged by their entries; null: none. */
+        private FaceRule rule;
 
         Run(Scene scene, GridSpec grid) {
             g = grid;
@@ -238,7 +268,10 @@ public final class Rasterizer {
                     }
                 }
                 int p = (int) pixel;
-                builder.put(site, p, resolve(site, p % nx, p / nx, cut, m));
+                int id = resolve(site, p % nx, p / nx, cut, m);
+                if (id >= 0) {
+                    builder.put(site, p, id);
+                }
             }
         }
 
@@ -326,7 +359,10 @@ public final class Rasterizer {
             }
         }
 
-        /** The smoothed material of a cut pixel: partial shapes with fractions over the base. */
+        /**
+         * The smoothed material of a cut pixel: partial shapes with fractions over the base; with a {@link #rule}
+         * that applies to one of them, the rule's material, or −1 (the pixel keeps its point-sampled material).
+         */
         private int mix(FieldSite site, int base, int[] partial, PixelCut[] cuts, double[] frac, int np) {
             double baseFrac = 1;
             double eps = 0;
@@ -353,6 +389,25 @@ public final class Rasterizer {
                 return first;
             }
             baseFrac = Math.max(0, baseFrac);
+            if (rule != null) {
+                boolean applies = rule.applies(materials[base]);
+                for (int q = 0; q < np; q++) {
+                    applies |= rule.applies(materials[partial[q]]);
+                }
+                if (applies) {
+                    Material[] ms = new Material[np + 1];
+                    double[] fs = new double[np + 1];
+                    for (int q = 0; q < np; q++) {
+                        ms[q] = materials[partial[q]];
+                        fs[q] = frac[q];
+                    }
+                    ms[np] = materials[base];
+                    fs[np] = baseFrac;
+                    double w = site == FieldSite.EZ ? 0 : len > 0 ? (site == FieldSite.EX ? txx : tyy) / len : 0.5;
+                    Material r = rule.mix(site, ms, fs, w);
+                    return r == null ? -1 : builder.idOf(r); // -1: keep the point-sampled material
+                }
+            }
             Material bm = materials[base];
             eps += baseFrac * bm.relativePermittivity();
             inv += baseFrac / bm.relativePermittivity();

@@ -51,7 +51,9 @@ class ExamplePhysicsTest {
             "touch-plate-droplet.yaml", new Check(List.of(Map.of("cpw", "12")), ExamplePhysicsTest::touchPlate),
             "two-prism-attenuator-beam.yaml", new Check(List.of(Map.of("cpw", "10")), ExamplePhysicsTest::twoPrism),
             "tilted-gap-wedge-beam.yaml", new Check(List.of(Map.of("cpw", "10")), ExamplePhysicsTest::tiltedGap),
-            "prism-coupler-film-beam.yaml", new Check(List.of(Map.of("cpw", "6")), ExamplePhysicsTest::prismCoupler));
+            "prism-coupler-film-beam.yaml", new Check(List.of(Map.of("cpw", "6")), ExamplePhysicsTest::prismCoupler),
+            "plasmon-sensor-gold-water.yaml", new Check(List.of(Map.of("cpw", "wl/(n_glass*5nm)")),
+                    ExamplePhysicsTest::plasmonSensor));
 
     static List<Path> examples() throws IOException {
         return ExampleCasesTest.examples();
@@ -253,5 +255,45 @@ class ExamplePhysicsTest {
         // 1.45 for every plane wave of the beam, so nothing propagates into the substrate: T = 0
         near(example, "T into the substrate at 632 nm", 0, ExampleOutputs.flux(outs.get(0), 632.0, "T_transmitted"),
                 COUPLER_T_TOLERANCE);
+    }
+
+    // --- plasmon-sensor-gold-water: the reflectance dip against the three-layer Fresnel formula ------------
+
+    /**
+     * Measured at 5 nm cells (the example's own, faces of the film on node rows): R − formula = −2.8e-4 at 74.8°,
+     * the dip (R = 0.092; the same run at 72°, on the dip's flank, gave −0.020, and −0.006 with 2.5 nm cells). A
+     * wrong angle fails: R = 0.34 at 72°, 0.39 at 78°; so does a staircased film (+0.16 at 72° with 2.5 nm cells,
+     * before the face average).
+     */
+    private static final double PLASMON_R_TOLERANCE = 3e-3;
+
+    private static void plasmonSensor(String example, List<Path> outs) throws IOException {
+        // H. Raether, Surface Plasmons on Smooth and Rough Surfaces (1988), eq. (2.13), the reflectance of the
+        // prism / metal film / dielectric (Born & Wolf, Principles of Optics, sec. 1.6.4 for the p amplitudes):
+        // R = |(r01 + r12 e^{2i kz1 d}) / (1 + r01 r12 e^{2i kz1 d})|², r_ik = (kz_i/ε_i − kz_k/ε_k)/(kz_i/ε_i + kz_k/ε_k)
+        // for p, kz = sqrt(ε k0² − kx²) with Im kz ≥ 0; the gold's ε is the grid's (summary.json, grid_epsilon),
+        // the water's the library fit's at 633 nm
+        String summary = Files.readString(outs.get(0).resolve("summary.json"));
+        java.util.regex.Matcher re = java.util.regex.Pattern.compile("\"grid_epsilon_real\": ([-0-9.eE+]+),\\s*"
+                + "\"grid_epsilon_imaginary\": ([-0-9.eE+]+)").matcher(summary);
+        assertTrue(re.find(), "no grid_epsilon in " + summary);
+        org.evanesce.geometry.Complex gold = new org.evanesce.geometry.Complex(Double.parseDouble(re.group(1)),
+                Double.parseDouble(re.group(2)));
+        double nWater = org.evanesce.io.casefile.model.LibraryMaterial.WATER.index(WAVELENGTH);
+        double k0 = 2 * Math.PI / WAVELENGTH;
+        double kx = k0 * 1.515 * Math.sin(Math.toRadians(74.8));
+        org.evanesce.geometry.Complex[] eps = {org.evanesce.geometry.Complex.real(1.515 * 1.515), gold,
+            org.evanesce.geometry.Complex.real(nWater * nWater)};
+        org.evanesce.geometry.Complex[] q = new org.evanesce.geometry.Complex[3];
+        for (int k = 0; k < 3; k++) {
+            q[k] = eps[k].times(k0 * k0).minus(kx * kx).sqrtUpper().divide(eps[k]);
+        }
+        org.evanesce.geometry.Complex r01 = q[0].minus(q[1]).divide(q[0].plus(q[1]));
+        org.evanesce.geometry.Complex r12 = q[1].minus(q[2]).divide(q[1].plus(q[2]));
+        org.evanesce.geometry.Complex phase = q[1].times(eps[1]).times(2 * 50e-9).timesI().exp();
+        org.evanesce.geometry.Complex r = r01.plus(r12.times(phase)).divide(org.evanesce.geometry.Complex.ONE.plus(r01.times(r12)
+                .times(phase)));
+        near(example, "R at the plasmon dip (74.8 deg, 633 nm)", r.norm(), ExampleOutputs.flux(outs.get(0), 633.0, "R_reflected"),
+                PLASMON_R_TOLERANCE);
     }
 }

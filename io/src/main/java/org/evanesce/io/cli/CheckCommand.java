@@ -52,6 +52,7 @@ public final class CheckCommand implements Callable<Integer> {
                 plan.grid().nx(), plan.grid().ny(), cells, plan.grid().cellSize() * 1e9, plan.materials().materials().size());
         o.printf(Locale.ROOT, "time step: %.4g fs; steps: %s%d%n", plan.dt() * 1e15,
                 plan.stop() instanceof CasePlan.Stop.Decay ? "at most " : "", maxSteps);
+        org.evanesce.io.plan.MaterialReport.lines(plan.spec(), plan.dt()).forEach(o::println);
         o.printf(Locale.ROOT, "memory: about %s in all (%s); the JVM may use %s%n",
                 MemoryEstimate.format(plan.memory().total()), plan.memory().breakdown(),
                 MemoryEstimate.format(Runtime.getRuntime().maxMemory()));

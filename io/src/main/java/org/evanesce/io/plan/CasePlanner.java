@@ -160,9 +160,15 @@ public final class CasePlanner {
             sources.forEach(sb::source);
             sheets.forEach(sb::incident);
             planned.forEach(sb::totalField);
+            dispersive(m, materials).forEach(sb::dispersive);
             return sb;
         };
-        MaterialGrid mg = Rasterizer.rasterize(scene, grid, Smoothing.ANISOTROPIC);
+        Map<Material, org.evanesce.geometry.dispersion.DispersiveMaterial> standIns = new HashMap<>();
+        spec.materials().values().stream().filter(MaterialSpec::isDispersive)
+                .forEach(ms -> standIns.put(materials.get(ms.name()), ms.dispersion().orElseThrow().material()));
+        MetalFaces faces = new MetalFaces(standIns);
+        MaterialGrid mg = Rasterizer.rasterize(scene, grid, Smoothing.ANISOTROPIC, faces);
+        faceMixtures = faces.mixtures();
         for (int k : boxes) {
             SourceSpec.PlaneWaveBox pb = (SourceSpec.PlaneWaveBox) spec.sources().get(k);
             TotalFieldBox box = BoxPlanner.plan(pb, "sources[" + k + "]." + pb.kind(), mg, sides, courant, signal(pb.signal()),
@@ -176,6 +182,20 @@ public final class CasePlanner {
         }
         if (!errors.isEmpty()) {
             throw new PlanException(errors);
+        }
+        if (!standIns.isEmpty()) {
+            long metalBytes = Simulation.dispersiveFootprint(mg, spec.polarization().value(), spec.numerics().precision().value(),
+                    sides, dispersive(mg, materials));
+            MaterialSpec first = spec.materials().values().stream().filter(MaterialSpec::isDispersive).findFirst().orElseThrow();
+            memory = memory.with(new MemoryEstimate.Item("dispersive cells' currents", metalBytes, first.at(),
+                    "materials." + first.name(), "a larger cell or less metal"));
+            if (memory.total() > memoryLimit) {
+                error(first.at(), "materials." + first.name(), String.format("the run needs about %s of memory (%s) but the JVM "
+                        + "may use at most %s; give the JVM more memory (e.g. JAVA_OPTS=-Xmx%dg) or use a larger cell",
+                        MemoryEstimate.format(memory.total()), memory.breakdown(), MemoryEstimate.format(memoryLimit),
+                        (long) Math.ceil(memory.total() * 1.25 / (1L << 30))));
+                throw new PlanException(errors);
+            }
         }
         Simulation.Builder b = configured.apply(mg);
         probes.forEach(p -> b.listener(p.probe()));
@@ -346,6 +366,11 @@ public final class CasePlanner {
         Map<String, Material> out = new HashMap<>();
         for (MaterialSpec m : spec.materials().values()) {
             double eps = m.relativePermittivity().si();
+            if (m.isDispersive()) {
+                // the grid's stand-in entry: the engine replaces its εr, σ by the model's update; ε∞ sets the Courant limit
+                out.put(m.name(), new Material(m.name(), eps, 0));
+                continue;
+            }
             if (correct && m.conductivity().si() == 0) {
                 double omega = 2 * Math.PI * wave.orElseThrow().signal().frequency().si();
                 try {
@@ -364,6 +389,33 @@ public final class CasePlanner {
         }
         return out;
     }
+
+    /**
+     * The dispersive materials of a grid by their stand-in entry's index (entries the grid does not hold, such as
+     * a metal in the incident-power run, are left out).
+     */
+    private Map<Integer, org.evanesce.geometry.dispersion.DispersiveMaterial> dispersive(MaterialGrid grid,
+            Map<String, Material> materials) {
+        Map<Integer, org.evanesce.geometry.dispersion.DispersiveMaterial> out = new java.util.TreeMap<>();
+        for (MaterialSpec m : spec.materials().values()) {
+            if (m.isDispersive()) {
+                int idx = grid.materials().indexOf(materials.get(m.name()));
+                if (idx >= 0) {
+                    out.put(idx, m.dispersion().orElseThrow().material());
+                }
+            }
+        }
+        faceMixtures.forEach((standIn, model) -> {
+            int idx = grid.materials().indexOf(standIn);
+            if (idx >= 0) {
+                out.put(idx, model);
+            }
+        });
+        return out;
+    }
+
+    /** The face averages of metals the rasteriser made ({@link MetalFaces}), by stand-in entry. */
+    private Map<Material, org.evanesce.geometry.dispersion.DispersiveMaterial> faceMixtures = Map.of();
 
     /**
      * The Courant number must lie below the 2D limit 1/√2 scaled by √εr of the smallest permittivity

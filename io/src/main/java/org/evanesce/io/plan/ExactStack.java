@@ -58,7 +58,7 @@ public record ExactStack(java.util.function.DoubleFunction<PlanarStack> stack, P
         GridSpec grid = new GridSpec(r.x(0), r.y(0), r.cellSize().si(), periodic ? r.nx() - 1 : r.nx(), r.ny());
         int[] interior = {pml(spec, Side.LEFT), pml(spec, Side.BOTTOM), grid.nx() - pml(spec, Side.RIGHT),
             grid.ny() - pml(spec, Side.TOP)};
-        Optional<FluxPlan.Exact> exact = FluxPlanner.transferMatrix(spec, grid, w, interior, errors);
+        Optional<FluxPlan.Exact> exact = FluxPlanner.transferMatrix(spec, grid, w, interior, errors, 0);
         if (exact.isEmpty() || !errors.isEmpty()) {
             throw new PlanException(errors);
         }

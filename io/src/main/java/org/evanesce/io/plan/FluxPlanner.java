@@ -92,7 +92,7 @@ final class FluxPlanner {
         Optional<FluxPlan.Steady> check = steady == null ? Optional.empty() : Optional.of(new FluxPlan.Steady(steady,
                 runHalves, referenceHalves, reference.halves(steady, incident, freqs, pol)));
         Optional<FluxPlan.Exact> exact = f.transferMatrix().value()
-                ? transferMatrix(spec, grid, w, interior, errors) : Optional.empty();
+                ? transferMatrix(spec, grid, w, interior, errors, dt) : Optional.empty();
         Optional<SourceSpec.GaussianBeamSource> beam = w instanceof SourceSpec.GaussianBeamSource b
                 ? Optional.of(b) : Optional.empty();
         Optional<FluxPlan.Path> path = Optional.empty();
@@ -278,7 +278,8 @@ final class FluxPlanner {
      * has a flux section (without one, as for a fit, only the stack is read; findings then point at the source).
      */
     static Optional<FluxPlan.Exact> transferMatrix(CaseSpec spec, GridSpec grid, SourceSpec.Launched w,
-                                                          int[] interior, List<Diagnostic> errors) {
+                                                          int[] interior, List<Diagnostic> errors,
+                                                          double dt) {
         FluxSpec f = spec.flux().orElse(null);
         double dx = grid.cellSize();
         double yLow = grid.y0() + interior[1] * dx;
@@ -328,7 +329,7 @@ final class FluxPlanner {
         }
         LayeredProfile.Direction dir = up ? LayeredProfile.Direction.UP : LayeredProfile.Direction.DOWN;
         double firstInterface = up ? first.yHigh() : first.yLow();
-        return Optional.of(new FluxPlan.Exact(wl -> LayeredProfile.stack(bands, spec.materials(), wl, dir), firstInterface,
+        return Optional.of(new FluxPlan.Exact(wl -> LayeredProfile.stack(bands, spec.materials(), wl, dir, dt), firstInterface,
                 column));
     }
 

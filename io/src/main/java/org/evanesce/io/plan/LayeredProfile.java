@@ -166,6 +166,16 @@ public final class LayeredProfile {
      */
     public static PlanarStack stack(List<Band> bands, Map<String, MaterialSpec> materials, double vacuumWavelength,
             Direction direction) {
+        return stack(bands, materials, vacuumWavelength, direction, 0);
+    }
+
+    /**
+     * The same, with each dispersive material's discrete permittivity ε_d(ω, Δt) at time step {@code dt}
+     * (what the grid's update realises, {@code DispersiveMaterial.discretePermittivity}) when dt &gt; 0, so that
+     * a run compared with it differs by the spatial grid alone; dt = 0 gives the continuous model.
+     */
+    public static PlanarStack stack(List<Band> bands, Map<String, MaterialSpec> materials, double vacuumWavelength,
+            Direction direction, double dt) {
         if (bands.isEmpty()) {
             throw new IllegalArgumentException("a stack needs at least one band");
         }
@@ -191,9 +201,9 @@ public final class LayeredProfile {
         }
         List<PlanarStack.Layer> layers = new ArrayList<>();
         for (Band b : crossed.subList(1, Math.max(1, crossed.size() - 1))) {
-            layers.add(new PlanarStack.Layer(complexIndex(material(materials, b), vacuumWavelength), b.thickness()));
+            layers.add(new PlanarStack.Layer(complexIndex(material(materials, b), vacuumWavelength, dt), b.thickness()));
         }
-        Complex exit = complexIndex(material(materials, crossed.get(crossed.size() - 1)), vacuumWavelength);
+        Complex exit = complexIndex(material(materials, crossed.get(crossed.size() - 1)), vacuumWavelength, dt);
         return new PlanarStack(incidence.index(), layers, exit);
     }
 
@@ -204,10 +214,22 @@ public final class LayeredProfile {
      * @param vacuumWavelength λ0, m
      */
     public static Complex complexIndex(MaterialSpec material, double vacuumWavelength) {
+        return complexIndex(material, vacuumWavelength, 0);
+    }
+
+    /**
+     * The complex index; a dispersive material's from its model, continuous ({@code dt} = 0) or discrete at
+     * time step dt &gt; 0 (s).
+     */
+    public static Complex complexIndex(MaterialSpec material, double vacuumWavelength, double dt) {
         if (!(vacuumWavelength > 0) || Double.isInfinite(vacuumWavelength)) {
             throw new IllegalArgumentException(String.format("wavelength %g m must be finite and > 0", vacuumWavelength));
         }
         double omega = 2 * Math.PI * PhysicalConstants.C0 / vacuumWavelength;
+        if (material.isDispersive()) {
+            var d = material.dispersion().orElseThrow().material();
+            return dt > 0 ? d.discreteIndex(omega, dt) : d.index(omega);
+        }
         double sigma = material.conductivity().si();
         return Complex.of(material.relativePermittivity().si(), sigma / (omega * PhysicalConstants.EPS0)).sqrt();
     }
@@ -273,8 +295,10 @@ public final class LayeredProfile {
                     }
                 }
                 double edge = 0.5 * (a + b);
-                bands.add(new Band(current, bandStart, edge));
-                bandStart = edge;
+                if (edge > bandStart) {
+                    bands.add(new Band(current, bandStart, edge));
+                    bandStart = edge;
+                } // else: a sliver where two shapes' faces meet (one point of neither), no band
                 current = spec.materialAt(x, b);
                 lo = b;
             }

@@ -74,6 +74,17 @@ public record MemoryEstimate(List<Item> items) {
     /** One part of the estimate. */
     public record Item(String what, long bytes, SourcePosition at, String path, String reduce) { }
 
+    /**
+     * The estimate with one more part held for the whole run (such as the dispersive cells' state, counted
+     * once the grid is rasterised), kept largest first.
+     */
+    public MemoryEstimate with(Item held) {
+        List<Item> all = new java.util.ArrayList<>(items);
+        all.add(held);
+        all.sort((a, b) -> Long.compare(b.bytes(), a.bytes()));
+        return new MemoryEstimate(List.copyOf(all));
+    }
+
     /** The whole estimate, bytes (Long.MAX_VALUE when it does not fit a long). */
     public long total() {
         long sum = 0;

@@ -46,7 +46,7 @@ public final class Plausibility {
         }
         FluxPlan fp = plan.flux().get();
         CaseSpec s = plan.spec();
-        boolean lossless = s.materials().values().stream().allMatch(m -> m.conductivity().si() == 0);
+        boolean lossless = s.materials().values().stream().allMatch(m -> m.conductivity().si() == 0 && !m.isDispersive());
         boolean planeWave = fp.beam().isEmpty();
         List<String> found = new ArrayList<>();
         for (FluxPlan.Line l : fp.lines()) {

@@ -123,11 +123,15 @@ public final class RunOutputs {
         resolved.put("polarization", s.polarization().value().name().toLowerCase(Locale.ROOT));
         resolved.put("design_wavelength_m", s.designWavelength().si());
         Map<String, Object> mats = new LinkedHashMap<>();
+        Map<String, Object> report = org.evanesce.io.plan.MaterialReport.summary(s, plan.dt());
         for (MaterialSpec ms : s.materials().values()) {
             Map<String, Object> e = new LinkedHashMap<>();
             e.put("relative_permittivity", ms.relativePermittivity().si());
             e.put("conductivity_s_per_m", ms.conductivity().si());
             e.put("library", ms.library().map(Object::toString).orElse(null));
+            @SuppressWarnings("unchecked")
+            Map<String, Object> more = (Map<String, Object>) report.get(ms.name());
+            more.forEach(e::putIfAbsent);
             mats.put(ms.name(), e);
         }
         resolved.put("materials", mats);
@@ -239,6 +243,7 @@ public final class RunOutputs {
         m.put("energy_fraction", settling.energyFraction());
         m.put("settling", settling.record());
         m.put("warnings", runWarnings.stream().map(w -> runWarning(plan, w)).toList());
+        m.put("materials", org.evanesce.io.plan.MaterialReport.summary(plan.spec(), plan.dt()));
         if (flux != null) {
             m.put("flux", flux.summary(plan.flux().orElseThrow()));
         }

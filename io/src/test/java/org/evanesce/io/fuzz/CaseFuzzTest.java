@@ -244,6 +244,14 @@ class CaseFuzzTest {
             Path dir = Files.createDirectories(work.resolve("base-" + b.name().replaceAll("\\W", "_")));
             Path file = dir.resolve("case.yaml");
             Files.writeString(file, b.text());
+            // the n, k tables the examples read sit beside them (docs/gold-jc-nk.csv, cases/gold-jc-nk.csv)
+            for (Path folder : List.of(Path.of("..", "docs"), Path.of("..", "cases"))) {
+                try (Stream<Path> tables = Files.list(folder)) {
+                    for (Path t : tables.filter(p -> p.toString().endsWith(".csv")).toList()) {
+                        Files.copy(t, dir.resolve(t.getFileName()), java.nio.file.StandardCopyOption.REPLACE_EXISTING);
+                    }
+                }
+            }
             Outcome o = command("check", file.toString(), "--trial-seconds", "0");
             // the reference's complete example shows keys this version reads but cannot run
             boolean notRunnable = o.cli.code() == 2 && o.cli.err().contains("not available in this version");

@@ -149,6 +149,11 @@ final class PlaneWaveChecks {
             }
         }
         MaterialSpec m = spec.materials().get(first);
+        if (m != null && m.isDispersive()) {
+            error(w.y().at(), path + ".y", String.format("the launching line lies in %s, a dispersive (metal) material; the "
+                    + "incident medium must be a transparent dielectric for its angle and power to be defined", m.name()));
+            return null;
+        }
         if (m != null && m.conductivity().si() != 0) {
             error(w.y().at(), path + ".y", String.format("the launching line lies in %s, which conducts (%s S/m); the incident "
                     + "medium must be transparent for its angle and power to be defined", m.name(),

@@ -13,6 +13,7 @@ import java.util.Map;
 import java.util.Optional;
 import java.util.Set;
 import org.evanesce.geometry.PhysicalConstants;
+import org.evanesce.geometry.dispersion.WavelengthBand;
 import org.evanesce.io.casefile.sections.Context.Expect;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Quantity;
@@ -171,6 +172,10 @@ final class CaseParser {
         }
         readSources(top.require("sources", "a list of sources"));
         readDesignWavelength(top);
+        // flux and maps before the materials: a metal's model is checked (or fitted) over the run's band
+        flux = new FluxReader(ctx).read(top.get("flux"), top.has("flux") ? top.keyAt("flux") : top.at(), centreFrequency());
+        maps = new OutputReader(ctx).readMaps(top.get("maps"), top.has("maps") ? top.keyAt("maps") : top.at(), centreFrequency());
+        mapsFailed = top.has("maps") && maps == null;
         readMaterials(top.get("materials"));
         Node d = top.require("domain", "a mapping with width and height");
         if (d != null) {
@@ -185,9 +190,6 @@ final class CaseParser {
         }
         readBoundaries(top.get("boundaries"), top.has("boundaries") ? top.keyAt("boundaries") : top.at());
         readProbes(top.get("probes"));
-        flux = new FluxReader(ctx).read(top.get("flux"), top.has("flux") ? top.keyAt("flux") : top.at(), centreFrequency());
-        maps = new OutputReader(ctx).readMaps(top.get("maps"), top.has("maps") ? top.keyAt("maps") : top.at(), centreFrequency());
-        mapsFailed = top.has("maps") && maps == null;
         Node o = top.get("output");
         readOutput(o == null ? null : MapView.of(ctx, o, Schema.OUTPUT, "output", top.keyAt("output")));
         Node s = top.require("until", "a mapping with time, steps or latest (and energy_below)");
@@ -275,6 +277,11 @@ final class CaseParser {
         if (v == null) {
             return null;
         }
+        if (MetalReader.isMetal(v)) {
+            MetalReader.Pending metal = new MetalReader(ctx).read(v, name, at);
+            WavelengthBand band = RunBand.of(designWavelength, sources, flux, maps);
+            return metal == null || band == null ? null : metal.resolve(band);
+        }
         String how = v.oneOf(false, "index", "permittivity", "library");
         Node c = v.get("conductivity");
         Value sigma = c == null ? new Value(0, at) : ctx.value(c, v.path("conductivity"), Expect.CONDUCTIVITY);
@@ -289,7 +296,14 @@ final class CaseParser {
             Value n = ctx.positive(v.get("index"), v.path("index"), Expect.PLAIN);
             eps = n == null ? null : new Value(n.si() * n.si(), n.at());
         } else if ("permittivity".equals(how)) {
-            eps = ctx.positive(v.get("permittivity"), v.path("permittivity"), Expect.PLAIN);
+            eps = ctx.value(v.get("permittivity"), v.path("permittivity"), Expect.PLAIN);
+            if (eps != null && !(eps.si() > 0)) {
+                ctx.error(eps.at(), v.path("permittivity"), "must be positive, got " + Units.number(eps.si()) + (eps.si() < 0
+                        ? "; a metal's negative permittivity depends on frequency: give drude/lorentz terms, a library metal "
+                                + "(library: gold), or its measured index (index: 0.18+3.43i at 633 nm); docs/case-file.md, \"Metals\""
+                        : ""));
+                eps = null;
+            }
         } else if ("library".equals(how)) {
             Node ln = v.get("library");
             lib = library(ln, v.path("library"));

@@ -52,7 +52,10 @@ final class Schema {
                             + "decay is now energy_below and limit is now latest")));
     static final Section DOMAIN = new Section("domain", List.of("width", "height", "background"));
     static final Section GRID = new Section("grid", List.of("cell", "cells_per_wavelength"));
-    static final Section MATERIAL = new Section("materials.NAME", List.of("index", "permittivity", "library", "conductivity"));
+    static final Section MATERIAL = new Section("materials.NAME", List.of("index", "permittivity", "library", "conductivity",
+            "drude", "lorentz", "table", "fit_tolerance"));
+    static final Section DRUDE = new Section("materials.NAME.drude[]", List.of("plasma_frequency", "damping"));
+    static final Section LORENTZ = new Section("materials.NAME.lorentz[]", List.of("strength", "resonance", "damping"));
 
     /** The kinds of shape: each list entry has one of these as its only key. */
     static final Section SHAPES = new Section("shapes[]", List.of("rectangle", "polygon", "disk", "ellipse",
@@ -117,7 +120,7 @@ final class Schema {
             "standard_deviation", "low", "high"));
     static final Section SAMPLE_LIMIT = new Section("sweep.sample.require.COLUMN", List.of("min", "max"));
 
-    static final List<Section> ALL = List.of(ROOT, DOMAIN, GRID, MATERIAL, SHAPES, RECTANGLE, POLYGON, DISK,
+    static final List<Section> ALL = List.of(ROOT, DOMAIN, GRID, MATERIAL, DRUDE, LORENTZ, SHAPES, RECTANGLE, POLYGON, DISK,
             ELLIPSE, HALF_PLANE, LAYER_STACK, LAYER, BOUNDARIES, SOURCES, POINT_SOURCE, LINE_SOURCE, PLANE_WAVE, GAUSSIAN_BEAM, PLANE_WAVE_BOX, SIGNAL,
             PULSE, RAMPED_WAVE, GAUSSIAN_DERIVATIVE, PROBE, FLUX, WAVELENGTH_RANGE, FREQUENCY_RANGE, FLUX_LINE, MAPS, MAP_WAVELENGTH_RANGE,
             MAP_FREQUENCY_RANGE, DECAY_LINE, OUTPUT, REGION, UNTIL,

@@ -109,7 +109,8 @@ class CaseFileDocTest {
         assertTrue(examples.size() >= 3, "expected the complete example and the smaller ones");
         Set<String> consumed = new LinkedHashSet<>();
         for (int k = 0; k < examples.size(); k++) {
-            CaseReader.Reading r = CaseReader.reading(examples.get(k), "example" + k + ".yaml", Map.of(), new ReadOptions(Long.MAX_VALUE));
+            // read as if beside the page, so that an example's table (docs/gold-jc-nk.csv) is found
+            CaseReader.Reading r = CaseReader.reading(examples.get(k), DOC.resolveSibling("example" + k + ".yaml").toString(), Map.of(), new ReadOptions(Long.MAX_VALUE));
             String errors = r.context().diagnostics.stream().filter(Diagnostic::isError).map(Diagnostic::toString)
                     .collect(Collectors.joining("\n"));
             assertNotNull(r.spec(), "example " + k + " of the reference has errors:\n" + errors);
