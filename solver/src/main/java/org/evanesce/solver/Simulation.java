@@ -64,6 +64,8 @@ public final class Simulation implements StepView, AutoCloseable {
     private final Map<Integer, DispersiveMaterial> dispersive;
     private final BandTeam.Phase plain;
     private final BandTeam.Phase flushing;
+    /** The recorders the worker threads share after each step (issue 18). */
+    private final SharedRecorders shared;
     private long step;
 
     private Simulation(Builder b, double dt) {
@@ -135,6 +137,8 @@ public final class Simulation implements StepView, AutoCloseable {
         engine.setSources(cells, comps);
         divergenceLimit = b.divergenceLimit > 0 ? b.divergenceLimit : 1e15 * Math.max(1.0, amplitudeSum);
         team = new BandTeam(g.ny(), b.effectiveThreads(), "evanesce-band");
+        shared = new SharedRecorders(this, team.threads());
+        shared.use(listeners);
         plain = (j0, j1, phase) -> engine.sweep(j0, j1, phase, false);
         flushing = (j0, j1, phase) -> engine.sweep(j0, j1, phase, true);
     }
@@ -143,7 +147,11 @@ public final class Simulation implements StepView, AutoCloseable {
         return new Builder(grid);
     }
 
-    /** Advances one time step: magnetic half-step, electric half-step, then the listeners. */
+    /**
+     * Advances one time step: magnetic half-step, electric half-step, then the listeners: first, on the worker
+     * threads, every {@link org.evanesce.solver.record.SharedRecorder} (its serial part before the step), then
+     * the others in the order they were added.
+     */
     public void step() {
         double tH = step * dt;
         double tE = (step + 0.5) * dt;
@@ -174,13 +182,15 @@ public final class Simulation implements StepView, AutoCloseable {
             }
         }
         boolean flush = (step + 1) % flushInterval == 0;
-        double max = team.step(flush ? flushing : plain);
+        double max = team.step(flush ? flushing : plain, shared.prepare());
         step++;
         if (flush && !(max <= divergenceLimit)) {
             throw diverged(max);
         }
         for (StepListener l : listeners) {
-            l.afterStep(this);
+            if (!SharedRecorders.isShared(l)) {
+                l.afterStep(this);
+            }
         }
     }
 
@@ -308,6 +318,7 @@ public final class Simulation implements StepView, AutoCloseable {
     /** Adds a listener called after every step. */
     public void addListener(StepListener l) {
         listeners.add(l);
+        shared.use(listeners);
     }
 
     @Override

@@ -12,15 +12,16 @@ import org.evanesce.solver.grid.Polarization;
  * X(f) = Σ F(t) e^{i2πft} Δt, with complex (Bloch-periodic) fields taken as re + i·im. Node (i, j) of a
  * component stands for its site on the Yee cell ({@link Component#dx}, {@link Component#dy}); no
  * averaging onto common points is done. Each step reads every cell of the rectangle once per component
- * and accumulates all frequencies from that reading.
+ * and accumulates all frequencies from that reading. A simulation shares the rows among its worker threads
+ * ({@link SharedRecorder}); each cell's sums see the same operations in the same order on any thread.
  *
  * <p>Memory: the accumulators hold 2 doubles (re, im) per cell per component per frequency, so
  * {@link #bytes()} = 16 · w · h · 3 · F bytes for a w × h rectangle and F frequencies (e.g. 16 × 200
- * cells at 2 frequencies: 307 200 bytes). The per-row scratch (6w doubles) and the frequency tables
+ * cells at 2 frequencies: 307 200 bytes). The per-row scratch (6w doubles per worker thread) and the frequency tables
  * (4F doubles) are not counted. The accumulators are double; a float variant is not offered, its
  * accuracy over runs of thousands of steps not having been measured.
  */
-public final class FieldMap implements StatefulListener {
+public final class FieldMap implements StatefulListener, SharedRecorder {
 
     private final Component[] components;
     private final int i0;
@@ -31,9 +32,11 @@ public final class FieldMap implements StatefulListener {
     /** DFT accumulators [component][frequency][(j − j0)·w + (i − i0)], real and imaginary parts. */
     private final double[][][] re;
     private final double[][][] im;
-    /** This step's row of every component, real and imaginary parts: [component][i − i0]. */
-    private final double[][] rowRe;
-    private final double[][] rowIm;
+    /** This step's row of every component, real and imaginary parts, per worker: [worker][component][i − i0]. */
+    private double[][][] rowRe;
+    private double[][][] rowIm;
+    /** Whether this step's fields are complex (set by {@link #prepare}). */
+    private boolean complex;
     /** This step's e^{iωt}Δt per frequency, for the electric and the magnetic sample times. */
     private final double[] cosE, sinE, cosH, sinH;
     private double windowStart = Double.NEGATIVE_INFINITY;
@@ -75,8 +78,8 @@ public final class FieldMap implements StatefulListener {
         int cells = w * (j1 - j0);
         re = new double[components.length][nf][cells];
         im = new double[components.length][nf][cells];
-        rowRe = new double[components.length][w];
-        rowIm = new double[components.length][w];
+        rowRe = new double[1][components.length][w];
+        rowIm = new double[1][components.length][w];
         cosE = new double[nf];
         sinE = new double[nf];
         cosH = new double[nf];
@@ -97,7 +100,7 @@ public final class FieldMap implements StatefulListener {
     }
 
     @Override
-    public void afterStep(StepView v) {
+    public boolean prepare(StepView v, int workers) {
         if (!checked) {
             if (i1 > v.nx() || j1 > v.ny()) {
                 throw new IllegalStateException(String.format(
@@ -110,7 +113,7 @@ public final class FieldMap implements StatefulListener {
         double we = te >= windowStart && te < windowEnd ? v.dt() : 0;
         double wh = th >= windowStart && th < windowEnd ? v.dt() : 0;
         if (we == 0 && wh == 0) {
-            return;
+            return false;
         }
         for (int q = 0; q < omega.length; q++) {
             cosE[q] = Math.cos(omega[q] * te) * we;
@@ -118,20 +121,35 @@ public final class FieldMap implements StatefulListener {
             cosH[q] = Math.cos(omega[q] * th) * wh;
             sinH[q] = Math.sin(omega[q] * th) * wh;
         }
+        complex = v.complexFields();
+        if (rowRe.length < workers) {
+            int w = i1 - i0;
+            rowRe = new double[workers][components.length][w];
+            rowIm = new double[workers][components.length][w];
+        }
+        return true;
+    }
+
+    /** The rows of the map: unit u is row j0 + u. */
+    @Override
+    public int units() {
+        return j1 - j0;
+    }
+
+    @Override
+    public void share(StepView v, int u0, int u1, int worker) {
         int w = i1 - i0;
-        boolean complex = v.complexFields();
-        for (int j = j0; j < j1; j++) {
+        double[][] rowsRe = rowRe[worker];
+        double[][] rowsIm = rowIm[worker];
+        for (int j = j0 + u0; j < j0 + u1; j++) {
             int row = (j - j0) * w;
             for (int c = 0; c < components.length; c++) {
-                Component comp = components[c];
-                double[] a = rowRe[c];
-                double[] b = rowIm[c];
-                v.readRow(comp, j, i0, i1, a, complex ? b : null);
+                v.readRow(components[c], j, i0, i1, rowsRe[c], complex ? rowsIm[c] : null);
             }
             for (int c = 0; c < components.length; c++) {
                 boolean electric = components[c].electric;
-                double[] a = rowRe[c];
-                double[] b = rowIm[c];
+                double[] a = rowsRe[c];
+                double[] b = rowsIm[c];
                 for (int q = 0; q < omega.length; q++) {
                     double cs = electric ? cosE[q] : cosH[q];
                     double sn = electric ? sinE[q] : sinH[q];
