@@ -107,6 +107,11 @@ final class SharedRecorders implements BandTeam.After {
         }
 
         @Override
+        public boolean singlePrecision() {
+            return sim.singlePrecision();
+        }
+
+        @Override
         public double field(Component c, int i, int j) {
             return sim.field(c, i, j);
         }

@@ -411,6 +411,11 @@ public final class Simulation implements StepView, AutoCloseable {
     }
 
     @Override
+    public boolean singlePrecision() {
+        return precision == Precision.FLOAT;
+    }
+
+    @Override
     public double fieldImag(Component c, int i, int j) {
         return engine.getImag(c, j * engine.nx() + i);
     }

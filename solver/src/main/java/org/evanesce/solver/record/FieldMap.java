@@ -17,11 +17,24 @@ import org.evanesce.solver.grid.Polarization;
  *
  * <p>Memory: the accumulators hold 2 doubles (re, im) per cell per component per frequency, so
  * {@link #bytes()} = 16 · w · h · 3 · F bytes for a w × h rectangle and F frequencies (e.g. 16 × 200
- * cells at 2 frequencies: 307 200 bytes). The per-row scratch (6w doubles per worker thread) and the frequency tables
- * (4F doubles) are not counted. The accumulators are double; a float variant is not offered, its
- * accuracy over runs of thousands of steps not having been measured.
+ * cells at 2 frequencies: 307 200 bytes). A single-precision run also holds {@link #HELD_STEPS} steps of the
+ * fields as floats ({@link #HELD_BYTES_PER_CELL} per cell, twice that with complex fields), which {@link #bytes()}
+ * does not count. The per-row scratch (6w doubles per worker thread) and the frequency tables
+ * (4F doubles per held step) are not counted either. The accumulators are double; a float variant is not
+ * offered, its accuracy over runs of thousands of steps not having been measured.
  */
 public final class FieldMap implements StatefulListener, SharedRecorder {
+
+    /**
+     * Steps whose fields a single-precision run holds before adding them to the sums: the sums (48 bytes per
+     * cell and frequency, read and written) then move once per 8 steps, the held floats 12 bytes per cell and
+     * step written and read once. Each sum still adds the same products in the same order, so the results are
+     * bitwise those of adding every step at once.
+     */
+    public static final int HELD_STEPS = 8;
+
+    /** Bytes per cell of the map that holding steps adds in a single-precision run (twice that with complex fields). */
+    public static final long HELD_BYTES_PER_CELL = 3L * HELD_STEPS * Float.BYTES;
 
     private final Component[] components;
     private final int i0;
@@ -37,8 +50,23 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
     private double[][][] rowIm;
     /** Whether this step's fields are complex (set by {@link #prepare}). */
     private boolean complex;
-    /** This step's e^{iωt}Δt per frequency, for the electric and the magnetic sample times. */
-    private final double[] cosE, sinE, cosH, sinH;
+    /**
+     * e^{iωt}Δt per held step and frequency, for the electric and the magnetic sample times: [slot][q]
+     * (one slot unless steps are held).
+     */
+    private final double[][] cosE, sinE, cosH, sinH;
+    /**
+     * Single-precision runs: the fields of up to {@link #HELD_STEPS} steps, held as the floats they are and
+     * added to the sums together, so that each sum is read and written once per {@link #HELD_STEPS} steps
+     * instead of every step: [component][slot · w · h + (j − j0)·w + (i − i0)]; the imaginary parts only for
+     * complex fields. Null until the first step decides (double precision holds nothing).
+     */
+    private float[][] heldRe, heldIm;
+    /** Whether steps are held (the fields are single precision); decided at the first step. */
+    private boolean holding;
+    private boolean decided;
+    /** Steps held and not yet added; {@link #HELD_STEPS} once the step that filled the slots has added them. */
+    private int pending;
     private double windowStart = Double.NEGATIVE_INFINITY;
     private double windowEnd = Double.POSITIVE_INFINITY;
     private boolean checked;
@@ -80,10 +108,10 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
         im = new double[components.length][nf][cells];
         rowRe = new double[1][components.length][w];
         rowIm = new double[1][components.length][w];
-        cosE = new double[nf];
-        sinE = new double[nf];
-        cosH = new double[nf];
-        sinH = new double[nf];
+        cosE = new double[HELD_STEPS][nf];
+        sinE = new double[HELD_STEPS][nf];
+        cosH = new double[HELD_STEPS][nf];
+        sinH = new double[HELD_STEPS][nf];
     }
 
     /**
@@ -115,13 +143,26 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
         if (we == 0 && wh == 0) {
             return false;
         }
-        for (int q = 0; q < omega.length; q++) {
-            cosE[q] = Math.cos(omega[q] * te) * we;
-            sinE[q] = Math.sin(omega[q] * te) * we;
-            cosH[q] = Math.cos(omega[q] * th) * wh;
-            sinH[q] = Math.sin(omega[q] * th) * wh;
+        if (pending == HELD_STEPS) {
+            pending = 0;
         }
         complex = v.complexFields();
+        if (!decided) {
+            holding = v.singlePrecision();
+            if (holding) {
+                int cells = (i1 - i0) * (j1 - j0);
+                heldRe = new float[components.length][HELD_STEPS * cells];
+                heldIm = complex ? new float[components.length][HELD_STEPS * cells] : null;
+            }
+            decided = true;
+        }
+        int slot = holding ? pending++ : 0;
+        for (int q = 0; q < omega.length; q++) {
+            cosE[slot][q] = Math.cos(omega[q] * te) * we;
+            sinE[slot][q] = Math.sin(omega[q] * te) * we;
+            cosH[slot][q] = Math.cos(omega[q] * th) * wh;
+            sinH[slot][q] = Math.sin(omega[q] * th) * wh;
+        }
         if (rowRe.length < workers) {
             int w = i1 - i0;
             rowRe = new double[workers][components.length][w];
@@ -141,38 +182,107 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
         int w = i1 - i0;
         double[][] rowsRe = rowRe[worker];
         double[][] rowsIm = rowIm[worker];
+        int cells = w * (j1 - j0);
         for (int j = j0 + u0; j < j0 + u1; j++) {
             int row = (j - j0) * w;
             for (int c = 0; c < components.length; c++) {
                 v.readRow(components[c], j, i0, i1, rowsRe[c], complex ? rowsIm[c] : null);
             }
+            if (!holding) {
+                add(rowsRe, rowsIm, row, w);
+                continue;
+            }
+            int at = (pending - 1) * cells + row;
             for (int c = 0; c < components.length; c++) {
-                boolean electric = components[c].electric;
+                float[] hr = heldRe[c];
                 double[] a = rowsRe[c];
-                double[] b = rowsIm[c];
-                for (int q = 0; q < omega.length; q++) {
-                    double cs = electric ? cosE[q] : cosH[q];
-                    double sn = electric ? sinE[q] : sinH[q];
-                    if (cs == 0 && sn == 0) {
-                        continue;
-                    }
-                    double[] xr = re[c][q];
-                    double[] xi = im[c][q];
-                    if (!complex) {
-                        // real fields: the imaginary parts are zero, and so are their products
-                        for (int k = 0; k < w; k++) {
-                            xr[row + k] += a[k] * cs;
-                            xi[row + k] += a[k] * sn;
-                        }
-                        continue;
-                    }
+                for (int k = 0; k < w; k++) {
+                    hr[at + k] = (float) a[k];
+                }
+                if (complex) {
+                    float[] hi = heldIm[c];
+                    double[] b = rowsIm[c];
                     for (int k = 0; k < w; k++) {
-                        xr[row + k] += a[k] * cs - b[k] * sn;
-                        xi[row + k] += a[k] * sn + b[k] * cs;
+                        hi[at + k] = (float) b[k];
                     }
                 }
             }
         }
+        if (holding && pending == HELD_STEPS) {
+            addHeld(u0 * w, (u1 - u0) * w, HELD_STEPS);
+        }
+    }
+
+    /** Adds held slots 0 .. slots − 1 of the cells [first, first + count) (flat map indices) to the sums. */
+    private void addHeld(int first, int count, int slots) {
+        int cells = (i1 - i0) * (j1 - j0);
+        for (int c = 0; c < components.length; c++) {
+            boolean electric = components[c].electric;
+            float[] a = heldRe[c];
+            float[] b = complex ? heldIm[c] : null;
+            for (int q = 0; q < omega.length; q++) {
+                double[] xr = re[c][q];
+                double[] xi = im[c][q];
+                for (int slot = 0; slot < slots; slot++) {
+                    double cs = electric ? cosE[slot][q] : cosH[slot][q];
+                    double sn = electric ? sinE[slot][q] : sinH[slot][q];
+                    if (cs == 0 && sn == 0) {
+                        continue;
+                    }
+                    int at = slot * cells + first;
+                    if (b == null) {
+                        for (int k = 0; k < count; k++) {
+                            xr[first + k] += a[at + k] * cs;
+                            xi[first + k] += a[at + k] * sn;
+                        }
+                        continue;
+                    }
+                    for (int k = 0; k < count; k++) {
+                        xr[first + k] += a[at + k] * cs - b[at + k] * sn;
+                        xi[first + k] += a[at + k] * sn + b[at + k] * cs;
+                    }
+                }
+            }
+        }
+    }
+
+    /** Adds one step's row of every component (read into {@code rowsRe}, {@code rowsIm}) to the sums of cells [row, row + w). */
+    private void add(double[][] rowsRe, double[][] rowsIm, int row, int w) {
+        int slot = 0;
+        for (int c = 0; c < components.length; c++) {
+            boolean electric = components[c].electric;
+            double[] a = rowsRe[c];
+            double[] b = rowsIm[c];
+            for (int q = 0; q < omega.length; q++) {
+                double cs = electric ? cosE[slot][q] : cosH[slot][q];
+                double sn = electric ? sinE[slot][q] : sinH[slot][q];
+                if (cs == 0 && sn == 0) {
+                    continue;
+                }
+                double[] xr = re[c][q];
+                double[] xi = im[c][q];
+                if (!complex) {
+                    // real fields: the imaginary parts are zero, and so are their products
+                    for (int k = 0; k < w; k++) {
+                        xr[row + k] += a[k] * cs;
+                        xi[row + k] += a[k] * sn;
+                    }
+                    continue;
+                }
+                for (int k = 0; k < w; k++) {
+                    xr[row + k] += a[k] * cs - b[k] * sn;
+                    xi[row + k] += a[k] * sn + b[k] * cs;
+                }
+            }
+        }
+    }
+
+    /** Adds the steps still held (between steps: before the sums are read or saved). */
+    private void settle() {
+        if (holding && pending > 0 && pending < HELD_STEPS) {
+            addHeld(0, (i1 - i0) * (j1 - j0), pending);
+        }
+        pending = 0;
     }
 
     /**
@@ -182,6 +292,7 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
      * @throws IllegalArgumentException if c is not a component of this map's polarization
      */
     public double[][] transform(Component c, int q) {
+        settle();
         int k = index(c);
         return new double[][] {re[k][q].clone(), im[k][q].clone()};
     }
@@ -192,6 +303,7 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
             throw new IllegalArgumentException(String.format("cell (%d, %d) is outside the field map [%d, %d) × [%d, %d)",
                     i, j, i0, i1, j0, j1));
         }
+        settle();
         int k = index(c);
         int t = (j - j0) * (i1 - i0) + (i - i0);
         return new double[] {re[k][q][t], im[k][q][t]};
@@ -268,6 +380,7 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
 
     @Override
     public void writeState(java.io.DataOutput out) throws java.io.IOException {
+        settle();
         for (double[][][] a : new double[][][][] {re, im}) {
             out.writeInt(a.length);
             for (double[][] b : a) {
@@ -281,6 +394,7 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
 
     @Override
     public void readState(java.io.DataInput in) throws java.io.IOException {
+        pending = 0;
         for (double[][][] a : new double[][][][] {re, im}) {
             if (in.readInt() != a.length) {
                 throw new java.io.IOException("checkpoint's field map has another shape");

@@ -52,6 +52,14 @@ public interface StepView {
         return false;
     }
 
+    /**
+     * Whether every field value is a single-precision float (widened to double by {@link #field} and
+     * {@link #readRow}), so that a recorder may hold values as floats without changing them.
+     */
+    default boolean singlePrecision() {
+        return false;
+    }
+
     /** A component's value at node (i, j) (its site is offset per {@link Component}); the real part if complex. */
     double field(Component c, int i, int j);
 

@@ -17,15 +17,16 @@ import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Side;
 import org.evanesce.solver.source.Source;
 import org.evanesce.solver.source.TimeSignal;
-import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
+import org.junit.jupiter.params.provider.ValueSource;
 
 /**
  * Recorders that the worker threads share ({@link SharedRecorder}: field maps, flux lines, flux boxes) give
  * bit for bit what they give when the run's thread alone calls them after each step, for 1, 2 and 3 threads
  * on an awkward grid (121 × 37, threading threshold lowered; common practice, STYLE.md item 5), with real and
- * with complex (Bloch-periodic) fields, and for any split of their units among workers.
+ * with complex (Bloch-periodic) fields, and for any split of their units among workers; a single-precision map
+ * that holds steps before adding them gives the bits of one that adds each step at once.
  */
 class SharedRecorderThreadsTest {
 
@@ -45,32 +46,95 @@ class SharedRecorderThreadsTest {
         }
     }
 
-    /** The split is the simulation's business; any split of the units over any worker numbers must do. */
-    @Test
-    void anySplitOfTheUnitsGivesTheSameBits() {
+    /**
+     * The split is the simulation's business; any split of the units over any worker numbers must do. The split
+     * recorders also hold single-precision steps ({@link FieldMap#HELD_STEPS}) while the plain ones, told the
+     * fields are double, add every step at once; results are read part-way through a batch and the run goes on.
+     */
+    @ParameterizedTest(name = "Bloch sides {0}")
+    @ValueSource(booleans = {false, true})
+    void anySplitOfTheUnitsGivesTheSameBits(boolean bloch) {
         Random random = new Random(18);
         MaterialGrid grid = grid();
         List<SharedRecorder> plain = recorders(Polarization.S);
         List<SharedRecorder> split = recorders(Polarization.S);
-        try (Simulation s = builder(grid, Polarization.S, false, 1).build()) {
-            for (int n = 0; n < 200; n++) {
-                s.step();
-                for (SharedRecorder r : plain) {
-                    r.afterStep(s);
-                }
-                for (SharedRecorder r : split) {
-                    if (r.prepare(s, 4)) {
-                        int u = 0;
-                        while (u < r.units()) {
-                            int next = Math.min(r.units(), u + 1 + random.nextInt(Math.max(1, r.units() / 3)));
-                            r.share(s, u, next, random.nextInt(4));
-                            u = next;
+        try (Simulation s = builder(grid, Polarization.S, bloch, 1).build()) {
+            assertTrue(s.singlePrecision(), "the builder's default precision is single, so the map holds steps");
+            StepView unheld = new Unheld(s);
+            for (int part : new int[] {203, 100}) {
+                for (int n = 0; n < part; n++) {
+                    s.step();
+                    for (SharedRecorder r : plain) {
+                        r.afterStep(unheld);
+                    }
+                    for (SharedRecorder r : split) {
+                        if (r.prepare(s, 4)) {
+                            int u = 0;
+                            while (u < r.units()) {
+                                int next = Math.min(r.units(), u + 1 + random.nextInt(Math.max(1, r.units() / 3)));
+                                r.share(s, u, next, random.nextInt(4));
+                                u = next;
+                            }
                         }
                     }
                 }
+                assertSameBits(results(plain), results(split), "Bloch " + bloch + ": random splits over 4 workers, steps held, vs one call per step, "
+                        + s.stepCount() + " steps");
             }
         }
-        assertSameBits(results(plain), results(split), "random splits over 4 workers vs one call");
+    }
+
+    /** A view that says the fields are double, so that a map adds every step at once. */
+    private record Unheld(StepView v) implements StepView {
+        @Override
+        public long stepCount() {
+            return v.stepCount();
+        }
+
+        @Override
+        public double dt() {
+            return v.dt();
+        }
+
+        @Override
+        public int nx() {
+            return v.nx();
+        }
+
+        @Override
+        public int ny() {
+            return v.ny();
+        }
+
+        @Override
+        public double cellSize() {
+            return v.cellSize();
+        }
+
+        @Override
+        public void readRow(Component c, int j, int i0, int i1, double[] re, double[] im) {
+            v.readRow(c, j, i0, i1, re, im);
+        }
+
+        @Override
+        public boolean complexFields() {
+            return v.complexFields();
+        }
+
+        @Override
+        public double field(Component c, int i, int j) {
+            return v.field(c, i, j);
+        }
+
+        @Override
+        public double fieldImag(Component c, int i, int j) {
+            return v.fieldImag(c, i, j);
+        }
+
+        @Override
+        public double energy(int i0, int j0, int i1, int j1) {
+            return v.energy(i0, j0, i1, j1);
+        }
     }
 
     private static void assertSameBits(List<double[]> expected, List<double[]> actual, String what) {
