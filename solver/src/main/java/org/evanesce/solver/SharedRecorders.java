@@ -102,6 +102,11 @@ final class SharedRecorders implements BandTeam.After {
         }
 
         @Override
+        public boolean readRowFloats(Component c, int j, int i0, int i1, float[] re, float[] im, int at) {
+            return sim.readRowFloats(c, j, i0, i1, re, im, at);
+        }
+
+        @Override
         public boolean complexFields() {
             return sim.complexFields();
         }

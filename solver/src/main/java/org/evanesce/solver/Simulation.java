@@ -406,6 +406,18 @@ public final class Simulation implements StepView, AutoCloseable {
     }
 
     @Override
+    public boolean readRowFloats(Component c, int j, int i0, int i1, float[] re, float[] im, int at) {
+        if (i0 < 0 || i1 > engine.nx() || j < 0 || j >= engine.ny() || i1 < i0) {
+            throw new IndexOutOfBoundsException(String.format("row %d from %d to %d is outside the %d x %d grid", j, i0, i1,
+                    engine.nx(), engine.ny()));
+        }
+        if (!engine.readFloats(c, j * engine.nx() + i0, i1 - i0, re, at)) {
+            return false;
+        }
+        return im == null || engine.readFloatsImag(c, j * engine.nx() + i0, i1 - i0, im, at);
+    }
+
+    @Override
     public boolean complexFields() {
         return engine.isComplex();
     }

@@ -1,5 +1,10 @@
 package org.evanesce.solver.record;
 
+import jdk.incubator.vector.DoubleVector;
+import jdk.incubator.vector.FloatVector;
+import jdk.incubator.vector.VectorOperators;
+import jdk.incubator.vector.VectorSpecies;
+
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
 
@@ -51,7 +56,7 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
     /** Whether this step's fields are complex (set by {@link #prepare}). */
     private boolean complex;
     /**
-     * e^{iωt}Δt per held step and frequency, for the electric and the magnetic sample times: [slot][q]
+     * e^{iωt}Δt per frequency and held step, for the electric and the magnetic sample times: [q][slot]
      * (one slot unless steps are held).
      */
     private final double[][] cosE, sinE, cosH, sinH;
@@ -108,10 +113,10 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
         im = new double[components.length][nf][cells];
         rowRe = new double[1][components.length][w];
         rowIm = new double[1][components.length][w];
-        cosE = new double[HELD_STEPS][nf];
-        sinE = new double[HELD_STEPS][nf];
-        cosH = new double[HELD_STEPS][nf];
-        sinH = new double[HELD_STEPS][nf];
+        cosE = new double[nf][HELD_STEPS];
+        sinE = new double[nf][HELD_STEPS];
+        cosH = new double[nf][HELD_STEPS];
+        sinH = new double[nf][HELD_STEPS];
     }
 
     /**
@@ -158,10 +163,10 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
         }
         int slot = holding ? pending++ : 0;
         for (int q = 0; q < omega.length; q++) {
-            cosE[slot][q] = Math.cos(omega[q] * te) * we;
-            sinE[slot][q] = Math.sin(omega[q] * te) * we;
-            cosH[slot][q] = Math.cos(omega[q] * th) * wh;
-            sinH[slot][q] = Math.sin(omega[q] * th) * wh;
+            cosE[q][slot] = Math.cos(omega[q] * te) * we;
+            sinE[q][slot] = Math.sin(omega[q] * te) * we;
+            cosH[q][slot] = Math.cos(omega[q] * th) * wh;
+            sinH[q][slot] = Math.sin(omega[q] * th) * wh;
         }
         if (rowRe.length < workers) {
             int w = i1 - i0;
@@ -185,61 +190,81 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
         int cells = w * (j1 - j0);
         for (int j = j0 + u0; j < j0 + u1; j++) {
             int row = (j - j0) * w;
+            if (holding) {
+                int at = (pending - 1) * cells + row;
+                for (int c = 0; c < components.length; c++) {
+                    if (!v.readRowFloats(components[c], j, i0, i1, heldRe[c], complex ? heldIm[c] : null, at)) {
+                        throw new IllegalStateException("field map: the view said single precision but gave no single-precision row");
+                    }
+                }
+                continue;
+            }
             for (int c = 0; c < components.length; c++) {
                 v.readRow(components[c], j, i0, i1, rowsRe[c], complex ? rowsIm[c] : null);
             }
-            if (!holding) {
-                add(rowsRe, rowsIm, row, w);
-                continue;
-            }
-            int at = (pending - 1) * cells + row;
-            for (int c = 0; c < components.length; c++) {
-                float[] hr = heldRe[c];
-                double[] a = rowsRe[c];
-                for (int k = 0; k < w; k++) {
-                    hr[at + k] = (float) a[k];
-                }
-                if (complex) {
-                    float[] hi = heldIm[c];
-                    double[] b = rowsIm[c];
-                    for (int k = 0; k < w; k++) {
-                        hi[at + k] = (float) b[k];
-                    }
-                }
-            }
+            add(rowsRe, rowsIm, row, w);
         }
         if (holding && pending == HELD_STEPS) {
             addHeld(u0 * w, (u1 - u0) * w, HELD_STEPS);
         }
     }
 
-    /** Adds held slots 0 .. slots − 1 of the cells [first, first + count) (flat map indices) to the sums. */
+    /** Four doubles a vector (256 bits: the width the kernels measured best, docs/architecture.md) and the floats they come from. */
+    private static final VectorSpecies<Double> DS = DoubleVector.SPECIES_256;
+    private static final VectorSpecies<Float> FS = FloatVector.SPECIES_128;
+
+    /**
+     * Adds held slots 0 .. slots − 1 of the cells [first, first + count) (flat map indices) to the sums, four cells
+     * at a time with the sums in registers over the slots; each sum gets, slot after slot, the products and sums of
+     * the one-step form (no fused multiply-add), so the bits are those of adding every step at once.
+     */
     private void addHeld(int first, int count, int slots) {
         int cells = (i1 - i0) * (j1 - j0);
+        int vectorEnd = first + count - count % DS.length();
         for (int c = 0; c < components.length; c++) {
             boolean electric = components[c].electric;
             float[] a = heldRe[c];
             float[] b = complex ? heldIm[c] : null;
             for (int q = 0; q < omega.length; q++) {
+                double[] cs = electric ? cosE[q] : cosH[q];
+                double[] sn = electric ? sinE[q] : sinH[q];
                 double[] xr = re[c][q];
                 double[] xi = im[c][q];
-                for (int slot = 0; slot < slots; slot++) {
-                    double cs = electric ? cosE[slot][q] : cosH[slot][q];
-                    double sn = electric ? sinE[slot][q] : sinH[slot][q];
-                    if (cs == 0 && sn == 0) {
-                        continue;
-                    }
-                    int at = slot * cells + first;
-                    if (b == null) {
-                        for (int k = 0; k < count; k++) {
-                            xr[first + k] += a[at + k] * cs;
-                            xi[first + k] += a[at + k] * sn;
+                int t = first;
+                for (; t < vectorEnd; t += DS.length()) {
+                    DoubleVector r = DoubleVector.fromArray(DS, xr, t);
+                    DoubleVector i = DoubleVector.fromArray(DS, xi, t);
+                    for (int slot = 0; slot < slots; slot++) {
+                        if (cs[slot] == 0 && sn[slot] == 0) {
+                            continue;
                         }
-                        continue;
+                        int at = slot * cells + t;
+                        DoubleVector f = (DoubleVector) FloatVector.fromArray(FS, a, at).convertShape(VectorOperators.F2D, DS, 0);
+                        if (b == null) {
+                            r = r.add(f.mul(cs[slot]));
+                            i = i.add(f.mul(sn[slot]));
+                        } else {
+                            DoubleVector g = (DoubleVector) FloatVector.fromArray(FS, b, at).convertShape(VectorOperators.F2D, DS, 0);
+                            r = r.add(f.mul(cs[slot]).sub(g.mul(sn[slot])));
+                            i = i.add(f.mul(sn[slot]).add(g.mul(cs[slot])));
+                        }
                     }
-                    for (int k = 0; k < count; k++) {
-                        xr[first + k] += a[at + k] * cs - b[at + k] * sn;
-                        xi[first + k] += a[at + k] * sn + b[at + k] * cs;
+                    r.intoArray(xr, t);
+                    i.intoArray(xi, t);
+                }
+                for (; t < first + count; t++) {
+                    for (int slot = 0; slot < slots; slot++) {
+                        if (cs[slot] == 0 && sn[slot] == 0) {
+                            continue;
+                        }
+                        int at = slot * cells + t;
+                        if (b == null) {
+                            xr[t] += a[at] * cs[slot];
+                            xi[t] += a[at] * sn[slot];
+                        } else {
+                            xr[t] += a[at] * cs[slot] - b[at] * sn[slot];
+                            xi[t] += a[at] * sn[slot] + b[at] * cs[slot];
+                        }
                     }
                 }
             }
@@ -254,8 +279,8 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
             double[] a = rowsRe[c];
             double[] b = rowsIm[c];
             for (int q = 0; q < omega.length; q++) {
-                double cs = electric ? cosE[slot][q] : cosH[slot][q];
-                double sn = electric ? sinE[slot][q] : sinH[slot][q];
+                double cs = electric ? cosE[q][slot] : cosH[q][slot];
+                double sn = electric ? sinE[q][slot] : sinH[q][slot];
                 if (cs == 0 && sn == 0) {
                     continue;
                 }
