@@ -14,7 +14,9 @@
 #                      uses the thread count the run reports
 #   --bench-seconds S  timed seconds per bench repeat (default 2; 3 repeats, the median)
 # The figures drift with other work on the machine: compare examples measured in one sitting only,
-# and on a shared machine call them provisional. Temporary folders are removed when the script ends.
+# and on a shared machine call them provisional. A bench rate marked * did not settle during its
+# warm-up (the bench's CSV column 'settled'): on a very busy machine the JIT compiler itself gets
+# too little time, and that rate means nothing. Temporary folders are removed when the script ends.
 set -euo pipefail
 here="$(cd "$(dirname "$0")/.." && pwd)"
 threads=(); bench_seconds=2; cases=()
@@ -22,7 +24,7 @@ while [[ $# -gt 0 ]]; do
     case "$1" in
         --threads) threads=(--threads "${2:?--threads needs a count}"); shift 2 ;;
         --bench-seconds) bench_seconds=${2:?--bench-seconds needs S}; shift 2 ;;
-        -h|--help) sed -n '2,18p' "$0"; exit 0 ;;
+        -h|--help) sed -n '2,20p' "$0"; exit 0 ;;
         -*) echo "example-speeds: unknown option '$1' (see the header of $0)" >&2; exit 2 ;;
         *) [[ -f "$1" ]] || { echo "example-speeds: case file '$1' not found" >&2; exit 2; }; cases+=("$1"); shift ;;
     esac
@@ -58,9 +60,9 @@ for c in "${cases[@]}"; do
     useful=$(awk -v x="$nx" -v y="$ny" -v s="$steps" -v w="$wall" 'BEGIN { printf "%.1f", x * y * s / w / 1e6 }')
     side=$(awk -v x="$nx" -v y="$ny" 'BEGIN { printf "%d", sqrt(x * y) + 0.5 }')
     bench=$("$here/evanesce" bench --size "$side" --threads "$used" --polarization "${pol:-s}" --seconds "$bench_seconds" \
-        --repeats 3 --csv 2>/dev/null | awk -F, 'NR == 1 { for (i = 1; i <= NF; i++) if ($i == "mcells_per_s") col = i; next }
-        { printf "%.1f", $col }')
-    ratio=$(awk -v u="$useful" -v b="$bench" 'BEGIN { printf "%.2f", b > 0 ? u / b : 0 }')
+        --repeats 3 --csv 2>/dev/null | awk -F, 'NR == 1 { for (i = 1; i <= NF; i++) { if ($i == "mcells_per_s") col = i;
+        if ($i == "settled") st = i }; next } { printf "%.1f%s", $col, ($st == "false" ? "*" : "") }')
+    ratio=$(awk -v u="$useful" -v b="${bench%\*}" 'BEGIN { printf "%.2f", (b > 0 ? u / b : 0) }')
     flux=$(grep -q '^flux:' "$c" && echo yes || echo no)
     printf '%-40s %11s %6s %7s %8s %9s %9s %9s %6s %s\n' "$name" "${nx}x${ny}" "$steps" "$used" "$wall" "$useful" "$rate" \
         "$bench" "$ratio" "$flux"
