@@ -78,7 +78,15 @@ public final class StepProfile {
         Map<String, Integer> methods = new LinkedHashMap<>();
         int total = 0;
         int steps = 0;
-        for (RecordedEvent e : RecordingFile.readAllEvents(Path.of(args[0]))) {
+        List<RecordedEvent> events;
+        try {
+            events = RecordingFile.readAllEvents(Path.of(args[0]));
+        } catch (java.io.IOException e) {
+            System.err.println("StepProfile: cannot read the flight recording " + args[0] + ": " + e.getMessage());
+            System.exit(2);
+            return;
+        }
+        for (RecordedEvent e : events) {
             if (!e.getEventType().getName().equals("jdk.ExecutionSample")) {
                 continue;
             }
