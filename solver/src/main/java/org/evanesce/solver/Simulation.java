@@ -68,6 +68,8 @@ public final class Simulation implements StepView, AutoCloseable {
     private final Map<Integer, DispersiveMaterial> dispersive;
     private final BandTeam.Phase plain;
     private final BandTeam.Phase flushing;
+    /** The recorders the worker threads share after each step (issue 18). */
+    private final SharedRecorders shared;
     private long step;
 
     private Simulation(Builder b, double dt) {
@@ -151,6 +153,8 @@ public final class Simulation implements StepView, AutoCloseable {
         engine.setSources(cells, comps);
         divergenceLimit = b.divergenceLimit > 0 ? b.divergenceLimit : 1e15 * Math.max(1.0, amplitudeSum);
         team = new BandTeam(g.ny(), b.effectiveThreads(), "evanesce-band");
+        shared = new SharedRecorders(this, team.threads());
+        shared.use(listeners);
         plain = (j0, j1, phase) -> engine.sweep(j0, j1, phase, false);
         flushing = (j0, j1, phase) -> engine.sweep(j0, j1, phase, true);
     }
@@ -159,7 +163,11 @@ public final class Simulation implements StepView, AutoCloseable {
         return new Builder(grid);
     }
 
-    /** Advances one time step: magnetic half-step, electric half-step, then the listeners. */
+    /**
+     * Advances one time step: magnetic half-step, electric half-step, then the listeners: first, on the worker
+     * threads, every {@link org.evanesce.solver.record.SharedRecorder} (its serial part before the step), then
+     * the others in the order they were added.
+     */
     public void step() {
         double tH = step * dt;
         double tE = (step + 0.5) * dt;
@@ -197,13 +205,15 @@ public final class Simulation implements StepView, AutoCloseable {
             }
         }
         boolean flush = (step + 1) % flushInterval == 0;
-        double max = team.step(flush ? flushing : plain);
+        double max = team.step(flush ? flushing : plain, shared.prepare());
         step++;
         if (flush && !(max <= divergenceLimit)) {
             throw diverged(max);
         }
         for (StepListener l : listeners) {
-            l.afterStep(this);
+            if (!SharedRecorders.isShared(l)) {
+                l.afterStep(this);
+            }
         }
     }
 
@@ -331,6 +341,7 @@ public final class Simulation implements StepView, AutoCloseable {
     /** Adds a listener called after every step. */
     public void addListener(StepListener l) {
         listeners.add(l);
+        shared.use(listeners);
     }
 
     @Override
@@ -418,8 +429,25 @@ public final class Simulation implements StepView, AutoCloseable {
     }
 
     @Override
+    public boolean readRowFloats(Component c, int j, int i0, int i1, float[] re, float[] im, int at) {
+        if (i0 < 0 || i1 > engine.nx() || j < 0 || j >= engine.ny() || i1 < i0) {
+            throw new IndexOutOfBoundsException(String.format("row %d from %d to %d is outside the %d x %d grid", j, i0, i1,
+                    engine.nx(), engine.ny()));
+        }
+        if (!engine.readFloats(c, j * engine.nx() + i0, i1 - i0, re, at)) {
+            return false;
+        }
+        return im == null || engine.readFloatsImag(c, j * engine.nx() + i0, i1 - i0, im, at);
+    }
+
+    @Override
     public boolean complexFields() {
         return engine.isComplex();
+    }
+
+    @Override
+    public boolean singlePrecision() {
+        return precision == Precision.FLOAT;
     }
 
     @Override

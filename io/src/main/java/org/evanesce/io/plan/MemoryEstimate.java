@@ -162,13 +162,19 @@ public record MemoryEstimate(List<Item> items) {
         if (spec.maps().isPresent()) {
             var m = spec.maps().get();
             long cells = boxCells(m.region().isPresent() ? m.region() : spec.output().region(), grid, interior);
-            long bytes = 2L * 3 * m.frequencies().size() * cells * Double.BYTES;
+            long sums = 2L * 3 * m.frequencies().size() * cells * Double.BYTES;
+            long bytes = sums;
+            if (precision == org.evanesce.solver.grid.Precision.FLOAT) {
+                // the steps a single-precision map holds before adding them (FieldMap.HELD_STEPS), both parts if complex
+                boolean complex = sides.get(Side.LEFT) instanceof Boundary.Bloch;
+                bytes += (complex ? 2 : 1) * org.evanesce.solver.record.FieldMap.HELD_BYTES_PER_CELL * cells;
+            }
             SourcePosition at = m.region().map(OutputSpec.Region::at).orElse(m.at());
             String reduce = "a smaller maps.region or fewer wavelengths";
             held.add(new Item("maps", bytes, at, "maps", reduce));
             // maps.h5 is written at once: the maps averaged onto the nodes and |E| (56 bytes per cell and frequency, the
             // maps hold 48) are all held until then, and the writer adds its rows in single precision: about twice the maps
-            passing.add(new Item("writing maps", 2 * bytes, at, "maps", reduce));
+            passing.add(new Item("writing maps", 2 * sums, at, "maps", reduce));
         }
         if (!spec.probes().isEmpty()) {
             long probes = spec.probes().size();

@@ -138,6 +138,16 @@ final class BlochPair extends Engine {
     }
 
     @Override
+    public boolean readFloats(Component c, int k, int n, float[] dst, int at) {
+        return re.readFloats(c, k, n, dst, at);
+    }
+
+    @Override
+    public boolean readFloatsImag(Component c, int k, int n, float[] dst, int at) {
+        return im.readFloats(c, k, n, dst, at);
+    }
+
+    @Override
     public void setImag(Component c, int k, double v) {
         im.set(c, k, v);
     }

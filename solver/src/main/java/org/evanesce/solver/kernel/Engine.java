@@ -530,6 +530,28 @@ public abstract class Engine {
         java.util.Arrays.fill(dst, 0, n, 0.0);
     }
 
+    /**
+     * Copies n values of a component from flat cell index k onwards into {@code dst} from index {@code at}, as the
+     * single-precision values they are (one array copy); returns false, copying nothing, when the fields are
+     * double precision.
+     */
+    public boolean readFloats(Component c, int k, int n, float[] dst, int at) {
+        if (this instanceof FloatEngine f) {
+            System.arraycopy(f.field(c), k, dst, at, n);
+            return true;
+        }
+        return false;
+    }
+
+    /** The same for the imaginary parts: zeros for a real single-precision engine. */
+    public boolean readFloatsImag(Component c, int k, int n, float[] dst, int at) {
+        if (this instanceof FloatEngine) {
+            java.util.Arrays.fill(dst, at, at + n, 0f);
+            return true;
+        }
+        return false;
+    }
+
     /** Overwrites a component at flat cell index k (for initial conditions and tests). */
     public abstract void set(Component c, int k, double v);
 

@@ -42,6 +42,16 @@ public final class BandTeam implements AutoCloseable {
     }
 
     /**
+     * Work after both phases, once every band has finished them (a further barrier): the thread of band b
+     * runs it with b and its band's rows, e.g. to share the step's recorders in proportion to the band's rows.
+     * Its time counts with the band's working time, so balancing moves it with the rows.
+     */
+    @FunctionalInterface
+    public interface After {
+        void run(int band, int j0, int j1);
+    }
+
+    /**
      * Stepping time per window: 20 ms spans many steps of a large grid's band and smooths over short
      * interruptions, yet follows a slow core or a busy spell within a fraction of a second (common
      * practice for dynamic load balancing: rebalance over windows much longer than one step, damped).
@@ -87,6 +97,7 @@ public final class BandTeam implements AutoCloseable {
     private final AtomicReference<Throwable> failure = new AtomicReference<>();
     /** The current step's work, stepping threads and bands; written by the caller before it raises the gates. */
     private Phase work;
+    private After after;
     private int active;
     private int[] start;
     private volatile boolean closing;
@@ -273,7 +284,21 @@ public final class BandTeam implements AutoCloseable {
         } catch (Throwable e) {
             failure.compareAndSet(null, e);
         }
-        busy[band] += t1 - t0 + clock.getAsLong() - t2;
+        long t3 = clock.getAsLong();
+        long waited = 0;
+        After a = after;
+        if (a != null) {
+            if (active > 1) {
+                mid.await(band);
+                waited = clock.getAsLong() - t3;
+            }
+            try {
+                a.run(band, j0, j1);
+            } catch (Throwable e) {
+                failure.compareAndSet(null, e);
+            }
+        }
+        busy[band] += t1 - t0 + clock.getAsLong() - t2 - waited;
         return Math.max(m0, m1);
     }
 
@@ -306,6 +331,14 @@ public final class BandTeam implements AutoCloseable {
      * bands have finished. Returns the maximum of the values the phases returned (NaN if any was NaN).
      */
     public double step(Phase phase) {
+        return step(phase, null);
+    }
+
+    /**
+     * As {@link #step(Phase)}, then, when {@code then} is not null and every band has finished phase 1,
+     * {@code then} on every band (from the band's thread).
+     */
+    public double step(Phase phase, After then) {
         if (closed) {
             throw new IllegalStateException("band team is closed");
         }
@@ -317,6 +350,7 @@ public final class BandTeam implements AutoCloseable {
         lastStepStart = t0;
         int k = activeThreads();
         work = phase;
+        after = then;
         active = k;
         start = bands(k);
         if (k > 1) {

@@ -1,5 +1,10 @@
 package org.evanesce.solver.record;
 
+import jdk.incubator.vector.DoubleVector;
+import jdk.incubator.vector.FloatVector;
+import jdk.incubator.vector.VectorOperators;
+import jdk.incubator.vector.VectorSpecies;
+
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
 
@@ -12,15 +17,29 @@ import org.evanesce.solver.grid.Polarization;
  * X(f) = Σ F(t) e^{i2πft} Δt, with complex (Bloch-periodic) fields taken as re + i·im. Node (i, j) of a
  * component stands for its site on the Yee cell ({@link Component#dx}, {@link Component#dy}); no
  * averaging onto common points is done. Each step reads every cell of the rectangle once per component
- * and accumulates all frequencies from that reading.
+ * and accumulates all frequencies from that reading. A simulation shares the rows among its worker threads
+ * ({@link SharedRecorder}); each cell's sums see the same operations in the same order on any thread.
  *
  * <p>Memory: the accumulators hold 2 doubles (re, im) per cell per component per frequency, so
  * {@link #bytes()} = 16 · w · h · 3 · F bytes for a w × h rectangle and F frequencies (e.g. 16 × 200
- * cells at 2 frequencies: 307 200 bytes). The per-row scratch (6w doubles) and the frequency tables
- * (4F doubles) are not counted. The accumulators are double; a float variant is not offered, its
- * accuracy over runs of thousands of steps not having been measured.
+ * cells at 2 frequencies: 307 200 bytes). A single-precision run also holds {@link #HELD_STEPS} steps of the
+ * fields as floats ({@link #HELD_BYTES_PER_CELL} per cell, twice that with complex fields), which {@link #bytes()}
+ * does not count. The per-row scratch (6w doubles per worker thread) and the frequency tables
+ * (4F doubles per held step) are not counted either. The accumulators are double; a float variant is not
+ * offered, its accuracy over runs of thousands of steps not having been measured.
  */
-public final class FieldMap implements StatefulListener {
+public final class FieldMap implements StatefulListener, SharedRecorder {
+
+    /**
+     * Steps whose fields a single-precision run holds before adding them to the sums: the sums (48 bytes per
+     * cell and frequency, read and written) then move once per 8 steps, the held floats 12 bytes per cell and
+     * step written and read once. Each sum still adds the same products in the same order, so the results are
+     * bitwise those of adding every step at once.
+     */
+    public static final int HELD_STEPS = 8;
+
+    /** Bytes per cell of the map that holding steps adds in a single-precision run (twice that with complex fields). */
+    public static final long HELD_BYTES_PER_CELL = 3L * HELD_STEPS * Float.BYTES;
 
     private final Component[] components;
     private final int i0;
@@ -31,11 +50,28 @@ public final class FieldMap implements StatefulListener {
     /** DFT accumulators [component][frequency][(j − j0)·w + (i − i0)], real and imaginary parts. */
     private final double[][][] re;
     private final double[][][] im;
-    /** This step's row of every component, real and imaginary parts: [component][i − i0]. */
-    private final double[][] rowRe;
-    private final double[][] rowIm;
-    /** This step's e^{iωt}Δt per frequency, for the electric and the magnetic sample times. */
-    private final double[] cosE, sinE, cosH, sinH;
+    /** This step's row of every component, real and imaginary parts, per worker: [worker][component][i − i0]. */
+    private double[][][] rowRe;
+    private double[][][] rowIm;
+    /** Whether this step's fields are complex (set by {@link #prepare}). */
+    private boolean complex;
+    /**
+     * e^{iωt}Δt per frequency and held step, for the electric and the magnetic sample times: [q][slot]
+     * (one slot unless steps are held).
+     */
+    private final double[][] cosE, sinE, cosH, sinH;
+    /**
+     * Single-precision runs: the fields of up to {@link #HELD_STEPS} steps, held as the floats they are and
+     * added to the sums together, so that each sum is read and written once per {@link #HELD_STEPS} steps
+     * instead of every step: [component][slot · w · h + (j − j0)·w + (i − i0)]; the imaginary parts only for
+     * complex fields. Null until the first step decides (double precision holds nothing).
+     */
+    private float[][] heldRe, heldIm;
+    /** Whether steps are held (the fields are single precision); decided at the first step. */
+    private boolean holding;
+    private boolean decided;
+    /** Steps held and not yet added; {@link #HELD_STEPS} once the step that filled the slots has added them. */
+    private int pending;
     private double windowStart = Double.NEGATIVE_INFINITY;
     private double windowEnd = Double.POSITIVE_INFINITY;
     private boolean checked;
@@ -75,12 +111,12 @@ public final class FieldMap implements StatefulListener {
         int cells = w * (j1 - j0);
         re = new double[components.length][nf][cells];
         im = new double[components.length][nf][cells];
-        rowRe = new double[components.length][w];
-        rowIm = new double[components.length][w];
-        cosE = new double[nf];
-        sinE = new double[nf];
-        cosH = new double[nf];
-        sinH = new double[nf];
+        rowRe = new double[1][components.length][w];
+        rowIm = new double[1][components.length][w];
+        cosE = new double[nf][HELD_STEPS];
+        sinE = new double[nf][HELD_STEPS];
+        cosH = new double[nf][HELD_STEPS];
+        sinH = new double[nf][HELD_STEPS];
     }
 
     /**
@@ -97,7 +133,7 @@ public final class FieldMap implements StatefulListener {
     }
 
     @Override
-    public void afterStep(StepView v) {
+    public boolean prepare(StepView v, int workers) {
         if (!checked) {
             if (i1 > v.nx() || j1 > v.ny()) {
                 throw new IllegalStateException(String.format(
@@ -110,51 +146,168 @@ public final class FieldMap implements StatefulListener {
         double we = te >= windowStart && te < windowEnd ? v.dt() : 0;
         double wh = th >= windowStart && th < windowEnd ? v.dt() : 0;
         if (we == 0 && wh == 0) {
-            return;
+            return false;
         }
+        if (pending == HELD_STEPS) {
+            pending = 0;
+        }
+        complex = v.complexFields();
+        if (!decided) {
+            holding = v.singlePrecision();
+            if (holding) {
+                int cells = (i1 - i0) * (j1 - j0);
+                heldRe = new float[components.length][HELD_STEPS * cells];
+                heldIm = complex ? new float[components.length][HELD_STEPS * cells] : null;
+            }
+            decided = true;
+        }
+        int slot = holding ? pending++ : 0;
         for (int q = 0; q < omega.length; q++) {
-            cosE[q] = Math.cos(omega[q] * te) * we;
-            sinE[q] = Math.sin(omega[q] * te) * we;
-            cosH[q] = Math.cos(omega[q] * th) * wh;
-            sinH[q] = Math.sin(omega[q] * th) * wh;
+            cosE[q][slot] = Math.cos(omega[q] * te) * we;
+            sinE[q][slot] = Math.sin(omega[q] * te) * we;
+            cosH[q][slot] = Math.cos(omega[q] * th) * wh;
+            sinH[q][slot] = Math.sin(omega[q] * th) * wh;
         }
+        if (rowRe.length < workers) {
+            int w = i1 - i0;
+            rowRe = new double[workers][components.length][w];
+            rowIm = new double[workers][components.length][w];
+        }
+        return true;
+    }
+
+    /** The rows of the map: unit u is row j0 + u. */
+    @Override
+    public int units() {
+        return j1 - j0;
+    }
+
+    @Override
+    public void share(StepView v, int u0, int u1, int worker) {
         int w = i1 - i0;
-        boolean complex = v.complexFields();
-        for (int j = j0; j < j1; j++) {
+        double[][] rowsRe = rowRe[worker];
+        double[][] rowsIm = rowIm[worker];
+        int cells = w * (j1 - j0);
+        for (int j = j0 + u0; j < j0 + u1; j++) {
             int row = (j - j0) * w;
-            for (int c = 0; c < components.length; c++) {
-                Component comp = components[c];
-                double[] a = rowRe[c];
-                double[] b = rowIm[c];
-                v.readRow(comp, j, i0, i1, a, complex ? b : null);
+            if (holding) {
+                int at = (pending - 1) * cells + row;
+                for (int c = 0; c < components.length; c++) {
+                    if (!v.readRowFloats(components[c], j, i0, i1, heldRe[c], complex ? heldIm[c] : null, at)) {
+                        throw new IllegalStateException("field map: the view said single precision but gave no single-precision row");
+                    }
+                }
+                continue;
             }
             for (int c = 0; c < components.length; c++) {
-                boolean electric = components[c].electric;
-                double[] a = rowRe[c];
-                double[] b = rowIm[c];
-                for (int q = 0; q < omega.length; q++) {
-                    double cs = electric ? cosE[q] : cosH[q];
-                    double sn = electric ? sinE[q] : sinH[q];
-                    if (cs == 0 && sn == 0) {
-                        continue;
-                    }
-                    double[] xr = re[c][q];
-                    double[] xi = im[c][q];
-                    if (!complex) {
-                        // real fields: the imaginary parts are zero, and so are their products
-                        for (int k = 0; k < w; k++) {
-                            xr[row + k] += a[k] * cs;
-                            xi[row + k] += a[k] * sn;
+                v.readRow(components[c], j, i0, i1, rowsRe[c], complex ? rowsIm[c] : null);
+            }
+            add(rowsRe, rowsIm, row, w);
+        }
+        if (holding && pending == HELD_STEPS) {
+            addHeld(u0 * w, (u1 - u0) * w, HELD_STEPS);
+        }
+    }
+
+    /** Four doubles a vector (256 bits: the width the kernels measured best, docs/architecture.md) and the floats they come from. */
+    private static final VectorSpecies<Double> DS = DoubleVector.SPECIES_256;
+    private static final VectorSpecies<Float> FS = FloatVector.SPECIES_128;
+
+    /**
+     * Adds held slots 0 .. slots − 1 of the cells [first, first + count) (flat map indices) to the sums, four cells
+     * at a time with the sums in registers over the slots; each sum gets, slot after slot, the products and sums of
+     * the one-step form (no fused multiply-add), so the bits are those of adding every step at once.
+     */
+    private void addHeld(int first, int count, int slots) {
+        int cells = (i1 - i0) * (j1 - j0);
+        int vectorEnd = first + count - count % DS.length();
+        for (int c = 0; c < components.length; c++) {
+            boolean electric = components[c].electric;
+            float[] a = heldRe[c];
+            float[] b = complex ? heldIm[c] : null;
+            for (int q = 0; q < omega.length; q++) {
+                double[] cs = electric ? cosE[q] : cosH[q];
+                double[] sn = electric ? sinE[q] : sinH[q];
+                double[] xr = re[c][q];
+                double[] xi = im[c][q];
+                int t = first;
+                for (; t < vectorEnd; t += DS.length()) {
+                    DoubleVector r = DoubleVector.fromArray(DS, xr, t);
+                    DoubleVector i = DoubleVector.fromArray(DS, xi, t);
+                    for (int slot = 0; slot < slots; slot++) {
+                        if (cs[slot] == 0 && sn[slot] == 0) {
+                            continue;
                         }
-                        continue;
+                        int at = slot * cells + t;
+                        DoubleVector f = (DoubleVector) FloatVector.fromArray(FS, a, at).convertShape(VectorOperators.F2D, DS, 0);
+                        if (b == null) {
+                            r = r.add(f.mul(cs[slot]));
+                            i = i.add(f.mul(sn[slot]));
+                        } else {
+                            DoubleVector g = (DoubleVector) FloatVector.fromArray(FS, b, at).convertShape(VectorOperators.F2D, DS, 0);
+                            r = r.add(f.mul(cs[slot]).sub(g.mul(sn[slot])));
+                            i = i.add(f.mul(sn[slot]).add(g.mul(cs[slot])));
+                        }
                     }
-                    for (int k = 0; k < w; k++) {
-                        xr[row + k] += a[k] * cs - b[k] * sn;
-                        xi[row + k] += a[k] * sn + b[k] * cs;
+                    r.intoArray(xr, t);
+                    i.intoArray(xi, t);
+                }
+                for (; t < first + count; t++) {
+                    for (int slot = 0; slot < slots; slot++) {
+                        if (cs[slot] == 0 && sn[slot] == 0) {
+                            continue;
+                        }
+                        int at = slot * cells + t;
+                        if (b == null) {
+                            xr[t] += a[at] * cs[slot];
+                            xi[t] += a[at] * sn[slot];
+                        } else {
+                            xr[t] += a[at] * cs[slot] - b[at] * sn[slot];
+                            xi[t] += a[at] * sn[slot] + b[at] * cs[slot];
+                        }
                     }
                 }
             }
         }
+    }
+
+    /** Adds one step's row of every component (read into {@code rowsRe}, {@code rowsIm}) to the sums of cells [row, row + w). */
+    private void add(double[][] rowsRe, double[][] rowsIm, int row, int w) {
+        int slot = 0;
+        for (int c = 0; c < components.length; c++) {
+            boolean electric = components[c].electric;
+            double[] a = rowsRe[c];
+            double[] b = rowsIm[c];
+            for (int q = 0; q < omega.length; q++) {
+                double cs = electric ? cosE[q][slot] : cosH[q][slot];
+                double sn = electric ? sinE[q][slot] : sinH[q][slot];
+                if (cs == 0 && sn == 0) {
+                    continue;
+                }
+                double[] xr = re[c][q];
+                double[] xi = im[c][q];
+                if (!complex) {
+                    // real fields: the imaginary parts are zero, and so are their products
+                    for (int k = 0; k < w; k++) {
+                        xr[row + k] += a[k] * cs;
+                        xi[row + k] += a[k] * sn;
+                    }
+                    continue;
+                }
+                for (int k = 0; k < w; k++) {
+                    xr[row + k] += a[k] * cs - b[k] * sn;
+                    xi[row + k] += a[k] * sn + b[k] * cs;
+                }
+            }
+        }
+    }
+
+    /** Adds the steps still held (between steps: before the sums are read or saved). */
+    private void settle() {
+        if (holding && pending > 0 && pending < HELD_STEPS) {
+            addHeld(0, (i1 - i0) * (j1 - j0), pending);
+        }
+        pending = 0;
     }
 
     /**
@@ -164,6 +317,7 @@ public final class FieldMap implements StatefulListener {
      * @throws IllegalArgumentException if c is not a component of this map's polarization
      */
     public double[][] transform(Component c, int q) {
+        settle();
         int k = index(c);
         return new double[][] {re[k][q].clone(), im[k][q].clone()};
     }
@@ -174,6 +328,7 @@ public final class FieldMap implements StatefulListener {
             throw new IllegalArgumentException(String.format("cell (%d, %d) is outside the field map [%d, %d) × [%d, %d)",
                     i, j, i0, i1, j0, j1));
         }
+        settle();
         int k = index(c);
         int t = (j - j0) * (i1 - i0) + (i - i0);
         return new double[] {re[k][q][t], im[k][q][t]};
@@ -250,6 +405,7 @@ public final class FieldMap implements StatefulListener {
 
     @Override
     public void writeState(java.io.DataOutput out) throws java.io.IOException {
+        settle();
         for (double[][][] a : new double[][][][] {re, im}) {
             out.writeInt(a.length);
             for (double[][] b : a) {
@@ -263,6 +419,7 @@ public final class FieldMap implements StatefulListener {
 
     @Override
     public void readState(java.io.DataInput in) throws java.io.IOException {
+        pending = 0;
         for (double[][][] a : new double[][][][] {re, im}) {
             if (in.readInt() != a.length) {
                 throw new java.io.IOException("checkpoint's field map has another shape");

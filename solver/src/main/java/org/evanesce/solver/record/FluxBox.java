@@ -14,13 +14,17 @@ import org.evanesce.solver.grid.Polarization;
  * at half-integer positions, x = (i + ½)Δ for l ≤ i ≤ r, the first and last on the corners and
  * weighted ½ (trapezoid rule). Both integrate the side's flux density to second order in Δ.
  */
-public final class FluxBox implements StatefulListener {
+public final class FluxBox implements StatefulListener, SharedRecorder {
 
     private final Polarization pol;
     private final FluxLine bottom;
     private final FluxLine top;
     private final FluxLine left;
     private final FluxLine right;
+    /** The sides in unit order: bottom, top, left, right. */
+    private final FluxLine[] lines;
+    /** Which sides take samples this step (set by {@link #prepare}). */
+    private final boolean[] active = new boolean[4];
 
     /**
      * @param l left side at x = (l + ½)Δ
@@ -43,14 +47,37 @@ public final class FluxBox implements StatefulListener {
         top = new FluxLine(pol, t, i0, i1, frequencies);
         left = FluxLine.vertical(pol, l, j0, j1, frequencies);
         right = FluxLine.vertical(pol, r, j0, j1, frequencies);
+        lines = new FluxLine[] {bottom, top, left, right};
     }
 
     @Override
-    public void afterStep(StepView v) {
-        bottom.afterStep(v);
-        top.afterStep(v);
-        left.afterStep(v);
-        right.afterStep(v);
+    public boolean prepare(StepView v, int workers) {
+        boolean any = false;
+        for (int k = 0; k < 4; k++) {
+            active[k] = lines[k].prepare(v, workers);
+            any |= active[k];
+        }
+        return any;
+    }
+
+    /** The sides' cells one after the other: bottom, top, left, right. */
+    @Override
+    public int units() {
+        return bottom.units() + top.units() + left.units() + right.units();
+    }
+
+    @Override
+    public void share(StepView v, int u0, int u1, int worker) {
+        int first = 0;
+        for (int k = 0; k < 4; k++) {
+            int n = lines[k].units();
+            int a = Math.max(u0, first);
+            int b = Math.min(u1, first + n);
+            if (active[k] && a < b) {
+                lines[k].share(v, a - first, b - first, worker);
+            }
+            first += n;
+        }
     }
 
     /**

@@ -37,8 +37,11 @@ import org.evanesce.solver.grid.Polarization;
  * Complex (Bloch-periodic) fields driven by a real signal times e^{i kx x} give the same numbers
  * as the single travelling plane wave they stand for: the transform at f &gt; 0 picks only its
  * e^{i(kx x − ωt)} part, the e^{+iωt} part belonging to the mirror wave.
+ *
+ * <p>A simulation shares the line's cells among its worker threads ({@link SharedRecorder}); each cell's
+ * sums see the same operations in the same order on any thread.
  */
-public final class FluxLine implements StatefulListener {
+public final class FluxLine implements StatefulListener, SharedRecorder {
 
     private final Component e;
     private final Component h;
@@ -50,10 +53,15 @@ public final class FluxLine implements StatefulListener {
     private final double[] omega;
     /** DFT accumulators [frequency][cell], real and imaginary parts. */
     private final double[][] eRe, eIm, hRe, hIm;
-    /** This step's fields on the line (E averaged onto it), real and imaginary parts. */
-    private final double[] ea, eb, ha, hb;
-    /** This step's E on the row above the line (before averaging). */
-    private final double[] e1a, e1b;
+    /**
+     * Per worker: this step's fields on its range of the line (E averaged onto it), real and imaginary parts,
+     * and E on the row above the line before averaging: [worker][ea, eb, ha, hb, e1a, e1b][cell − first of range].
+     */
+    private double[][][] scratch;
+    /** This step's e^{iωt}Δt per frequency at the electric and the magnetic sample times (zero outside the window). */
+    private final double[] ce, se, ch, sh;
+    /** Whether this step's fields are complex (set by {@link #prepare}). */
+    private boolean complex;
     /** Only field samples at times in [windowStart, windowEnd) are transformed. */
     private double windowStart = Double.NEGATIVE_INFINITY;
     private double windowEnd = Double.POSITIVE_INFINITY;
@@ -104,12 +112,11 @@ public final class FluxLine implements StatefulListener {
         eIm = new double[omega.length][n];
         hRe = new double[omega.length][n];
         hIm = new double[omega.length][n];
-        ea = new double[n];
-        eb = new double[n];
-        ha = new double[n];
-        hb = new double[n];
-        e1a = new double[n];
-        e1b = new double[n];
+        scratch = new double[1][6][n];
+        ce = new double[omega.length];
+        se = new double[omega.length];
+        ch = new double[omega.length];
+        sh = new double[omega.length];
     }
 
     /**
@@ -127,21 +134,53 @@ public final class FluxLine implements StatefulListener {
     }
 
     @Override
-    public void afterStep(StepView v) {
+    public boolean prepare(StepView v, int workers) {
         double te = v.time(e);
         double th = v.time(h);
         boolean eIn = te >= windowStart && te < windowEnd;
         boolean hIn = th >= windowStart && th < windowEnd;
         if (!eIn && !hIn) {
-            return;
+            return false;
         }
         eSamples += eIn ? 1 : 0;
         hSamples += hIn ? 1 : 0;
-        // read the line once per step, then accumulate every frequency from the copies
-        boolean complex = v.complexFields();
+        complex = v.complexFields();
+        double dt = v.dt();
+        double we = eIn ? dt : 0;
+        double wh = hIn ? dt : 0;
+        this.dt = dt;
+        for (int q = 0; q < omega.length; q++) {
+            ce[q] = Math.cos(omega[q] * te) * we;
+            se[q] = Math.sin(omega[q] * te) * we;
+            ch[q] = Math.cos(omega[q] * th) * wh;
+            sh[q] = Math.sin(omega[q] * th) * wh;
+        }
+        if (scratch.length < workers) {
+            scratch = new double[workers][6][i1 - i0];
+        }
+        return true;
+    }
+
+    /** The line's cells: unit u is cell i0 + u. */
+    @Override
+    public int units() {
+        return i1 - i0;
+    }
+
+    @Override
+    public void share(StepView v, int u0, int u1, int worker) {
+        double[][] rows = scratch[worker];
+        double[] ea = rows[0];
+        double[] eb = rows[1];
+        double[] ha = rows[2];
+        double[] hb = rows[3];
+        double[] e1a = rows[4];
+        double[] e1b = rows[5];
+        int n = u1 - u0;
+        // read this range of the line once per step (from index 0), then accumulate every frequency from the copies
         if (vertical) {
-            for (int j = i0; j < i1; j++) {
-                int k = j - i0;
+            for (int j = i0 + u0; j < i0 + u1; j++) {
+                int k = j - i0 - u0;
                 ea[k] = 0.5 * (v.field(e, row, j) + v.field(e, row + 1, j));
                 eb[k] = 0.5 * (v.fieldImag(e, row, j) + v.fieldImag(e, row + 1, j));
                 ha[k] = v.field(h, row, j);
@@ -149,42 +188,38 @@ public final class FluxLine implements StatefulListener {
             }
         } else {
             // whole rows at once: E on rows row and row + 1 (averaged onto the line), H on row
-            v.readRow(e, row, i0, i1, ea, complex ? eb : null);
-            v.readRow(e, row + 1, i0, i1, e1a, complex ? e1b : null);
-            v.readRow(h, row, i0, i1, ha, complex ? hb : null);
-            for (int k = 0; k < ea.length; k++) {
+            v.readRow(e, row, i0 + u0, i0 + u1, ea, complex ? eb : null);
+            v.readRow(e, row + 1, i0 + u0, i0 + u1, e1a, complex ? e1b : null);
+            v.readRow(h, row, i0 + u0, i0 + u1, ha, complex ? hb : null);
+            for (int k = 0; k < n; k++) {
                 ea[k] = 0.5 * (ea[k] + e1a[k]);
                 eb[k] = 0.5 * (eb[k] + e1b[k]);
             }
         }
-        double dt = v.dt();
-        double we = eIn ? dt : 0;
-        double wh = hIn ? dt : 0;
-        this.dt = dt;
         for (int q = 0; q < omega.length; q++) {
-            double ce = Math.cos(omega[q] * te) * we;
-            double se = Math.sin(omega[q] * te) * we;
-            double ch = Math.cos(omega[q] * th) * wh;
-            double sh = Math.sin(omega[q] * th) * wh;
+            double ce = this.ce[q];
+            double se = this.se[q];
+            double ch = this.ch[q];
+            double sh = this.sh[q];
             double[] er = eRe[q];
             double[] ei = eIm[q];
             double[] hr = hRe[q];
             double[] hi = hIm[q];
             if (!complex) {
                 // real fields: the imaginary parts are zero, and so are their products (half the work)
-                for (int k = 0; k < ea.length; k++) {
-                    er[k] += ea[k] * ce;
-                    ei[k] += ea[k] * se;
-                    hr[k] += ha[k] * ch;
-                    hi[k] += ha[k] * sh;
+                for (int k = 0; k < n; k++) {
+                    er[u0 + k] += ea[k] * ce;
+                    ei[u0 + k] += ea[k] * se;
+                    hr[u0 + k] += ha[k] * ch;
+                    hi[u0 + k] += ha[k] * sh;
                 }
                 continue;
             }
-            for (int k = 0; k < ea.length; k++) {
-                er[k] += ea[k] * ce - eb[k] * se;
-                ei[k] += ea[k] * se + eb[k] * ce;
-                hr[k] += ha[k] * ch - hb[k] * sh;
-                hi[k] += ha[k] * sh + hb[k] * ch;
+            for (int k = 0; k < n; k++) {
+                er[u0 + k] += ea[k] * ce - eb[k] * se;
+                ei[u0 + k] += ea[k] * se + eb[k] * ce;
+                hr[u0 + k] += ha[k] * ch - hb[k] * sh;
+                hi[u0 + k] += ha[k] * sh + hb[k] * ch;
             }
         }
     }
@@ -357,7 +392,8 @@ public final class FluxLine implements StatefulListener {
 
     /**
      * Bytes a line of n cells transforming F frequencies holds: 8 · n · (4F + 6) (four accumulators per
-     * frequency, six rows of per-step scratch). The one count of it: memory estimates call this.
+     * frequency, six rows of per-step scratch; each further worker thread that shares the line adds up to
+     * six rows more, not counted). The one count of it: memory estimates call this.
      */
     public static long bytesFor(long cells, long frequencies) {
         return Double.BYTES * cells * (4L * frequencies + 6);

@@ -45,10 +45,27 @@ public interface StepView {
     }
 
     /**
+     * As {@link #readRow} into single-precision arrays from index {@code at}, where the fields are single precision
+     * ({@link #singlePrecision}): the values as stored, without conversion. Returns false, reading nothing, where
+     * they are not.
+     */
+    default boolean readRowFloats(Component c, int j, int i0, int i1, float[] re, float[] im, int at) {
+        return false;
+    }
+
+    /**
      * Whether the fields are complex (Bloch-periodic sides); when false every {@link #fieldImag} is zero and
      * recorders may leave the imaginary parts out of their work.
      */
     default boolean complexFields() {
+        return false;
+    }
+
+    /**
+     * Whether every field value is a single-precision float (widened to double by {@link #field} and
+     * {@link #readRow}), so that a recorder may hold values as floats without changing them.
+     */
+    default boolean singlePrecision() {
         return false;
     }
 
