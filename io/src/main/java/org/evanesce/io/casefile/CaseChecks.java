@@ -57,6 +57,7 @@ final class CaseChecks {
         framesWithinTheRun();
         if (p.boundaries.size() == Side.values().length) {
             new PlaneWaveChecks(ctx, p, this).run();
+            new SurfaceChecks(ctx, p, this).run();
         }
     }
 

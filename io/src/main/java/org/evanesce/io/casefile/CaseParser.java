@@ -85,6 +85,7 @@ final class CaseParser {
     final List<String> probePaths = new ArrayList<>();
     final Map<Side, String> boundaryPaths = new EnumMap<>(Side.class);
     FluxSpec flux;
+    SurfacesSpec surfaces;
     MapsSpec maps;
     boolean mapsFailed;
     OutputSpec output;
@@ -143,6 +144,8 @@ final class CaseParser {
         readBoundaries(top.get("boundaries"), top.has("boundaries") ? top.keyAt("boundaries") : top.at());
         readProbes(top.get("probes"));
         flux = new FluxReader(ctx).read(top.get("flux"), top.has("flux") ? top.keyAt("flux") : top.at(), centreFrequency());
+        surfaces = new SurfacesReader(ctx).read(top.get("surfaces"), top.has("surfaces") ? top.keyAt("surfaces") : top.at(),
+                centreFrequency(), sources.stream().anyMatch(x -> x instanceof SourceSpec.Launched));
         maps = new OutputReader(ctx).readMaps(top.get("maps"), top.has("maps") ? top.keyAt("maps") : top.at(), centreFrequency());
         mapsFailed = top.has("maps") && maps == null;
         Node o = top.get("output");

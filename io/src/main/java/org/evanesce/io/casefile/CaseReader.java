@@ -133,7 +133,7 @@ public final class CaseReader {
         return new CaseSpec(ctx.source, Optional.ofNullable(p.title), ctx.parameters.resolved(),
                 new Located<>(p.polarization, p.polarizationAt), p.designWavelength, p.domain, p.resolution, p.used, p.shapes,
                 p.boundaries, p.sources, p.probes, Optional.ofNullable(p.flux), Optional.ofNullable(p.maps), p.output, p.stop,
-                p.numerics, Optional.ofNullable(p.sweep));
+                p.numerics, Optional.ofNullable(p.sweep), Optional.ofNullable(p.surfaces));
     }
 
     private static void check(List<String> missing, Object part, String name) {

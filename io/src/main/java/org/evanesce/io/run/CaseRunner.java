@@ -171,7 +171,7 @@ public final class CaseRunner {
                 }
             }
             double wall = before + (restored != null && restored.reason() != null ? 0 : (System.nanoTime() - t0) * 1e-9);
-            if (ck != null && plan.flux().isPresent() && (restored == null || restored.reason() == null)) {
+            if (ck != null && plan.referenceRun().isPresent() && (restored == null || restored.reason() == null)) {
                 // the stepping is done and the incident-power run follows: a restart from here repeats only that
                 ck.save(sim, peak, energy, reason, wall);
             }
@@ -182,9 +182,11 @@ public final class CaseRunner {
                 byLimit = true;
             }
             double[] reference = {0, Double.NaN, Double.NaN};
-            if (plan.flux().isPresent()) {
+            if (plan.referenceRun().isPresent()) {
                 reference = runIncidentPower(plan, sim.stepCount(), progress, progressSeconds);
-                reason += "; the incident-power run took the same number of steps";
+                reason += plan.flux().isPresent() || plan.surfaces().get().incidentLine().isPresent()
+                        ? "; the incident-power run took the same number of steps"
+                        : "; the run measuring the sources' own power took the same number of steps";
             }
             return new Result(sim.stepCount(), wall, sim.threads(), reason, energy, peak, sim.bytes(), reference[0],
                     resumedFrom, byLimit, reference[1], reference[2]);
@@ -198,7 +200,7 @@ public final class CaseRunner {
      * @return its wall time, s, its energy inside the PMLs at the end and the largest measured, J/m
      */
     private static double[] runIncidentPower(CasePlan plan, long steps, Consumer<Progress.Report> progress, double progressSeconds) {
-        Simulation.Builder b = plan.flux().orElseThrow().reference();
+        Simulation.Builder b = plan.referenceRun().orElseThrow();
         Simulation ref;
         try {
             ref = b.build();
