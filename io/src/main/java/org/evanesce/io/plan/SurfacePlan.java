@@ -82,9 +82,12 @@ public record SurfacePlan(double[] frequencies, Polarization polarization, Surfa
      * @param exit          the side of the line the light leaves to
      * @param firstPosition x of its first sample, m
      * @param y             the line's height, m
+     * @param periodic      whether the line is one period of Bloch-periodic sides (its plane waves are then the Bloch
+     *                      orders at {@code blochWavenumber} + 2πm/period)
+     * @param blochWavenumber the plane wave's in-plane wavenumber kx, rad/m (0 without periodic sides)
      */
     public record Exit(SurfacesSpec.ExitSpectrum spec, FluxLine line, String medium, double index, Side exit,
-                       double firstPosition, double y) { }
+                       double firstPosition, double y, boolean periodic, double blochWavenumber) { }
 
     /** Whether the powers are time averages of a continuous wave (else energies per hertz of a pulse). */
     public boolean continuous() {

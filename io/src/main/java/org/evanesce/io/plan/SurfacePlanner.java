@@ -75,8 +75,8 @@ final class SurfacePlanner {
             int across = vertical ? CasePlanner.nearest(g.from().x().si(), grid.x0(), dx, 0.5)
                     : CasePlanner.nearest(g.from().y().si(), grid.y0(), dx, 0.5);
             if (!fits(errors, g.at(), path, b > a, "shorter than a cell") || !fits(errors, g.at(), path,
-                    a >= 0 && across >= 0 && b <= (vertical ? maxRow : maxCol) && across <= (vertical ? maxCol : maxRow),
-                    "outside the grid")) {
+                    a >= 0 && across >= 0 && b <= (vertical ? maxRow : maxCol) + 1 && across <= (vertical ? maxCol : maxRow),
+                    "reaching beyond the grid's last cells; move it inward by a cell")) {
                 continue;
             }
             int c0 = pol == Polarization.S ? a + 1 : a;
@@ -124,7 +124,8 @@ final class SurfacePlanner {
         for (int k = 0; k < s.exitSpectra().size(); k++) {
             SurfacesSpec.ExitSpectrum x = s.exitSpectra().get(k);
             int row = CasePlanner.nearest(x.y().si(), grid.y0(), dx, 0.5);
-            if (!fits(errors, x.at(), "surfaces.exit_spectra[" + k + "]", row >= 0 && row <= maxRow, "outside the grid")) {
+            if (!fits(errors, x.at(), "surfaces.exit_spectra[" + k + "]", row >= 0 && row <= maxRow,
+                    "reaching beyond the grid's last rows; move it inward by a cell")) {
                 continue;
             }
             FluxLine line = new FluxLine(pol, row, i0, i1, freqs);
@@ -132,7 +133,7 @@ final class SurfacePlanner {
             String medium = spec.materialAt(0, x.y().si());
             exits.add(new SurfacePlan.Exit(x, line, medium, spec.materials().get(medium).index(),
                     x.towards().value() == SurfacesSpec.Towards.UP ? Side.TOP : Side.BOTTOM, grid.x0() + (i0 + e.dx) * dx,
-                    grid.y0() + (row + 0.5) * dx));
+                    grid.y0() + (row + 0.5) * dx, periodic, periodic ? PlaneWaves.kx(spec) : 0));
         }
 
         Optional<FluxLine> incident = Optional.empty();
@@ -231,7 +232,8 @@ final class SurfacePlanner {
                 Units.format(dx, Dimension.LENGTH)))) {
             return null;
         }
-        return fits(errors, at, path, l >= 0 && b >= 0 && r <= maxCol && t <= maxRow, "outside the grid")
+        return fits(errors, at, path, l >= 0 && b >= 0 && r <= maxCol && t <= maxRow,
+                "reaching beyond the grid's last cells; move it inward by a cell")
                 ? new int[] {l, b, r, t} : null;
     }
 

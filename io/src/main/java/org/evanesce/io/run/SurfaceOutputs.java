@@ -67,7 +67,8 @@ public final class SurfaceOutputs {
         for (SurfaceResults.Spectrum s : r.exits()) {
             rf.writeText("exit-" + s.name() + ".csv", r.spectrumCsv(s));
             LinePlot.Builder db = LinePlot.builder().title("exit spectrum " + s.name() + " (dB below each peak)")
-                    .xTitle("angle from the exit normal in the exit medium (deg)").yTitle("power per radian (dB)")
+                    .xTitle("angle from the exit normal in the exit medium (deg)")
+                    .yTitle(s.orders() ? "power of each order (dB)" : "power per radian (dB)")
                     .xRange(-90, 90).yRange(-DB_RANGE, 1);
             for (int q = 0; q < f.length; q++) {
                 double[] a = s.anglesDegrees().get(q);
@@ -77,7 +78,8 @@ public final class SurfaceOutputs {
                 for (int k = 0; k < v.length; k++) {
                     d[k] = Math.max(-DB_RANGE, 10 * Math.log10(Math.max(v[k] / peak, 1e-300)));
                 }
-                db.series(wavelength(f[q]), a, d, LinePlot.Style.LINES, LinePlot.PALETTE.get(q % LinePlot.PALETTE.size()));
+                db.series(wavelength(f[q]), a, d, s.orders() ? LinePlot.Style.MARKERS : LinePlot.Style.LINES,
+                        LinePlot.PALETTE.get(q % LinePlot.PALETTE.size()));
             }
             db.build().writePng(dir.resolve("exit-" + s.name() + "-db.png"));
         }

@@ -29,7 +29,10 @@ import org.evanesce.solver.record.FluxLine;
 public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] rows, double[] norm,
                              List<Pattern> farFields, List<Spectrum> exits, boolean continuous) {
 
-    /** Zero padding of an exit line's samples (finer angles) when the sides are not periodic. */
+    /**
+     * Zero padding of an exit line's samples (finer angles) when the sides are not periodic; one period of periodic
+     * sides is transformed as it is, its plane waves being exactly the Bloch orders.
+     */
     static final int OVERSAMPLING = 4;
 
     /**
@@ -40,10 +43,11 @@ public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] 
 
     /**
      * An exit spectrum: per frequency the bins' angles in the exit medium (degrees from the exit normal, positive
-     * towards +x) and the outgoing power per radian over the norm.
+     * towards +x) and the outgoing power per radian over the norm; with periodic sides ({@code orders}) each bin is
+     * one Bloch order, a single plane wave, and {@code perRadian} holds its power over the norm instead.
      */
     public record Spectrum(String name, List<double[]> anglesDegrees, List<double[]> perRadian, double[] outgoing,
-                           double[] aperture, double numericalAperture) { }
+                           double[] aperture, double numericalAperture, boolean orders) { }
 
     /** Computes the table and patterns. */
     public static SurfaceResults of(SurfacePlan p) {
@@ -102,7 +106,6 @@ public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] 
             patterns.add(new Pattern(f.spec().name().value(), deg, per, total));
         }
         List<Spectrum> spectra = new ArrayList<>();
-        boolean periodic = p.exits().stream().anyMatch(e -> e.line().firstCell() == 0);
         for (SurfacePlan.Exit e : p.exits()) {
             double[] out = new double[nf];
             double[] ap = new double[nf];
@@ -110,17 +113,23 @@ public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] 
             List<double[]> per = new ArrayList<>();
             double na = e.spec().numericalAperture() == null ? Double.NaN : e.spec().numericalAperture().si();
             for (int q = 0; q < nf; q++) {
-                LineSpectrum ls = spectrum(e, q, dx, p.polarization(), periodic ? 1 : OVERSAMPLING);
+                LineSpectrum ls = spectrum(e, q, dx, p.polarization(), e.periodic() ? 1 : OVERSAMPLING);
                 out[q] = ls.outgoingPower() * factor[q];
-                ap[q] = Double.isNaN(na) ? Double.NaN : ls.powerWithinAperture(na) * factor[q];
                 double[] th = ls.angles();
-                for (int b = 0; b < th.length; b++) {
+                double[] d = ls.outgoingPerRadian();
+                double half = Double.isNaN(na) ? Double.NaN : na >= e.index() ? Math.PI / 2 : Math.asin(na / e.index());
+                double within = 0;
+                for (int b = 0; b < d.length; b++) {
+                    if (e.periodic()) {
+                        // one period: each bin is one Bloch order, a single plane wave; its power, not a density
+                        d[b] *= ls.binWidth() / (e.index() * 2 * Math.PI
+                                * e.line().frequency(q) / PhysicalConstants.C0 * Math.cos(th[b]));
+                        within += Math.abs(th[b]) <= half ? d[b] : 0;
+                    }
+                    d[b] *= factor[q];
                     th[b] = Math.toDegrees(th[b]);
                 }
-                double[] d = ls.outgoingPerRadian();
-                for (int b = 0; b < d.length; b++) {
-                    d[b] *= factor[q];
-                }
+                ap[q] = Double.isNaN(na) ? Double.NaN : (e.periodic() ? within : ls.powerWithinAperture(na)) * factor[q];
                 angles.add(th);
                 per.add(d);
             }
@@ -130,7 +139,7 @@ public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] 
                 columns.add(e.spec().name().value() + "_within_na");
                 values.add(ap);
             }
-            spectra.add(new Spectrum(e.spec().name().value(), angles, per, out, ap, na));
+            spectra.add(new Spectrum(e.spec().name().value(), angles, per, out, ap, na, e.periodic()));
         }
         double[][] rows = new double[nf][columns.size()];
         for (int c = 0; c < columns.size(); c++) {
@@ -149,7 +158,8 @@ public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] 
         double[][] u = pol == Polarization.S ? el : mg;
         double[][] v = pol == Polarization.S ? mg : el;
         double wl = PhysicalConstants.C0 / line.frequency(q);
-        return LineSpectrum.of(pol, wl, e.index(), e.exit(), e.firstPosition(), dx, u[0], u[1], v[0], v[1], oversampling);
+        return LineSpectrum.of(pol, wl, e.index(), e.exit(), e.firstPosition(), dx, u[0], u[1], v[0], v[1],
+                e.blochWavenumber(), oversampling);
     }
 
     /** The factor from "DFT flux" to absolute units: 4/(D_E D_H) for a continuous wave, 4 (Parseval) for a pulse. */
@@ -262,7 +272,8 @@ public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] 
 
     /** The table of one exit spectrum: wavelength_nm, angle_deg, per_radian, one row per bin and wavelength. */
     public String spectrumCsv(Spectrum s) {
-        StringBuilder sb = new StringBuilder("wavelength_nm,angle_deg,per_radian\n");
+        StringBuilder sb = new StringBuilder(s.orders() ? "wavelength_nm,angle_deg,power\n"
+                : "wavelength_nm,angle_deg,per_radian\n");
         double[] f = plan.frequencies();
         for (int q = 0; q < f.length; q++) {
             double[] a = s.anglesDegrees().get(q);
