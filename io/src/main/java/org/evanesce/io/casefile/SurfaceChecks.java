@@ -84,7 +84,7 @@ final class SurfaceChecks {
         double y1 = Math.max(a.y().si(), b.y().si());
         if (x0 < in[0] - tol || x1 > in[2] + tol || y0 < in[1] - tol || y1 > in[3] + tol) {
             ctx.error(a.at(), path, String.format("spans x from %s to %s and y from %s to %s, which reaches outside the "
-                    + "interior (x from %s to %s, y from %s to %s, inside the PMLs): power measured in an absorbing layer "
+                    + "interior between the PMLs (x from %s to %s, y from %s to %s): power measured in an absorbing layer "
                     + "means nothing; move it inside", fmt(x0), fmt(x1), fmt(y0), fmt(y1), fmt(in[0]), fmt(in[2]), fmt(in[1]),
                     fmt(in[3])));
             return false;
