@@ -193,10 +193,10 @@ public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] 
     /** What the values are, in words (summary.json). */
     public String unit() {
         return switch (plan.normalise()) {
-            case INCIDENT -> "fraction of the incident power (1/rad per radian)";
-            case SOURCE -> "fraction of the power the sources radiate into their own medium (1/rad per radian)";
-            case ABSOLUTE -> continuous ? "W per metre of z (W/(m rad) per radian)"
-                    : "J per metre of z per Hz (J/(m Hz rad) per radian)";
+            case INCIDENT -> "fractions of the incident power (angular densities per radian)";
+            case SOURCE -> "fractions of the power the sources radiate into their own medium (angular densities per radian)";
+            case ABSOLUTE -> continuous ? "W per metre of z (angular densities W/(m rad))"
+                    : "J per metre of z per Hz (angular densities J/(m Hz rad))";
         };
     }
 
