@@ -29,6 +29,9 @@ import org.evanesce.io.run.Plausibility;
 import org.evanesce.io.run.ProgressLine;
 import org.evanesce.io.run.RunOutputs;
 import org.evanesce.io.run.Settling;
+import org.evanesce.io.run.SurfaceOutputs;
+import org.evanesce.io.run.SurfaceResults;
+import org.evanesce.io.run.SurfaceTable;
 
 /** Runs one planned case and writes its results into an open (not yet committed) results folder. */
 final class CaseExecution {
@@ -72,7 +75,9 @@ final class CaseExecution {
         o.printf(Locale.ROOT, "%s: %d x %d cells of %.4g nm, up to %d steps, %s polarization%s; writing %s%n",
                 s.source(), plan.grid().nx(), plan.grid().ny(), plan.grid().cellSize() * 1e9, plan.stop().maxSteps(),
                 s.polarization().value().name().toLowerCase(Locale.ROOT),
-                plan.flux().isPresent() ? ", then an incident-power run" : "", rf.target());
+                plan.referenceRun().isPresent() ? plan.flux().isPresent() || plan.surfaces().orElseThrow().incidentLine()
+                        .isPresent() ? ", then an incident-power run" : ", then a run measuring the sources' own power" : "",
+                rf.target());
         ProgressLine progress = new ProgressLine(o, terminal, plan.dt());
         List<Xdmf.Grid> frames = new ArrayList<>();
         if (plan.fields().frameSteps().length > 0) {
@@ -109,14 +114,21 @@ final class CaseExecution {
             FluxPlan f = plan.flux().get();
             BeamPlots.write(f, s.polarization().value(), f.closest(s.sources().get(0).signal().frequency().si()), rf.dir());
         }
+        SurfaceResults surfaces = plan.surfaces().map(SurfaceResults::of).orElse(null);
+        if (surfaces != null) {
+            SurfaceOutputs.write(surfaces, rf);
+        }
         Settling settling = Settling.of(plan, r, flux);
         List<String> warnings = new ArrayList<>(settling.warnings());
         warnings.addAll(Plausibility.check(plan, flux, settling));
         if (flux != null) {
             warnings.addAll(flux.warnings()); // e.g. a beam's reference that did not converge
         }
-        if (flux != null || !decays.isEmpty()) {
+        if (flux != null || !decays.isEmpty() || surfaces != null) {
             Map<String, Object> summary = RunOutputs.summary(plan, flux, decays, settling, warnings);
+            if (surfaces != null) {
+                summary.put("surfaces", surfaces.summary());
+            }
             if (flux != null && r.incidentPower() != null && summary.get("flux") instanceof Map<?, ?> fm) {
                 @SuppressWarnings("unchecked")
                 Map<String, Object> f = (Map<String, Object>) fm;
@@ -135,11 +147,16 @@ final class CaseExecution {
         long cells = (long) plan.grid().nx() * plan.grid().ny();
         o.printf(Locale.ROOT, "done: %d steps in %.1f s (%.0f Mcell/s, %d thread%s)%s; %s%n", r.steps(), r.wallSeconds(),
                 r.cellUpdatesPerSecond(cells) / 1e6, r.threads(), r.threads() == 1 ? "" : "s",
-                r.incidentPower() == null ? "" : r.incidentPower().reused() ? ", incident power reused"
-                        : String.format(Locale.ROOT, ", incident-power run %.1f s", r.incidentPowerRunWallSeconds()),
+                r.incidentPower() != null ? r.incidentPower().reused() ? ", incident power reused"
+                        : String.format(Locale.ROOT, ", incident-power run %.1f s", r.incidentPowerRunWallSeconds())
+                        : plan.referenceRun().isPresent() ? String.format(Locale.ROOT, ", %s %.1f s", plan.flux().isPresent()
+                        ? "incident-power run" : "reference run", r.incidentPowerRunWallSeconds()) : "",
                 r.stopReason());
         if (flux != null && table) {
             FluxTable.print(o, flux);
+        }
+        if (surfaces != null && table) {
+            SurfaceTable.print(o, surfaces);
         }
         for (MapOutputs.Decay d : decays) {
             o.println(d.fit() == null ? String.format(Locale.ROOT, "decay %s at %.2f nm: no fit (%s)", d.name(),

@@ -25,11 +25,24 @@ import org.evanesce.solver.record.Probe;
  * @param fields      the field files, frames and maps the run writes
  * @param sourceSites where each source drives the grid, in the case's order
  * @param memory      the heap the run is estimated to need
+ * @param surfaces    the segments, boxes, far fields and exit spectra and their norm, when the case asks for them
  */
 public record CasePlan(CaseSpec spec, GridSpec grid, MaterialGrid materials, Simulation.Builder builder,
                        List<NamedProbe> probes, Stop stop, double dt, int[] interior,
                        java.util.Optional<FluxPlan> flux, java.util.Map<String, Double> gridPermittivity,
-                       FieldPlan fields, List<SourceSite> sourceSites, MemoryEstimate memory) {
+                       FieldPlan fields, List<SourceSite> sourceSites, MemoryEstimate memory,
+                       java.util.Optional<SurfacePlan> surfaces) {
+
+    /**
+     * The reference run that follows the case's run, when there is one: the flux section's incident-power run, or
+     * the surfaces' own (the grid filled with the launching medium or the sources' medium).
+     */
+    public java.util.Optional<Simulation.Builder> referenceRun() {
+        if (flux.isPresent()) {
+            return java.util.Optional.of(flux.get().reference());
+        }
+        return surfaces.flatMap(SurfacePlan::ownReference);
+    }
 
     /** Whether a source drives a continuous (ramped) wave, which never decays. */
     public boolean continuous() {

@@ -209,6 +209,14 @@ public final class CasePlanner {
                 throw new PlanException(errors);
             }
         }
+        Optional<SurfacePlan> surfaces = Optional.empty();
+        if (spec.surfaces().isPresent()) {
+            surfaces = Optional.of(SurfacePlanner.plan(spec, grid, interior(sides, grid), materials, b, configured, stop, dt,
+                    sites, flux, errors));
+            if (!errors.isEmpty()) {
+                throw new PlanException(errors);
+            }
+        }
         Map<String, Double> eps = new java.util.TreeMap<>();
         materials.forEach((name, m) -> eps.put(name, m.relativePermittivity()));
         FieldPlan fields = fieldPlan(grid, interior(sides, grid), stop, dt, b, sides);
@@ -216,7 +224,7 @@ public final class CasePlanner {
             throw new PlanException(errors);
         }
         return new CasePlan(spec, grid, mg, b, List.copyOf(probes), stop, dt, interior(sides, grid), flux, eps, fields,
-                List.copyOf(sites), memory);
+                List.copyOf(sites), memory, surfaces);
     }
 
     /** The span of sites a source drives (its cells are flat indices j·nx + i). */

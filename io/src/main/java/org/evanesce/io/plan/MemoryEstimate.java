@@ -159,6 +159,30 @@ public record MemoryEstimate(List<Item> items) {
             long[] r = Simulation.footprint(grid.nx(), grid.ny(), pol, precision, sides, medium.conductivity().si() != 0);
             held.add(new Item("incident-power run", 6 * nodes + r[0] + r[1], flux.at(), "flux", gridAdvice));
         }
+        if (spec.surfaces().isPresent()) {
+            var sf = spec.surfaces().get();
+            double dx = grid.cellSize();
+            long cells = 0;
+            for (var g : sf.segments()) {
+                cells += 2 + (long) (Math.abs(g.to().x().si() - g.from().x().si() + g.to().y().si() - g.from().y().si()) / dx);
+            }
+            for (var b : sf.boxes()) {
+                cells += 8 + 2 * (long) ((Math.abs(b.to().x().si() - b.from().x().si()) + Math.abs(b.to().y().si()
+                        - b.from().y().si())) / dx);
+            }
+            for (var b : sf.farFields()) {
+                cells += 8 + 2 * (long) ((Math.abs(b.to().x().si() - b.from().x().si()) + Math.abs(b.to().y().si()
+                        - b.from().y().si())) / dx);
+            }
+            cells += (long) sf.exitSpectra().size() * grid.nx();
+            held.add(new Item("surfaces", org.evanesce.solver.record.FluxLine.bytesFor(cells, sf.frequencies().size()),
+                    sf.at(), "surfaces", "fewer or smaller surfaces, or fewer wavelengths"));
+            if (sf.normalise().value() != org.evanesce.io.casefile.model.SurfacesSpec.Normalise.ABSOLUTE && spec.flux().isEmpty()) {
+                long[] r = Simulation.footprint(grid.nx(), grid.ny(), pol, precision, sides, false);
+                held.add(new Item("reference run of the surfaces' norm", 6 * nodes + r[0] + r[1], sf.normalise().at(),
+                        "surfaces.normalise", gridAdvice + ", or normalise: absolute"));
+            }
+        }
         if (spec.maps().isPresent()) {
             var m = spec.maps().get();
             long cells = boxCells(m.region().isPresent() ? m.region() : spec.output().region(), grid, interior);

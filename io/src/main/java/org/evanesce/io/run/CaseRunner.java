@@ -184,7 +184,7 @@ public final class CaseRunner {
                 }
             }
             double wall = before + (restored != null && restored.reason() != null ? 0 : (System.nanoTime() - t0) * 1e-9);
-            if (ck != null && plan.flux().isPresent() && (restored == null || restored.reason() == null)) {
+            if (ck != null && plan.referenceRun().isPresent() && (restored == null || restored.reason() == null)) {
                 // the stepping is done and the incident-power run follows: a restart from here repeats only that
                 ck.save(sim, peak, energy, reason, wall);
             }
@@ -196,7 +196,8 @@ public final class CaseRunner {
             }
             double[] reference = {0, Double.NaN, Double.NaN};
             IncidentPowerCache.Obtained obtained = null;
-            if (plan.flux().isPresent()) {
+            if (plan.flux().isPresent() && plan.surfaces().isEmpty()) {
+                // surfaces add their own recorders to the incident-power run: no strip, no reuse (below)
                 long steps = sim.stepCount();
                 obtained = incident.obtain(plan.flux().get(), steps, () -> {
                     double[] m = runIncidentPower(plan, steps, progress, progressSeconds);
@@ -206,6 +207,11 @@ public final class CaseRunner {
                 reference = new double[] {obtained.reused() ? 0 : m.wallSeconds(), m.finalEnergy(), m.peakEnergy()};
                 reason += obtained.reused() ? "; the incident power was reused from an incident-power run of the same set-up "
                         + "and number of steps (" + obtained.origin() + ")" : "; the incident-power run took the same number of steps";
+            } else if (plan.referenceRun().isPresent()) {
+                reference = step(plan, plan.referenceRun().get(), sim.stepCount(), progress, progressSeconds, plan.interior());
+                reason += plan.flux().isPresent() || plan.surfaces().get().incidentLine().isPresent()
+                        ? "; the incident-power run took the same number of steps"
+                        : "; the run measuring the sources' own power took the same number of steps";
             }
             return new Result(sim.stepCount(), wall, sim.threads(), reason, energy, peak, sim.bytes(), reference[0],
                     resumedFrom, byLimit, reference[1], reference[2], obtained);

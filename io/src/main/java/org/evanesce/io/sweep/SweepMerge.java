@@ -25,7 +25,7 @@ import org.evanesce.io.output.image.LinePlot;
  *
  * <p>Columns: {@code point}; per swept parameter its expression text ({@code NAME}) and SI value
  * ({@code NAME_si}); then, with a flux section, one row per point and frequency with the flux.csv
- * columns; with decay fits of {@code maps}, per fit and wavelength {@code decay_NAME_WLnm_m},
+ * columns (and with a surfaces section the surfaces.csv columns, {@link SurfaceColumns}); with decay fits of {@code maps}, per fit and wavelength {@code decay_NAME_WLnm_m},
  * {@code ..._uncertainty_m} and {@code ..._plane_wave_m}; with neither, one row per point with
  * {@code steps}, {@code wall_time_s} and {@code stop_reason} from run.json; last, {@code settled} from
  * run.json ({@code true}, {@code false}, or empty where the run was not judged).
@@ -121,6 +121,11 @@ public final class SweepMerge {
                     }
                 }
             }
+        }
+        if (Files.isRegularFile(dir.resolve("surfaces.csv"))) {
+            List<String> joined = new ArrayList<>(header);
+            SurfaceColumns.join(dir, joined, rows, fluxLines);
+            header = joined;
         }
         Object run = SweepFolder.readJson(dir.resolve("run.json"));
         String steps = "";
@@ -234,7 +239,8 @@ public final class SweepMerge {
             int wl = first.fluxHeader().indexOf("wavelength_nm");
             at = String.join(", ", columns) + " at " + (wl >= 0 && !first.fluxRows().isEmpty()
                     ? plain(first.fluxRows().get(0)[wl]) + " nm" : "the first frequency");
-            yTitle = "flux / incident power";
+            yTitle = first.fluxHeader().contains("A") || first.fluxLines().stream().anyMatch(c -> c.startsWith("T_")
+                    || c.startsWith("R_")) ? "flux / incident power" : "surface power (see summary.json)";
         } else if (!first.decays().isEmpty()) {
             columns.addAll(first.decays().keySet());
             at = "decay lengths";

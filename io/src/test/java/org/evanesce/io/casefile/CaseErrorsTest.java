@@ -53,7 +53,7 @@ class CaseErrorsTest {
         assertEquals(List.of(
                 "case.yaml:1:1: domain: missing, expected a mapping with width and height",
                 "case.yaml:2:1: domian: unknown key (did you mean 'domain'?), expected one of title, parameters, design_wavelength, "
-                        + "design_frequency, polarization, domain, grid, materials, shapes, boundaries, sources, probes, flux, maps, output, "
+                        + "design_frequency, polarization, domain, grid, materials, shapes, boundaries, sources, probes, flux, surfaces, maps, output, "
                         + "until, numerics"),
                 errors(replace("domain:", "domian:")));
         assertEquals(List.of("case.yaml:2:37: domain.centre: unknown key, expected one of width, height, background"),
@@ -187,7 +187,7 @@ class CaseErrorsTest {
         assertEquals(List.of("case.yaml:1:1: the file is empty; a case needs at least polarization, domain, grid, sources and until"),
                 errors("# nothing here\n"));
         assertEquals(List.of("case.yaml:1:1: expected a mapping with keys such as title, parameters, design_wavelength, design_frequency, "
-                + "polarization, domain, grid, materials, shapes, boundaries, sources, probes, flux, maps, output, until, numerics, got a list"),
+                + "polarization, domain, grid, materials, shapes, boundaries, sources, probes, flux, surfaces, maps, output, until, numerics, got a list"),
                 errors("- polarization: s\n"));
         String flat = """
                 polarization: s

@@ -98,7 +98,35 @@ public final class LineSpectrum {
     public static LineSpectrum of(Polarization polarization, double wavelength, double index, Side exit,
                                   double firstPosition, double spacing, double[] uRe, double[] uIm, double[] vRe,
                                   double[] vIm, int oversampling) {
+        return of(polarization, wavelength, index, exit, firstPosition, spacing, uRe, uIm, vRe, vIm, 0, oversampling);
+    }
+
+    /**
+     * The same with the bins at κ = κ_B + 2πm/(MΔ): for fields on one period L = NΔ of a Bloch-periodic line, F(s + L)
+     * = e^{iκ_B L} F(s), whose plane waves (the Bloch orders) lie exactly on those bins when M = N, where bins at
+     * 2πm/(MΔ) would spread each order over all of them. The samples are multiplied by e^{−iκ_B (s_j − s_0)} before
+     * the FFT; everything else is as in the class comment.
+     *
+     * @param wavenumberOffset κ_B, rad/m; |κ_B| &lt; π/Δ
+     */
+    public static LineSpectrum of(Polarization polarization, double wavelength, double index, Side exit,
+                                  double firstPosition, double spacing, double[] uRe, double[] uIm, double[] vRe,
+                                  double[] vIm, double wavenumberOffset, int oversampling) {
         check(polarization, wavelength, index, exit, firstPosition, spacing, uRe, uIm, vRe, vIm, oversampling);
+        if (!(Math.abs(wavenumberOffset) < Math.PI / spacing)) {
+            throw new IllegalArgumentException(String.format("line spectrum: wavenumber offset %g rad/m must be below pi/spacing"
+                    + " = %g rad/m in magnitude", wavenumberOffset, Math.PI / spacing));
+        }
+        if (wavenumberOffset != 0) {
+            double[][] u = demodulate(uRe, uIm, wavenumberOffset, spacing);
+            uRe = u[0];
+            uIm = u[1];
+            if (vRe != null) {
+                double[][] v = demodulate(vRe, vIm, wavenumberOffset, spacing);
+                vRe = v[0];
+                vIm = v[1];
+            }
+        }
         int n = uRe.length;
         boolean twoWay = vRe != null;
         int m = Math.multiplyExact(n, oversampling);
@@ -110,12 +138,17 @@ public final class LineSpectrum {
         double[] au = transform(uRe, uIm, m);
         double[] av = twoWay ? transform(vRe, vIm, m) : null;
 
-        // the propagating bins in ascending κ: harmonics h with |h Δκ| < k
-        int hmax = (int) Math.ceil(k / dk) - 1;
-        while (hmax > 0 && hmax * dk >= k) {
+        // the propagating bins in ascending κ: harmonics h with |κ_B + h Δκ| < k
+        double kb = wavenumberOffset;
+        int hmin = (int) Math.floor((-k - kb) / dk);
+        while (kb + hmin * dk <= -k) {
+            hmin++;
+        }
+        int hmax = (int) Math.ceil((k - kb) / dk);
+        while (kb + hmax * dk >= k) {
             hmax--;
         }
-        int bins = 2 * hmax + 1;
+        int bins = Math.max(0, hmax - hmin + 1);
         double[] kappa = new double[bins];
         double[] outRe = new double[bins];
         double[] outIm = new double[bins];
@@ -125,9 +158,9 @@ public final class LineSpectrum {
         double[] inP = new double[bins];
         double perBin = dk / (2 * Math.PI) / (2 * k0 * f * PhysicalConstants.ETA0);
         for (int b = 0; b < bins; b++) {
-            int h = b - hmax;
+            int h = b + hmin;
             int idx = Math.floorMod(h, m);
-            double kap = h * dk;
+            double kap = kb + h * dk;
             double kn = Math.sqrt((k - kap) * (k + kap));
             // e^{−iκ s_0}: the transform's origin moved from the first sample to s = 0
             Complex phase = Complex.polar(spacing, -kap * firstPosition);
@@ -166,6 +199,19 @@ public final class LineSpectrum {
             spectral = sign * sum * spacing * spacing * dk / (2 * Math.PI) / (2 * PhysicalConstants.ETA0);
         }
         return new LineSpectrum(polarization, index, k0, dk, kappa, outRe, outIm, inRe, inIm, outP, inP, flux, spectral);
+    }
+
+    /** F_j e^{−iκ_B jΔ}: new arrays {re, im}. */
+    private static double[][] demodulate(double[] re, double[] im, double kb, double spacing) {
+        double[] r = new double[re.length];
+        double[] i = new double[re.length];
+        for (int j = 0; j < re.length; j++) {
+            double c = Math.cos(kb * j * spacing);
+            double sn = -Math.sin(kb * j * spacing);
+            r[j] = re[j] * c - im[j] * sn;
+            i[j] = re[j] * sn + im[j] * c;
+        }
+        return new double[][] {r, i};
     }
 
     private static void check(Polarization polarization, double wavelength, double index, Side exit, double first,

@@ -255,6 +255,16 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
     }
 
     /**
+     * 4/(D_E D_H), 1/s²: the factor that turns this line's "DFT flux" (and any power computed from its transforms,
+     * such as a far field's) into a continuous wave's time-averaged power ({@link #meanPower}); NaN before any sample.
+     */
+    public double meanPowerScale() {
+        double de = eSamples * dt;
+        double dh = hSamples * dt;
+        return de > 0 && dh > 0 ? 4 / (de * dh) : Double.NaN;
+    }
+
+    /**
      * The energy that crossed the line along +y per hertz of positive frequency at frequency q, J per
      * metre of z per Hz: 4·{@link #flux(int, double)} (Parseval; see the class comment). Meaningful when
      * the fields have died out inside the window (a pulse that has passed).

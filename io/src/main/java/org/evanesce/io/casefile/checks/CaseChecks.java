@@ -73,6 +73,7 @@ public final class CaseChecks {
         sourcesWithinTheRun();
         framesWithinTheRun();
         new PlaneWaveChecks(spec, paths, this).run();
+        new SurfaceChecks(spec, this).run();
     }
 
     void error(SourcePosition at, String path, String message) {

@@ -35,12 +35,13 @@ import org.evanesce.solver.grid.Side;
  * @param sweep            the parameter values {@code evanesce sweep} runs, when the case has a sweep section
  * @param polarizations    s, p or both as written (or set); for both, {@code polarization} is s, and the commands
  *                         that run the case read it again with {@code --set polarization=p} for the p run
+ * @param surfaces         power through segments and boxes, far fields and exit spectra, when the case asks for them
  */
 public record CaseSpec(String source, Optional<String> title, Map<String, Parameter> parameters,
         Located<Polarization> polarization, Value designWavelength, DomainSpec domain, ResolutionSpec resolution,
         Map<String, MaterialSpec> materials, List<ShapeSpec> shapes, Map<Side, BoundarySpec> boundaries,
         List<SourceSpec> sources, List<ProbeSpec> probes, Optional<FluxSpec> flux, Optional<MapsSpec> maps, OutputSpec output, StopSpec stop, NumericsSpec numerics,
-        Optional<SweepSpec> sweep, PolarizationChoice polarizations) {
+        Optional<SweepSpec> sweep, PolarizationChoice polarizations, Optional<SurfacesSpec> surfaces) {
 
     public CaseSpec {
         parameters = Collections.unmodifiableMap(new LinkedHashMap<>(parameters));

@@ -1,7 +1,5 @@
 package org.evanesce.io.casefile.sections;
 
-import org.evanesce.io.casefile.model.PolarizationChoice;
-
 import java.util.ArrayList;
 import java.util.EnumMap;
 import java.util.HashMap;
@@ -27,6 +25,7 @@ import org.evanesce.io.casefile.model.MapsSpec;
 import org.evanesce.io.casefile.model.MaterialSpec;
 import org.evanesce.io.casefile.model.NumericsSpec;
 import org.evanesce.io.casefile.model.OutputSpec;
+import org.evanesce.io.casefile.model.PolarizationChoice;
 import org.evanesce.io.casefile.model.Point;
 import org.evanesce.io.casefile.model.ProbeSpec;
 import org.evanesce.io.casefile.model.ResolutionSpec;
@@ -34,6 +33,7 @@ import org.evanesce.io.casefile.model.ShapeSpec;
 import org.evanesce.io.casefile.model.SignalSpec;
 import org.evanesce.io.casefile.model.SourceSpec;
 import org.evanesce.io.casefile.model.StopSpec;
+import org.evanesce.io.casefile.model.SurfacesSpec;
 import org.evanesce.io.casefile.model.SweepSpec;
 import org.evanesce.io.casefile.text.Located;
 import org.evanesce.io.casefile.text.Scalar;
@@ -110,6 +110,7 @@ final class CaseParser {
     final List<String> probePaths = new ArrayList<>();
     final Map<Side, String> boundaryPaths = new EnumMap<>(Side.class);
     FluxSpec flux;
+    SurfacesSpec surfaces;
     MapsSpec maps;
     boolean mapsFailed;
     OutputSpec output;
@@ -190,6 +191,8 @@ final class CaseParser {
         }
         readBoundaries(top.get("boundaries"), top.has("boundaries") ? top.keyAt("boundaries") : top.at());
         readProbes(top.get("probes"));
+        surfaces = new SurfacesReader(ctx).read(top.get("surfaces"), top.has("surfaces") ? top.keyAt("surfaces") : top.at(),
+                centreFrequency(), sources.stream().anyMatch(x -> x instanceof SourceSpec.Launched));
         Node o = top.get("output");
         readOutput(o == null ? null : MapView.of(ctx, o, Schema.OUTPUT, "output", top.keyAt("output")));
         Node s = top.require("until", "a mapping with time, steps or latest (and energy_below)");

@@ -46,7 +46,7 @@ final class Schema {
 
     static final Section ROOT = new Section("(top level)", List.of("title", "parameters", "design_wavelength",
             "design_frequency", "polarization", "domain", "grid", "materials", "shapes", "boundaries", "sources",
-            "probes", "flux", "maps", "output", "until", "numerics"),
+            "probes", "flux", "surfaces", "maps", "output", "until", "numerics"),
             Map.of("resolution", new Renamed("grid", "grid: {cell: ...} or grid: {cells_per_wavelength: ...}, with the same keys"),
                     "stop", new Renamed("until", "until: {time: ...}, {steps: ...} or {energy_below: ..., latest: ...}; "
                             + "decay is now energy_below and limit is now latest")));
@@ -96,6 +96,15 @@ final class Schema {
     static final Section WAVELENGTH_RANGE = new Section("flux.wavelengths", List.of("from", "to", "count"));
     static final Section FREQUENCY_RANGE = new Section("flux.frequencies", List.of("from", "to", "count"));
     static final Section FLUX_LINE = new Section("flux.lines[]", List.of("name", "y", "measures"));
+    static final Section SURFACES = new Section("surfaces", List.of("wavelengths", "frequencies", "normalise", "segments",
+            "boxes", "far_field", "exit_spectra"));
+    static final Section SURFACE_WAVELENGTHS = new Section("surfaces.wavelengths", List.of("from", "to", "count"));
+    static final Section SURFACE_FREQUENCIES = new Section("surfaces.frequencies", List.of("from", "to", "count"));
+    static final Section SEGMENT = new Section("surfaces.segments[]", List.of("name", "from", "to"));
+    static final Section BOX = new Section("surfaces.boxes[]", List.of("name", "from", "to"));
+    static final Section FAR_FIELD = new Section("surfaces.far_field[]", List.of("name", "from", "to", "angles"));
+    static final Section EXIT_SPECTRUM = new Section("surfaces.exit_spectra[]", List.of("name", "y", "towards",
+            "numerical_aperture"));
     static final Section OUTPUT = new Section("output", List.of("folder", "write", "frame_interval", "frame_times",
             "components", "region"));
     static final Section REGION = new Section("output.region", List.of("from", "to"));
@@ -122,7 +131,8 @@ final class Schema {
 
     static final List<Section> ALL = List.of(ROOT, DOMAIN, GRID, MATERIAL, DRUDE, LORENTZ, SHAPES, RECTANGLE, POLYGON, DISK,
             ELLIPSE, HALF_PLANE, LAYER_STACK, LAYER, BOUNDARIES, SOURCES, POINT_SOURCE, LINE_SOURCE, PLANE_WAVE, GAUSSIAN_BEAM, PLANE_WAVE_BOX, SIGNAL,
-            PULSE, RAMPED_WAVE, GAUSSIAN_DERIVATIVE, PROBE, FLUX, WAVELENGTH_RANGE, FREQUENCY_RANGE, FLUX_LINE, MAPS, MAP_WAVELENGTH_RANGE,
+            PULSE, RAMPED_WAVE, GAUSSIAN_DERIVATIVE, PROBE, FLUX, WAVELENGTH_RANGE, FREQUENCY_RANGE, FLUX_LINE, SURFACES, SURFACE_WAVELENGTHS, SURFACE_FREQUENCIES, SEGMENT, BOX, FAR_FIELD,
+            EXIT_SPECTRUM, MAPS, MAP_WAVELENGTH_RANGE,
             MAP_FREQUENCY_RANGE, DECAY_LINE, OUTPUT, REGION, UNTIL,
             NUMERICS, SWEEP, SWEEP_RANGE, SAMPLE, SAMPLE_PARAMETER, SAMPLE_LIMIT);
 

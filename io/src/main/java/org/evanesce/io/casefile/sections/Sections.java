@@ -64,7 +64,8 @@ public final class Sections {
         return new CaseSpec(ctx.source, Optional.ofNullable(p.title), ctx.parameters.resolved(),
                 new Located<>(p.polarization, p.polarizationAt), p.designWavelength, p.domain, p.resolution, p.used, p.shapes,
                 p.boundaries, p.sources, p.probes, Optional.ofNullable(p.flux), Optional.ofNullable(p.maps), p.output, p.stop,
-                p.numerics, Optional.ofNullable(p.sweep), p.polarizationChoice);
+                p.numerics, Optional.ofNullable(p.sweep), p.polarizationChoice,
+                Optional.ofNullable(p.surfaces));
     }
 
     private static void check(List<String> missing, Object part, String name) {
