@@ -1,9 +1,12 @@
 package org.evanesce.io.run;
 
+import static org.junit.jupiter.api.Assertions.assertDoesNotThrow;
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.Map;
+import org.evanesce.io.casefile.CaseFileException;
 import org.evanesce.io.casefile.CaseReader;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.plan.CasePlan;
@@ -214,5 +217,37 @@ class SurfacesRunTest {
             }
             assertEquals(f.rows().get(q).angleDegrees(), angles[best], 1e-9, pol + " frequency " + q + ": exit angle");
         }
+    }
+
+    /** A plane-wave box gives out no net power of its own: a 'source' norm (the default) would divide by about zero. */
+    @ParameterizedTest
+    @ValueSource(strings = {"", "  normalise: source\n", "  normalise: incident\n"})
+    void aPlaneWaveBoxTakesOnlyAbsolutePowers(String normalise) {
+        String text = """
+                design_wavelength: 633 nm
+                polarization: s
+                domain: {width: 3.2 um, height: 3.2 um}
+                grid: {cells_per_wavelength: 20}
+                materials:
+                  glass: {index: 1.5}
+                shapes:
+                  - disk: {centre: [0, 0], radius: 200 nm, material: glass}
+                boundaries: {all: pml 0.5 um}
+                sources:
+                  - plane_wave_box:
+                      from: [-0.5 um, -0.5 um]
+                      to: [0.5 um, 0.5 um]
+                      signal: {ramped_wave: {wavelength: 633 nm}}
+                surfaces:
+                """ + normalise + """
+                  far_field:
+                    - {name: ring, from: [-0.9 um, -0.9 um], to: [0.9 um, 0.9 um]}
+                until: {time: 120 fs}
+                """;
+        CaseFileException e = assertThrows(CaseFileException.class, () -> CaseReader.parse(text, "t.yaml", Map.of(), ReadOptions.defaults()));
+        assertTrue(e.getMessage().contains("surfaces.normalise: with a plane_wave_box only "
+                + "'absolute' is available"), e.getMessage());
+        assertDoesNotThrow(() -> CaseReader.parse(text.replace("surfaces:\n",
+                "surfaces:\n  normalise: absolute\n").replace(normalise, ""), "t.yaml", Map.of(), ReadOptions.defaults()));
     }
 }

@@ -67,6 +67,18 @@ final class SurfaceChecks {
         boolean launched = spec.sources().stream().anyMatch(x -> x instanceof SourceSpec.Launched);
         boolean local = spec.sources().stream().anyMatch(x -> !(x instanceof SourceSpec.Launched));
         SurfacesSpec.Normalise n = s.normalise().value();
+        if (spec.sources().stream().anyMatch(x -> x instanceof SourceSpec.PlaneWaveBox)) {
+            if (n != SurfacesSpec.Normalise.ABSOLUTE) {
+                // the box's wave has no incident-power run, and in a homogeneous run it gives out no net power, so a
+                // 'source' norm would divide by about zero
+                checks.error(s.normalise().at(), "surfaces.normalise", "with a plane_wave_box only 'absolute' is "
+                        + "available (the box's wave radiates no net power of its own, and no incident-power run measures "
+                        + "it); divide by the incident intensity yourself: A^2 n / (2 eta0) for s, A^2 / (2 n eta0) for p, "
+                        + "with A the box's amplitude, n the background's index and eta0 = 376.73 ohm; the scattering "
+                        + "width is then 2 pi x (power per radian) / intensity; expected absolute");
+            }
+            return;
+        }
         if (n == SurfacesSpec.Normalise.INCIDENT && (!launched || local)) {
             checks.error(s.normalise().at(), "surfaces.normalise", "'incident' divides by the incident power of a plane wave or "
                     + "Gaussian beam that is the case's only source; " + (launched ? "this case also has point or line "
