@@ -17,7 +17,8 @@ import org.evanesce.solver.record.StepView;
  */
 final class SharedRecorders implements BandTeam.After {
 
-    private final Simulation sim;
+    /** The run, seen only through its view: the recorders need nothing more. */
+    private final StepView sim;
     private final int workers;
     private SharedRecorder[] all = new SharedRecorder[0];
     /** The recorders that take the current step, first {@code count}. */
@@ -26,7 +27,7 @@ final class SharedRecorders implements BandTeam.After {
     /** The simulation as it will be after the step being taken: its step count is one ahead. */
     private final StepView ahead;
 
-    SharedRecorders(Simulation sim, int workers) {
+    SharedRecorders(StepView sim, int workers) {
         this.sim = sim;
         this.workers = workers;
         ahead = new Ahead();
@@ -68,7 +69,7 @@ final class SharedRecorders implements BandTeam.After {
         }
     }
 
-    /** The simulation's view with the step count of the step being taken (valid only inside {@link Simulation#step}). */
+    /** The simulation's view with the step count of the step being taken (valid only inside the simulation's step). */
     private final class Ahead implements StepView {
 
         @Override
