@@ -69,6 +69,42 @@ final class MapView {
         return v;
     }
 
+    /** Reads one named entry of a mapping; null after reporting what is wrong with it. */
+    interface NamedEntry<T> {
+        T read(String name, Node value, String path, SourcePosition keyAt);
+    }
+
+    /**
+     * Reads every entry of a mapping of names to values (sweep parameters to their values, sampled parameters
+     * to their distributions) in order into {@code out}, refusing a key that is not plain text and a name given
+     * twice; returns whether every entry read.
+     */
+    static <T> boolean readNamed(Context ctx, MappingNode m, String path, NamedEntry<T> entry, List<T> out) {
+        boolean ok = true;
+        Map<String, SourcePosition> seen = new LinkedHashMap<>();
+        for (NodeTuple t : m.getValue()) {
+            String name = keyText(ctx, t.getKeyNode(), path);
+            if (name == null) {
+                ok = false;
+                continue;
+            }
+            SourcePosition keyAt = ctx.pos(t.getKeyNode());
+            String p = path + "." + name;
+            if (seen.containsKey(name)) {
+                ctx.error(keyAt, p, "duplicate parameter, first given at line " + seen.get(name).line());
+                ok = false;
+                continue;
+            }
+            seen.put(name, keyAt);
+            T x = entry.read(name, t.getValueNode(), p, keyAt);
+            ok &= x != null;
+            if (x != null) {
+                out.add(x);
+            }
+        }
+        return ok;
+    }
+
     /** A mapping key as text, or null after reporting a key that is not a plain scalar. */
     static String keyText(Context ctx, Node key, String path) {
         if (key instanceof ScalarNode s && !Context.isNull(key)) {

@@ -66,27 +66,7 @@ final class SampleReader {
                         + "'gap: {distribution: normal, mean: 150 nm, standard_deviation: 5 nm}', got " + Context.describe(pn));
                 ok = false;
             } else {
-                Map<String, SourcePosition> seen = new LinkedHashMap<>();
-                for (NodeTuple t : m.getValue()) {
-                    String name = MapView.keyText(ctx, t.getKeyNode(), v.path("parameters"));
-                    if (name == null) {
-                        ok = false;
-                        continue;
-                    }
-                    SourcePosition at = ctx.pos(t.getKeyNode());
-                    String p = v.path("parameters") + "." + name;
-                    if (seen.containsKey(name)) {
-                        ctx.error(at, p, "duplicate parameter, first given at line " + seen.get(name).line());
-                        ok = false;
-                        continue;
-                    }
-                    seen.put(name, at);
-                    SampleSpec.Varied x = varied(name, t.getValueNode(), p, at);
-                    ok &= x != null;
-                    if (x != null) {
-                        varied.add(x);
-                    }
-                }
+                ok &= MapView.readNamed(ctx, m, v.path("parameters"), this::varied, varied);
             }
         }
         List<SampleSpec.Limit> limits = new ArrayList<>();

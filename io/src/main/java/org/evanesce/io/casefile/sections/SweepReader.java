@@ -109,28 +109,7 @@ final class SweepReader {
             return null;
         }
         List<SweepSpec.Axis> axes = new ArrayList<>();
-        boolean ok = true;
-        Map<String, SourcePosition> seen = new LinkedHashMap<>();
-        for (NodeTuple t : m.getValue()) {
-            String name = MapView.keyText(ctx, t.getKeyNode(), v.path("parameters"));
-            if (name == null) {
-                ok = false;
-                continue;
-            }
-            SourcePosition keyAt = ctx.pos(t.getKeyNode());
-            String path = v.path("parameters") + "." + name;
-            if (seen.containsKey(name)) {
-                ctx.error(keyAt, path, "duplicate parameter, first given at line " + seen.get(name).line());
-                ok = false;
-                continue;
-            }
-            seen.put(name, keyAt);
-            SweepSpec.Axis a = axis(name, t.getValueNode(), path, keyAt);
-            ok &= a != null;
-            if (a != null) {
-                axes.add(a);
-            }
-        }
+        boolean ok = MapView.readNamed(ctx, m, v.path("parameters"), this::axis, axes);
         if (!ok || combine == null) {
             return null;
         }
