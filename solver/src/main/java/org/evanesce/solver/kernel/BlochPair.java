@@ -46,6 +46,19 @@ final class BlochPair extends Engine {
     }
 
     @Override
+    protected int lanes() {
+        return re.lanes();
+    }
+
+    /** The parts run the rows, so they switch with the pair. */
+    @Override
+    protected void useVectors() {
+        super.useVectors();
+        re.useVectors();
+        im.useVectors();
+    }
+
+    @Override
     protected double hRowFull(int j, boolean flush) {
         int k = j * nx;
         double a = re.get(seamE, k);

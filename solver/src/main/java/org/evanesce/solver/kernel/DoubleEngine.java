@@ -148,6 +148,11 @@ abstract class DoubleEngine extends Engine {
     }
 
     @Override
+    protected int lanes() {
+        return DoubleKernels.SP.length();
+    }
+
+    @Override
     protected void dispersiveRow(int j) {
         for (DoubleAde a : ade) {
             if (a != null) {

@@ -12,7 +12,9 @@ import jdk.incubator.vector.VectorSpecies;
  * per-cell ca = (1 − L)/(1 + L), cb = s/(εr (1 + L)), L = σΔt/(2ε0εr).
  *
  * <p>Vector and scalar parts use the same operations in the same order (no fused multiply-add),
- * so every cell gets the same bits whichever part computes it.
+ * so every cell gets the same bits whichever part computes it. The row kernels take the vector
+ * parts' bound {@code vl}: the vector length, or {@link Engine#SCALAR_ONLY} to run the scalar parts
+ * alone (what an engine does while a run is young: see {@link Engine#vectorAfter}).
  * Generated from {@link FloatKernels} by tools/regen-double-kernels.sh: edit that file, not this one.
  */
 final class DoubleKernels {
@@ -29,13 +31,13 @@ final class DoubleKernels {
     }
 
     /** s: Hx(i,j) −= s·(Ez(i,j+1) − Ez(i,j)) for j ≤ ny−2, all i; Hy(i,j) += s·(Ez(i+1,j) − Ez(i,j)) for i ≤ nx−2. */
-    static void sH(double[] ez, double[] hx, double[] hy, int nx, int ny, int j, double s) {
+    static void sH(double[] ez, double[] hx, double[] hy, int nx, int ny, int j, double s, int vl) {
         int r = j * nx;
         int n = nx - 1;
         int i = 0;
-        DoubleVector vs = DoubleVector.broadcast(SP, s);
+        DoubleVector vs = vl <= nx ? DoubleVector.broadcast(SP, s) : null;
         if (j < ny - 1) {
-            for (; i <= n - VL; i += VL) {
+            for (; i <= n - vl; i += VL) {
                 int k = r + i;
                 DoubleVector e0 = DoubleVector.fromArray(SP, ez, k);
                 DoubleVector e1 = DoubleVector.fromArray(SP, ez, k + 1);
@@ -51,7 +53,7 @@ final class DoubleKernels {
             int k = r + n;
             hx[k] -= s * (ez[k + nx] - ez[k]);
         } else {
-            for (; i <= n - VL; i += VL) {
+            for (; i <= n - vl; i += VL) {
                 int k = r + i;
                 DoubleVector e0 = DoubleVector.fromArray(SP, ez, k);
                 DoubleVector e1 = DoubleVector.fromArray(SP, ez, k + 1);
@@ -68,12 +70,12 @@ final class DoubleKernels {
      * s, interior row 1 ≤ j ≤ ny−2, columns 1..nx−2: Ez ← ca·Ez + cb·((Hy(i) − Hy(i−1)) − (Hx(j) − Hx(j−1))).
      * {@code ca == null} means ca = 1 everywhere (no conductivity): one array less to stream.
      */
-    static void sE(double[] ez, double[] hx, double[] hy, double[] ca, double[] cb, int nx, int j) {
+    static void sE(double[] ez, double[] hx, double[] hy, double[] ca, double[] cb, int nx, int j, int vl) {
         int r = j * nx;
         int end = nx - 1;
         int i = 1;
         if (ca == null) {
-            for (; i <= end - VL; i += VL) {
+            for (; i <= end - vl; i += VL) {
                 int k = r + i;
                 DoubleVector curl = DoubleVector.fromArray(SP, hy, k).sub(DoubleVector.fromArray(SP, hy, k - 1))
                         .sub(DoubleVector.fromArray(SP, hx, k).sub(DoubleVector.fromArray(SP, hx, k - nx)));
@@ -86,7 +88,7 @@ final class DoubleKernels {
             }
             return;
         }
-        for (; i <= end - VL; i += VL) {
+        for (; i <= end - vl; i += VL) {
             int k = r + i;
             DoubleVector curl = DoubleVector.fromArray(SP, hy, k).sub(DoubleVector.fromArray(SP, hy, k - 1))
                     .sub(DoubleVector.fromArray(SP, hx, k).sub(DoubleVector.fromArray(SP, hx, k - nx)));
@@ -113,12 +115,12 @@ final class DoubleKernels {
     }
 
     /** p, row j ≤ ny−2, columns 0..nx−2: Hz += s·((Ex(j+1) − Ex(j)) − (Ey(i+1) − Ey(i))). */
-    static void pH(double[] hz, double[] ex, double[] ey, int nx, int j, double s) {
+    static void pH(double[] hz, double[] ex, double[] ey, int nx, int j, double s, int vl) {
         int r = j * nx;
         int n = nx - 1;
         int i = 0;
-        DoubleVector vs = DoubleVector.broadcast(SP, s);
-        for (; i <= n - VL; i += VL) {
+        DoubleVector vs = vl <= nx ? DoubleVector.broadcast(SP, s) : null;
+        for (; i <= n - vl; i += VL) {
             int k = r + i;
             DoubleVector dEx = DoubleVector.fromArray(SP, ex, k + nx).sub(DoubleVector.fromArray(SP, ex, k));
             DoubleVector dEy = DoubleVector.fromArray(SP, ey, k + 1).sub(DoubleVector.fromArray(SP, ey, k));
@@ -131,12 +133,12 @@ final class DoubleKernels {
     }
 
     /** p, interior row 1 ≤ j ≤ ny−2, columns 0..nx−2: Ex ← cax·Ex + cbx·(Hz(j) − Hz(j−1)); {@code ca == null} means 1. */
-    static void pEx(double[] hz, double[] ex, double[] ca, double[] cb, int nx, int j) {
+    static void pEx(double[] hz, double[] ex, double[] ca, double[] cb, int nx, int j, int vl) {
         int r = j * nx;
         int n = nx - 1;
         int i = 0;
         if (ca == null) {
-            for (; i <= n - VL; i += VL) {
+            for (; i <= n - vl; i += VL) {
                 int k = r + i;
                 DoubleVector d = DoubleVector.fromArray(SP, hz, k).sub(DoubleVector.fromArray(SP, hz, k - nx));
                 DoubleVector.fromArray(SP, ex, k).add(DoubleVector.fromArray(SP, cb, k).mul(d)).intoArray(ex, k);
@@ -147,7 +149,7 @@ final class DoubleKernels {
             }
             return;
         }
-        for (; i <= n - VL; i += VL) {
+        for (; i <= n - vl; i += VL) {
             int k = r + i;
             DoubleVector d = DoubleVector.fromArray(SP, hz, k).sub(DoubleVector.fromArray(SP, hz, k - nx));
             DoubleVector.fromArray(SP, ca, k).mul(DoubleVector.fromArray(SP, ex, k))
@@ -160,12 +162,12 @@ final class DoubleKernels {
     }
 
     /** p, row j ≤ ny−2, columns 1..nx−2: Ey ← cay·Ey − cby·(Hz(i) − Hz(i−1)); {@code ca == null} means 1. */
-    static void pEy(double[] hz, double[] ey, double[] ca, double[] cb, int nx, int j) {
+    static void pEy(double[] hz, double[] ey, double[] ca, double[] cb, int nx, int j, int vl) {
         int r = j * nx;
         int end = nx - 1;
         int i = 1;
         if (ca == null) {
-            for (; i <= end - VL; i += VL) {
+            for (; i <= end - vl; i += VL) {
                 int k = r + i;
                 DoubleVector d = DoubleVector.fromArray(SP, hz, k).sub(DoubleVector.fromArray(SP, hz, k - 1));
                 DoubleVector.fromArray(SP, ey, k).sub(DoubleVector.fromArray(SP, cb, k).mul(d)).intoArray(ey, k);
@@ -176,7 +178,7 @@ final class DoubleKernels {
             }
             return;
         }
-        for (; i <= end - VL; i += VL) {
+        for (; i <= end - vl; i += VL) {
             int k = r + i;
             DoubleVector d = DoubleVector.fromArray(SP, hz, k).sub(DoubleVector.fromArray(SP, hz, k - 1));
             DoubleVector.fromArray(SP, ca, k).mul(DoubleVector.fromArray(SP, ey, k))
@@ -209,12 +211,12 @@ final class DoubleKernels {
      * The loops run down the columns of the strip, a vector of columns at a time, so the
      * coefficients stay in registers and the short strip rows cost no loop set-up each.
      */
-    static void pmlXH(double[] f, double[] g, double coef, int nx, int j0, int j1, DoubleStrip st, double[] psi) {
+    static void pmlXH(double[] f, double[] g, double coef, int nx, int j0, int j1, DoubleStrip st, double[] psi, int vl) {
         int w = st.width;
-        DoubleVector vc = DoubleVector.broadcast(SP, coef);
+        DoubleVector vc = vl <= nx ? DoubleVector.broadcast(SP, coef) : null;
         int ii = 0;
         // two vectors of columns per row where they fit: two independent chains per iteration
-        for (; ii <= w - 2 * VL; ii += 2 * VL) {
+        for (; ii <= w - 2 * vl; ii += 2 * VL) {
             DoubleVector b0 = DoubleVector.fromArray(SP, st.bH, ii);
             DoubleVector c0 = DoubleVector.fromArray(SP, st.cH, ii);
             DoubleVector kt0 = DoubleVector.fromArray(SP, st.kH, ii);
@@ -228,7 +230,7 @@ final class DoubleKernels {
                 xh(f, g, vc, psi, b1, c1, kt1, k + VL, p + VL);
             }
         }
-        for (; ii <= w - VL; ii += VL) {
+        for (; ii <= w - vl; ii += VL) {
             DoubleVector b = DoubleVector.fromArray(SP, st.bH, ii);
             DoubleVector c = DoubleVector.fromArray(SP, st.cH, ii);
             DoubleVector kt = DoubleVector.fromArray(SP, st.kH, ii);
@@ -259,10 +261,10 @@ final class DoubleKernels {
      * (subtracted when {@code subtract}). ψ is indexed {@code psi[j*width + ii]}; loops as {@link #pmlXH}.
      */
     static void pmlXE(double[] f, double[] g, double[] cb, boolean subtract, int nx, int j0, int j1, DoubleStrip st,
-                      double[] psi) {
+                      double[] psi, int vl) {
         int w = st.width;
         int ii = st.eFrom;
-        for (; ii <= st.eTo - 2 * VL; ii += 2 * VL) {
+        for (; ii <= st.eTo - 2 * vl; ii += 2 * VL) {
             DoubleVector b0 = DoubleVector.fromArray(SP, st.bE, ii);
             DoubleVector c0 = DoubleVector.fromArray(SP, st.cE, ii);
             DoubleVector kt0 = DoubleVector.fromArray(SP, st.kE, ii);
@@ -276,7 +278,7 @@ final class DoubleKernels {
                 xe(f, g, cb, subtract, psi, b1, c1, kt1, k + VL, p + VL);
             }
         }
-        for (; ii <= st.eTo - VL; ii += VL) {
+        for (; ii <= st.eTo - vl; ii += VL) {
             DoubleVector b = DoubleVector.fromArray(SP, st.bE, ii);
             DoubleVector c = DoubleVector.fromArray(SP, st.cE, ii);
             DoubleVector kt = DoubleVector.fromArray(SP, st.kE, ii);
@@ -328,18 +330,18 @@ final class DoubleKernels {
      * CPML correction of a magnetic component along y in row j = start + jj, cells i in [0, i1):
      * d = g(j+1) − g(j), otherwise as {@link #pmlXH}; ψ is indexed {@code psi[jj*nx + i]}.
      */
-    static void pmlYH(double[] f, double[] g, double coef, int nx, int jj, DoubleStrip st, double[] psi, int i1) {
+    static void pmlYH(double[] f, double[] g, double coef, int nx, int jj, DoubleStrip st, double[] psi, int i1, int vl) {
         int r = (st.start + jj) * nx;
         int pb = jj * nx;
         double b = st.bH[jj];
         double c = st.cH[jj];
         double kt = st.kH[jj];
-        DoubleVector vb = DoubleVector.broadcast(SP, b);
-        DoubleVector vcc = DoubleVector.broadcast(SP, c);
-        DoubleVector vk = DoubleVector.broadcast(SP, kt);
-        DoubleVector vc = DoubleVector.broadcast(SP, coef);
+        DoubleVector vb = vl <= nx ? DoubleVector.broadcast(SP, b) : null;
+        DoubleVector vcc = vl <= nx ? DoubleVector.broadcast(SP, c) : null;
+        DoubleVector vk = vl <= nx ? DoubleVector.broadcast(SP, kt) : null;
+        DoubleVector vc = vl <= nx ? DoubleVector.broadcast(SP, coef) : null;
         int i = 0;
-        for (; i <= i1 - VL; i += VL) {
+        for (; i <= i1 - vl; i += VL) {
             int k = r + i;
             DoubleVector d = DoubleVector.fromArray(SP, g, k + nx).sub(DoubleVector.fromArray(SP, g, k));
             DoubleVector ps = vb.mul(DoubleVector.fromArray(SP, psi, pb + i)).add(vcc.mul(d));
@@ -364,17 +366,17 @@ final class DoubleKernels {
      * d = g(j) − g(j−1), otherwise as {@link #pmlXE}; ψ is indexed {@code psi[jj*nx + i]}.
      */
     static void pmlYE(double[] f, double[] g, double[] cb, boolean subtract, int nx, int jj, DoubleStrip st, double[] psi,
-                      int i0, int i1) {
+                      int i0, int i1, int vl) {
         int r = (st.start + jj) * nx;
         int pb = jj * nx;
         double b = st.bE[jj];
         double c = st.cE[jj];
         double kt = st.kE[jj];
-        DoubleVector vb = DoubleVector.broadcast(SP, b);
-        DoubleVector vcc = DoubleVector.broadcast(SP, c);
-        DoubleVector vk = DoubleVector.broadcast(SP, kt);
+        DoubleVector vb = vl <= nx ? DoubleVector.broadcast(SP, b) : null;
+        DoubleVector vcc = vl <= nx ? DoubleVector.broadcast(SP, c) : null;
+        DoubleVector vk = vl <= nx ? DoubleVector.broadcast(SP, kt) : null;
         int i = i0;
-        for (; i <= i1 - VL; i += VL) {
+        for (; i <= i1 - vl; i += VL) {
             int k = r + i;
             DoubleVector d = DoubleVector.fromArray(SP, g, k).sub(DoubleVector.fromArray(SP, g, k - nx));
             DoubleVector ps = vb.mul(DoubleVector.fromArray(SP, psi, pb + i)).add(vcc.mul(d));

@@ -61,7 +61,7 @@ final class DoubleP extends DoubleEngine {
 
     /** Row j's magnetic update without the CPML corrections (j ≤ ny−2). */
     private void hCore(int j) {
-        DoubleKernels.pH(hz, ex, ey, nx, j, s);
+        DoubleKernels.pH(hz, ex, ey, nx, j, s, vl);
         if (blochX) {
             int k = j * nx + nx - 1;
             hz[k] += s * ((ex[k + nx] - ex[k]) - (ghostE[j] - ey[k]));
@@ -71,7 +71,7 @@ final class DoubleP extends DoubleEngine {
     /** The x-side CPML corrections of Hz in rows [a, b). */
     private void hStrips(int a, int b) {
         for (DoubleStrip x : xs) {
-            DoubleKernels.pmlXH(hz, ey, -s, nx, a, b, x, x.psiH);
+            DoubleKernels.pmlXH(hz, ey, -s, nx, a, b, x, x.psiH, vl);
         }
     }
 
@@ -80,7 +80,7 @@ final class DoubleP extends DoubleEngine {
         int q = yStripOfRow[j];
         if (q >= 0) {
             DoubleStrip y = ys[q];
-            DoubleKernels.pmlYH(hz, ex, s, nx, j - y.start, y, y.psiH, blochX ? nx : nx - 1);
+            DoubleKernels.pmlYH(hz, ex, s, nx, j - y.start, y, y.psiH, blochX ? nx : nx - 1, vl);
         }
     }
 
@@ -111,7 +111,7 @@ final class DoubleP extends DoubleEngine {
         // Ex: interior rows, or a PMC wall row; with Bloch boundaries the last column too
         int exEnd = blochX ? nx : nx - 1;
         if (!wallRow) {
-            DoubleKernels.pEx(hz, ex, cax, cbx, nx, j);
+            DoubleKernels.pEx(hz, ex, cax, cbx, nx, j, vl);
             if (blochX) {
                 DoubleKernels.pExEdge(hz, ex, cax, cbx, nx, nx - 1, j);
             }
@@ -126,12 +126,12 @@ final class DoubleP extends DoubleEngine {
             DoubleStrip y = ys[q];
             int jj = j - y.start;
             if (jj >= 1) {
-                DoubleKernels.pmlYE(ex, hz, cbx, false, nx, jj, y, y.psiE, 0, exEnd);
+                DoubleKernels.pmlYE(ex, hz, cbx, false, nx, jj, y, y.psiE, 0, exEnd, vl);
             }
         }
         // Ey: rows 0..ny-2
         if (j < ny - 1) {
-            DoubleKernels.pEy(hz, ey, cay, cby, nx, j);
+            DoubleKernels.pEy(hz, ey, cay, cby, nx, j, vl);
             if (pmcLeft || blochX) {
                 DoubleKernels.pEyEdge(hz, ey, cay, cby, nx, 0, j, blochX ? ghostW[j] : 0.0);
             }
@@ -144,7 +144,7 @@ final class DoubleP extends DoubleEngine {
     /** The x-side CPML corrections of Ey in rows [a, b) (rows ≤ ny−2). */
     private void eStrips(int a, int b) {
         for (DoubleStrip x : xs) {
-            DoubleKernels.pmlXE(ey, hz, cby, true, nx, a, b, x, x.psiE);
+            DoubleKernels.pmlXE(ey, hz, cby, true, nx, a, b, x, x.psiE, vl);
         }
     }
 

@@ -52,7 +52,7 @@ final class DoubleS extends DoubleEngine {
 
     /** Row j's magnetic update without the CPML corrections. */
     private void hCore(int j) {
-        DoubleKernels.sH(ez, hx, hy, nx, ny, j, s);
+        DoubleKernels.sH(ez, hx, hy, nx, ny, j, s, vl);
         if (blochX) {
             int k = j * nx + nx - 1;
             hy[k] += s * (ghostE[j] - ez[k]);
@@ -62,7 +62,7 @@ final class DoubleS extends DoubleEngine {
     /** The x-side CPML corrections of Hy in rows [a, b). */
     private void hStrips(int a, int b) {
         for (DoubleStrip x : xs) {
-            DoubleKernels.pmlXH(hy, ez, s, nx, a, b, x, x.psiH);
+            DoubleKernels.pmlXH(hy, ez, s, nx, a, b, x, x.psiH, vl);
         }
     }
 
@@ -71,7 +71,7 @@ final class DoubleS extends DoubleEngine {
         int q = yStripOfRow[j];
         if (q >= 0) {
             DoubleStrip y = ys[q];
-            DoubleKernels.pmlYH(hx, ez, -s, nx, j - y.start, y, y.psiH, nx);
+            DoubleKernels.pmlYH(hx, ez, -s, nx, j - y.start, y, y.psiH, nx, vl);
         }
     }
 
@@ -112,7 +112,7 @@ final class DoubleS extends DoubleEngine {
         boolean last = pmcRight || blochX;
         double west = blochX ? ghostW[j] : 0.0;
         if (!wallRow) {
-            DoubleKernels.sE(ez, hx, hy, ca, cb, nx, j);
+            DoubleKernels.sE(ez, hx, hy, ca, cb, nx, j, vl);
             if (first) {
                 DoubleKernels.sEdge(ez, hx, hy, ca, cb, nx, 0, j, west);
             }
@@ -132,7 +132,7 @@ final class DoubleS extends DoubleEngine {
     /** The x-side CPML corrections of Ez in rows [a, b) (all updated rows). */
     private void eStrips(int a, int b) {
         for (DoubleStrip x : xs) {
-            DoubleKernels.pmlXE(ez, hy, cb, false, nx, a, b, x, x.psiE);
+            DoubleKernels.pmlXE(ez, hy, cb, false, nx, a, b, x, x.psiE, vl);
         }
     }
 
@@ -145,7 +145,7 @@ final class DoubleS extends DoubleEngine {
             if (jj >= 1) {
                 boolean first = pmcLeft || blochX;
                 boolean last = pmcRight || blochX;
-                DoubleKernels.pmlYE(ez, hx, cb, true, nx, jj, y, y.psiE, first ? 0 : 1, last ? nx : nx - 1);
+                DoubleKernels.pmlYE(ez, hx, cb, true, nx, jj, y, y.psiE, first ? 0 : 1, last ? nx : nx - 1, vl);
             }
         }
     }

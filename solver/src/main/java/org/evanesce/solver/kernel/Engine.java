@@ -64,6 +64,51 @@ public abstract class Engine {
      */
     protected boolean dispersive;
 
+    /**
+     * The bound the row kernels get for their vector parts: {@link #SCALAR_ONLY} while the run is
+     * young, then the vector length (see {@link #vectorAfter}). Both give every cell the same bits;
+     * a thread that reads a stale value computes the same result.
+     */
+    protected int vl = SCALAR_ONLY;
+    /** Steps swept so far while scalar (counted by the band that holds row 0). */
+    private long scalarSteps;
+
+    /** A vector bound larger than any row: the kernels' vector parts never run. */
+    static final int SCALAR_ONLY = 1 << 29;
+
+    /**
+     * Cell updates an engine makes with the kernels' scalar parts before the vector parts take over.
+     * Vector code runs very slowly until the JIT has compiled it (a few hundred milliseconds of
+     * CPU and as much garbage as the grid), while scalar loops compile at once; below this much
+     * work a run is faster scalar. Measured on 2-core x86 (whole commands, paired): scalar took
+     * 0.73–0.85× the CPU time and half the peak memory on runs of 2e7–6e7 cell updates, and 1.11×
+     * on 5.7e8 (docs/architecture.md). Developers may override it with
+     * {@code -Devanesce.vectorAfter=N} (0: vectors from the first step).
+     */
+    static final long VECTOR_AFTER = Long.getLong("evanesce.vectorAfter", 200_000_000L);
+
+    /** This engine's threshold: {@link #VECTOR_AFTER} unless a test sets another. */
+    private long vectorAfter = VECTOR_AFTER;
+
+    /** The vector length of this engine's kernels (lanes per vector). */
+    protected abstract int lanes();
+
+    /** From now on the kernels run their vector parts. */
+    protected void useVectors() {
+        vl = lanes();
+    }
+
+    /**
+     * Sets the cell updates made scalar before the vector parts take over (tests: 0 runs vectors
+     * from the start, Long.MAX_VALUE never). Call before the first step.
+     */
+    void vectorAfter(long cellUpdates) {
+        vectorAfter = cellUpdates;
+        if (cellUpdates <= 0) {
+            useVectors();
+        }
+    }
+
     protected Engine(int nx, int ny, double courant, Map<Side, Boundary> sides) {
         this.nx = nx;
         this.ny = ny;
@@ -338,6 +383,12 @@ public abstract class Engine {
      * @return the largest magnitude met when flushing, else 0
      */
     public final double sweep(int j0, int j1, int phase, boolean flush) {
+        if (phase == 0 && j0 == 0 && vl == SCALAR_ONLY) {
+            scalarSteps++;
+            if (scalarSteps * nx * ny >= vectorAfter) {
+                useVectors();
+            }
+        }
         double max = 0;
         if (phase == 0) {
             max = hRowFull(j1 - 1, flush);

@@ -148,6 +148,11 @@ abstract class FloatEngine extends Engine {
     }
 
     @Override
+    protected int lanes() {
+        return FloatKernels.SP.length();
+    }
+
+    @Override
     protected void dispersiveRow(int j) {
         for (FloatAde a : ade) {
             if (a != null) {

@@ -12,7 +12,9 @@ import jdk.incubator.vector.VectorSpecies;
  * per-cell ca = (1 − L)/(1 + L), cb = s/(εr (1 + L)), L = σΔt/(2ε0εr).
  *
  * <p>Vector and scalar parts use the same operations in the same order (no fused multiply-add),
- * so every cell gets the same bits whichever part computes it.
+ * so every cell gets the same bits whichever part computes it. The row kernels take the vector
+ * parts' bound {@code vl}: the vector length, or {@link Engine#SCALAR_ONLY} to run the scalar parts
+ * alone (what an engine does while a run is young: see {@link Engine#vectorAfter}).
  * Edit this file; {@link DoubleKernels} is generated from it (tools/regen-double-kernels.sh).
  */
 final class FloatKernels {
@@ -29,13 +31,13 @@ final class FloatKernels {
     }
 
     /** s: Hx(i,j) −= s·(Ez(i,j+1) − Ez(i,j)) for j ≤ ny−2, all i; Hy(i,j) += s·(Ez(i+1,j) − Ez(i,j)) for i ≤ nx−2. */
-    static void sH(float[] ez, float[] hx, float[] hy, int nx, int ny, int j, float s) {
+    static void sH(float[] ez, float[] hx, float[] hy, int nx, int ny, int j, float s, int vl) {
         int r = j * nx;
         int n = nx - 1;
         int i = 0;
-        FloatVector vs = FloatVector.broadcast(SP, s);
+        FloatVector vs = vl <= nx ? FloatVector.broadcast(SP, s) : null;
         if (j < ny - 1) {
-            for (; i <= n - VL; i += VL) {
+            for (; i <= n - vl; i += VL) {
                 int k = r + i;
                 FloatVector e0 = FloatVector.fromArray(SP, ez, k);
                 FloatVector e1 = FloatVector.fromArray(SP, ez, k + 1);
@@ -51,7 +53,7 @@ final class FloatKernels {
             int k = r + n;
             hx[k] -= s * (ez[k + nx] - ez[k]);
         } else {
-            for (; i <= n - VL; i += VL) {
+            for (; i <= n - vl; i += VL) {
                 int k = r + i;
                 FloatVector e0 = FloatVector.fromArray(SP, ez, k);
                 FloatVector e1 = FloatVector.fromArray(SP, ez, k + 1);
@@ -68,12 +70,12 @@ final class FloatKernels {
      * s, interior row 1 ≤ j ≤ ny−2, columns 1..nx−2: Ez ← ca·Ez + cb·((Hy(i) − Hy(i−1)) − (Hx(j) − Hx(j−1))).
      * {@code ca == null} means ca = 1 everywhere (no conductivity): one array less to stream.
      */
-    static void sE(float[] ez, float[] hx, float[] hy, float[] ca, float[] cb, int nx, int j) {
+    static void sE(float[] ez, float[] hx, float[] hy, float[] ca, float[] cb, int nx, int j, int vl) {
         int r = j * nx;
         int end = nx - 1;
         int i = 1;
         if (ca == null) {
-            for (; i <= end - VL; i += VL) {
+            for (; i <= end - vl; i += VL) {
                 int k = r + i;
                 FloatVector curl = FloatVector.fromArray(SP, hy, k).sub(FloatVector.fromArray(SP, hy, k - 1))
                         .sub(FloatVector.fromArray(SP, hx, k).sub(FloatVector.fromArray(SP, hx, k - nx)));
@@ -86,7 +88,7 @@ final class FloatKernels {
             }
             return;
         }
-        for (; i <= end - VL; i += VL) {
+        for (; i <= end - vl; i += VL) {
             int k = r + i;
             FloatVector curl = FloatVector.fromArray(SP, hy, k).sub(FloatVector.fromArray(SP, hy, k - 1))
                     .sub(FloatVector.fromArray(SP, hx, k).sub(FloatVector.fromArray(SP, hx, k - nx)));
@@ -113,12 +115,12 @@ final class FloatKernels {
     }
 
     /** p, row j ≤ ny−2, columns 0..nx−2: Hz += s·((Ex(j+1) − Ex(j)) − (Ey(i+1) − Ey(i))). */
-    static void pH(float[] hz, float[] ex, float[] ey, int nx, int j, float s) {
+    static void pH(float[] hz, float[] ex, float[] ey, int nx, int j, float s, int vl) {
         int r = j * nx;
         int n = nx - 1;
         int i = 0;
-        FloatVector vs = FloatVector.broadcast(SP, s);
-        for (; i <= n - VL; i += VL) {
+        FloatVector vs = vl <= nx ? FloatVector.broadcast(SP, s) : null;
+        for (; i <= n - vl; i += VL) {
             int k = r + i;
             FloatVector dEx = FloatVector.fromArray(SP, ex, k + nx).sub(FloatVector.fromArray(SP, ex, k));
             FloatVector dEy = FloatVector.fromArray(SP, ey, k + 1).sub(FloatVector.fromArray(SP, ey, k));
@@ -131,12 +133,12 @@ final class FloatKernels {
     }
 
     /** p, interior row 1 ≤ j ≤ ny−2, columns 0..nx−2: Ex ← cax·Ex + cbx·(Hz(j) − Hz(j−1)); {@code ca == null} means 1. */
-    static void pEx(float[] hz, float[] ex, float[] ca, float[] cb, int nx, int j) {
+    static void pEx(float[] hz, float[] ex, float[] ca, float[] cb, int nx, int j, int vl) {
         int r = j * nx;
         int n = nx - 1;
         int i = 0;
         if (ca == null) {
-            for (; i <= n - VL; i += VL) {
+            for (; i <= n - vl; i += VL) {
                 int k = r + i;
                 FloatVector d = FloatVector.fromArray(SP, hz, k).sub(FloatVector.fromArray(SP, hz, k - nx));
                 FloatVector.fromArray(SP, ex, k).add(FloatVector.fromArray(SP, cb, k).mul(d)).intoArray(ex, k);
@@ -147,7 +149,7 @@ final class FloatKernels {
             }
             return;
         }
-        for (; i <= n - VL; i += VL) {
+        for (; i <= n - vl; i += VL) {
             int k = r + i;
             FloatVector d = FloatVector.fromArray(SP, hz, k).sub(FloatVector.fromArray(SP, hz, k - nx));
             FloatVector.fromArray(SP, ca, k).mul(FloatVector.fromArray(SP, ex, k))
@@ -160,12 +162,12 @@ final class FloatKernels {
     }
 
     /** p, row j ≤ ny−2, columns 1..nx−2: Ey ← cay·Ey − cby·(Hz(i) − Hz(i−1)); {@code ca == null} means 1. */
-    static void pEy(float[] hz, float[] ey, float[] ca, float[] cb, int nx, int j) {
+    static void pEy(float[] hz, float[] ey, float[] ca, float[] cb, int nx, int j, int vl) {
         int r = j * nx;
         int end = nx - 1;
         int i = 1;
         if (ca == null) {
-            for (; i <= end - VL; i += VL) {
+            for (; i <= end - vl; i += VL) {
                 int k = r + i;
                 FloatVector d = FloatVector.fromArray(SP, hz, k).sub(FloatVector.fromArray(SP, hz, k - 1));
                 FloatVector.fromArray(SP, ey, k).sub(FloatVector.fromArray(SP, cb, k).mul(d)).intoArray(ey, k);
@@ -176,7 +178,7 @@ final class FloatKernels {
             }
             return;
         }
-        for (; i <= end - VL; i += VL) {
+        for (; i <= end - vl; i += VL) {
             int k = r + i;
             FloatVector d = FloatVector.fromArray(SP, hz, k).sub(FloatVector.fromArray(SP, hz, k - 1));
             FloatVector.fromArray(SP, ca, k).mul(FloatVector.fromArray(SP, ey, k))
@@ -209,12 +211,12 @@ final class FloatKernels {
      * The loops run down the columns of the strip, a vector of columns at a time, so the
      * coefficients stay in registers and the short strip rows cost no loop set-up each.
      */
-    static void pmlXH(float[] f, float[] g, float coef, int nx, int j0, int j1, FloatStrip st, float[] psi) {
+    static void pmlXH(float[] f, float[] g, float coef, int nx, int j0, int j1, FloatStrip st, float[] psi, int vl) {
         int w = st.width;
-        FloatVector vc = FloatVector.broadcast(SP, coef);
+        FloatVector vc = vl <= nx ? FloatVector.broadcast(SP, coef) : null;
         int ii = 0;
         // two vectors of columns per row where they fit: two independent chains per iteration
-        for (; ii <= w - 2 * VL; ii += 2 * VL) {
+        for (; ii <= w - 2 * vl; ii += 2 * VL) {
             FloatVector b0 = FloatVector.fromArray(SP, st.bH, ii);
             FloatVector c0 = FloatVector.fromArray(SP, st.cH, ii);
             FloatVector kt0 = FloatVector.fromArray(SP, st.kH, ii);
@@ -228,7 +230,7 @@ final class FloatKernels {
                 xh(f, g, vc, psi, b1, c1, kt1, k + VL, p + VL);
             }
         }
-        for (; ii <= w - VL; ii += VL) {
+        for (; ii <= w - vl; ii += VL) {
             FloatVector b = FloatVector.fromArray(SP, st.bH, ii);
             FloatVector c = FloatVector.fromArray(SP, st.cH, ii);
             FloatVector kt = FloatVector.fromArray(SP, st.kH, ii);
@@ -259,10 +261,10 @@ final class FloatKernels {
      * (subtracted when {@code subtract}). ψ is indexed {@code psi[j*width + ii]}; loops as {@link #pmlXH}.
      */
     static void pmlXE(float[] f, float[] g, float[] cb, boolean subtract, int nx, int j0, int j1, FloatStrip st,
-                      float[] psi) {
+                      float[] psi, int vl) {
         int w = st.width;
         int ii = st.eFrom;
-        for (; ii <= st.eTo - 2 * VL; ii += 2 * VL) {
+        for (; ii <= st.eTo - 2 * vl; ii += 2 * VL) {
             FloatVector b0 = FloatVector.fromArray(SP, st.bE, ii);
             FloatVector c0 = FloatVector.fromArray(SP, st.cE, ii);
             FloatVector kt0 = FloatVector.fromArray(SP, st.kE, ii);
@@ -276,7 +278,7 @@ final class FloatKernels {
                 xe(f, g, cb, subtract, psi, b1, c1, kt1, k + VL, p + VL);
             }
         }
-        for (; ii <= st.eTo - VL; ii += VL) {
+        for (; ii <= st.eTo - vl; ii += VL) {
             FloatVector b = FloatVector.fromArray(SP, st.bE, ii);
             FloatVector c = FloatVector.fromArray(SP, st.cE, ii);
             FloatVector kt = FloatVector.fromArray(SP, st.kE, ii);
@@ -328,18 +330,18 @@ final class FloatKernels {
      * CPML correction of a magnetic component along y in row j = start + jj, cells i in [0, i1):
      * d = g(j+1) − g(j), otherwise as {@link #pmlXH}; ψ is indexed {@code psi[jj*nx + i]}.
      */
-    static void pmlYH(float[] f, float[] g, float coef, int nx, int jj, FloatStrip st, float[] psi, int i1) {
+    static void pmlYH(float[] f, float[] g, float coef, int nx, int jj, FloatStrip st, float[] psi, int i1, int vl) {
         int r = (st.start + jj) * nx;
         int pb = jj * nx;
         float b = st.bH[jj];
         float c = st.cH[jj];
         float kt = st.kH[jj];
-        FloatVector vb = FloatVector.broadcast(SP, b);
-        FloatVector vcc = FloatVector.broadcast(SP, c);
-        FloatVector vk = FloatVector.broadcast(SP, kt);
-        FloatVector vc = FloatVector.broadcast(SP, coef);
+        FloatVector vb = vl <= nx ? FloatVector.broadcast(SP, b) : null;
+        FloatVector vcc = vl <= nx ? FloatVector.broadcast(SP, c) : null;
+        FloatVector vk = vl <= nx ? FloatVector.broadcast(SP, kt) : null;
+        FloatVector vc = vl <= nx ? FloatVector.broadcast(SP, coef) : null;
         int i = 0;
-        for (; i <= i1 - VL; i += VL) {
+        for (; i <= i1 - vl; i += VL) {
             int k = r + i;
             FloatVector d = FloatVector.fromArray(SP, g, k + nx).sub(FloatVector.fromArray(SP, g, k));
             FloatVector ps = vb.mul(FloatVector.fromArray(SP, psi, pb + i)).add(vcc.mul(d));
@@ -364,17 +366,17 @@ final class FloatKernels {
      * d = g(j) − g(j−1), otherwise as {@link #pmlXE}; ψ is indexed {@code psi[jj*nx + i]}.
      */
     static void pmlYE(float[] f, float[] g, float[] cb, boolean subtract, int nx, int jj, FloatStrip st, float[] psi,
-                      int i0, int i1) {
+                      int i0, int i1, int vl) {
         int r = (st.start + jj) * nx;
         int pb = jj * nx;
         float b = st.bE[jj];
         float c = st.cE[jj];
         float kt = st.kE[jj];
-        FloatVector vb = FloatVector.broadcast(SP, b);
-        FloatVector vcc = FloatVector.broadcast(SP, c);
-        FloatVector vk = FloatVector.broadcast(SP, kt);
+        FloatVector vb = vl <= nx ? FloatVector.broadcast(SP, b) : null;
+        FloatVector vcc = vl <= nx ? FloatVector.broadcast(SP, c) : null;
+        FloatVector vk = vl <= nx ? FloatVector.broadcast(SP, kt) : null;
         int i = i0;
-        for (; i <= i1 - VL; i += VL) {
+        for (; i <= i1 - vl; i += VL) {
             int k = r + i;
             FloatVector d = FloatVector.fromArray(SP, g, k).sub(FloatVector.fromArray(SP, g, k - nx));
             FloatVector ps = vb.mul(FloatVector.fromArray(SP, psi, pb + i)).add(vcc.mul(d));

@@ -61,7 +61,7 @@ final class FloatP extends FloatEngine {
 
     /** Row j's magnetic update without the CPML corrections (j ≤ ny−2). */
     private void hCore(int j) {
-        FloatKernels.pH(hz, ex, ey, nx, j, s);
+        FloatKernels.pH(hz, ex, ey, nx, j, s, vl);
         if (blochX) {
             int k = j * nx + nx - 1;
             hz[k] += s * ((ex[k + nx] - ex[k]) - ((float) ghostE[j] - ey[k]));
@@ -71,7 +71,7 @@ final class FloatP extends FloatEngine {
     /** The x-side CPML corrections of Hz in rows [a, b). */
     private void hStrips(int a, int b) {
         for (FloatStrip x : xs) {
-            FloatKernels.pmlXH(hz, ey, -s, nx, a, b, x, x.psiH);
+            FloatKernels.pmlXH(hz, ey, -s, nx, a, b, x, x.psiH, vl);
         }
     }
 
@@ -80,7 +80,7 @@ final class FloatP extends FloatEngine {
         int q = yStripOfRow[j];
         if (q >= 0) {
             FloatStrip y = ys[q];
-            FloatKernels.pmlYH(hz, ex, s, nx, j - y.start, y, y.psiH, blochX ? nx : nx - 1);
+            FloatKernels.pmlYH(hz, ex, s, nx, j - y.start, y, y.psiH, blochX ? nx : nx - 1, vl);
         }
     }
 
@@ -111,7 +111,7 @@ final class FloatP extends FloatEngine {
         // Ex: interior rows, or a PMC wall row; with Bloch boundaries the last column too
         int exEnd = blochX ? nx : nx - 1;
         if (!wallRow) {
-            FloatKernels.pEx(hz, ex, cax, cbx, nx, j);
+            FloatKernels.pEx(hz, ex, cax, cbx, nx, j, vl);
             if (blochX) {
                 FloatKernels.pExEdge(hz, ex, cax, cbx, nx, nx - 1, j);
             }
@@ -126,12 +126,12 @@ final class FloatP extends FloatEngine {
             FloatStrip y = ys[q];
             int jj = j - y.start;
             if (jj >= 1) {
-                FloatKernels.pmlYE(ex, hz, cbx, false, nx, jj, y, y.psiE, 0, exEnd);
+                FloatKernels.pmlYE(ex, hz, cbx, false, nx, jj, y, y.psiE, 0, exEnd, vl);
             }
         }
         // Ey: rows 0..ny-2
         if (j < ny - 1) {
-            FloatKernels.pEy(hz, ey, cay, cby, nx, j);
+            FloatKernels.pEy(hz, ey, cay, cby, nx, j, vl);
             if (pmcLeft || blochX) {
                 FloatKernels.pEyEdge(hz, ey, cay, cby, nx, 0, j, blochX ? (float) ghostW[j] : 0f);
             }
@@ -144,7 +144,7 @@ final class FloatP extends FloatEngine {
     /** The x-side CPML corrections of Ey in rows [a, b) (rows ≤ ny−2). */
     private void eStrips(int a, int b) {
         for (FloatStrip x : xs) {
-            FloatKernels.pmlXE(ey, hz, cby, true, nx, a, b, x, x.psiE);
+            FloatKernels.pmlXE(ey, hz, cby, true, nx, a, b, x, x.psiE, vl);
         }
     }
 

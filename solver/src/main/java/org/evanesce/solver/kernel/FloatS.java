@@ -52,7 +52,7 @@ final class FloatS extends FloatEngine {
 
     /** Row j's magnetic update without the CPML corrections. */
     private void hCore(int j) {
-        FloatKernels.sH(ez, hx, hy, nx, ny, j, s);
+        FloatKernels.sH(ez, hx, hy, nx, ny, j, s, vl);
         if (blochX) {
             int k = j * nx + nx - 1;
             hy[k] += s * ((float) ghostE[j] - ez[k]);
@@ -62,7 +62,7 @@ final class FloatS extends FloatEngine {
     /** The x-side CPML corrections of Hy in rows [a, b). */
     private void hStrips(int a, int b) {
         for (FloatStrip x : xs) {
-            FloatKernels.pmlXH(hy, ez, s, nx, a, b, x, x.psiH);
+            FloatKernels.pmlXH(hy, ez, s, nx, a, b, x, x.psiH, vl);
         }
     }
 
@@ -71,7 +71,7 @@ final class FloatS extends FloatEngine {
         int q = yStripOfRow[j];
         if (q >= 0) {
             FloatStrip y = ys[q];
-            FloatKernels.pmlYH(hx, ez, -s, nx, j - y.start, y, y.psiH, nx);
+            FloatKernels.pmlYH(hx, ez, -s, nx, j - y.start, y, y.psiH, nx, vl);
         }
     }
 
@@ -112,7 +112,7 @@ final class FloatS extends FloatEngine {
         boolean last = pmcRight || blochX;
         float west = blochX ? (float) ghostW[j] : 0f;
         if (!wallRow) {
-            FloatKernels.sE(ez, hx, hy, ca, cb, nx, j);
+            FloatKernels.sE(ez, hx, hy, ca, cb, nx, j, vl);
             if (first) {
                 FloatKernels.sEdge(ez, hx, hy, ca, cb, nx, 0, j, west);
             }
@@ -132,7 +132,7 @@ final class FloatS extends FloatEngine {
     /** The x-side CPML corrections of Ez in rows [a, b) (all updated rows). */
     private void eStrips(int a, int b) {
         for (FloatStrip x : xs) {
-            FloatKernels.pmlXE(ez, hy, cb, false, nx, a, b, x, x.psiE);
+            FloatKernels.pmlXE(ez, hy, cb, false, nx, a, b, x, x.psiE, vl);
         }
     }
 
@@ -145,7 +145,7 @@ final class FloatS extends FloatEngine {
             if (jj >= 1) {
                 boolean first = pmcLeft || blochX;
                 boolean last = pmcRight || blochX;
-                FloatKernels.pmlYE(ez, hx, cb, true, nx, jj, y, y.psiE, first ? 0 : 1, last ? nx : nx - 1);
+                FloatKernels.pmlYE(ez, hx, cb, true, nx, jj, y, y.psiE, first ? 0 : 1, last ? nx : nx - 1, vl);
             }
         }
     }
