@@ -126,6 +126,7 @@ public final class Bench {
                 .precision(c.precision())
                 .boundaries(Boundary.pml(PML_LAYERS))
                 .threads(c.threads())
+                .vectorsFromStart()
                 .source(Source.point(driven, n, n / 2, n / 2, 1.0, TimeSignal.rampedContinuous(f, RAMP_PERIODS / f)));
         if (c.minCellsPerThread() != BenchCase.SOLVER_DEFAULT) {
             b.minCellsPerThread(c.minCellsPerThread());

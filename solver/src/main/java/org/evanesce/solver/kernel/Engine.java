@@ -99,10 +99,11 @@ public abstract class Engine {
     }
 
     /**
-     * Sets the cell updates made scalar before the vector parts take over (tests: 0 runs vectors
-     * from the start, Long.MAX_VALUE never). Call before the first step.
+     * Sets the cell updates made scalar before the vector parts take over (0: vectors from the
+     * start, as a benchmark of the steady rate wants; Long.MAX_VALUE: never). Call before the
+     * first step.
      */
-    void vectorAfter(long cellUpdates) {
+    public void vectorAfter(long cellUpdates) {
         vectorAfter = cellUpdates;
         if (cellUpdates <= 0) {
             useVectors();
