@@ -6,23 +6,24 @@ import org.evanesce.geometry.Complex;
 /**
  * The power a line dipole (uniform along z) radiates at height z above a flat face between its own medium
  * (permittivity ε1, above) and a lossless half-space (ε2, below), relative to the same dipole in the unbounded
- * medium ε1: F(z) = P(z)/P∞, counting what goes up and what goes into the half-space. Derived as the
- * three-dimensional result of W. Lukosz &amp; R. E. Kunz, "Light emission by magnetic and electric dipoles close to
- * a plane interface. I. Total radiated power", J. Opt. Soc. Am. 67, 1607 (1977) (from memory), but with the
- * two-dimensional Green's function written as its plane-wave spectrum (the Weyl-type expansion of
+ * medium ε1: F(z) = P(z)/P∞, counting what goes up and what goes into the half-space. The two-dimensional
+ * counterpart (our derivation) of the three-dimensional result of W. Lukosz &amp; R. E. Kunz, "Light emission by
+ * magnetic and electric dipoles close to a plane interface. I. Total radiated power", J. Opt. Soc. Am. 67, 1607
+ * (1977) (from memory), derived the same way with the two-dimensional Green's function written as its plane-wave
+ * spectrum (the Weyl-type expansion of
  * (i/4) H0⁽¹⁾(k r), e.g. W. C. Chew, <i>Waves and Fields in Inhomogeneous Media</i>, 1990, ch. 2; from memory):
  * the radiated power is Im of the reflected field at the dipole over Im of the free one, which gives, with
  * k = k0√ε1, kz = √(k² − kx²) (Im kz ≥ 0) in the upper medium and the Fresnel reflection coefficients of the
  * face for the z-directed E (s) and the z-directed H (p),
  * <pre>
- *     s, p along z (the Ez polarization):   F = 1 + (1/π)      Re ∫ r_s e^{2i kz z} / kz dkx
- *     p along y (normal to the face):        F = 1 + (2/πk²)    Re ∫ r_p kx² e^{2i kz z} / kz dkx
- *     p along x (tangential, in the plane):  F = 1 − (2/πk²)    Re ∫ r_p kz e^{2i kz z} dkx
+ *     dipole along z (s polarization, Ez):   F = 1 + (1/π)      Re ∫ r_s e^{2i kz z} / kz dkx
+ *     along y (normal to the face, p):        F = 1 + (2/πk²)    Re ∫ r_p kx² e^{2i kz z} / kz dkx
+ *     along x (tangential, in the plane, p):  F = 1 − (2/πk²)    Re ∫ r_p kz e^{2i kz z} dkx
  * </pre>
  * over all real kx, with r_s = (kz1 − kz2)/(kz1 + kz2) and r_p = (ε2 kz1 − ε1 kz2)/(ε2 kz1 + ε1 kz2). The free
  * parts (the 1) are (1/4) for Ez and k²/8 for each in-plane component, the Im of the free Green's function and
- * of its dyadic at the source. Checked against the program's own point sources (EvanescentParticleTest): within
- * 0.12 % at 60 cells per wavelength.
+ * of its dyadic at the source. Checked against image theory over a near-perfect conductor (LineDipoleEmissionTest)
+ * and against the program's own point sources (EvanescentParticleTest: within 0.12 % at 60 cells per wavelength).
  */
 public final class LineDipoleEmission {
 
