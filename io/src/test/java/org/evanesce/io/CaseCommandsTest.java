@@ -126,6 +126,28 @@ class CaseCommandsTest {
         assertEquals(List.of("out", "tiny.yaml"), names(tmp), "leftovers of the replaced run");
     }
 
+    /** The rule that no run touches a file it did not make, for check's default preview beside the case. */
+    @Test
+    void checksDefaultPreviewReplacesOnlyAPictureItWrote() throws IOException {
+        Path c = write("tiny.yaml", TINY);
+        Path png = tmp.resolve("tiny-preview.png");
+        Files.writeString(png, "a user's own file");
+        Cli.Outcome kept = Cli.run("check", c.toString(), "--trial-seconds", "0");
+        assertEquals(ExitCode.OK, kept.code(), kept::toString);
+        assertTrue(kept.out().contains("preview: not written: " + png.toAbsolutePath()), kept::toString);
+        assertEquals("a user's own file", Files.readString(png), "check replaced a file it did not write");
+
+        Files.delete(png);
+        Cli.Outcome first = Cli.run("check", c.toString(), "--trial-seconds", "0");
+        assertEquals(ExitCode.OK, first.code(), first::toString);
+        assertTrue(org.evanesce.io.output.image.PngFile.writtenByUs(png), "the preview carries no evanesce mark");
+        assertTrue(javax.imageio.ImageIO.read(png.toFile()).getWidth() > 0, "the preview is not a readable PNG");
+        Files.setLastModifiedTime(png, java.nio.file.attribute.FileTime.fromMillis(0));
+        Cli.Outcome again = Cli.run("check", c.toString(), "--trial-seconds", "0");
+        assertEquals(ExitCode.OK, again.code(), again::toString);
+        assertTrue(Files.getLastModifiedTime(png).toMillis() > 0, "check did not replace its own earlier preview");
+    }
+
     @Test
     void aCaseWithErrorsReportsPositionsExits2AndWritesNothing() throws IOException {
         Path c = write("broken.yaml", BROKEN);

@@ -2,9 +2,12 @@ package org.evanesce.io.cli;
 
 import java.io.IOException;
 import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.LinkOption;
 import java.nio.file.Path;
 import java.util.Locale;
 import java.util.concurrent.Callable;
+import org.evanesce.io.output.image.PngFile;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.MemoryEstimate;
 import org.evanesce.io.run.CaseRunner;
@@ -33,7 +36,8 @@ public final class CheckCommand implements Callable<Integer> {
     private CaseOptions options;
 
     @Option(names = "--preview", paramLabel = "FILE",
-            description = "Where to write the preview PNG (default: CASE's name with -preview.png, beside it).")
+            description = "Where to write the preview PNG (default: CASE's name with -preview.png, beside it; a file of that "
+                    + "name that evanesce did not write is left alone).")
     private Path preview;
 
     @Option(names = "--trial-seconds", paramLabel = "S", defaultValue = "1",
@@ -82,6 +86,12 @@ public final class CheckCommand implements Callable<Integer> {
             }
         }
         Path png = preview != null ? preview : defaultPreview(options.caseFile);
+        if (preview == null && Files.exists(png, LinkOption.NOFOLLOW_LINKS) && !PngFile.writtenByUs(png)) {
+            // the default name beside the case is ours only if we wrote what is there
+            o.println("preview: not written: " + png.toAbsolutePath() + " exists and was not written by evanesce; "
+                    + "name another file with --preview FILE");
+            return ExitCode.OK;
+        }
         RunOutputs.preview(plan, png);
         o.println("preview: " + png.toAbsolutePath());
         return ExitCode.OK;
