@@ -28,7 +28,8 @@ public final class SurfaceOutputs {
         double[] f = r.plan().frequencies();
         for (SurfaceResults.Pattern p : r.farFields()) {
             rf.writeText("farfield-" + p.name() + ".csv", r.patternCsv(p));
-            LinePlot.Builder polar = LinePlot.builder().title("far field " + p.name() + ": power per radian / peak")
+            LinePlot.Builder polar = LinePlot.builder().title("far field " + p.name() + (p.widths() ? ": scattering width / peak"
+                    : ": power per radian / peak"))
                     .xTitle("x").yTitle("y").xRange(-1.1, 1.1).yRange(-1.1, 1.1).plotSize(520, 520);
             for (double radius : new double[] {0.5, 1.0}) {
                 double[] cx = new double[CIRCLE_POINTS];
@@ -41,16 +42,16 @@ public final class SurfaceOutputs {
                 polar.series(radius == 1 ? "peak" : "half peak", cx, cy, LinePlot.Style.LINES, 0xB8B8B8);
             }
             LinePlot.Builder db = LinePlot.builder().title("far field " + p.name() + " (dB below each peak)")
-                    .xTitle("angle from +x (deg)").yTitle("power per radian (dB)").xRange(0, 360).yRange(-DB_RANGE, 1);
+                    .xTitle("angle from +x (deg)").yTitle(p.widths() ? "scattering width (dB)" : "power per radian (dB)").xRange(0, 360).yRange(-DB_RANGE, 1);
             int n = p.anglesDegrees().length;
             for (int q = 0; q < f.length; q++) {
-                double peak = peak(p.perRadian()[q]);
+                double peak = peak(p.values()[q]);
                 double[] x = new double[n + 1];
                 double[] y = new double[n + 1];
                 double[] a = new double[n + 1];
                 double[] d = new double[n + 1];
                 for (int k = 0; k <= n; k++) {
-                    double v = p.perRadian()[q][k % n] / peak;
+                    double v = p.values()[q][k % n] / peak;
                     double ang = Math.toRadians(k == n ? 360 : p.anglesDegrees()[k]);
                     x[k] = v * Math.cos(ang);
                     y[k] = v * Math.sin(ang);
