@@ -17,8 +17,11 @@ import org.evanesce.solver.grid.Polarization;
  * <p>The transforms are those of {@link FluxLine}: X(f) = Σ F(t) e^{i2πft} Δt. The far field's power from them is
  * in the units of {@link FluxLine#flux} ("DFT flux"); like it, 4× that is an energy per hertz for a pulse that has
  * died out and 4/(D_E D_H)× it a mean power for a continuous wave over whole periods ({@link #meanPowerScale}).
+ *
+ * <p>The run's worker threads share the sides' cells ({@link SharedRecorder}, as {@link FluxBox}): each cell's sums
+ * see the same operations in the same order on any thread.
  */
-public final class FarFieldBox implements StatefulListener {
+public final class FarFieldBox implements StatefulListener, SharedRecorder {
 
     private final Polarization pol;
     private final FluxBox box;
@@ -35,8 +38,19 @@ public final class FarFieldBox implements StatefulListener {
     }
 
     @Override
-    public void afterStep(StepView v) {
-        box.afterStep(v);
+    public boolean prepare(StepView v, int workers) {
+        return box.prepare(v, workers);
+    }
+
+    /** The sides' cells, as {@link FluxBox#units}: the run's worker threads share them. */
+    @Override
+    public int units() {
+        return box.units();
+    }
+
+    @Override
+    public void share(StepView v, int u0, int u1, int worker) {
+        box.share(v, u0, u1, worker);
     }
 
     /** Transforms only samples in [start, end), s (see {@link FluxLine#window}). */
