@@ -96,17 +96,27 @@ final class ExampleOutputs {
 
     /** The value of {@code column} in the flux.csv row of the given wavelength (nm, to 1e-6). */
     static double flux(Path out, double wavelengthNm, String column) throws IOException {
-        List<String> lines = Files.readAllLines(out.resolve("flux.csv")).stream().filter(l -> !l.isBlank()).toList();
+        return table(out, "flux.csv", wavelengthNm, column);
+    }
+
+    /** The value of {@code column} in the surfaces.csv row of the given wavelength (nm, to 1e-6). */
+    static double surfaces(Path out, double wavelengthNm, String column) throws IOException {
+        return table(out, "surfaces.csv", wavelengthNm, column);
+    }
+
+    /** A table whose first column is the wavelength in nm: the value of {@code column} in the given row. */
+    private static double table(Path out, String file, double wavelengthNm, String column) throws IOException {
+        List<String> lines = Files.readAllLines(out.resolve(file)).stream().filter(l -> !l.isBlank()).toList();
         List<String> head = List.of(lines.get(0).split(",", -1));
         int c = head.indexOf(column);
-        assertTrue(c >= 0, "no column " + column + " in " + out.resolve("flux.csv") + ": " + head);
+        assertTrue(c >= 0, "no column " + column + " in " + out.resolve(file) + ": " + head);
         for (String line : lines.subList(1, lines.size())) {
             String[] cells = line.split(",", -1);
             if (Math.abs(Double.parseDouble(cells[0]) - wavelengthNm) < 1e-6) {
                 return Double.parseDouble(cells[c]);
             }
         }
-        throw new AssertionError("no row for " + wavelengthNm + " nm in " + out.resolve("flux.csv"));
+        throw new AssertionError("no row for " + wavelengthNm + " nm in " + out.resolve(file));
     }
 
     /**
