@@ -116,7 +116,7 @@ final class CaseExecution {
         }
         SurfaceResults surfaces = plan.surfaces().map(SurfaceResults::of).orElse(null);
         if (surfaces != null) {
-            SurfaceOutputs.write(surfaces, rf);
+            SurfaceOutputs.write(surfaces, rf, plan);
         }
         Settling settling = Settling.of(plan, r, flux);
         List<String> warnings = new ArrayList<>(settling.warnings());

@@ -212,7 +212,7 @@ public final class CasePlanner {
         Optional<SurfacePlan> surfaces = Optional.empty();
         if (spec.surfaces().isPresent()) {
             surfaces = Optional.of(SurfacePlanner.plan(spec, grid, interior(sides, grid), materials, b, configured, stop, dt,
-                    sites, flux, errors));
+                    sites, flux, planned, errors));
             if (!errors.isEmpty()) {
                 throw new PlanException(errors);
             }

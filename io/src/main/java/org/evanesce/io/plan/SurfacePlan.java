@@ -9,6 +9,7 @@ import org.evanesce.solver.grid.Side;
 import org.evanesce.solver.record.FarFieldBox;
 import org.evanesce.solver.record.FluxBox;
 import org.evanesce.solver.record.FluxLine;
+import org.evanesce.solver.source.TotalFieldBox;
 
 /**
  * The recorders of a case's {@code surfaces} section and how their powers are normalised.
@@ -18,7 +19,8 @@ import org.evanesce.solver.record.FluxLine;
  * incident-power run (the grid filled with the launching medium); for {@link SurfacesSpec.Normalise#SOURCE}, the net
  * power out of a small box round every point and line source in a run of the grid filled with the medium at the
  * first source (the power the sources radiate into their own medium, measured); for
- * {@link SurfacesSpec.Normalise#ABSOLUTE} none.
+ * {@link SurfacesSpec.Normalise#ABSOLUTE} none. With a plane-wave box the incident norm is the intensity of its
+ * wave ({@code boxWave}), computed, and the powers become widths in metres.
  *
  * @param frequencies  Hz
  * @param polarization the run's
@@ -37,12 +39,13 @@ import org.evanesce.solver.record.FluxLine;
  * @param gridY0       y of node row 0, m
  * @param cellSize     Δ, m
  * @param normMedium   the material the norm is measured in (the launching medium or the sources'), or empty
+ * @param boxWave      for incident with a plane-wave box: its wave, else empty
  */
 public record SurfacePlan(double[] frequencies, Polarization polarization, SurfacesSpec.Normalise normalise,
                           List<Segment> segments, List<Box> boxes, List<FarField> farFields, List<Exit> exits,
                           Optional<FluxLine> incidentLine, int incidentDirection, Optional<FluxBox> sourceBox, Optional<Simulation.Builder> ownReference,
                           Optional<SteadyState> steady, double gridX0, double gridY0, double cellSize,
-                          Optional<String> normMedium) {
+                          Optional<String> normMedium, Optional<BoxWave> boxWave) {
 
     /** The box that measures what the sources radiate lies this many cells clear of every source site. */
     public static final int SOURCE_MARGIN = 3;
@@ -88,6 +91,21 @@ public record SurfacePlan(double[] frequencies, Polarization polarization, Surfa
      */
     public record Exit(SurfacesSpec.ExitSpectrum spec, FluxLine line, String medium, double index, Side exit,
                        double firstPosition, double y, boolean periodic, double blochWavenumber) { }
+
+    /**
+     * The wave of a plane-wave box, whose intensity the incident norm divides by.
+     *
+     * @param box       the solver's box (its incident phasor anywhere, for the optical theorem)
+     * @param medium    the material the wave comes from (the background, or the incidence layer of a layered one)
+     * @param index     its index n
+     * @param intensity the wave's intensity there, W/m²: A² n/(2η0) for s, A²/(2nη0) for p, A the box's amplitude
+     */
+    public record BoxWave(TotalFieldBox box, String medium, double index, double intensity) { }
+
+    /** Whether the powers are widths: the incident norm with a plane-wave box. */
+    public boolean widths() {
+        return boxWave.isPresent();
+    }
 
     /** Whether the powers are time averages of a continuous wave (else energies per hertz of a pulse). */
     public boolean continuous() {

@@ -27,6 +27,8 @@ import org.evanesce.solver.grid.Side;
 import org.evanesce.solver.record.FarFieldBox;
 import org.evanesce.solver.record.FluxBox;
 import org.evanesce.solver.record.FluxLine;
+import org.evanesce.solver.source.TotalFieldBox;
+import org.evanesce.geometry.PhysicalConstants;
 
 /** Plans a case's {@code surfaces} section: its recorders on the case's run and the norm in a reference run. */
 final class SurfacePlanner {
@@ -42,12 +44,13 @@ final class SurfacePlanner {
      * @param configured makes a builder with the case's sources, sides and numerics for a material grid
      * @param sites      where each source drives the grid
      * @param flux       the flux plan, whose incident-power run the incident norm rides on when there is one
+     * @param lightBoxes the case's planned plane-wave boxes (the incident norm is then their wave's intensity)
      * @param errors     receives what cannot be planned
      */
     static SurfacePlan plan(CaseSpec spec, GridSpec grid, int[] interior, Map<String, Material> materials,
                             Simulation.Builder run, Function<MaterialGrid, Simulation.Builder> configured,
                             CasePlan.Stop stop, double dt, List<CasePlan.SourceSite> sites, Optional<FluxPlan> flux,
-                            List<Diagnostic> errors) {
+                            List<TotalFieldBox> lightBoxes, List<Diagnostic> errors) {
         SurfacesSpec s = spec.surfaces().orElseThrow();
         double[] freqs = s.frequencies().stream().mapToDouble(v -> v.si()).toArray();
         Polarization pol = spec.polarization().value();
@@ -141,7 +144,11 @@ final class SurfacePlanner {
         Optional<Simulation.Builder> own = Optional.empty();
         Optional<String> normMedium = Optional.empty();
         int direction = 0;
-        if (s.normalise().value() == SurfacesSpec.Normalise.INCIDENT) {
+        Optional<SurfacePlan.BoxWave> boxWave = Optional.empty();
+        if (s.normalise().value() == SurfacesSpec.Normalise.INCIDENT && !lightBoxes.isEmpty()) {
+            boxWave = Optional.of(boxWave(spec, grid, interior, lightBoxes.get(0)));
+            normMedium = Optional.of(boxWave.get().medium());
+        } else if (s.normalise().value() == SurfacesSpec.Normalise.INCIDENT) {
             SourceSpec.Launched w = PlaneWaves.launched(spec).orElseThrow();
             String medium = PlaneWaves.medium(spec, w).name();
             normMedium = Optional.of(medium);
@@ -201,7 +208,22 @@ final class SurfacePlanner {
             }
         }
         return new SurfacePlan(freqs, pol, s.normalise().value(), segments, boxes, farFields, exits, incident, direction,
-                sourceBox, own, Optional.ofNullable(steady), grid.x0(), grid.y0(), dx, normMedium);
+                sourceBox, own, Optional.ofNullable(steady), grid.x0(), grid.y0(), dx, normMedium, boxWave);
+    }
+
+    /** A plane-wave box's wave: the medium it comes from (just left of the box) and its intensity there. */
+    private static SurfacePlan.BoxWave boxWave(CaseSpec spec, GridSpec grid, int[] interior, TotalFieldBox box) {
+        int[] n = box.nodes();
+        double x = grid.x0() + (n[0] - 1) * grid.cellSize();
+        double y = !box.layered() ? grid.y0() + 0.5 * (n[1] + n[3]) * grid.cellSize()
+                : Math.sin(box.spec().direction()) > 0 ? grid.y0() + interior[1] * grid.cellSize()
+                : grid.y0() + (interior[3] - 1) * grid.cellSize();
+        String medium = spec.materialAt(x, y);
+        double index = Math.sqrt(box.incidenceMediumPermittivity());
+        double a = box.spec().amplitude();
+        double intensity = box.spec().polarization() == Polarization.S ? a * a * index / (2 * PhysicalConstants.ETA0)
+                : a * a / (2 * index * PhysicalConstants.ETA0);
+        return new SurfacePlan.BoxWave(box, medium, index, intensity);
     }
 
     private static MaterialGrid homogeneous(Material m, GridSpec grid) {

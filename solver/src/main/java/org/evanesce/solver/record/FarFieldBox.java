@@ -17,16 +17,26 @@ import org.evanesce.solver.grid.Polarization;
  * <p>The transforms are those of {@link FluxLine}: X(f) = Σ F(t) e^{i2πft} Δt. The far field's power from them is
  * in the units of {@link FluxLine#flux} ("DFT flux"); like it, 4× that is an energy per hertz for a pulse that has
  * died out and 4/(D_E D_H)× it a mean power for a continuous wave over whole periods ({@link #meanPowerScale}).
+ *
+ * <p>The run's worker threads share the sides' cells ({@link SharedRecorder}) row by row, each the rows it updates
+ * ({@link #units}): each cell's sums see the same operations in the same order on any thread.
  */
-public final class FarFieldBox implements StatefulListener {
+public final class FarFieldBox implements StatefulListener, SharedRecorder {
 
     private final Polarization pol;
     private final FluxBox box;
+    /** The box's sides: bottom, top, left, right. */
+    private final FluxLine[] lines;
+    /** Which sides take samples this step (set by {@link #prepare}). */
+    private final boolean[] active = new boolean[4];
+    /** The grid's rows, one unit of shared work each (known from the first step; 0 before). */
+    private int rows;
 
     /** The sides as {@link FluxBox#FluxBox}: x = (l + ½)Δ … (r + ½)Δ, y = (b + ½)Δ … (t + ½)Δ. */
     public FarFieldBox(Polarization pol, int l, int b, int r, int t, double... frequencies) {
         this.pol = pol;
         this.box = new FluxBox(pol, l, b, r, t, frequencies);
+        this.lines = box.sides();
     }
 
     /** The flux box whose sides are transformed (for the net power out). */
@@ -35,8 +45,43 @@ public final class FarFieldBox implements StatefulListener {
     }
 
     @Override
-    public void afterStep(StepView v) {
-        box.afterStep(v);
+    public boolean prepare(StepView v, int workers) {
+        boolean any = false;
+        for (int k = 0; k < 4; k++) {
+            active[k] = lines[k].prepare(v, workers);
+            any |= active[k];
+        }
+        rows = v.ny();
+        return any;
+    }
+
+    /**
+     * One unit per row of the grid (the grid's row count, from the first step on; 1 before it): a run's worker
+     * threads split the units as they split the rows, so each does the contour's cells on the rows it has just
+     * updated, while they are in its cache. Unit j holds the left and right sides' cells on row j (both read on
+     * the same pass), and the whole bottom (top) side when j is the row it lies on.
+     */
+    @Override
+    public int units() {
+        return Math.max(1, rows);
+    }
+
+    @Override
+    public void share(StepView v, int u0, int u1, int worker) {
+        for (int k = 0; k < 2; k++) {
+            int row = lines[k].row();
+            if (active[k] && row >= u0 && row < u1) {
+                lines[k].share(v, 0, lines[k].units(), worker);
+            }
+        }
+        for (int k = 2; k < 4; k++) {
+            int first = lines[k].firstCell();
+            int a = Math.max(u0, first) - first;
+            int b = Math.min(u1, first + lines[k].cells()) - first;
+            if (active[k] && a < b) {
+                lines[k].share(v, a, b, worker);
+            }
+        }
     }
 
     /** Transforms only samples in [start, end), s (see {@link FluxLine#window}). */

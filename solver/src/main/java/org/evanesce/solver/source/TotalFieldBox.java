@@ -287,6 +287,39 @@ public final class TotalFieldBox {
         return Double.isNaN(epsilon) ? layered(f).at(c, i, j) : homogeneous(c, i, j, f);
     }
 
+    /**
+     * The incident z component's phasor (exp(−iωt); Ez for s, η0·Hz for p) at the point (x, y), m, at frequency f, in
+     * a homogeneous background: i·A·e^{i k·(r − r_ref)} with the grid's own wavenumber k (the wave is A·sin(2πft) at
+     * the reference point). A point anywhere, not only a node: for the optical theorem's forward amplitude.
+     *
+     * @throws IllegalArgumentException when the background is layered or the grid carries no such wave
+     */
+    public Complex zPhasorAt(double x, double y, double f) {
+        if (layered()) {
+            throw new IllegalArgumentException("total-field box: a layered background has no single plane wave");
+        }
+        double omega = 2 * Math.PI * f;
+        double k = GridWave.wavenumber(epsilon, spec.direction(), omega, dx, courant);
+        if (Double.isNaN(k)) {
+            throw new IllegalArgumentException(String.format("the grid (cell %g m) carries no wave of %g Hz in a medium of "
+                    + "ε = %g; refine the grid", dx, f, epsilon));
+        }
+        Complex phase = GridWave.phase(k * Math.cos(spec.direction()), k * Math.sin(spec.direction()), x - spec.referenceX(),
+                y - spec.referenceY());
+        return phase.times(new Complex(0, spec.amplitude()));
+    }
+
+    /**
+     * The relative permittivity of the medium the incident wave comes from: the homogeneous background's, or in a
+     * layered one the bottom rows' when the wave travels upwards and the top rows' when downwards.
+     */
+    public double incidenceMediumPermittivity() {
+        if (!layered()) {
+            return epsilon;
+        }
+        return Math.sin(spec.direction()) > 0 ? epsFirst[0] : epsFirst[epsFirst.length - 2];
+    }
+
     private Complex homogeneous(Component c, int i, int j, double f) {
         double omega = 2 * Math.PI * f;
         double k = GridWave.wavenumber(epsilon, spec.direction(), omega, dx, courant);

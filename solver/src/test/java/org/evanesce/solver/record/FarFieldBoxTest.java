@@ -107,4 +107,57 @@ class FarFieldBoxTest {
             assertEquals(closed, box, CLOSED_FORM_TOLERANCE * closed, pol + " n=" + index + " frequency " + q + ": closed form");
         }
     }
+
+    /**
+     * The run's worker threads share the contour's cells: its transforms are bitwise those of one thread for 2 and 3
+     * threads (threading threshold lowered), on an awkward grid with the contour's sides split unevenly, s and p,
+     * float and double (STYLE.md item 5).
+     */
+    @ParameterizedTest(name = "{0} {1}")
+    @CsvSource({"S, FLOAT", "P, FLOAT", "S, DOUBLE", "P, DOUBLE"})
+    void threadedContoursEqualTheSingleThreadedOne(Polarization pol, org.evanesce.solver.grid.Precision precision) {
+        double[][] one = contourTransforms(pol, precision, 1);
+        for (int threads : new int[] {2, 3}) {
+            double[][] many = contourTransforms(pol, precision, threads);
+            for (int a = 0; a < one.length; a++) {
+                for (int k = 0; k < one[a].length; k++) {
+                    if (Double.doubleToRawLongBits(one[a][k]) != Double.doubleToRawLongBits(many[a][k])) {
+                        throw new AssertionError(String.format("%s %s grid 67×43, %d threads vs 1: transform %d differs at "
+                                + "sample %d after 400 steps (%s vs %s)", pol, precision, threads, a, k, many[a][k], one[a][k]));
+                    }
+                }
+            }
+        }
+    }
+
+    /** Every side's E and H transforms at every frequency, after a pulse from a point source on a 67 × 43 grid. */
+    private static double[][] contourTransforms(Polarization pol, org.evanesce.solver.grid.Precision precision, int threads) {
+        Material medium = Material.ofIndex("medium", 1.3);
+        MaterialGrid grid = Rasterizer.rasterize(Scene.builder(medium).build(), new GridSpec(0, 0, DX, 67, 43),
+                Smoothing.ANISOTROPIC);
+        Component z = pol == Polarization.S ? Component.EZ : Component.HZ;
+        FarFieldBox contour = new FarFieldBox(pol, 11, 9, 53, 31, FREQS);
+        Simulation.Builder b = Simulation.builder(grid).polarization(pol).precision(precision).threads(threads)
+                .minCellsPerThread(1).source(Source.point(z, 67, 30, 20, 1.0, TimeSignal.gaussianPulse(F, F / 3)))
+                .listener(contour);
+        for (Side s : Side.values()) {
+            b.boundary(s, Boundary.pml(6));
+        }
+        try (Simulation sim = b.build()) {
+            assertEquals(threads, sim.threads(), "threads actually used");
+            sim.run(400);
+        }
+        java.util.List<double[]> out = new java.util.ArrayList<>();
+        for (FluxLine side : contour.box().sides()) {
+            for (int q = 0; q < FREQS.length; q++) {
+                for (double[] part : side.electricTransform(q)) {
+                    out.add(part);
+                }
+                for (double[] part : side.magneticTransform(q)) {
+                    out.add(part);
+                }
+            }
+        }
+        return out.toArray(new double[0][]);
+    }
 }

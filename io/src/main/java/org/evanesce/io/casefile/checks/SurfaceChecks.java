@@ -67,15 +67,16 @@ final class SurfaceChecks {
         boolean launched = spec.sources().stream().anyMatch(x -> x instanceof SourceSpec.Launched);
         boolean local = spec.sources().stream().anyMatch(x -> !(x instanceof SourceSpec.Launched));
         SurfacesSpec.Normalise n = s.normalise().value();
-        if (spec.sources().stream().anyMatch(x -> x instanceof SourceSpec.PlaneWaveBox)) {
-            if (n != SurfacesSpec.Normalise.ABSOLUTE) {
-                // the box's wave has no incident-power run, and in a homogeneous run it gives out no net power, so a
-                // 'source' norm would divide by about zero
-                checks.error(s.normalise().at(), "surfaces.normalise", "with a plane_wave_box only 'absolute' is "
-                        + "available (the box's wave radiates no net power of its own, and no incident-power run measures "
-                        + "it); divide by the incident intensity yourself: A^2 n / (2 eta0) for s, A^2 / (2 n eta0) for p, "
-                        + "with A the box's amplitude, n the background's index and eta0 = 376.73 ohm; the scattering "
-                        + "width is then 2 pi x (power per radian) / intensity; expected absolute");
+        long boxes = spec.sources().stream().filter(x -> x instanceof SourceSpec.PlaneWaveBox).count();
+        if (boxes > 0) {
+            if (n == SurfacesSpec.Normalise.SOURCE) {
+                // the box's wave gives out no net power of its own, so a 'source' norm would divide by about zero
+                checks.error(s.normalise().at(), "surfaces.normalise", "'source' divides by the power point and line "
+                        + "sources radiate, and a plane_wave_box gives out none of its own; expected incident (powers over "
+                        + "the incident intensity: widths in metres) or absolute");
+            } else if (n == SurfacesSpec.Normalise.INCIDENT && spec.sources().size() != 1) {
+                checks.error(s.normalise().at(), "surfaces.normalise", "'incident' with a plane_wave_box divides by the "
+                        + "intensity of its wave, which must then be the case's only source; expected absolute");
             }
             return;
         }

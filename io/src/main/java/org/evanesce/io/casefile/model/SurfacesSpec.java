@@ -33,7 +33,10 @@ public record SurfacesSpec(List<Value> frequencies, Located<Normalise> normalise
 
     /** What the surfaces' powers are divided by. */
     public enum Normalise {
-        /** The incident power of the case's plane wave or Gaussian beam (measured in the incident-power run). */
+        /**
+         * The incident power of the case's plane wave or Gaussian beam (measured in the incident-power run); with a
+         * plane-wave box, the incident wave's intensity (W/m², computed), so that powers become widths in metres.
+         */
         INCIDENT("incident"),
         /**
          * The power the point and line sources radiate into the medium they sit in, measured in a run of the same

@@ -192,7 +192,8 @@ final class CaseParser {
         readBoundaries(top.get("boundaries"), top.has("boundaries") ? top.keyAt("boundaries") : top.at());
         readProbes(top.get("probes"));
         surfaces = new SurfacesReader(ctx).read(top.get("surfaces"), top.has("surfaces") ? top.keyAt("surfaces") : top.at(),
-                centreFrequency(), sources.stream().anyMatch(x -> x instanceof SourceSpec.Launched));
+                centreFrequency(), sources.stream().anyMatch(x -> x instanceof SourceSpec.Launched
+                        || x instanceof SourceSpec.PlaneWaveBox));
         Node o = top.get("output");
         readOutput(o == null ? null : MapView.of(ctx, o, Schema.OUTPUT, "output", top.keyAt("output")));
         Node s = top.require("until", "a mapping with time, steps or latest (and energy_below)");

@@ -48,8 +48,9 @@ final class SurfacesReader {
      * @param node             the section, or null when the case has none
      * @param owner            where the {@code surfaces} key is
      * @param defaultFrequency used when the section lists no frequencies (the first source's centre), or null
-     * @param launched         whether the case has a plane wave or Gaussian beam (the default normalisation is then by
-     *                         its incident power, else by the power the sources radiate)
+     * @param launched         whether the case has a plane wave, Gaussian beam or plane-wave box (the default
+     *                         normalisation is then by its incident power or intensity, else by the power the sources
+     *                         radiate)
      * @return the section, or null when absent or wrong (errors reported)
      */
     SurfacesSpec read(Node node, SourcePosition owner, Value defaultFrequency, boolean launched) {
