@@ -7,7 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.Map;
 import org.evanesce.io.casefile.CaseFileException;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.CasePlanner;
@@ -26,7 +26,7 @@ import org.junit.jupiter.params.provider.ValueSource;
 class SurfacesRunTest {
 
     private static CasePlan plan(String text) throws Exception {
-        return CasePlanner.plan(CaseReader.parse(text, "t.yaml", Map.of(), ReadOptions.defaults()).spec(), 2);
+        return CasePlanner.plan(CaseLoader.parse(text, "t.yaml", Map.of(), ReadOptions.defaults()).spec(), 2);
     }
 
     private static SurfaceResults run(String text) throws Exception {
@@ -244,10 +244,10 @@ class SurfacesRunTest {
                     - {name: ring, from: [-0.9 um, -0.9 um], to: [0.9 um, 0.9 um]}
                 until: {time: 120 fs}
                 """;
-        CaseFileException e = assertThrows(CaseFileException.class, () -> CaseReader.parse(text, "t.yaml", Map.of(), ReadOptions.defaults()));
+        CaseFileException e = assertThrows(CaseFileException.class, () -> CaseLoader.parse(text, "t.yaml", Map.of(), ReadOptions.defaults()));
         assertTrue(e.getMessage().contains("surfaces.normalise: with a plane_wave_box only "
                 + "'absolute' is available"), e.getMessage());
-        assertDoesNotThrow(() -> CaseReader.parse(text.replace("surfaces:\n",
+        assertDoesNotThrow(() -> CaseLoader.parse(text.replace("surfaces:\n",
                 "surfaces:\n  normalise: absolute\n").replace(normalise, ""), "t.yaml", Map.of(), ReadOptions.defaults()));
     }
 }

@@ -13,7 +13,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.evanesce.io.casefile.CaseFileException;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.LoadedCase;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.casefile.expr.Dimension;
@@ -111,7 +111,7 @@ class CaseReaderTest {
             """;
 
     static LoadedCase read(String text, Map<String, String> overrides) throws CaseFileException {
-        return CaseReader.parse(text, "case.yaml", overrides, ENOUGH_MEMORY);
+        return CaseLoader.parse(text, "case.yaml", overrides, ENOUGH_MEMORY);
     }
 
     private static void assertSi(double expected, Value actual, String what) {
@@ -331,7 +331,7 @@ class CaseReaderTest {
     void readsFilesAndNamesThemInMessages(@TempDir Path dir) throws IOException {
         Path file = dir.resolve("gap.yaml");
         Files.writeString(file, MINIMAL.replace("20 nm", "20 nmm"));
-        CaseFileException e = assertThrows(CaseFileException.class, () -> CaseReader.read(file, Map.of(), ENOUGH_MEMORY));
+        CaseFileException e = assertThrows(CaseFileException.class, () -> CaseLoader.read(file, Map.of(), ENOUGH_MEMORY));
         assertTrue(e.getMessage().startsWith(file + ":3:17: grid.cell: unknown unit 'nmm'"), e.getMessage());
     }
 }

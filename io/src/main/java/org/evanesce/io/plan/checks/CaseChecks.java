@@ -1,4 +1,4 @@
-package org.evanesce.io.casefile.checks;
+package org.evanesce.io.plan.checks;
 
 import java.util.HashSet;
 import java.util.List;

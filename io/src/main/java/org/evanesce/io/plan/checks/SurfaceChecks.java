@@ -1,4 +1,4 @@
-package org.evanesce.io.casefile.checks;
+package org.evanesce.io.plan.checks;
 
 import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.model.MaterialSpec;
