@@ -12,10 +12,13 @@ import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.text.Diagnostic;
 import org.evanesce.io.casefile.text.KeyPaths;
 import org.evanesce.io.plan.checks.CaseChecks;
+import org.evanesce.io.plan.grid.GridDerivation;
+import org.evanesce.io.plan.grid.GridPlan;
 
 /**
- * Where every command reads a case: the case file's sections ({@link CaseReader}), then the checks across
- * them that this layer owns. Problems from both come together, in file order, with exit code 2.
+ * Where every command reads a case: the case file's sections ({@link CaseReader}), then what this layer owns:
+ * the grid derived from the case's request ({@link GridDerivation}) and the checks across sections, which read
+ * it. Problems from both come together, in file order, with exit code 2.
  */
 public final class CaseLoader {
 
@@ -45,6 +48,9 @@ public final class CaseLoader {
     }
 
     private static void check(CaseSpec spec, KeyPaths paths, ReadOptions options, List<Diagnostic> out) {
-        CaseChecks.run(spec, paths, options.memoryLimit(), out);
+        GridPlan grid = GridDerivation.derive(spec, out);
+        if (grid != null) {
+            CaseChecks.run(spec, paths, grid, options.memoryLimit(), out);
+        }
     }
 }

@@ -164,7 +164,7 @@ final class PlaneWaveChecks {
     }
 
     private void lines(SourceSpec.Launched w, FluxSpec flux) {
-        double cell = spec.resolution().cellSize().si();
+        double cell = checks.cell();
         for (int k = 0; k < flux.lines().size(); k++) {
             FluxSpec.Line line = flux.lines().get(k);
             String path = "flux.lines[" + k + "].y";

@@ -106,7 +106,7 @@ class RenamedKeysTest {
     void newKeysAreRead() throws CaseFileException {
         CaseSpec c = CaseLoader.parse(text("grid:\n  cell: 25 nm", "until:\n  energy_below: 1e-7\n  latest: 300 fs"),
                 "case.yaml", Map.of(), ENOUGH_MEMORY).spec();
-        assertEquals(25e-9, c.resolution().cellSize().si(), 1e-24);
+        assertEquals(25e-9, c.grid().cell().orElseThrow().si(), 1e-24);
         StopSpec.WhenEnergyBelow u = assertInstanceOf(StopSpec.WhenEnergyBelow.class, c.stop());
         assertEquals(1e-7, u.fraction().si());
         assertEquals(300e-15, u.latest().si(), 1e-30);
