@@ -98,8 +98,6 @@ final class CaseParser {
     /** The grid's nodes are moved by this fraction of a cell (an accuracy study's offset runs); 0 normally. */
     double gridOffset;
     SourcePosition resolutionAt;
-    /** The key the cell size came from: grid.cell or grid.cells_per_wavelength. */
-    String resolutionPath = "grid";
     final Map<Side, BoundarySpec> boundaries = new EnumMap<>(Side.class);
     final List<SourceSpec> sources = new ArrayList<>();
     final List<String> sourcePaths = new ArrayList<>();
@@ -432,9 +430,6 @@ final class CaseParser {
             return;
         }
         String how = v.oneOf(false, "cell", "cells_per_wavelength");
-        if (how != null) {
-            resolutionPath = v.path(how);
-        }
         if ("cell".equals(how)) {
             Value cell = ctx.positive(v.get("cell"), v.path("cell"), Expect.LENGTH);
             if (cell != null) {

@@ -41,7 +41,7 @@ public final class Sections {
         p.resolutionScale = resolutionScale;
         p.gridOffset = gridOffset;
         p.parse(root, overrides);
-        KeyPaths paths = new KeyPaths(p.resolutionPath, p.shapePaths, p.sourcePaths, p.probePaths, p.boundaryPaths);
+        KeyPaths paths = new KeyPaths(p.shapePaths, p.sourcePaths, p.probePaths, p.boundaryPaths);
         return new Result(ctx.hasErrors() ? Optional.empty() : Optional.of(assemble(ctx, p)), paths);
     }
 

@@ -254,7 +254,7 @@ public final class CaseChecks {
         }
         double cells = shortest / (densest.index() * grid.cellSize().si());
         if (cells < MIN_CELLS_PER_WAVELENGTH) {
-            warn(grid.cellSize().at(), paths.grid(), String.format(
+            warn(grid.cellSize().at(), spec.grid().path(), String.format(
                     "%s cells per wavelength in %s (n = %s) at %s with a %s cell, below %s; numerical dispersion will be visible, use a cell of at most %s",
                     Units.number(cells), densest.name(), Units.number(densest.index()), fmt(shortest), fmt(grid.cellSize().si()),
                     Units.number(MIN_CELLS_PER_WAVELENGTH), fmt(shortest / (densest.index() * MIN_CELLS_PER_WAVELENGTH))));
@@ -305,7 +305,7 @@ public final class CaseChecks {
         Precision precision = spec.numerics().precision().value();
         double bytes = grid.estimatedBytes(precision);
         if (bytes > memoryLimit) {
-            error(grid.cellSize().at(), paths.grid(), String.format(
+            error(grid.cellSize().at(), spec.grid().path(), String.format(
                     "the grid of %d x %d nodes needs about %s in %s (%d bytes per cell) but the JVM can use at most %s; "
                             + "use a larger cell or a smaller domain, or give the JVM more memory (-Xmx)",
                     grid.nx(), grid.ny(), gib(bytes), precision.name().toLowerCase(Locale.ROOT), GridPlan.bytesPerCell(precision),
