@@ -11,7 +11,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Map;
 import org.evanesce.io.casefile.CaseFileException;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.casefile.model.SweepSpec;
 import org.evanesce.io.cli.ExitCode;
@@ -67,7 +67,7 @@ class SampleSweepTest {
             SAMPLE""";
 
     private static SweepSpec sweep(String sample) throws CaseFileException {
-        return CaseReader.parse(CASE.replace("SAMPLE", sample), "s.yaml", Map.of(), ReadOptions.defaults()).spec().sweep()
+        return CaseLoader.parse(CASE.replace("SAMPLE", sample), "s.yaml", Map.of(), ReadOptions.defaults()).spec().sweep()
                 .orElseThrow();
     }
 

@@ -9,11 +9,11 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
-import org.evanesce.io.casefile.checks.CaseChecks;
 import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.sections.Context;
 import org.evanesce.io.casefile.sections.Sections;
 import org.evanesce.io.casefile.text.Diagnostic;
+import org.evanesce.io.casefile.text.KeyPaths;
 import org.evanesce.io.casefile.text.SourcePosition;
 import org.evanesce.io.casefile.text.YamlLimits;
 import org.snakeyaml.engine.v2.api.LoadSettings;
@@ -32,16 +32,24 @@ import org.snakeyaml.engine.v2.nodes.Node;
  * comes back with its warnings and notes. Parameter overrides ({@code --set name=value} on the
  * command line) replace the file's expression for a parameter before anything is evaluated.
  *
- * <p>The schema is described in {@code docs/case-file.md}.
+ * <p>This class reads and checks each section; the grid and the checks across sections (placement, PMLs,
+ * memory) belong to planning and come in as {@link Checks}: read cases through
+ * {@code org.evanesce.io.plan.CaseLoader}, which passes them. The schema is described in {@code docs/case-file.md}.
  */
 public final class CaseReader {
 
     private CaseReader() {
     }
 
-    /** Reads {@code file} with the JVM's heap as the memory limit. */
-    public static LoadedCase read(Path file, Map<String, String> overrides) throws IOException, CaseFileException {
-        return read(file, overrides, ReadOptions.defaults());
+    /**
+     * Checks run on a case whose sections all read without error: the planning layer derives the grid there and
+     * runs the cross-section checks ({@code org.evanesce.io.plan.CaseLoader} passes them; this package knows
+     * nothing of planning). What they add to {@code out} joins the reading's own findings.
+     */
+    @FunctionalInterface
+    public interface Checks {
+
+        void run(CaseSpec spec, KeyPaths paths, ReadOptions options, List<Diagnostic> out);
     }
 
     /**
@@ -49,12 +57,13 @@ public final class CaseReader {
      *
      * @param overrides parameter name → expression text, e.g. {@code gap → "0.3 um"}; each must name a
      *                  parameter the file defines
+     * @param checks    run on the finished case (every section read without error)
      * @throws IOException        when the file cannot be read
      * @throws CaseFileException  when the case has errors (all of them are in the exception)
      */
-    public static LoadedCase read(Path file, Map<String, String> overrides, ReadOptions options)
+    public static LoadedCase read(Path file, Map<String, String> overrides, ReadOptions options, Checks checks)
             throws IOException, CaseFileException {
-        return parse(CaseText.read(file).text(), file.toString(), overrides, options);
+        return parse(CaseText.read(file).text(), file.toString(), overrides, options, checks);
     }
 
     /**
@@ -62,9 +71,9 @@ public final class CaseReader {
      *
      * @param source the name messages give the text, normally its file name
      */
-    public static LoadedCase parse(String text, String source, Map<String, String> overrides, ReadOptions options)
-            throws CaseFileException {
-        Reading r = reading(text, source, overrides, options);
+    public static LoadedCase parse(String text, String source, Map<String, String> overrides, ReadOptions options,
+            Checks checks) throws CaseFileException {
+        Reading r = reading(text, source, overrides, options, checks);
         List<Diagnostic> all = sorted(r.context.diagnostics);
         if (r.spec == null) {
             throw new CaseFileException(all);
@@ -73,7 +82,7 @@ public final class CaseReader {
             // the p run must read too (an output component of s alone, say): its errors are this reading's
             Map<String, String> p = new java.util.LinkedHashMap<>(overrides);
             p.put(PolarizationChoice.KEY, PolarizationChoice.P.caseName());
-            Reading rp = reading(text, source, p, options);
+            Reading rp = reading(text, source, p, options, checks);
             if (rp.spec == null) {
                 List<Diagnostic> errors = new ArrayList<>();
                 for (Diagnostic d : sorted(rp.context.diagnostics)) {
@@ -92,7 +101,8 @@ public final class CaseReader {
     public record Reading(CaseSpec spec, Context context) { }
 
     /** The whole reading with its context, for tests that look at which keys were read. */
-    public static Reading reading(String text, String source, Map<String, String> overrides, ReadOptions options) {
+    public static Reading reading(String text, String source, Map<String, String> overrides, ReadOptions options,
+            Checks checks) {
         Context ctx = new Context(source);
         Node root = compose(text, source, ctx);
         if (root == null) {
@@ -103,7 +113,7 @@ public final class CaseReader {
             return new Reading(null, ctx);
         }
         // the cross-section checks read the finished case; they run once every section was read without errors
-        CaseChecks.run(read.spec().get(), read.paths(), options.memoryLimit(), ctx.diagnostics);
+        checks.run(read.spec().get(), read.paths(), options, ctx.diagnostics);
         return new Reading(ctx.hasErrors() ? null : read.spec().get(), ctx);
     }
 

@@ -11,7 +11,7 @@ import java.util.HexFormat;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import org.evanesce.io.casefile.CaseFileException;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.text.Diagnostic;
 import org.evanesce.io.casefile.LoadedCase;
 import org.evanesce.io.casefile.ReadOptions;
@@ -86,7 +86,7 @@ final class CaseOptions {
         }
         LoadedCase loaded;
         try {
-            loaded = CaseReader.read(caseFile, overrides, read);
+            loaded = CaseLoader.read(caseFile, overrides, read);
         } catch (NoSuchFileException e) {
             throw new BadInput(caseFile + ": no such file");
         } catch (java.nio.file.AccessDeniedException e) {

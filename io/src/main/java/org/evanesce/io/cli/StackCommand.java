@@ -237,7 +237,7 @@ public final class StackCommand implements Callable<Integer> {
         }
         org.evanesce.io.plan.ExactStack e;
         try {
-            e = org.evanesce.io.plan.ExactStack.of(org.evanesce.io.casefile.CaseReader.read(caseFile, overrides).spec());
+            e = org.evanesce.io.plan.ExactStack.of(org.evanesce.io.plan.CaseLoader.read(caseFile, overrides).spec());
         } catch (java.nio.file.NoSuchFileException x) {
             throw usage(caseFile + ": no such file");
         } catch (java.io.IOException x) {

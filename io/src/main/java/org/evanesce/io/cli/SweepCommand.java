@@ -19,7 +19,7 @@ import java.util.concurrent.Callable;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.evanesce.io.casefile.CaseFileException;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.CaseText;
 import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.text.Diagnostic;
@@ -178,7 +178,7 @@ public final class SweepCommand implements Callable<Integer> {
         for (SweepPoint p : points) {
             Map<String, String> ov = overrides(p);
             try {
-                LoadedCase lc = CaseReader.parse(caseText, caseFile.toString(), ov, read);
+                LoadedCase lc = CaseLoader.parse(caseText, caseFile.toString(), ov, read);
                 for (Diagnostic d : withoutSweepNote(lc.warnings())) {
                     if (seen.add(d.path() + ": " + d.message())) {
                         err.println("point " + p.number() + " (" + p.describe() + "): " + d);
@@ -340,7 +340,7 @@ public final class SweepCommand implements Callable<Integer> {
     /** Reads the case; errors are printed (each prefixed with {@code what}, if given) and become a usage error. */
     private LoadedCase readCase(String text, Map<String, String> ov, ReadOptions read, PrintWriter err, String what) {
         try {
-            return CaseReader.parse(text, options.caseFile.toString(), ov, read);
+            return CaseLoader.parse(text, options.caseFile.toString(), ov, read);
         } catch (CaseFileException e) {
             for (Diagnostic d : e.diagnostics()) {
                 err.println((what == null ? "" : what + ": ") + d);
@@ -396,7 +396,7 @@ public final class SweepCommand implements Callable<Integer> {
         int bad = 0;
         for (Read r : todo) {
             try {
-                LoadedCase lc = CaseReader.parse(caseText, options.caseFile.toString(), r.overrides(), ReadOptions.defaults());
+                LoadedCase lc = CaseLoader.parse(caseText, options.caseFile.toString(), r.overrides(), ReadOptions.defaults());
                 CasePlan plan = CasePlanner.plan(lc.spec(), null);
                 long c = (long) plan.grid().nx() * plan.grid().ny();
                 if (c > cells) {
@@ -429,12 +429,12 @@ public final class SweepCommand implements Callable<Integer> {
                           org.evanesce.io.output.RunFolder rf, PrintWriter pointOut, int threads, IncidentPowerCache incident)
             throws SweepRunner.PointFailed, IOException {
         try {
-            LoadedCase lc = CaseReader.parse(caseText, caseFile.toString(), ov, ReadOptions.defaults());
+            LoadedCase lc = CaseLoader.parse(caseText, caseFile.toString(), ov, ReadOptions.defaults());
             lc = new LoadedCase(lc.spec(), withoutSweepNote(lc.diagnostics()));
             CasePlan plan = CasePlanner.plan(lc.spec(), threads);
             if (lc.spec().polarizations() == org.evanesce.io.casefile.model.PolarizationChoice.BOTH) {
                 Map<String, String> pov = PolarizationRuns.overrides(ov, org.evanesce.io.casefile.model.PolarizationChoice.P);
-                LoadedCase lp = CaseReader.parse(caseText, caseFile.toString(), pov, ReadOptions.defaults());
+                LoadedCase lp = CaseLoader.parse(caseText, caseFile.toString(), pov, ReadOptions.defaults());
                 lp = new LoadedCase(lp.spec(), withoutSweepNote(lp.diagnostics()));
                 PolarizationRuns.run(new CaseOptions.Loaded(lc, plan, caseSha),
                         new CaseOptions.Loaded(lp, CasePlanner.plan(lp.spec(), threads), caseSha), ov, rf, pointOut,

@@ -7,7 +7,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import org.evanesce.io.casefile.CaseFileException;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.text.Diagnostic;
 import org.evanesce.io.casefile.model.Parameter;
@@ -214,7 +214,7 @@ final class FitModel {
     private CaseSpec read(Map<String, String> set) throws IOException, FitInputException {
         caseReads++;
         try {
-            return CaseReader.read(caseFile, set).spec();
+            return CaseLoader.read(caseFile, set).spec();
         } catch (CaseFileException e) {
             throw new FitInputException(lines(e.errors()) + "\n(with " + set + ")");
         }

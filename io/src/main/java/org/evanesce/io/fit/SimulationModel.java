@@ -11,7 +11,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import org.evanesce.io.casefile.CaseFileException;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.text.Diagnostic;
 import org.evanesce.io.casefile.LoadedCase;
@@ -205,7 +205,7 @@ final class SimulationModel {
 
     private CaseSpec spec(Map<String, String> set) throws FitInputException {
         try {
-            return CaseReader.parse(caseText, caseFile.toString(), set, ReadOptions.defaults()).spec();
+            return CaseLoader.parse(caseText, caseFile.toString(), set, ReadOptions.defaults()).spec();
         } catch (CaseFileException e) {
             throw new FitInputException(lines(e.errors()) + "\n(with " + set + ")");
         }
@@ -215,7 +215,7 @@ final class SimulationModel {
     private String run(Map<String, String> set) throws FitInputException {
         long t0 = System.nanoTime();
         try {
-            LoadedCase lc = CaseReader.parse(caseText, caseFile.toString(), set, ReadOptions.defaults());
+            LoadedCase lc = CaseLoader.parse(caseText, caseFile.toString(), set, ReadOptions.defaults());
             CasePlan plan = CasePlanner.plan(lc.spec(), threads);
             CaseRunner.Result r = CaseRunner.run(plan, null, 10);
             String csv = FluxResults.of(plan.flux().orElseThrow(), lc.spec().polarization().value()).csv();

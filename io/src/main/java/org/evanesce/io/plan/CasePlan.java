@@ -33,6 +33,16 @@ public record CasePlan(CaseSpec spec, GridSpec grid, MaterialGrid materials, Sim
                        FieldPlan fields, List<SourceSite> sourceSites, MemoryEstimate memory,
                        java.util.Optional<SurfacePlan> surfaces) {
 
+    /** The PML's thickness on {@code side} in cells, as planned; 0 where the side has none. */
+    public int pmlCells(org.evanesce.solver.grid.Side side) {
+        return switch (side) {
+            case LEFT -> interior[0];
+            case BOTTOM -> interior[1];
+            case RIGHT -> grid.nx() - interior[2];
+            case TOP -> grid.ny() - interior[3];
+        };
+    }
+
     /**
      * The reference run that follows the case's run, when there is one: the flux section's incident-power run, or
      * the surfaces' own (the grid filled with the launching medium or the sources' medium).

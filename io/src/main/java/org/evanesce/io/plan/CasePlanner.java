@@ -26,7 +26,6 @@ import org.evanesce.io.casefile.text.Value;
 import org.evanesce.io.casefile.text.Located;
 import org.evanesce.io.casefile.model.MaterialSpec;
 import org.evanesce.io.casefile.model.ProbeSpec;
-import org.evanesce.io.casefile.model.ResolutionSpec;
 import org.evanesce.io.casefile.model.ShapeSpec;
 import org.evanesce.io.casefile.model.SignalSpec;
 import org.evanesce.io.casefile.text.SourcePosition;
@@ -34,6 +33,8 @@ import org.evanesce.io.casefile.model.SourceSpec;
 import org.evanesce.io.casefile.model.StopSpec;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
+import org.evanesce.io.plan.grid.GridDerivation;
+import org.evanesce.io.plan.grid.GridPlan;
 import org.evanesce.solver.grid.Courant;
 import org.evanesce.solver.DispersionCorrection;
 import org.evanesce.solver.Simulation;
@@ -87,13 +88,23 @@ public final class CasePlanner {
     }
 
     private long memoryLimit = Long.MAX_VALUE;
+    private GridPlan gridPlan;
+
+    /** The case's grid; a case that {@link CaseLoader} read derives without errors. */
+    static GridPlan grid(CaseSpec spec) throws PlanException {
+        List<Diagnostic> found = new ArrayList<>();
+        GridPlan g = GridDerivation.derive(spec, found);
+        if (g == null) {
+            throw new PlanException(found.stream().filter(Diagnostic::isError).toList());
+        }
+        return g;
+    }
 
     private CasePlan plan(Integer threads) throws PlanException {
-        ResolutionSpec r = spec.resolution();
-        double dx = r.cellSize().si();
-        // periodic sides: the width is one period, so the node at x = +W/2 is the image of the one at −W/2
+        gridPlan = grid(spec);
+        double dx = gridPlan.cellSize().si();
         boolean periodic = spec.boundary(Side.LEFT) instanceof BoundarySpec.Periodic;
-        GridSpec grid = new GridSpec(r.x(0), r.y(0), dx, periodic ? r.nx() - 1 : r.nx(), r.ny());
+        GridSpec grid = gridPlan.solverGrid(periodic);
         double courant = spec.numerics().courant().map(v -> v.si()).orElse(Courant.DEFAULT);
         double dt = Courant.timeStep(courant, dx);
         Map<String, Material> materials = materials(dx, dt);
@@ -453,7 +464,7 @@ public final class CasePlanner {
         if (given.isPresent()) {
             error(given.get().at(), "numerics.courant", text);
         } else {
-            error(m != null ? m.at() : spec.resolution().cellSize().at(), m != null ? "materials." + m.name() : "numerics.courant",
+            error(m != null ? m.at() : gridPlan.cellSize().at(), m != null ? "materials." + m.name() : "numerics.courant",
                     text);
         }
     }
@@ -511,7 +522,7 @@ public final class CasePlanner {
         Map<Side, Boundary> out = new java.util.EnumMap<>(Side.class);
         for (Side side : Side.values()) {
             BoundarySpec b = spec.boundary(side);
-            out.put(side, b instanceof BoundarySpec.Pml p ? Boundary.pml(p.cells())
+            out.put(side, b instanceof BoundarySpec.Pml ? Boundary.pml(gridPlan.pmlCells(side))
                     : b instanceof BoundarySpec.Pmc ? Boundary.pmc()
                     : b instanceof BoundarySpec.Periodic ? Boundary.bloch(kx) : Boundary.pec());
         }
@@ -678,7 +689,7 @@ public final class CasePlanner {
                     + "the Courant number or the cell size", Units.format(time.si(), Dimension.TIME), steps,
                     Units.format(dt, Dimension.TIME), StopSpec.MAX_STEPS, Units.number(courant.map(Value::si).orElse(Courant.DEFAULT)),
                     courant.map(c -> ", line " + c.at().line()).orElse(", the default"),
-                    Units.format(spec.resolution().cellSize().si(), Dimension.LENGTH)));
+                    Units.format(gridPlan.cellSize().si(), Dimension.LENGTH)));
             return StopSpec.MAX_STEPS;
         }
         return Math.max(1, (long) steps);

@@ -7,8 +7,8 @@ import org.evanesce.geometry.GridSpec;
 import org.evanesce.io.casefile.model.BoundarySpec;
 import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.text.Diagnostic;
-import org.evanesce.io.casefile.model.ResolutionSpec;
 import org.evanesce.io.casefile.model.SourceSpec;
+import org.evanesce.io.plan.grid.GridPlan;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Side;
 import org.evanesce.solver.reference.PlanarStack;
@@ -52,12 +52,12 @@ public record ExactStack(java.util.function.DoubleFunction<PlanarStack> stack, P
             throw new PlanException(errors);
         }
         SourceSpec.Launched w = launched.get();
-        ResolutionSpec r = spec.resolution();
+        GridPlan r = CasePlanner.grid(spec);
         boolean periodic = spec.boundary(Side.LEFT) instanceof BoundarySpec.Periodic;
         // the same grid and interior as CasePlanner's, so that the layers are read where a run reads them
-        GridSpec grid = new GridSpec(r.x(0), r.y(0), r.cellSize().si(), periodic ? r.nx() - 1 : r.nx(), r.ny());
-        int[] interior = {pml(spec, Side.LEFT), pml(spec, Side.BOTTOM), grid.nx() - pml(spec, Side.RIGHT),
-            grid.ny() - pml(spec, Side.TOP)};
+        GridSpec grid = r.solverGrid(periodic);
+        int[] interior = {r.pmlCells(Side.LEFT), r.pmlCells(Side.BOTTOM), grid.nx() - r.pmlCells(Side.RIGHT),
+            grid.ny() - r.pmlCells(Side.TOP)};
         Optional<FluxPlan.Exact> exact = FluxPlanner.transferMatrix(spec, grid, w, interior, errors, 0);
         if (exact.isEmpty() || !errors.isEmpty()) {
             throw new PlanException(errors);
@@ -70,9 +70,5 @@ public record ExactStack(java.util.function.DoubleFunction<PlanarStack> stack, P
                     w.angle().si(), b.waist().si(), distance);
         }
         return new ExactStack(exact.get().stack(), spec.polarization().value(), spec.designWavelength().si(), w.angle().si());
-    }
-
-    private static int pml(CaseSpec spec, Side side) {
-        return spec.boundary(side) instanceof BoundarySpec.Pml p ? p.cells() : 0;
     }
 }

@@ -130,7 +130,7 @@ public record MemoryEstimate(List<Item> items) {
         List<Item> held = new ArrayList<>();
         List<Item> passing = new ArrayList<>();
         long nodes = (long) grid.nx() * grid.ny();
-        SourcePosition res = spec.resolution().cellSize().at();
+        SourcePosition res = spec.grid().at();
         String gridAdvice = "use a larger cell or a smaller domain";
         boolean lossy = spec.materials().values().stream().anyMatch(m -> m.conductivity().si() != 0);
         var pol = spec.polarization().value();

@@ -138,7 +138,7 @@ public final class RunOutputs {
         }
         resolved.put("materials", mats);
         Map<String, Object> sides = new LinkedHashMap<>();
-        s.boundaries().forEach((side, b) -> sides.put(side.name().toLowerCase(Locale.ROOT), b.describe()));
+        s.boundaries().forEach((side, b) -> sides.put(side.name().toLowerCase(Locale.ROOT), b.describe(plan.pmlCells(side))));
         resolved.put("boundaries", sides);
         resolved.put("shapes", s.shapes().size());
         resolved.put("sources", s.sources().size());

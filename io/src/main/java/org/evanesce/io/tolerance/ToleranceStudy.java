@@ -9,7 +9,7 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.Random;
 import org.evanesce.io.casefile.CaseFileException;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.text.Diagnostic;
 import org.evanesce.io.casefile.model.Parameter;
@@ -92,7 +92,7 @@ public record ToleranceStudy(List<Distribution> distributions, double[][] values
 
     private static CaseSpec read(Path caseFile, Map<String, String> set) throws IOException, ToleranceInputException {
         try {
-            return CaseReader.read(caseFile, set).spec();
+            return CaseLoader.read(caseFile, set).spec();
         } catch (CaseFileException e) {
             throw new ToleranceInputException(lines(e.errors()) + "\n(with " + set + ")");
         }

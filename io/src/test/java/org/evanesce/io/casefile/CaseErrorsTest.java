@@ -9,6 +9,7 @@ import java.util.Map;
 import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.io.casefile.text.Diagnostic;
 import org.junit.jupiter.api.Test;
+import org.evanesce.io.plan.CaseLoader;
 
 /**
  * Each kind of problem produces its exact {@code file:line:column: key.path: message}, all problems
@@ -30,12 +31,12 @@ class CaseErrorsTest {
 
     private static List<String> errors(String text) {
         CaseFileException e = assertThrows(CaseFileException.class,
-                () -> CaseReader.parse(text, "case.yaml", Map.of(), ENOUGH_MEMORY), "expected errors in\n" + text);
+                () -> CaseLoader.parse(text, "case.yaml", Map.of(), ENOUGH_MEMORY), "expected errors in\n" + text);
         return e.errors().stream().map(Diagnostic::toString).toList();
     }
 
     private static List<String> warnings(String text) throws CaseFileException {
-        return CaseReader.parse(text, "case.yaml", Map.of(), ENOUGH_MEMORY).warnings().stream().map(Diagnostic::toString).toList();
+        return CaseLoader.parse(text, "case.yaml", Map.of(), ENOUGH_MEMORY).warnings().stream().map(Diagnostic::toString).toList();
     }
 
     private static String replace(String what, String with) {
@@ -172,7 +173,7 @@ class CaseErrorsTest {
     @Test
     void memoryIsCheckedBeforeAllocation() {
         CaseFileException e = assertThrows(CaseFileException.class,
-                () -> CaseReader.parse(BASE, "case.yaml", Map.of(), new ReadOptions(100_000)));
+                () -> CaseLoader.parse(BASE, "case.yaml", Map.of(), new ReadOptions(100_000)));
         assertEquals(List.of("case.yaml:3:14: grid.cell: the grid of 201 x 151 nodes needs about 0.000791464 GiB in float "
                 + "(28 bytes per cell) but the JVM can use at most 9.31323e-5 GiB; use a larger cell or a smaller domain, or give the JVM more memory (-Xmx)"),
                 e.errors().stream().map(Diagnostic::toString).toList());
@@ -326,7 +327,7 @@ class CaseErrorsTest {
         for (String o : odd) {
             String text = replacingTopLevel(o);
             try {
-                CaseReader.parse(text, "case.yaml", Map.of(), ENOUGH_MEMORY);
+                CaseLoader.parse(text, "case.yaml", Map.of(), ENOUGH_MEMORY);
             } catch (CaseFileException expected) {
                 assertTrue(!expected.errors().isEmpty(), "an exception without errors for " + o);
             } catch (RuntimeException e) {

@@ -21,6 +21,7 @@ import org.evanesce.io.casefile.text.Diagnostic;
 import org.evanesce.io.casefile.text.YamlLimits;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.evanesce.io.plan.CaseLoader;
 
 /**
  * The stated limits of docs/case-file.md ("Limits", "Expressions and parameters"): whatever the file
@@ -66,14 +67,14 @@ class CaseLimitsTest {
     /** The errors of a case text, read on a small stack. */
     private static List<String> errors(String text) throws Exception {
         return onSmallStack(() -> {
-            CaseFileException e = assertThrows(CaseFileException.class, () -> CaseReader.parse(text, "case.yaml", Map.of(),
+            CaseFileException e = assertThrows(CaseFileException.class, () -> CaseLoader.parse(text, "case.yaml", Map.of(),
                     ENOUGH_MEMORY), "expected errors");
             return e.errors().stream().map(Diagnostic::toString).toList();
         });
     }
 
     private static CaseSpec valid(String text) throws Exception {
-        return onSmallStack(() -> CaseReader.parse(text, "case.yaml", Map.of(), ENOUGH_MEMORY).spec());
+        return onSmallStack(() -> CaseLoader.parse(text, "case.yaml", Map.of(), ENOUGH_MEMORY).spec());
     }
 
     private static String withWidth(String expression) {
@@ -163,18 +164,18 @@ class CaseLimitsTest {
         bad[at] = (byte) 0xE9; // é in ISO 8859-1
         System.arraycopy(good, at, bad, at + 1, good.length - at);
         Path file = Files.write(dir.resolve("latin1.yaml"), bad);
-        CaseFileException e = assertThrows(CaseFileException.class, () -> CaseReader.read(file, Map.of(), ENOUGH_MEMORY));
+        CaseFileException e = assertThrows(CaseFileException.class, () -> CaseLoader.read(file, Map.of(), ENOUGH_MEMORY));
         int column = at - text.indexOf('\n');
         assertEquals(List.of(file + ":2:" + column + ": the file is not UTF-8 text: byte 0xe9 at byte offset " + at
                 + " is not valid UTF-8; save the file as UTF-8"), e.errors().stream().map(Diagnostic::toString).toList());
 
         Path utf16 = Files.write(dir.resolve("utf16.yaml"), ("\ufeff" + BASE).getBytes(StandardCharsets.UTF_16LE));
-        CaseFileException e16 = assertThrows(CaseFileException.class, () -> CaseReader.read(utf16, Map.of(), ENOUGH_MEMORY));
+        CaseFileException e16 = assertThrows(CaseFileException.class, () -> CaseLoader.read(utf16, Map.of(), ENOUGH_MEMORY));
         assertTrue(e16.getMessage().startsWith(utf16 + ":1:1: the file is not UTF-8 text: byte 0xff at byte offset 0"), e16::getMessage);
 
         // a byte-order mark is UTF-8 too, and is dropped
         Path bom = Files.write(dir.resolve("bom.yaml"), ("\ufeff" + BASE.replace("WIDTH", "4 um")).getBytes(StandardCharsets.UTF_8));
-        assertEquals(4e-6, CaseReader.read(bom, Map.of(), ENOUGH_MEMORY).spec().domain().width().si(), 1e-18);
+        assertEquals(4e-6, CaseLoader.read(bom, Map.of(), ENOUGH_MEMORY).spec().domain().width().si(), 1e-18);
     }
 
     @Test
@@ -203,13 +204,13 @@ class CaseLimitsTest {
         java.util.Arrays.fill(padded, (byte) '\n');
         System.arraycopy(text, 0, padded, 0, text.length);
         Files.write(atLimit, padded);
-        assertEquals(4e-6, onSmallStack(() -> CaseReader.read(atLimit, Map.of(), ENOUGH_MEMORY)).spec().domain().width().si(), 1e-18);
-        assertThrows(java.nio.file.NoSuchFileException.class, () -> CaseReader.read(dir.resolve("missing.yaml"), Map.of(),
+        assertEquals(4e-6, onSmallStack(() -> CaseLoader.read(atLimit, Map.of(), ENOUGH_MEMORY)).spec().domain().width().si(), 1e-18);
+        assertThrows(java.nio.file.NoSuchFileException.class, () -> CaseLoader.read(dir.resolve("missing.yaml"), Map.of(),
                 ENOUGH_MEMORY));
     }
 
     private static void assertRefused(Path file, String expected) throws Exception {
-        CaseFileException e = assertThrows(CaseFileException.class, () -> onSmallStack(() -> CaseReader.read(file, Map.of(),
+        CaseFileException e = assertThrows(CaseFileException.class, () -> onSmallStack(() -> CaseLoader.read(file, Map.of(),
                 ENOUGH_MEMORY)), file.toString());
         assertEquals(1, e.errors().size(), e::getMessage);
         assertEquals(file + ": ", e.getMessage().substring(0, file.toString().length() + 2), e::getMessage);

@@ -18,6 +18,7 @@ import org.evanesce.geometry.dispersion.MetalLibrary;
 import org.evanesce.geometry.dispersion.Spectral;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.evanesce.io.plan.CaseLoader;
 
 /**
  * Metals in case files: the four ways of giving one (terms, library, one measured index, an n, k table)
@@ -52,11 +53,11 @@ class MetalCaseTest {
     }
 
     private static LoadedCase read(String text) throws CaseFileException {
-        return CaseReader.parse(text, "case.yaml", Map.of(), ENOUGH_MEMORY);
+        return CaseLoader.parse(text, "case.yaml", Map.of(), ENOUGH_MEMORY);
     }
 
     private static List<String> errors(String text, String source) {
-        CaseFileException e = assertThrows(CaseFileException.class, () -> CaseReader.parse(text, source, Map.of(), ENOUGH_MEMORY),
+        CaseFileException e = assertThrows(CaseFileException.class, () -> CaseLoader.parse(text, source, Map.of(), ENOUGH_MEMORY),
                 "expected errors in\n" + text);
         return e.errors().stream().map(Diagnostic::toString).toList();
     }
@@ -175,7 +176,7 @@ class MetalCaseTest {
 
     @Test
     void aTableIsFittedOverTheRunsBandWithinItsReportedError(@TempDir Path dir) throws Exception {
-        LoadedCase c = CaseReader.read(write(dir, TABLE), Map.of(), ENOUGH_MEMORY);
+        LoadedCase c = CaseLoader.read(write(dir, TABLE), Map.of(), ENOUGH_MEMORY);
         Diagnostic note = c.notes().stream().filter(n -> n.message().contains("worst relative error")).findFirst().orElseThrow();
         assertTrue(note.at().toString().startsWith(dir.resolve("case.yaml") + ":5:"), note.toString());
         double worst = Double.parseDouble(note.message().replaceAll(".*worst relative error of ε ([0-9.eE+-]+) at.*", "$1"));
@@ -206,7 +207,7 @@ class MetalCaseTest {
                         + "'wavelength_nm,n,k' (or 'wavelength_um,n,k') as the first line that is not a comment, got 'lambda,n,k'");
         for (Map.Entry<String, String> e : cases.entrySet()) {
             Path c = write(dir, e.getKey());
-            CaseFileException x = assertThrows(CaseFileException.class, () -> CaseReader.read(c, Map.of(), ENOUGH_MEMORY));
+            CaseFileException x = assertThrows(CaseFileException.class, () -> CaseLoader.read(c, Map.of(), ENOUGH_MEMORY));
             assertEquals(List.of(e.getValue()), x.errors().stream().map(Diagnostic::toString).toList());
         }
     }
@@ -217,10 +218,10 @@ class MetalCaseTest {
         Path c = write(sub, TABLE);
         Files.writeString(c, Files.readString(c).replace("table: nk.csv", "table: ../nk.csv"));
         Files.writeString(dir.resolve("nk.csv"), TABLE);
-        CaseFileException x = assertThrows(CaseFileException.class, () -> CaseReader.read(c, Map.of(), ENOUGH_MEMORY));
+        CaseFileException x = assertThrows(CaseFileException.class, () -> CaseLoader.read(c, Map.of(), ENOUGH_MEMORY));
         assertTrue(x.errors().get(0).message().contains("lies outside the case file's folder"), x.errors().toString());
         Files.writeString(c, Files.readString(c).replace("table: ../nk.csv", "table: nk.csv").replace("from: 600 nm", "from: 450 nm"));
-        x = assertThrows(CaseFileException.class, () -> CaseReader.read(c, Map.of(), ENOUGH_MEMORY));
+        x = assertThrows(CaseFileException.class, () -> CaseLoader.read(c, Map.of(), ENOUGH_MEMORY));
         assertTrue(x.errors().get(0).message().contains("but the run's band is"), x.errors().toString());
     }
 }

@@ -13,7 +13,6 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.evanesce.geometry.Complex;
 import org.evanesce.io.casefile.CaseFileException;
-import org.evanesce.io.casefile.CaseReader;
 import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.plan.LayeredProfile.Band;
@@ -83,7 +82,7 @@ class LayeredProfileTest {
             """;
 
     private static CaseSpec read(String text) throws CaseFileException {
-        return CaseReader.parse(text, "case.yaml", Map.of(), ENOUGH_MEMORY).spec();
+        return CaseLoader.parse(text, "case.yaml", Map.of(), ENOUGH_MEMORY).spec();
     }
 
     /** The profile over the whole domain, the way a run would ask for it. */

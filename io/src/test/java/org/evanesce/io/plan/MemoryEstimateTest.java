@@ -16,7 +16,6 @@ import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.io.Cli;
 import org.evanesce.io.casefile.CaseFileException;
-import org.evanesce.io.casefile.CaseReader;
 import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.cli.ExitCode;
@@ -122,7 +121,7 @@ class MemoryEstimateTest {
             """;
 
     private static CaseSpec spec(String text) throws CaseFileException {
-        return CaseReader.parse(text, "case.yaml", Map.of(), new ReadOptions(Long.MAX_VALUE)).spec();
+        return CaseLoader.parse(text, "case.yaml", Map.of(), new ReadOptions(Long.MAX_VALUE)).spec();
     }
 
     private static long item(MemoryEstimate m, String what) {

@@ -16,7 +16,7 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.CasePlanner;
@@ -87,7 +87,7 @@ class IncidentPowerCacheTest {
     }
 
     private static CasePlan plan(String text, Map<String, String> set) throws Exception {
-        return CasePlanner.plan(CaseReader.parse(text, "gap.yaml", set, ReadOptions.defaults()).spec(), 1);
+        return CasePlanner.plan(CaseLoader.parse(text, "gap.yaml", set, ReadOptions.defaults()).spec(), 1);
     }
 
     private static CasePlan plan(Map<String, String> set) throws Exception {

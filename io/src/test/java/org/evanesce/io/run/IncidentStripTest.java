@@ -6,7 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertNotEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.Map;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.CasePlanner;
@@ -67,7 +67,7 @@ class IncidentStripTest {
                 .replace("WAVELENGTHS", pulse ? "{from: 610 nm, to: 660 nm, count: 6}" : "633 nm")
                 .replace("STOP", pulse ? "{energy_below: 1e-7, latest: 400 fs}" : "{time: 250 fs}")
                 .replace("RUN", run);
-        return CasePlanner.plan(CaseReader.parse(text, "film.yaml", Map.of(), ReadOptions.defaults()).spec(), 1);
+        return CasePlanner.plan(CaseLoader.parse(text, "film.yaml", Map.of(), ReadOptions.defaults()).spec(), 1);
     }
 
     @ParameterizedTest(name = "{0} polarization, pulse {1}")

@@ -5,7 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
 import java.util.Map;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.CasePlanner;
@@ -41,7 +41,7 @@ class PlausibilityTest {
 
     private static CasePlan plan(int cpw, String sigma, String reflectedY) throws Exception {
         String text = CASE.replace("CPW", Integer.toString(cpw)).replace("SIGMA", sigma).replace("REFLECTED_Y", reflectedY);
-        return CasePlanner.plan(CaseReader.parse(text, "t.yaml", Map.of(), ReadOptions.defaults()).spec(), 1);
+        return CasePlanner.plan(CaseLoader.parse(text, "t.yaml", Map.of(), ReadOptions.defaults()).spec(), 1);
     }
 
     /** One row at 633 nm with R, T and A = 1 − R − T (as FluxResults lays them out without an exact column). */

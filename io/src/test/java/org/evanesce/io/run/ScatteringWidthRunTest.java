@@ -6,7 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.util.Map;
 import org.evanesce.geometry.Complex;
 import org.evanesce.geometry.PhysicalConstants;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.CasePlanner;
@@ -53,7 +53,7 @@ class ScatteringWidthRunTest {
             """;
 
     private static SurfaceResults run(String pol, String rod) throws Exception {
-        CasePlan p = CasePlanner.plan(CaseReader.parse(CASE.replace("POL", pol).replace("ROD", rod), "t.yaml", Map.of(),
+        CasePlan p = CasePlanner.plan(CaseLoader.parse(CASE.replace("POL", pol).replace("ROD", rod), "t.yaml", Map.of(),
                 ReadOptions.defaults()).spec(), 2);
         CaseRunner.run(p, null, 1);
         return SurfaceResults.of(p.surfaces().orElseThrow());

@@ -7,7 +7,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.Map;
 import org.evanesce.io.casefile.CaseFileException;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.CasePlanner;
@@ -26,7 +26,7 @@ import org.junit.jupiter.params.provider.ValueSource;
 class SurfacesRunTest {
 
     private static CasePlan plan(String text) throws Exception {
-        return CasePlanner.plan(CaseReader.parse(text, "t.yaml", Map.of(), ReadOptions.defaults()).spec(), 2);
+        return CasePlanner.plan(CaseLoader.parse(text, "t.yaml", Map.of(), ReadOptions.defaults()).spec(), 2);
     }
 
     private static SurfaceResults run(String text) throws Exception {
@@ -247,10 +247,10 @@ class SurfacesRunTest {
                     - {name: ring, from: [-0.9 um, -0.9 um], to: [0.9 um, 0.9 um]}
                 until: {time: 120 fs}
                 """;
-        assertDoesNotThrow(() -> CaseReader.parse(text, "t.yaml", Map.of(), ReadOptions.defaults()));
+        assertDoesNotThrow(() -> CaseLoader.parse(text, "t.yaml", Map.of(), ReadOptions.defaults()));
         String source = normalise.isEmpty() ? text.replace("surfaces:\n", "surfaces:\n  normalise: source\n")
                 : text.replace(normalise, "  normalise: source\n");
-        CaseFileException e = assertThrows(CaseFileException.class, () -> CaseReader.parse(source, "t.yaml", Map.of(),
+        CaseFileException e = assertThrows(CaseFileException.class, () -> CaseLoader.parse(source, "t.yaml", Map.of(),
                 ReadOptions.defaults()));
         assertTrue(e.getMessage().contains("surfaces.normalise: 'source' divides by the power point and line sources "
                 + "radiate, and a plane_wave_box gives out none of its own"), e.getMessage());

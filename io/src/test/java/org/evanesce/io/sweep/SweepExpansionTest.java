@@ -11,7 +11,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import org.evanesce.io.casefile.CaseFileException;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.casefile.model.SweepSpec;
@@ -57,7 +57,7 @@ class SweepExpansionTest {
     Path tmp;
 
     private static CaseSpec read(String text, Map<String, String> overrides) throws CaseFileException {
-        return CaseReader.parse(text, "case.yaml", overrides, ENOUGH_MEMORY).spec();
+        return CaseLoader.parse(text, "case.yaml", overrides, ENOUGH_MEMORY).spec();
     }
 
     private static String replace(String what, String with) {

@@ -1,5 +1,7 @@
 package org.evanesce.io.casefile.model;
 
+import java.util.Optional;
+import java.util.OptionalInt;
 import org.evanesce.io.casefile.text.SourcePosition;
 import org.evanesce.io.casefile.text.Value;
 
@@ -16,12 +18,30 @@ public sealed interface BoundarySpec {
     record Pmc(SourcePosition at) implements BoundarySpec { }
 
     /**
-     * An absorbing layer inside the domain along this side.
+     * An absorbing layer inside the domain along this side, as written: a number of cells or a thickness in
+     * metres (exactly one), which planning rounds to whole cells ({@code org.evanesce.io.plan.grid.GridDerivation}).
      *
-     * @param cells     thickness in cells, as the run will use it
-     * @param thickness the same in metres (cells × Δ)
+     * @param cells     thickness in cells
+     * @param thickness thickness in metres
      */
-    record Pml(int cells, Value thickness, SourcePosition at) implements BoundarySpec { }
+    record Pml(OptionalInt cells, Optional<Value> thickness, SourcePosition at) implements BoundarySpec {
+
+        public Pml {
+            if (cells.isPresent() == thickness.isPresent()) {
+                throw new IllegalArgumentException("a PML has exactly one of a number of cells and a thickness");
+            }
+        }
+
+        /** A PML of {@code cells} cells. */
+        public static Pml ofCells(int cells, SourcePosition at) {
+            return new Pml(OptionalInt.of(cells), Optional.empty(), at);
+        }
+
+        /** A PML {@code thickness} thick. */
+        public static Pml ofThickness(Value thickness, SourcePosition at) {
+            return new Pml(OptionalInt.empty(), Optional.of(thickness), at);
+        }
+    }
 
     /**
      * Bloch-periodic, on the left and right sides together: the domain's width is one period, and a
@@ -30,10 +50,10 @@ public sealed interface BoundarySpec {
      */
     record Periodic(SourcePosition at) implements BoundarySpec { }
 
-    /** How the side is written in the run record. */
-    default String describe() {
-        if (this instanceof Pml p) {
-            return "pml " + p.cells() + " cells";
+    /** How the side is written in the run record; {@code pmlCells} is a PML's thickness in cells as planned. */
+    default String describe(int pmlCells) {
+        if (this instanceof Pml) {
+            return "pml " + pmlCells + " cells";
         }
         return this instanceof Pmc ? "pmc" : this instanceof Periodic ? "periodic" : "pec";
     }

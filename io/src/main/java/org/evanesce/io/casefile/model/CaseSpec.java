@@ -13,7 +13,8 @@ import org.evanesce.solver.grid.Side;
 
 /**
  * A validated case: every value resolved to SI units and remembering where it was written.
- * Built by {@code org.evanesce.io.casefile.CaseReader}; the records are immutable.
+ * Built by {@code org.evanesce.io.casefile.CaseReader}; the records are immutable. It holds what the file asks
+ * for; what follows from it (the grid's cells, each PML in cells) is derived in planning.
  *
  * @param source           the case file's name as given
  * @param title            the case's one-line title
@@ -21,7 +22,7 @@ import org.evanesce.solver.grid.Side;
  * @param polarization     s (Ez, Hx, Hy) or p (Hz, Ex, Ey) for the whole run
  * @param designWavelength vacuum wavelength at which materials are evaluated and resolution is counted, m
  * @param domain           the simulated rectangle
- * @param resolution       cell size and node counts
+ * @param grid             the grid asked for (planning derives the cells from it)
  * @param materials        every material the scene uses, by name (library ones included)
  * @param shapes           in order; later shapes override earlier ones
  * @param boundaries       all four sides
@@ -38,7 +39,7 @@ import org.evanesce.solver.grid.Side;
  * @param surfaces         power through segments and boxes, far fields and exit spectra, when the case asks for them
  */
 public record CaseSpec(String source, Optional<String> title, Map<String, Parameter> parameters,
-        Located<Polarization> polarization, Value designWavelength, DomainSpec domain, ResolutionSpec resolution,
+        Located<Polarization> polarization, Value designWavelength, DomainSpec domain, GridRequest grid,
         Map<String, MaterialSpec> materials, List<ShapeSpec> shapes, Map<Side, BoundarySpec> boundaries,
         List<SourceSpec> sources, List<ProbeSpec> probes, Optional<FluxSpec> flux, Optional<MapsSpec> maps, OutputSpec output, StopSpec stop, NumericsSpec numerics,
         Optional<SweepSpec> sweep, PolarizationChoice polarizations, Optional<SurfacesSpec> surfaces) {

@@ -20,6 +20,7 @@ import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.io.casefile.model.BoundarySpec;
 import org.evanesce.io.casefile.model.DomainSpec;
 import org.evanesce.io.casefile.model.FluxSpec;
+import org.evanesce.io.casefile.model.GridRequest;
 import org.evanesce.io.casefile.model.LibraryMaterial;
 import org.evanesce.io.casefile.model.MapsSpec;
 import org.evanesce.io.casefile.model.MaterialSpec;
@@ -28,7 +29,6 @@ import org.evanesce.io.casefile.model.OutputSpec;
 import org.evanesce.io.casefile.model.PolarizationChoice;
 import org.evanesce.io.casefile.model.Point;
 import org.evanesce.io.casefile.model.ProbeSpec;
-import org.evanesce.io.casefile.model.ResolutionSpec;
 import org.evanesce.io.casefile.model.ShapeSpec;
 import org.evanesce.io.casefile.model.SignalSpec;
 import org.evanesce.io.casefile.model.SourceSpec;
@@ -56,8 +56,6 @@ import org.snakeyaml.engine.v2.nodes.ScalarNode;
  */
 final class CaseParser {
 
-    /** The most nodes one grid may have: one Java array per field, with the geometry module's margin. */
-    static final long MAX_NODES = Integer.MAX_VALUE - 64;
     /** A Courant number below this gets a warning: the steps multiply for no useful gain in accuracy. */
     static final double SMALL_COURANT = 0.05;
     /** PML thickness when a side says just {@code pml}, in cells. */
@@ -94,14 +92,12 @@ final class CaseParser {
     final List<ShapeSpec> shapes = new ArrayList<>();
     final List<String> shapePaths = new ArrayList<>();
     boolean shapesComplete = true;
-    ResolutionSpec resolution;
+    GridRequest grid;
     /** The resolution as written is multiplied by this (an accuracy study's finer levels); 1 normally. */
     double resolutionScale = 1;
     /** The grid's nodes are moved by this fraction of a cell (an accuracy study's offset runs); 0 normally. */
     double gridOffset;
     SourcePosition resolutionAt;
-    /** The key the cell size came from: grid.cell or grid.cells_per_wavelength. */
-    String resolutionPath = "grid";
     final Map<Side, BoundarySpec> boundaries = new EnumMap<>(Side.class);
     final List<SourceSpec> sources = new ArrayList<>();
     final List<String> sourcePaths = new ArrayList<>();
@@ -429,56 +425,22 @@ final class CaseParser {
 
     // ---------------------------------------------------------------- grid and boundaries
 
+    /** Records the grid the case asks for; planning derives the cells from it. */
     private void readResolution(MapView v) {
         if (v == null) {
             return;
         }
         String how = v.oneOf(false, "cell", "cells_per_wavelength");
-        if (how != null) {
-            resolutionPath = v.path(how);
-        }
-        Value cell = null;
-        Optional<Value> perWavelength = Optional.empty();
         if ("cell".equals(how)) {
-            cell = ctx.positive(v.get("cell"), v.path("cell"), Expect.LENGTH);
-            if (cell != null && resolutionScale != 1) {
-                cell = new Value(cell.si() / resolutionScale, cell.at());
+            Value cell = ctx.positive(v.get("cell"), v.path("cell"), Expect.LENGTH);
+            if (cell != null) {
+                grid = new GridRequest(Optional.of(cell), Optional.empty(), resolutionScale, gridOffset);
             }
         } else if ("cells_per_wavelength".equals(how)) {
             Value n = ctx.positive(v.get("cells_per_wavelength"), v.path("cells_per_wavelength"), Expect.PLAIN);
-            if (n == null || designWavelength == null || !materialsComplete || used.isEmpty()) {
-                return;
+            if (n != null) {
+                grid = new GridRequest(Optional.empty(), Optional.of(n), resolutionScale, gridOffset);
             }
-            n = new Value(n.si() * resolutionScale, n.at());
-            MaterialSpec densest = used.values().stream().max((a, b) -> Double.compare(a.index(), b.index())).orElseThrow();
-            cell = new Value(designWavelength.si() / (densest.index() * n.si()), n.at());
-            perWavelength = Optional.of(n);
-            ctx.note(n.at(), v.path("cells_per_wavelength"), String.format("cell size %s: %s cells per wavelength of %s in %s (n = %s)",
-                    Units.format(cell.si(), Dimension.LENGTH), Units.number(n.si()), Units.format(designWavelength.si(), Dimension.LENGTH),
-                    densest.name(), Units.number(densest.index())));
-        }
-        if (cell == null || domain == null) {
-            return;
-        }
-        double cx = Math.ceil(domain.width().si() / cell.si() - 1e-9);
-        double cy = Math.ceil(domain.height().si() / cell.si() - 1e-9);
-        if ((cx + 1) * (cy + 1) > MAX_NODES) {
-            ctx.error(cell.at(), v.path(how), String.format("the grid would have %.0f x %.0f nodes, more than one array can hold "
-                    + "(%d values); use a larger cell or a smaller domain", cx + 1, cy + 1, MAX_NODES));
-            return;
-        }
-        if (cx < 2 || cy < 2) {
-            ctx.error(cell.at(), v.path(how), String.format("the domain (%s x %s) is only %d x %d cells of %s; at least 2 cells "
-                    + "along each side are needed", fmtLength(domain.width().si()), fmtLength(domain.height().si()), (long) cx, (long) cy,
-                    fmtLength(cell.si())));
-            return;
-        }
-        resolution = new ResolutionSpec(cell, (int) cx + 1, (int) cy + 1, perWavelength, gridOffset);
-        double slack = 1e-6 * cell.si();
-        if (cx * cell.si() > domain.width().si() + slack || cy * cell.si() > domain.height().si() + slack) {
-            ctx.note(cell.at(), v.path(how), String.format("the domain (%s x %s) is not a whole number of %s cells; the grid covers %s x %s (%d x %d cells) about the same centre",
-                    fmtLength(domain.width().si()), fmtLength(domain.height().si()), fmtLength(cell.si()),
-                    fmtLength(cx * cell.si()), fmtLength(cy * cell.si()), (long) cx, (long) cy));
         }
     }
 
@@ -527,8 +489,8 @@ final class CaseParser {
                 paths.put(side, all != null ? "boundaries.all" : "boundaries");
                 if (all != null) {
                     sides.put(side, all);
-                } else if (resolution != null) {
-                    sides.put(side, new BoundarySpec.Pml(DEFAULT_PML_CELLS, new Value(DEFAULT_PML_CELLS * resolution.cellSize().si(), at), at));
+                } else {
+                    sides.put(side, BoundarySpec.Pml.ofCells(DEFAULT_PML_CELLS, at));
                 }
             }
         }
@@ -591,8 +553,7 @@ final class CaseParser {
                 return word.equals("pec") ? new BoundarySpec.Pec(s.start()) : new BoundarySpec.Pmc(s.start());
             case "pml": {
                 if (rest.isEmpty()) {
-                    return resolution == null ? null
-                            : new BoundarySpec.Pml(DEFAULT_PML_CELLS, new Value(DEFAULT_PML_CELLS * resolution.cellSize().si(), s.start()), s.start());
+                    return BoundarySpec.Pml.ofCells(DEFAULT_PML_CELLS, s.start());
                 }
                 int from = text.indexOf(rest, space);
                 Scalar thick = s.from(from);
@@ -600,32 +561,24 @@ final class CaseParser {
                 if (q == null) {
                     return null;
                 }
-                int cells;
                 if (q.dimension().isNone()) {
                     if (q.value() != Math.rint(q.value()) || q.value() < 1) {
                         ctx.error(thick.start(), path, "a PML thickness in cells must be a whole number of at least 1, got "
                                 + Units.number(q.value()) + " (write a length such as 1 um for a thickness in metres)");
                         return null;
                     }
-                    if (resolution == null) {
-                        return null;
-                    }
-                    cells = (int) Math.min(q.value(), Integer.MAX_VALUE);
+                    return BoundarySpec.Pml.ofCells((int) Math.min(q.value(), Integer.MAX_VALUE), s.start());
                 } else if (q.dimension().equals(Dimension.LENGTH)) {
                     if (!(q.value() > 0)) {
                         ctx.error(thick.start(), path, "a PML thickness must be positive, got " + q);
                         return null;
                     }
-                    if (resolution == null) {
-                        return null;
-                    }
-                    cells = (int) Math.max(1, Math.min(Math.round(q.value() / resolution.cellSize().si()), Integer.MAX_VALUE));
+                    return BoundarySpec.Pml.ofThickness(new Value(q.value(), thick.start()), s.start());
                 } else {
                     ctx.error(thick.start(), path, "got " + q + " (" + q.dimension().describe()
                             + "), expected a PML thickness in cells (a whole number) or a length such as 1 um");
                     return null;
                 }
-                return new BoundarySpec.Pml(cells, new Value(cells * resolution.cellSize().si(), thick.start()), s.start());
             }
             default:
                 ctx.error(s.start(), path, "unknown boundary '" + Suggest.shown(word) + "'" + Suggest.didYouMean(word, List.of("pec", "pmc", "pml", "periodic"))

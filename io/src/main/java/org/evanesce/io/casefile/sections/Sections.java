@@ -41,7 +41,7 @@ public final class Sections {
         p.resolutionScale = resolutionScale;
         p.gridOffset = gridOffset;
         p.parse(root, overrides);
-        KeyPaths paths = new KeyPaths(p.resolutionPath, p.shapePaths, p.sourcePaths, p.probePaths, p.boundaryPaths);
+        KeyPaths paths = new KeyPaths(p.shapePaths, p.sourcePaths, p.probePaths, p.boundaryPaths);
         return new Result(ctx.hasErrors() ? Optional.empty() : Optional.of(assemble(ctx, p)), paths);
     }
 
@@ -50,7 +50,7 @@ public final class Sections {
         check(missing, p.polarization, "polarization");
         check(missing, p.designWavelength, "design_wavelength");
         check(missing, p.domain, "domain");
-        check(missing, p.resolution, "grid");
+        check(missing, p.grid, "grid");
         check(missing, p.output, "output");
         check(missing, p.stop, "until");
         check(missing, p.numerics, "numerics");
@@ -62,7 +62,7 @@ public final class Sections {
             throw new IllegalStateException("case parts left unresolved without an error: " + missing);
         }
         return new CaseSpec(ctx.source, Optional.ofNullable(p.title), ctx.parameters.resolved(),
-                new Located<>(p.polarization, p.polarizationAt), p.designWavelength, p.domain, p.resolution, p.used, p.shapes,
+                new Located<>(p.polarization, p.polarizationAt), p.designWavelength, p.domain, p.grid, p.used, p.shapes,
                 p.boundaries, p.sources, p.probes, Optional.ofNullable(p.flux), Optional.ofNullable(p.maps), p.output, p.stop,
                 p.numerics, Optional.ofNullable(p.sweep), p.polarizationChoice,
                 Optional.ofNullable(p.surfaces));

@@ -11,13 +11,12 @@ import org.evanesce.solver.grid.Side;
  * ({@code sources[1].plane_wave}, {@code boundaries.left}): the spec's values keep their line and
  * column, these keep their keys. Each list runs parallel to the spec's list of the same name.
  *
- * @param grid       the key the cell size came from: {@code grid.cell} or {@code grid.cells_per_wavelength}
  * @param shapes     one per shape
  * @param sources    one per source
  * @param probes     one per probe
  * @param boundaries one per side
  */
-public record KeyPaths(String grid, List<String> shapes, List<String> sources, List<String> probes,
+public record KeyPaths(List<String> shapes, List<String> sources, List<String> probes,
         Map<Side, String> boundaries) {
 
     public KeyPaths {

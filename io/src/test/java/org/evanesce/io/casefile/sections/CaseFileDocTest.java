@@ -19,6 +19,7 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Collectors;
 import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.casefile.model.LibraryMaterial;
 import org.evanesce.io.casefile.text.Diagnostic;
@@ -110,7 +111,7 @@ class CaseFileDocTest {
         Set<String> consumed = new LinkedHashSet<>();
         for (int k = 0; k < examples.size(); k++) {
             // read as if beside the page, so that an example's table (docs/gold-jc-nk.csv) is found
-            CaseReader.Reading r = CaseReader.reading(examples.get(k), DOC.resolveSibling("example" + k + ".yaml").toString(), Map.of(), new ReadOptions(Long.MAX_VALUE));
+            CaseReader.Reading r = CaseLoader.reading(examples.get(k), DOC.resolveSibling("example" + k + ".yaml").toString(), Map.of(), new ReadOptions(Long.MAX_VALUE));
             String errors = r.context().diagnostics.stream().filter(Diagnostic::isError).map(Diagnostic::toString)
                     .collect(Collectors.joining("\n"));
             assertNotNull(r.spec(), "example " + k + " of the reference has errors:\n" + errors);

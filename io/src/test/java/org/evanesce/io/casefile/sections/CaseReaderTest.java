@@ -13,7 +13,9 @@ import java.util.List;
 import java.util.Map;
 import java.util.Optional;
 import org.evanesce.io.casefile.CaseFileException;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
+import org.evanesce.io.plan.grid.GridDerivation;
+import org.evanesce.io.plan.grid.GridPlan;
 import org.evanesce.io.casefile.LoadedCase;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.casefile.expr.Dimension;
@@ -111,7 +113,7 @@ class CaseReaderTest {
             """;
 
     static LoadedCase read(String text, Map<String, String> overrides) throws CaseFileException {
-        return CaseReader.parse(text, "case.yaml", overrides, ENOUGH_MEMORY);
+        return CaseLoader.parse(text, "case.yaml", overrides, ENOUGH_MEMORY);
     }
 
     private static void assertSi(double expected, Value actual, String what) {
@@ -145,10 +147,12 @@ class CaseReaderTest {
         // the cell size picked from 20 cells per wavelength in the densest material, borosilicate crown
         double nGlass = LibraryMaterial.BOROSILICATE_CROWN.index(633e-9);
         double cell = 633e-9 / (nGlass * 20);
-        assertSi(cell, c.resolution().cellSize(), "cell");
-        assertEquals((int) Math.ceil(12e-6 / cell) + 1, c.resolution().nx());
-        assertEquals((int) Math.ceil(10e-6 / cell) + 1, c.resolution().ny());
-        assertSi(20, c.resolution().cellsPerWavelength().orElseThrow(), "cells per wavelength");
+        assertSi(20, c.grid().cellsPerWavelength().orElseThrow(), "cells per wavelength asked for");
+        GridPlan grid = GridDerivation.derive(c, new java.util.ArrayList<>());
+        assertSi(cell, grid.cellSize(), "cell");
+        assertEquals((int) Math.ceil(12e-6 / cell) + 1, grid.nx());
+        assertEquals((int) Math.ceil(10e-6 / cell) + 1, grid.ny());
+        assertSi(20, grid.cellsPerWavelength().orElseThrow(), "cells per wavelength");
         assertTrue(loaded.notes().stream().anyMatch(d -> d.toString().startsWith(
                 "case.yaml:14:25: note: grid.cells_per_wavelength: cell size 20.89 nm: 20 cells per wavelength of 633 nm in glass (n = 1.51508)")),
                 loaded.notes().toString());
@@ -197,10 +201,13 @@ class CaseReaderTest {
 
         // boundaries: all, overridden per side; pml lengths rounded to cells
         BoundarySpec.Pml left = assertInstanceOf(BoundarySpec.Pml.class, c.boundary(Side.LEFT));
-        assertEquals(Math.round(1e-6 / cell), left.cells());
-        assertSi(left.cells() * cell, left.thickness(), "left PML thickness");
-        assertEquals(24, ((BoundarySpec.Pml) c.boundary(Side.TOP)).cells());
-        assertEquals(CaseParser.DEFAULT_PML_CELLS, ((BoundarySpec.Pml) c.boundary(Side.RIGHT)).cells());
+        assertSi(1e-6, left.thickness().orElseThrow(), "left PML thickness as written");
+        assertEquals(Math.round(1e-6 / cell), grid.pmlCells(Side.LEFT));
+        assertEquals(24, ((BoundarySpec.Pml) c.boundary(Side.TOP)).cells().getAsInt());
+        assertEquals(24, grid.pmlCells(Side.TOP));
+        assertEquals(CaseParser.DEFAULT_PML_CELLS, ((BoundarySpec.Pml) c.boundary(Side.RIGHT)).cells().getAsInt());
+        assertEquals(CaseParser.DEFAULT_PML_CELLS, grid.pmlCells(Side.RIGHT));
+        assertEquals(0, grid.pmlCells(Side.BOTTOM));
         assertInstanceOf(BoundarySpec.Pec.class, c.boundary(Side.BOTTOM));
 
         // sources
@@ -262,13 +269,14 @@ class CaseReaderTest {
                 + "the first source's wavelength"), loaded.notes().stream().map(Diagnostic::toString).toList());
         assertEquals("vacuum", c.domain().background().value());
         assertSi(1.0, c.materials().get("vacuum").relativePermittivity(), "vacuum");
-        assertEquals(201, c.resolution().nx());
-        assertEquals(151, c.resolution().ny());
-        assertEquals(Optional.empty(), c.resolution().cellsPerWavelength());
-        assertEquals(-2e-6, c.resolution().x(0), 1e-20);
-        assertEquals(1.5e-6, c.resolution().y(150), 1e-20);
+        GridPlan grid = GridDerivation.derive(c, new java.util.ArrayList<>());
+        assertEquals(201, grid.nx());
+        assertEquals(151, grid.ny());
+        assertEquals(Optional.empty(), grid.cellsPerWavelength());
+        assertEquals(-2e-6, grid.x(0), 1e-20);
+        assertEquals(1.5e-6, grid.y(150), 1e-20);
         for (Side side : Side.values()) {
-            assertEquals(CaseParser.DEFAULT_PML_CELLS, ((BoundarySpec.Pml) c.boundary(side)).cells(), side.name());
+            assertEquals(CaseParser.DEFAULT_PML_CELLS, grid.pmlCells(side), side.name());
         }
         assertEquals(Component.HZ, c.sources().get(0).component().value());
         assertSi(1, c.sources().get(0).amplitude(), "amplitude");
@@ -331,7 +339,7 @@ class CaseReaderTest {
     void readsFilesAndNamesThemInMessages(@TempDir Path dir) throws IOException {
         Path file = dir.resolve("gap.yaml");
         Files.writeString(file, MINIMAL.replace("20 nm", "20 nmm"));
-        CaseFileException e = assertThrows(CaseFileException.class, () -> CaseReader.read(file, Map.of(), ENOUGH_MEMORY));
+        CaseFileException e = assertThrows(CaseFileException.class, () -> CaseLoader.read(file, Map.of(), ENOUGH_MEMORY));
         assertTrue(e.getMessage().startsWith(file + ":3:17: grid.cell: unknown unit 'nmm'"), e.getMessage());
     }
 }

@@ -13,7 +13,7 @@ import java.util.List;
 import java.util.Map;
 import org.evanesce.io.Cli;
 import org.evanesce.io.casefile.CaseFileException;
-import org.evanesce.io.casefile.CaseReader;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.ReadOptions;
 import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.model.StopSpec;
@@ -51,7 +51,7 @@ class RenamedKeysTest {
 
     private static List<String> errors(String text) {
         CaseFileException e = assertThrows(CaseFileException.class,
-                () -> CaseReader.parse(text, "case.yaml", Map.of(), ENOUGH_MEMORY), "expected errors in\n" + text);
+                () -> CaseLoader.parse(text, "case.yaml", Map.of(), ENOUGH_MEMORY), "expected errors in\n" + text);
         return e.errors().stream().map(Diagnostic::toString).toList();
     }
 
@@ -94,7 +94,7 @@ class RenamedKeysTest {
 
     @Test
     void latestAloneStopsAtTheDefaultEnergyFraction() throws CaseFileException {
-        CaseSpec c = CaseReader.parse(text("grid: {cell: 20 nm}", "until: {latest: 2 ps}"), "case.yaml", Map.of(), ENOUGH_MEMORY)
+        CaseSpec c = CaseLoader.parse(text("grid: {cell: 20 nm}", "until: {latest: 2 ps}"), "case.yaml", Map.of(), ENOUGH_MEMORY)
                 .spec();
         StopSpec.WhenEnergyBelow u = assertInstanceOf(StopSpec.WhenEnergyBelow.class, c.stop());
         assertEquals(StopSpec.DEFAULT_ENERGY_FRACTION, u.fraction().si());
@@ -104,13 +104,13 @@ class RenamedKeysTest {
 
     @Test
     void newKeysAreRead() throws CaseFileException {
-        CaseSpec c = CaseReader.parse(text("grid:\n  cell: 25 nm", "until:\n  energy_below: 1e-7\n  latest: 300 fs"),
+        CaseSpec c = CaseLoader.parse(text("grid:\n  cell: 25 nm", "until:\n  energy_below: 1e-7\n  latest: 300 fs"),
                 "case.yaml", Map.of(), ENOUGH_MEMORY).spec();
-        assertEquals(25e-9, c.resolution().cellSize().si(), 1e-24);
+        assertEquals(25e-9, c.grid().cell().orElseThrow().si(), 1e-24);
         StopSpec.WhenEnergyBelow u = assertInstanceOf(StopSpec.WhenEnergyBelow.class, c.stop());
         assertEquals(1e-7, u.fraction().si());
         assertEquals(300e-15, u.latest().si(), 1e-30);
-        assertInstanceOf(StopSpec.AfterSteps.class, CaseReader.parse(text("grid: {cell: 20 nm}", "until: {steps: 40}"), "case.yaml",
+        assertInstanceOf(StopSpec.AfterSteps.class, CaseLoader.parse(text("grid: {cell: 20 nm}", "until: {steps: 40}"), "case.yaml",
                 Map.of(), ENOUGH_MEMORY).spec().stop());
     }
 

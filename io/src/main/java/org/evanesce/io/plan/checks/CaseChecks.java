@@ -1,4 +1,4 @@
-package org.evanesce.io.casefile.checks;
+package org.evanesce.io.plan.checks;
 
 import java.util.HashSet;
 import java.util.List;
@@ -13,7 +13,6 @@ import org.evanesce.io.casefile.model.DomainSpec;
 import org.evanesce.io.casefile.model.MaterialSpec;
 import org.evanesce.io.casefile.model.OutputSpec;
 import org.evanesce.io.casefile.model.Point;
-import org.evanesce.io.casefile.model.ResolutionSpec;
 import org.evanesce.io.casefile.model.ShapeSpec;
 import org.evanesce.io.casefile.model.SignalSpec;
 import org.evanesce.io.casefile.model.SourceSpec;
@@ -22,14 +21,15 @@ import org.evanesce.io.casefile.text.Diagnostic;
 import org.evanesce.io.casefile.text.KeyPaths;
 import org.evanesce.io.casefile.text.SourcePosition;
 import org.evanesce.io.casefile.text.Value;
+import org.evanesce.io.plan.grid.GridPlan;
 import org.evanesce.solver.grid.Precision;
 import org.evanesce.solver.grid.Side;
 
 /**
  * Checks that look at several parts of a case together: where things sit in the domain and the
- * PML, resolution, evanescent decay, memory. They read the finished {@link CaseSpec} (the reader
- * runs them once every section was read without errors) and the key paths its parts came from;
- * they never see the parser.
+ * PML, resolution, evanescent decay, memory. They read the finished {@link CaseSpec} (they run once
+ * every section was read without errors), the key paths its parts came from and the grid derived
+ * from it; they never see the parser.
  */
 public final class CaseChecks {
 
@@ -42,12 +42,14 @@ public final class CaseChecks {
 
     private final CaseSpec spec;
     private final KeyPaths paths;
+    private final GridPlan grid;
     private final long memoryLimit;
     private final List<Diagnostic> out;
 
-    private CaseChecks(CaseSpec spec, KeyPaths paths, long memoryLimit, List<Diagnostic> out) {
+    private CaseChecks(CaseSpec spec, KeyPaths paths, GridPlan grid, long memoryLimit, List<Diagnostic> out) {
         this.spec = spec;
         this.paths = paths;
+        this.grid = grid;
         this.memoryLimit = memoryLimit;
         this.out = out;
     }
@@ -56,10 +58,11 @@ public final class CaseChecks {
      * Runs every check on a finished case and adds what it finds to {@code out}.
      *
      * @param paths       the key paths the case's parts were written under
+     * @param grid        the grid derived from the case
      * @param memoryLimit bytes the run may use for its grid; a larger estimate is an error
      */
-    public static void run(CaseSpec spec, KeyPaths paths, long memoryLimit, List<Diagnostic> out) {
-        new CaseChecks(spec, paths, memoryLimit, out).run();
+    public static void run(CaseSpec spec, KeyPaths paths, GridPlan grid, long memoryLimit, List<Diagnostic> out) {
+        new CaseChecks(spec, paths, grid, memoryLimit, out).run();
     }
 
     private void run() {
@@ -127,25 +130,31 @@ public final class CaseChecks {
     }
 
     private int pmlCells(Side side) {
-        return spec.boundaries().get(side) instanceof BoundarySpec.Pml pml ? pml.cells() : 0;
+        return grid.pmlCells(side);
+    }
+
+    /** The cell size, metres. */
+    double cell() {
+        return grid.cellSize().si();
     }
 
     private void pml() {
         Set<SourcePosition> warned = new HashSet<>();
         for (Map.Entry<Side, BoundarySpec> e : spec.boundaries().entrySet()) {
-            if (e.getValue() instanceof BoundarySpec.Pml pml && pml.cells() < MIN_PML_CELLS && warned.add(pml.at())) {
+            int cells = pmlCells(e.getKey());
+            if (e.getValue() instanceof BoundarySpec.Pml pml && cells < MIN_PML_CELLS && warned.add(pml.at())) {
                 warn(pml.at(), paths.boundaries().get(e.getKey()), String.format("a PML of %d cells (%s) is thinner than %d cells and reflects noticeably; use at least %d",
-                        pml.cells(), fmt(pml.thickness().si()), MIN_PML_CELLS, MIN_PML_CELLS));
+                        cells, fmt(cells * cell()), MIN_PML_CELLS, MIN_PML_CELLS));
             }
         }
-        if (spec.boundaries().get(Side.LEFT) instanceof BoundarySpec.Periodic per && spec.resolution().nx() - 1 < 3) {
+        if (spec.boundaries().get(Side.LEFT) instanceof BoundarySpec.Periodic per && grid.nx() - 1 < 3) {
             // the node at x = +W/2 is the image of the one at −W/2, so a period holds one column fewer
             error(per.at(), paths.boundaries().get(Side.LEFT), String.format("with periodic sides a period needs at least 3 "
                     + "cells across, but the domain's width is %d cells of %s; use a smaller cell or a wider domain",
-                    spec.resolution().nx() - 1, fmt(spec.resolution().cellSize().si())));
+                    grid.nx() - 1, fmt(grid.cellSize().si())));
         }
-        across(Side.LEFT, Side.RIGHT, spec.resolution().nx() - 1, "wide");
-        across(Side.BOTTOM, Side.TOP, spec.resolution().ny() - 1, "high");
+        across(Side.LEFT, Side.RIGHT, grid.nx() - 1, "wide");
+        across(Side.BOTTOM, Side.TOP, grid.ny() - 1, "high");
     }
 
     private void across(Side a, Side b, int cells, String what) {
@@ -202,9 +211,9 @@ public final class CaseChecks {
 
     /** The interior (outside every PML) as {xmin, ymin, xmax, ymax}, metres. */
     double[] interior() {
-        double d = spec.resolution().cellSize().si();
-        return new double[] {spec.resolution().x(0) + pmlCells(Side.LEFT) * d, spec.resolution().y(0) + pmlCells(Side.BOTTOM) * d,
-            spec.resolution().x(spec.resolution().nx() - 1) - pmlCells(Side.RIGHT) * d, spec.resolution().y(spec.resolution().ny() - 1) - pmlCells(Side.TOP) * d};
+        double d = grid.cellSize().si();
+        return new double[] {grid.x(0) + pmlCells(Side.LEFT) * d, grid.y(0) + pmlCells(Side.BOTTOM) * d,
+            grid.x(grid.nx() - 1) - pmlCells(Side.RIGHT) * d, grid.y(grid.ny() - 1) - pmlCells(Side.TOP) * d};
     }
 
     private String interiorText() {
@@ -215,7 +224,7 @@ public final class CaseChecks {
     /** "left PML" etc. when (x, y) lies in a PML, else null. */
     private String pmlAt(double x, double y) {
         double[] in = interior();
-        double tol = 1e-6 * spec.resolution().cellSize().si();
+        double tol = 1e-6 * grid.cellSize().si();
         if (x < in[0] - tol) {
             return "left PML";
         } else if (x > in[2] + tol) {
@@ -243,11 +252,11 @@ public final class CaseChecks {
         if (densest == null) {
             return;
         }
-        double cells = shortest / (densest.index() * spec.resolution().cellSize().si());
+        double cells = shortest / (densest.index() * grid.cellSize().si());
         if (cells < MIN_CELLS_PER_WAVELENGTH) {
-            warn(spec.resolution().cellSize().at(), paths.grid(), String.format(
+            warn(grid.cellSize().at(), spec.grid().path(), String.format(
                     "%s cells per wavelength in %s (n = %s) at %s with a %s cell, below %s; numerical dispersion will be visible, use a cell of at most %s",
-                    Units.number(cells), densest.name(), Units.number(densest.index()), fmt(shortest), fmt(spec.resolution().cellSize().si()),
+                    Units.number(cells), densest.name(), Units.number(densest.index()), fmt(shortest), fmt(grid.cellSize().si()),
                     Units.number(MIN_CELLS_PER_WAVELENGTH), fmt(shortest / (densest.index() * MIN_CELLS_PER_WAVELENGTH))));
         }
     }
@@ -258,7 +267,7 @@ public final class CaseChecks {
      * Point sources radiate at every angle, so only tilted line sources can be checked.
      */
     private void evanescent() {
-        double cell = spec.resolution().cellSize().si();
+        double cell = grid.cellSize().si();
         for (int k = 0; k < spec.sources().size(); k++) {
             if (!(spec.sources().get(k) instanceof SourceSpec.LineSource ls) || ls.angle().si() == 0) {
                 continue;
@@ -294,12 +303,12 @@ public final class CaseChecks {
 
     private void memory() {
         Precision precision = spec.numerics().precision().value();
-        double bytes = spec.resolution().estimatedBytes(precision);
+        double bytes = grid.estimatedBytes(precision);
         if (bytes > memoryLimit) {
-            error(spec.resolution().cellSize().at(), paths.grid(), String.format(
+            error(grid.cellSize().at(), spec.grid().path(), String.format(
                     "the grid of %d x %d nodes needs about %s in %s (%d bytes per cell) but the JVM can use at most %s; "
                             + "use a larger cell or a smaller domain, or give the JVM more memory (-Xmx)",
-                    spec.resolution().nx(), spec.resolution().ny(), gib(bytes), precision.name().toLowerCase(Locale.ROOT), ResolutionSpec.bytesPerCell(precision),
+                    grid.nx(), grid.ny(), gib(bytes), precision.name().toLowerCase(Locale.ROOT), GridPlan.bytesPerCell(precision),
                     gib(memoryLimit)));
         }
     }

@@ -1,4 +1,4 @@
-package org.evanesce.io.casefile.checks;
+package org.evanesce.io.plan.checks;
 
 import java.util.ArrayList;
 import java.util.List;
@@ -164,7 +164,7 @@ final class PlaneWaveChecks {
     }
 
     private void lines(SourceSpec.Launched w, FluxSpec flux) {
-        double cell = spec.resolution().cellSize().si();
+        double cell = checks.cell();
         for (int k = 0; k < flux.lines().size(); k++) {
             FluxSpec.Line line = flux.lines().get(k);
             String path = "flux.lines[" + k + "].y";

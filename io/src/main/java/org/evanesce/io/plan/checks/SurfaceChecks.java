@@ -1,4 +1,4 @@
-package org.evanesce.io.casefile.checks;
+package org.evanesce.io.plan.checks;
 
 import org.evanesce.io.casefile.model.CaseSpec;
 import org.evanesce.io.casefile.model.MaterialSpec;
@@ -42,7 +42,7 @@ final class SurfaceChecks {
         }
         normalisation(s);
         double[] in = checks.interior();
-        double tol = 1e-6 * spec.resolution().cellSize().si();
+        double tol = 1e-6 * checks.cell();
         for (int k = 0; k < s.segments().size(); k++) {
             SurfacesSpec.Segment g = s.segments().get(k);
             inside(in, tol, "surfaces.segments[" + k + "]", g.from(), g.to());
@@ -121,7 +121,7 @@ final class SurfaceChecks {
         double y0 = f.from().y().si();
         double x1 = f.to().x().si();
         double y1 = f.to().y().si();
-        double step = spec.resolution().cellSize().si() / SAMPLES_PER_CELL;
+        double step = checks.cell() / SAMPLES_PER_CELL;
         String first = materialAt(x0, y0);
         int nx = (int) Math.ceil((x1 - x0) / step);
         int ny = (int) Math.ceil((y1 - y0) / step);
@@ -156,7 +156,7 @@ final class SurfaceChecks {
                     fmt(y), fmt(in[1]), fmt(in[3])));
             return;
         }
-        double step = spec.resolution().cellSize().si() / SAMPLES_PER_CELL;
+        double step = checks.cell() / SAMPLES_PER_CELL;
         String first = materialAt(in[0], y);
         int n = (int) Math.ceil((in[2] - in[0]) / step);
         for (int t = 0; t <= n; t++) {
@@ -175,7 +175,7 @@ final class SurfaceChecks {
             return;
         }
         double index = m.index();
-        double cell = spec.resolution().cellSize().si();
+        double cell = checks.cell();
         for (Value f : s.frequencies()) {
             double wl = PhysicalConstants.C0 / f.si();
             if (cell > wl / (2 * index)) {
