@@ -46,6 +46,23 @@ public final class JitWarmUp {
         }
     }
 
+    /**
+     * Starts the warm-up of one polarization and precision on a background (daemon) thread, so that it overlaps
+     * the work before the first run (a sweep reads and plans its points meanwhile); a run's own call then finds it
+     * done or waits for it. A warm-up that fails here is left to that call, which does it again.
+     */
+    public static void start(Polarization pol, Precision precision) {
+        Thread t = new Thread(() -> {
+            try {
+                run(pol, precision);
+            } catch (RuntimeException | OutOfMemoryError e) {
+                // not done: the run's own call warms up (and reports what goes wrong there)
+            }
+        }, "kernel-warm-up");
+        t.setDaemon(true);
+        t.start();
+    }
+
     private static void warmUp(Polarization pol, Precision precision) {
         int n = 96;
         MaterialGrid g = MaterialGrid.builder(n, n, 50e-9, Material.VACUUM)
