@@ -21,33 +21,8 @@ import org.junit.jupiter.api.Test;
  */
 class SweepPreparationTest {
 
-    /** A small plane-wave case (5 x 153 cells); its plan's memory estimate is the unit of the budgets below. */
-    private static final String CASE = """
-            title: vacuum gap between glass blocks
-            parameters:
-              gap: 150 nm
-            design_wavelength: 633 nm
-            polarization: s
-            domain: {width: 0.1 um, height: 3.2 um, background: glass}
-            grid: {cells_per_wavelength: 20}
-            materials:
-              glass: {index: 1.5}
-            shapes:
-              - layer_stack:
-                  start: [0, -gap/2]
-                  layers: [{material: air, thickness: gap}]
-            boundaries: {left: periodic, right: periodic, bottom: pml 0.5 um, top: pml 0.5 um}
-            sources:
-              - plane_wave:
-                  y: -0.7 um
-                  angle: 45 deg
-                  signal: {pulse: {wavelength: 633 nm, bandwidth: 20 nm}}
-            flux:
-              wavelengths: [633 nm]
-              lines:
-                - {y: 0.7 um, measures: transmitted}
-            until: {energy_below: 1e-6, latest: 400 fs}
-            """;
+    /** The shipped plane-wave gap example (19 x 191 cells); its plan's memory estimate is the unit of the budgets below. */
+    private static final java.nio.file.Path CASE = java.nio.file.Path.of("../cases/gap-tunnelling-plane-wave.yaml");
 
     @Test
     void outcomesComeInTheItemsOrderWhateverFinishesFirst() {
@@ -93,6 +68,7 @@ class SweepPreparationTest {
     }
 
     private static CasePlan plan(String gap) throws Exception {
-        return CasePlanner.plan(CaseReader.parse(CASE, "case.yaml", Map.of("gap", gap), ReadOptions.defaults()).spec(), null);
+        return CasePlanner.plan(CaseReader.parse(java.nio.file.Files.readString(CASE), CASE.toString(), Map.of("gap", gap),
+                ReadOptions.defaults()).spec(), null);
     }
 }
