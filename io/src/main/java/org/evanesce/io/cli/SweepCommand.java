@@ -444,7 +444,9 @@ public final class SweepCommand implements Callable<Integer> {
         ThreadLimit limit = ThreadLimit.current();
         Integer capped = limit.apply(asked, err::println, Runtime.getRuntime().availableProcessors());
         int cores = capped != null ? capped : Math.min(limit.max(), Runtime.getRuntime().availableProcessors());
-        return Parallelism.choose(cores, cells, rows, bytes, Runtime.getRuntime().maxMemory(), todo.size(), parallel);
+        Parallelism choice = Parallelism.choose(cores, cells, rows, bytes, Runtime.getRuntime().maxMemory(), todo.size(), parallel);
+        kept.fitBeside(choice.parallel() * bytes, Runtime.getRuntime().maxMemory());
+        return choice;
     }
 
     /**

@@ -126,6 +126,17 @@ final class SweepPreparation {
             return plan;
         }
 
+        /**
+         * Drops every kept plan unless they fit beside {@code running} bytes (the points that run at once) in a heap of
+         * {@code heap} bytes: a point never runs short of memory because later points' plans are kept.
+         */
+        synchronized void fitBeside(long running, long heap) {
+            if (used > 0 && running > heap - used) {
+                kept.clear();
+                used = 0;
+            }
+        }
+
         /** Plans kept now (for tests). */
         int size() {
             return kept.size();

@@ -4,7 +4,6 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNull;
 import static org.junit.jupiter.api.Assertions.assertSame;
 import static org.junit.jupiter.api.Assertions.assertThrows;
-import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.List;
 import java.util.Map;
@@ -64,7 +63,13 @@ class SweepPreparationTest {
         assertNull(kept.take(0, 2), "handed out once");
         kept.offer(1, b);
         assertSame(b, kept.take(1, 1), "a plan handed out frees its share of the budget");
-        assertTrue(kept.size() == 0);
+        assertEquals(0, kept.size());
+        kept.offer(0, a);
+        kept.fitBeside(bytes, 2 * bytes);
+        assertEquals(1, kept.size(), "the running points and the kept plan fit the heap together");
+        kept.fitBeside(bytes + 1, 2 * bytes);
+        assertEquals(0, kept.size(), "they do not: the kept plans go");
+        assertNull(kept.take(0, 2));
     }
 
     private static CasePlan plan(String gap) throws Exception {
