@@ -11,7 +11,8 @@
 #   e.g. git clone -q . /tmp/old && git -C /tmp/old checkout -q 08e1029 &&
 #        (cd /tmp/old && mvn -B -ntp -q -o -DskipTests package) &&
 #        tools/sweep-speed.sh /tmp/old/io/target/evanesce.jar io/target/evanesce.jar 3
-# Both jars run with the launcher's JVM flags (see ./evanesce). The figures drift with other work on
+# Both jars run with the launcher's JVM flags (see ./evanesce); CPU times come from GNU time (the
+# `time` program, not the shell keyword). The figures drift with other work on
 # the machine: compare builds measured in one sitting only, and on a shared machine call them
 # provisional. The temporary folder is removed when the script ends.
 set -euo pipefail
@@ -37,9 +38,10 @@ one_run() {
     local jar=$1 out=$2 t0 t1 cpu
     rm -rf "$out"
     t0=$(date +%s.%N)
-    cpu=$( { /usr/bin/env time -f '%U %S' "$java" --add-modules jdk.incubator.vector -XX:+UseParallelGC \
-        -jar "$jar" sweep "$tmp/gap20.yaml" --out "$out" > "$out.log" 2>&1; } 2>&1 | tail -n 1)
+    /usr/bin/env time -o "$out.time" -f '%U %S' "$java" --add-modules jdk.incubator.vector -XX:+UseParallelGC \
+        -jar "$jar" sweep "$tmp/gap20.yaml" --out "$out" > "$out.log" 2>&1 || true
     t1=$(date +%s.%N)
+    cpu=$(tail -n 1 "$out.time")
     grep -q '^merged 20 of 20 points' "$out.log" || { echo "sweep-speed: the sweep with $jar failed; see its output:" >&2;
         tail -n 5 "$out.log" >&2; exit 1; }
     awk -v a="$t0" -v b="$t1" -v c="$cpu" 'BEGIN { split(c, u, " "); printf "%.2f %.2f\n", b - a, u[1] + u[2] }'
@@ -53,7 +55,6 @@ for ((r = 1; r <= rounds; r++)); do
     row=$(awk -v ow="$ow" -v oc="$oc" -v nw="$nw" -v nc="$nc" 'BEGIN { printf "%.3f %.3f", nw / ow, nc / oc }')
     rows+=("$ow $oc $nw $nc $row")
     printf '%-6s %10s %10s %10s %10s %8s %8s\n' "$r" "$ow" "$oc" "$nw" "$nc" $row
-    cmp -s "$tmp/old/sweep.csv" "$tmp/new/sweep.csv" || echo "note: round $r: the two sweep.csv differ"
 done
 median() { sort -g | awk '{ v[NR] = $1 } END { print (NR % 2) ? v[(NR + 1) / 2] : (v[NR / 2] + v[NR / 2 + 1]) / 2 }'; }
 printf '%-6s' median
