@@ -115,8 +115,11 @@ public final class SweepCommand implements Callable<Integer> {
     /** The sweep's sample form, null for listed values. */
     private org.evanesce.io.casefile.model.SampleSpec sample;
 
-    /** A point after reading: its values in SI, its overrides and hash, and (for points about to run) its grid. */
-    private record Read(SweepPoint point, Map<String, String> overrides, double[] si, String hash) { }
+    /**
+     * A point after reading: its values in SI, its overrides and hash, and the case as read with its overrides
+     * (null when the sweep runs nothing), which the point's run uses instead of reading the case again.
+     */
+    private record Read(SweepPoint point, Map<String, String> overrides, double[] si, String hash, LoadedCase loaded) { }
 
     @Override
     public Integer call() throws IOException {
@@ -171,32 +174,44 @@ public final class SweepCommand implements Callable<Integer> {
             seen.add(d.path() + ": " + d.message());
         }
 
-        // every point is read before anything runs
+        if (runs) {
+            // the kernels compile meanwhile, instead of before the first point's run
+            org.evanesce.io.run.JitWarmUp.start(base.polarization().value(), base.numerics().precision().value());
+        }
+        // every point is read before anything runs (on the threads the sweep may use; printed in point order)
         List<SweepPoint> points = SweepPoint.expand(sweep);
+        int prepThreads = preparationThreads(base);
+        List<SweepPreparation.Attempt<LoadedCase>> reads = SweepPreparation.each(points, prepThreads,
+                p -> CaseLoader.parse(caseText, caseFile.toString(), overrides(p), read));
         List<Read> all = new ArrayList<>();
         int bad = 0;
-        for (SweepPoint p : points) {
+        for (int n = 0; n < points.size(); n++) {
+            SweepPoint p = points.get(n);
             Map<String, String> ov = overrides(p);
-            try {
-                LoadedCase lc = CaseLoader.parse(caseText, caseFile.toString(), ov, read);
-                for (Diagnostic d : withoutSweepNote(lc.warnings())) {
-                    if (seen.add(d.path() + ": " + d.message())) {
-                        err.println("point " + p.number() + " (" + p.describe() + "): " + d);
-                    }
-                }
-                double[] si = new double[p.names().size()];
-                for (int k = 0; k < si.length; k++) {
-                    var param = lc.spec().parameters().get(p.names().get(k));
-                    si[k] = param == null ? Double.NaN : param.value().value(); // NaN: the polarization (s, p, both)
-                }
-                all.add(new Read(p, ov, si, PointHash.of(text, ov, version, build)));
-            } catch (CaseFileException e) {
+            SweepPreparation.Attempt<LoadedCase> a = reads.get(n);
+            if (a.error() instanceof CaseFileException e) {
                 if (bad++ < 20) {
                     for (Diagnostic d : e.errors()) {
                         err.println("point " + p.number() + " (" + p.describe() + "): " + d);
                     }
                 }
+                continue;
+            } else if (a.error() != null) {
+                throw unexpected(a.error());
             }
+            LoadedCase lc = a.value();
+            for (Diagnostic d : withoutSweepNote(lc.warnings())) {
+                if (seen.add(d.path() + ": " + d.message())) {
+                    err.println("point " + p.number() + " (" + p.describe() + "): " + d);
+                }
+            }
+            double[] si = new double[p.names().size()];
+            for (int k = 0; k < si.length; k++) {
+                var param = lc.spec().parameters().get(p.names().get(k));
+                si[k] = param == null ? Double.NaN : param.value().value(); // NaN: the polarization (s, p, both)
+            }
+            // the case as read is kept for the point's run when it was read for running (not for a merge or a script)
+            all.add(new Read(p, ov, si, PointHash.of(text, ov, version, build), runs ? lc : null));
         }
         if (bad > 0) {
             throw usage(String.format(Locale.ROOT, "%d of %d points of %s have errors%s; nothing was run or written", bad,
@@ -249,7 +264,8 @@ public final class SweepCommand implements Callable<Integer> {
                 }
             }
         }
-        Parallelism choice = planAll(caseText, todo, base, err);
+        SweepPreparation.Plans kept = new SweepPreparation.Plans(Runtime.getRuntime().maxMemory() / SweepPreparation.PLAN_HEAP_SHARE);
+        Parallelism choice = planAll(todo, base, prepThreads, kept, err);
         o.printf(Locale.ROOT, "sweep of %s: %d points (%s of %s)%s; %d finished already, %d to run%s%n", caseFile, points.size(),
                 sweep.combine().caseName(), String.join(", ", points.get(0).names()),
                 shardOf == null ? "" : String.format(Locale.ROOT, ", shard %d/%d has %d", shardOf[0], shardOf[1], mine.size()),
@@ -269,8 +285,8 @@ public final class SweepCommand implements Callable<Integer> {
             }
         });
         SweepRunner.Outcome outcome = runner.run(tasks, choice.parallel(), choice.threadsPerPoint(),
-                (p, rf, pointOut, threads) -> runPoint(caseText, caseFile, caseSha, all.get(p.number()).overrides(), rf, pointOut,
-                        threads, incident));
+                (p, rf, pointOut, threads) -> runPoint(all.get(p.number()), caseText, caseFile, caseSha, rf, pointOut, threads,
+                        incident, kept));
 
         boolean complete = all.stream().allMatch(r -> folder.finished(r.point().number(), r.hash()));
         int code = ExitCode.OK;
@@ -386,33 +402,40 @@ public final class SweepCommand implements Callable<Integer> {
     }
 
     /**
-     * Plans every point about to run (a bad one stops the sweep before anything runs) and chooses how
-     * many run at once from the largest grid.
+     * Plans every point about to run (a bad one stops the sweep before anything runs; on the threads the sweep may
+     * use) and chooses how many run at once from the largest grid. The plans that fit {@code kept} are kept for the
+     * points' runs.
      */
-    private Parallelism planAll(String caseText, List<Read> todo, CaseSpec base, PrintWriter err) {
+    private Parallelism planAll(List<Read> todo, CaseSpec base, int prepThreads, SweepPreparation.Plans kept,
+                                PrintWriter err) {
+        // each point's grid and memory (not its plan: only the kept ones stay in memory)
+        List<SweepPreparation.Attempt<long[]>> sizes = SweepPreparation.each(todo, prepThreads, r -> {
+            CasePlan plan = CasePlanner.plan(r.loaded().spec(), null);
+            kept.offer(r.point().number(), plan);
+            return new long[] {(long) plan.grid().nx() * plan.grid().ny(), plan.grid().ny(), plan.memory().total()};
+        });
         long cells = 1;
         int rows = 2;
         long bytes = 1;
         int bad = 0;
-        for (Read r : todo) {
-            try {
-                LoadedCase lc = CaseLoader.parse(caseText, options.caseFile.toString(), r.overrides(), ReadOptions.defaults());
-                CasePlan plan = CasePlanner.plan(lc.spec(), null);
-                long c = (long) plan.grid().nx() * plan.grid().ny();
-                if (c > cells) {
-                    cells = c;
-                    rows = plan.grid().ny();
-                }
-                bytes = Math.max(bytes, plan.memory().total());
-            } catch (PlanException e) {
+        for (int n = 0; n < todo.size(); n++) {
+            Read r = todo.get(n);
+            SweepPreparation.Attempt<long[]> a = sizes.get(n);
+            if (a.error() instanceof PlanException e) {
                 bad++;
                 for (Diagnostic d : e.diagnostics()) {
                     err.println("point " + r.point().number() + " (" + r.point().describe() + "): " + d);
                 }
-            } catch (CaseFileException e) {
-                bad++;
-                err.println("point " + r.point().number() + " (" + r.point().describe() + "): " + e.getMessage());
+                continue;
+            } else if (a.error() != null) {
+                throw unexpected(a.error());
             }
+            long[] size = a.value();
+            if (size[0] > cells) {
+                cells = size[0];
+                rows = (int) size[1];
+            }
+            bytes = Math.max(bytes, size[2]);
         }
         if (bad > 0) {
             throw usage(String.format(Locale.ROOT, "%d of %d points to run cannot be planned; nothing was run", bad, todo.size()));
@@ -421,17 +444,37 @@ public final class SweepCommand implements Callable<Integer> {
         ThreadLimit limit = ThreadLimit.current();
         Integer capped = limit.apply(asked, err::println, Runtime.getRuntime().availableProcessors());
         int cores = capped != null ? capped : Math.min(limit.max(), Runtime.getRuntime().availableProcessors());
-        return Parallelism.choose(cores, cells, rows, bytes, Runtime.getRuntime().maxMemory(), todo.size(), parallel);
+        Parallelism choice = Parallelism.choose(cores, cells, rows, bytes, Runtime.getRuntime().maxMemory(), todo.size(), parallel);
+        kept.fitBeside(choice.parallel() * bytes, Runtime.getRuntime().maxMemory());
+        return choice;
     }
 
-    /** One point: read and plan the case with the point's overrides, run it into the folder. */
-    private void runPoint(String caseText, Path caseFile, String caseSha, Map<String, String> ov,
-                          org.evanesce.io.output.RunFolder rf, PrintWriter pointOut, int threads, IncidentPowerCache incident)
+    /**
+     * Threads for reading and planning the points: those the sweep may use (--threads or the case's, within this
+     * job's limit), without a note (planning prints it).
+     */
+    private int preparationThreads(CaseSpec base) {
+        Integer asked = options.threads != null ? options.threads : base.numerics().threads().map(Located::value).orElse(null);
+        int max = Math.min(ThreadLimit.current().max(), Runtime.getRuntime().availableProcessors());
+        return Math.max(1, asked != null ? Math.min(asked, max) : max);
+    }
+
+    /** An exception reading or planning a point should not end with (a fault in the program): thrown as it is. */
+    private static RuntimeException unexpected(Exception e) {
+        return e instanceof RuntimeException r ? r : new IllegalStateException(e);
+    }
+
+    /** One point: plan the case as read with the point's overrides (or take its kept plan), run it into the folder. */
+    private void runPoint(Read r, String caseText, Path caseFile, String caseSha, org.evanesce.io.output.RunFolder rf,
+                          PrintWriter pointOut, int threads, IncidentPowerCache incident, SweepPreparation.Plans kept)
             throws SweepRunner.PointFailed, IOException {
+        Map<String, String> ov = r.overrides();
         try {
-            LoadedCase lc = CaseLoader.parse(caseText, caseFile.toString(), ov, ReadOptions.defaults());
-            lc = new LoadedCase(lc.spec(), withoutSweepNote(lc.diagnostics()));
-            CasePlan plan = CasePlanner.plan(lc.spec(), threads);
+            LoadedCase lc = new LoadedCase(r.loaded().spec(), withoutSweepNote(r.loaded().diagnostics()));
+            CasePlan plan = kept.take(r.point().number(), threads);
+            if (plan == null) {
+                plan = CasePlanner.plan(lc.spec(), threads);
+            }
             if (lc.spec().polarizations() == org.evanesce.io.casefile.model.PolarizationChoice.BOTH) {
                 Map<String, String> pov = PolarizationRuns.overrides(ov, org.evanesce.io.casefile.model.PolarizationChoice.P);
                 LoadedCase lp = CaseLoader.parse(caseText, caseFile.toString(), pov, ReadOptions.defaults());

@@ -67,13 +67,27 @@ public final class SweepMerge {
 
     /** Merges, writes sweep.csv (and sweep.png when there is something to plot) into the folder. */
     public static Result write(SweepFolder folder, List<Point> points, List<Dimension> kinds, String title) throws IOException {
+        // the points' folders are read side by side (each on its own), then taken in point order
+        List<java.util.Optional<Found>> each;
+        try {
+            each = points.parallelStream().map(p -> {
+                try {
+                    return folder.finished(p.point().number(), p.hash())
+                            ? java.util.Optional.of(read(folder.point(p.point().number()), p)) : java.util.Optional.<Found>empty();
+                } catch (IOException e) {
+                    throw new java.io.UncheckedIOException(e);
+                }
+            }).toList();
+        } catch (java.io.UncheckedIOException e) {
+            throw e.getCause();
+        }
         List<Found> found = new ArrayList<>();
         List<Integer> missing = new ArrayList<>();
-        for (Point p : points) {
-            if (folder.finished(p.point().number(), p.hash())) {
-                found.add(read(folder.point(p.point().number()), p));
+        for (int k = 0; k < points.size(); k++) {
+            if (each.get(k).isPresent()) {
+                found.add(each.get(k).get());
             } else {
-                missing.add(p.point().number());
+                missing.add(points.get(k).point().number());
             }
         }
         String csv = csv(points.isEmpty() ? List.of() : points.get(0).point().names(), found);

@@ -86,7 +86,12 @@ final class Canvas {
     /** A copy as an image of type {@link BufferedImage#TYPE_INT_RGB}. */
     BufferedImage toImage() {
         BufferedImage img = new BufferedImage(width, height, BufferedImage.TYPE_INT_RGB);
-        img.setRGB(0, 0, width, height, px, 0, width);
+        // the image's own pixel array (one 0xRRGGBB int per pixel, rows of exactly the width), filled directly:
+        // the same pixels as setRGB gives, without its conversion of each pixel through the colour model
+        int[] data = ((java.awt.image.DataBufferInt) img.getRaster().getDataBuffer()).getData();
+        for (int k = 0; k < px.length; k++) {
+            data[k] = px[k] & 0xFFFFFF;
+        }
         return img;
     }
 }
