@@ -10,6 +10,8 @@ import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.geometry.dispersion.AdeCoefficients;
 import org.evanesce.geometry.dispersion.DispersiveMaterial;
+import org.evanesce.geometry.dispersion.SeriesCoefficients;
+import org.evanesce.geometry.dispersion.SeriesMaterial;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Courant;
@@ -93,8 +95,19 @@ public final class Simulation implements StepView, AutoCloseable {
                 ade[e.getKey()] = c.stateSize() > 0 ? c : null;
             }
         }
+        SeriesCoefficients[] series = null;
+        if (!b.series.isEmpty()) {
+            series = new SeriesCoefficients[g.materials().size()];
+            for (Map.Entry<Integer, SeriesMaterial> e : b.series.entrySet()) {
+                SeriesCoefficients c = SeriesCoefficients.of(e.getValue(), b.courant, dt);
+                coefficients[0][e.getKey()] = 1;
+                coefficients[1][e.getKey()] = c.cb();
+                series[e.getKey()] = c;
+            }
+        }
         dispersive = Map.copyOf(b.dispersive);
-        engine = Engine.create(g, b.polarization, b.precision, b.courant, coefficients[0], coefficients[1], ade, b.sides);
+        engine = Engine.create(g, b.polarization, b.precision, b.courant, coefficients[0], coefficients[1], ade, series,
+                b.sides);
         if (b.vectorsFromStart) {
             engine.vectorAfter(0);
         }
@@ -558,6 +571,7 @@ public final class Simulation implements StepView, AutoCloseable {
         private boolean vectorsFromStart;
         private double divergenceLimit;
         private final Map<Integer, DispersiveMaterial> dispersive = new TreeMap<>();
+        private final Map<Integer, SeriesMaterial> series = new TreeMap<>();
 
         private Builder(MaterialGrid grid) {
             this.grid = grid;
@@ -619,6 +633,17 @@ public final class Simulation implements StepView, AutoCloseable {
          */
         public Builder dispersive(int materialIndex, DispersiveMaterial material) {
             dispersive.put(materialIndex, material);
+            return this;
+        }
+
+        /**
+         * Makes material {@code materialIndex} of the grid's table materials in series
+         * ({@link SeriesMaterial}: 1/ε = Σ f_k/ε_k, what a field normal to a face through its cell sees),
+         * stepped as one sub-field per part ({@link SeriesCoefficients}); the table's entry is a stand-in
+         * (only its name and place count). Works inside a CPML and with Bloch-periodic sides.
+         */
+        public Builder series(int materialIndex, SeriesMaterial material) {
+            series.put(materialIndex, material);
             return this;
         }
 
@@ -696,7 +721,8 @@ public final class Simulation implements StepView, AutoCloseable {
             List<Material> table = grid.materials();
             for (int k = 0; k < table.size(); k++) {
                 DispersiveMaterial d = dispersive.get(k);
-                m = Math.min(m, d != null ? d.epsInfinity() : table.get(k).relativePermittivity());
+                SeriesMaterial sm = series.get(k);
+                m = Math.min(m, d != null ? d.epsInfinity() : sm != null ? sm.epsInfinity() : table.get(k).relativePermittivity());
             }
             return m;
         }
@@ -708,6 +734,12 @@ public final class Simulation implements StepView, AutoCloseable {
          */
         public Simulation build() {
             List<String> errors = new ArrayList<>();
+            for (Integer k : series.keySet()) {
+                if (k < 0 || k >= grid.materials().size() || dispersive.containsKey(k)) {
+                    errors.add(String.format("series material index %d is outside the grid's table of %d materials or"
+                            + " also dispersive", k, grid.materials().size()));
+                }
+            }
             for (Integer k : dispersive.keySet()) {
                 if (k < 0 || k >= grid.materials().size()) {
                     errors.add(String.format("dispersive material index %d is outside the grid's table of %d materials",

@@ -25,7 +25,7 @@ import org.evanesce.solver.source.TimeSignal;
  */
 final class MetalRuns {
 
-    static final int PML = 30;
+    static final int PML = Integer.getInteger("pml", 30);
 
     private MetalRuns() {
     }
@@ -84,6 +84,16 @@ final class MetalRuns {
                       double relWidth, double settlePeriods, Material background, List<Layer> layers, int topLine,
                       int threads) {
         MaterialGrid grid = grid(nx, ny, dx, background, layers);
+        return run(pol, precision, grid, kx, f, relWidth, settlePeriods, b -> withMetals(b, grid, layers), topLine,
+                threads);
+    }
+
+    /** {@link #run} on a given grid, {@code metals} declaring its dispersive (and series) entries. */
+    static Result run(Polarization pol, Precision precision, MaterialGrid grid, double kx, double f, double relWidth,
+                      double settlePeriods, java.util.function.Consumer<Simulation.Builder> metals, int topLine,
+                      int threads) {
+        int nx = grid.nx();
+        int ny = grid.ny();
         int source = PML + 10;
         FluxLine bottom = new FluxLine(pol, source + 20, 0, nx, f);
         FluxLine top = new FluxLine(pol, topLine, 0, nx, f);
@@ -92,9 +102,9 @@ final class MetalRuns {
                 .boundary(Side.LEFT, Boundary.bloch(kx)).boundary(Side.RIGHT, Boundary.bloch(kx))
                 .boundary(Side.BOTTOM, Boundary.pml(PML)).boundary(Side.TOP, Boundary.pml(PML))
                 .threads(threads).minCellsPerThread(64)
-                .source(Source.blochRow(c, nx, source, 0.0, dx, kx, TimeSignal.gaussianPulse(f, f / relWidth)))
+                .source(Source.blochRow(c, nx, source, 0.0, grid.cellSize(), kx, TimeSignal.gaussianPulse(f, f / relWidth)))
                 .listener(bottom).listener(top);
-        withMetals(b, grid, layers);
+        metals.accept(b);
         try (Simulation s = b.build()) {
             double periods = 12 * relWidth / (2 * Math.PI) + settlePeriods;
             long steps = (long) (periods / (f * s.dt())) + 6L * ny;

@@ -172,6 +172,12 @@ public final class CasePlanner {
             sheets.forEach(sb::incident);
             planned.forEach(sb::totalField);
             dispersive(m, materials).forEach(sb::dispersive);
+            faceSeries.forEach((standIn, model) -> {
+                int idx = m.materials().indexOf(standIn);
+                if (idx >= 0) {
+                    sb.series(idx, model);
+                }
+            });
             return sb;
         };
         Map<Material, org.evanesce.geometry.dispersion.DispersiveMaterial> standIns = new HashMap<>();
@@ -180,6 +186,7 @@ public final class CasePlanner {
         MetalFaces faces = new MetalFaces(standIns);
         MaterialGrid mg = Rasterizer.rasterize(scene, grid, Smoothing.ANISOTROPIC, faces);
         faceMixtures = faces.mixtures();
+        faceSeries = faces.seriesMixtures();
         for (int k : boxes) {
             SourceSpec.PlaneWaveBox pb = (SourceSpec.PlaneWaveBox) spec.sources().get(k);
             TotalFieldBox box = BoxPlanner.plan(pb, "sources[" + k + "]." + pb.kind(), mg, sides, courant, signal(pb.signal()),
@@ -435,6 +442,8 @@ public final class CasePlanner {
 
     /** The face averages of metals the rasteriser made ({@link MetalFaces}), by stand-in entry. */
     private Map<Material, org.evanesce.geometry.dispersion.DispersiveMaterial> faceMixtures = Map.of();
+    /** The harmonic means at metal faces ({@link MetalFaces}, a field across the face), by stand-in entry. */
+    private Map<Material, org.evanesce.geometry.dispersion.SeriesMaterial> faceSeries = Map.of();
 
     /**
      * The Courant number must lie below the 2D limit 1/√2 scaled by √εr of the smallest permittivity

@@ -10,14 +10,15 @@ import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.dispersion.DispersiveMaterial;
 import org.evanesce.geometry.dispersion.MetalLibrary;
+import org.evanesce.geometry.dispersion.SeriesMaterial;
 import org.evanesce.geometry.dispersion.Spectral;
 import org.junit.jupiter.api.Test;
 
 /**
  * The face average of a metal: for a tangential field the mixture's ε(ω) is the fill-fraction-weighted
  * arithmetic mean of the constituents' ε(ω) at every frequency (A. Farjadpour et al., Opt. Lett. 31, 2972
- * (2006): the mean for the field tangential to a face), also for the discrete ε_d; a normal field keeps its
- * point-sampled material.
+ * (2006): the mean for the field tangential to a face), also for the discrete ε_d; across a face along a grid
+ * axis the harmonic mean (the layers in series); a normal field at a tilted face keeps its point-sampled material.
  */
 class MetalFacesTest {
 
@@ -47,8 +48,28 @@ class MetalFacesTest {
     }
 
     @Test
-    void aNormalSiteKeepsItsPointSampledMaterial() {
+    void aSiteAcrossAGridAlignedFaceGetsTheHarmonicMeanAtEveryFrequency() {
         MetalFaces faces = new MetalFaces(Map.of(standIn, gold));
-        assertNull(faces.mix(FieldSite.EY, new Material[] {standIn, glass}, new double[] {0.5, 0.5}, 1));
+        double f = 0.3;
+        Material m = faces.mix(FieldSite.EY, new Material[] {standIn, glass}, new double[] {f, 1 - f}, 1);
+        SeriesMaterial mix = faces.seriesMixtures().get(m);
+        double dt = 5e-18;
+        for (double ev : new double[] {0.5, 1.96, 3.0, 5.0}) {
+            double w = Spectral.omegaOfElectronVolts(ev);
+            // 1/ε = f/ε_gold + (1 − f)/ε_glass: the layers in series (common practice)
+            Complex want = gold.permittivity(w).reciprocal().times(f).plus((1 - f) / (1.515 * 1.515)).reciprocal();
+            assertEquals(0, mix.permittivity(w).minus(want).abs(), ROUND_OFF * want.abs(), ev + " eV");
+            Complex wantD = gold.discretePermittivity(w, dt).reciprocal().times(f).plus((1 - f) / (1.515 * 1.515))
+                    .reciprocal();
+            assertEquals(0, mix.discretePermittivity(w, dt).minus(wantD).abs(), ROUND_OFF * wantD.abs(), ev + " eV, discrete");
+        }
+        assertEquals(1 / (f / gold.epsInfinity() + (1 - f) / (1.515 * 1.515)), m.relativePermittivity(), ROUND_OFF,
+                "the stand-in holds the high-frequency value");
+    }
+
+    @Test
+    void aNormalSiteAtATiltedFaceKeepsItsPointSampledMaterial() {
+        MetalFaces faces = new MetalFaces(Map.of(standIn, gold));
+        assertNull(faces.mix(FieldSite.EY, new Material[] {standIn, glass}, new double[] {0.5, 0.5}, 0.5));
     }
 }

@@ -3,6 +3,7 @@ package org.evanesce.solver.kernel;
 import java.util.Map;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.geometry.dispersion.AdeCoefficients;
+import org.evanesce.geometry.dispersion.SeriesCoefficients;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.boundary.PmlProfile;
 import org.evanesce.solver.grid.Component;
@@ -29,13 +30,16 @@ abstract class DoubleEngine extends Engine {
     final DoubleStrip[] xs, ys;
     /** The dispersive cells of each electric component by {@link Component#ordinal()}: null where it has none. */
     private final DoubleAde[] ade;
+    /** The series sites (a field across a metal's face) of each electric component: null where it has none. */
+    private final DoubleSeries[] series;
 
     /**
      * Arrays for grid's cells with ca and cb of each of its materials (see {@link Engine#create});
-     * {@code adeOf[m]} the ADE coefficients of material m where it has poles, else null.
+     * {@code adeOf[m]} the ADE coefficients of material m where it has poles, else null; {@code seriesOf[m]}
+     * those of a series material (null for none at all)
      */
     DoubleEngine(MaterialGrid grid, Polarization pol, double courant, double[] materialCa, double[] materialCb,
-            AdeCoefficients[] adeOf, Map<Side, Boundary> sides) {
+            AdeCoefficients[] adeOf, SeriesCoefficients[] seriesOf, Map<Side, Boundary> sides) {
         super(grid.nx(), grid.ny(), courant, sides);
         this.pol = pol;
         s = courant;
@@ -80,6 +84,11 @@ abstract class DoubleEngine extends Engine {
         for (Component e : el) {
             ade[e.ordinal()] = DoubleAde.of(grid, e, field[e.ordinal()], adeOf, sides, fold[e.ordinal()]);
             dispersive |= ade[e.ordinal()] != null;
+        }
+        series = new DoubleSeries[nc];
+        for (Component e : el) {
+            series[e.ordinal()] = DoubleSeries.of(grid, e, field[e.ordinal()], seriesOf, sides);
+            dispersive |= series[e.ordinal()] != null;
         }
     }
 
@@ -143,6 +152,11 @@ abstract class DoubleEngine extends Engine {
                     a.flushRow(j);
                 }
             }
+            for (DoubleSeries a : series) {
+                if (a != null) {
+                    a.flushRow(j);
+                }
+            }
         }
         return flush(electric, j);
     }
@@ -155,6 +169,11 @@ abstract class DoubleEngine extends Engine {
     @Override
     protected void dispersiveRow(int j) {
         for (DoubleAde a : ade) {
+            if (a != null) {
+                a.row(j);
+            }
+        }
+        for (DoubleSeries a : series) {
             if (a != null) {
                 a.row(j);
             }
@@ -189,6 +208,9 @@ abstract class DoubleEngine extends Engine {
         if (ade[c.ordinal()] != null) {
             ade[c.ordinal()].setField(k, v);
         }
+        if (series[c.ordinal()] != null) {
+            series[c.ordinal()].setField(k, v);
+        }
     }
 
     /** Counts the arrays actually held; {@link Engine#footprint} must give the same figure (arrays + pml). */
@@ -213,6 +235,9 @@ abstract class DoubleEngine extends Engine {
     public long dispersiveBytes() {
         long b = 0;
         for (DoubleAde a : ade) {
+            b += a == null ? 0 : a.bytes();
+        }
+        for (DoubleSeries a : series) {
             b += a == null ? 0 : a.bytes();
         }
         return b;
@@ -248,6 +273,10 @@ abstract class DoubleEngine extends Engine {
                 } else {
                     a.writeState(out);
                 }
+                // only where this run has series sites, so that checkpoints of runs without them keep their layout
+                if (series[e.ordinal()] != null) {
+                    series[e.ordinal()].writeState(out);
+                }
             }
         }
     }
@@ -270,6 +299,9 @@ abstract class DoubleEngine extends Engine {
                     DoubleAde.readNone(in);
                 } else {
                     a.readState(in);
+                }
+                if (series[e.ordinal()] != null) {
+                    series[e.ordinal()].readState(in);
                 }
             }
         }

@@ -3,6 +3,7 @@ package org.evanesce.solver.kernel;
 import java.util.Map;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.geometry.dispersion.AdeCoefficients;
+import org.evanesce.geometry.dispersion.SeriesCoefficients;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
@@ -20,8 +21,8 @@ final class DoubleS extends DoubleEngine {
     final double[] ca;
 
     DoubleS(MaterialGrid grid, double courant, double[] caOfMaterial, double[] cbOfMaterial, AdeCoefficients[] adeOf,
-            Map<Side, Boundary> sides) {
-        super(grid, Polarization.S, courant, caOfMaterial, cbOfMaterial, adeOf, sides);
+            SeriesCoefficients[] seriesOf, Map<Side, Boundary> sides) {
+        super(grid, Polarization.S, courant, caOfMaterial, cbOfMaterial, adeOf, seriesOf, sides);
         ez = field(Component.EZ);
         hx = field(Component.HX);
         hy = field(Component.HY);

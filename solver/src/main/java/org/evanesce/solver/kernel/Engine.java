@@ -5,6 +5,7 @@ import java.util.Map;
 import org.evanesce.geometry.FieldSite;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.geometry.dispersion.AdeCoefficients;
+import org.evanesce.geometry.dispersion.SeriesCoefficients;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.boundary.PmlProfile;
 import org.evanesce.solver.grid.Component;
@@ -153,6 +154,17 @@ public abstract class Engine {
     public static Engine create(MaterialGrid grid, Polarization pol, Precision precision, double courant,
                                 double[] caOfMaterial, double[] cbOfMaterial, AdeCoefficients[] adeOf,
                                 Map<Side, Boundary> sides) {
+        return create(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, adeOf, null, sides);
+    }
+
+    /**
+     * {@link #create(MaterialGrid, Polarization, Precision, double, double[], double[], AdeCoefficients[], Map)}
+     * with series materials: {@code seriesOf[m]} the coefficients of a series material (whose ca, cb in
+     * caOfMaterial, cbOfMaterial must be 1 and {@link SeriesCoefficients#cb()}), else null; null for none.
+     */
+    public static Engine create(MaterialGrid grid, Polarization pol, Precision precision, double courant,
+                                double[] caOfMaterial, double[] cbOfMaterial, AdeCoefficients[] adeOf,
+                                SeriesCoefficients[] seriesOf, Map<Side, Boundary> sides) {
         Map<Side, Boundary> all = new EnumMap<>(sides);
         for (Side s : Side.values()) {
             if (!all.containsKey(s)) {
@@ -168,22 +180,27 @@ public abstract class Engine {
         if (ade.length != nm) {
             throw new IllegalArgumentException(String.format("%d ADE entries given for %d materials", ade.length, nm));
         }
+        SeriesCoefficients[] series = seriesOf == null ? null : seriesOf.clone();
+        if (series != null && series.length != nm) {
+            throw new IllegalArgumentException(String.format("%d series entries given for %d materials", series.length, nm));
+        }
         if (all.get(Side.LEFT) instanceof Boundary.Bloch b) {
             // each part keeps its own auxiliary currents: the real and the imaginary field are driven apart
             double phase = b.wavenumber() * grid.nx() * grid.cellSize();
-            return new BlochPair(real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, ade, all),
-                    real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, ade, all), pol, phase);
+            return new BlochPair(real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, ade, series, all),
+                    real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, ade, series, all), pol, phase);
         }
-        return real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, ade, all);
+        return real(grid, pol, precision, courant, caOfMaterial, cbOfMaterial, ade, series, all);
     }
 
     private static Engine real(MaterialGrid grid, Polarization pol, Precision precision, double courant, double[] ca,
-                               double[] cb, AdeCoefficients[] ade, Map<Side, Boundary> all) {
+                               double[] cb, AdeCoefficients[] ade, SeriesCoefficients[] series,
+                               Map<Side, Boundary> all) {
         return switch (precision) {
-            case FLOAT -> pol == Polarization.S ? new FloatS(grid, courant, ca, cb, ade, all)
-                    : new FloatP(grid, courant, ca, cb, ade, all);
-            case DOUBLE -> pol == Polarization.S ? new DoubleS(grid, courant, ca, cb, ade, all)
-                    : new DoubleP(grid, courant, ca, cb, ade, all);
+            case FLOAT -> pol == Polarization.S ? new FloatS(grid, courant, ca, cb, ade, series, all)
+                    : new FloatP(grid, courant, ca, cb, ade, series, all);
+            case DOUBLE -> pol == Polarization.S ? new DoubleS(grid, courant, ca, cb, ade, series, all)
+                    : new DoubleP(grid, courant, ca, cb, ade, series, all);
         };
     }
 

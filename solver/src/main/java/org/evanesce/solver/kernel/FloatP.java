@@ -3,6 +3,7 @@ package org.evanesce.solver.kernel;
 import java.util.Map;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.geometry.dispersion.AdeCoefficients;
+import org.evanesce.geometry.dispersion.SeriesCoefficients;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Component;
 import org.evanesce.solver.grid.Polarization;
@@ -21,8 +22,8 @@ final class FloatP extends FloatEngine {
     final float[] cax, cay;
 
     FloatP(MaterialGrid grid, double courant, double[] caOfMaterial, double[] cbOfMaterial, AdeCoefficients[] adeOf,
-            Map<Side, Boundary> sides) {
-        super(grid, Polarization.P, courant, caOfMaterial, cbOfMaterial, adeOf, sides);
+            SeriesCoefficients[] seriesOf, Map<Side, Boundary> sides) {
+        super(grid, Polarization.P, courant, caOfMaterial, cbOfMaterial, adeOf, seriesOf, sides);
         hz = field(Component.HZ);
         ex = field(Component.EX);
         ey = field(Component.EY);
