@@ -549,6 +549,23 @@ public final class Simulation implements StepView, AutoCloseable {
         return Engine.predictBytesPerCell(polarization, precision, lossy, blochPeriodic);
     }
 
+    /**
+     * Cell updates a run makes with the kernels' scalar parts before their vector parts (which need
+     * the JIT's warm-up) take over; {@link Engine#VECTOR_AFTER}.
+     */
+    public static long scalarStartCellUpdates() {
+        return Engine.VECTOR_AFTER;
+    }
+
+    /**
+     * The kernels run their vector parts from now on rather than after the run's first
+     * {@link Engine#VECTOR_AFTER} cell updates (same bits either way): for a timed trial of a
+     * long run's rate.
+     */
+    public void vectorsNow() {
+        engine.vectorAfter(0);
+    }
+
     @Override
     public void close() {
         team.close();

@@ -125,7 +125,10 @@ public final class CaseRunner {
     public static Result run(CasePlan plan, Consumer<Progress.Report> progress, double progressSeconds,
                              Consumer<org.evanesce.solver.record.StepView> atEnd, Checkpoints ck,
                              IncidentPowerCache incident) {
-        JitWarmUp.run(plan.spec().polarization().value(), plan.spec().numerics().precision().value());
+        if (JitWarmUp.needed(plan)) {
+            // beside the run's first steps, which take the kernels' scalar parts
+            JitWarmUp.start(plan.spec().polarization().value(), plan.spec().numerics().precision().value());
+        }
         try (Simulation sim = build(plan)) {
             if (progress != null) {
                 sim.addListener(new Progress(plan.stop().maxSteps(), progressSeconds, progress));

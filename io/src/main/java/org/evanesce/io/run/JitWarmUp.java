@@ -2,15 +2,18 @@ package org.evanesce.io.run;
 
 import org.evanesce.geometry.Material;
 import org.evanesce.geometry.MaterialGrid;
+import org.evanesce.io.plan.CasePlan;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
 
 /**
- * Runs the update kernels on a small throw-away grid so the JIT compiles them before the real
- * run starts: until then the Vector API runs in a slow generic form, which on a small case
- * costs more than the run itself, and would spoil a timed trial. Compiled code stays for the
+ * Runs the update kernels' vector parts on a small throw-away grid so the JIT compiles them before
+ * a run reaches them: until then the Vector API runs in a slow generic form, which would spoil a
+ * timed trial. A run steps scalar for its first cell updates (see {@link Simulation#scalarStartCellUpdates()}), so
+ * the warm-up can run beside it ({@link #start}) and only runs that reach the vector parts need one
+ * ({@link #needed}). Compiled code stays for the
  * life of the process, so each polarization and precision is warmed up once per process (a
  * sweep's later points, all in one process, skip it); a caller that asks while another warms
  * the same kernels up waits for it instead of doing the same work again.
@@ -30,6 +33,15 @@ public final class JitWarmUp {
     private static final java.util.Map<Kernels, Once> WARM = new java.util.concurrent.ConcurrentHashMap<>();
 
     private JitWarmUp() {
+    }
+
+    /**
+     * Whether a run of this plan reaches the kernels' vector parts: an engine runs their scalar parts
+     * alone for its first {@link Simulation#scalarStartCellUpdates()} cell updates (they need no warm-up), so a
+     * smaller run gains nothing from one.
+     */
+    public static boolean needed(CasePlan plan) {
+        return (double) plan.grid().nx() * plan.grid().ny() * plan.stop().maxSteps() >= Simulation.scalarStartCellUpdates();
     }
 
     /**
@@ -68,7 +80,7 @@ public final class JitWarmUp {
         MaterialGrid g = MaterialGrid.builder(n, n, 50e-9, Material.VACUUM)
                 .paint((x, y) -> x > 40 && x < 60 && y > 40 && y < 60, new Material("warm-up", 2.0, 1e5)).build();
         try (Simulation s = Simulation.builder(g).polarization(pol).precision(precision).threads(1)
-                .boundaries(Boundary.pml(12)).build()) {
+                .boundaries(Boundary.pml(12)).vectorsFromStart().build()) {
             s.setField(pol.components()[0], n / 2, n / 2, 1.0);
             s.run(STEPS);
         }

@@ -86,7 +86,7 @@ public abstract class Engine {
      * on 5.7e8 (docs/architecture.md). Developers may override it with
      * {@code -Devanesce.vectorAfter=N} (0: vectors from the first step).
      */
-    static final long VECTOR_AFTER = Long.getLong("evanesce.vectorAfter", 200_000_000L);
+    public static final long VECTOR_AFTER = Long.getLong("evanesce.vectorAfter", 200_000_000L);
 
     /** This engine's threshold: {@link #VECTOR_AFTER} unless a test sets another. */
     private long vectorAfter = VECTOR_AFTER;
