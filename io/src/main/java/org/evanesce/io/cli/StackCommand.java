@@ -77,7 +77,7 @@ public final class StackCommand implements Callable<Integer> {
                     + "borosilicate_crown).")
     private StackMedium incident;
 
-    @Option(names = "--layer", paramLabel = "INDEX:THICKNESS", converter = LayerConverter.class,
+    @Option(names = "--layer", paramLabel = "INDEX|NAME:THICKNESS", converter = LayerConverter.class,
             description = "A layer, e.g. 1.0:200nm or gold:50nm (a library material); repeat for more, from the incidence "
                     + "side. Layers are numbered from 1.")
     private List<StackMedium.Layer> layers = new ArrayList<>();
