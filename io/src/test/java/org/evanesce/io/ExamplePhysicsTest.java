@@ -304,7 +304,7 @@ class ExamplePhysicsTest {
     // --- plasmon-sensor-gold-water-beam: the beam's reflectance against its angular-spectrum integral -------
 
     /**
-     * Measured at 10 nm cells (the example's own, the film 5 cells thick): R − integral = −0.0091 (simulated 0.3063,
+     * Measured at 10 nm cells (the example's own, the film 5 cells thick): R − integral = −0.0092 (simulated 0.3062,
      * integral 0.3155; the program's own angular-spectrum column 0.3154). Set at about six times that rather than ten:
      * the plane wave's R at the same angle, 0.092, what a beam wide enough to miss the dip's flanks would give, lies
      * 0.22 below, and the tolerance keeps well clear of it. A beam at 72 or 78 degrees would also fail.
