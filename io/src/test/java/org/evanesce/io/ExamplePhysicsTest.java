@@ -305,9 +305,10 @@ class ExamplePhysicsTest {
 
     /**
      * Measured at 10 nm cells (the example's own, the film 5 cells thick): R − integral = −0.0092 (simulated 0.3062,
-     * integral 0.3155; the program's own angular-spectrum column 0.3154). Set at about six times that rather than ten:
-     * the plane wave's R at the same angle, 0.092, what a beam wide enough to miss the dip's flanks would give, lies
-     * 0.22 below, and the tolerance keeps well clear of it. A beam at 72 or 78 degrees would also fail.
+     * integral 0.3155; the program's own angular-spectrum column 0.3154; with 5 nm cells −0.0038, so the grid's). Set at
+     * about six times that rather than ten: the plane wave's R at the same angle, 0.092, what a beam wide enough to
+     * miss the dip's flanks would give, lies 0.22 below, and the tolerance keeps well clear of it. A beam at 72 degrees
+     * (integral 0.41) or 80 degrees (0.45) fails; the beam's dip is so wide that 76 or 78 degrees (0.31, 0.36) pass.
      */
     private static final double PLASMON_BEAM_R_TOLERANCE = 0.06;
 
