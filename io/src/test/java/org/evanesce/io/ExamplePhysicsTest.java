@@ -63,7 +63,9 @@ class ExamplePhysicsTest {
                     List.of(Map.of("cpw", "wl/(n_glass*20nm)", "height", "60nm"),
                             Map.of("cpw", "wl/(n_glass*20nm)", "height", "180nm")), ExamplePhysicsTest::particle)),
             Map.entry("attenuator-corner-beam.yaml", new Check(List.of(Map.of("cpw", "10")),
-                    ExamplePhysicsTest::attenuatorCorner)));
+                    ExamplePhysicsTest::attenuatorCorner)),
+            Map.entry("plasmon-sensor-gold-water-beam.yaml", new Check(List.of(Map.of("cpw", "wl/(n_glass*10nm)")),
+                    ExamplePhysicsTest::plasmonBeam)));
 
     static List<Path> examples() throws IOException {
         return ExampleCasesTest.examples();
@@ -360,5 +362,49 @@ class ExamplePhysicsTest {
                 / ExampleOutputs.surfaces(outs.get(0), 633.0, "scattered_out");
         near(example, "scattered power at 180 nm over 60 nm, relative to exp(-2 dz/delta) F(z)/F(z0) (F(z)/F(z0) = "
                 + emission + ")", 1, scattered / (intensity * emission), PARTICLE_EMISSION_TOLERANCE);
+    }
+
+    // --- plasmon-sensor-gold-water-beam: the beam's reflectance against its angular-spectrum integral -------
+
+    /**
+     * Measured at 10 nm cells (the example's own, the film 5 cells thick): R − integral = −0.0092 (simulated 0.3062,
+     * integral 0.3155; the program's own angular-spectrum column 0.3154; with 5 nm cells −0.0038, so the grid's). Set at
+     * about six times that rather than ten: the plane wave's R at the same angle, 0.092, what a beam wide enough to
+     * miss the dip's flanks would give, lies 0.22 below, and the tolerance keeps well clear of it. A beam at 72 degrees
+     * (integral 0.41) or 80 degrees (0.45) fails; the beam's dip is so wide that 76 or 78 degrees (0.31, 0.36) pass.
+     */
+    private static final double PLASMON_BEAM_R_TOLERANCE = 0.06;
+
+    private static void plasmonBeam(String example, List<Path> outs) throws IOException {
+        // The angular spectrum of a 2D Gaussian beam of waist w (J. W. Goodman, Introduction to Fourier Optics, 2nd ed.
+        // (1996), sec. 3.10, from memory; the Gaussian's spectrum exp(−κ²w²/4) in the field is common practice): each
+        // plane wave, at θ + asin(κ/k) with κ the wavenumber across the axis, carries power ∝ exp(−κ²w²/2)·kζ/k
+        // (kζ = sqrt(k² − κ²), the part along the axis) and is reflected with Raether's three-layer R (StackLibraryTest,
+        // Raether 1988 eq. 2.13), with the grid's gold ε from summary.json and the water's library index. The integral
+        // by the trapezoid rule over |κ| ≤ 6/w (the weight there is e^{−18}); R_beam = Σ weight·R / Σ weight.
+        String summary = Files.readString(outs.get(0).resolve("summary.json"));
+        java.util.regex.Matcher re = java.util.regex.Pattern.compile("\"grid_epsilon_real\": ([-0-9.eE+]+),\\s*"
+                + "\"grid_epsilon_imaginary\": ([-0-9.eE+]+)").matcher(summary);
+        assertTrue(re.find(), "no grid_epsilon in " + summary);
+        org.evanesce.geometry.Complex gold = new org.evanesce.geometry.Complex(Double.parseDouble(re.group(1)),
+                Double.parseDouble(re.group(2)));
+        double nWater = org.evanesce.io.casefile.model.LibraryMaterial.WATER.index(WAVELENGTH);
+        org.evanesce.geometry.Complex water = org.evanesce.geometry.Complex.real(nWater * nWater);
+        double nGlass = 1.515;
+        double theta = Math.toRadians(74.8);
+        double waist = 1e-6;
+        double k = 2 * Math.PI * nGlass / WAVELENGTH;
+        int samples = 4001;
+        double sum = 0;
+        double weights = 0;
+        for (int i = 0; i < samples; i++) {
+            double kappa = (-6 + 12.0 * i / (samples - 1)) / waist;
+            double w = Math.exp(-kappa * kappa * waist * waist / 2) * Math.sqrt(k * k - kappa * kappa) / k
+                    * (i == 0 || i == samples - 1 ? 0.5 : 1);
+            sum += w * StackLibraryTest.raether(nGlass, gold, 50e-9, water, WAVELENGTH, theta + Math.asin(kappa / k));
+            weights += w;
+        }
+        near(example, "R of the 1 um beam at the plasmon dip (74.8 deg, 633 nm)", sum / weights,
+                ExampleOutputs.flux(outs.get(0), 633.0, "R_reflected"), PLASMON_BEAM_R_TOLERANCE);
     }
 }

@@ -664,6 +664,11 @@ public final class Simulation implements StepView, AutoCloseable {
             return this;
         }
 
+        /** The dispersive materials given so far by material index (a read-only copy; empty for a dielectric-only run). */
+        public Map<Integer, DispersiveMaterial> dispersiveMaterials() {
+            return Map.copyOf(dispersive);
+        }
+
         /** Adds an incident-field sheet (e.g. one of a {@link org.evanesce.solver.source.GaussianBeam}'s pair). */
         public Builder incident(IncidentSheet s) {
             sheets.add(s);

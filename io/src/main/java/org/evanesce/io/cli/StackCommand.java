@@ -31,7 +31,10 @@ import picocli.CommandLine.TypeConversionException;
         description = {
             "Plane-wave R, T and A of a stack of layers between two media, exact (characteristic matrix), at any angle "
                     + "including beyond the critical angle, for s and p polarization.",
-            "Indices are n (1.5), n+ki (1.5+0.01i) or n,k (0.2,3.4), with k >= 0 for absorption; lengths carry a unit "
+            "Indices are n (1.5), n+ki (1.5+0.01i) or n,k (0.2,3.4), with k >= 0 for absorption, or a library material "
+                    + "by name, evaluated at each wavelength: a metal (gold, gold-jc, silver, aluminium, copper, chromium, "
+                    + "titanium) or a dielectric (water, borosilicate_crown, fused_silica, air, vacuum), e.g. --layer gold:50nm; "
+                    + "the table names each one's model and its permittivity. Lengths carry a unit "
                     + "(nm, um, mm, m). One of --angle, --wavelength or --thickness may be a range FROM:TO:STEP.",
             "Columns: the swept value; per polarization R, T, A and the phases of r and t in degrees (r and t are "
                     + "amplitude ratios of E for s and of H for p; r at the first interface, t from the first interface "
@@ -69,17 +72,19 @@ public final class StackCommand implements Callable<Integer> {
             description = "With --case: override a parameter of the case, e.g. --set gap=250nm; repeat for several.")
     private java.util.Map<String, String> overrides = new java.util.LinkedHashMap<>();
 
-    @Option(names = "--incident", paramLabel = "INDEX", converter = IndexConverter.class,
-            description = "Index of the incidence medium (transparent: a real index).")
-    private Complex incident;
+    @Option(names = "--incident", paramLabel = "INDEX|NAME", converter = MediumConverter.class,
+            description = "Index of the incidence medium (transparent: a real index, or a library dielectric such as "
+                    + "borosilicate_crown).")
+    private StackMedium incident;
 
-    @Option(names = "--layer", paramLabel = "INDEX:THICKNESS", converter = LayerConverter.class,
-            description = "A layer, e.g. 1.0:200nm; repeat for more, from the incidence side. Layers are numbered from 1.")
-    private List<PlanarStack.Layer> layers = new ArrayList<>();
+    @Option(names = "--layer", paramLabel = "INDEX|NAME:THICKNESS", converter = LayerConverter.class,
+            description = "A layer, e.g. 1.0:200nm or gold:50nm (a library material); repeat for more, from the incidence "
+                    + "side. Layers are numbered from 1.")
+    private List<StackMedium.Layer> layers = new ArrayList<>();
 
-    @Option(names = "--exit", paramLabel = "INDEX", converter = IndexConverter.class,
-            description = "Index of the exit medium (may absorb).")
-    private Complex exit;
+    @Option(names = "--exit", paramLabel = "INDEX|NAME", converter = MediumConverter.class,
+            description = "Index of the exit medium (may absorb), or a library material such as water.")
+    private StackMedium exit;
 
     @Option(names = "--wavelength", paramLabel = "LENGTH|FROM:TO:STEP", converter = LengthSweep.class,
             description = "Vacuum wavelength, e.g. 633nm, or a range 400nm:800nm:10nm (indices are taken as constant "
@@ -141,9 +146,9 @@ public final class StackCommand implements Callable<Integer> {
                 angle = new AngleSweep().convert("0");
             }
         }
-        if (incident.im() != 0) {
-            throw usage("--incident " + incident + ": the incidence medium must be transparent (a real index, k = 0): "
-                    + "an angle of incidence and an incident power are only defined there");
+        if (incident.metal() != null || incident.index(wavelength.values().get(0)).im() != 0) {
+            throw usage("--incident " + incident.text() + ": the incidence medium must be transparent (a real index, k = 0, "
+                    + "or a library dielectric): an angle of incidence and an incident power are only defined there");
         }
         int ranges = (angle.isRange() ? 1 : 0) + (wavelength.isRange() ? 1 : 0) + (thickness != null ? 1 : 0);
         if (ranges > 1) {
@@ -168,7 +173,7 @@ public final class StackCommand implements Callable<Integer> {
                     + "(--layer), numbered from 1", thickness.text(), thickness.layer(), layers.size()));
         }
         PlanarStack stack = fromCase != null ? fromCase.apply(wavelength.values().get(0))
-                : new PlanarStack(incident.re(), layers, exit);
+                : stackAt(wavelength.values().get(0));
         Variable variable = thickness != null ? Variable.THICKNESS : wavelength.isRange() ? Variable.WAVELENGTH
                 : Variable.ANGLE;
         List<Double> values = switch (variable) {
@@ -182,7 +187,6 @@ public final class StackCommand implements Callable<Integer> {
             case BOTH -> List.of(Polarization.S, Polarization.P);
         };
         Complex gap = stack.index(1); // the first layer, or the exit medium when there are none
-        boolean gapTransparent = gap.im() == 0;
 
         List<String> head = new ArrayList<>();
         head.add(variable.column);
@@ -195,7 +199,7 @@ public final class StackCommand implements Callable<Integer> {
         List<String> rows = new ArrayList<>();
         for (double value : values) {
             PlanarStack st = variable == Variable.THICKNESS ? stack.withThickness(thickness.layer() - 1, value)
-                    : variable == Variable.WAVELENGTH && fromCase != null ? fromCase.apply(value) : stack;
+                    : variable == Variable.WAVELENGTH ? (fromCase != null ? fromCase.apply(value) : stackAt(value)) : stack;
             double lambda = variable == Variable.WAVELENGTH ? value : wavelength.values().get(0);
             double theta = variable == Variable.ANGLE ? value : angle.values().get(0);
             List<String> row = new ArrayList<>();
@@ -212,15 +216,20 @@ public final class StackCommand implements Callable<Integer> {
                             cell("%.6f", resp.absorptance()), cell("%.3f", phaseR), cell("%.3f", phaseT)));
                 }
             }
-            boolean beyond = gapTransparent && Evanescent.isBeyondCritical(incident.re(), gap.re(), theta);
-            double depth = beyond ? Evanescent.amplitudeDepth(incident.re(), gap.re(), theta, lambda) : Double.NaN;
+            Complex g = st.index(1); // at this row's wavelength
+            boolean beyond = g.im() == 0 && Evanescent.isBeyondCritical(st.incidentIndex(), g.re(), theta);
+            double depth = beyond ? Evanescent.amplitudeDepth(st.incidentIndex(), g.re(), theta, lambda) : Double.NaN;
             row.add(beyond ? (csv ? csvNumber(depth * 1e9) : cell("%.2f", depth * 1e9)) : csv ? "" : "-");
             rows.add(csv ? String.join(",", row) : tableRow(row));
         }
+        // the library materials' models: above the table, or on standard error beside CSV (which stays plain)
+        List<String> models = libraryLines();
         if (csv) {
+            models.forEach(spec.commandLine().getErr()::println);
             out.println(String.join(",", head));
         } else {
             printHeader(out, stack, gap);
+            models.forEach(out::println);
             out.println(tableRow(head));
         }
         rows.forEach(out::println);
@@ -254,15 +263,47 @@ public final class StackCommand implements Callable<Integer> {
             angle = new Sweep(Units.number(Math.toDegrees(e.angle())), List.of(e.angle()));
         }
         PlanarStack first = e.stack().apply(wavelength.values().get(0));
-        incident = Complex.real(first.incidentIndex());
-        exit = first.exitIndex();
-        layers = new ArrayList<>(first.layers());
+        incident = StackMedium.of(Complex.real(first.incidentIndex()));
+        exit = StackMedium.of(first.exitIndex());
+        layers = new ArrayList<>();
+        for (PlanarStack.Layer l : first.layers()) {
+            layers.add(new StackMedium.Layer(StackMedium.of(l.index()), l.thickness()));
+        }
         if (!csv) {
             out.println("case: " + caseFile + (overrides.isEmpty() ? "" : " with " + overrides) + " (the layers under its "
                     + "source, as flux.transfer_matrix reads them; the case's polarization is "
                     + e.polarization().toString().toLowerCase(Locale.ROOT) + ")");
         }
         return e.stack();
+    }
+
+    /** The stack of the options at vacuum wavelength {@code wl}, m: library materials evaluated there. */
+    private PlanarStack stackAt(double wl) {
+        List<PlanarStack.Layer> at = new ArrayList<>();
+        for (StackMedium.Layer l : layers) {
+            at.add(new PlanarStack.Layer(l.medium().index(wl), l.thickness()));
+        }
+        return new PlanarStack(incident.index(wl).re(), at, exit.index(wl));
+    }
+
+    /** One line per library material of the options: its model, and its ε at the first and last wavelength. */
+    private List<String> libraryLines() {
+        List<Double> w = wavelength.values();
+        double first = w.get(0);
+        double last = w.get(w.size() - 1);
+        List<String> lines = new ArrayList<>();
+        if (incident.isLibrary()) {
+            lines.add(incident.describe("incident", first, last));
+        }
+        for (int k = 0; k < layers.size(); k++) {
+            if (layers.get(k).medium().isLibrary()) {
+                lines.add(layers.get(k).medium().describe("layer " + (k + 1), first, last));
+            }
+        }
+        if (exit.isLibrary()) {
+            lines.add(exit.describe("exit", first, last));
+        }
+        return lines;
     }
 
     /**
@@ -292,14 +333,17 @@ public final class StackCommand implements Callable<Integer> {
     }
 
     private void printHeader(PrintWriter out, PlanarStack stack, Complex gap) {
-        StringBuilder s = new StringBuilder("stack: incident n = ").append(index(Complex.real(stack.incidentIndex())));
+        StringBuilder s = new StringBuilder("stack: incident ").append(incident.isLibrary() ? incident.name() + ", " : "")
+                .append("n = ").append(index(Complex.real(stack.incidentIndex())));
         for (int k = 0; k < stack.layers().size(); k++) {
             PlanarStack.Layer l = stack.layers().get(k);
-            s.append(" | layer ").append(k + 1).append(": n = ").append(index(l.index())).append(", ");
+            StackMedium m = layers.get(k).medium();
+            s.append(" | layer ").append(k + 1).append(": ").append(m.isLibrary() ? m.name() + ", " : "")
+                    .append("n = ").append(index(l.index())).append(", ");
             s.append(thickness != null && thickness.layer() == k + 1 ? "swept"
                     : Units.format(l.thickness(), Dimension.LENGTH));
         }
-        s.append(" | exit n = ").append(index(stack.exitIndex()));
+        s.append(" | exit ").append(exit.isLibrary() ? exit.name() + ", " : "").append("n = ").append(index(stack.exitIndex()));
         out.println(s);
         StringBuilder w = new StringBuilder();
         if (!wavelength.isRange()) {
@@ -463,28 +507,28 @@ public final class StackCommand implements Callable<Integer> {
         }
     }
 
-    static final class IndexConverter implements ITypeConverter<Complex> {
+    static final class MediumConverter implements ITypeConverter<StackMedium> {
         @Override
-        public Complex convert(String value) {
-            return parseIndex(value);
+        public StackMedium convert(String value) {
+            return StackMedium.parse(value);
         }
     }
 
-    static final class LayerConverter implements ITypeConverter<PlanarStack.Layer> {
+    static final class LayerConverter implements ITypeConverter<StackMedium.Layer> {
         @Override
-        public PlanarStack.Layer convert(String value) {
+        public StackMedium.Layer convert(String value) {
             String[] parts = value.split(":", -1);
             if (parts.length != 2) {
-                throw new TypeConversionException("'" + value + "' is not a layer; expected INDEX:THICKNESS, e.g. 1.0:200nm "
-                        + "or 0.2,3.4:50nm");
+                throw new TypeConversionException("'" + value + "' is not a layer; expected INDEX:THICKNESS or NAME:THICKNESS, "
+                        + "e.g. 1.0:200nm, 0.2,3.4:50nm or gold:50nm");
             }
-            Complex index;
+            StackMedium medium;
             try {
-                index = parseIndex(parts[0]);
+                medium = StackMedium.parse(parts[0]);
             } catch (TypeConversionException e) {
                 throw new TypeConversionException("'" + value + "': " + e.getMessage());
             }
-            return new PlanarStack.Layer(index, part(value, parts[1], StackCommand::parseLength));
+            return new StackMedium.Layer(medium, part(value, parts[1], StackCommand::parseLength));
         }
     }
 

@@ -207,26 +207,59 @@ public final class FieldOutputs {
 
     /**
      * εr on the grid at each electric component's sites over the box, averaged onto the nodes:
-     * relative_permittivity_z (s); relative_permittivity_x, relative_permittivity_y (p).
+     * relative_permittivity_z (s); relative_permittivity_x, relative_permittivity_y (p). A dielectric-only run writes
+     * each material's εr (its conductivity is in summary.json). A run with a dispersive material (a metal) writes the
+     * complex relative permittivity at the design wavelength instead, as two datasets: the real part under the same
+     * name and the imaginary part under {@code relative_permittivity_z_imaginary} (x, y); a metal's sites (and its face
+     * averages) hold its model's ε(ω) there, a conductive material's the term σ/(ε0ω) in the imaginary part.
      */
     static List<FieldDataset> permittivity(CasePlan plan, int[] box, String quantity) {
         GridSpec r = regionGrid(plan, box);
         List<FieldDataset> out = new ArrayList<>();
+        java.util.Map<Integer, org.evanesce.geometry.dispersion.DispersiveMaterial> metals = plan.builder().dispersiveMaterials();
+        double wavelength = plan.spec().designWavelength().si();
+        double omega = 2 * Math.PI * org.evanesce.geometry.PhysicalConstants.C0 / wavelength;
         for (Component c : plan.spec().polarization().value().components()) {
             if (!c.electric) {
                 continue;
             }
             FieldSite site = c == Component.EZ ? FieldSite.EZ : c == Component.EX ? FieldSite.EX : FieldSite.EY;
             double[] eps = new double[r.nx() * r.ny()];
+            double[] epsIm = metals.isEmpty() ? null : new double[eps.length];
             for (int j = 0; j < r.ny(); j++) {
                 for (int i = 0; i < r.nx(); i++) {
-                    eps[j * r.nx() + i] = plan.materials().material(site, box[0] + i, box[1] + j).relativePermittivity();
+                    int k = j * r.nx() + i;
+                    org.evanesce.geometry.Material m = plan.materials().material(site, box[0] + i, box[1] + j);
+                    if (epsIm == null) {
+                        eps[k] = m.relativePermittivity();
+                        continue;
+                    }
+                    org.evanesce.geometry.dispersion.DispersiveMaterial d =
+                            metals.get(plan.materials().id(site, box[0] + i, box[1] + j));
+                    org.evanesce.geometry.Complex e = d != null ? d.permittivity(omega)
+                            : org.evanesce.geometry.dispersion.DispersiveMaterial.of(m).permittivity(omega);
+                    eps[k] = e.re();
+                    epsIm[k] = e.im();
                 }
             }
-            Map<String, Object> a = attributes(plan, r, c, quantity);
-            a.put("unit", "1");
-            out.add(new FieldDataset(permittivityName(c),
-                    Nodes.average(c, eps, r.nx(), r.ny()), r.nx(), r.ny(), Precision.DOUBLE, a));
+            if (epsIm == null) {
+                Map<String, Object> a = attributes(plan, r, c, quantity);
+                a.put("unit", "1");
+                out.add(new FieldDataset(permittivityName(c),
+                        Nodes.average(c, eps, r.nx(), r.ny()), r.nx(), r.ny(), Precision.DOUBLE, a));
+                continue;
+            }
+            for (boolean real : new boolean[] {true, false}) {
+                String part = real ? "real" : "imaginary";
+                Map<String, Object> a = attributes(plan, r, c, String.format(Locale.ROOT, "%s, %s part of the complex "
+                        + "relative permittivity at the design wavelength %.2f nm (metals: the model's epsilon(omega); the "
+                        + "grid's discrete value is in summary.json)", quantity, part, wavelength * 1e9));
+                a.put("unit", "1");
+                a.put("part", part);
+                a.put("wavelength_m", wavelength);
+                out.add(new FieldDataset(permittivityName(c) + (real ? "" : IMAGINARY),
+                        Nodes.average(c, real ? eps : epsIm, r.nx(), r.ny()), r.nx(), r.ny(), Precision.DOUBLE, a));
+            }
         }
         return out;
     }
