@@ -664,6 +664,11 @@ public final class Simulation implements StepView, AutoCloseable {
             return this;
         }
 
+        /** The materials in series given so far by material index (a read-only copy; empty when there are none). */
+        public Map<Integer, SeriesMaterial> seriesMaterials() {
+            return Map.copyOf(series);
+        }
+
         /** The dispersive materials given so far by material index (a read-only copy; empty for a dielectric-only run). */
         public Map<Integer, DispersiveMaterial> dispersiveMaterials() {
             return Map.copyOf(dispersive);

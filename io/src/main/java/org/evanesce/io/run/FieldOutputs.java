@@ -211,12 +211,14 @@ public final class FieldOutputs {
      * each material's εr (its conductivity is in summary.json). A run with a dispersive material (a metal) writes the
      * complex relative permittivity at the design wavelength instead, as two datasets: the real part under the same
      * name and the imaginary part under {@code relative_permittivity_z_imaginary} (x, y); a metal's sites (and its face
-     * averages) hold its model's ε(ω) there, a conductive material's the term σ/(ε0ω) in the imaginary part.
+     * averages: the arithmetic mean along a face, the harmonic one across it) hold its model's ε(ω) there, a conductive material's the term σ/(ε0ω) in the imaginary part.
      */
     static List<FieldDataset> permittivity(CasePlan plan, int[] box, String quantity) {
         GridSpec r = regionGrid(plan, box);
         List<FieldDataset> out = new ArrayList<>();
         java.util.Map<Integer, org.evanesce.geometry.dispersion.DispersiveMaterial> metals = plan.builder().dispersiveMaterials();
+        // a metal face's sites across it hold its materials in series (1/eps = sum f/eps_k), stepped as such
+        java.util.Map<Integer, org.evanesce.geometry.dispersion.SeriesMaterial> series = plan.builder().seriesMaterials();
         double wavelength = plan.spec().designWavelength().si();
         double omega = 2 * Math.PI * org.evanesce.geometry.PhysicalConstants.C0 / wavelength;
         for (Component c : plan.spec().polarization().value().components()) {
@@ -225,7 +227,7 @@ public final class FieldOutputs {
             }
             FieldSite site = c == Component.EZ ? FieldSite.EZ : c == Component.EX ? FieldSite.EX : FieldSite.EY;
             double[] eps = new double[r.nx() * r.ny()];
-            double[] epsIm = metals.isEmpty() ? null : new double[eps.length];
+            double[] epsIm = metals.isEmpty() && series.isEmpty() ? null : new double[eps.length];
             for (int j = 0; j < r.ny(); j++) {
                 for (int i = 0; i < r.nx(); i++) {
                     int k = j * r.nx() + i;
@@ -234,9 +236,10 @@ public final class FieldOutputs {
                         eps[k] = m.relativePermittivity();
                         continue;
                     }
-                    org.evanesce.geometry.dispersion.DispersiveMaterial d =
-                            metals.get(plan.materials().id(site, box[0] + i, box[1] + j));
-                    org.evanesce.geometry.Complex e = d != null ? d.permittivity(omega)
+                    int id = plan.materials().id(site, box[0] + i, box[1] + j);
+                    org.evanesce.geometry.dispersion.DispersiveMaterial d = metals.get(id);
+                    org.evanesce.geometry.dispersion.SeriesMaterial sm = series.get(id);
+                    org.evanesce.geometry.Complex e = d != null ? d.permittivity(omega) : sm != null ? sm.permittivity(omega)
                             : org.evanesce.geometry.dispersion.DispersiveMaterial.of(m).permittivity(omega);
                     eps[k] = e.re();
                     epsIm[k] = e.im();
