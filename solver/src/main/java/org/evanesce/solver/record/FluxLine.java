@@ -395,6 +395,28 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
         }
     }
 
+    /**
+     * Sets the transforms at frequency q on every cell to values computed without stepping (see
+     * {@link org.evanesce.solver.source.SheetResponse}); the arrays hold one value per cell and are copied.
+     */
+    public void setTransforms(int q, double[] eReal, double[] eImag, double[] hReal, double[] hImag) {
+        int n = i1 - i0;
+        if (eReal.length != n || eImag.length != n || hReal.length != n || hImag.length != n) {
+            throw new IllegalArgumentException("a line of " + n + " cells gets " + n + " values per part");
+        }
+        System.arraycopy(eReal, 0, eRe[q], 0, n);
+        System.arraycopy(eImag, 0, eIm[q], 0, n);
+        System.arraycopy(hReal, 0, hRe[q], 0, n);
+        System.arraycopy(hImag, 0, hIm[q], 0, n);
+    }
+
+    /** Sets the sample counts and the time step that go with transforms set by {@link #setTransforms}. */
+    public void setSamples(long electricSamples, long magneticSamples, double timeStep) {
+        eSamples = electricSamples;
+        hSamples = magneticSamples;
+        dt = timeStep;
+    }
+
     /** Bytes held by the accumulators and the per-step scratch ({@link #bytesFor}). */
     public long bytes() {
         return bytesFor(i1 - i0, omega.length);
