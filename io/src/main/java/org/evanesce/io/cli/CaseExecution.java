@@ -148,7 +148,8 @@ final class CaseExecution {
         o.printf(Locale.ROOT, "done: %d steps in %.1f s (%.0f Mcell/s, %d thread%s)%s; %s%n", r.steps(), r.wallSeconds(),
                 r.cellUpdatesPerSecond(cells) / 1e6, r.threads(), r.threads() == 1 ? "" : "s",
                 r.incidentPower() != null ? r.incidentPower().reused() ? ", incident power reused"
-                        : String.format(Locale.ROOT, ", incident-power run %.1f s", r.incidentPowerRunWallSeconds())
+                        : String.format(Locale.ROOT, r.incidentPower().computed() ? ", incident power computed in %.1f s"
+                        : ", incident-power run %.1f s", r.incidentPowerRunWallSeconds())
                         : plan.referenceRun().isPresent() ? String.format(Locale.ROOT, ", %s %.1f s", plan.flux().isPresent()
                         ? "incident-power run" : "reference run", r.incidentPowerRunWallSeconds()) : "",
                 r.stopReason());

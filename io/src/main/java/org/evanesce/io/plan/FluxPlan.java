@@ -46,13 +46,16 @@ import org.evanesce.solver.reference.PlanarStack;
  *                       halves, the path line) in the order registered: their state is its whole result
  * @param strip          for a plane wave with periodic sides (unless the case asks for {@code incident_run: full}): the
  *                       narrow strip whose run gives the recorders' state instead of the full-width incident-power run
+ * @param computed       for a pulsed Gaussian beam with PMLs on every side (unless the case asks for {@code incident_run:
+ *                       full}): the recorders' state computed from the beam's sheets instead of stepped
+ *                       ({@link org.evanesce.solver.source.SheetResponse})
  */
 public record FluxPlan(double[] frequencies, double kx, String medium, double mediumIndex, int direction, List<Line> lines,
                        FluxLine incident, double incidentY, Simulation.Builder reference, double cellSize,
                        Optional<Exact> exact, Optional<SourceSpec.GaussianBeamSource> beam, double gridX0,
                        java.util.function.DoubleBinaryOperator indexAt, Optional<Steady> steady, double lineLength,
                        double sourceAmplitude, Optional<Path> path, String setupKey, List<FluxLine> recorders,
-                       Optional<Strip> strip) {
+                       Optional<Strip> strip, Optional<org.evanesce.solver.source.SheetResponse> computed) {
 
     /**
      * The incident-power run of a Bloch-periodic plane wave done on a strip of a few columns: in a homogeneous medium

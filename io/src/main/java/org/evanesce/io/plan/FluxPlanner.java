@@ -64,6 +64,9 @@ final class FluxPlanner {
         if (periodic && f.incidentRun().value() == FluxSpec.IncidentRun.AUTO && grid.nx() > STRIP_COLUMNS) {
             reference.strip(setup, materials.get(medium.name()), grid);
         }
+        Optional<org.evanesce.solver.source.SheetResponse> computed = BeamIncident.of(spec, f, w, medium,
+                materials.get(medium.name()), setup, grid.nx());
+        computed.ifPresent(c -> reference.key.method("computed from the beam's sheets, FFT of " + c.size()));
         List<FluxPlan.Line> lines = new ArrayList<>();
         List<FluxLine[]> runHalves = new ArrayList<>();
         List<FluxLine[]> referenceHalves = new ArrayList<>();
@@ -107,7 +110,7 @@ final class FluxPlanner {
         return new FluxPlan(freqs, PlaneWaves.kx(spec), medium.name(), medium.index(), dir, lines, incident,
                 grid.y0() + (incidentRow + 0.5) * dx, reference.builder, dx, exact, beam, grid.x0(),
                 (x, y) -> spec.materials().get(spec.materialAt(x, y)).index(), check, (i1 - i0) * dx,
-                w.amplitude().si(), path, reference.key.hex(), reference.lines, reference.strip());
+                w.amplitude().si(), path, reference.key.hex(), reference.lines, reference.strip(), computed);
     }
 
     /** Columns of the strip that stands for a Bloch-periodic plane wave's incident-power run. */

@@ -73,21 +73,26 @@ public final class IncidentPowerCache {
      * @param measured   the measurement the numbers come from (this run's or the earlier one's)
      * @param strip      whether that measurement stepped a strip of a few columns for a Bloch-periodic plane wave
      *                   (else the full grid)
+     * @param computed   whether it was computed from a pulsed beam's sheets, no grid stepped
      */
-    public record Obtained(boolean reused, String key, String origin, Measured measured, boolean strip) {
-        /** {@code measured} or {@code reused}, for run.json and summary.json. */
+    public record Obtained(boolean reused, String key, String origin, Measured measured, boolean strip, boolean computed) {
+        /** {@code measured}, {@code computed} or {@code reused}, for run.json and summary.json. */
         public String how() {
-            return reused ? "reused" : "measured";
+            return reused ? "reused" : computed ? "computed" : "measured";
         }
 
         /** The {@code incident_power} record of run.json and summary.json (docs/outputs.md). */
         public Map<String, Object> record() {
             Map<String, Object> m = new LinkedHashMap<>();
             m.put("obtained", how());
-            m.put("run", strip ? "strip" : "full");
+            m.put("run", computed ? "computed" : strip ? "strip" : "full");
             m.put("by", (reused ? "the result of an earlier incident-power run with the same key (same grid, medium, "
                     + "sources, boundaries, numerics, lines, frequencies, steps and program build), bit for bit what this "
-                    + "run's own would have been: " : "") + (strip ? "the plane wave in the incident medium on a strip of "
+                    + "run's own would have been: " : "") + (computed ? "computed, not stepped: the transforms the "
+                    + "beam's pulsed sheets give on each line of an unbounded grid of the incident medium (the grid's own "
+                    + "update in the frequency domain, one Fourier series along x, the discrete Green's function along y), "
+                    + "what an incident-power run of the whole grid records up to its PMLs' reflections and rounding"
+                    : strip ? "the plane wave in the incident medium on a strip of "
                     + "a few columns with the same Bloch-periodic sides, PMLs, source row and steps (the discrete "
                     + "one-dimensional problem: the full width repeats it with the phase exp(i kx x)), its lines spread "
                     + "over the width" : "an incident-power run of this case's whole grid filled with the incident "
@@ -158,7 +163,8 @@ public final class IncidentPowerCache {
     public Obtained obtain(FluxPlan plan, long steps, Supplier<Measured> measure) {
         String key = key(plan, steps);
         if (!enabled) {
-            return new Obtained(false, key, "measured by this run", measure.get(), plan.strip().isPresent());
+            return new Obtained(false, key, "measured by this run", measure.get(), plan.strip().isPresent(),
+                    plan.computed().isPresent());
         }
         synchronized (locks.computeIfAbsent(key, k -> new Object())) {
             List<FluxLine> recorders = plan.recorders();
@@ -174,7 +180,7 @@ public final class IncidentPowerCache {
             if (e != null && fits(e, recorders)) {
                 restore(e, recorders);
                 remember(key, e);
-                return new Obtained(true, key, origin, e.measured(), plan.strip().isPresent());
+                return new Obtained(true, key, origin, e.measured(), plan.strip().isPresent(), plan.computed().isPresent());
             }
             Measured m = measure.get();
             e = capture(m, recorders);
@@ -182,7 +188,8 @@ public final class IncidentPowerCache {
             if (folder != null) {
                 write(key, steps, e);
             }
-            return new Obtained(false, key, "measured by this run", m, plan.strip().isPresent());
+            return new Obtained(false, key, "measured by this run", m, plan.strip().isPresent(),
+                    plan.computed().isPresent());
         }
     }
 

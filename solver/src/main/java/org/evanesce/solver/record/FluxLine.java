@@ -58,8 +58,18 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
      * and E on the row above the line before averaging: [worker][ea, eb, ha, hb, e1a, e1b][cell − first of range].
      */
     private double[][][] scratch;
-    /** This step's e^{iωt}Δt per frequency at the electric and the magnetic sample times (zero outside the window). */
-    private final double[] ce, se, ch, sh;
+    /**
+     * Hold-and-add: each sampled step's line values go into slot {@link #slot} of the hold ([slot][cell]: E averaged
+     * onto the line and H, real and imaginary parts) with that step's e^{iωt}Δt per frequency at the electric and the
+     * magnetic sample times (zero outside the window) in [slot][frequency]; when the last of {@value #HOLD} slots is
+     * filled, each cell adds the slots' sum to its accumulators, so they are read and written once per
+     * {@value #HOLD} steps rather than every step. The slots filled since, {@link #held}, are part of the state.
+     */
+    private final double[][] holdE, holdEi, holdH, holdHi;
+    private final double[][] ce, se, ch, sh;
+    /** The slot this step fills, and how many slots hold values not yet added (after the step's prepare). */
+    private int slot;
+    private int held;
     /** Whether this step's fields are complex (set by {@link #prepare}). */
     private boolean complex;
     /** Only field samples at times in [windowStart, windowEnd) are transformed. */
@@ -113,11 +123,18 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
         hRe = new double[omega.length][n];
         hIm = new double[omega.length][n];
         scratch = new double[1][6][n];
-        ce = new double[omega.length];
-        se = new double[omega.length];
-        ch = new double[omega.length];
-        sh = new double[omega.length];
+        holdE = new double[HOLD][n];
+        holdEi = new double[HOLD][n];
+        holdH = new double[HOLD][n];
+        holdHi = new double[HOLD][n];
+        ce = new double[HOLD][omega.length];
+        se = new double[HOLD][omega.length];
+        ch = new double[HOLD][omega.length];
+        sh = new double[HOLD][omega.length];
     }
+
+    /** Steps held before their values are added to the accumulators. */
+    static final int HOLD = 8;
 
     /**
      * Transforms only the samples taken at times in [start, end), s: for a continuous wave, a window of
@@ -149,11 +166,13 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
         double we = eIn ? dt : 0;
         double wh = hIn ? dt : 0;
         this.dt = dt;
+        slot = held;
+        held = (held + 1) % HOLD;
         for (int q = 0; q < omega.length; q++) {
-            ce[q] = Math.cos(omega[q] * te) * we;
-            se[q] = Math.sin(omega[q] * te) * we;
-            ch[q] = Math.cos(omega[q] * th) * wh;
-            sh[q] = Math.sin(omega[q] * th) * wh;
+            ce[slot][q] = Math.cos(omega[q] * te) * we;
+            se[slot][q] = Math.sin(omega[q] * te) * we;
+            ch[slot][q] = Math.cos(omega[q] * th) * wh;
+            sh[slot][q] = Math.sin(omega[q] * th) * wh;
         }
         if (scratch.length < workers) {
             scratch = new double[workers][6][i1 - i0];
@@ -196,32 +215,123 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
                 eb[k] = 0.5 * (eb[k] + e1b[k]);
             }
         }
+        // hold this step's values; the step that fills the last slot adds all of them for its range
+        double[] he = holdE[slot];
+        double[] hei = holdEi[slot];
+        double[] hh = holdH[slot];
+        double[] hhi = holdHi[slot];
+        System.arraycopy(ea, 0, he, u0, n);
+        System.arraycopy(ha, 0, hh, u0, n);
+        if (complex) {
+            System.arraycopy(eb, 0, hei, u0, n);
+            System.arraycopy(hb, 0, hhi, u0, n);
+        }
+        if (slot == HOLD - 1) {
+            addHeld(u0, u1, complex);
+        }
+    }
+
+    /**
+     * Adds the {@value #HOLD} held steps of cells u0 ≤ u &lt; u1 to the accumulators: per cell and frequency the slots'
+     * products summed in slot order, then added (the same operations in the same order on any thread).
+     */
+    private void addHeld(int u0, int u1, boolean complex) {
+        double[] e0 = holdE[0], e1 = holdE[1], e2 = holdE[2], e3 = holdE[3];
+        double[] e4 = holdE[4], e5 = holdE[5], e6 = holdE[6], e7 = holdE[7];
+        double[] h0 = holdH[0], h1 = holdH[1], h2 = holdH[2], h3 = holdH[3];
+        double[] h4 = holdH[4], h5 = holdH[5], h6 = holdH[6], h7 = holdH[7];
         for (int q = 0; q < omega.length; q++) {
-            double ce = this.ce[q];
-            double se = this.se[q];
-            double ch = this.ch[q];
-            double sh = this.sh[q];
+            if (complex) {
+                addHeldComplex(q, u0, u1);
+                continue;
+            }
+            // real fields: the imaginary parts are zero, and so are their products (half the work)
             double[] er = eRe[q];
             double[] ei = eIm[q];
             double[] hr = hRe[q];
             double[] hi = hIm[q];
-            if (!complex) {
-                // real fields: the imaginary parts are zero, and so are their products (half the work)
-                for (int k = 0; k < n; k++) {
-                    er[u0 + k] += ea[k] * ce;
-                    ei[u0 + k] += ea[k] * se;
-                    hr[u0 + k] += ha[k] * ch;
-                    hi[u0 + k] += ha[k] * sh;
-                }
-                continue;
+            double c0 = ce[0][q], c1 = ce[1][q], c2 = ce[2][q], c3 = ce[3][q];
+            double c4 = ce[4][q], c5 = ce[5][q], c6 = ce[6][q], c7 = ce[7][q];
+            double s0 = se[0][q], s1 = se[1][q], s2 = se[2][q], s3 = se[3][q];
+            double s4 = se[4][q], s5 = se[5][q], s6 = se[6][q], s7 = se[7][q];
+            for (int k = u0; k < u1; k++) {
+                er[k] += e0[k] * c0 + e1[k] * c1 + e2[k] * c2 + e3[k] * c3 + e4[k] * c4 + e5[k] * c5 + e6[k] * c6
+                        + e7[k] * c7;
+                ei[k] += e0[k] * s0 + e1[k] * s1 + e2[k] * s2 + e3[k] * s3 + e4[k] * s4 + e5[k] * s5 + e6[k] * s6
+                        + e7[k] * s7;
             }
-            for (int k = 0; k < n; k++) {
-                er[u0 + k] += ea[k] * ce - eb[k] * se;
-                ei[u0 + k] += ea[k] * se + eb[k] * ce;
-                hr[u0 + k] += ha[k] * ch - hb[k] * sh;
-                hi[u0 + k] += ha[k] * sh + hb[k] * ch;
+            c0 = ch[0][q]; c1 = ch[1][q]; c2 = ch[2][q]; c3 = ch[3][q];
+            c4 = ch[4][q]; c5 = ch[5][q]; c6 = ch[6][q]; c7 = ch[7][q];
+            s0 = sh[0][q]; s1 = sh[1][q]; s2 = sh[2][q]; s3 = sh[3][q];
+            s4 = sh[4][q]; s5 = sh[5][q]; s6 = sh[6][q]; s7 = sh[7][q];
+            for (int k = u0; k < u1; k++) {
+                hr[k] += h0[k] * c0 + h1[k] * c1 + h2[k] * c2 + h3[k] * c3 + h4[k] * c4 + h5[k] * c5 + h6[k] * c6
+                        + h7[k] * c7;
+                hi[k] += h0[k] * s0 + h1[k] * s1 + h2[k] * s2 + h3[k] * s3 + h4[k] * s4 + h5[k] * s5 + h6[k] * s6
+                        + h7[k] * s7;
             }
         }
+    }
+
+    /** {@link #addHeld} for complex fields at frequency q, slot by slot into per-cell sums (the same order per cell). */
+    private void addHeldComplex(int q, int u0, int u1) {
+        for (int k = u0; k < u1; k++) {
+            double[] sum = heldSum(q, k, HOLD, true);
+            eRe[q][k] += sum[0];
+            eIm[q][k] += sum[1];
+            hRe[q][k] += sum[2];
+            hIm[q][k] += sum[3];
+        }
+    }
+
+    /**
+     * The sum over the first {@code slots} held steps of cell k's products at frequency q, {E re, E im, H re, H im},
+     * in slot order (for real fields, with the same operations as {@link #addHeld}'s unrolled sums).
+     */
+    private double[] heldSum(int q, int k, int slots, boolean complex) {
+        double er = 0;
+        double ei = 0;
+        double hr = 0;
+        double hi = 0;
+        for (int t = 0; t < slots; t++) {
+            double a = holdE[t][k];
+            double h = holdH[t][k];
+            if (complex) {
+                double b = holdEi[t][k];
+                double g = holdHi[t][k];
+                er += a * ce[t][q] - b * se[t][q];
+                ei += a * se[t][q] + b * ce[t][q];
+                hr += h * ch[t][q] - g * sh[t][q];
+                hi += h * sh[t][q] + g * ch[t][q];
+            } else {
+                er = t == 0 ? a * ce[t][q] : er + a * ce[t][q];
+                ei = t == 0 ? a * se[t][q] : ei + a * se[t][q];
+                hr = t == 0 ? h * ch[t][q] : hr + h * ch[t][q];
+                hi = t == 0 ? h * sh[t][q] : hi + h * sh[t][q];
+            }
+        }
+        return new double[] {er, ei, hr, hi};
+    }
+
+    /**
+     * The accumulators at frequency q with the steps held but not yet added included: {E re, E im, H re, H im} per
+     * cell. The live arrays when nothing is held, else copies (reading never changes the state, so a run read in
+     * the middle continues bit for bit as one that was not).
+     */
+    private double[][] settled(int q) {
+        if (held == 0) {
+            return new double[][] {eRe[q], eIm[q], hRe[q], hIm[q]};
+        }
+        int n = i1 - i0;
+        double[][] out = {eRe[q].clone(), eIm[q].clone(), hRe[q].clone(), hIm[q].clone()};
+        for (int k = 0; k < n; k++) {
+            double[] sum = heldSum(q, k, held, complex);
+            out[0][k] += sum[0];
+            out[1][k] += sum[1];
+            out[2][k] += sum[2];
+            out[3][k] += sum[3];
+        }
+        return out;
     }
 
     /** The flux along +y through the line at frequency number q, W per metre of z (times the source's units squared). */
@@ -275,7 +385,8 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
 
     /** The transformed electric field (averaged onto the line) at frequency q and cell i: {re, im}. */
     public double[] electric(int q, int i) {
-        return new double[] {eRe[q][i - i0], eIm[q][i - i0]};
+        double[][] a = settled(q);
+        return new double[] {a[0][i - i0], a[1][i - i0]};
     }
 
     /** First cell of the line (inclusive). */
@@ -324,12 +435,14 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
 
     /** A copy of the transformed electric field (averaged onto the line) at frequency q on every cell: {re[], im[]}. */
     public double[][] electricTransform(int q) {
-        return new double[][] {eRe[q].clone(), eIm[q].clone()};
+        double[][] a = settled(q);
+        return new double[][] {a[0].clone(), a[1].clone()};
     }
 
     /** A copy of the transformed magnetic field (η0·H as stored) at frequency q on every cell: {re[], im[]}. */
     public double[][] magneticTransform(int q) {
-        return new double[][] {hRe[q].clone(), hIm[q].clone()};
+        double[][] a = settled(q);
+        return new double[][] {a[2].clone(), a[3].clone()};
     }
 
     /**
@@ -343,16 +456,18 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
     /** The per-cell flux density of the difference of this line's transforms and {@code reference}'s (as {@link #flux(int, double, FluxLine)}). */
     public double[] fluxDensity(int q, FluxLine reference) {
         double[] s = new double[eRe[q].length];
+        double[][] a = settled(q);
+        double[][] r = reference == null ? null : reference.settled(q);
         for (int k = 0; k < s.length; k++) {
-            double er = eRe[q][k];
-            double ei = eIm[q][k];
-            double hr = hRe[q][k];
-            double hi = hIm[q][k];
+            double er = a[0][k];
+            double ei = a[1][k];
+            double hr = a[2][k];
+            double hi = a[3][k];
             if (reference != null) {
-                er -= reference.eRe[q][k];
-                ei -= reference.eIm[q][k];
-                hr -= reference.hRe[q][k];
-                hi -= reference.hIm[q][k];
+                er -= r[0][k];
+                ei -= r[1][k];
+                hr -= r[2][k];
+                hi -= r[3][k];
             }
             s[k] = sign * 0.5 * (er * hr + ei * hi) / PhysicalConstants.ETA0;
         }
@@ -378,11 +493,13 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
         eSamples = strip.eSamples;
         hSamples = strip.hSamples;
         dt = strip.dt;
+        held = 0;
         for (int q = 0; q < omega.length; q++) {
-            double er = strip.eRe[q][0];
-            double ei = strip.eIm[q][0];
-            double hr = strip.hRe[q][0];
-            double hi = strip.hIm[q][0];
+            double[][] a = strip.settled(q);
+            double er = a[0][0];
+            double ei = a[1][0];
+            double hr = a[2][0];
+            double hi = a[3][0];
             for (int k = 0; k < eRe[q].length; k++) {
                 double phase = kx * (i0 + k - strip.i0) * cellSize;
                 double c = Math.cos(phase);
@@ -395,18 +512,42 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
         }
     }
 
+    /**
+     * Sets the transforms at frequency q on every cell to values computed without stepping (see
+     * {@link org.evanesce.solver.source.SheetResponse}); the arrays hold one value per cell and are copied.
+     */
+    public void setTransforms(int q, double[] eReal, double[] eImag, double[] hReal, double[] hImag) {
+        int n = i1 - i0;
+        if (eReal.length != n || eImag.length != n || hReal.length != n || hImag.length != n) {
+            throw new IllegalArgumentException("a line of " + n + " cells gets " + n + " values per part");
+        }
+        held = 0;
+        System.arraycopy(eReal, 0, eRe[q], 0, n);
+        System.arraycopy(eImag, 0, eIm[q], 0, n);
+        System.arraycopy(hReal, 0, hRe[q], 0, n);
+        System.arraycopy(hImag, 0, hIm[q], 0, n);
+    }
+
+    /** Sets the sample counts and the time step that go with transforms set by {@link #setTransforms}. */
+    public void setSamples(long electricSamples, long magneticSamples, double timeStep) {
+        eSamples = electricSamples;
+        hSamples = magneticSamples;
+        dt = timeStep;
+    }
+
     /** Bytes held by the accumulators and the per-step scratch ({@link #bytesFor}). */
     public long bytes() {
         return bytesFor(i1 - i0, omega.length);
     }
 
     /**
-     * Bytes a line of n cells transforming F frequencies holds: 8 · n · (4F + 6) (four accumulators per
-     * frequency, six rows of per-step scratch; each further worker thread that shares the line adds up to
-     * six rows more, not counted). The one count of it: memory estimates call this.
+     * Bytes a line of n cells transforming F frequencies holds: 8 · (n · (4F + 6 + 4H) + 4HF) (four accumulators
+     * per frequency, six rows of per-step scratch, the H = {@value #HOLD} held steps' four rows and their factors;
+     * each further worker thread that shares the line adds up to six rows more, not counted). The one count of
+     * it: memory estimates call this.
      */
     public static long bytesFor(long cells, long frequencies) {
-        return Double.BYTES * cells * (4L * frequencies + 6);
+        return Double.BYTES * (cells * (4L * frequencies + 6 + 4L * HOLD) + 4L * HOLD * frequencies);
     }
 
     @Override
@@ -416,6 +557,14 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
         out.writeDouble(dt);
         for (double[][] a : new double[][][] {eRe, eIm, hRe, hIm}) {
             out.writeInt(a.length);
+            for (double[] row : a) {
+                org.evanesce.solver.kernel.StateIO.write(out, row);
+            }
+        }
+        // the steps held but not yet added, whole (every slot, so the state's size does not vary)
+        out.writeInt(held);
+        out.writeBoolean(complex);
+        for (double[][] a : new double[][][] {holdE, holdEi, holdH, holdHi, ce, se, ch, sh}) {
             for (double[] row : a) {
                 org.evanesce.solver.kernel.StateIO.write(out, row);
             }
@@ -432,6 +581,16 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
             if (in.readInt() != a.length) {
                 throw new java.io.IOException("checkpoint's flux line has another number of frequencies");
             }
+            for (double[] row : a) {
+                org.evanesce.solver.kernel.StateIO.read(in, row);
+            }
+        }
+        held = in.readInt();
+        if (held < 0 || held >= HOLD) {
+            throw new java.io.IOException("checkpoint's flux line holds " + held + " steps (at most " + (HOLD - 1) + ")");
+        }
+        complex = in.readBoolean();
+        for (double[][] a : new double[][][] {holdE, holdEi, holdH, holdHi, ce, se, ch, sh}) {
             for (double[] row : a) {
                 org.evanesce.solver.kernel.StateIO.read(in, row);
             }
