@@ -6,8 +6,8 @@ import static org.junit.jupiter.api.Assertions.assertNotEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.Map;
-import org.evanesce.io.casefile.CaseReader;
 import org.evanesce.io.casefile.ReadOptions;
+import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.CasePlanner;
 import org.junit.jupiter.api.Test;
@@ -75,7 +75,7 @@ class BeamIncidentTest {
         if (!pulse) {
             text = text.replace("{from: 623 nm, to: 643 nm, count: 3}", "633 nm");
         }
-        return CasePlanner.plan(CaseReader.parse(text, "gap-beam.yaml", Map.of(), ReadOptions.defaults()).spec(), 2);
+        return CasePlanner.plan(CaseLoader.parse(text, "gap-beam.yaml", Map.of(), ReadOptions.defaults()).spec(), 2);
     }
 
     @ParameterizedTest(name = "{0} polarization")
