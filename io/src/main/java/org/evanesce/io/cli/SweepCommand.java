@@ -39,6 +39,7 @@ import org.evanesce.io.sweep.Parallelism;
 import org.evanesce.io.sweep.PointHash;
 import org.evanesce.io.sweep.SlurmScript;
 import org.evanesce.io.sweep.SampleSummary;
+import org.evanesce.io.sweep.SweepExtrema;
 import org.evanesce.io.sweep.SweepFolder;
 import org.evanesce.io.sweep.SweepMerge;
 import org.evanesce.io.sweep.SweepPoint;
@@ -499,6 +500,13 @@ public final class SweepCommand implements Callable<Integer> {
         SweepMerge.Result m = SweepMerge.write(folder, points, kinds, title);
         o.printf(Locale.ROOT, "merged %d of %d points into %s%s%n", m.finished(), points.size(),
                 folder.dir().resolve(SweepFolder.CSV), m.png() ? " and " + SweepFolder.PNG : "");
+        if (sample == null) {
+            SweepExtrema.Written x = SweepExtrema.write(folder, m.csv(), points.isEmpty() ? List.of()
+                    : points.get(0).point().names(), kinds);
+            if (x != null) {
+                o.print(x.summary());
+            }
+        }
         if (sample != null) {
             try {
                 SampleSummary.Written w = SampleSummary.write(folder, m.csv(), sample, points.isEmpty() ? List.of()

@@ -37,7 +37,8 @@ public final class SweepFolder {
 
     /** A point's folder: {@code point-0003}. */
     private static final Pattern POINT = Pattern.compile("point-(\\d{4,9})");
-    private static final Set<String> SWEEP_FILES = Set.of(RECORD, CSV, PNG, SLURM, SAMPLE);
+    private static final Set<String> SWEEP_FILES = Set.of(RECORD, CSV, PNG, SLURM, SAMPLE, SweepExtrema.EXTREMA,
+            SweepExtrema.SENSITIVITY);
 
     private final Path dir;
 
