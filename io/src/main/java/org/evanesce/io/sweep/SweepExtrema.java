@@ -251,9 +251,10 @@ public final class SweepExtrema {
                                   String sensitivity) {
         StringBuilder sb = new StringBuilder();
         List<Row> minima = found.stream().filter(Row::min).toList();
-        sb.append(String.format(Locale.ROOT, "extrema of the flux columns (parabola through the lowest or highest point and its "
-                + "neighbours; width at half depth below the larger end value) in %s:%n", EXTREMA));
-        for (Row r : minima.subList(0, Math.min(PRINTED, minima.size()))) {
+        List<Row> dips = minima.stream().filter(r -> r.found().bracketed()).toList();
+        sb.append(String.format(Locale.ROOT, "extrema of the flux columns in %s (parabola through the lowest or highest point "
+                + "and its neighbours; width at half depth below the larger end value); the dips:%n", EXTREMA));
+        for (Row r : dips.subList(0, Math.min(PRINTED, dips.size()))) {
             int p = r.parameter();
             double max = rows.stream().mapToDouble(q -> Math.abs(number(q[siAt[p]]))).filter(Double::isFinite).max().orElse(1);
             SweepMerge.DisplayUnit u = SweepMerge.DisplayUnit.of(kinds.get(p), max);
@@ -266,17 +267,20 @@ public final class SweepExtrema {
                 }
             }
             Extremum.Found f = r.found();
-            sb.append(String.format(Locale.ROOT, "  %s (%s): min %.4g at %s=%.6g%s%s", r.column(), String.join(", ", at),
-                    f.value(), names.get(p), f.x() / u.factor(), unit, f.bracketed() ? "" : " (end of the range: not bracketed)"));
+            sb.append(String.format(Locale.ROOT, "  %s (%s): min %.4g at %s=%.6g%s", r.column(), String.join(", ", at),
+                    f.value(), names.get(p), f.x() / u.factor(), unit));
             if (Double.isFinite(f.width())) {
                 sb.append(String.format(Locale.ROOT, ", width %.4g%s%s", f.width() / u.factor(), unit,
                         f.complete() ? "" : " (a side does not cross half depth in the range: a lower bound)"));
             }
             sb.append(System.lineSeparator());
         }
-        if (minima.size() > PRINTED) {
-            sb.append(String.format(Locale.ROOT, "  ... %d more minima and the maxima in %s%n", minima.size() - PRINTED, EXTREMA));
+        if (dips.isEmpty()) {
+            sb.append(String.format(Locale.ROOT, "  none: no minimum lies inside the range%n"));
         }
+        int ends = minima.size() - dips.size();
+        sb.append(String.format(Locale.ROOT, "  (%s%d minima at an end of the range, not bracketed, and the maxima: in the file)%n",
+                dips.size() > PRINTED ? (dips.size() - PRINTED) + " more dips, " : "", ends));
         if (sensitivity != null) {
             List<String[]> t = SampleSummary.parse(sensitivity);
             List<String> h = List.of(t.get(0));
