@@ -279,17 +279,31 @@ public final class SweepExtrema {
             sb.append(String.format(Locale.ROOT, "  none: no minimum lies inside the range%n"));
         }
         int ends = minima.size() - dips.size();
-        sb.append(String.format(Locale.ROOT, "  (%s%d minima at an end of the range, not bracketed, and the maxima: in the file)%n",
+        sb.append(String.format(Locale.ROOT, "  (%s%d minima at an end of the range, not bracketed, and the maxima: "
+                + "in the file)%n",
                 dips.size() > PRINTED ? (dips.size() - PRINTED) + " more dips, " : "", ends));
         if (sensitivity != null) {
             List<String[]> t = SampleSummary.parse(sensitivity);
             List<String> h = List.of(t.get(0));
-            sb.append(String.format(Locale.ROOT, "dip shift per unit of %s in %s:%n", t.get(1)[h.indexOf("index")], SENSITIVITY));
-            for (String[] r : t.subList(1, Math.min(t.size(), PRINTED + 1))) {
-                sb.append(String.format(Locale.ROOT, "  %s (%s nm, %s %s to %s): %.4g deg per unit%s%n", r[h.indexOf("column")],
-                        plain(r[0]), r[h.indexOf("index")], plain(r[h.indexOf("index_from")]), plain(r[h.indexOf("index_to")]),
-                        number(r[h.indexOf("shift_deg_per_index_unit")]),
-                        r[h.indexOf("bracketed")].equals("true") ? "" : " (a dip at an end of the range: not bracketed)"));
+            sb.append(String.format(Locale.ROOT, "dip shift per unit of %s in %s (both dips bracketed):%n",
+                    t.get(1)[h.indexOf("index")], SENSITIVITY));
+            int printed = 0;
+            int skipped = 0;
+            for (String[] r : t.subList(1, t.size())) {
+                if (!r[h.indexOf("bracketed")].equals("true")) {
+                    skipped++;
+                } else if (printed++ < PRINTED) {
+                    sb.append(String.format(Locale.ROOT, "  %s (%s nm, %s %s to %s): %.4g deg per unit%n", r[h.indexOf("column")],
+                            plain(r[0]), r[h.indexOf("index")], plain(r[h.indexOf("index_from")]),
+                            plain(r[h.indexOf("index_to")]), number(r[h.indexOf("shift_deg_per_index_unit")])));
+                }
+            }
+            if (printed == 0) {
+                sb.append(String.format(Locale.ROOT, "  none: widen the angle range%n"));
+            }
+            if (skipped > 0 || printed > PRINTED) {
+                sb.append(String.format(Locale.ROOT, "  (%d more, %d with a dip at an end of the range: in the file)%n",
+                        Math.max(0, printed - PRINTED) + skipped, skipped));
             }
         }
         return sb.toString();

@@ -68,7 +68,8 @@ class SweepExtremaTest {
         List<String> sh = List.of(s.get(0));
         assertEquals(INDEX.length, s.size(), "one row per pair of consecutive index values\n" + w.sensitivity());
         for (String[] r : s.subList(1, s.size())) {
-            assertEquals(S, Double.parseDouble(r[sh.indexOf("shift_deg_per_index_unit")]), SENSITIVITY_TOLERANCE, w.sensitivity());
+            assertEquals(S, Double.parseDouble(r[sh.indexOf("shift_deg_per_index_unit")]), SENSITIVITY_TOLERANCE,
+                    w.sensitivity());
             assertEquals("true", r[sh.indexOf("bracketed")]);
         }
         assertTrue(w.summary().contains("dip shift per unit of n_water"), w.summary());
@@ -103,7 +104,8 @@ class SweepExtremaTest {
     }
 
     private static String table() {
-        StringBuilder sb = new StringBuilder("point,n_water,n_water_si,theta,theta_si,wavelength_nm,R_front,R_front_diff,settled\n");
+        StringBuilder sb = new StringBuilder(
+                "point,n_water,n_water_si,theta,theta_si,wavelength_nm,R_front,R_front_diff,settled\n");
         int point = 0;
         for (double n : INDEX) {
             double centre = 70 + S * (n - 1.33);
