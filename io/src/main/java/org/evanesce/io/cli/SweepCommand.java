@@ -174,10 +174,6 @@ public final class SweepCommand implements Callable<Integer> {
             seen.add(d.path() + ": " + d.message());
         }
 
-        if (runs) {
-            // the kernels compile meanwhile, instead of before the first point's run
-            org.evanesce.io.run.JitWarmUp.start(base.polarization().value(), base.numerics().precision().value());
-        }
         // every point is read before anything runs (on the threads the sweep may use; printed in point order)
         List<SweepPoint> points = SweepPoint.expand(sweep);
         int prepThreads = preparationThreads(base);
