@@ -99,8 +99,8 @@ public final class SweepMerge {
         }
         if (plot != null && plot.log() != null) {
             folder.write(SweepFolder.LOG_PNG, SweepPlot.png(plot.log()));
-        } else {
-            Files.deleteIfExists(folder.dir().resolve(SweepFolder.LOG_PNG)); // an earlier merge's, no longer true
+        } else if (png != null) {
+            Files.deleteIfExists(folder.dir().resolve(SweepFolder.LOG_PNG)); // an earlier merge's, beside a new sweep.png
         }
         List<Integer> unsettled = found.stream().filter(f -> f.settled().equals("false")).map(f -> f.point().point().number())
                 .toList();

@@ -70,7 +70,7 @@ record SweepPlot(LinePlot linear, LinePlot log, double wavelength) {
         double at = wl >= 0 && !first.fluxRows().isEmpty() ? number(first.fluxRows().get(rows[0])[wl]) : Double.NaN;
         String where = Double.isNaN(at) ? " at the first frequency" : " at " + plain(at) + " nm"
                 + (!Double.isFinite(first.design()) ? "" : Math.abs(at - target) < 1e-6 ? " (design wavelength)"
-                : " (nearest the design wavelength)");
+                : " (design: " + plain(target) + " nm)");
         String yTitle = first.fluxHeader().contains("A") || first.fluxLines().stream().anyMatch(c -> c.startsWith("T_")
                 || c.startsWith("R_")) ? "flux / incident power" : "surface power (see summary.json)";
         // x: the parameter, or for a pulsed plane wave's angle the angle at this wavelength
@@ -84,7 +84,14 @@ record SweepPlot(LinePlot linear, LinePlot log, double wavelength) {
         } else {
             xTitle = parameter(found, kinds, xi, x);
         }
-        LinePlot.Builder linear = LinePlot.builder().title(name + String.join(", ", columns) + where).xTitle(xTitle).yTitle(yTitle);
+        List<String> letters = new ArrayList<>();
+        for (String k : List.of("R", "T", "A")) {
+            if (columns.stream().anyMatch(c -> c.equals(k) || c.startsWith(k + "_"))) {
+                letters.add(k);
+            }
+        }
+        String what = letters.isEmpty() || yTitle.startsWith("surface") ? String.join(", ", columns) : String.join(", ", letters);
+        LinePlot.Builder linear = LinePlot.builder().title(name + what + where).xTitle(xTitle).yTitle(yTitle);
         LinePlot.Builder log = LinePlot.builder().title(name + "log10 T" + where).xTitle(xTitle).yTitle("log10(T)");
         double low = Double.POSITIVE_INFINITY;
         double high = 0;
