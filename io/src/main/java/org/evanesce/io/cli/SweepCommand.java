@@ -494,7 +494,8 @@ public final class SweepCommand implements Callable<Integer> {
                       String title, PrintWriter o, PrintWriter err, boolean report) throws IOException {
         SweepMerge.Result m = SweepMerge.write(folder, points, kinds, title);
         o.printf(Locale.ROOT, "merged %d of %d points into %s%s%n", m.finished(), points.size(),
-                folder.dir().resolve(SweepFolder.CSV), m.png() ? " and " + SweepFolder.PNG : "");
+                folder.dir().resolve(SweepFolder.CSV), !m.png() ? "" : " and " + SweepFolder.PNG
+                + (java.nio.file.Files.exists(folder.dir().resolve(SweepFolder.LOG_PNG)) ? ", " + SweepFolder.LOG_PNG : ""));
         if (sample != null) {
             try {
                 SampleSummary.Written w = SampleSummary.write(folder, m.csv(), sample, points.isEmpty() ? List.of()
