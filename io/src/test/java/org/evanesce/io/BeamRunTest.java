@@ -538,6 +538,12 @@ class BeamRunTest {
                 "%s: T simulated %s, finite-beam average %s (diff %+g)", what, t, average, t - average));
         assertEquals(1.0, r + t, ENERGY_TOLERANCE, () -> what + ": R + T = " + (r + t) + " in a lossless scene");
         assertEquals(1 - r - t, f.get("A"), DERIVED_COLUMN_TOLERANCE, () -> what + ": the A column is not 1 − R − T");
+        // the beam plots (their curves: BeamSeriesTest) are written and are pictures
+        for (String plot : List.of("beam-incident.png", "beam-reflected.png", "beam-transmitted.png")) {
+            Path png = tmp.resolve("gap-out").resolve(plot);
+            assertTrue(Files.isRegularFile(png), () -> what + ": " + plot + " was not written");
+            assertTrue(javax.imageio.ImageIO.read(png.toFile()) != null, () -> what + ": " + plot + " is not a readable PNG");
+        }
     }
 
     // ---- 3. energy with absorption ----

@@ -479,6 +479,14 @@ class FieldOutputRunTest {
             }
             float[][][] mag = (float[][][]) h.getDatasetByPath("/E_magnitude").getData();
             assertEquals(wavelengths.length, mag.length, context + ": E_magnitude has a layer per wavelength");
+            // a transform sum F(t) e^{i2pi f t} dt carries the field's unit times seconds (common practice):
+            // V*s/m for E, and for H, which is stored as eta0*H
+            assertEquals("V*s/m", h.getDatasetByPath("/E_magnitude").getAttribute("unit").getData(), context + ": |E| unit");
+            String magnetic = pol.equals("s") ? "H_x" : "H_z";
+            for (String comp : List.of(electric.get(0), magnetic)) {
+                assertEquals(comp.startsWith("E") ? "V*s/m" : "V*s/m (eta0*H)",
+                        h.getDatasetByPath("/" + comp + "_real").getAttribute("unit").getData(), context + ": " + comp + " unit");
+            }
             List<float[][][]> parts = new ArrayList<>();
             for (String comp : electric) {
                 for (String part : List.of("real", "imaginary")) {
@@ -533,7 +541,7 @@ class FieldOutputRunTest {
             def attrs(name, d, shape, origin):
                 a = d.attrs
                 check(d.shape == shape, '%s shape %s, expected %s' % (name, d.shape, shape))
-                check('unit' in a and text(a['unit']).startswith('V/m') or name.startswith(('relative_permittivity', 'material')),
+                check('unit' in a and text(a['unit']).startswith(('V/m', 'V*s/m')) or name.startswith(('relative_permittivity', 'material')),
                       '%s unit %r' % (name, a.get('unit')))
                 check('cell_size_m' in a and close(float(a['cell_size_m']), cell), '%s cell_size_m %r' % (name, a.get('cell_size_m')))
                 check('origin_m' in a and len(a['origin_m']) == 2 and all(close(float(u), v) for u, v in zip(a['origin_m'], origin)),

@@ -72,6 +72,9 @@ class PolarizationBothTest {
         Cli.Outcome o = Cli.run("run", c.toString(), "--set", "polarization=both", "--out", out.toString());
         assertEquals(ExitCode.OK, o.code(), o::toString);
         assertTrue(o.out().contains("unpolarised average"), o::toString);
+        for (Path d : List.of(out, out.resolve("s"), out.resolve("p"))) {
+            assertTrue(Files.isRegularFile(d.resolve("flux.png")), () -> "flux.png in " + d);
+        }
         PlaneWaveRunTest.FluxCsv f = PlaneWaveRunTest.FluxCsv.read(out.resolve("flux.csv"));
         double wl = PlaneWaveRunTest.CENTRE;
         double ts = PlaneWaveRunTest.exactT("s", 45, wl);

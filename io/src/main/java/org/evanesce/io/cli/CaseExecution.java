@@ -16,6 +16,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.evanesce.io.output.hdf5.Xdmf;
 import org.evanesce.io.run.BeamPlots;
+import org.evanesce.io.run.FluxPlot;
 import org.evanesce.io.run.Checkpoints;
 import org.evanesce.io.run.FieldOutputs;
 import org.evanesce.io.run.MapOutputs;
@@ -111,6 +112,7 @@ final class CaseExecution {
         FluxResults flux = plan.flux().map(f -> FluxResults.of(f, s.polarization().value())).orElse(null);
         if (flux != null) {
             rf.writeText("flux.csv", flux.csv());
+            FluxPlot.write(flux, s.title().orElse(""), rf.dir());
             FluxPlan f = plan.flux().get();
             BeamPlots.write(f, s.polarization().value(), f.closest(s.sources().get(0).signal().frequency().si()), rf.dir());
         }

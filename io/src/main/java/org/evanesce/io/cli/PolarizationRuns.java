@@ -69,6 +69,7 @@ final class PolarizationRuns {
         if (fs.flux() != null && fp.flux() != null) {
             averaged = PolarizationAverage.average(fs.flux(), fp.flux());
             rf.writeText("flux.csv", PolarizationAverage.csv(fs.flux(), fp.flux()));
+            org.evanesce.io.run.FluxPlot.write(averaged, s.plan().spec().title().orElse("") + " (unpolarised)", rf.dir());
         }
         Path sSummary = rf.dir().resolve(S).resolve("summary.json");
         if (Files.isRegularFile(sSummary)) {

@@ -95,7 +95,7 @@ public final class RunCommand implements Callable<Integer> {
                 if (!warnings.isEmpty()) {
                     spec.commandLine().getErr().printf(java.util.Locale.ROOT, "evanesce run: warning: %s%s (printed above, and "
                             + "in run.json%s)%n", Boolean.FALSE.equals(settled) ? "the results did not settle"
-                            : "the results look implausible", warnings.size() > 1 ? " and " + (warnings.size() - 1)
+                            : "some results are doubtful", warnings.size() > 1 ? " and " + (warnings.size() - 1)
                             + " more warning(s)" : "", flux ? " and summary.json" : "");
                 }
                 o.println("Caution: " + RunOutputs.CAUTION);

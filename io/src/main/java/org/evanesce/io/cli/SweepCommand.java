@@ -175,10 +175,6 @@ public final class SweepCommand implements Callable<Integer> {
             seen.add(d.path() + ": " + d.message());
         }
 
-        if (runs) {
-            // the kernels compile meanwhile, instead of before the first point's run
-            org.evanesce.io.run.JitWarmUp.start(base.polarization().value(), base.numerics().precision().value());
-        }
         // every point is read before anything runs (on the threads the sweep may use; printed in point order)
         List<SweepPoint> points = SweepPoint.expand(sweep);
         int prepThreads = preparationThreads(base);
@@ -499,7 +495,8 @@ public final class SweepCommand implements Callable<Integer> {
                       String title, PrintWriter o, PrintWriter err, boolean report) throws IOException {
         SweepMerge.Result m = SweepMerge.write(folder, points, kinds, title);
         o.printf(Locale.ROOT, "merged %d of %d points into %s%s%n", m.finished(), points.size(),
-                folder.dir().resolve(SweepFolder.CSV), m.png() ? " and " + SweepFolder.PNG : "");
+                folder.dir().resolve(SweepFolder.CSV), !m.png() ? "" : " and " + SweepFolder.PNG
+                + (java.nio.file.Files.exists(folder.dir().resolve(SweepFolder.LOG_PNG)) ? ", " + SweepFolder.LOG_PNG : ""));
         if (sample == null) {
             SweepExtrema.Written x = SweepExtrema.write(folder, m.csv(), points.isEmpty() ? List.of()
                     : points.get(0).point().names(), kinds);

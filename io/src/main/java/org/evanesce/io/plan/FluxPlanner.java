@@ -332,8 +332,47 @@ final class FluxPlanner {
         }
         LayeredProfile.Direction dir = up ? LayeredProfile.Direction.UP : LayeredProfile.Direction.DOWN;
         double firstInterface = up ? first.yHigh() : first.yLow();
+        double differsAt = w instanceof SourceSpec.GaussianBeamSource b
+                ? stackDiffersAt(spec, bands, column, b.waist().si() / Math.cos(b.angle().si()), yLow, yHigh, dx) : Double.NaN;
         return Optional.of(new FluxPlan.Exact(wl -> LayeredProfile.stack(bands, spec.materials(), wl, dir, dt), firstInterface,
-                column));
+                column, differsAt));
+    }
+
+    /** Verticals compared on each side of the column. */
+    private static final int VERTICALS_PER_SIDE = 8;
+
+    /**
+     * The x nearest {@code column} within ±{@link FluxPlan.Exact#FOOTPRINTS_CHECKED} footprints where the layers differ from
+     * {@code bands} (another sequence of materials, or an interface more than half a cell away), or NaN. The outer
+     * edges of the first and last bands are not compared (they lie behind the source or beyond the lines).
+     */
+    static double stackDiffersAt(CaseSpec spec, List<LayeredProfile.Band> bands, double column, double footprint,
+                                 double yLow, double yHigh, double dx) {
+        for (int n = 1; n <= VERTICALS_PER_SIDE; n++) {
+            for (int side : new int[] {-1, 1}) {
+                double x = column + side * FluxPlan.Exact.FOOTPRINTS_CHECKED * footprint * n / VERTICALS_PER_SIDE;
+                List<LayeredProfile.Band> other = LayeredProfile.bandsAt(spec, x, yLow, yHigh, dx);
+                if (!sameLayers(bands, other, 0.5 * dx)) {
+                    return x;
+                }
+            }
+        }
+        return Double.NaN;
+    }
+
+    private static boolean sameLayers(List<LayeredProfile.Band> a, List<LayeredProfile.Band> b, double slack) {
+        if (a.size() != b.size()) {
+            return false;
+        }
+        for (int k = 0; k < a.size(); k++) {
+            if (!a.get(k).material().equals(b.get(k).material())) {
+                return false;
+            }
+            if (k > 0 && Math.abs(a.get(k).yLow() - b.get(k).yLow()) > slack) {
+                return false;
+            }
+        }
+        return true;
     }
 
     /**

@@ -2,9 +2,8 @@ package org.evanesce.io.run;
 
 import java.io.IOException;
 import java.nio.file.Path;
-import java.util.ArrayList;
-import java.util.List;
 import java.util.Locale;
+import org.evanesce.geometry.Complex;
 import org.evanesce.io.casefile.model.FluxSpec;
 import org.evanesce.io.output.image.LinePlot;
 import org.evanesce.io.plan.FluxPlan;
@@ -14,15 +13,22 @@ import org.evanesce.solver.reference.AngularSpectrum;
 import org.evanesce.solver.reference.PlanarStack;
 
 /**
- * The beam profiles of a beam case as PNG plots, one per flux line: the simulated flux density
- * across the line (the scattered part for a reflected line), each normalised to its peak, and,
- * with a reference, the angular-spectrum profile of the same beam through the stack under it,
- * carried from the interface to the line along the specular (reflected lines) or refracted
- * (transmitted lines) direction: a geometric move for the eye, without the diffraction over that
- * distance. Lines that see less than {@link FluxResults#MIN_BEAM_POWER} of the incident power are not
- * drawn. {@code beam-incident.png} shows the incident beam on the incident-power run's incident line.
+ * The beam profiles of a beam case as PNG plots, one per flux line: the simulated flux density across the line
+ * (the scattered part for a reflected line) divided by the incident beam's peak flux density on the incident
+ * line of the incident-power run, so that a loss shows. With a reference, the angular-spectrum profile of the
+ * same beam through the stack under it, divided by its own incident beam's peak on the first interface (|U|²
+ * times, on a transmitted line, the exit medium's Re Q over the incidence medium's at the beam's central angle),
+ * carried from the interface to the line along the specular (reflected lines) or refracted (transmitted lines)
+ * direction: a geometric move for the eye, without the diffraction over that distance; and their difference,
+ * simulated − reference. The x range is the beam's centroid ± {@link BeamSeries#HALF_WIDTHS} of its 1/e²
+ * half-widths on that line, clipped to the line ({@link BeamSeries}). Lines that see less than
+ * {@link FluxResults#MIN_BEAM_POWER} of the incident power are not drawn. {@code beam-incident.png} shows the
+ * incident beam on the incident-power run's incident line, on the same scale (peak 1).
  */
 public final class BeamPlots {
+
+    /** The y axis title: every curve is divided by the incident beam's peak flux density on the incident line. */
+    static final String Y_TITLE = "flux density / incident beam's peak";
 
     private BeamPlots() {
     }
@@ -46,90 +52,98 @@ public final class BeamPlots {
         }
         int written = 0;
         double incident = Math.abs(plan.incident().flux(q, dx));
+        BeamProfile in = BeamProfile.of(plan.incident(), q, dx, plan.gridX0());
+        double incidentPeak = peak(in.weight());
+        double refIncidentPeak = 0;
+        if (as != null) {
+            double[] u = as.incident();
+            for (int j = 0; j < as.samples(); j++) {
+                refIncidentPeak = Math.max(refIncidentPeak, u[2 * j] * u[2 * j] + u[2 * j + 1] * u[2 * j + 1]);
+            }
+        }
         for (FluxPlan.Line l : plan.lines()) {
             boolean t = l.spec().measures().value() == FluxSpec.Measure.TRANSMITTED;
             BeamProfile p = BeamProfile.of(l.run(), t ? null : l.reference(), q, dx, plan.gridX0());
-            if (!(Math.abs(p.total()) > FluxResults.MIN_BEAM_POWER * incident)) {
+            if (!(Math.abs(p.total()) > FluxResults.MIN_BEAM_POWER * incident) || !(incidentPeak > 0)) {
                 continue; // next to no power crosses this line (an evanescent tail): no beam to draw
             }
-            double[] x = p.x().clone();
-            double[] y = normalised(p.weight());
-            for (int k = 0; k < x.length; k++) {
-                x[k] *= 1e6;
-            }
-            String name = l.spec().name().value();
-            LinePlot.Builder b = LinePlot.builder()
-                    .title(String.format(Locale.ROOT, "%s line '%s' at y = %.4g um, %.1f nm", t ? "transmitted" : "reflected",
-                            name, l.y() * 1e6, wl * 1e9))
-                    .xTitle("x (um)").yTitle("flux density (peak = 1)")
-                    .series("simulated", x, y, LinePlot.Style.LINES);
-            if (as != null) {
+            double[] refX = null;
+            double[] refY = null;
+            if (as != null && refIncidentPeak > 0) {
                 double interfaceY = plan.exact().get().firstInterface();
                 double hit = BeamReference.specular(plan, interfaceY);
                 double shift;
                 double[] u;
+                double admittanceRatio = 1; // the flux density per |U|^2 on the line over that in the incidence medium
                 if (t) {
                     // the transmitted profile on the last interface, carried to the line along the refracted axis
                     PlanarStack stack = plan.exact().get().stack().apply(wl);
-                    double sinT = plan.mediumIndex() * Math.sin(plan.angle(q)) / stack.exitIndex().re();
+                    double sinI = plan.mediumIndex() * Math.sin(plan.angle(q));
+                    double sinT = sinI / stack.exitIndex().re();
                     double thickness = stack.layers().stream().mapToDouble(PlanarStack.Layer::thickness).sum();
                     double lastInterface = interfaceY + plan.direction() * thickness;
                     shift = Math.abs(sinT) < 1 ? Math.abs(l.y() - lastInterface) * sinT / Math.sqrt(1 - sinT * sinT) : Double.NaN;
                     u = as.transmitted();
+                    admittanceRatio = admittance(pol, stack.exitIndex(), sinI).re()
+                            / admittance(pol, Complex.real(plan.mediumIndex()), sinI).re();
                 } else {
                     // the reflected profile on the interface, moved to the line along the specular direction
                     shift = BeamReference.specular(plan, l.y()) - hit;
                     u = as.reflected();
                 }
-                if (Double.isFinite(shift)) {
-                    // only the part over the plotted line: a converged window may be millimetres wide
-                    double[] all = new double[as.samples()];
-                    double peak = 0;
-                    for (int j = 0; j < all.length; j++) {
-                        all[j] = u[2 * j] * u[2 * j] + u[2 * j + 1] * u[2 * j + 1];
-                        peak = Math.max(peak, all[j]);
-                    }
-                    List<double[]> kept = new ArrayList<>();
-                    for (int j = 0; j < all.length; j++) {
-                        double xj = (hit + shift + as.x(j)) * 1e6;
-                        if (xj >= x[0] && xj <= x[x.length - 1]) {
-                            kept.add(new double[] {xj, peak > 0 ? all[j] / peak : 0});
-                        }
-                    }
-                    double[] rx = kept.stream().mapToDouble(p2 -> p2[0]).toArray();
-                    double[] ry = kept.stream().mapToDouble(p2 -> p2[1]).toArray();
-                    if (rx.length > 1) {
-                        b.series("angular spectrum (no edges)", rx, ry, LinePlot.Style.LINES);
+                if (Double.isFinite(shift) && Double.isFinite(admittanceRatio)) {
+                    refX = new double[as.samples()];
+                    refY = new double[as.samples()];
+                    for (int j = 0; j < refX.length; j++) {
+                        refX[j] = hit + shift + as.x(j);
+                        refY[j] = admittanceRatio * (u[2 * j] * u[2 * j] + u[2 * j + 1] * u[2 * j + 1]) / refIncidentPeak;
                     }
                 }
             }
-            double span = x[x.length - 1] - x[0];
-            b.xRange(x[0], x[0] + span);
+            BeamSeries s = BeamSeries.of(p.x(), p.weight(), incidentPeak, p.centroid(), p.width(), refX, refY);
+            String name = l.spec().name().value();
+            LinePlot.Builder b = LinePlot.builder()
+                    .title(String.format(Locale.ROOT, "%s line '%s' at y = %.4g um, %.1f nm", t ? "transmitted" : "reflected",
+                            name, l.y() * 1e6, wl * 1e9))
+                    .xTitle("x (um)").yTitle(Y_TITLE)
+                    .series("simulated", s.x(), s.simulated(), LinePlot.Style.LINES);
+            if (s.referenceX().length > 1) {
+                b.series("angular spectrum (no edges)", s.referenceX(), s.reference(), LinePlot.Style.LINES);
+            }
+            if (s.differenceX().length > 1) {
+                b.series("simulated - angular spectrum", s.differenceX(), s.difference(), LinePlot.Style.LINES);
+            }
+            b.xRange(s.low(), s.high());
             b.build().writePng(dir.resolve("beam-" + name + ".png"));
             written++;
         }
-        BeamProfile in = BeamProfile.of(plan.incident(), q, dx, plan.gridX0());
-        double[] ix = in.x().clone();
-        for (int k = 0; k < ix.length; k++) {
-            ix[k] *= 1e6;
+        if (!(incidentPeak > 0)) {
+            return written;
         }
-        LinePlot.builder().title(String.format(Locale.ROOT, "incident beam at y = %.4g um (incident-power run), %.1f nm",
+        BeamSeries s = BeamSeries.of(in.x(), in.weight(), incidentPeak, in.centroid(), in.width(), null, null);
+        LinePlot.builder().title(String.format(Locale.ROOT, "incident beam on the incident line, y = %.4g um, %.1f nm",
                         plan.incidentY() * 1e6, wl * 1e9))
-                .xTitle("x (um)").yTitle("flux density (peak = 1)")
-                .series("simulated", ix, normalised(in.weight()), LinePlot.Style.LINES)
-                .xRange(ix[0], ix[ix.length - 1]).build().writePng(dir.resolve("beam-incident.png"));
+                .xTitle("x (um)").yTitle(Y_TITLE)
+                .series("simulated", s.x(), s.simulated(), LinePlot.Style.LINES)
+                .xRange(s.low(), s.high()).build().writePng(dir.resolve("beam-incident.png"));
         return written + 1;
     }
 
-    private static double[] normalised(double[] v) {
+    /** The largest |v|. */
+    static double peak(double[] v) {
         double peak = 0;
         for (double a : v) {
             peak = Math.max(peak, Math.abs(a));
         }
-        double[] out = new double[v.length];
-        for (int k = 0; k < v.length; k++) {
-            out[k] = peak > 0 ? Math.abs(v[k]) / peak : 0;
-        }
-        return out;
+        return peak;
+    }
+
+    /**
+     * The stack's admittance Q of a plane wave with n1 sin θ = {@code sinI} in a medium of index n: kz/k0 for s,
+     * kz/(k0 n²) for p (the flux density per |U|² is proportional to Re Q; see {@link AngularSpectrum}).
+     */
+    static Complex admittance(Polarization pol, Complex n, double sinI) {
+        Complex kz = n.square().minus(sinI * sinI).sqrtUpper();
+        return pol == Polarization.S ? kz : kz.divide(n.square());
     }
 }

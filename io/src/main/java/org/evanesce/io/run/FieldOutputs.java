@@ -39,6 +39,17 @@ public final class FieldOutputs {
         return c.electric ? "V/m" : "V/m (eta0*H)";
     }
 
+    /**
+     * The unit of a component's Fourier transform X(f) = Σ F(t) e^{i2πft} Δt: the field's unit times seconds,
+     * V·s/m for E and for the stored η0·H (H itself would be in A·s/m); ASCII, like the other attributes.
+     */
+    static String transformUnit(Component c) {
+        return c.electric ? TRANSFORM_UNIT : TRANSFORM_UNIT + " (eta0*H)";
+    }
+
+    /** The unit of a transformed electric field (and of |E| of the transforms): volt seconds per metre. */
+    static final String TRANSFORM_UNIT = "V*s/m";
+
     /** "Ez", "Hx", ...: the component as pictures and titles write it. */
     static String name(Component c) {
         String n = c.name().toLowerCase(Locale.ROOT);

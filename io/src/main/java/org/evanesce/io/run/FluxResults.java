@@ -184,8 +184,20 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
             }
             rows.add(new Row(plan.frequencies()[q], wl, Math.toDegrees(plan.angle(q)), incidentValue, v));
         }
+        if (exact && beam && !Double.isNaN(plan.exact().get().differsAt())) {
+            warnings.add(stackDiffers(plan.exact().get()));
+        }
         return new FluxResults(List.copyOf(columns), List.copyOf(rows),
                 plan.continuous() ? Incident.POWER : Incident.SPECTRAL_ENERGY, List.copyOf(warnings));
+    }
+
+    /** The warning for a beam whose layers change within its footprint (see {@link FluxPlan.Exact#differsAt}). */
+    static String stackDiffers(FluxPlan.Exact e) {
+        return String.format(java.util.Locale.ROOT, "the layers under the beam change within %.0f footprints of its axis "
+                + "(at x = %.4g um they are not those at x = %.4g um, where the axis meets the first interface): the "
+                + "plane-wave and beam references (the _plane_wave, _beam and _diff columns, shift_*_beam_um) describe "
+                + "the stack at x = %.4g um alone and are doubtful as the answer for this scene",
+                FluxPlan.Exact.FOOTPRINTS_CHECKED, e.differsAt() * 1e6, e.column() * 1e6, e.column() * 1e6);
     }
 
     /** Zero padding of a line's field before its plane-wave spectrum is taken: a finer kx grid for the mean. */
@@ -277,6 +289,8 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
                 conv.put("shift_tolerance_footprints", BeamReference.SHIFT_TOLERANCE_FOOTPRINTS);
                 conv.put("largest_sampling", BeamReference.MAX_SAMPLES);
                 m.put("beam_reference_convergence", conv);
+                double differs = plan.exact().get().differsAt();
+                m.put("beam_reference_stack_differs_at_x_m", Double.isNaN(differs) ? null : differs);
             }
         } else {
             wave.put("in_plane_wavenumber_rad_per_m", plan.kx());

@@ -113,7 +113,7 @@ public final class MapOutputs {
                     }
                 }
                 if (c == (pol == Polarization.S ? Component.EZ : Component.HZ)) {
-                    FieldPicture.of(re, r, FieldOutputs.name(c), FieldOutputs.unit(c) + " s", FieldPicture.Quantity.REAL)
+                    FieldPicture.of(re, r, FieldOutputs.name(c), FieldOutputs.transformUnit(c), FieldPicture.Quantity.REAL)
                             .outlines(ids).title(String.format(Locale.ROOT, "Re %s at %.2f nm", FieldOutputs.name(c), wl * 1e9))
                             .writePng(dir.resolve("map-" + c.name().toLowerCase(Locale.ROOT) + "-" + tag + ".png"));
                 }
@@ -123,7 +123,7 @@ public final class MapOutputs {
                 mag[k] = Math.sqrt(e2[k]);
             }
             magnitudes.add(mag);
-            FieldPicture.of(mag, r, "E", "V/m s", FieldPicture.Quantity.MAGNITUDE).outlines(ids).logScale(decades)
+            FieldPicture.of(mag, r, "E", FieldOutputs.TRANSFORM_UNIT, FieldPicture.Quantity.MAGNITUDE).outlines(ids).logScale(decades)
                     .title(String.format(Locale.ROOT, "|E| at %.2f nm, log scale", wl * 1e9))
                     .writePng(dir.resolve("map-E-" + tag + "-log.png"));
             for (MapsSpec.DecayLine line : maps.spec().decay()) {
@@ -142,14 +142,14 @@ public final class MapOutputs {
             Component c = comps.get(ci);
             for (boolean isReal : new boolean[] {true, false}) {
                 String part = isReal ? "real" : "imaginary";
-                Map<String, Object> a = stackAttributes(plan, r, c, "Fourier transform, " + part + " part", FieldOutputs.unit(c) + " s");
+                Map<String, Object> a = stackAttributes(plan, r, c, "Fourier transform, " + part + " part", FieldOutputs.transformUnit(c));
                 a.put("part", part);
                 stacks.add(new FieldStack(partName(c, isReal), isReal ? real.get(ci) : imag.get(ci), r.nx(), r.ny(),
                         Precision.FLOAT, a));
             }
         }
         stacks.add(new FieldStack(MAGNITUDE, magnitudes, r.nx(), r.ny(), Precision.FLOAT, stackAttributes(plan, r,
-                pol == Polarization.S ? Component.EZ : Component.EX, "magnitude of the transformed electric field |E|", "V/m s")));
+                pol == Polarization.S ? Component.EZ : Component.EX, "magnitude of the transformed electric field |E|", FieldOutputs.TRANSFORM_UNIT)));
         sets.addAll(stacks);
         // the permittivity beside the maps, once for all wavelengths
         List<FieldDataset> permittivity = FieldOutputs.permittivity(plan, box, "relative permittivity on the grid");

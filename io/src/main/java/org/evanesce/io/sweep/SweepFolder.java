@@ -30,6 +30,8 @@ public final class SweepFolder {
     public static final String RECORD = "sweep.json";
     public static final String CSV = "sweep.csv";
     public static final String PNG = "sweep.png";
+    /** T on a log axis, written beside sweep.png when T spans more than a decade ({@link SweepPlot}). */
+    public static final String LOG_PNG = "sweep-log.png";
     public static final String SLURM = "sweep.slurm";
     public static final String POINT_RECORD = "point.json";
     /** A sample sweep's statistics ({@link SampleSummary}). */
@@ -37,7 +39,7 @@ public final class SweepFolder {
 
     /** A point's folder: {@code point-0003}. */
     private static final Pattern POINT = Pattern.compile("point-(\\d{4,9})");
-    private static final Set<String> SWEEP_FILES = Set.of(RECORD, CSV, PNG, SLURM, SAMPLE, SweepExtrema.EXTREMA,
+    private static final Set<String> SWEEP_FILES = Set.of(RECORD, CSV, PNG, LOG_PNG, SLURM, SAMPLE, SweepExtrema.EXTREMA,
             SweepExtrema.SENSITIVITY);
 
     private final Path dir;

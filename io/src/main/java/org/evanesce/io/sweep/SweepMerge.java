@@ -1,6 +1,5 @@
 package org.evanesce.io.sweep;
 
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -12,12 +11,10 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.TreeMap;
-import javax.imageio.ImageIO;
 import org.evanesce.io.casefile.expr.Dimension;
-import org.evanesce.io.output.image.LinePlot;
 
 /**
- * Gathers the finished points of a sweep into {@code sweep.csv} and {@code sweep.png}. A point counts
+ * Gathers the finished points of a sweep into {@code sweep.csv} and {@code sweep.png} ({@link SweepPlot}). A point counts
  * when its folder holds a finished run with the point hash expected now; the others are listed as
  * missing. Values are copied as the point's own files print them (flux.csv), or printed with fixed
  * formats, and rows come in point order, so merging the same finished points always gives the same
@@ -58,9 +55,12 @@ public final class SweepMerge {
         }
     }
 
-    /** One finished point's results, read from its folder; {@code settled} as run.json has it ("" when not judged). */
-    private record Found(Point point, List<String> fluxHeader, List<String[]> fluxRows, List<String> fluxLines,
-                         Map<String, Double[]> decays, String steps, double wall, String reason, String settled) { }
+    /**
+     * One finished point's results, read from its folder; {@code settled} as run.json has it ("" when not judged),
+     * {@code design} its design wavelength in m (run.json's resolved case; NaN when absent).
+     */
+    record Found(Point point, List<String> fluxHeader, List<String[]> fluxRows, List<String> fluxLines,
+                 Map<String, Double[]> decays, String steps, double wall, String reason, String settled, double design) { }
 
     private SweepMerge() {
     }
@@ -92,9 +92,15 @@ public final class SweepMerge {
         }
         String csv = csv(points.isEmpty() ? List.of() : points.get(0).point().names(), found);
         folder.write(SweepFolder.CSV, csv.getBytes(StandardCharsets.UTF_8));
-        byte[] png = png(found, kinds, title);
+        SweepPlot plot = SweepPlot.of(found, kinds, title);
+        byte[] png = plot == null ? null : SweepPlot.png(plot.linear());
         if (png != null) {
             folder.write(SweepFolder.PNG, png);
+        }
+        if (plot != null && plot.log() != null) {
+            folder.write(SweepFolder.LOG_PNG, SweepPlot.png(plot.log()));
+        } else if (png != null) {
+            Files.deleteIfExists(folder.dir().resolve(SweepFolder.LOG_PNG)); // an earlier merge's, beside a new sweep.png
         }
         List<Integer> unsettled = found.stream().filter(f -> f.settled().equals("false")).map(f -> f.point().point().number())
                 .toList();
@@ -146,6 +152,10 @@ public final class SweepMerge {
         double wall = Double.NaN;
         String reason = "";
         String settled = "";
+        double design = Double.NaN;
+        if (run instanceof Map<?, ?> r && r.get("resolved_case") instanceof Map<?, ?> rc) {
+            design = number(rc.get("design_wavelength_m"));
+        }
         if (run instanceof Map<?, ?> r && r.get("run") instanceof Map<?, ?> rr) {
             steps = String.valueOf(rr.get("steps"));
             wall = number(rr.get("wall_time_s"));
@@ -156,7 +166,7 @@ public final class SweepMerge {
         } else {
             throw new NoSuchFileException(dir.resolve("run.json") + " has no run section");
         }
-        return new Found(p, header, rows, fluxLines, decays, steps, wall, reason, settled);
+        return new Found(p, header, rows, fluxLines, decays, steps, wall, reason, settled, design);
     }
 
     private static double number(Object o) {
@@ -230,116 +240,6 @@ public final class SweepMerge {
             return s;
         }
         return '"' + s.replace("\"", "\"\"") + '"';
-    }
-
-    /**
-     * The main results against the first swept parameter: the flux values (T and R of each line, A)
-     * at the first frequency, else the decay lengths at the first wavelength; one series per value
-     * and combination of the other parameters. Null when there is nothing to plot.
-     */
-    private static byte[] png(List<Found> found, List<Dimension> kinds, String title) throws IOException {
-        if (found.isEmpty()) {
-            return null;
-        }
-        Found first = found.get(0);
-        List<String> columns = new ArrayList<>();
-        String yTitle;
-        String at;
-        if (!first.fluxHeader().isEmpty()) {
-            columns.addAll(first.fluxLines());
-            if (first.fluxHeader().contains("A")) {
-                columns.add("A");
-            }
-            int wl = first.fluxHeader().indexOf("wavelength_nm");
-            at = String.join(", ", columns) + " at " + (wl >= 0 && !first.fluxRows().isEmpty()
-                    ? plain(first.fluxRows().get(0)[wl]) + " nm" : "the first frequency");
-            yTitle = first.fluxHeader().contains("A") || first.fluxLines().stream().anyMatch(c -> c.startsWith("T_")
-                    || c.startsWith("R_")) ? "flux / incident power" : "surface power (see summary.json)";
-        } else if (!first.decays().isEmpty()) {
-            columns.addAll(first.decays().keySet());
-            at = "decay lengths";
-            yTitle = "decay length (nm)";
-        } else {
-            return null;
-        }
-        // along the first numeric parameter (the polarization, s, p or both, is none)
-        int xi = 0;
-        while (xi < kinds.size() && !Double.isFinite(first.point().si()[xi])) {
-            xi++;
-        }
-        if (xi == kinds.size()) {
-            return null;
-        }
-        final int x0 = xi;
-        String xName = first.point().point().names().get(xi);
-        double max = 0;
-        for (Found f : found) {
-            max = Math.max(max, Math.abs(f.point().si()[xi]));
-        }
-        DisplayUnit unit = DisplayUnit.of(kinds.get(xi), max);
-        // series: per value column, per combination of the other parameters
-        Map<String, List<double[]>> series = new LinkedHashMap<>();
-        for (String c : columns) {
-            Map<String, List<double[]>> groups = new LinkedHashMap<>();
-            for (Found f : found) {
-                double y = value(f, c);
-                String others = others(f.point().point(), x0);
-                groups.computeIfAbsent(c + (others.isEmpty() ? "" : " (" + others + ")"), k -> new ArrayList<>())
-                        .add(new double[] {f.point().si()[x0] / unit.factor(), y});
-            }
-            series.putAll(groups);
-        }
-        LinePlot.Builder b = LinePlot.builder()
-                .title((title == null || title.isBlank() ? "sweep" : title) + ": " + at)
-                .xTitle(xName + (unit.name().isEmpty() ? "" : " (" + unit.name() + ")"))
-                .yTitle(yTitle);
-        for (Map.Entry<String, List<double[]>> e : series.entrySet()) {
-            List<double[]> pts = new ArrayList<>(e.getValue());
-            pts.sort((p, q) -> Double.compare(p[0], q[0]));
-            double[] x = new double[pts.size()];
-            double[] y = new double[pts.size()];
-            for (int k = 0; k < x.length; k++) {
-                x[k] = pts.get(k)[0];
-                y[k] = pts.get(k)[1];
-            }
-            b.series(e.getKey(), x, y);
-        }
-        ByteArrayOutputStream bytes = new ByteArrayOutputStream();
-        ImageIO.write(b.build().render(), "png", bytes);
-        return bytes.toByteArray();
-    }
-
-    /** A number as flux.csv prints it without trailing zeros: 633.000000 becomes 633. */
-    private static String plain(String number) {
-        try {
-            return new java.math.BigDecimal(number).stripTrailingZeros().toPlainString();
-        } catch (NumberFormatException e) {
-            return number;
-        }
-    }
-
-    /** A value column of the point's first flux row, or a decay length in nm. */
-    private static double value(Found f, String column) {
-        if (column.startsWith("decay_") && f.decays().containsKey(column)) {
-            Double v = f.decays().get(column)[0];
-            return v * 1e9;
-        }
-        int at = f.fluxHeader().indexOf(column);
-        if (at < 0 || f.fluxRows().isEmpty() || f.fluxRows().get(0)[at].isEmpty()) {
-            return Double.NaN;
-        }
-        return Double.parseDouble(f.fluxRows().get(0)[at]);
-    }
-
-    private static String others(SweepPoint p, int x) {
-        List<String> parts = new ArrayList<>();
-        for (int k = 0; k < p.names().size(); k++) {
-            if (k == x) {
-                continue;
-            }
-            parts.add(p.names().get(k) + "=" + p.texts().get(k));
-        }
-        return String.join(", ", parts);
     }
 
     /** The unit a parameter is plotted in: lengths, times and frequencies with a prefix that suits the values. */
