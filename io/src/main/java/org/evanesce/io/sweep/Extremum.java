@@ -27,7 +27,11 @@ final class Extremum {
      *                  of the range, or a flat curve)
      * @param complete  whether both sides crossed the half-depth level within the range
      */
-    record Found(double x, double value, boolean bracketed, double width, boolean complete) { }
+    record Found(double x, double value, boolean bracketed, double width, boolean complete, double depth) {
+        Found(double x, double value, boolean bracketed, double width, boolean complete) {
+            this(x, value, bracketed, width, complete, Double.NaN);
+        }
+    }
 
     private Extremum() {
     }
@@ -46,7 +50,7 @@ final class Extremum {
         double half = 0.5 * (baseline + v[1]);
         if (!bracketed || !(y[i] < half)) {
             // not a dip: a minimum at an end of the range, or a flat curve, has no width
-            return new Found(v[0], v[1], bracketed, Double.NaN, false);
+            return new Found(v[0], v[1], bracketed, Double.NaN, false, baseline - v[1]);
         }
         boolean complete = true;
         int k = i;
@@ -72,7 +76,7 @@ final class Extremum {
         } else {
             right = cross(x[k], y[k], x[k + 1], y[k + 1], half);
         }
-        return new Found(v[0], v[1], bracketed, right - left, complete);
+        return new Found(v[0], v[1], bracketed, right - left, complete, baseline - v[1]);
     }
 
     /** The maximum of y over strictly increasing x (3 samples or more); no width. */
