@@ -82,7 +82,7 @@ public abstract class Engine {
      * Vector code runs very slowly until the JIT has compiled it (a few hundred milliseconds of
      * CPU and as much garbage as the grid), while scalar loops compile at once; below this much
      * work a run is faster scalar. Measured on 2-core x86 (whole commands, paired): scalar took
-     * 0.73–0.85× the CPU time and half the peak memory on runs of 2e7–6e7 cell updates, and 1.11×
+     * 0.73–0.85× the CPU time and about 0.6× the peak memory on runs of 2e7–6e7 cell updates, and 1.11×
      * on 5.7e8 (docs/architecture.md). Developers may override it with
      * {@code -Devanesce.vectorAfter=N} (0: vectors from the first step).
      */
