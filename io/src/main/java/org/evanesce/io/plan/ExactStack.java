@@ -58,7 +58,7 @@ public record ExactStack(java.util.function.DoubleFunction<PlanarStack> stack, P
         GridSpec grid = r.solverGrid(periodic);
         int[] interior = {r.pmlCells(Side.LEFT), r.pmlCells(Side.BOTTOM), grid.nx() - r.pmlCells(Side.RIGHT),
             grid.ny() - r.pmlCells(Side.TOP)};
-        Optional<FluxPlan.Exact> exact = FluxPlanner.transferMatrix(spec, grid, w, interior, errors, 0);
+        Optional<FluxPlan.Exact> exact = FluxPlanner.transferMatrix(spec, grid, w, interior, errors, 0, false);
         if (exact.isEmpty() || !errors.isEmpty()) {
             throw new PlanException(errors);
         }

@@ -105,7 +105,7 @@ public record FluxPlan(double[] frequencies, double kx, String medium, double me
      * @param differsAt      for a beam, the x nearest the column within its footprint (±{@link
      *                       #FOOTPRINTS_CHECKED} footprints) where the layers are not those of the column,
      *                       so the references describe the column's stack alone; NaN where they are the same (and
-     *                       for a plane wave, whose scene is layered)
+     *                       for a plane wave, whose scene is layered, and where the stack alone was asked for)
      */
     public record Exact(DoubleFunction<PlanarStack> stack, double firstInterface, double column, double differsAt) {
         /**

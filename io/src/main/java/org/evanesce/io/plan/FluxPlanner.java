@@ -95,7 +95,7 @@ final class FluxPlanner {
         Optional<FluxPlan.Steady> check = steady == null ? Optional.empty() : Optional.of(new FluxPlan.Steady(steady,
                 runHalves, referenceHalves, reference.halves(steady, incident, freqs, pol)));
         Optional<FluxPlan.Exact> exact = f.transferMatrix().value()
-                ? transferMatrix(spec, grid, w, interior, errors, dt) : Optional.empty();
+                ? transferMatrix(spec, grid, w, interior, errors, dt, true) : Optional.empty();
         Optional<SourceSpec.GaussianBeamSource> beam = w instanceof SourceSpec.GaussianBeamSource b
                 ? Optional.of(b) : Optional.empty();
         Optional<FluxPlan.Path> path = Optional.empty();
@@ -282,7 +282,7 @@ final class FluxPlanner {
      */
     static Optional<FluxPlan.Exact> transferMatrix(CaseSpec spec, GridSpec grid, SourceSpec.Launched w,
                                                           int[] interior, List<Diagnostic> errors,
-                                                          double dt) {
+                                                          double dt, boolean checkFootprint) {
         FluxSpec f = spec.flux().orElse(null);
         double dx = grid.cellSize();
         double yLow = grid.y0() + interior[1] * dx;
@@ -332,7 +332,8 @@ final class FluxPlanner {
         }
         LayeredProfile.Direction dir = up ? LayeredProfile.Direction.UP : LayeredProfile.Direction.DOWN;
         double firstInterface = up ? first.yHigh() : first.yLow();
-        double differsAt = w instanceof SourceSpec.GaussianBeamSource b
+        // only a run reports the check (FluxResults); fits and tolerance studies read the stack thousands of times
+        double differsAt = checkFootprint && w instanceof SourceSpec.GaussianBeamSource b
                 ? stackDiffersAt(spec, bands, column, b.waist().si() / Math.cos(b.angle().si()), yLow, yHigh, dx) : Double.NaN;
         return Optional.of(new FluxPlan.Exact(wl -> LayeredProfile.stack(bands, spec.materials(), wl, dir, dt), firstInterface,
                 column, differsAt));
