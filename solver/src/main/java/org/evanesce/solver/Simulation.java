@@ -557,15 +557,6 @@ public final class Simulation implements StepView, AutoCloseable {
         return Engine.VECTOR_AFTER;
     }
 
-    /**
-     * The kernels run their vector parts from now on rather than after the run's first
-     * {@link Engine#VECTOR_AFTER} cell updates (same bits either way): for a timed trial of a
-     * long run's rate.
-     */
-    public void vectorsNow() {
-        engine.vectorAfter(0);
-    }
-
     @Override
     public void close() {
         team.close();
@@ -706,7 +697,7 @@ public final class Simulation implements StepView, AutoCloseable {
         /**
          * The kernels run their vector parts from the first step, rather than their scalar parts for
          * the run's first cell updates (see Engine.VECTOR_AFTER; same bits either way): for
-         * benchmarks of the steady rate.
+         * benchmarks of the steady rate and timed trials of long runs.
          */
         public Builder vectorsFromStart() {
             vectorsFromStart = true;

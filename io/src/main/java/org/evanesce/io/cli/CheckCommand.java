@@ -60,14 +60,17 @@ public final class CheckCommand implements Callable<Integer> {
         o.printf(Locale.ROOT, "memory: about %s in all (%s); the JVM may use %s%n",
                 MemoryEstimate.format(plan.memory().total()), plan.memory().breakdown(),
                 MemoryEstimate.format(Runtime.getRuntime().maxMemory()));
+        boolean timeVectors = trialSeconds > 0 && JitWarmUp.needed(plan);
+        if (timeVectors) {
+            // the run will spend nearly all its steps in the kernels' vector parts: time those
+            plan.builder().vectorsFromStart();
+        }
         try (Simulation sim = CaseRunner.build(plan)) {
             o.printf(Locale.ROOT, "solver: %.1f MiB of field, coefficient and PML arrays (%d bytes per cell), %d thread%s%n",
                     sim.bytes() / 1048576.0, sim.bytesPerCell(), sim.threads(), sim.threads() == 1 ? "" : "s");
             if (trialSeconds > 0) {
-                if (JitWarmUp.needed(plan)) {
-                    // the run will spend nearly all its steps in the kernels' vector parts: time those
+                if (timeVectors) {
                     JitWarmUp.run(plan.spec().polarization().value(), plan.spec().numerics().precision().value());
-                    sim.vectorsNow();
                 }
                 long t0 = System.nanoTime();
                 long steps = 0;
@@ -78,14 +81,17 @@ public final class CheckCommand implements Callable<Integer> {
                 double sec = (System.nanoTime() - t0) * 1e-9;
                 double rate = steps / sec;
                 // a flux case runs an incident-power run of the same grid for as many steps (a plane wave's: a strip
-                // of a few columns, counted at its share of the cells)
+                // of a few columns, counted at its share of the cells), unless the incident power is computed (a pulsed
+                // beam: no stepping)
                 var strip = plan.flux().flatMap(f -> f.strip());
-                double runs = plan.flux().isEmpty() ? 1 : 1 + (strip.isPresent()
+                boolean computed = plan.flux().flatMap(f -> f.computed()).isPresent();
+                double runs = plan.flux().isEmpty() || computed ? 1 : 1 + (strip.isPresent()
                         ? (double) strip.get().columns() / plan.grid().nx() : 1);
                 o.printf(Locale.ROOT, "trial: %d steps in %.2f s (%.0f Mcell/s); estimated run time "
                         + "%.0f s%s%s%n", steps, sec, rate * cells / 1e6, runs * maxSteps / rate,
                         plan.stop() instanceof CasePlan.Stop.Decay ? " at most" : "",
-                        plan.flux().isEmpty() ? "" : strip.isPresent() ? " (with the incident-power run on a strip)"
+                        plan.flux().isEmpty() ? "" : computed ? " (the incident power computed, not stepped)"
+                                : strip.isPresent() ? " (with the incident-power run on a strip)"
                                 : " (with the incident-power run)");
             }
         }
