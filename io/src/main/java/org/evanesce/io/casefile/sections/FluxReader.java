@@ -132,7 +132,10 @@ final class FluxReader {
                 return null;
             }
             for (long q = 0; q < count; q++) {
-                double x = from.si() + (to.si() - from.si()) * q / (count - 1);
+                // weights, not from + (to - from) t: the ends come out exactly and every value stays between them
+                // (from = 1e20 m, to = 636 nm gave a last wavelength of 0 and an infinite frequency)
+                double t = (double) q / (count - 1);
+                double x = q == count - 1 ? to.si() : from.si() * (1 - t) + to.si() * t;
                 given.add(new Value(x, q == 0 ? from.at() : q == count - 1 ? to.at() : ctx.pos(cn)));
             }
         } else {
