@@ -11,6 +11,7 @@ import java.util.regex.Pattern;
 import org.evanesce.geometry.Complex;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
+import org.evanesce.io.casefile.model.FluxSpec.ReferencePermittivity;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.reference.Evanescent;
 import org.evanesce.solver.reference.PlanarStack;
@@ -34,7 +35,8 @@ import picocli.CommandLine.TypeConversionException;
             "Indices are n (1.5), n+ki (1.5+0.01i) or n,k (0.2,3.4), with k >= 0 for absorption, or a library material "
                     + "by name, evaluated at each wavelength: a metal (gold, gold-jc, silver, aluminium, copper, chromium, "
                     + "titanium) or a dielectric (water, borosilicate_crown, fused_silica, air, vacuum), e.g. --layer gold:50nm; "
-                    + "the table names each one's model and its permittivity. Lengths carry a unit "
+                    + "the table names each one's model and its permittivity (the model's continuous one, or with "
+                    + "--permittivity discrete the one a run's time stepping realises). Lengths carry a unit "
                     + "(nm, um, mm, m). One of --angle, --wavelength or --thickness may be a range FROM:TO:STEP.",
             "Columns: the swept value; per polarization R, T, A and the phases of r and t in degrees (r and t are "
                     + "amplitude ratios of E for s and of H for p; r at the first interface, t from the first interface "
@@ -108,6 +110,28 @@ public final class StackCommand implements Callable<Integer> {
     @Option(names = "--csv", description = "Print CSV (one header row) instead of a table.")
     private boolean csv;
 
+    @Option(names = "--permittivity", paramLabel = "continuous|discrete", converter = StackPermittivity.KindConverter.class,
+            description = "A metal's permittivity: continuous, the model's ε(ω) (default), or discrete, the ε_d(ω, Δt) that "
+                    + "a run's time stepping realises at time step Δt (from --case's grid, --time-step, or --cell and "
+                    + "--courant), as flux.transfer_matrix uses by default; other media are the same either way.")
+    private ReferencePermittivity permittivityKind;
+
+    @Option(names = "--time-step", paramLabel = "DURATION", converter = StackPermittivity.TimeConverter.class,
+            description = "With --permittivity discrete: the run's time step, e.g. 0.00834fs.")
+    private Double timeStep;
+
+    @Option(names = "--cell", paramLabel = "LENGTH", converter = StackPermittivity.CellConverter.class,
+            description = "With --permittivity discrete: the run's cell size, e.g. 5nm; the time step is "
+                    + "courant * cell / c0.")
+    private Double cell;
+
+    @Option(names = "--courant", paramLabel = "S", converter = StackPermittivity.NumberConverter.class,
+            description = "With --cell: the run's Courant number c0 * dt / cell (default 0.5, the program's).")
+    private Double courant;
+
+    /** Which permittivity the metals take, with the discrete one's time step. */
+    private StackPermittivity permittivity;
+
     /** The values of a swept (or single) quantity, in SI (m or rad). */
     record Sweep(String text, List<Double> values) {
         boolean isRange() {
@@ -132,6 +156,11 @@ public final class StackCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         PrintWriter out = spec.commandLine().getOut();
+        try {
+            permittivity = StackPermittivity.ofOptions(permittivityKind, timeStep, cell, courant, caseFile != null);
+        } catch (IllegalArgumentException x) {
+            throw usage(x.getMessage());
+        }
         java.util.function.DoubleFunction<PlanarStack> fromCase = caseFile == null ? null : fromCase(out);
         if (fromCase == null) {
             for (Object[] o : new Object[][] {{incident, "--incident"}, {exit, "--exit"}, {wavelength, "--wavelength"}}) {
@@ -167,6 +196,11 @@ public final class StackCommand implements Callable<Integer> {
                 throw usage("--wavelength " + wavelength.text() + ": " + Units.format(w, Dimension.LENGTH) + " is outside "
                         + "the wavelengths this calculator accepts, 1 pm to 1 km");
             }
+        }
+        try {
+            permittivity.checkNyquist(wavelength.values());
+        } catch (IllegalArgumentException x) {
+            throw usage(x.getMessage());
         }
         if (thickness != null && thickness.layer() > layers.size()) {
             throw usage(String.format(Locale.ROOT, "--thickness %s: there is no layer %d; the stack has %d layer(s) "
@@ -224,6 +258,9 @@ public final class StackCommand implements Callable<Integer> {
         }
         // the library materials' models: above the table, or on standard error beside CSV (which stays plain)
         List<String> models = libraryLines();
+        if (hasMetal() || permittivityKind != null) {
+            models.add(0, permittivity.line(hasMetal()));
+        }
         if (csv) {
             models.forEach(spec.commandLine().getErr()::println);
             out.println(String.join(",", head));
@@ -245,8 +282,11 @@ public final class StackCommand implements Callable<Integer> {
             throw usage("--case " + caseFile + " gives the stack; leave out --incident, --layer and --exit");
         }
         org.evanesce.io.plan.ExactStack e;
+        org.evanesce.io.casefile.model.CaseSpec caseSpec;
         try {
-            e = org.evanesce.io.plan.ExactStack.of(org.evanesce.io.plan.CaseLoader.read(caseFile, overrides).spec());
+            caseSpec = org.evanesce.io.plan.CaseLoader.read(caseFile, overrides).spec();
+            e = org.evanesce.io.plan.ExactStack.of(caseSpec, permittivityKind == null ? ReferencePermittivity.CONTINUOUS
+                    : permittivityKind);
         } catch (java.nio.file.NoSuchFileException x) {
             throw usage(caseFile + ": no such file");
         } catch (java.io.IOException x) {
@@ -262,12 +302,19 @@ public final class StackCommand implements Callable<Integer> {
         if (angle == null) {
             angle = new Sweep(Units.number(Math.toDegrees(e.angle())), List.of(e.angle()));
         }
+        if (e.permittivity() == ReferencePermittivity.DISCRETE) {
+            permittivity = StackPermittivity.ofGrid(e.cellSize(), e.courant(), "the case's grid: cell "
+                    + Units.format(e.cellSize(), Dimension.LENGTH) + ", Courant number " + Units.number(e.courant()));
+        }
         PlanarStack first = e.stack().apply(wavelength.values().get(0));
-        incident = StackMedium.of(Complex.real(first.incidentIndex()));
-        exit = StackMedium.of(first.exitIndex());
+        // a case's metal is named with its model, as a library metal typed in; other media by their index
+        List<String> media = e.media();
+        incident = caseMedium(caseSpec, media.get(0), Complex.real(first.incidentIndex()));
+        exit = caseMedium(caseSpec, media.get(media.size() - 1), first.exitIndex());
         layers = new ArrayList<>();
-        for (PlanarStack.Layer l : first.layers()) {
-            layers.add(new StackMedium.Layer(StackMedium.of(l.index()), l.thickness()));
+        for (int k = 0; k < first.layers().size(); k++) {
+            PlanarStack.Layer l = first.layers().get(k);
+            layers.add(new StackMedium.Layer(caseMedium(caseSpec, media.get(k + 1), l.index()), l.thickness()));
         }
         if (!csv) {
             out.println("case: " + caseFile + (overrides.isEmpty() ? "" : " with " + overrides) + " (the layers under its "
@@ -277,13 +324,26 @@ public final class StackCommand implements Callable<Integer> {
         return e.stack();
     }
 
+    /** A case's medium: its model for a metal, else the index the case's stack gives it. */
+    private static StackMedium caseMedium(org.evanesce.io.casefile.model.CaseSpec caseSpec, String name, Complex index) {
+        var m = caseSpec.materials().get(name);
+        return m != null && m.isDispersive() ? StackMedium.ofModel(m.dispersion().orElseThrow().model())
+                : StackMedium.of(index);
+    }
+
     /** The stack of the options at vacuum wavelength {@code wl}, m: library materials evaluated there. */
     private PlanarStack stackAt(double wl) {
+        double dt = permittivity.metalTimeStep();
         List<PlanarStack.Layer> at = new ArrayList<>();
         for (StackMedium.Layer l : layers) {
-            at.add(new PlanarStack.Layer(l.medium().index(wl), l.thickness()));
+            at.add(new PlanarStack.Layer(l.medium().index(wl, dt), l.thickness()));
         }
-        return new PlanarStack(incident.index(wl).re(), at, exit.index(wl));
+        return new PlanarStack(incident.index(wl).re(), at, exit.index(wl, dt));
+    }
+
+    /** Whether a medium of the stack is a metal (a library metal, or a case's dispersive material). */
+    private boolean hasMetal() {
+        return incident.metal() != null || exit.metal() != null || layers.stream().anyMatch(l -> l.medium().metal() != null);
     }
 
     /** One line per library material of the options: its model, and its ε at the first and last wavelength. */
@@ -291,17 +351,18 @@ public final class StackCommand implements Callable<Integer> {
         List<Double> w = wavelength.values();
         double first = w.get(0);
         double last = w.get(w.size() - 1);
+        double dt = permittivity.metalTimeStep();
         List<String> lines = new ArrayList<>();
         if (incident.isLibrary()) {
-            lines.add(incident.describe("incident", first, last));
+            lines.add(incident.describe("incident", first, last, dt));
         }
         for (int k = 0; k < layers.size(); k++) {
             if (layers.get(k).medium().isLibrary()) {
-                lines.add(layers.get(k).medium().describe("layer " + (k + 1), first, last));
+                lines.add(layers.get(k).medium().describe("layer " + (k + 1), first, last, dt));
             }
         }
         if (exit.isLibrary()) {
-            lines.add(exit.describe("exit", first, last));
+            lines.add(exit.describe("exit", first, last, dt));
         }
         return lines;
     }

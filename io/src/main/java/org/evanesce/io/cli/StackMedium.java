@@ -6,6 +6,7 @@ import java.util.Locale;
 import org.evanesce.geometry.Complex;
 import org.evanesce.geometry.dispersion.MetalLibrary;
 import org.evanesce.geometry.dispersion.SourcedMaterial;
+import org.evanesce.geometry.dispersion.Spectral;
 import org.evanesce.geometry.dispersion.WavelengthBand;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
@@ -15,8 +16,8 @@ import picocli.CommandLine.TypeConversionException;
 /**
  * A medium of {@code evanesce stack}: a fixed complex index ({@code 1.5}, {@code 0.2,3.4}), or a library
  * material by name, evaluated at each wavelength: a metal of {@link MetalLibrary} ({@code gold}, {@code gold-jc},
- * {@code silver}, ...; the model's continuous ε(ω), no grid) or a dielectric of {@link LibraryMaterial}
- * ({@code water}, {@code borosilicate_crown}, ...).
+ * {@code silver}, ...; the model's continuous ε(ω), or its discrete ε_d(ω, Δt) at a time step) or a dielectric of
+ * {@link LibraryMaterial} ({@code water}, {@code borosilicate_crown}, ...); or a case's metal ({@link #ofModel}).
  *
  * @param text       what the user wrote
  * @param fixed      the index, for a fixed medium (else null)
@@ -38,20 +39,37 @@ record StackMedium(String text, Complex fixed, SourcedMaterial metal, LibraryMat
         return fixed == null;
     }
 
+    /** A case's metal (a dispersive material), named by the case's name for it. */
+    static StackMedium ofModel(SourcedMaterial model) {
+        return new StackMedium(model.key(), null, model, null);
+    }
+
     /** The complex index n + iκ (κ ≥ 0) at vacuum wavelength {@code wavelength}, m. */
     Complex index(double wavelength) {
+        return index(wavelength, 0);
+    }
+
+    /**
+     * The same, a metal's from its continuous ε(ω) ({@code dt} = 0) or its discrete ε_d(ω, Δt) at time step
+     * {@code dt} &gt; 0, s; other media are the same either way.
+     */
+    Complex index(double wavelength, double dt) {
         if (fixed != null) {
             return fixed;
         }
         if (metal != null) {
-            return metal.material().permittivityAtWavelength(wavelength).sqrtUpper();
+            return permittivity(wavelength, dt).sqrtUpper();
         }
         return Complex.real(dielectric.index(wavelength));
     }
 
-    /** The relative permittivity at {@code wavelength}, m. */
-    Complex permittivity(double wavelength) {
-        return metal != null ? metal.material().permittivityAtWavelength(wavelength) : index(wavelength).square();
+    /** The relative permittivity at {@code wavelength}, m; a metal's continuous (dt = 0) or discrete at dt &gt; 0, s. */
+    Complex permittivity(double wavelength, double dt) {
+        if (metal == null) {
+            return index(wavelength).square();
+        }
+        return dt > 0 ? metal.material().discretePermittivity(Spectral.omegaOfWavelength(wavelength), dt)
+                : metal.material().permittivityAtWavelength(wavelength);
     }
 
     /** The name a library material was given by, e.g. {@code gold}. */
@@ -64,12 +82,27 @@ record StackMedium(String text, Complex fixed, SourcedMaterial metal, LibraryMat
      * (equal for a single wavelength), m, with a note where they leave the fit's band.
      */
     String describe(String role, double first, double last) {
-        StringBuilder s = new StringBuilder(role).append(": ").append(name()).append(", ε = ")
-                .append(eps(permittivity(first))).append(" (n = ").append(nk(index(first))).append(") at ")
+        return describe(role, first, last, 0);
+    }
+
+    /**
+     * The same with a metal's discrete ε_d at time step {@code dt} &gt; 0, s ({@code ε_d = ...}, then the model's
+     * continuous ε beside it); dt = 0 as {@link #describe(String, double, double)}.
+     */
+    String describe(String role, double first, double last, double dt) {
+        boolean discrete = dt > 0 && metal != null;
+        StringBuilder s = new StringBuilder(role).append(": ").append(name()).append(discrete ? ", ε_d = " : ", ε = ")
+                .append(eps(permittivity(first, dt))).append(" (n = ").append(nk(index(first, dt))).append(") at ")
                 .append(Units.format(first, Dimension.LENGTH));
         if (last != first) {
-            s.append(" to ").append(eps(permittivity(last))).append(" (n = ").append(nk(index(last))).append(") at ")
+            s.append(" to ").append(eps(permittivity(last, dt))).append(" (n = ").append(nk(index(last, dt))).append(") at ")
                     .append(Units.format(last, Dimension.LENGTH));
+        }
+        if (discrete) {
+            s.append("; the model's ε = ").append(eps(permittivity(first, 0)));
+            if (last != first) {
+                s.append(" to ").append(eps(permittivity(last, 0)));
+            }
         }
         WavelengthBand run = new WavelengthBand(Math.min(first, last), Math.max(first, last));
         if (metal != null) {

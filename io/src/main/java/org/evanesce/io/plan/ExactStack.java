@@ -6,9 +6,11 @@ import java.util.Optional;
 import org.evanesce.geometry.GridSpec;
 import org.evanesce.io.casefile.model.BoundarySpec;
 import org.evanesce.io.casefile.model.CaseSpec;
+import org.evanesce.io.casefile.model.FluxSpec;
 import org.evanesce.io.casefile.text.Diagnostic;
 import org.evanesce.io.casefile.model.SourceSpec;
 import org.evanesce.io.plan.grid.GridPlan;
+import org.evanesce.solver.grid.Courant;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Side;
 import org.evanesce.solver.reference.PlanarStack;
@@ -27,22 +29,42 @@ import org.evanesce.solver.reference.PlanarStack;
  * @param waistDistance a Gaussian beam's distance along its axis from its waist to the first interface, m, positive
  *                     when the waist lies before it (as {@code AngularSpectrum.GaussianBeam} takes it; NaN for a plane
  *                     wave)
+ * @param media        the case's materials the wave crosses, by name: the incidence medium, one per layer of the
+ *                     stack, the exit medium
+ * @param permittivity which permittivity the stack's dispersive materials take
+ * @param cellSize     the case's cell size, m
+ * @param courant      the case's Courant number (its {@code numerics.courant} or the program's default)
  */
 public record ExactStack(java.util.function.DoubleFunction<PlanarStack> stack, Polarization polarization,
-                         double wavelength, double angle, double waist, double waistDistance) {
+                         double wavelength, double angle, double waist, double waistDistance, List<String> media,
+                         FluxSpec.ReferencePermittivity permittivity, double cellSize, double courant) {
 
-    /** A plane wave's stack. */
-    public ExactStack(java.util.function.DoubleFunction<PlanarStack> stack, Polarization polarization, double wavelength,
-                      double angle) {
-        this(stack, polarization, wavelength, angle, Double.NaN, Double.NaN);
+    public ExactStack {
+        media = List.copyOf(media);
+    }
+
+    /** The time step of the case's run, Δt = SΔ/c0 as the planner sets it, s: the discrete permittivity's. */
+    public double timeStep() {
+        return Courant.timeStep(courant, cellSize);
     }
 
     /**
-     * Reads the stack of a case with one plane wave or Gaussian beam over horizontal layers.
+     * Reads the stack of a case with one plane wave or Gaussian beam over horizontal layers, with each metal's
+     * continuous ε(ω) (what fits and tolerance studies use).
      *
      * @throws PlanException naming the case's line when it has no such source or is not layered
      */
     public static ExactStack of(CaseSpec spec) throws PlanException {
+        return of(spec, FluxSpec.ReferencePermittivity.CONTINUOUS);
+    }
+
+    /**
+     * The same with each metal's continuous ε(ω) or its discrete ε_d(ω, Δt) at the time step of the case's run (the
+     * grid the case's {@code grid} and {@code numerics.courant} give, as the planner derives it).
+     *
+     * @throws PlanException naming the case's line when it has no such source or is not layered
+     */
+    public static ExactStack of(CaseSpec spec, FluxSpec.ReferencePermittivity permittivity) throws PlanException {
         List<Diagnostic> errors = new ArrayList<>();
         Optional<SourceSpec.Launched> launched = PlaneWaves.launched(spec);
         if (launched.isEmpty()) {
@@ -58,17 +80,24 @@ public record ExactStack(java.util.function.DoubleFunction<PlanarStack> stack, P
         GridSpec grid = r.solverGrid(periodic);
         int[] interior = {r.pmlCells(Side.LEFT), r.pmlCells(Side.BOTTOM), grid.nx() - r.pmlCells(Side.RIGHT),
             grid.ny() - r.pmlCells(Side.TOP)};
-        Optional<FluxPlan.Exact> exact = FluxPlanner.transferMatrix(spec, grid, w, interior, errors, 0, false);
+        // the same cell size, Courant number and time step as CasePlanner's
+        double dx = r.cellSize().si();
+        double courant = spec.numerics().courant().map(v -> v.si()).orElse(Courant.DEFAULT);
+        Optional<FluxPlan.Exact> exact = FluxPlanner.transferMatrix(spec, grid, w, interior, errors, permittivity,
+                Courant.timeStep(courant, dx), false);
         if (exact.isEmpty() || !errors.isEmpty()) {
             throw new PlanException(errors);
         }
+        FluxPlan.Exact x = exact.get();
+        double waist = Double.NaN;
+        double distance = Double.NaN;
         if (w instanceof SourceSpec.GaussianBeamSource b) {
             // as the run's beam reference (io.run.BeamReference.beam) places the waist
             double direction = b.direction().value().sign();
-            double distance = (exact.get().firstInterface() - b.waistAt().y().si()) * direction / Math.cos(b.angle().si());
-            return new ExactStack(exact.get().stack(), spec.polarization().value(), spec.designWavelength().si(),
-                    w.angle().si(), b.waist().si(), distance);
+            distance = (x.firstInterface() - b.waistAt().y().si()) * direction / Math.cos(b.angle().si());
+            waist = b.waist().si();
         }
-        return new ExactStack(exact.get().stack(), spec.polarization().value(), spec.designWavelength().si(), w.angle().si());
+        return new ExactStack(x.stack(), spec.polarization().value(), spec.designWavelength().si(), w.angle().si(), waist,
+                distance, x.media(), permittivity, dx, courant);
     }
 }

@@ -106,8 +106,18 @@ public record FluxPlan(double[] frequencies, double kx, String medium, double me
      *                       #FOOTPRINTS_CHECKED} footprints) where the layers are not those of the column,
      *                       so the references describe the column's stack alone; NaN where they are the same (and
      *                       for a plane wave, whose scene is layered, and where the stack alone was asked for)
+     * @param media          the case's materials the wave crosses, by name: the incidence medium, one per layer of
+     *                       the stack, the exit medium
+     * @param permittivity   which permittivity the stack's dispersive materials take
+     * @param timeStep       the run's time step, s: the discrete permittivity's Δt
      */
-    public record Exact(DoubleFunction<PlanarStack> stack, double firstInterface, double column, double differsAt) {
+    public record Exact(DoubleFunction<PlanarStack> stack, double firstInterface, double column, double differsAt,
+                        List<String> media, FluxSpec.ReferencePermittivity permittivity,
+                        double timeStep) {
+        public Exact {
+            media = List.copyOf(media);
+        }
+
         /**
          * How far either side of the column a beam's layers are compared with the column's, in footprints (the
          * waist over the cosine of the angle: the 1/e² half-width of its intensity on a face): 2 holds all but

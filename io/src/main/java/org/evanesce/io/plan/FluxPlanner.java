@@ -95,7 +95,8 @@ final class FluxPlanner {
         Optional<FluxPlan.Steady> check = steady == null ? Optional.empty() : Optional.of(new FluxPlan.Steady(steady,
                 runHalves, referenceHalves, reference.halves(steady, incident, freqs, pol)));
         Optional<FluxPlan.Exact> exact = f.transferMatrix().value()
-                ? transferMatrix(spec, grid, w, interior, errors, dt, true) : Optional.empty();
+                ? transferMatrix(spec, grid, w, interior, errors, f.referencePermittivity().value(), dt, true)
+                : Optional.empty();
         Optional<SourceSpec.GaussianBeamSource> beam = w instanceof SourceSpec.GaussianBeamSource b
                 ? Optional.of(b) : Optional.empty();
         Optional<FluxPlan.Path> path = Optional.empty();
@@ -282,7 +283,8 @@ final class FluxPlanner {
      */
     static Optional<FluxPlan.Exact> transferMatrix(CaseSpec spec, GridSpec grid, SourceSpec.Launched w,
                                                           int[] interior, List<Diagnostic> errors,
-                                                          double dt, boolean checkFootprint) {
+                                                          FluxSpec.ReferencePermittivity permittivity, double dt,
+                                                          boolean checkFootprint) {
         FluxSpec f = spec.flux().orElse(null);
         double dx = grid.cellSize();
         double yLow = grid.y0() + interior[1] * dx;
@@ -335,8 +337,19 @@ final class FluxPlanner {
         // only a run reports the check (FluxResults); fits and tolerance studies read the stack thousands of times
         double differsAt = checkFootprint && w instanceof SourceSpec.GaussianBeamSource b
                 ? stackDiffersAt(spec, bands, column, b.waist().si() / Math.cos(b.angle().si()), yLow, yHigh, dx) : Double.NaN;
-        return Optional.of(new FluxPlan.Exact(wl -> LayeredProfile.stack(bands, spec.materials(), wl, dir, dt), firstInterface,
-                column, differsAt));
+        double stackDt = permittivity == FluxSpec.ReferencePermittivity.DISCRETE ? dt : 0;
+        List<String> media = new ArrayList<>();
+        for (LayeredProfile.Band b : bands) {
+            media.add(b.material());
+        }
+        if (!up) {
+            java.util.Collections.reverse(media);
+        }
+        if (media.size() == 1) {
+            media.add(media.get(0)); // the same medium on both sides, no layers (LayeredProfile.stack)
+        }
+        return Optional.of(new FluxPlan.Exact(wl -> LayeredProfile.stack(bands, spec.materials(), wl, dir, stackDt),
+                firstInterface, column, differsAt, media, permittivity, dt));
     }
 
     /** Verticals compared on each side of the column. */

@@ -324,6 +324,10 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
                 ? "the exact plane-wave values of the layered scene (characteristic matrix, Born & Wolf sec. 1.6) with the "
                         + "same materials, evaluated at each frequency's in-plane wavenumber; *_diff = simulated − exact"
                 : null);
+        // which permittivity the references give a metal (flux.reference_permittivity), and the discrete one's time step
+        m.put("reference_permittivity", plan.exact().map(e -> e.permittivity().caseName()).orElse(null));
+        m.put("reference_time_step_s", plan.exact().filter(e -> e.permittivity() == FluxSpec.ReferencePermittivity.DISCRETE)
+                .map(e -> (Object) e.timeStep()).orElse(null));
         List<Object> rowsOut = new ArrayList<>();
         for (Row r : rows) {
             Map<String, Object> e = new LinkedHashMap<>();

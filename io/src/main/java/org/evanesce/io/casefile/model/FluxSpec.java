@@ -14,13 +14,21 @@ import org.evanesce.io.casefile.text.Value;
  * @param transferMatrix whether to write the exact plane-wave answer of the layered scene beside the simulated one
  * @param at             where the {@code flux} section starts
  * @param incidentRun    how the incident power is obtained ({@code incident_run})
+ * @param referencePermittivity which permittivity of a dispersive material the exact references use
+ *                       ({@code reference_permittivity})
  */
 public record FluxSpec(List<Value> frequencies, List<Line> lines, Located<Boolean> transferMatrix, SourcePosition at,
-                       Located<IncidentRun> incidentRun) {
+                       Located<IncidentRun> incidentRun, Located<ReferencePermittivity> referencePermittivity) {
 
     public FluxSpec {
         frequencies = List.copyOf(frequencies);
         lines = List.copyOf(lines);
+    }
+
+    /** The same with the default {@code reference_permittivity: discrete}. */
+    public FluxSpec(List<Value> frequencies, List<Line> lines, Located<Boolean> transferMatrix, SourcePosition at,
+                    Located<IncidentRun> incidentRun) {
+        this(frequencies, lines, transferMatrix, at, incidentRun, new Located<>(ReferencePermittivity.DISCRETE, at));
     }
 
     /** The same with the default {@code incident_run: auto}. */
@@ -38,6 +46,30 @@ public record FluxSpec(List<Value> frequencies, List<Line> lines, Located<Boolea
         private final String caseName;
 
         IncidentRun(String caseName) {
+            this.caseName = caseName;
+        }
+
+        public String caseName() {
+            return caseName;
+        }
+    }
+
+    /**
+     * Which permittivity of a dispersive material (a metal) the exact references (the transfer matrix, a beam's
+     * angular spectrum) use; other materials are the same either way.
+     */
+    public enum ReferencePermittivity {
+        /**
+         * The discrete model's ε_d(ω, Δt) = ε((2/Δt) tan(ωΔt/2)) at the run's time step, what the grid's time stepping
+         * realises: the difference columns then measure the spatial grid alone.
+         */
+        DISCRETE("discrete"),
+        /** The model's own ε(ω): the difference columns then hold the time step's error too. */
+        CONTINUOUS("continuous");
+
+        private final String caseName;
+
+        ReferencePermittivity(String caseName) {
             this.caseName = caseName;
         }
 

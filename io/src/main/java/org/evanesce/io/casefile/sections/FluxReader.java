@@ -76,7 +76,22 @@ final class FluxReader {
             ok &= r != null;
             run = new Located<>(r, ctx.pos(rn));
         }
-        return ok ? new FluxSpec(frequencies, lines, tmm, v.at(), run) : null;
+        Node pn = v.get("reference_permittivity");
+        Located<FluxSpec.ReferencePermittivity> eps = new Located<>(FluxSpec.ReferencePermittivity.DISCRETE, v.at());
+        if (pn != null) {
+            Map<String, FluxSpec.ReferencePermittivity> kinds = new LinkedHashMap<>();
+            for (FluxSpec.ReferencePermittivity p : FluxSpec.ReferencePermittivity.values()) {
+                kinds.put(p.caseName(), p);
+            }
+            FluxSpec.ReferencePermittivity p = ctx.choice(pn, v.path("reference_permittivity"), kinds);
+            ok &= p != null;
+            eps = new Located<>(p, ctx.pos(pn));
+            if (p != null && !tmm.value()) {
+                ctx.warn(ctx.pos(pn), v.path("reference_permittivity"), "has no effect with transfer_matrix: false "
+                        + "(it chooses the permittivity of the exact answer's metals)");
+            }
+        }
+        return ok ? new FluxSpec(frequencies, lines, tmm, v.at(), run, eps) : null;
     }
 
     /**

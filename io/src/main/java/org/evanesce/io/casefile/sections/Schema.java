@@ -92,7 +92,7 @@ final class Schema {
 
     static final Section PROBE = new Section("probes[]", List.of("name", "at", "component"));
     static final Section FLUX = new Section("flux", List.of("wavelengths", "frequencies", "lines", "transfer_matrix",
-            "incident_run"));
+            "incident_run", "reference_permittivity"));
     static final Section WAVELENGTH_RANGE = new Section("flux.wavelengths", List.of("from", "to", "count"));
     static final Section FREQUENCY_RANGE = new Section("flux.frequencies", List.of("from", "to", "count"));
     static final Section FLUX_LINE = new Section("flux.lines[]", List.of("name", "y", "measures"));
