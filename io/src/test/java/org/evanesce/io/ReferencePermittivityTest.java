@@ -221,5 +221,11 @@ class ReferencePermittivityTest {
                 "--cell", "5nm");
         assertEquals(ExitCode.USAGE, o.code(), o::toString);
         assertTrue(o.err().contains("--case gives the time step"), o::toString);
+        // the case's time step (5 nm cells, Courant number 0.5) is beyond the grid's Nyquist limit at 4 nm
+        Cli.Outcome n = Cli.run("stack", "--case", tmp.resolve("film.yaml").toString(), "--permittivity", "discrete",
+                "--wavelength", "4nm");
+        assertEquals(ExitCode.USAGE, n.code(), n::toString);
+        assertTrue(n.err().contains("(the case's grid: cell 5 nm, Courant number 0.5) is too long for 4 nm"), n::toString);
+        assertTrue(!n.err().contains("Exception"), n::toString);
     }
 }

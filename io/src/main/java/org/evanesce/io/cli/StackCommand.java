@@ -197,11 +197,7 @@ public final class StackCommand implements Callable<Integer> {
                         + "the wavelengths this calculator accepts, 1 pm to 1 km");
             }
         }
-        try {
-            permittivity.checkNyquist(wavelength.values());
-        } catch (IllegalArgumentException x) {
-            throw usage(x.getMessage());
-        }
+        checkNyquist();
         if (thickness != null && thickness.layer() > layers.size()) {
             throw usage(String.format(Locale.ROOT, "--thickness %s: there is no layer %d; the stack has %d layer(s) "
                     + "(--layer), numbered from 1", thickness.text(), thickness.layer(), layers.size()));
@@ -306,6 +302,7 @@ public final class StackCommand implements Callable<Integer> {
             permittivity = StackPermittivity.ofGrid(e.cellSize(), e.courant(), "the case's grid: cell "
                     + Units.format(e.cellSize(), Dimension.LENGTH) + ", Courant number " + Units.number(e.courant()));
         }
+        checkNyquist();
         PlanarStack first = e.stack().apply(wavelength.values().get(0));
         // a case's metal is named with its model, as a library metal typed in; other media by their index
         List<String> media = e.media();
@@ -322,6 +319,15 @@ public final class StackCommand implements Callable<Integer> {
                     + e.polarization().toString().toLowerCase(Locale.ROOT) + ")");
         }
         return e.stack();
+    }
+
+    /** Refuses a time step of the discrete permittivity beyond the grid's Nyquist limit at any of the wavelengths. */
+    private void checkNyquist() {
+        try {
+            permittivity.checkNyquist(wavelength.values());
+        } catch (IllegalArgumentException x) {
+            throw usage(x.getMessage());
+        }
     }
 
     /** A case's medium: its model for a metal, else the index the case's stack gives it. */
