@@ -299,7 +299,10 @@ public final class DipShift {
         return m;
     }
 
-    /** The printed table: the bracketed rows (at most {@value #PRINTED}) and what is left out. */
+    /**
+     * The printed table: the rows whose dips lie inside the range in both sweeps and whose columns vary by at least
+     * {@link SweepExtrema#PRINTED_DEPTH} over it (at most {@value #PRINTED}), and what is left out.
+     */
     public static String summary(Result r) {
         StringBuilder sb = new StringBuilder();
         SweepDips.Parameter angle = r.a().angleParameter();
@@ -308,8 +311,13 @@ public final class DipShift {
                 angle.name()));
         int printed = 0;
         int more = 0;
+        int shallow = 0;
         for (Row row : r.rows()) {
             if (!row.bracketed()) {
+                continue;
+            }
+            if (!(row.a().span() >= SweepExtrema.PRINTED_DEPTH && row.b().span() >= SweepExtrema.PRINTED_DEPTH)) {
+                shallow++;
                 continue;
             }
             if (printed++ >= PRINTED) {
@@ -326,8 +334,10 @@ public final class DipShift {
             sb.append(String.format(Locale.ROOT, "  none: no column has its dip inside the angle range in both sweeps%n"));
         }
         long ends = r.rows().stream().filter(x -> !x.bracketed()).count();
-        if (more > 0 || ends > 0) {
-            sb.append(String.format(Locale.ROOT, "  (%d more, %d with a dip at an end of the range: in %s)%n", more, ends, CSV));
+        if (more > 0 || ends > 0 || shallow > 0) {
+            sb.append(String.format(Locale.ROOT, "  (%d more, %d with a dip at an end of the range, %d whose column varies by less "
+                    + "than %.0e over the range (within the simulation's accuracy: noise can make such dips): in %s)%n", more, ends,
+                    shallow, SweepExtrema.PRINTED_DEPTH, CSV));
         }
         return sb.toString();
     }

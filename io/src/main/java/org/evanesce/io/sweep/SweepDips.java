@@ -41,8 +41,11 @@ public record SweepDips(Path dir, String caseFile, String caseSha256, Map<String
      * @param angleRad     the interpolated angle of the minimum, radians
      * @param value        the column's value there
      * @param bracketed    false when the lowest point is an end of the angle range
+     * @param span         the column's maximum over the angle range minus this minimum (sweep-extrema.csv's max row; NaN
+     *                     without one): how deep the dip can be at most
      */
-    public record Dip(String wavelengthNm, List<String> others, String column, double angleRad, double value, boolean bracketed) {
+    public record Dip(String wavelengthNm, List<String> others, String column, double angleRad, double value, boolean bracketed,
+                      double span) {
         /** Wavelength, other parameters and column: what pairs a dip of one sweep with the other's. */
         String key() {
             return wavelengthNm + "\u0000" + String.join("\u0000", others) + "\u0000" + column;
@@ -160,12 +163,13 @@ public record SweepDips(Path dir, String caseFile, String caseSha256, Map<String
         }
         String angleName = parameters.get(angle).name();
         Map<String, Dip> out = new LinkedHashMap<>();
+        Map<String, Double> maxima = new LinkedHashMap<>();
         for (int r = 1; r < t.size(); r++) {
             String[] row = t.get(r);
             if (row.length < head.size()) {
                 throw new Unusable(file + ": line " + (r + 1) + ": " + row.length + " fields, expected " + head.size());
             }
-            if (!row[par].equals(angleName) || !row[kind].equals("min")) {
+            if (!row[par].equals(angleName) || !row[kind].equals("min") && !row[kind].equals("max")) {
                 continue;
             }
             List<String> others = new ArrayList<>();
@@ -183,9 +187,15 @@ public record SweepDips(Path dir, String caseFile, String caseSha256, Map<String
                 throw new Unusable(file + ": line " + (r + 1) + ": parameter_si '" + row[x] + "' or value '" + row[val]
                         + "': expected numbers");
             }
-            Dip d = new Dip(row[wl], List.copyOf(others), row[col], a, v, Boolean.parseBoolean(row[br]));
-            out.put(d.key(), d);
+            Dip d = new Dip(row[wl], List.copyOf(others), row[col], a, v, Boolean.parseBoolean(row[br]), Double.NaN);
+            if (row[kind].equals("max")) {
+                maxima.put(d.key(), v);
+            } else {
+                out.put(d.key(), d);
+            }
         }
+        out.replaceAll((k, d) -> new Dip(d.wavelengthNm(), d.others(), d.column(), d.angleRad(), d.value(), d.bracketed(),
+                maxima.getOrDefault(k, Double.NaN) - d.value()));
         if (out.isEmpty()) {
             throw new Unusable(file + ": no minimum against the angle " + angleName + " (is it swept over 3 or more values?)");
         }
