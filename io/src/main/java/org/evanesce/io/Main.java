@@ -31,7 +31,7 @@ import picocli.CommandLine.Spec;
             org.evanesce.io.cli.AccuracyCommand.class, org.evanesce.io.cli.RedrawCommand.class,
             org.evanesce.io.cli.RenderRefused.class,
             org.evanesce.io.cli.SweepCommand.class, org.evanesce.io.cli.FitCommand.class,
-            org.evanesce.io.cli.ToleranceCommand.class},
+            org.evanesce.io.cli.ToleranceCommand.class, org.evanesce.io.cli.DipShiftCommand.class},
         exitCodeListHeading = "%nExit codes:%n",
         exitCodeList = {
             "0:success",
