@@ -80,10 +80,11 @@ public record IncidentField(double[] amplitude, String definition) {
             }
         }
         String what = w instanceof SourceSpec.PlaneWave
-                ? String.format(Locale.ROOT, "the plane wave's electric field amplitude in %s (n = %.6g) as the grid launches "
-                        + "it, at each wavelength", medium.name(), medium.index())
-                : String.format(Locale.ROOT, "the Gaussian beam's electric field amplitude at its waist centre in %s (n = %.6g)%s",
-                        medium.name(), medium.index(), pol == Polarization.S ? "" : ", amplitude / n times the mean cosine of its "
+                ? String.format(Locale.ROOT, "the plane wave's electric field amplitude in %s (n = %s) as the grid launches "
+                        + "it, at each wavelength", medium.name(), org.evanesce.io.casefile.expr.Units.number(medium.index()))
+                : String.format(Locale.ROOT, "the Gaussian beam's electric field amplitude at its waist centre in %s (n = %s)%s",
+                        medium.name(), org.evanesce.io.casefile.expr.Units.number(medium.index()),
+                        pol == Polarization.S ? "" : ", amplitude / n times the mean cosine of its "
                         + "angular spectrum");
         return new IncidentField(out, what + ", times the source signal's transform at that wavelength (docs/outputs.md)");
     }
