@@ -28,7 +28,7 @@ class RunCheckpointTest {
     Path tmp;
 
     /** A plane wave through a gap, fine enough that its main run lasts a few seconds. */
-    private static final String CASE = """
+    static final String CASE = """
             parameters:
               cpw: 48
             design_wavelength: 633 nm

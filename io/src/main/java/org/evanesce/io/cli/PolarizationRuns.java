@@ -58,9 +58,22 @@ final class PolarizationRuns {
      */
     static Both run(CaseOptions.Loaded s, CaseOptions.Loaded p, Map<String, String> overrides, RunFolder rf, PrintWriter o,
                     double progressSeconds, boolean table, List<String> commandLine) throws IOException {
+        return run(s, p, overrides, rf, o, progressSeconds, table, commandLine, null, null);
+    }
+
+    /**
+     * As {@link #run(CaseOptions.Loaded, CaseOptions.Loaded, Map, RunFolder, PrintWriter, double, boolean, List)}, the s
+     * and p runs saving to and continuing from their own checkpoints (null: none), which the caller deletes once the
+     * results are in place.
+     */
+    static Both run(CaseOptions.Loaded s, CaseOptions.Loaded p, Map<String, String> overrides, RunFolder rf, PrintWriter o,
+                    double progressSeconds, boolean table, List<String> commandLine, org.evanesce.io.run.Checkpoints sCheckpoints,
+                    org.evanesce.io.run.Checkpoints pCheckpoints) throws IOException {
         o.println("polarization: both: an s run into " + S + "/, then a p run into " + P + "/");
-        CaseExecution.Finished fs = one(S, s, overrides(overrides, PolarizationChoice.S), rf, o, progressSeconds, commandLine);
-        CaseExecution.Finished fp = one(P, p, overrides(overrides, PolarizationChoice.P), rf, o, progressSeconds, commandLine);
+        CaseExecution.Finished fs = one(S, s, overrides(overrides, PolarizationChoice.S), rf, o, progressSeconds, commandLine,
+                sCheckpoints);
+        CaseExecution.Finished fp = one(P, p, overrides(overrides, PolarizationChoice.P), rf, o, progressSeconds, commandLine,
+                pCheckpoints);
         List<String> warnings = new ArrayList<>();
         fs.warnings().forEach(w -> warnings.add("s: " + w));
         fp.warnings().forEach(w -> warnings.add("p: " + w));
@@ -86,10 +99,10 @@ final class PolarizationRuns {
     }
 
     private static CaseExecution.Finished one(String name, CaseOptions.Loaded l, Map<String, String> overrides, RunFolder rf,
-                                              PrintWriter o, double progressSeconds, List<String> commandLine)
-            throws IOException {
+                                              PrintWriter o, double progressSeconds, List<String> commandLine,
+                                              org.evanesce.io.run.Checkpoints checkpoints) throws IOException {
         try (RunFolder sub = RunFolder.begin(rf.dir().resolve(name), false)) {
-            CaseExecution.Finished f = CaseExecution.run(l, overrides, sub, o, progressSeconds, false, null, commandLine);
+            CaseExecution.Finished f = CaseExecution.run(l, overrides, sub, o, progressSeconds, false, checkpoints, commandLine);
             sub.commit();
             return f;
         }

@@ -128,14 +128,17 @@ public final class RedrawCommand implements Callable<Integer> {
             Component z = h.getChildren().containsKey(MapOutputs.partName(Component.EZ, true)) ? Component.EZ : Component.HZ;
             Dataset real = h.getDatasetByPath("/" + MapOutputs.partName(z, true));
             String name = z == Component.EZ ? "Ez" : "Hz";
+            // maps divided by the incident field (maps.normalise: incident) say so on every stack
+            String per = real.getAttribute(MapOutputs.RELATIVE_TO) == null ? null : (String) attribute(real, MapOutputs.RELATIVE_TO);
+            String over = per == null ? "" : "/" + per;
             for (int q = 0; q < wavelengths.length; q++) {
                 String tag = MapOutputs.pictureTag(wavelengths[q]);
                 String nm = String.format(Locale.ROOT, "%.2f nm", wavelengths[q] * 1e9);
                 picture(real, q, name, (String) attribute(real, "unit"), FieldPicture.Quantity.REAL, ids, null,
-                        "Re " + name + " at " + nm)
+                        "Re " + name + over + " at " + nm).relativeTo(per)
                         .writePng(dir.resolve("map-" + z.name().toLowerCase(Locale.ROOT) + "-" + tag + ".png"));
                 picture(magnitude, q, "E", (String) attribute(magnitude, "unit"), FieldPicture.Quantity.MAGNITUDE, ids,
-                        logDecades, "|E| at " + nm + ", log scale")
+                        logDecades, "|E|" + over + " at " + nm + ", log scale").relativeTo(per)
                         .writePng(dir.resolve("map-E-" + tag + "-log.png"));
                 n += 2;
             }

@@ -59,11 +59,17 @@ public final class RunCommand implements Callable<Integer> {
         OutputFolders.checkResults(folder, force, protect);
         boolean both = l.plan().spec().polarizations() == PolarizationChoice.BOTH;
         CaseOptions.Loaded lp = both ? options.loadPolarizationP(spec) : null;
-        if (both && checkpointMinutes > 0) {
-            o.println("note: a run with polarization both is not checkpointed (its s and p runs start from the beginning "
-                    + "when the command is run again)");
+        // polarization both: each run its own checkpoint (FOLDER.checkpoint-s, -p), both kept until the results are in
+        // place, so a run killed during p continues s from its last checkpoint and p from its own
+        Checkpoints ck;
+        Checkpoints ckP = null;
+        if (both) {
+            ck = checkpoints(l, folder, o, "-" + PolarizationRuns.S, PolarizationRuns.overrides(options.overrides, PolarizationChoice.S));
+            ckP = ck == null ? null : checkpoints(lp, folder, o, "-" + PolarizationRuns.P,
+                    PolarizationRuns.overrides(options.overrides, PolarizationChoice.P));
+        } else {
+            ck = checkpoints(l, folder, o, "", options.overrides);
         }
-        Checkpoints ck = both ? null : checkpoints(l, folder, o);
         for (int attempt = 0; ; attempt++) {
             try (RunFolder rf = RunFolder.begin(folder, force, protect)) {
                 rf.cleaned().forEach(line -> o.println("note: " + line));
@@ -72,7 +78,7 @@ public final class RunCommand implements Callable<Integer> {
                 boolean flux;
                 if (both) {
                     PolarizationRuns.Both b = PolarizationRuns.run(l, lp, options.overrides, rf, o, progressSeconds, true,
-                            spec.commandLine().getParseResult().originalArgs());
+                            spec.commandLine().getParseResult().originalArgs(), ck, ckP);
                     warnings = b.warnings();
                     settled = b.settled();
                     flux = b.averaged() != null;
@@ -86,6 +92,9 @@ public final class RunCommand implements Callable<Integer> {
                 rf.commit();
                 if (ck != null) {
                     ck.delete();
+                }
+                if (ckP != null) {
+                    ckP.delete();
                 }
                 if (!rf.target().equals(folder)) {
                     o.println("note: " + folder + " appeared during the run and may not be replaced; the results went to "
@@ -101,17 +110,23 @@ public final class RunCommand implements Callable<Integer> {
                 o.println("Caution: " + RunOutputs.CAUTION);
                 return ExitCode.OK;
             } catch (Checkpoints.Unusable e) {
-                if (attempt > 0) {
+                // polarization both: the s and the p checkpoint may each be set aside once
+                if (attempt > (both ? 1 : 0)) {
                     throw new RunFailedException(e.getMessage(), e);
                 }
                 o.println("warning: " + e.getMessage() + "; the run starts from the beginning");
                 l = options.load(spec);
+                lp = both ? options.loadPolarizationP(spec) : null;
             }
         }
     }
 
-    /** The run's checkpoints, or null when off or when the case writes field frames (they cannot be resumed). */
-    private Checkpoints checkpoints(CaseOptions.Loaded l, Path folder, PrintWriter o) throws IOException {
+    /**
+     * The run's checkpoints, FOLDER.checkpoint + {@code suffix}, with the identity of a run with {@code overrides}, or
+     * null when off or when the case writes field frames (they cannot be resumed).
+     */
+    private Checkpoints checkpoints(CaseOptions.Loaded l, Path folder, PrintWriter o, String suffix, Map<String, String> overrides)
+            throws IOException {
         if (!(checkpointMinutes > 0)) {
             return null;
         }
@@ -119,7 +134,7 @@ public final class RunCommand implements Callable<Integer> {
             o.println("note: runs that write field frames are not checkpointed (frames taken before a checkpoint would be lost)");
             return null;
         }
-        Path file = folder.toAbsolutePath().resolveSibling(folder.getFileName() + ".checkpoint");
+        Path file = folder.toAbsolutePath().resolveSibling(folder.getFileName() + ".checkpoint" + suffix);
         if (java.nio.file.Files.exists(file, java.nio.file.LinkOption.NOFOLLOW_LINKS)
                 && !java.nio.file.Files.isRegularFile(file, java.nio.file.LinkOption.NOFOLLOW_LINKS)) {
             o.println("note: " + file + " is a folder or a link, not a checkpoint evanesce wrote; it is left alone and this run "
@@ -127,7 +142,7 @@ public final class RunCommand implements Callable<Integer> {
             return null;
         }
         return new Checkpoints(file, checkpointMinutes * 60, checkpointIdentity(l.sha256(),
-                org.evanesce.io.output.BuildInfo.current(), options.overrides), o::println);
+                org.evanesce.io.output.BuildInfo.current(), overrides), o::println);
     }
 
     /**

@@ -99,6 +99,24 @@ public final class SweepCommand implements Callable<Integer> {
             + "list the missing ones (exit 0 when complete, 3 when points are missing).")
     private boolean mergeOnly;
 
+    @Option(names = "--plot-wavelength", paramLabel = "LENGTH", converter = PlotWavelength.class,
+            description = "The vacuum wavelength sweep.png and sweep-log.png draw, e.g. 640nm: each point's flux row nearest "
+                    + "to it (of two equally near, the shorter wavelength). Default: the design wavelength.")
+    private Double plotWavelength;
+
+    /** A positive length with a unit, in m. */
+    static final class PlotWavelength implements picocli.CommandLine.ITypeConverter<Double> {
+        @Override
+        public Double convert(String value) {
+            double v = StackCommand.parseLength(value);
+            if (!(v > 0)) {
+                throw new picocli.CommandLine.TypeConversionException("'" + value + "' is not a wavelength; expected a "
+                        + "positive length with a unit, e.g. 640nm");
+            }
+            return v;
+        }
+    }
+
     @Option(names = "--slurm-script", paramLabel = "TASKS",
             description = "Run nothing: write DIR/sweep.slurm, a Slurm job-array script of TASKS tasks, each running one shard, "
                     + "and print the commands to submit it and to merge.")
@@ -493,7 +511,7 @@ public final class SweepCommand implements Callable<Integer> {
     /** Merges the finished points; with {@code report}, missing points make exit code 3. */
     private int merge(SweepFolder folder, List<SweepMerge.Point> points, List<org.evanesce.io.casefile.expr.Dimension> kinds,
                       String title, PrintWriter o, PrintWriter err, boolean report) throws IOException {
-        SweepMerge.Result m = SweepMerge.write(folder, points, kinds, title);
+        SweepMerge.Result m = SweepMerge.write(folder, points, kinds, title, plotWavelength == null ? Double.NaN : plotWavelength);
         o.printf(Locale.ROOT, "merged %d of %d points into %s%s%n", m.finished(), points.size(),
                 folder.dir().resolve(SweepFolder.CSV), !m.png() ? "" : " and " + SweepFolder.PNG
                 + (java.nio.file.Files.exists(folder.dir().resolve(SweepFolder.LOG_PNG)) ? ", " + SweepFolder.LOG_PNG : ""));

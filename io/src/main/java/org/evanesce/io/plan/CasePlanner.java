@@ -238,6 +238,7 @@ public final class CasePlanner {
         Map<String, Double> eps = new java.util.TreeMap<>();
         materials.forEach((name, m) -> eps.put(name, m.relativePermittivity()));
         FieldPlan fields = fieldPlan(grid, interior(sides, grid), stop, dt, b, sides);
+        incidentOnGrid(eps, dx, dt, courant);
         if (!errors.isEmpty()) {
             throw new PlanException(errors);
         }
@@ -307,6 +308,33 @@ public final class CasePlanner {
             return null;
         }
         return new int[] {i0, j0, i1, j1};
+    }
+
+    /**
+     * With {@code maps.normalise: incident} and a plane wave: whether the wave propagates on the grid at each map
+     * frequency (the case's checks test the continuous medium; near grazing incidence the grid's dispersion can
+     * make a frequency evanescent there), else an error: there would be no incident field to divide by.
+     */
+    private void incidentOnGrid(Map<String, Double> gridEps, double dx, double dt, double courant) {
+        if (spec.maps().isEmpty() || spec.maps().get().normalise().value() != org.evanesce.io.casefile.model.MapsSpec.Normalise.INCIDENT
+                || !(PlaneWaves.launched(spec).orElse(null) instanceof SourceSpec.PlaneWave w)) {
+            return;
+        }
+        MaterialSpec medium = PlaneWaves.medium(spec, w);
+        for (org.evanesce.io.casefile.text.Value f : spec.maps().get().frequencies()) {
+            try {
+                org.evanesce.solver.source.PlaneSheetAmplitude.electricPerCurrent(spec.polarization().value(),
+                        spec.numerics().precision().value(), courant, gridEps.getOrDefault(medium.name(),
+                                medium.relativePermittivity().si()), PlaneWaves.launchedKx(spec) * dx, 2 * Math.PI * f.si() * dt);
+            } catch (IllegalArgumentException e) {
+                error(f.at(), "maps", String.format("with normalise: incident, at %s the plane wave does not propagate on the "
+                        + "grid in %s (its in-plane wavenumber is too close to the medium's, or the frequency beyond what the "
+                        + "cells resolve): there is no incident field to divide by; expected a map wavelength further from "
+                        + "grazing incidence, or smaller cells", org.evanesce.io.casefile.expr.Units.format(
+                        org.evanesce.geometry.PhysicalConstants.C0 / f.si(), org.evanesce.io.casefile.expr.Dimension.LENGTH),
+                        medium.name()));
+            }
+        }
     }
 
     /** Field files, frames and maps; maps are registered on the run. */

@@ -55,6 +55,20 @@ public final class MapOutputs {
     public static final String FREQUENCY = "frequency_hz";
     /** Name of the stack of |E| in maps.h5. */
     public static final String MAGNITUDE = "E_magnitude";
+    /** Name of the dataset of maps.h5 with {@code normalise: incident}: |E_inc| per layer, V·s/m. */
+    public static final String INCIDENT = "incident_field_amplitude";
+    /** The attribute of a stack divided by the incident field: what it was divided by ("|E_inc|"). */
+    public static final String RELATIVE_TO = "relative_to";
+
+    /** v times s, in place; returns v. */
+    private static double[] scaled(double[] v, double s) {
+        if (s != 1) {
+            for (int k = 0; k < v.length; k++) {
+                v[k] *= s;
+            }
+        }
+        return v;
+    }
 
     /** The dataset names of a component's transform: "E_z_real", "E_z_imaginary". */
     public static String partName(Component c, boolean real) {
@@ -93,18 +107,22 @@ public final class MapOutputs {
         List<double[]> magnitudes = new ArrayList<>();
         List<Decay> decays = new ArrayList<>();
         double decades = maps.spec().logDecades().si();
+        IncidentField incident = maps.spec().normalise().value() == MapsSpec.Normalise.INCIDENT ? IncidentField.of(plan) : null;
+        String per = incident == null ? null : IncidentField.SYMBOL;
+        String over = incident == null ? "" : "/" + IncidentField.SYMBOL;
         for (int q = 0; q < count; q++) {
             double f = fm.frequency(q);
             double wl = PhysicalConstants.C0 / f;
             frequencies[q] = f;
             wavelengths[q] = wl;
             String tag = pictureTag(wl);
+            double scale = incident == null ? 1 : 1 / incident.amplitude()[q];
             double[] e2 = new double[r.nx() * r.ny()];
             for (int ci = 0; ci < comps.size(); ci++) {
                 Component c = comps.get(ci);
                 double[][] t = fm.transform(c, q);
-                double[] re = Nodes.average(c, t[0], r.nx(), r.ny());
-                double[] im = Nodes.average(c, t[1], r.nx(), r.ny());
+                double[] re = scaled(Nodes.average(c, t[0], r.nx(), r.ny()), scale);
+                double[] im = scaled(Nodes.average(c, t[1], r.nx(), r.ny()), scale);
                 real.get(ci).add(re);
                 imag.get(ci).add(im);
                 if (c.electric) {
@@ -114,7 +132,8 @@ public final class MapOutputs {
                 }
                 if (c == (pol == Polarization.S ? Component.EZ : Component.HZ)) {
                     FieldPicture.of(re, r, FieldOutputs.name(c), FieldOutputs.transformUnit(c), FieldPicture.Quantity.REAL)
-                            .outlines(ids).title(String.format(Locale.ROOT, "Re %s at %.2f nm", FieldOutputs.name(c), wl * 1e9))
+                            .relativeTo(per).outlines(ids)
+                            .title(String.format(Locale.ROOT, "Re %s%s at %.2f nm", FieldOutputs.name(c), over, wl * 1e9))
                             .writePng(dir.resolve("map-" + c.name().toLowerCase(Locale.ROOT) + "-" + tag + ".png"));
                 }
             }
@@ -123,8 +142,8 @@ public final class MapOutputs {
                 mag[k] = Math.sqrt(e2[k]);
             }
             magnitudes.add(mag);
-            FieldPicture.of(mag, r, "E", FieldOutputs.TRANSFORM_UNIT, FieldPicture.Quantity.MAGNITUDE).outlines(ids).logScale(decades)
-                    .title(String.format(Locale.ROOT, "|E| at %.2f nm, log scale", wl * 1e9))
+            FieldPicture.of(mag, r, "E", FieldOutputs.TRANSFORM_UNIT, FieldPicture.Quantity.MAGNITUDE).relativeTo(per).outlines(ids)
+                    .logScale(decades).title(String.format(Locale.ROOT, "|E|%s at %.2f nm, log scale", over, wl * 1e9))
                     .writePng(dir.resolve("map-E-" + tag + "-log.png"));
             for (MapsSpec.DecayLine line : maps.spec().decay()) {
                 try {
@@ -142,15 +161,22 @@ public final class MapOutputs {
             Component c = comps.get(ci);
             for (boolean isReal : new boolean[] {true, false}) {
                 String part = isReal ? "real" : "imaginary";
-                Map<String, Object> a = stackAttributes(plan, r, c, "Fourier transform, " + part + " part", FieldOutputs.transformUnit(c));
+                Map<String, Object> a = stackAttributes(plan, r, c, "Fourier transform, " + part + " part", FieldOutputs.transformUnit(c),
+                        incident);
                 a.put("part", part);
                 stacks.add(new FieldStack(partName(c, isReal), isReal ? real.get(ci) : imag.get(ci), r.nx(), r.ny(),
                         Precision.FLOAT, a));
             }
         }
         stacks.add(new FieldStack(MAGNITUDE, magnitudes, r.nx(), r.ny(), Precision.FLOAT, stackAttributes(plan, r,
-                pol == Polarization.S ? Component.EZ : Component.EX, "magnitude of the transformed electric field |E|", FieldOutputs.TRANSFORM_UNIT)));
+                pol == Polarization.S ? Component.EZ : Component.EX, "magnitude of the transformed electric field |E|", FieldOutputs.TRANSFORM_UNIT,
+                incident)));
         sets.addAll(stacks);
+        if (incident != null) {
+            sets.add(new AxisDataset(INCIDENT, incident.amplitude(), Map.of("quantity", "amplitude of the incident electric field "
+                    + "|E_inc| at each wavelength, which the map stacks are divided by: " + incident.definition(), "unit",
+                    FieldOutputs.TRANSFORM_UNIT)));
+        }
         // the permittivity beside the maps, once for all wavelengths
         List<FieldDataset> permittivity = FieldOutputs.permittivity(plan, box, "relative permittivity on the grid");
         sets.addAll(permittivity);
@@ -168,14 +194,23 @@ public final class MapOutputs {
                     r.y0(), r.cellSize(), attrs));
         }
         Hdf5Writer.write(dir.resolve("maps.h5"), FieldOutputs.fileAttributes(plan), sets);
-        FieldOutputs.writeText(dir.resolve("maps.xmf"), Xdmf.spatial("frequency-domain maps", grids));
+        FieldOutputs.writeText(dir.resolve("maps.xmf"), Xdmf.spatial(incident == null ? "frequency-domain maps"
+                : "frequency-domain maps relative to the incident field " + IncidentField.SYMBOL, grids));
         return decays;
     }
 
-    /** A stack's attributes: those of a field dataset, and what indexes its first axis. */
-    private static Map<String, Object> stackAttributes(CasePlan plan, GridSpec r, Component c, String quantity, String unit) {
-        Map<String, Object> a = FieldOutputs.attributes(plan, r, c, quantity);
-        a.put("unit", unit);
+    /**
+     * A stack's attributes: those of a field dataset, and what indexes its first axis; relative to the incident field
+     * (not null), the unit 1 and {@code relative_to} naming what each layer was divided by.
+     */
+    private static Map<String, Object> stackAttributes(CasePlan plan, GridSpec r, Component c, String quantity, String unit,
+                                                       IncidentField incident) {
+        Map<String, Object> a = FieldOutputs.attributes(plan, r, c, incident == null ? quantity
+                : quantity + ", divided by the incident field's amplitude " + IncidentField.SYMBOL + " (dataset " + INCIDENT + ")");
+        a.put("unit", incident == null ? unit : "1");
+        if (incident != null) {
+            a.put(RELATIVE_TO, IncidentField.SYMBOL);
+        }
         a.put("axes", "wavelength, y, x");
         a.put("wavelength_index", WAVELENGTH);
         return a;

@@ -67,6 +67,12 @@ public final class SweepMerge {
 
     /** Merges, writes sweep.csv (and sweep.png when there is something to plot) into the folder. */
     public static Result write(SweepFolder folder, List<Point> points, List<Dimension> kinds, String title) throws IOException {
+        return write(folder, points, kinds, title, Double.NaN);
+    }
+
+    /** As {@link #write(SweepFolder, List, List, String)}, the plots at {@code plotWavelength} (m; NaN: the design wavelength). */
+    public static Result write(SweepFolder folder, List<Point> points, List<Dimension> kinds, String title, double plotWavelength)
+            throws IOException {
         // the points' folders are read side by side (each on its own), then taken in point order
         List<java.util.Optional<Found>> each;
         try {
@@ -92,7 +98,7 @@ public final class SweepMerge {
         }
         String csv = csv(points.isEmpty() ? List.of() : points.get(0).point().names(), found);
         folder.write(SweepFolder.CSV, csv.getBytes(StandardCharsets.UTF_8));
-        SweepPlot plot = SweepPlot.of(found, kinds, title);
+        SweepPlot plot = SweepPlot.of(found, kinds, title, plotWavelength);
         byte[] png = plot == null ? null : SweepPlot.png(plot.linear());
         if (png != null) {
             folder.write(SweepFolder.PNG, png);

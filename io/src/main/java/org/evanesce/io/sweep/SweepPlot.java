@@ -17,8 +17,9 @@ import org.evanesce.io.run.FluxPlot;
  * and combination of the other parameters.
  *
  * <p>With flux, T of each transmitted line, R of each reflected line and A, each point's flux.csv row
- * nearest to the design wavelength (run.json's {@code resolved_case.design_wavelength_m} of the first
- * point; the first row where it is missing). Where the table has the exact value ({@code X_beam}, else
+ * nearest to the asked wavelength ({@code sweep --plot-wavelength}), by default the design wavelength
+ * (run.json's {@code resolved_case.design_wavelength_m} of the first point; the first row where it is
+ * missing); of two rows equally near, the shorter wavelength. Where the table has the exact value ({@code X_beam}, else
  * {@code X_exact}) the simulated values are markers and the exact ones a line in the same colour. When
  * the swept parameter is an angle and the chosen rows' {@code angle_deg} differs from it (a pulsed
  * plane wave: the case's angle holds at the centre frequency, kx is fixed, so the angle changes with
@@ -38,8 +39,17 @@ record SweepPlot(LinePlot linear, LinePlot log, double wavelength) {
     /** Two angles closer than this (degrees) are the same: flux.csv prints angle_deg with 6 decimals. */
     static final double SAME_ANGLE_DEG = 1e-5;
 
-    /** The plots, or null when there is nothing to plot. */
+    /** The plots at the design wavelength, or null when there is nothing to plot. */
     static SweepPlot of(List<SweepMerge.Found> found, List<Dimension> kinds, String title) {
+        return of(found, kinds, title, Double.NaN);
+    }
+
+    /**
+     * The plots, or null when there is nothing to plot.
+     *
+     * @param askedM the wavelength to draw, m; NaN for the design wavelength
+     */
+    static SweepPlot of(List<SweepMerge.Found> found, List<Dimension> kinds, String title, double askedM) {
         if (found.isEmpty()) {
             return null;
         }
@@ -61,7 +71,8 @@ record SweepPlot(LinePlot linear, LinePlot log, double wavelength) {
             columns.add("A");
         }
         int wl = first.fluxHeader().indexOf("wavelength_nm");
-        double target = Double.isFinite(first.design()) ? first.design() * 1e9
+        boolean asked = Double.isFinite(askedM);
+        double target = asked ? askedM * 1e9 : Double.isFinite(first.design()) ? first.design() * 1e9
                 : wl >= 0 && !first.fluxRows().isEmpty() ? number(first.fluxRows().get(0)[wl]) : Double.NaN;
         int[] rows = new int[found.size()];
         for (int k = 0; k < rows.length; k++) {
@@ -69,7 +80,8 @@ record SweepPlot(LinePlot linear, LinePlot log, double wavelength) {
         }
         double at = wl >= 0 && !first.fluxRows().isEmpty() ? number(first.fluxRows().get(rows[0])[wl]) : Double.NaN;
         String where = Double.isNaN(at) ? " at the first frequency" : " at " + plain(at) + " nm"
-                + (!Double.isFinite(first.design()) ? "" : Math.abs(at - target) < 1e-6 ? " (design wavelength)"
+                + (asked ? (Math.abs(at - target) < 1e-6 ? "" : " (asked: " + plain(target) + " nm)")
+                : !Double.isFinite(first.design()) ? "" : Math.abs(at - target) < 1e-6 ? " (design wavelength)"
                 : " (design: " + plain(target) + " nm)");
         String yTitle = first.fluxHeader().contains("A") || first.fluxLines().stream().anyMatch(c -> c.startsWith("T_")
                 || c.startsWith("R_")) ? "flux / incident power" : "surface power (see summary.json)";
@@ -164,7 +176,10 @@ record SweepPlot(LinePlot linear, LinePlot log, double wavelength) {
         return differs;
     }
 
-    /** The index of the point's flux row whose wavelength_nm is nearest to the target (the first on a tie; 0 without). */
+    /**
+     * The index of the point's flux row whose wavelength_nm is nearest to the target; of two equally near, the shorter
+     * wavelength's (the first of equal ones); 0 without.
+     */
     static int nearest(SweepMerge.Found f, double targetNm) {
         int wl = f.fluxHeader().indexOf("wavelength_nm");
         if (wl < 0 || Double.isNaN(targetNm)) {
@@ -173,8 +188,9 @@ record SweepPlot(LinePlot linear, LinePlot log, double wavelength) {
         int best = 0;
         double gap = Double.POSITIVE_INFINITY;
         for (int r = 0; r < f.fluxRows().size(); r++) {
-            double d = Math.abs(number(f.fluxRows().get(r)[wl]) - targetNm);
-            if (d < gap) {
+            double w = number(f.fluxRows().get(r)[wl]);
+            double d = Math.abs(w - targetNm);
+            if (d < gap || d == gap && w < number(f.fluxRows().get(best)[wl])) {
                 gap = d;
                 best = r;
             }

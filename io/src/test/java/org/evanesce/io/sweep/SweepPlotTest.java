@@ -87,4 +87,34 @@ class SweepPlotTest {
         assertArrayEquals(new double[] {0.9, 0.9}, named(plot.linear(), "T_back").y(), COPIED);
         assertTrue(SweepPlot.nearest(found.get(0), 641) == 2, "the row nearest 641 nm is 640 nm's");
     }
+
+    @Test
+    void anAskedWavelengthIsDrawnInsteadOfTheDesignOne() {
+        List<SweepMerge.Found> found = List.of(point(0, 44, false, 0.4, 633e-9), point(1, 50, false, 0.05, 633e-9));
+        SweepPlot plot = SweepPlot.of(found, List.of(Dimension.ANGLE), "gap", 640e-9);
+        assertEquals(640, plot.wavelength(), COPIED);
+        assertArrayEquals(new double[] {0.9, 0.9}, named(plot.linear(), "T_back").y(), COPIED, "T at 640 nm");
+        assertTrue(plot.linear().title().endsWith("at 640 nm"), plot.linear().title());
+        SweepPlot near = SweepPlot.of(found, List.of(Dimension.ANGLE), "gap", 633.4e-9);
+        assertEquals(632, near.wavelength(), COPIED);
+        assertTrue(near.linear().title().endsWith("at 632 nm (asked: 633.4 nm)"), near.linear().title());
+    }
+
+    @Test
+    void ofTwoRowsEquallyNearTheShorterWavelengthIsDrawn() {
+        // 626 nm lies 6 nm from both 620 and 632 nm; 636 nm 4 nm from both 632 and 640 nm
+        SweepMerge.Found f = point(0, 44, false, 0.4, 633e-9);
+        assertEquals(0, SweepPlot.nearest(f, 626), "620 nm, not 632 nm");
+        assertEquals(1, SweepPlot.nearest(f, 636), "632 nm, not 640 nm");
+        // the rule holds whatever the rows' order (a range written from the longer wavelength down)
+        List<String[]> reversed = new ArrayList<>(f.fluxRows());
+        java.util.Collections.reverse(reversed);
+        SweepMerge.Found down = new SweepMerge.Found(f.point(), f.fluxHeader(), reversed, f.fluxLines(), f.decays(), f.steps(),
+                f.wall(), f.reason(), f.settled(), f.design());
+        assertEquals(2, SweepPlot.nearest(down, 626), "620 nm is the last row here");
+        assertEquals(1, SweepPlot.nearest(down, 636));
+        SweepPlot design = SweepPlot.of(List.of(point(0, 44, false, 0.4, 626e-9), point(1, 50, false, 0.05, 626e-9)),
+                List.of(Dimension.ANGLE), "");
+        assertEquals(620, design.wavelength(), COPIED, "a design wavelength half-way between rows: the shorter");
+    }
 }

@@ -32,8 +32,12 @@ final class OutputReader {
 
     private static final Map<String, OutputSpec.Item> ITEMS = new LinkedHashMap<>();
     private static final Map<String, Component> COMPONENTS = new LinkedHashMap<>();
+    private static final Map<String, MapsSpec.Normalise> MAP_NORMALISE = new LinkedHashMap<>();
 
     static {
+        for (MapsSpec.Normalise n : MapsSpec.Normalise.values()) {
+            MAP_NORMALISE.put(n.caseName(), n);
+        }
         for (OutputSpec.Item i : OutputSpec.Item.values()) {
             ITEMS.put(i.caseName(), i);
         }
@@ -278,6 +282,13 @@ final class OutputReader {
                 }
             }
         }
-        return ok ? new MapsSpec(frequencies, region, decades, lines, v.at()) : null;
+        Located<MapsSpec.Normalise> normalise = new Located<>(MapsSpec.Normalise.ABSOLUTE, v.at());
+        Node nn = v.get("normalise");
+        if (nn != null) {
+            MapsSpec.Normalise n = ctx.choice(nn, v.path("normalise"), MAP_NORMALISE);
+            ok &= n != null;
+            normalise = new Located<>(n, ctx.pos(nn));
+        }
+        return ok ? new MapsSpec(frequencies, region, decades, lines, normalise, v.at()) : null;
     }
 }

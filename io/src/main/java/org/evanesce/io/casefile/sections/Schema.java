@@ -108,7 +108,8 @@ final class Schema {
     static final Section OUTPUT = new Section("output", List.of("folder", "write", "frame_interval", "frame_times",
             "components", "region"));
     static final Section REGION = new Section("output.region", List.of("from", "to"));
-    static final Section MAPS = new Section("maps", List.of("wavelengths", "frequencies", "region", "log_decades", "decay"));
+    static final Section MAPS = new Section("maps", List.of("wavelengths", "frequencies", "region", "log_decades", "decay",
+            "normalise"));
     static final Section MAP_WAVELENGTH_RANGE = new Section("maps.wavelengths", List.of("from", "to", "count"));
     static final Section MAP_FREQUENCY_RANGE = new Section("maps.frequencies", List.of("from", "to", "count"));
     static final Section DECAY_LINE = new Section("maps.decay[]", List.of("name", "from", "to"));

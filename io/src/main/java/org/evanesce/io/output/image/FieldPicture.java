@@ -42,6 +42,8 @@ public final class FieldPicture {
     private final Quantity quantity;
     private FieldSite site = FieldSite.EZ;
     private double logDecades = Double.NaN;
+    /** What the values are divided by, e.g. "|E_inc|", or null when they carry their unit. */
+    private String per;
 
     private FieldPicture(Heatmap.Builder builder, GridSpec grid, String component, String fieldUnit, Quantity quantity) {
         if (component == null || component.isBlank()) {
@@ -121,6 +123,15 @@ public final class FieldPicture {
         return this;
     }
 
+    /**
+     * The values are ratios to {@code reference} (e.g. "|E_inc|"): the colour bar reads "Ez/|E_inc|" or
+     * "|E|/|E_inc|" and shows no unit.
+     */
+    public FieldPicture relativeTo(String reference) {
+        per = reference == null || reference.isBlank() ? null : reference.strip();
+        return this;
+    }
+
     /** The unit of the axes, e.g. the case's length unit; by default chosen from the extent. */
     public FieldPicture axisUnit(DisplayUnit unit) {
         builder.unit(unit);
@@ -133,11 +144,14 @@ public final class FieldPicture {
         return this;
     }
 
-    /** The colour bar's label: "Ez (V/m)", "|Ez| (V/m)" or "|Ez| (V/m), log scale". */
+    /**
+     * The colour bar's label: "Ez (V/m)", "|Ez| (V/m)" or "|Ez| (V/m), log scale"; relative to a reference
+     * "Ez/|E_inc|" or "|E|/|E_inc|, log scale".
+     */
     public String colourBarLabel() {
         boolean log = !Double.isNaN(logDecades);
-        String name = quantity == Quantity.REAL && !log ? component : "|" + component + "|";
-        String unit = fieldUnit.isEmpty() ? "" : " (" + fieldUnit + ")";
+        String name = (quantity == Quantity.REAL && !log ? component : "|" + component + "|") + (per == null ? "" : "/" + per);
+        String unit = fieldUnit.isEmpty() || per != null ? "" : " (" + fieldUnit + ")";
         return name + unit + (log ? ", log scale" : "");
     }
 

@@ -131,6 +131,11 @@ public final class LinePlot {
         return series;
     }
 
+    /** The title line (empty for none). */
+    public String title() {
+        return title;
+    }
+
     /** The x range shown, {low, high}. */
     public double[] xRange() {
         return new double[] {xLow, xHigh};

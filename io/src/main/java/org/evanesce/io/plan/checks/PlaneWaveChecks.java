@@ -82,6 +82,7 @@ final class PlaneWaveChecks {
             wave = (SourceSpec.Launched) spec.sources().get(waves.get(0));
             medium = launchMedium(wave, paths.sources().get(waves.get(0)));
         }
+        new MapNormaliseChecks(spec, paths, checks).run(wave, medium);
         if (spec.flux().isEmpty()) {
             return;
         }
