@@ -3,7 +3,7 @@ package org.evanesce.solver.farfield;
 import org.evanesce.geometry.Complex;
 import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.solver.grid.Polarization;
-import org.evanesce.solver.source.GridWave;
+import org.evanesce.solver.grid.YeeDispersion;
 
 /**
  * The 2D near-to-far-field transformation in the frequency domain: from the tangential fields on a closed contour
@@ -133,7 +133,7 @@ public final class NearToFarField {
         this.field = field;
         this.tangential = tangential;
         if (cellSize != 0 && !(cellSize > 0 && courant > 0 && courant <= Math.sqrt(0.5) && Double.isFinite(cellSize)
-                && gridEpsilon > 0 && GridWave.wavenumber(gridEpsilon, 0, k0 * PhysicalConstants.C0, cellSize, courant) > 0)) {
+                && gridEpsilon > 0 && YeeDispersion.wavenumber(gridEpsilon, 0, k0 * PhysicalConstants.C0, cellSize, courant) > 0)) {
             throw new IllegalArgumentException(String.format("near-to-far-field: a Yee grid of cell %g m and Courant number "
                     + "%g does not carry %g m light in permittivity %g (need a cell > 0, 0 < S <= 1/sqrt 2 and a propagating "
                     + "wave)", cellSize, courant, wavelength, gridEpsilon));
@@ -147,15 +147,15 @@ public final class NearToFarField {
      * along φ, not to the continuum's:
      * <ul>
      * <li>the phase e^{−ik̃ r̂·r'} with the grid's numerical wavenumber k̃(φ) along φ (the Yee dispersion relation,
-     * sin²(k̃ cos φ Δ/2) + sin²(k̃ sin φ Δ/2) = ε sin²(ωΔt/2)/S², Taflove &amp; Hagness ch. 4; {@link GridWave}), so
+     * sin²(k̃ cos φ Δ/2) + sin²(k̃ sin φ Δ/2) = ε sin²(ωΔt/2)/S², Taflove &amp; Hagness ch. 4; {@link YeeDispersion}), so
      * that the phase the scattered wave gathers between the scatterer and the contour on the grid is taken off again
      * (with k, the forward amplitude's phase is off by (k̃ − k)R, R the contour's distance);</li>
      * <li>the two terms weighted so that the grid's own plane wave leaving through a side along φ gives the
      * continuum's 2 k_n U and one arriving gives nothing: with ξ = k̃ (n̂·r̂) Δ/2 the normal wavenumber's half-cell
      * phase, the averaged electric field is divided by cos ξ (its two sites' mean), and the tangential term is
      * scaled by (k/k̃) τ ξ/sin ξ, τ = sin(ωΔt/2)/(ωΔt/2), the ratio of the continuum's V_t/U to the grid's
-     * (S sin ξ / sin(ωΔt/2) for s, over ε for p: the update lines, {@link GridWave}), for p times ε/n² when the
-     * grid's ε differs from the medium's n².</li>
+     * (S sin ξ / sin(ωΔt/2) for s, over ε for p: the update lines, as {@code source.GridWave} has them), for p
+     * times ε/n² when the grid's ε differs from the medium's n².</li>
      * </ul>
      * This is exact for each outgoing grid plane wave crossing a straight side; what remains is second order in Δ
      * and does not grow with the contour's size.
@@ -194,7 +194,7 @@ public final class NearToFarField {
         double tau = 1;
         boolean grid = cellSize > 0;
         if (grid) {
-            kp = GridWave.wavenumber(gridEpsilon, angle, k0 * PhysicalConstants.C0, cellSize, courant);
+            kp = YeeDispersion.wavenumber(gridEpsilon, angle, k0 * PhysicalConstants.C0, cellSize, courant);
             double half = k0 * courant * cellSize / 2;
             tau = Math.sin(half) / half;
         }
