@@ -115,6 +115,8 @@ final class SurfacePlanner {
             }
             run.listener(contour);
             String medium = spec.materialAt(f.from().x().si(), f.from().y().si());
+            // the grid's wavenumbers round the contour follow the permittivity the grid has (dispersion correction)
+            contour.gridPermittivity(materials.get(medium).relativePermittivity());
             double l = x(grid, lbrt[0]);
             double r = x(grid, lbrt[2]);
             double bo = y(grid, lbrt[1]);

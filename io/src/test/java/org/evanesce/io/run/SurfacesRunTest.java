@@ -69,10 +69,13 @@ class SurfacesRunTest {
      */
     static final double CONSERVATION = 7e-5;
     /**
-     * Far-field total against the contour's net flux: measured at most 4.1e-4 (the grid's near field travels with the
-     * grid's wavenumber, the transformation uses the continuum's: O((kΔ)²)); 10x that.
+     * Far-field total against the contour's net flux: they differ at O((kΔ)²), since the far field counts the grid's
+     * outgoing waves by their amplitudes with the continuum's intensity (NearToFarField#onYeeGrid) and the flux is the
+     * grid's own Poynting flux (for a plane wave leaving a side normally, cos(k̃Δ/2) of the continuum's): measured
+     * 4.2e-3 (s and p, 600 nm) at 20 cells per wavelength, 2026-12-04 (4.1e-4 with the continuum's transformation, whose
+     * phase errors the optical theorem showed); about 2.4x that.
      */
-    static final double FAR_TOTAL = 4e-3;
+    static final double FAR_TOTAL = 1e-2;
 
     @ParameterizedTest
     @ValueSource(strings = {"s", "p"})

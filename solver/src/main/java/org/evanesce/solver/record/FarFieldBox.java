@@ -31,6 +31,8 @@ public final class FarFieldBox implements StatefulListener, SharedRecorder {
     private final boolean[] active = new boolean[4];
     /** The grid's rows, one unit of shared work each (known from the first step; 0 before). */
     private int rows;
+    /** ε of the medium round the contour as the grid has it (0: the medium's index squared). */
+    private double gridPermittivity;
 
     /** The sides as {@link FluxBox#FluxBox}: x = (l + ½)Δ … (r + ½)Δ, y = (b + ½)Δ … (t + ½)Δ. */
     public FarFieldBox(Polarization pol, int l, int b, int r, int t, double... frequencies) {
@@ -84,6 +86,19 @@ public final class FarFieldBox implements StatefulListener, SharedRecorder {
         }
     }
 
+    /**
+     * The relative permittivity the grid gives the medium round the contour, when it differs from the medium's index
+     * squared (a case's dispersion correction): the far field's grid wavenumbers follow it.
+     */
+    public FarFieldBox gridPermittivity(double epsilon) {
+        if (!(epsilon > 0) || Double.isInfinite(epsilon)) {
+            throw new IllegalArgumentException(String.format("far-field contour: grid permittivity %g must be finite and > 0",
+                    epsilon));
+        }
+        gridPermittivity = epsilon;
+        return this;
+    }
+
     /** Transforms only samples in [start, end), s (see {@link FluxLine#window}). */
     public FarFieldBox window(double start, double end) {
         box.window(start, end);
@@ -120,6 +135,11 @@ public final class FarFieldBox implements StatefulListener, SharedRecorder {
         int p = 0;
         for (int k = 0; k < 4; k++) {
             FluxLine line = sides[k];
+            long[] count = line.samples();
+            // V_t brought to U's duration: a window holds one sample more of E than of H (or fewer) now and then, which
+            // would weigh the transformation's two terms differently (the transforms are ½ X̂ D, D each one's own)
+            double scale = count[0] == 0 || count[1] == 0 ? 1
+                         : s ? (double) count[0] / count[1] : (double) count[1] / count[0];
             double[][] e = line.electricTransform(q);
             double[][] h = line.magneticTransform(q);
             double[][] u = s ? e : h;
@@ -138,8 +158,8 @@ public final class FarFieldBox implements StatefulListener, SharedRecorder {
                 w[p] = (!s && (j == 0 || j == c - 1) ? 0.5 : 1.0) * cellSize;
                 ur[p] = u[0][j];
                 ui[p] = u[1][j];
-                vr[p] = sign * v[0][j];
-                vi[p] = sign * v[1][j];
+                vr[p] = sign * scale * v[0][j];
+                vi[p] = sign * scale * v[1][j];
                 p++;
             }
         }
@@ -149,13 +169,22 @@ public final class FarFieldBox implements StatefulListener, SharedRecorder {
 
     /**
      * The far field at frequency q of what radiates from inside the contour into a homogeneous lossless medium of
-     * index n round it, phases referred to (originX, originY).
+     * index n round it, phases referred to (originX, originY): the transformation for the grid's own outgoing waves
+     * ({@link NearToFarField#onYeeGrid}; the Courant number from the transforms' time step), so that neither the
+     * phase the grid's dispersion adds between the scatterer and the contour nor the averaging of E onto the sides
+     * enters σ or the forward amplitude.
      */
     public NearToFarField farField(int q, double index, double gridX0, double gridY0, double cellSize, double originX,
                                    double originY) {
         SurfaceSamples[] uv = samples(q, gridX0, gridY0, cellSize, originX, originY);
-        double wavelength = PhysicalConstants.C0 / box.sides()[0].frequency(q);
-        return new NearToFarField(pol, wavelength, index, uv[0], uv[1]);
+        FluxLine side = box.sides()[0];
+        double wavelength = PhysicalConstants.C0 / side.frequency(q);
+        NearToFarField ff = new NearToFarField(pol, wavelength, index, uv[0], uv[1]);
+        long[] n = side.samples();
+        double dt = Math.sqrt(4 / (side.meanPowerScale() * n[0] * n[1]));
+        // no samples yet: nothing to correct (all zero)
+        double eps = gridPermittivity > 0 ? gridPermittivity : index * index;
+        return dt > 0 ? ff.onYeeGrid(cellSize, PhysicalConstants.C0 * dt / cellSize, eps) : ff;
     }
 
     /** 4/(D_E D_H), 1/s²: turns a power from these transforms into a continuous wave's mean power ({@link FluxLine#meanPowerScale}). */
