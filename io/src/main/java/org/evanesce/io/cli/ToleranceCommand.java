@@ -23,8 +23,8 @@ import picocli.CommandLine.Spec;
         description = {"A tolerance study with the exact plane-wave model of a case's layered stack (as "
                 + "flux.transfer_matrix gives it, at the case's design wavelength and source angle, in its polarization): "
                 + "N parts with the varied parameters drawn from their distributions (a fixed seed, so a study repeats), "
-                + "their R, T and A summarised (mean, standard deviation, 5/50/95 % percentiles) and, against limits, the "
-                + "yield with its 95 % interval. Seconds for thousands of parts: size the tolerances first, then confirm "
+                + "their R, T and A summarised (mean, standard deviation, 5/50/95 %% percentiles) and, against limits, the "
+                + "yield with its 95 %% interval. Seconds for thousands of parts: size the tolerances first, then confirm "
                 + "chosen parts with full simulations. Writes tolerance.json, samples.csv and histograms."})
 public final class ToleranceCommand implements Callable<Integer> {
 
