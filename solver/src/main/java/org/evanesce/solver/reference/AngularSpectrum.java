@@ -486,6 +486,29 @@ public final class AngularSpectrum {
     private static double centroidAt(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples,
                                      double window, double distance, double[] incident, double[] reflected,
                                      double from, double to) {
+        double[] flux = fluxAt(stack, polarization, beam, samples, window, distance, incident, reflected);
+        double start = -window / 2;
+        double dx = window / samples;
+        double sum = 0;
+        double moment = 0;
+        for (int j = 0; j < samples; j++) {
+            double x = start + j * dx;
+            if (!(x >= from && x <= to)) {
+                continue;
+            }
+            sum += flux[j];
+            moment += x * flux[j];
+        }
+        return sum > 0 ? moment / sum : Double.NaN;
+    }
+
+    /**
+     * The flux density towards −z across the line z = −d of the beam whose spectrum on the first interface is
+     * {@code reflected} (as {@link #of} keeps it), at x_j = −W/2 + j·W/N: Re(U V*) with V = Q1·U plane wave by plane
+     * wave (Q1 = kz/k0 for s, kz/(k0 n1²) for p; {@link #reflectedCentroid}).
+     */
+    private static double[] fluxAt(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples,
+                                   double window, double distance, double[] incident, double[] reflected) {
         double n1 = stack.incidentIndex();
         double k0 = 2 * Math.PI / beam.wavelength();
         double k = n1 * k0;
@@ -510,20 +533,31 @@ public final class AngularSpectrum {
             fft.complexInverse(x, false);
             shiftToWindow(x, samples, c, scale);
         }
-        double start = -window / 2;
-        double dx = window / samples;
-        double sum = 0;
-        double moment = 0;
+        double[] flux = new double[samples];
         for (int j = 0; j < samples; j++) {
-            double x = start + j * dx;
-            if (!(x >= from && x <= to)) {
-                continue;
-            }
-            double flux = u[2 * j] * v[2 * j] + u[2 * j + 1] * v[2 * j + 1];
-            sum += flux;
-            moment += x * flux;
+            flux[j] = u[2 * j] * v[2 * j] + u[2 * j + 1] * v[2 * j + 1];
         }
-        return sum > 0 ? moment / sum : Double.NaN;
+        return flux;
+    }
+
+    /**
+     * The flux density across the line a distance d back into the incidence medium of the reflected beam
+     * ({@code mirrored} false) or of the incident beam sent back unchanged by a perfect mirror (true), at
+     * x_j = −W/2 + j·W/N in the stack's x: the profiles whose centroids are {@link #reflectedCentroid} and
+     * {@link #specularCentroid}; Q1|U|² in the units of {@link Result}'s profiles (the mirrored one at d = 0 is the
+     * incident beam's own on the interface). A new array.
+     *
+     * @param distance d ≥ 0, m
+     */
+    public static double[] fluxDensity(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples,
+                                       double window, double distance, boolean mirrored) {
+        checkSampling(stack, beam, samples, window);
+        if (!(distance >= 0) || Double.isInfinite(distance)) {
+            throw new IllegalArgumentException(String.format("distance %g m must be finite and >= 0", distance));
+        }
+        double[][] spectra = new double[3][];
+        of(stack, polarization, beam, samples, window, spectra);
+        return fluxAt(stack, polarization, beam, samples, window, distance, spectra[0], mirrored ? spectra[0] : spectra[1]);
     }
 
     /**
