@@ -16,10 +16,12 @@ import org.evanesce.solver.reference.PlanarStack;
  * The beam profiles of a beam case as PNG plots, one per flux line: the simulated flux density across the line
  * (the scattered part for a reflected line) divided by the incident beam's peak flux density on the incident
  * line of the incident-power run, so that a loss shows. With a reference, the angular-spectrum profile of the
- * same beam through the stack under it, divided by its own incident beam's peak on the first interface (|U|²
- * times, on a transmitted line, the exit medium's Re Q over the incidence medium's at the beam's central angle),
- * carried from the interface to the line along the specular (reflected lines) or refracted (transmitted lines)
- * direction: a geometric move for the eye, without the diffraction over that distance; and their difference,
+ * same beam through the stack under it: on a reflected line its own flux density there (each plane wave carried
+ * from the interface to the line, so the beam's diffraction and a changed mean direction are included) over its
+ * incident beam's peak flux density on the first interface; on a transmitted line the profile on the last
+ * interface (|U|² times the exit medium's Re Q over the incidence medium's at the beam's central angle, over the
+ * incident beam's peak |U|²) carried to the line along the refracted direction, a geometric move for the eye
+ * without the diffraction over that distance; and their difference,
  * simulated − reference. The x range is the beam's centroid ± {@link BeamSeries#HALF_WIDTHS} of its 1/e²
  * half-widths on that line, clipped to the line ({@link BeamSeries}). Lines that see less than
  * {@link FluxResults#MIN_BEAM_POWER} of the incident power are not drawn. {@code beam-incident.png} shows the
@@ -87,9 +89,26 @@ public final class BeamPlots {
                     admittanceRatio = admittance(pol, stack.exitIndex(), sinI).re()
                             / admittance(pol, Complex.real(plan.mediumIndex()), sinI).re();
                 } else {
-                    // the reflected profile on the interface, moved to the line along the specular direction
-                    shift = BeamReference.specular(plan, l.y()) - hit;
-                    u = as.reflected();
+                    // the reflected beam's own flux density on the line (each plane wave carried there), over the
+                    // incident beam's peak flux density on the interface: the profile whose centroid is the
+                    // reference's shift (BeamReference.reflectedShift), diffraction over the distance included
+                    PlanarStack stack = plan.exact().get().stack().apply(wl);
+                    AngularSpectrum.GaussianBeam beam = BeamReference.beam(plan, wl);
+                    double window = as.samples() * as.spacing();
+                    double[] line = AngularSpectrum.fluxDensity(stack, pol, beam, as.samples(), window,
+                            Math.abs(interfaceY - l.y()), false);
+                    double incidentPeakFlux = peak(AngularSpectrum.fluxDensity(stack, pol, beam, as.samples(), window, 0,
+                            true));
+                    if (incidentPeakFlux > 0) {
+                        refX = new double[as.samples()];
+                        refY = new double[as.samples()];
+                        for (int j = 0; j < refX.length; j++) {
+                            refX[j] = hit + as.x(j);
+                            refY[j] = line[j] / incidentPeakFlux;
+                        }
+                    }
+                    shift = Double.NaN; // drawn above
+                    u = null;
                 }
                 if (Double.isFinite(shift) && Double.isFinite(admittanceRatio)) {
                     refX = new double[as.samples()];

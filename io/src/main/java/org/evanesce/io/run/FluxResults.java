@@ -132,6 +132,14 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
             if (reference != null && !reference.converged()) {
                 warnings.add(BeamReference.notConverged(reference, wl));
             }
+            if (reference != null && q == plan.frequencies().length / 2) { // once, at the middle frequency
+                for (FluxPlan.Line l : BeamReference.reflectedLines(plan)) {
+                    String w = BeamReference.lineLengthWarning(plan, stack, pol, wl, reference, l);
+                    if (w != null) {
+                        warnings.add(w);
+                    }
+                }
+            }
             double[] v = new double[columns.size()];
             int k = 0;
             double sum = 0;
@@ -177,7 +185,9 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
                     v[k++] = seen ? p.width() * 1e6 : Double.NaN;
                     v[k++] = seen ? outgoingAngle(plan, l, t, q, p.centroid()) : Double.NaN;
                     if (exact && !t) {
-                        v[k++] = seen ? (p.centroid() - BeamReference.gridSpecular(plan, q, l.y())) * 1e6 : Double.NaN;
+                        double baseline = BeamReference.gridSpecular(plan, q, l.y(),
+                                BeamReference.specularOnLine(plan, reference, l));
+                        v[k++] = seen ? (p.centroid() - baseline) * 1e6 : Double.NaN;
                         v[k++] = as == null ? Double.NaN : BeamReference.reflectedShift(plan, reference, l) * 1e6;
                     }
                 }
@@ -273,10 +283,13 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
                         + "where the incident beam itself lies after the same path on the grid (its centroids in the "
                         + "incident-power run on the incident line and on a line at the mirror image of the reflected line "
                         + "through the interface" + (plan.path().isPresent() ? ", y = " + plan.path().get().y() + " m"
-                        : ": none fitted, so the nominal specular position") + ", carried along its straight path), so "
-                        + "that the grid's effect on the beam's direction is not counted as shift; shift_name_beam_um: the angular spectrum's on the same line (flux-weighted, carried from "
+                        : ": none fitted, so the angular spectrum's incident beam mirrored on the line") + ", carried along "
+                        + "its straight path), so that the grid's effect on the beam's direction is not counted as shift; "
+                        + "shift_name_beam_um: the angular spectrum's on the same line (flux-weighted, carried from "
                         + "the interface to the line, so a reflected beam leaving at a slightly different mean angle is "
-                        + "compared where it is measured)");
+                        + "compared where it is measured), its reflected centroid minus that of its incident beam sent "
+                        + "back unchanged by a perfect mirror: the same baseline, which for a narrow beam is not the "
+                        + "geometric distance times tan(angle)");
                 Map<String, Object> conv = new LinkedHashMap<>();
                 conv.put("method", "the beam's angular spectrum is sampled over a window of " + BeamReference.WINDOW_FOOTPRINTS
                         + " footprints (waist / cos angle), then the window and the number of samples are doubled together "
