@@ -53,6 +53,12 @@ public final class Leftovers {
         return "." + name + ".replaced-" + tag.text();
     }
 
+    /** Whether {@code dir} is a results folder still being written ({@code .NAME.partial-TAG}, see {@link RunFolder}). */
+    static boolean isUnfinishedFolder(Path dir) {
+        Path name = dir.getFileName();
+        return name != null && PARTIAL.matcher(name.toString()).matches();
+    }
+
     /** Whether {@code fileName} is one of evanesce's temporary names (of any target). */
     public static boolean isTemporary(String fileName) {
         return PARTIAL.matcher(fileName).matches() || REPLACED.matcher(fileName).matches()

@@ -26,8 +26,9 @@ import java.util.stream.Stream;
  * ({@code .NAME.HOST-PID-RANDOM.tmp}, see {@link OwnerTag}), created new (an existing file or a
  * symbolic link under that name makes the creation fail; nothing is followed), locked while it is
  * written, flushed to the disk ({@link FileChannel#force}), renamed onto the target, and the folder
- * flushed after the rename where the platform allows. After a failure the temporary is deleted and
- * the target is as it was.
+ * flushed after the rename where the platform allows (inside a results folder still being written, the
+ * folder is flushed once when it is finished instead: see {@link #moveOnto}). After a failure the
+ * temporary is deleted and the target is as it was.
  *
  * <p>Tests can make writes fail as if the disk were full: with the system property
  * {@value #NO_SPACE_PROPERTY} set to a regular expression, writing a file whose absolute path
@@ -158,14 +159,22 @@ public final class SafeFiles {
         moveOnto(tmp, target);
     }
 
-    /** Renames a finished file or folder onto {@code target} (replacing a file there) and flushes the folder. */
+    /**
+     * Renames a finished file or folder onto {@code target} (replacing a file there) and flushes the folder,
+     * unless the folder is a results folder still being written ({@link RunFolder}): that one is flushed once,
+     * with all its names, when it is finished and before it is renamed into place, so a flush per file there
+     * (two thirds of a sweep's forced writes) adds nothing to what survives a power failure.
+     */
     static void moveOnto(Path from, Path target) throws IOException {
         try {
             Files.move(from, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
         } catch (AtomicMoveNotSupportedException e) {
             Files.move(from, target, StandardCopyOption.REPLACE_EXISTING);
         }
-        syncFolder(target.toAbsolutePath().getParent());
+        Path dir = target.toAbsolutePath().getParent();
+        if (!Leftovers.isUnfinishedFolder(dir)) {
+            syncFolder(dir);
+        }
     }
 
     /**

@@ -13,9 +13,7 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.evanesce.io.output.Leftovers;
 import org.evanesce.io.output.SafeFiles;
-import org.snakeyaml.engine.v2.api.Load;
-import org.snakeyaml.engine.v2.api.LoadSettings;
-import org.snakeyaml.engine.v2.exceptions.YamlEngineException;
+import org.evanesce.io.output.JsonReader;
 
 /**
  * A sweep's folder: {@code sweep.json}, one complete run folder per finished point
@@ -155,8 +153,8 @@ public final class SweepFolder {
     }
 
     /**
-     * Reads a JSON file written by {@link org.evanesce.io.output.Json} (JSON is YAML 1.2, so the case
-     * file's YAML reader reads it): maps, lists, strings, numbers, booleans and null.
+     * Reads a JSON file written by {@link org.evanesce.io.output.Json} ({@link JsonReader}): maps, lists,
+     * strings, numbers, booleans and null.
      *
      * @throws NoSuchFileException when it does not exist
      * @throws IOException         when it cannot be read or is not JSON
@@ -164,9 +162,8 @@ public final class SweepFolder {
     public static Object readJson(Path file) throws IOException {
         String text = Files.readString(file);
         try {
-            return new Load(LoadSettings.builder().setLabel(file.toString()).setCodePointLimit(Integer.MAX_VALUE).build())
-                    .loadFromString(text);
-        } catch (YamlEngineException e) {
+            return JsonReader.read(text);
+        } catch (JsonReader.NotJson e) {
             throw new IOException(file + ": not readable JSON: " + e.getMessage(), e);
         }
     }

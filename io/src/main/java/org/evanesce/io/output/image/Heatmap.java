@@ -51,8 +51,8 @@ import org.evanesce.geometry.MaterialGrid;
  * both ends of every map.
  *
  * <p>Text is drawn with {@link PixelFont}, so nothing depends on installed fonts; the picture is
- * built in a {@link BufferedImage} of type {@code TYPE_INT_RGB} and written with
- * {@link javax.imageio} only, which work with {@code -Djava.awt.headless=true}.
+ * built in a {@link BufferedImage} of type {@code TYPE_INT_RGB} and written by {@link PngFile}, which
+ * works with {@code -Djava.awt.headless=true}.
  *
  * <p>Immutable once built. The value array is <em>not</em> copied (field arrays can be large):
  * do not change it while the heat map is in use.

@@ -22,7 +22,7 @@ import java.util.List;
  * each axis is [0, 1]. Lines and markers are clipped to the plot area.
  *
  * <p>As for {@link Heatmap}, text is drawn with {@link PixelFont} and the image is a
- * {@code TYPE_INT_RGB} {@link BufferedImage} written with {@link javax.imageio}, so plots can be
+ * {@code TYPE_INT_RGB} {@link BufferedImage} written by {@link PngFile}, so plots can be
  * made on a headless machine without fonts. Immutable once built; the point arrays are copied.
  */
 public final class LinePlot {
