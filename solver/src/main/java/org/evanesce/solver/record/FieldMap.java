@@ -17,7 +17,10 @@ import org.evanesce.solver.grid.Polarization;
  * X(f) = Σ F(t) e^{i2πft} Δt, with complex (Bloch-periodic) fields taken as re + i·im. Node (i, j) of a
  * component stands for its site on the Yee cell ({@link Component#dx}, {@link Component#dy}); no
  * averaging onto common points is done. Each step reads every cell of the rectangle once per component
- * and accumulates all frequencies from that reading. A simulation shares the rows among its worker threads
+ * and accumulates all frequencies from that reading. With a stride N ({@link #stride(int)}) only the steps
+ * whose number is a multiple of N are read, each weighted NΔt: X(f) = Σ F(t_{kN}) e^{i2πf t_{kN}} NΔt, the
+ * same transform as long as the fields hold no frequency that N steps alias onto a mapped one (see
+ * {@link #stride(int)}). A simulation shares the rows among its worker threads
  * ({@link SharedRecorder}); each cell's sums see the same operations in the same order on any thread.
  *
  * <p>Memory: the accumulators hold 2 doubles (re, im) per cell per component per frequency, so
@@ -72,6 +75,8 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
     private boolean decided;
     /** Steps held and not yet added; {@link #HELD_STEPS} once the step that filled the slots has added them. */
     private int pending;
+    /** Steps between samples: 1 reads every step. */
+    private int stride = 1;
     private double windowStart = Double.NEGATIVE_INFINITY;
     private double windowEnd = Double.POSITIVE_INFINITY;
     private boolean checked;
@@ -132,6 +137,30 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
         return this;
     }
 
+    /**
+     * Reads the fields only at steps whose number is a multiple of {@code steps}, each sample weighted
+     * steps·Δt (call before the first step). The caller must know that the fields hold no frequency f'
+     * with f' ≡ ±f (mod 1/(steps·Δt)) other than f itself for a mapped frequency f: by the Poisson summation
+     * formula the strided sum is the every-step sum plus the fields' spectrum at f + k/(steps·Δt), k ≠ 0
+     * (the sampling theorem: C. E. Shannon, "Communication in the presence of noise", Proc. IRE 37, 10–21,
+     * 1949, Theorem 1). For fields band-limited to |f'| ≤ f_top (a linear grid passes on only its sources'
+     * frequencies, modulo 1/Δt) that holds when 1/(steps·Δt) &gt; f + f_top.
+     *
+     * @param steps steps between samples, ≥ 1
+     */
+    public FieldMap stride(int steps) {
+        if (steps < 1) {
+            throw new IllegalArgumentException(String.format("field map stride %d steps: expected at least 1", steps));
+        }
+        stride = steps;
+        return this;
+    }
+
+    /** Steps between samples (1: every step). */
+    public int stride() {
+        return stride;
+    }
+
     @Override
     public boolean prepare(StepView v, int workers) {
         if (!checked) {
@@ -141,10 +170,14 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
             }
             checked = true;
         }
+        if (stride > 1 && v.stepCount() % stride != 0) {
+            return false;
+        }
         double te = v.time();
         double th = te - 0.5 * v.dt();
-        double we = te >= windowStart && te < windowEnd ? v.dt() : 0;
-        double wh = th >= windowStart && th < windowEnd ? v.dt() : 0;
+        double weight = stride * v.dt();
+        double we = te >= windowStart && te < windowEnd ? weight : 0;
+        double wh = th >= windowStart && th < windowEnd ? weight : 0;
         if (we == 0 && wh == 0) {
             return false;
         }
