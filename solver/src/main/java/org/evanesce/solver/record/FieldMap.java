@@ -75,6 +75,22 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
     private boolean decided;
     /** Steps held and not yet added; {@link #HELD_STEPS} once the step that filled the slots has added them. */
     private int pending;
+    /**
+     * Per worker, for {@link #addHeld}: calls so far and the last measured nanoseconds per cell and slot of the
+     * scalar and the vector loop. Until the JIT has compiled the vector loop it runs the Vector API's Java
+     * fallback, several times slower than the scalar loop (issue 18: most of the map's samples in a profile of the
+     * tail example once it read every 8th step); both loops give every sum the same bits, so the choice is made on
+     * time alone: the faster so far, the other tried on a few cells every {@link #RETRY_EVERY} calls.
+     */
+    private long[] heldCalls = new long[1];
+    private double[] scalarCost = {Double.NaN};
+    private double[] vectorCost = {Double.NaN};
+    /** Calls between trials of the slower loop. */
+    static final int RETRY_EVERY = 16;
+    /** Cells (times the slots) the slower loop does on a trial: a few per cent of a 300 × 300 map's rows per band. */
+    static final int TRIAL_CELLS = 2048;
+    /** Tests: null lets the timings choose, else always the vector (true) or the scalar (false) loop. */
+    Boolean forceVectors;
     /** Steps between samples: 1 reads every step. */
     private int stride = 1;
     private double windowStart = Double.NEGATIVE_INFINITY;
@@ -206,6 +222,17 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
             rowRe = new double[workers][components.length][w];
             rowIm = new double[workers][components.length][w];
         }
+        if (heldCalls.length < workers) {
+            heldCalls = java.util.Arrays.copyOf(heldCalls, workers);
+            scalarCost = java.util.Arrays.copyOf(scalarCost, workers);
+            vectorCost = java.util.Arrays.copyOf(vectorCost, workers);
+            for (int k = 0; k < workers; k++) {
+                if (heldCalls[k] == 0) {
+                    scalarCost[k] = Double.NaN;
+                    vectorCost[k] = Double.NaN;
+                }
+            }
+        }
         return true;
     }
 
@@ -238,7 +265,7 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
             add(rowsRe, rowsIm, row, w);
         }
         if (holding && pending == HELD_STEPS) {
-            addHeld(u0 * w, (u1 - u0) * w, HELD_STEPS);
+            addHeld(u0 * w, (u1 - u0) * w, HELD_STEPS, worker);
         }
     }
 
@@ -247,13 +274,61 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
     private static final VectorSpecies<Float> FS = FloatVector.SPECIES_128;
 
     /**
-     * Adds held slots 0 .. slots − 1 of the cells [first, first + count) (flat map indices) to the sums, four cells
-     * at a time with the sums in registers over the slots; each sum gets, slot after slot, the products and sums of
-     * the one-step form (no fused multiply-add), so the bits are those of adding every step at once.
+     * Adds held slots 0 .. slots − 1 of the cells [first, first + count) (flat map indices) to the sums, by the
+     * loop that has been faster for this worker ({@link #heldCalls}); every {@link #RETRY_EVERY} calls (and on
+     * the first) the other loop does the first {@link #TRIAL_CELLS} cells, timed apart, so that a loop not yet
+     * compiled costs little to try. Both loops give every cell the same bits.
      */
-    private void addHeld(int first, int count, int slots) {
+    private void addHeld(int first, int count, int slots, int worker) {
+        if (count == 0) {
+            return;
+        }
+        boolean vectors;
+        boolean trial;
+        if (forceVectors != null) {
+            vectors = forceVectors;
+            trial = false;
+        } else {
+            long n = heldCalls[worker]++;
+            boolean unknown = Double.isNaN(scalarCost[worker]) || Double.isNaN(vectorCost[worker]);
+            // unknown: the loop not yet timed is the trial
+            vectors = unknown ? !Double.isNaN(vectorCost[worker]) : vectorCost[worker] < scalarCost[worker];
+            trial = unknown || n % RETRY_EVERY == 0;
+        }
+        int done = first;
+        if (trial) {
+            int k = Math.min(count, TRIAL_CELLS);
+            long t0 = System.nanoTime();
+            addHeld(first, k, slots, !vectors);
+            record(worker, !vectors, System.nanoTime() - t0, (long) k * slots);
+            done = first + k;
+        }
+        if (done < first + count) {
+            long t0 = System.nanoTime();
+            addHeld(done, first + count - done, slots, vectors);
+            record(worker, vectors, System.nanoTime() - t0, (long) (first + count - done) * slots);
+        }
+    }
+
+    /** Keeps the latest cost, in nanoseconds per cell and slot, of one loop. */
+    private void record(int worker, boolean vectors, long nanos, long cellSlots) {
+        double cost = nanos / (double) cellSlots;
+        if (vectors) {
+            vectorCost[worker] = cost;
+        } else {
+            scalarCost[worker] = cost;
+        }
+    }
+
+    /**
+     * Adds held slots 0 .. slots − 1 of the cells [first, first + count) to the sums: with {@code vectors} four cells
+     * at a time with the sums in registers over the slots, the rest (or all) one cell at a time; each sum gets, slot
+     * after slot, the products and sums of the one-step form (no fused multiply-add), so the bits are those of
+     * adding every step at once, whichever loop.
+     */
+    private void addHeld(int first, int count, int slots, boolean vectors) {
         int cells = (i1 - i0) * (j1 - j0);
-        int vectorEnd = first + count - count % DS.length();
+        int vectorEnd = vectors ? first + count - count % DS.length() : first;
         for (int c = 0; c < components.length; c++) {
             boolean electric = components[c].electric;
             float[] a = heldRe[c];
@@ -338,7 +413,7 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
     /** Adds the steps still held (between steps: before the sums are read or saved). */
     private void settle() {
         if (holding && pending > 0 && pending < HELD_STEPS) {
-            addHeld(0, (i1 - i0) * (j1 - j0), pending);
+            addHeld(0, (i1 - i0) * (j1 - j0), pending, 0);
         }
         pending = 0;
     }
