@@ -360,20 +360,29 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
                     r.intoArray(xr, t);
                     i.intoArray(xi, t);
                 }
-                for (; t < first + count; t++) {
+                // one cell at a time, its sums in locals over the slots (not read and written back per slot)
+                int end = first + count;
+                for (; t < end; t++) {
+                    double r = xr[t];
+                    double i = xi[t];
                     for (int slot = 0; slot < slots; slot++) {
-                        if (cs[slot] == 0 && sn[slot] == 0) {
+                        double c0 = cs[slot];
+                        double s0 = sn[slot];
+                        if (c0 == 0 && s0 == 0) {
                             continue;
                         }
-                        int at = slot * cells + t;
+                        double u = a[slot * cells + t];
                         if (b == null) {
-                            xr[t] += a[at] * cs[slot];
-                            xi[t] += a[at] * sn[slot];
+                            r += u * c0;
+                            i += u * s0;
                         } else {
-                            xr[t] += a[at] * cs[slot] - b[at] * sn[slot];
-                            xi[t] += a[at] * sn[slot] + b[at] * cs[slot];
+                            double w = b[slot * cells + t];
+                            r += u * c0 - w * s0;
+                            i += u * s0 + w * c0;
                         }
                     }
+                    xr[t] = r;
+                    xi[t] = i;
                 }
             }
         }
