@@ -390,6 +390,10 @@ public final class CasePlanner {
                         halves.forEach(run::listener);
                     }
                 }
+                if (steady.isEmpty()) {
+                    // pulses: every few steps is the same transform (MapStride; issue 18)
+                    fm.stride(MapStride.of(spec.sources().stream().map(x -> x.signal()).toList(), f, dt));
+                }
                 run.listener(fm);
                 for (int k = 0; k < m.decay().size(); k++) {
                     var l = m.decay().get(k);

@@ -286,15 +286,15 @@ final class DoubleAde {
 
     /**
      * Flushes the state of row j's cells as the field is flushed (values below the threshold set to
-     * zero), so that E⁰ stays equal to the flushed field.
+     * zero), so that E⁰ stays equal to the flushed field; vl is the engine's vector bound ({@link DoubleKernels#flush}).
      */
-    void flushRow(int j) {
+    void flushRow(int j, int vl) {
         for (Group g : groups) {
             int a = g.rowStart[j];
             int b = g.rowStart[j + 1];
             if (b > a) {
                 for (double[] s : g.arrays()) {
-                    DoubleKernels.flush(s, a, b);
+                    DoubleKernels.flush(s, a, b, vl);
                 }
             }
         }

@@ -149,12 +149,12 @@ abstract class DoubleEngine extends Engine {
         if (dispersive) {
             for (DoubleAde a : ade) {
                 if (a != null) {
-                    a.flushRow(j);
+                    a.flushRow(j, vl);
                 }
             }
             for (DoubleSeries a : series) {
                 if (a != null) {
-                    a.flushRow(j);
+                    a.flushRow(j, vl);
                 }
             }
         }
@@ -184,7 +184,7 @@ abstract class DoubleEngine extends Engine {
         int r = j * nx;
         double max = 0;
         for (double[] a : arrays) {
-            max = Math.max(max, DoubleKernels.flush(a, r, r + nx));
+            max = Math.max(max, DoubleKernels.flush(a, r, r + nx, vl));
         }
         return max;
     }

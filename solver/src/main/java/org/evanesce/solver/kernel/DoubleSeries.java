@@ -166,14 +166,14 @@ final class DoubleSeries {
         }
     }
 
-    /** Flushes the state of row j's cells as the field is flushed (values below the threshold set to zero). */
-    void flushRow(int j) {
+    /** Flushes the state of row j's cells as the field is flushed (values below the threshold set to zero; vl: the engine's vector bound, {@link DoubleKernels#flush}). */
+    void flushRow(int j, int vl) {
         for (Group g : groups) {
             int a = g.rowStart[j];
             int b = g.rowStart[j + 1];
             if (b > a) {
                 for (double[] s : g.state) {
-                    DoubleKernels.flush(s, a, b);
+                    DoubleKernels.flush(s, a, b, vl);
                 }
             }
         }

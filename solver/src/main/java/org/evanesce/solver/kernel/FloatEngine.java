@@ -149,12 +149,12 @@ abstract class FloatEngine extends Engine {
         if (dispersive) {
             for (FloatAde a : ade) {
                 if (a != null) {
-                    a.flushRow(j);
+                    a.flushRow(j, vl);
                 }
             }
             for (FloatSeries a : series) {
                 if (a != null) {
-                    a.flushRow(j);
+                    a.flushRow(j, vl);
                 }
             }
         }
@@ -184,7 +184,7 @@ abstract class FloatEngine extends Engine {
         int r = j * nx;
         double max = 0;
         for (float[] a : arrays) {
-            max = Math.max(max, FloatKernels.flush(a, r, r + nx));
+            max = Math.max(max, FloatKernels.flush(a, r, r + nx, vl));
         }
         return max;
     }

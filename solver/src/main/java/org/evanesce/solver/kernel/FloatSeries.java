@@ -166,14 +166,14 @@ final class FloatSeries {
         }
     }
 
-    /** Flushes the state of row j's cells as the field is flushed (values below the threshold set to zero). */
-    void flushRow(int j) {
+    /** Flushes the state of row j's cells as the field is flushed (values below the threshold set to zero; vl: the engine's vector bound, {@link FloatKernels#flush}). */
+    void flushRow(int j, int vl) {
         for (Group g : groups) {
             int a = g.rowStart[j];
             int b = g.rowStart[j + 1];
             if (b > a) {
                 for (float[] s : g.state) {
-                    FloatKernels.flush(s, a, b);
+                    FloatKernels.flush(s, a, b, vl);
                 }
             }
         }

@@ -17,7 +17,10 @@ import org.evanesce.solver.grid.Polarization;
  * X(f) = Σ F(t) e^{i2πft} Δt, with complex (Bloch-periodic) fields taken as re + i·im. Node (i, j) of a
  * component stands for its site on the Yee cell ({@link Component#dx}, {@link Component#dy}); no
  * averaging onto common points is done. Each step reads every cell of the rectangle once per component
- * and accumulates all frequencies from that reading. A simulation shares the rows among its worker threads
+ * and accumulates all frequencies from that reading. With a stride N ({@link #stride(int)}) only the steps
+ * whose number is a multiple of N are read, each weighted NΔt: X(f) = Σ F(t_{kN}) e^{i2πf t_{kN}} NΔt, the
+ * same transform as long as the fields hold no frequency that N steps alias onto a mapped one (see
+ * {@link #stride(int)}). A simulation shares the rows among its worker threads
  * ({@link SharedRecorder}); each cell's sums see the same operations in the same order on any thread.
  *
  * <p>Memory: the accumulators hold 2 doubles (re, im) per cell per component per frequency, so
@@ -72,6 +75,24 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
     private boolean decided;
     /** Steps held and not yet added; {@link #HELD_STEPS} once the step that filled the slots has added them. */
     private int pending;
+    /**
+     * Per worker, for {@link #addHeld}: calls so far and the last measured nanoseconds per cell and slot of the
+     * scalar and the vector loop. Until the JIT has compiled the vector loop it runs the Vector API's Java
+     * fallback, several times slower than the scalar loop (issue 18: most of the map's samples in a profile of the
+     * tail example once it read every 8th step); both loops give every sum the same bits, so the choice is made on
+     * time alone: the faster so far, the other tried on a few cells every {@link #RETRY_EVERY} calls.
+     */
+    private long[] heldCalls = new long[1];
+    private double[] scalarCost = {Double.NaN};
+    private double[] vectorCost = {Double.NaN};
+    /** Calls between trials of the slower loop. */
+    static final int RETRY_EVERY = 16;
+    /** Cells (times the slots) the slower loop does on a trial: a few per cent of a 300 × 300 map's rows per band. */
+    static final int TRIAL_CELLS = 2048;
+    /** Tests: null lets the timings choose, else always the vector (true) or the scalar (false) loop. */
+    Boolean forceVectors;
+    /** Steps between samples: 1 reads every step. */
+    private int stride = 1;
     private double windowStart = Double.NEGATIVE_INFINITY;
     private double windowEnd = Double.POSITIVE_INFINITY;
     private boolean checked;
@@ -132,6 +153,30 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
         return this;
     }
 
+    /**
+     * Reads the fields only at steps whose number is a multiple of {@code steps}, each sample weighted
+     * steps·Δt (call before the first step). The caller must know that the fields hold no frequency f'
+     * with f' ≡ ±f (mod 1/(steps·Δt)) other than f itself for a mapped frequency f: by the Poisson summation
+     * formula the strided sum is the every-step sum plus the fields' spectrum at f + k/(steps·Δt), k ≠ 0
+     * (the sampling theorem: C. E. Shannon, "Communication in the presence of noise", Proc. IRE 37, 10–21,
+     * 1949, Theorem 1). For fields band-limited to |f'| ≤ f_top (a linear grid passes on only its sources'
+     * frequencies, modulo 1/Δt) that holds when 1/(steps·Δt) &gt; f + f_top.
+     *
+     * @param steps steps between samples, ≥ 1
+     */
+    public FieldMap stride(int steps) {
+        if (steps < 1) {
+            throw new IllegalArgumentException(String.format("field map stride %d steps: expected at least 1", steps));
+        }
+        stride = steps;
+        return this;
+    }
+
+    /** Steps between samples (1: every step). */
+    public int stride() {
+        return stride;
+    }
+
     @Override
     public boolean prepare(StepView v, int workers) {
         if (!checked) {
@@ -141,10 +186,14 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
             }
             checked = true;
         }
+        if (stride > 1 && v.stepCount() % stride != 0) {
+            return false;
+        }
         double te = v.time();
         double th = te - 0.5 * v.dt();
-        double we = te >= windowStart && te < windowEnd ? v.dt() : 0;
-        double wh = th >= windowStart && th < windowEnd ? v.dt() : 0;
+        double weight = stride * v.dt();
+        double we = te >= windowStart && te < windowEnd ? weight : 0;
+        double wh = th >= windowStart && th < windowEnd ? weight : 0;
         if (we == 0 && wh == 0) {
             return false;
         }
@@ -172,6 +221,17 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
             int w = i1 - i0;
             rowRe = new double[workers][components.length][w];
             rowIm = new double[workers][components.length][w];
+        }
+        if (heldCalls.length < workers) {
+            heldCalls = java.util.Arrays.copyOf(heldCalls, workers);
+            scalarCost = java.util.Arrays.copyOf(scalarCost, workers);
+            vectorCost = java.util.Arrays.copyOf(vectorCost, workers);
+            for (int k = 0; k < workers; k++) {
+                if (heldCalls[k] == 0) {
+                    scalarCost[k] = Double.NaN;
+                    vectorCost[k] = Double.NaN;
+                }
+            }
         }
         return true;
     }
@@ -205,7 +265,7 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
             add(rowsRe, rowsIm, row, w);
         }
         if (holding && pending == HELD_STEPS) {
-            addHeld(u0 * w, (u1 - u0) * w, HELD_STEPS);
+            addHeld(u0 * w, (u1 - u0) * w, HELD_STEPS, worker);
         }
     }
 
@@ -214,13 +274,61 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
     private static final VectorSpecies<Float> FS = FloatVector.SPECIES_128;
 
     /**
-     * Adds held slots 0 .. slots − 1 of the cells [first, first + count) (flat map indices) to the sums, four cells
-     * at a time with the sums in registers over the slots; each sum gets, slot after slot, the products and sums of
-     * the one-step form (no fused multiply-add), so the bits are those of adding every step at once.
+     * Adds held slots 0 .. slots − 1 of the cells [first, first + count) (flat map indices) to the sums, by the
+     * loop that has been faster for this worker ({@link #heldCalls}); every {@link #RETRY_EVERY} calls (and on
+     * the first) the other loop does the first {@link #TRIAL_CELLS} cells, timed apart, so that a loop not yet
+     * compiled costs little to try. Both loops give every cell the same bits.
      */
-    private void addHeld(int first, int count, int slots) {
+    private void addHeld(int first, int count, int slots, int worker) {
+        if (count == 0) {
+            return;
+        }
+        boolean vectors;
+        boolean trial;
+        if (forceVectors != null) {
+            vectors = forceVectors;
+            trial = false;
+        } else {
+            long n = heldCalls[worker]++;
+            boolean unknown = Double.isNaN(scalarCost[worker]) || Double.isNaN(vectorCost[worker]);
+            // unknown: the loop not yet timed is the trial
+            vectors = unknown ? !Double.isNaN(vectorCost[worker]) : vectorCost[worker] < scalarCost[worker];
+            trial = unknown || n % RETRY_EVERY == 0;
+        }
+        int done = first;
+        if (trial) {
+            int k = Math.min(count, TRIAL_CELLS);
+            long t0 = System.nanoTime();
+            addHeld(first, k, slots, !vectors);
+            record(worker, !vectors, System.nanoTime() - t0, (long) k * slots);
+            done = first + k;
+        }
+        if (done < first + count) {
+            long t0 = System.nanoTime();
+            addHeld(done, first + count - done, slots, vectors);
+            record(worker, vectors, System.nanoTime() - t0, (long) (first + count - done) * slots);
+        }
+    }
+
+    /** Keeps the latest cost, in nanoseconds per cell and slot, of one loop. */
+    private void record(int worker, boolean vectors, long nanos, long cellSlots) {
+        double cost = nanos / (double) cellSlots;
+        if (vectors) {
+            vectorCost[worker] = cost;
+        } else {
+            scalarCost[worker] = cost;
+        }
+    }
+
+    /**
+     * Adds held slots 0 .. slots − 1 of the cells [first, first + count) to the sums: with {@code vectors} four cells
+     * at a time with the sums in registers over the slots, the rest (or all) one cell at a time; each sum gets, slot
+     * after slot, the products and sums of the one-step form (no fused multiply-add), so the bits are those of
+     * adding every step at once, whichever loop.
+     */
+    private void addHeld(int first, int count, int slots, boolean vectors) {
         int cells = (i1 - i0) * (j1 - j0);
-        int vectorEnd = first + count - count % DS.length();
+        int vectorEnd = vectors ? first + count - count % DS.length() : first;
         for (int c = 0; c < components.length; c++) {
             boolean electric = components[c].electric;
             float[] a = heldRe[c];
@@ -252,20 +360,29 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
                     r.intoArray(xr, t);
                     i.intoArray(xi, t);
                 }
-                for (; t < first + count; t++) {
+                // one cell at a time, its sums in locals over the slots (not read and written back per slot)
+                int end = first + count;
+                for (; t < end; t++) {
+                    double r = xr[t];
+                    double i = xi[t];
                     for (int slot = 0; slot < slots; slot++) {
-                        if (cs[slot] == 0 && sn[slot] == 0) {
+                        double c0 = cs[slot];
+                        double s0 = sn[slot];
+                        if (c0 == 0 && s0 == 0) {
                             continue;
                         }
-                        int at = slot * cells + t;
+                        double u = a[slot * cells + t];
                         if (b == null) {
-                            xr[t] += a[at] * cs[slot];
-                            xi[t] += a[at] * sn[slot];
+                            r += u * c0;
+                            i += u * s0;
                         } else {
-                            xr[t] += a[at] * cs[slot] - b[at] * sn[slot];
-                            xi[t] += a[at] * sn[slot] + b[at] * cs[slot];
+                            double w = b[slot * cells + t];
+                            r += u * c0 - w * s0;
+                            i += u * s0 + w * c0;
                         }
                     }
+                    xr[t] = r;
+                    xi[t] = i;
                 }
             }
         }
@@ -305,7 +422,7 @@ public final class FieldMap implements StatefulListener, SharedRecorder {
     /** Adds the steps still held (between steps: before the sums are read or saved). */
     private void settle() {
         if (holding && pending > 0 && pending < HELD_STEPS) {
-            addHeld(0, (i1 - i0) * (j1 - j0), pending);
+            addHeld(0, (i1 - i0) * (j1 - j0), pending, 0);
         }
         pending = 0;
     }
