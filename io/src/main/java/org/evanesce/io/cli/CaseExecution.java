@@ -116,7 +116,7 @@ final class CaseExecution {
             FluxPlan f = plan.flux().get();
             BeamPlots.write(f, s.polarization().value(), f.closest(s.sources().get(0).signal().frequency().si()), rf.dir());
         }
-        SurfaceResults surfaces = plan.surfaces().map(SurfaceResults::of).orElse(null);
+        SurfaceResults surfaces = plan.surfaces().map(sp -> SurfaceResults.of(sp, r.threads())).orElse(null);
         if (surfaces != null) {
             SurfaceOutputs.write(surfaces, rf, plan);
         }

@@ -13,7 +13,8 @@ import java.util.Locale;
  * generator differs from Double.toString's in one respect only: it never stops after the first digit, where
  * Double.toString may ("0.5", "3.0"). So a value whose Double.toString has one significant digit, and NaN, the
  * infinities and zeros, go to {@link Formatter}; every other value takes Double.toString's digits.
- * ScientificTest compares the two on millions of values.
+ * ScientificTest compares the two on millions of values. An instance is for one thread; {@link #format} is the
+ * form for any thread.
  */
 public final class Scientific {
 
@@ -21,7 +22,8 @@ public final class Scientific {
     private final int precision;
     private final char[] digits = new char[32];
     private final StringBuilder fallbackText = new StringBuilder();
-    private final Formatter fallback = new Formatter(fallbackText, Locale.ROOT);
+    /** Made on the first value that needs it (most tables never do). */
+    private Formatter fallback;
     private final String pattern;
 
     /** @param precision digits after the point, 1 to 16 (as %.{precision}e) */
@@ -31,6 +33,17 @@ public final class Scientific {
         }
         this.precision = precision;
         this.pattern = "%." + precision + "e";
+    }
+
+    /**
+     * {@code v} as {@code String.format(Locale.ROOT, "%." + decimals + "e", v)} writes it.
+     *
+     * @param decimals digits after the point, 1 to 16
+     */
+    public static String format(double v, int decimals) {
+        StringBuilder sb = new StringBuilder(decimals + 8);
+        new Scientific(decimals).append(sb, v);
+        return sb.toString();
     }
 
     /** Appends x to sb as %.{precision}e in Locale.ROOT. */
@@ -109,6 +122,9 @@ public final class Scientific {
 
     private void slow(StringBuilder sb, double x) {
         fallbackText.setLength(0);
+        if (fallback == null) {
+            fallback = new Formatter(fallbackText, Locale.ROOT);
+        }
         fallback.format(pattern, x);
         sb.append(fallbackText);
     }

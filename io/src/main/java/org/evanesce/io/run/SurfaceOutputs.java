@@ -3,12 +3,15 @@ package org.evanesce.io.run;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.Locale;
+import org.evanesce.geometry.FieldSite;
+import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.io.output.RunFolder;
 import org.evanesce.io.output.image.LinePlot;
 import org.evanesce.io.output.image.OutlineInset;
 import org.evanesce.io.plan.CasePlan;
 import org.evanesce.io.plan.SurfacePlan;
+import org.evanesce.solver.grid.Polarization;
 
 /**
  * Writes a case's surface results: surfaces.csv; per far-field contour farfield-NAME.csv with a polar plot
@@ -108,11 +111,15 @@ public final class SurfaceOutputs {
         int j0 = Math.max(0, (int) Math.floor((f.bottom() - margin - sp.gridY0()) / dx));
         int i1 = Math.min(nx, (int) Math.ceil((f.right() + margin - sp.gridX0()) / dx) + 1);
         int j1 = Math.min(ny, (int) Math.ceil((f.top() + margin - sp.gridY0()) / dx) + 1);
-        int[] ids = FieldOutputs.ids(plan, new int[] {i0, j0, i1, j1});
+        // only the cells under the drawing's pixels are read (FieldOutputs.ids's material site)
+        FieldSite site = plan.spec().polarization().value() == Polarization.S ? FieldSite.EZ : FieldSite.EX;
+        MaterialGrid m = plan.materials();
+        int ci = i0;
+        int cj = j0;
         double x0 = sp.gridX0() + i0 * dx;
         double y0 = sp.gridY0() + j0 * dx;
         double[] mark = {(f.left() - x0) / dx, (f.bottom() - y0) / dx, (f.right() - x0) / dx, (f.top() - y0) / dx};
-        return new OutlineInset(ids, i1 - i0, j1 - j0, mark, "scene, contour dashed");
+        return new OutlineInset((i, j) -> m.id(site, ci + i, cj + j), i1 - i0, j1 - j0, mark, "scene, contour dashed");
     }
 
     private static double peak(double[] v) {

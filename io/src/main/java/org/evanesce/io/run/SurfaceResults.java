@@ -7,6 +7,7 @@ import java.util.Locale;
 import java.util.Map;
 import org.evanesce.geometry.PhysicalConstants;
 import org.evanesce.io.casefile.model.SurfacesSpec;
+import org.evanesce.io.output.Scientific;
 import org.evanesce.io.plan.SurfacePlan;
 import org.evanesce.solver.farfield.LineSpectrum;
 import org.evanesce.solver.farfield.NearToFarField;
@@ -53,8 +54,17 @@ public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] 
     public record Spectrum(String name, List<double[]> anglesDegrees, List<double[]> perRadian, double[] outgoing,
                            double[] aperture, double numericalAperture, boolean orders) { }
 
-    /** Computes the table and patterns. */
+    /** Computes the table and patterns on the caller's thread. */
     public static SurfaceResults of(SurfacePlan p) {
+        return of(p, 1);
+    }
+
+    /**
+     * Computes the table and patterns, the far-field transforms of up to {@code threads} wavelengths at once (each
+     * wavelength's values are computed by the same code whichever thread takes it, so they do not depend on the
+     * number).
+     */
+    public static SurfaceResults of(SurfacePlan p, int threads) {
         int nf = p.frequencies().length;
         double dx = p.cellSize();
         double[] factor = new double[nf];
@@ -104,7 +114,8 @@ public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] 
             double[] net = new double[nf];
             double[] ext = new double[nf];
             boolean theorem = opticalTheorem(p, f);
-            for (int q = 0; q < nf; q++) {
+            // each wavelength's transform on its own (they share nothing), several at once on the run's threads
+            inParallel(nf, threads, q -> {
                 NearToFarField ff = f.contour().farField(q, f.index(), p.gridX0(), p.gridY0(), dx, f.originX(), f.originY());
                 for (int a = 0; a < na; a++) {
                     per[q][a] = ff.powerPerRadian(Math.toRadians(deg[a])) * factor[q] * (p.widths() ? 2 * Math.PI : 1);
@@ -112,7 +123,7 @@ public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] 
                 total[q] = ff.radiatedPower() * factor[q];
                 net[q] = f.contour().box().outward(q, dx) * factor[q];
                 ext[q] = theorem ? extinctionWidth(p, f, ff, q) : Double.NaN;
-            }
+            });
             columns.add(f.spec().name().value() + "_far_total");
             values.add(total);
             columns.add(f.spec().name().value() + "_net_out");
@@ -169,6 +180,53 @@ public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] 
             }
         }
         return new SurfaceResults(p, columns, rows, norm, patterns, spectra, p.continuous());
+    }
+
+    /**
+     * Runs {@code work} for 0 ≤ q &lt; n, on up to {@code threads} threads (the caller's among them), each taking the
+     * next q not yet taken; returns when all are done, throwing the first failure.
+     */
+    static void inParallel(int n, int threads, java.util.function.IntConsumer work) {
+        int k = Math.max(1, Math.min(threads, n));
+        java.util.concurrent.atomic.AtomicInteger next = new java.util.concurrent.atomic.AtomicInteger();
+        java.util.concurrent.atomic.AtomicReference<Throwable> failure = new java.util.concurrent.atomic.AtomicReference<>();
+        Runnable take = () -> {
+            try {
+                for (int q = next.getAndIncrement(); q < n && failure.get() == null; q = next.getAndIncrement()) {
+                    work.accept(q);
+                }
+            } catch (RuntimeException | Error e) {
+                failure.compareAndSet(null, e);
+            }
+        };
+        Thread[] helpers = new Thread[k - 1];
+        for (int t = 0; t < helpers.length; t++) {
+            helpers[t] = new Thread(take, "far-field transform " + (t + 1));
+            helpers[t].setDaemon(true);
+            helpers[t].start();
+        }
+        take.run();
+        for (Thread t : helpers) {
+            boolean interrupted = false;
+            while (true) {
+                try {
+                    t.join();
+                    break;
+                } catch (InterruptedException e) {
+                    interrupted = true;
+                }
+            }
+            if (interrupted) {
+                Thread.currentThread().interrupt();
+            }
+        }
+        Throwable f = failure.get();
+        if (f instanceof RuntimeException re) {
+            throw re;
+        }
+        if (f instanceof Error er) {
+            throw er;
+        }
     }
 
     /**
@@ -307,8 +365,9 @@ public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] 
         return what + (continuous ? "_power_w_per_m" : "_energy_j_per_m_hz");
     }
 
+    /** A value as "%.9e" writes it ({@link Scientific}), or nothing where it is not finite. */
     static String number(double v) {
-        return Double.isFinite(v) ? String.format(Locale.ROOT, "%.9e", v) : "";
+        return Double.isFinite(v) ? Scientific.format(v, 9) : "";
     }
 
     /** The table of one far-field pattern: angle_deg, then one column per wavelength (σ in m with widths). */

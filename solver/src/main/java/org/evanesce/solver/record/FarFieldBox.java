@@ -50,7 +50,8 @@ public final class FarFieldBox implements StatefulListener, SharedRecorder {
     public boolean prepare(StepView v, int workers) {
         boolean any = false;
         for (int k = 0; k < 4; k++) {
-            active[k] = lines[k].prepare(v, workers);
+            // the sides share their sample times: the first side's factors serve the others
+            active[k] = lines[k].prepare(v, workers, k == 0 || !active[0] ? null : lines[0]);
             any |= active[k];
         }
         rows = v.ny();

@@ -152,6 +152,16 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
 
     @Override
     public boolean prepare(StepView v, int workers) {
+        return prepare(v, workers, null);
+    }
+
+    /**
+     * {@link #prepare}, taking this step's e^{iωt}Δt factors from {@code model} (prepared just before, for the same
+     * step) where they are bound to be equal: the same frequencies, window and slot, and components sampled at the
+     * same times (an electric and a magnetic one). The four sides of a box ({@link FluxBox}, {@link FarFieldBox})
+     * compute them once instead of four times; the values are those this line would compute, bit for bit.
+     */
+    boolean prepare(StepView v, int workers, FluxLine model) {
         double te = v.time(e);
         double th = v.time(h);
         boolean eIn = te >= windowStart && te < windowEnd;
@@ -168,11 +178,20 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
         this.dt = dt;
         slot = held;
         held = (held + 1) % HOLD;
-        for (int q = 0; q < omega.length; q++) {
-            ce[slot][q] = Math.cos(omega[q] * te) * we;
-            se[slot][q] = Math.sin(omega[q] * te) * we;
-            ch[slot][q] = Math.cos(omega[q] * th) * wh;
-            sh[slot][q] = Math.sin(omega[q] * th) * wh;
+        if (model != null && model.slot == slot && model.dt == dt && model.windowStart == windowStart
+                && model.windowEnd == windowEnd && model.e.electric == e.electric && model.h.electric == h.electric
+                && java.util.Arrays.equals(model.omega, omega)) {
+            System.arraycopy(model.ce[slot], 0, ce[slot], 0, omega.length);
+            System.arraycopy(model.se[slot], 0, se[slot], 0, omega.length);
+            System.arraycopy(model.ch[slot], 0, ch[slot], 0, omega.length);
+            System.arraycopy(model.sh[slot], 0, sh[slot], 0, omega.length);
+        } else {
+            for (int q = 0; q < omega.length; q++) {
+                ce[slot][q] = Math.cos(omega[q] * te) * we;
+                se[slot][q] = Math.sin(omega[q] * te) * we;
+                ch[slot][q] = Math.cos(omega[q] * th) * wh;
+                sh[slot][q] = Math.sin(omega[q] * th) * wh;
+            }
         }
         if (scratch.length < workers) {
             scratch = new double[workers][6][i1 - i0];
@@ -201,8 +220,12 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
             for (int j = i0 + u0; j < i0 + u1; j++) {
                 int k = j - i0 - u0;
                 ea[k] = 0.5 * (v.field(e, row, j) + v.field(e, row + 1, j));
-                eb[k] = 0.5 * (v.fieldImag(e, row, j) + v.fieldImag(e, row + 1, j));
                 ha[k] = v.field(h, row, j);
+            }
+            // real fields: the imaginary parts are zero and not held (see below)
+            for (int j = i0 + u0; complex && j < i0 + u1; j++) {
+                int k = j - i0 - u0;
+                eb[k] = 0.5 * (v.fieldImag(e, row, j) + v.fieldImag(e, row + 1, j));
                 hb[k] = v.fieldImag(h, row, j);
             }
         } else {
@@ -227,49 +250,46 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
             System.arraycopy(hb, 0, hhi, u0, n);
         }
         if (slot == HOLD - 1) {
-            addHeld(u0, u1, complex);
+            addHeld(u0, u1, complex, rows[4]);
         }
     }
 
     /**
      * Adds the {@value #HOLD} held steps of cells u0 ≤ u &lt; u1 to the accumulators: per cell and frequency the slots'
      * products summed in slot order, then added (the same operations in the same order on any thread).
+     *
+     * @param sum a row of the worker's scratch, at least u1 long
      */
-    private void addHeld(int u0, int u1, boolean complex) {
-        double[] e0 = holdE[0], e1 = holdE[1], e2 = holdE[2], e3 = holdE[3];
-        double[] e4 = holdE[4], e5 = holdE[5], e6 = holdE[6], e7 = holdE[7];
-        double[] h0 = holdH[0], h1 = holdH[1], h2 = holdH[2], h3 = holdH[3];
-        double[] h4 = holdH[4], h5 = holdH[5], h6 = holdH[6], h7 = holdH[7];
+    private void addHeld(int u0, int u1, boolean complex, double[] sum) {
         for (int q = 0; q < omega.length; q++) {
             if (complex) {
                 addHeldComplex(q, u0, u1);
                 continue;
             }
             // real fields: the imaginary parts are zero, and so are their products (half the work)
-            double[] er = eRe[q];
-            double[] ei = eIm[q];
-            double[] hr = hRe[q];
-            double[] hi = hIm[q];
-            double c0 = ce[0][q], c1 = ce[1][q], c2 = ce[2][q], c3 = ce[3][q];
-            double c4 = ce[4][q], c5 = ce[5][q], c6 = ce[6][q], c7 = ce[7][q];
-            double s0 = se[0][q], s1 = se[1][q], s2 = se[2][q], s3 = se[3][q];
-            double s4 = se[4][q], s5 = se[5][q], s6 = se[6][q], s7 = se[7][q];
-            for (int k = u0; k < u1; k++) {
-                er[k] += e0[k] * c0 + e1[k] * c1 + e2[k] * c2 + e3[k] * c3 + e4[k] * c4 + e5[k] * c5 + e6[k] * c6
-                        + e7[k] * c7;
-                ei[k] += e0[k] * s0 + e1[k] * s1 + e2[k] * s2 + e3[k] * s3 + e4[k] * s4 + e5[k] * s5 + e6[k] * s6
-                        + e7[k] * s7;
-            }
-            c0 = ch[0][q]; c1 = ch[1][q]; c2 = ch[2][q]; c3 = ch[3][q];
-            c4 = ch[4][q]; c5 = ch[5][q]; c6 = ch[6][q]; c7 = ch[7][q];
-            s0 = sh[0][q]; s1 = sh[1][q]; s2 = sh[2][q]; s3 = sh[3][q];
-            s4 = sh[4][q]; s5 = sh[5][q]; s6 = sh[6][q]; s7 = sh[7][q];
-            for (int k = u0; k < u1; k++) {
-                hr[k] += h0[k] * c0 + h1[k] * c1 + h2[k] * c2 + h3[k] * c3 + h4[k] * c4 + h5[k] * c5 + h6[k] * c6
-                        + h7[k] * c7;
-                hi[k] += h0[k] * s0 + h1[k] * s1 + h2[k] * s2 + h3[k] * s3 + h4[k] * s4 + h5[k] * s5 + h6[k] * s6
-                        + h7[k] * s7;
-            }
+            addSlots(holdE, ce, q, eRe[q], u0, u1, sum);
+            addSlots(holdE, se, q, eIm[q], u0, u1, sum);
+            addSlots(holdH, ch, q, hRe[q], u0, u1, sum);
+            addSlots(holdH, sh, q, hIm[q], u0, u1, sum);
+        }
+    }
+
+    /**
+     * acc[k] += x_0[k]·f_0 + x_1[k]·f_1 + … + x_7[k]·f_7 (f_t = factor[t][q], summed left to right, then added) for
+     * u0 ≤ k &lt; u1. Written as two loops of four slots each, through {@code sum}: each value sees the same operations
+     * in the same order as in the one long expression, but the JIT turns loops this short into vector instructions
+     * and leaves the long one scalar (500 cells, 10 frequencies, a fresh JVM: 0.15 s against 0.30 s for the 60 000
+     * calls of a 6000-step run with four sides, 2026-12-04, machine under load).
+     */
+    private static void addSlots(double[][] x, double[][] factor, int q, double[] acc, int u0, int u1, double[] sum) {
+        double[] x0 = x[0], x1 = x[1], x2 = x[2], x3 = x[3], x4 = x[4], x5 = x[5], x6 = x[6], x7 = x[7];
+        double f0 = factor[0][q], f1 = factor[1][q], f2 = factor[2][q], f3 = factor[3][q];
+        double f4 = factor[4][q], f5 = factor[5][q], f6 = factor[6][q], f7 = factor[7][q];
+        for (int k = u0; k < u1; k++) {
+            sum[k] = x0[k] * f0 + x1[k] * f1 + x2[k] * f2 + x3[k] * f3;
+        }
+        for (int k = u0; k < u1; k++) {
+            acc[k] += sum[k] + x4[k] * f4 + x5[k] * f5 + x6[k] * f6 + x7[k] * f7;
         }
     }
 

@@ -67,6 +67,35 @@ class OutlineInsetTest {
     }
 
     @Test
+    void aLookUpOfTheCellsDrawsWhatTheArrayDrawsAskingOnlyForTheDrawnCells() {
+        // a rectangle of 1000 x 500 cells (a large grid round a contour): the drawing needs at most SIZE^2 of them
+        int nx = 1000;
+        int ny = 500;
+        int[] ids = new int[nx * ny];
+        for (int j = 0; j < ny; j++) {
+            for (int i = 0; i < nx; i++) {
+                ids[j * nx + i] = Math.hypot(i + 0.5 - 300, j + 0.5 - 250) < 100 ? 1 : 0;
+            }
+        }
+        double[] mark = {100, 50, 900, 450};
+        int[] asked = new int[1];
+        OutlineInset looked = new OutlineInset((i, j) -> {
+            asked[0]++;
+            return ids[j * nx + i];
+        }, nx, ny, mark, "scene");
+        assertTrue(asked[0] <= OutlineInset.SIZE * OutlineInset.SIZE, "cells asked for: " + asked[0]);
+        BufferedImage a = new OutlineInset(ids, nx, ny, mark, "scene").draw();
+        BufferedImage b = looked.draw();
+        assertEquals(a.getWidth(), b.getWidth());
+        assertEquals(a.getHeight(), b.getHeight());
+        for (int y = 0; y < a.getHeight(); y++) {
+            for (int x = 0; x < a.getWidth(); x++) {
+                assertEquals(a.getRGB(x, y), b.getRGB(x, y), "pixel (" + x + ", " + y + ")");
+            }
+        }
+    }
+
+    @Test
     void aRasterThatDoesNotMatchItsSizeIsRefused() {
         assertThrows(IllegalArgumentException.class, () -> new OutlineInset(new int[10], 3, 3, new double[4], "x"));
     }
