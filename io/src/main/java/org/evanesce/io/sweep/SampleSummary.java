@@ -256,9 +256,7 @@ public final class SampleSummary {
     }
 
     private static byte[] png(LinePlot plot) throws IOException {
-        java.io.ByteArrayOutputStream bytes = new java.io.ByteArrayOutputStream();
-        javax.imageio.ImageIO.write(plot.render(), "png", bytes);
-        return bytes.toByteArray();
+        return org.evanesce.io.output.image.PngFile.encode(plot.render());
     }
 
     /** sweep.csv's rows: comma-separated fields, a field in double quotes when it holds a comma or a quote. */

@@ -1,13 +1,11 @@
 package org.evanesce.io.sweep;
 
-import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import javax.imageio.ImageIO;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.output.image.LinePlot;
 import org.evanesce.io.run.FluxPlot;
@@ -271,10 +269,8 @@ record SweepPlot(LinePlot linear, LinePlot log, double wavelength) {
         return new java.math.BigDecimal(String.format(Locale.ROOT, "%.6f", nm)).stripTrailingZeros().toPlainString();
     }
 
-    /** The plot as PNG bytes. */
+    /** The plot as PNG bytes (the program's own encoder, with its mark). */
     static byte[] png(LinePlot p) throws IOException {
-        ByteArrayOutputStream bytes = new ByteArrayOutputStream();
-        ImageIO.write(p.render(), "png", bytes);
-        return bytes.toByteArray();
+        return org.evanesce.io.output.image.PngFile.encode(p.render());
     }
 }

@@ -49,7 +49,7 @@ public final class PngFile {
     }
 
     /** The PNG file of {@code img} (its RGB; any alpha is dropped), with the text chunk. */
-    static byte[] encode(BufferedImage img) throws IOException {
+    public static byte[] encode(BufferedImage img) throws IOException {
         int w = img.getWidth();
         int h = img.getHeight();
         int[] px = rgb(img);
