@@ -127,9 +127,10 @@ public final class RedrawCommand implements Callable<Integer> {
             // the z component's real part: Ez for s, Hz for p
             Component z = h.getChildren().containsKey(MapOutputs.partName(Component.EZ, true)) ? Component.EZ : Component.HZ;
             Dataset real = h.getDatasetByPath("/" + MapOutputs.partName(z, true));
-            String name = z == Component.EZ ? "Ez" : "Hz";
             // maps divided by the incident field (maps.normalise: incident) say so on every stack
             String per = real.getAttribute(MapOutputs.RELATIVE_TO) == null ? null : (String) attribute(real, MapOutputs.RELATIVE_TO);
+            // eta0*Hz relative to |E_inc| has no unit to carry its eta0: the name keeps it (as the run draws it)
+            String name = z == Component.EZ ? "Ez" : per != null ? "eta0*Hz" : "Hz";
             String over = per == null ? "" : "/" + per;
             for (int q = 0; q < wavelengths.length; q++) {
                 String tag = MapOutputs.pictureTag(wavelengths[q]);

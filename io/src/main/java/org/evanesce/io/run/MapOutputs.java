@@ -131,9 +131,11 @@ public final class MapOutputs {
                     }
                 }
                 if (c == (pol == Polarization.S ? Component.EZ : Component.HZ)) {
-                    FieldPicture.of(re, r, FieldOutputs.name(c), FieldOutputs.transformUnit(c), FieldPicture.Quantity.REAL)
+                    // eta0*Hz is stored in the electric field's unit; relative to |E_inc| the unit is gone, the name keeps eta0
+                    String shown = per != null && !c.electric ? "eta0*" + FieldOutputs.name(c) : FieldOutputs.name(c);
+                    FieldPicture.of(re, r, shown, FieldOutputs.transformUnit(c), FieldPicture.Quantity.REAL)
                             .relativeTo(per).outlines(ids)
-                            .title(String.format(Locale.ROOT, "Re %s%s at %.2f nm", FieldOutputs.name(c), over, wl * 1e9))
+                            .title(String.format(Locale.ROOT, "Re %s%s at %.2f nm", shown, over, wl * 1e9))
                             .writePng(dir.resolve("map-" + c.name().toLowerCase(Locale.ROOT) + "-" + tag + ".png"));
                 }
             }
