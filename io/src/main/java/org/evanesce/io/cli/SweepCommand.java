@@ -568,7 +568,11 @@ public final class SweepCommand implements Callable<Integer> {
             throw usage("--slurm-script: " + problem);
         }
         writeRecord(folder, record);
-        String script = SlurmScript.text(exe, absCase, folder.dir(), slurmTasks, points, extra, SlurmScript.jobName(caseFile));
+        // the plot's wavelength matters to the merge alone
+        List<String> mergeOptions = plotWavelength == null ? List.of() : List.of("--plot-wavelength",
+                new java.math.BigDecimal(plotWavelength * 1e9, new java.math.MathContext(12)).stripTrailingZeros().toPlainString() + "nm");
+        String script = SlurmScript.text(exe, absCase, folder.dir(), slurmTasks, points, extra, SlurmScript.jobName(caseFile),
+                mergeOptions);
         Path f = folder.write(SweepFolder.SLURM, script.getBytes(StandardCharsets.UTF_8));
         try {
             Files.setPosixFilePermissions(f, PosixFilePermissions.fromString("rwxr-xr-x"));
@@ -578,7 +582,9 @@ public final class SweepCommand implements Callable<Integer> {
         o.printf(Locale.ROOT, "wrote %s: %d points in %d array tasks (task i runs the points whose number %% %d == i)%n", f,
                 points, slurmTasks, slurmTasks);
         o.println("submit:  sbatch " + SlurmScript.quote(f.toString()));
-        o.println("merge:   " + SlurmScript.command(exe, absCase, folder.dir(), extra) + " --merge-only");
+        StringBuilder merge = new StringBuilder(SlurmScript.command(exe, absCase, folder.dir(), extra)).append(" --merge-only");
+        mergeOptions.forEach(m -> merge.append(' ').append(SlurmScript.quote(m)));
+        o.println("merge:   " + merge);
         return ExitCode.OK;
     }
 

@@ -31,6 +31,15 @@ public final class SlurmScript {
      * @param jobName  the job's name
      */
     public static String text(Path launcher, Path caseFile, Path dir, int tasks, int points, List<String> extra, String jobName) {
+        return text(launcher, caseFile, dir, tasks, points, extra, jobName, List.of());
+    }
+
+    /**
+     * As {@link #text(Path, Path, Path, int, int, List, String)}, with options for the merge command alone
+     * (e.g. {@code --plot-wavelength 640nm}), which the tasks do not take.
+     */
+    public static String text(Path launcher, Path caseFile, Path dir, int tasks, int points, List<String> extra, String jobName,
+            List<String> mergeOptions) {
         String run = command(launcher, caseFile, dir, extra) + " --shard \"$SLURM_ARRAY_TASK_ID/" + tasks + "\"";
         StringBuilder sb = new StringBuilder();
         sb.append("#!/bin/bash\n");
@@ -40,7 +49,11 @@ public final class SlurmScript {
         sb.append("# finished points are kept, so a task that was stopped can be submitted again (sbatch --array=i ...).\n");
         sb.append("# Submit:  sbatch ").append(quote(dir.resolve(SweepFolder.SLURM).toString())).append('\n');
         sb.append("# Merge when every task has finished (writes sweep.csv and sweep.png, lists missing points):\n");
-        sb.append("#   ").append(command(launcher, caseFile, dir, extra)).append(" --merge-only\n");
+        sb.append("#   ").append(command(launcher, caseFile, dir, extra)).append(" --merge-only");
+        for (String m : mergeOptions) {
+            sb.append(' ').append(quote(m));
+        }
+        sb.append('\n');
         sb.append("#SBATCH --job-name=").append(jobName).append('\n');
         sb.append("#SBATCH --array=0-").append(tasks - 1).append('\n');
         sb.append("#SBATCH --output=\"").append(dir.resolve("slurm-%A_%a.out")).append("\"\n");

@@ -51,6 +51,17 @@ class SlurmScriptTest {
     }
 
     @Test
+    void theMergeCommandKeepsThePlotWavelengthThatTheTasksDoNotTake() {
+        Path launcher = tmp.resolve("evanesce");
+        String text = SlurmScript.text(launcher, tmp.resolve("c.yaml"), tmp.resolve("d"), 2, 4, List.of(), "evanesce-c",
+                List.of("--plot-wavelength", "640nm"));
+        String merge = text.lines().filter(l -> l.contains("--merge-only")).findFirst().orElseThrow();
+        assertTrue(merge.endsWith(" --merge-only --plot-wavelength 640nm"), text);
+        String task = text.lines().filter(l -> l.contains("--shard")).findFirst().orElseThrow();
+        assertTrue(!task.contains("--plot-wavelength"), text);
+    }
+
+    @Test
     void pathsAScriptCannotHoldAreRefused() throws IOException {
         Path launcher = tmp.resolve("evanesce");
         Path c = tmp.resolve("c.yaml");
