@@ -52,7 +52,11 @@ public final class Main implements Callable<Integer> {
     }
 
     public static void main(String[] args) {
-        System.exit(run(args, System.out, System.err));
+        // a signal (Ctrl-C, kill, a batch system's limit) removes what the run left unfinished, and says so
+        org.evanesce.io.output.Interruption.install(System.err);
+        int code = run(args, System.out, System.err);
+        org.evanesce.io.output.Interruption.finished();
+        System.exit(code);
     }
 
     /**

@@ -38,6 +38,7 @@ public final class RunFolder implements AutoCloseable {
     private FileLock lock;
     private Path placed;
     private boolean committed;
+    private boolean abandoned;
 
     private RunFolder(Path target, Path work, boolean replace, List<OutputFolders.Protected> protect, List<String> cleaned) {
         this.target = target;
@@ -76,6 +77,7 @@ public final class RunFolder implements AutoCloseable {
         Path work = parent.resolve(Leftovers.partialName(name, OwnerTag.mine()));
         Files.createDirectory(work);
         RunFolder rf = new RunFolder(abs, work, replace, protect, cleaned);
+        Interruption.opened(rf);
         try {
             rf.lock();
         } catch (IOException | RuntimeException e) {
@@ -137,7 +139,10 @@ public final class RunFolder implements AutoCloseable {
      * the first free {@code NAME-2}, {@code NAME-3}, ... instead ({@link #target()} says where): a result
      * is never lost.
      */
-    public void commit() throws IOException {
+    public synchronized void commit() throws IOException {
+        if (abandoned) {
+            throw new IOException("the run was stopped before its results folder " + target + " was finished");
+        }
         // the list first, then the lock goes: a run killed in between leaves a folder that is provably ours either way
         FolderContents.write(work, Leftovers.LOCK);
         unlock();
@@ -154,6 +159,7 @@ public final class RunFolder implements AutoCloseable {
                 placed = freeSibling();
                 move(work, placed);
                 committed = true;
+                Interruption.closed(this);
                 return;
             }
             old = target.resolveSibling(Leftovers.replacedName(target.getFileName().toString(), OwnerTag.mine()));
@@ -162,6 +168,7 @@ public final class RunFolder implements AutoCloseable {
         move(work, target);
         placed = target;
         committed = true;
+        Interruption.closed(this);
         if (old != null) {
             SafeFiles.deleteTree(old);
         }
@@ -187,8 +194,9 @@ public final class RunFolder implements AutoCloseable {
 
     /** Removes the temporary folder unless the run was committed: an unfinished run leaves nothing. */
     @Override
-    public void close() {
-        if (!committed) {
+    public synchronized void close() {
+        Interruption.closed(this);
+        if (!committed && !abandoned) {
             try {
                 unlock();
             } catch (IOException e) {
@@ -200,5 +208,38 @@ public final class RunFolder implements AutoCloseable {
                 throw new UncheckedIOException("could not remove the unfinished run folder " + work, e);
             }
         }
+    }
+
+    /**
+     * Removes the unfinished folder when the process is stopped ({@link Interruption}), waiting for a
+     * {@link #commit} in progress; later commits fail. Threads of the run may still be writing into the folder
+     * while it goes, so the removal is tried a few times.
+     *
+     * @return the folder removed, or null when there was none left to remove (finished, closed, or inside
+     *         a folder removed before it)
+     */
+    synchronized Path abandon() {
+        if (committed || abandoned) {
+            return null;
+        }
+        abandoned = true;
+        Interruption.closed(this);
+        if (!Files.exists(work, LinkOption.NOFOLLOW_LINKS)) {
+            return null;
+        }
+        try {
+            unlock();
+        } catch (IOException e) {
+            // the folder goes below either way
+        }
+        for (int attempt = 0; attempt < 3; attempt++) {
+            try {
+                SafeFiles.deleteTree(work);
+                return work;
+            } catch (IOException e) {
+                // a file appeared while the folder was being emptied: try again
+            }
+        }
+        return Files.exists(work, LinkOption.NOFOLLOW_LINKS) ? null : work;
     }
 }

@@ -82,6 +82,7 @@ public final class SafeFiles {
     public static Path write(Path target, Content content) throws IOException {
         Path dir = target.toAbsolutePath().getParent();
         Path tmp = dir.resolve(temporaryName(target.getFileName().toString()));
+        Interruption.writing(tmp);
         try {
             try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE,
                     LinkOption.NOFOLLOW_LINKS)) {
@@ -103,6 +104,8 @@ public final class SafeFiles {
         } catch (RuntimeException | Error e) {
             deleteQuietly(tmp, e);
             throw e;
+        } finally {
+            Interruption.written(tmp);
         }
         return target;
     }
@@ -146,6 +149,7 @@ public final class SafeFiles {
      */
     public static Path newTemporary(Path target) throws IOException {
         Path tmp = target.toAbsolutePath().getParent().resolve(temporaryName(target.getFileName().toString()));
+        Interruption.writing(tmp);
         Files.newByteChannel(tmp, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE, LinkOption.NOFOLLOW_LINKS).close();
         return tmp;
     }
@@ -157,6 +161,7 @@ public final class SafeFiles {
             ch.force(true);
         }
         moveOnto(tmp, target);
+        Interruption.written(tmp);
     }
 
     /**
