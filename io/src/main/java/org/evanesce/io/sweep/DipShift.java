@@ -1,5 +1,8 @@
 package org.evanesce.io.sweep;
 
+import static org.evanesce.io.sweep.TableText.e;
+import static org.evanesce.io.sweep.TableText.plain;
+
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -382,15 +385,4 @@ public final class DipShift {
         }
     }
 
-    private static String e(double v) {
-        return Double.isFinite(v) ? String.format(Locale.ROOT, "%.9e", v) : "";
-    }
-
-    private static String plain(String v) {
-        try {
-            return new java.math.BigDecimal(v).stripTrailingZeros().toPlainString();
-        } catch (NumberFormatException e) {
-            return v;
-        }
-    }
 }

@@ -1,5 +1,8 @@
 package org.evanesce.io.sweep;
 
+import static org.evanesce.io.sweep.TableText.e;
+import static org.evanesce.io.sweep.TableText.plain;
+
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
@@ -332,16 +335,4 @@ public final class SweepExtrema {
         }
     }
 
-    private static String e(double v) {
-        return Double.isFinite(v) ? String.format(Locale.ROOT, "%.9e", v) : "";
-    }
-
-    /** A number without trailing zeros: 633.000000 becomes 633. */
-    private static String plain(String v) {
-        try {
-            return new java.math.BigDecimal(v).stripTrailingZeros().toPlainString();
-        } catch (NumberFormatException e) {
-            return v;
-        }
-    }
 }
