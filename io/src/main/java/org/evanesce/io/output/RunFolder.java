@@ -73,7 +73,9 @@ public final class RunFolder implements AutoCloseable {
         Path parent = abs.getParent();
         Files.createDirectories(parent);
         String name = abs.getFileName().toString();
-        List<String> cleaned = Leftovers.clean(parent, name);
+        // the target's own leftovers, and the temporaries of its checkpoints (NAME.checkpoint, -s, -p): a run without
+        // checkpoints never opens those files, so their writers' leftovers would otherwise stay
+        List<String> cleaned = Leftovers.clean(parent, n -> n.equals(name) || n.startsWith(name + ".checkpoint"));
         Path work = parent.resolve(Leftovers.partialName(name, OwnerTag.mine()));
         Files.createDirectory(work);
         RunFolder rf = new RunFolder(abs, work, replace, protect, cleaned);

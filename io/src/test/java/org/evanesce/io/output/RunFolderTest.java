@@ -91,6 +91,23 @@ class RunFolderTest {
     }
 
     @Test
+    void checkpointTemporariesOfEndedRunsGoWhenTheTargetIsWrittenAgain() throws Exception {
+        Process ended = new ProcessBuilder("true").start();
+        ended.waitFor();
+        OwnerTag dead = new OwnerTag(OwnerTag.mine().host(), ended.pid(), "x1");
+        // a run killed while writing its checkpoint; the next run of the same target takes no checkpoints
+        Files.writeString(tmp.resolve(".run5.checkpoint." + dead.text() + ".tmp"), "half");
+        Files.writeString(tmp.resolve(".run5.checkpoint-p." + dead.text() + ".tmp"), "half");
+        Files.writeString(tmp.resolve(".run55." + dead.text() + ".tmp"), "another target's");
+        try (RunFolder f = RunFolder.begin(tmp.resolve("run5"), false)) {
+            assertEquals(2, f.cleaned().size(), f.cleaned().toString());
+            f.writeText("a.txt", "x");
+            f.commit();
+        }
+        assertEquals(List.of(".run55." + dead.text() + ".tmp", "run5"), names(tmp));
+    }
+
+    @Test
     void jsonEscapesAndKeepsOrder() {
         Map<String, Object> m = new LinkedHashMap<>();
         m.put("name", "a \"b\"\n");
