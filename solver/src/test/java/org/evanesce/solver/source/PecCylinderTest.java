@@ -149,7 +149,8 @@ class PecCylinderTest {
     /**
      * The issue's bounds in p at the cells where they hold: x = 2 at 720 cells per wavelength (measured 2026-12-04:
      * forward +1.61 %, backward +0.77 %, worst 0.069 dB, C_sca +0.61 %, C_ext/C_sca − 1 −0.15 %), x = 5 at 360
-     * (+1.64 %, −0.52 %, 0.351 dB, +0.52 %, 0.00 %). About a minute each on one core.
+     * (+1.64 %, −0.52 %, 0.351 dB, +0.52 %, 0.00 %). About 25 s of CPU each (a minute of wall time each on the loaded
+     * 2-core machine).
      */
     @Tag("accuracy")
     @ParameterizedTest(name = "p x={0} at {1} cells per wavelength")
