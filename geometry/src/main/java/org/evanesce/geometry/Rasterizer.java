@@ -29,6 +29,9 @@ import org.evanesce.geometry.shape.Shape;
  *       arithmetic mean for the tangential one (A. Farjadpour et al., "Improving accuracy by subpixel
  *       smoothing in the finite-difference time domain", Opt. Lett. 31, 2972 (2006); A. F. Oskooi,
  *       C. Kottke, S. G. Johnson, Opt. Lett. 34, 2778 (2009));</li>
+ *   <li>a perfect conductor ({@link Material#isPerfectConductor}) is not averaged: a pixel it cuts keeps the
+ *       point-sampled material, a staircase (first order; the fraction-weighted σ below would make every
+ *       site its boundary touches a conductor, growing it by up to half a cell);</li>
  *   <li>conductivity: the fraction-weighted mean σ_eff = Σ f_m σ_m (a simple choice of ours,
  *       consistent with the arithmetic mean of the complex permittivity ε + iσ/(ωε0) for a field
  *       tangential to the interface, but not the harmonic mean a normal field would need, so the
@@ -388,6 +391,9 @@ public final class Rasterizer {
             if (single) {
                 return first;
             }
+            if (materials[base].isPerfectConductor() || anyPerfectConductor(partial, np)) {
+                return -1; // a staircase: the point-sampled material
+            }
             baseFrac = Math.max(0, baseFrac);
             if (rule != null) {
                 boolean applies = rule.applies(materials[base]);
@@ -420,6 +426,15 @@ public final class Rasterizer {
                 effective = 1 / (w * inv + (1 - w) / eps);
             }
             return builder.idOf(new Material(name(base, partial, np), rounded(effective), rounded(sigma)));
+        }
+
+        private boolean anyPerfectConductor(int[] partial, int np) {
+            for (int q = 0; q < np; q++) {
+                if (materials[partial[q]].isPerfectConductor()) {
+                    return true;
+                }
+            }
+            return false;
         }
 
         /**

@@ -12,7 +12,9 @@ import org.evanesce.geometry.PhysicalConstants;
  * </pre>
  * (Taflove &amp; Hagness, Computational Electrodynamics, 3rd ed. 2005, ch. 3, the lossy-dielectric
  * update, chapter from memory; here with H scaled by η0 and S = c0Δt/Δ). Computed here, beside the physical constants, once
- * per material; the kernels spread them over the cells.
+ * per material; the kernels spread them over the cells. A perfect conductor ({@link Material#isPerfectConductor})
+ * gets ca = cb = 0, the limit σ → ∞ of cb and the value that holds E at zero on its sites from the first step (the
+ * limit of ca is −1, which would leave any E present there flipping sign each step).
  */
 public final class MaterialCoefficients {
 
@@ -31,6 +33,11 @@ public final class MaterialCoefficients {
         double[] cb = new double[nm];
         for (int m = 0; m < nm; m++) {
             Material mat = materials.get(m);
+            if (mat.isPerfectConductor()) {
+                ca[m] = 0;
+                cb[m] = 0;
+                continue;
+            }
             double l = mat.conductivity() * dt / (2 * PhysicalConstants.EPS0 * mat.relativePermittivity());
             ca[m] = (1 - l) / (1 + l);
             cb[m] = courant / (mat.relativePermittivity() * (1 + l));

@@ -410,7 +410,10 @@ public final class StackCommand implements Callable<Integer> {
             s.append(thickness != null && thickness.layer() == k + 1 ? "swept"
                     : Units.format(l.thickness(), Dimension.LENGTH));
         }
-        s.append(" | exit ").append(exit.isLibrary() ? exit.name() + ", " : "").append("n = ").append(index(stack.exitIndex()));
+        s.append(" | exit ").append(exit.isLibrary() ? exit.name() + ", " : "")
+                .append(stack.exitIndex().equals(org.evanesce.io.plan.LayeredProfile.PERFECT_CONDUCTOR_INDEX)
+                        ? "a perfect conductor, stand-in " : "")
+                .append("n = ").append(index(stack.exitIndex()));
         out.println(s);
         StringBuilder w = new StringBuilder();
         if (!wavelength.isRange()) {

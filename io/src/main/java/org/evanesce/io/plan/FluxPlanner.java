@@ -345,6 +345,13 @@ final class FluxPlanner {
         if (!up) {
             java.util.Collections.reverse(media);
         }
+        for (int k = 1; k < media.size(); k++) {
+            MaterialSpec mk = spec.materials().get(media.get(k));
+            if (mk != null && mk.isPerfectConductor()) {
+                media.subList(k + 1, media.size()).clear(); // the stack ends at the first perfect conductor
+                break;
+            }
+        }
         if (media.size() == 1) {
             media.add(media.get(0)); // the same medium on both sides, no layers (LayeredProfile.stack)
         }

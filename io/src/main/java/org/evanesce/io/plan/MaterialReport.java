@@ -60,6 +60,11 @@ public final class MaterialReport {
         for (MaterialSpec m : spec.materials().values()) {
             Map<String, Object> e = new LinkedHashMap<>();
             e.put("dispersive", m.isDispersive());
+            if (m.isPerfectConductor()) {
+                e.put("perfect_conductor", true); // no permittivity: no field inside
+                out.put(m.name(), e);
+                continue;
+            }
             if (m.isDispersive()) {
                 MetalSpec ms = m.dispersion().orElseThrow();
                 SourcedMaterial sm = ms.model();

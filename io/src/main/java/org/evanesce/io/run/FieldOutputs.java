@@ -243,6 +243,13 @@ public final class FieldOutputs {
                 for (int i = 0; i < r.nx(); i++) {
                     int k = j * r.nx() + i;
                     org.evanesce.geometry.Material m = plan.materials().material(site, box[0] + i, box[1] + j);
+                    if (m.isPerfectConductor()) { // no permittivity: NaN, the pictures' missing-value colour
+                        eps[k] = Double.NaN;
+                        if (epsIm != null) {
+                            epsIm[k] = Double.NaN;
+                        }
+                        continue;
+                    }
                     if (epsIm == null) {
                         eps[k] = m.relativePermittivity();
                         continue;

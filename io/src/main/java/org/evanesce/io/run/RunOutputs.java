@@ -129,7 +129,8 @@ public final class RunOutputs {
         Map<String, Object> report = org.evanesce.io.plan.MaterialReport.summary(s, plan.dt());
         for (MaterialSpec ms : s.materials().values()) {
             Map<String, Object> e = new LinkedHashMap<>();
-            e.put("relative_permittivity", ms.relativePermittivity().si());
+            // a perfect conductor has neither (σ = +∞, written as null); its report says perfect_conductor
+            e.put("relative_permittivity", ms.isPerfectConductor() ? null : ms.relativePermittivity().si());
             e.put("conductivity_s_per_m", ms.conductivity().si());
             e.put("library", ms.library().map(Object::toString).orElse(null));
             @SuppressWarnings("unchecked")

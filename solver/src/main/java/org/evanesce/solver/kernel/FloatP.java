@@ -155,8 +155,9 @@ final class FloatP extends FloatEngine {
         for (int j = j0; j < j1; j++) {
             for (int i = i0; i < i1; i++) {
                 int k = j * nx + i;
-                double epsX = courant * (1.0 + (cax == null ? 1.0 : cax[k])) / (2.0 * cbx[k]);
-                double epsY = courant * (1.0 + (cay == null ? 1.0 : cay[k])) / (2.0 * cby[k]);
+                // cb = 0: a perfect conductor, where E stays zero and holds no energy
+                double epsX = cbx[k] == 0 ? 0.0 : courant * (1.0 + (cax == null ? 1.0 : cax[k])) / (2.0 * cbx[k]);
+                double epsY = cby[k] == 0 ? 0.0 : courant * (1.0 + (cay == null ? 1.0 : cay[k])) / (2.0 * cby[k]);
                 double hzNext = i < nx - 1 && j < ny - 1
                         ? hz[k] + s * ((ex[k + nx] - ex[k]) - (ey[k + 1] - ey[k])) : 0.0;
                 w += epsX * ex[k] * ex[k] + epsY * ey[k] * ey[k] + hz[k] * hzNext;

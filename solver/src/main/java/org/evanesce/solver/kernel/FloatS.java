@@ -158,7 +158,8 @@ final class FloatS extends FloatEngine {
             for (int i = i0; i < i1; i++) {
                 int k = j * nx + i;
                 double e = ez[k];
-                double eps = courant * (1.0 + (ca == null ? 1.0 : ca[k])) / (2.0 * cb[k]);
+                // cb = 0: a perfect conductor, where E stays zero and holds no energy
+                double eps = cb[k] == 0 ? 0.0 : courant * (1.0 + (ca == null ? 1.0 : ca[k])) / (2.0 * cb[k]);
                 double hxNext = j < ny - 1 ? hx[k] - s * (ez[k + nx] - e) : 0.0;
                 double hyNext = i < nx - 1 ? hy[k] + s * (ez[k + 1] - e) : 0.0;
                 w += eps * e * e + hx[k] * hxNext + hy[k] * hyNext;

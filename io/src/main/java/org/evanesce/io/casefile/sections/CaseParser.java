@@ -277,6 +277,9 @@ final class CaseParser {
         if (v == null) {
             return null;
         }
+        if (v.has("perfect_conductor")) {
+            return readPerfectConductor(v, name, at);
+        }
         if (MetalReader.isMetal(v)) {
             MetalReader.Pending metal = new MetalReader(ctx).read(v, name, at);
             WavelengthBand band = RunBand.of(designWavelength, sources, flux, maps);
@@ -315,6 +318,27 @@ final class CaseParser {
             return null;
         }
         return new MaterialSpec(name, eps, sigma, Optional.ofNullable(lib), at);
+    }
+
+    /** {@code perfect_conductor: true}, alone: no other key describes such a material. */
+    private MaterialSpec readPerfectConductor(MapView v, String name, SourcePosition at) {
+        Node pn = v.get("perfect_conductor");
+        Boolean b = ctx.choice(pn, v.path("perfect_conductor"), FluxReader.BOOLEANS);
+        boolean ok = b != null;
+        if (b != null && !b) {
+            ctx.error(ctx.pos(pn), v.path("perfect_conductor"), "'false' describes no material: leave the key out and give "
+                    + "index, permittivity or library");
+            ok = false;
+        }
+        for (String k : List.of("index", "permittivity", "library", "conductivity", "drude", "lorentz", "table",
+                "fit_tolerance")) {
+            if (v.has(k)) {
+                ctx.error(v.keyAt(k), v.path(k), "a perfect conductor takes no other key (it has no field inside and "
+                        + "no permittivity or conductivity to give); remove '" + k + "' or 'perfect_conductor'");
+                ok = false;
+            }
+        }
+        return ok ? MaterialSpec.perfectConductor(name, at) : null;
     }
 
     private LibraryMaterial library(Node node, String path) {

@@ -53,7 +53,7 @@ final class Schema {
     static final Section DOMAIN = new Section("domain", List.of("width", "height", "background"));
     static final Section GRID = new Section("grid", List.of("cell", "cells_per_wavelength"));
     static final Section MATERIAL = new Section("materials.NAME", List.of("index", "permittivity", "library", "conductivity",
-            "drude", "lorentz", "table", "fit_tolerance"));
+            "drude", "lorentz", "table", "fit_tolerance", "perfect_conductor"));
     static final Section DRUDE = new Section("materials.NAME.drude[]", List.of("plasma_frequency", "damping"));
     static final Section LORENTZ = new Section("materials.NAME.lorentz[]", List.of("strength", "resonance", "damping"));
 

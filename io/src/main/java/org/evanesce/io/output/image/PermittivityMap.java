@@ -14,12 +14,15 @@ public final class PermittivityMap {
     private PermittivityMap() {
     }
 
-    /** Relative permittivity at {@code site} of every cell, {@code eps[j*nx + i]}; a new array. */
+    /**
+     * Relative permittivity at {@code site} of every cell, {@code eps[j*nx + i]}; a new array. A perfect conductor,
+     * which has none, is NaN (drawn in the map's missing-value colour).
+     */
     public static double[] values(MaterialGrid grid, FieldSite site) {
         List<Material> table = grid.materials();
         double[] byId = new double[table.size()];
         for (int m = 0; m < byId.length; m++) {
-            byId[m] = table.get(m).relativePermittivity();
+            byId[m] = table.get(m).isPerfectConductor() ? Double.NaN : table.get(m).relativePermittivity();
         }
         int[] ids = grid.ids(site);
         double[] eps = new double[ids.length];

@@ -156,9 +156,9 @@ final class PlaneWaveChecks {
             return null;
         }
         if (m != null && m.conductivity().si() != 0) {
-            error(w.y().at(), path + ".y", String.format("the launching line lies in %s, which conducts (%s S/m); the incident "
-                    + "medium must be transparent for its angle and power to be defined", m.name(),
-                    Units.number(m.conductivity().si())));
+            error(w.y().at(), path + ".y", String.format("the launching line lies in %s, which conducts (%s); the incident "
+                    + "medium must be transparent for its angle and power to be defined", m.name(), m.isPerfectConductor()
+                    ? "a perfect conductor" : Units.number(m.conductivity().si()) + " S/m"));
             return null;
         }
         return m;

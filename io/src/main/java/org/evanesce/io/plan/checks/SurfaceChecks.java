@@ -144,8 +144,8 @@ final class SurfaceChecks {
     private void transparent(String name, SourcePosition at, String path, String what) {
         MaterialSpec m = material(name);
         if (m != null && m.conductivity().si() != 0) {
-            checks.error(at, path, String.format("%s needs a lossless medium, but %s has a conductivity of %s S/m", what, name,
-                    Units.number(m.conductivity().si())));
+            checks.error(at, path, String.format("%s needs a lossless medium, but %s %s", what, name, m.isPerfectConductor()
+                    ? "is a perfect conductor" : "has a conductivity of " + Units.number(m.conductivity().si()) + " S/m"));
         }
     }
 
