@@ -19,8 +19,9 @@ import org.evanesce.solver.kernel.Engine;
  * c_y = −(Hz(i+½, j+½) − Hz(i−½, j+½)) the curls that drive Ex and Ey (ΔE = S ε⁻¹ c, S the Courant number). The
  * weights w_ij = ((ε⁻¹)_xy(i) + (ε⁻¹)_xy(j))/8 are the same for both members of a pair: a uniform (ε⁻¹)_xy gives it
  * times the four-point mean of the other component (the full tensor of A. Farjadpour et al., Opt. Lett. 31, 2972
- * (2006)), and the symmetric coupling keeps the scheme's energy exact as the diagonal one does (a symmetric discrete
- * ε⁻¹; cf. G. R. Werner and J. R. Cary, "A stable FDTD algorithm for non-diagonal, anisotropic dielectrics",
+ * (2006)), and the coupling is symmetric, as the discrete ε⁻¹ must be for the scheme to keep its energy (with
+ * per-site weights the net power out of FluxBoxTest's lossless box exceeded its bound, 2e-7 of the power through the
+ * sides; cf. G. R. Werner and J. R. Cary, "A stable FDTD algorithm for non-diagonal, anisotropic dielectrics",
  * J. Comput. Phys. 226, 1085 (2007), from memory). Sites next to a listed one take part even where their own
  * (ε⁻¹)_xy is zero.
  *
