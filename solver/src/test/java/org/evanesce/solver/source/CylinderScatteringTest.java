@@ -234,7 +234,7 @@ class CylinderScatteringTest {
      * The issue's bounds at 90 cells per vacuum wavelength (60 in the glass), size parameters 2 and 5, s and p, with 45
      * and 60 cells beside them to show the convergence: C_sca's error must fall from 45 to 90 cells. Measured
      * (2026-12-04, p with the smoothing's cross terms) at 45 / 60 / 90 cells: C_sca +0.32/+0.17/+0.07 % (s, x = 2),
-     * +0.33/+0.18/+0.08 % (p, x = 2), −0.94/−0.53/−0.24 % (s, x = 5), −0.73/−0.40/−0.18 % (p, x = 5); C_ext/C_sca − 1
+     * +0.33/+0.18/+0.08 % (p, x = 2), −0.94/−0.53/−0.24 % (s, x = 5), −0.72/−0.40/−0.18 % (p, x = 5); C_ext/C_sca − 1
      * at most +0.09 %; at 90 cells forward +0.15, +0.11, −0.30, −0.23 %, backward −0.11, −0.06, −0.08, −0.23 %, worst
      * 0.009–0.021 dB. p's backward σ (x = 5, 22 dB below σ's peak, its field across the faces): −0.54, −0.41, −0.23 %
      * at 45, 60, 90 cells, −0.15 % at 120; with the diagonal of the smoothed permittivity alone it converged at first
