@@ -27,12 +27,20 @@ public final class MaterialGrid {
     /** Per site (by ordinal): 16-bit ids, or null when {@link #wide} is used. */
     private final char[][] narrow;
     private final int[][] wide;
+    /** The smoothed inverse permittivity's off-diagonal element at cut in-plane sites. */
+    private final CrossTerms crossTerms;
 
-    private MaterialGrid(GridSpec spec, List<Material> table, char[][] narrow, int[][] wide) {
+    private MaterialGrid(GridSpec spec, List<Material> table, char[][] narrow, int[][] wide, CrossTerms crossTerms) {
         this.spec = spec;
         this.table = List.copyOf(table);
         this.narrow = narrow;
         this.wide = wide;
+        this.crossTerms = crossTerms;
+    }
+
+    /** The off-diagonal element of the inverse permittivity where smoothing gave one ({@link CrossTerms#NONE} if none). */
+    public CrossTerms crossTerms() {
+        return crossTerms;
     }
 
     /** Number of nodes along x. */
@@ -126,6 +134,7 @@ public final class MaterialGrid {
         private final Map<Material, Integer> index = new HashMap<>();
         private char[][] narrow = new char[FieldSite.values().length][];
         private int[][] wide;
+        private CrossTerms crossTerms = CrossTerms.NONE;
 
         private Builder(GridSpec spec, Material background) {
             if (background == null) {
@@ -197,6 +206,12 @@ public final class MaterialGrid {
             narrow = null;
         }
 
+        /** Sets the off-diagonal elements of the inverse permittivity (replacing any set before). */
+        Builder crossTerms(CrossTerms terms) {
+            crossTerms = terms;
+            return this;
+        }
+
         /** Sets the id of one site, index {@code k = j*nx + i}. */
         void put(FieldSite site, int k, int id) {
             if (wide != null) {
@@ -221,18 +236,18 @@ public final class MaterialGrid {
                 for (int s = 0; s < w.length; s++) {
                     w[s] = wide[s].clone();
                 }
-                return new MaterialGrid(spec, table, null, w);
+                return new MaterialGrid(spec, table, null, w, crossTerms);
             }
             char[][] c = new char[narrow.length][];
             for (int s = 0; s < c.length; s++) {
                 c[s] = narrow[s].clone();
             }
-            return new MaterialGrid(spec, table, c, null);
+            return new MaterialGrid(spec, table, c, null, crossTerms);
         }
 
         /** Builds without copying the id arrays; the builder must not be used afterwards. */
         MaterialGrid buildAndRelease() {
-            MaterialGrid g = new MaterialGrid(spec, table, narrow, wide);
+            MaterialGrid g = new MaterialGrid(spec, table, narrow, wide, crossTerms);
             narrow = null;
             wide = null;
             return g;

@@ -38,6 +38,12 @@ import org.evanesce.geometry.shape.Shape;
  *       loss of a lossy interface seen by a normal field may converge more slowly; not tested).</li>
  * </ul>
  *
+ * <p>The in-plane sites also get the tensor's off-diagonal element, (ε⁻¹)_xy = T_xy (⟨1/ε⟩ − 1/⟨ε⟩) (n_x n_y (…) for
+ * a straight interface), in the grid's {@link CrossTerms}, which the solver applies with the other in-plane
+ * component averaged onto the site: without it a field across a curved face carries a first-order error (measured on
+ * a dielectric cylinder in p: the backward scattering width converged at first order, −3.2 % to −1.5 % from 45 to 90
+ * cells per wavelength; with it −0.5 % to −0.2 %). None for lossy or rule-resolved pixels (those keep the diagonal).
+ *
  * <p>(u·n)² is generalised to uᵀTu with T the orientation tensor of the boundary inside the pixel
  * ({@link PixelCut}): equal to (u·n)² for a straight interface, a length-weighted blend at corners
  * and where several interfaces cross one pixel, and correct for a strip thinner than the pixel
@@ -131,6 +137,11 @@ public final class Rasterizer {
         private int tilesX;
         /** Resolves pixels cut by faces of materials not averaged by their entries; null: none. */
         private FaceRule rule;
+        /** (ε⁻¹)_xy of the pixel {@link #mix} resolved last (0: none). */
+        private double cross;
+        /** Cross terms found so far, per in-plane site (Ex, Ey): cells and values. */
+        private final int[][] crossCells = new int[2][];
+        private final double[][] crossValues = new double[2][];
 
         Run(Scene scene, GridSpec grid) {
             g = grid;
@@ -162,6 +173,9 @@ public final class Rasterizer {
                 buildTiles();
                 for (FieldSite s : FieldSite.values()) {
                     smooth(s);
+                }
+                if (crossCells[0] != null) {
+                    builder.crossTerms(new CrossTerms(crossCells[0], crossValues[0], crossCells[1], crossValues[1]));
                 }
             }
             return builder.buildAndRelease();
@@ -260,6 +274,9 @@ public final class Rasterizer {
             }
             long[] a = keys.sorted();
             int n = a.length;
+            int[] cells = new int[16];
+            double[] values = new double[16];
+            int crossing = 0;
             int[] cut = new int[k];
             for (int s = 0; s < n; ) {
                 long pixel = a[s] / k;
@@ -271,10 +288,27 @@ public final class Rasterizer {
                     }
                 }
                 int p = (int) pixel;
+                cross = 0;
                 int id = resolve(site, p % nx, p / nx, cut, m);
                 if (id >= 0) {
                     builder.put(site, p, id);
                 }
+                // two cells of margin: the solver averages the other component's four neighbouring sites
+                int i = p % nx;
+                int j = p / nx;
+                if (cross != 0 && i >= 2 && i < nx - 2 && j >= 2 && j < ny - 2) {
+                    if (crossing == cells.length) {
+                        cells = Arrays.copyOf(cells, 2 * crossing);
+                        values = Arrays.copyOf(values, 2 * crossing);
+                    }
+                    cells[crossing] = p;
+                    values[crossing++] = cross;
+                }
+            }
+            if (site != FieldSite.EZ) {
+                int q = site == FieldSite.EX ? 0 : 1;
+                crossCells[q] = Arrays.copyOf(cells, crossing);
+                crossValues[q] = Arrays.copyOf(values, crossing);
             }
         }
 
@@ -373,7 +407,9 @@ public final class Rasterizer {
             double sigma = 0;
             double len = 0;
             double txx = 0;
+            double txy = 0;
             double tyy = 0;
+            boolean lossless = materials[base].conductivity() == 0;
             boolean single = true;
             int first = ids[base];
             for (int q = 0; q < np; q++) {
@@ -386,7 +422,9 @@ public final class Rasterizer {
                 double l = cuts[q].boundaryLength();
                 len += l;
                 txx += l * cuts[q].txx();
+                txy += l * cuts[q].txy();
                 tyy += l * cuts[q].tyy();
+                lossless &= mat.conductivity() == 0;
             }
             if (single) {
                 return first;
@@ -424,6 +462,8 @@ public final class Rasterizer {
             } else {
                 double w = len > 0 ? (site == FieldSite.EX ? txx : tyy) / len : 0.5;
                 effective = 1 / (w * inv + (1 - w) / eps);
+                // a face parallel to an axis leaves T_xy of order 1e-16 from rounding: no cross term there
+                cross = lossless && Math.abs(txy) > 1e-9 * len ? rounded(txy / len * (inv - 1 / eps)) : 0;
             }
             return builder.idOf(new Material(name(base, partial, np), rounded(effective), rounded(sigma)));
         }

@@ -72,6 +72,9 @@ public final class Simulation implements StepView, AutoCloseable {
     private final BandTeam.Phase flushing;
     /** The recorders the worker threads share after each step (issue 18). */
     private final SharedRecorders shared;
+    /** After the step's phases: the smoothing's cross terms (p), or null; then the shared recorders. */
+    private final BandTeam.After coupled;
+    private final BandTeam.After coupledThenShared;
     private long step;
 
     private Simulation(Builder b, double dt) {
@@ -170,6 +173,14 @@ public final class Simulation implements StepView, AutoCloseable {
         divergenceLimit = b.divergenceLimit > 0 ? b.divergenceLimit : 1e15 * Math.max(1.0, amplitudeSum);
         team = new BandTeam(g.ny(), b.effectiveThreads(), "evanesce-band");
         shared = new SharedRecorders(this, team.threads());
+        java.util.Set<Integer> special = new java.util.HashSet<>(b.dispersive.keySet());
+        special.addAll(b.series.keySet());
+        CrossCoupling coupling = CrossCoupling.of(g, b.polarization, engine, b.courant, special);
+        coupled = coupling == null ? null : (band, j0, j1) -> coupling.apply(j0, j1);
+        coupledThenShared = coupling == null ? null : (band, j0, j1) -> {
+            coupling.apply(j0, j1);
+            shared.run(band, j0, j1);
+        };
         shared.use(listeners);
         plain = (j0, j1, phase) -> engine.sweep(j0, j1, phase, false);
         flushing = (j0, j1, phase) -> engine.sweep(j0, j1, phase, true);
@@ -221,7 +232,12 @@ public final class Simulation implements StepView, AutoCloseable {
             }
         }
         boolean flush = (step + 1) % flushInterval == 0;
-        double max = team.step(flush ? flushing : plain, shared.prepare());
+        BandTeam.After after = shared.prepare();
+        if (coupled != null) {
+            // the cross terms complete E before any recorder reads it
+            after = after == null ? coupled : coupledThenShared;
+        }
+        double max = team.step(flush ? flushing : plain, after);
         step++;
         if (flush && !(max <= divergenceLimit)) {
             throw diverged(max);

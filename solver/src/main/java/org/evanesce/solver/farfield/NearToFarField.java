@@ -64,6 +64,10 @@ public final class NearToFarField {
     private final double g;
     private final double[] ux, uy, unx, uny, uw, ure, uim;
     private final double[] vx, vy, vnx, vny, vw, vre, vim;
+    /** Whether U and V_t sit at the same points (a grid contour's): the V loop then reuses U's phases. */
+    private final boolean samePoints;
+    /** Per thread: the phases of the U loop (re, im interleaved), for the V loop at the same points. */
+    private static final ThreadLocal<double[]> PHASES = ThreadLocal.withInitial(() -> new double[0]);
     private final double reach;
     /** Δ, m, and S of the Yee grid the samples come from ({@link #onYeeGrid}); 0 and 0 for the continuum. */
     private final double cellSize, courant;
@@ -118,6 +122,7 @@ public final class NearToFarField {
         vw = vp.weight();
         vre = tangential.re();
         vim = tangential.im();
+        samePoints = java.util.Arrays.equals(ux, vx) && java.util.Arrays.equals(uy, vy);
         double r = 0;
         for (int j = 0; j < ux.length; j++) {
             r = Math.max(r, Math.hypot(ux[j], uy[j]));
@@ -207,6 +212,14 @@ public final class NearToFarField {
         double lastNx = Double.NaN;
         double lastNy = Double.NaN;
         double factor = 1;
+        double[] phases = null;
+        if (samePoints) {
+            phases = PHASES.get();
+            if (phases.length < 2 * ux.length) {
+                phases = new double[2 * ux.length];
+                PHASES.set(phases);
+            }
+        }
         for (int j = 0; j < ux.length; j++) {
             double along = unx[j] * c + uny[j] * s;
             if (grid && electricU && (unx[j] != lastNx || uny[j] != lastNy)) {
@@ -218,6 +231,10 @@ public final class NearToFarField {
             uPhase.next(ux[j], uy[j]);
             double cp = uPhase.re;
             double sp = uPhase.im;
+            if (phases != null) {
+                phases[2 * j] = cp;
+                phases[2 * j + 1] = sp;
+            }
             re += f * (ure[j] * cp - uim[j] * sp);
             im += f * (ure[j] * sp + uim[j] * cp);
         }
@@ -236,9 +253,17 @@ public final class NearToFarField {
                 }
             }
             double f = k0 * g * vw[j] * factor;
-            vPhase.next(vx[j], vy[j]);
-            double cp = vPhase.re;
-            double sp = vPhase.im;
+            double cp;
+            double sp;
+            if (phases != null) {
+                // the same points in the same order: the values vPhase would give, bit for bit
+                cp = phases[2 * j];
+                sp = phases[2 * j + 1];
+            } else {
+                vPhase.next(vx[j], vy[j]);
+                cp = vPhase.re;
+                sp = vPhase.im;
+            }
             re += f * (vre[j] * cp - vim[j] * sp);
             im += f * (vre[j] * sp + vim[j] * cp);
         }
