@@ -59,8 +59,11 @@ final class FluxPlanner {
                 Smoothing.ANISOTROPIC);
         SteadyState steady = w.signal() instanceof SignalSpec.RampedWave rw
                 ? continuousWindow(spec, grid, rw, stop.maxSteps() * dt, errors) : null;
+        // pulses: every few steps is the same transform (MapStride, as field maps; issue 18); a continuous wave's
+        // window of whole periods keeps every step
+        int stride = steady != null ? 1 : MapStride.of(spec.sources().stream().map(x -> x.signal()).toList(), freqs, dt);
         Recorders reference = new Recorders(configured.apply(homogeneous), new IncidentKey(setup, homogeneous), freqs,
-                steady, pol);
+                steady, stride, pol);
         if (periodic && f.incidentRun().value() == FluxSpec.IncidentRun.AUTO && grid.nx() > STRIP_COLUMNS) {
             reference.strip(setup, materials.get(medium.name()), grid);
         }
@@ -72,8 +75,8 @@ final class FluxPlanner {
         List<FluxLine[]> referenceHalves = new ArrayList<>();
         for (FluxSpec.Line l : f.lines()) {
             int row = CasePlanner.nearest(l.y().si(), grid.y0(), dx, 0.5);
-            FluxLine a = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
-            FluxLine b = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
+            FluxLine a = windowed(new FluxLine(pol, row, i0, i1, freqs), steady, stride);
+            FluxLine b = windowed(new FluxLine(pol, row, i0, i1, freqs), steady, stride);
             run.listener(a);
             reference.add("line", b);
             lines.add(new FluxPlan.Line(l, row, grid.y0() + (row + 0.5) * dx, a, b));
@@ -90,7 +93,7 @@ final class FluxPlanner {
                     + "read %d cells ahead of the launching line, which is outside the grid; move the line away from "
                     + "the %s edge", INCIDENT_OFFSET, dir > 0 ? "top" : "bottom")));
         }
-        FluxLine incident = windowed(new FluxLine(pol, Math.max(0, incidentRow), i0, i1, freqs), steady);
+        FluxLine incident = windowed(new FluxLine(pol, Math.max(0, incidentRow), i0, i1, freqs), steady, stride);
         reference.add("incident line", incident);
         Optional<FluxPlan.Steady> check = steady == null ? Optional.empty() : Optional.of(new FluxPlan.Steady(steady,
                 runHalves, referenceHalves, reference.halves(steady, incident, freqs, pol)));
@@ -103,7 +106,7 @@ final class FluxPlanner {
         if (beam.isPresent() && exact.isPresent()) {
             int row = pathRow(lines, exact.get().firstInterface(), incidentRow, dir, grid, interior);
             if (row >= 0) {
-                FluxLine l = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
+                FluxLine l = windowed(new FluxLine(pol, row, i0, i1, freqs), steady, stride);
                 reference.add("path line", l);
                 path = Optional.of(new FluxPlan.Path(l, grid.y0() + (row + 0.5) * dx));
             }
@@ -128,16 +131,18 @@ final class FluxPlanner {
         final List<FluxLine> lines = new ArrayList<>();
         final double[] freqs;
         final SteadyState steady;
+        final int stride;
         final org.evanesce.solver.grid.Polarization pol;
         private Simulation.Builder strip;
         private final List<FluxLine> stripLines = new ArrayList<>();
 
-        Recorders(Simulation.Builder builder, IncidentKey key, double[] freqs, SteadyState steady,
+        Recorders(Simulation.Builder builder, IncidentKey key, double[] freqs, SteadyState steady, int stride,
                   org.evanesce.solver.grid.Polarization pol) {
             this.builder = builder;
             this.key = key;
             this.freqs = freqs;
             this.steady = steady;
+            this.stride = stride;
             this.pol = pol;
         }
 
@@ -183,10 +188,13 @@ final class FluxPlanner {
             builder.listener(l);
             lines.add(l);
             String window = steady == null ? "whole run" : steady + (half < 0 ? "" : half == 0 ? " early half" : " late half");
+            if (stride > 1) {
+                window += ", every " + stride + " steps";
+            }
             key.recorder(what, l.row(), l.firstCell(), l.cells(), freqs, window);
             if (strip != null) {
                 FluxLine s = new FluxLine(pol, l.row(), 0, STRIP_COLUMNS, freqs);
-                s = half >= 0 ? steady.halfLine(s, half, freqs, pol) : windowed(s, steady);
+                s = half >= 0 ? steady.halfLine(s, half, freqs, pol) : windowed(s, steady, stride);
                 strip.listener(s);
                 stripLines.add(s);
             }
@@ -226,8 +234,9 @@ final class FluxPlanner {
         return (row - incidentRow) * dir >= MIN_PATH_CELLS ? row : -1;
     }
 
-    private static FluxLine windowed(FluxLine l, SteadyState steady) {
-        return steady == null ? l : l.window(steady.start(), steady.end() + 1e-6 * steady.period());
+    /** A continuous wave's window on {@code l}, or a pulse's stride (1: every step). */
+    private static FluxLine windowed(FluxLine l, SteadyState steady, int stride) {
+        return steady == null ? l.stride(stride) : l.window(steady.start(), steady.end() + 1e-6 * steady.period());
     }
 
     /** The early and late halves of a windowed line, registered on {@code sim}. */

@@ -4,10 +4,11 @@ import java.util.List;
 import org.evanesce.io.casefile.model.SignalSpec;
 
 /**
- * How many steps apart a field map may read the fields ({@code FieldMap.stride}) without changing its
- * transforms: issue 18's profile of the evanescent-tail example had the map at 30 % of the stepping samples,
- * read every step although the fields change little within a step (about 40 steps per period at 16 cells
- * per wavelength).
+ * How many steps apart a field map ({@code FieldMap.stride}) or a flux line ({@code FluxLine.stride}, set by
+ * {@link FluxPlanner} for the run's and the incident-power run's lines) may read the fields without changing its
+ * transforms: issue 18's profiles had the evanescent-tail example's map at 30 % of the stepping samples and the
+ * prism coupler's flux lines at 7.6 %, read every step although the fields change little within a step (about
+ * 40 steps per period at 16 cells per wavelength).
  *
  * <p>The rule. A linear grid holds only its sources' frequencies (modulo 1/Δt). A Gaussian pulse's amplitude
  * spectrum exp(−(f − f0)²/(2σf²)) is below e^−18 (1.5e-8) of its peak beyond f_top = f0 + 6σf, the level at

@@ -79,6 +79,8 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
     private long eSamples, hSamples;
     /** The time step, s (set by every step; 0 before the first). */
     private double dt;
+    /** Steps between samples: 1 reads every step ({@link #stride(int)}). */
+    private int stride = 1;
 
     /**
      * @param pol         the run's polarization
@@ -150,6 +152,32 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
         return this;
     }
 
+    /**
+     * Reads the fields only at steps whose number is a multiple of {@code steps}, each sample weighted steps·Δt
+     * (call before the first step), as {@link FieldMap#stride} does: X(f) = Σ F(t_{kN}) e^{i2πf t_{kN}} NΔt. The
+     * caller must know that the fields hold no frequency f' ≡ ±f (mod 1/(steps·Δt)) other than f itself at a
+     * transformed frequency f: by the Poisson summation formula the strided sum is the every-step sum plus the
+     * fields' spectrum at f + k/(steps·Δt), k ≠ 0 (C. E. Shannon, "Communication in the presence of noise", Proc.
+     * IRE 37, 10–21, 1949, Theorem 1). Meant for pulses that have died out inside the window; a continuous wave's
+     * window of whole periods ({@link #meanPower}) keeps stride 1, its ends falling within a step, not a stride,
+     * of whole periods.
+     *
+     * @param steps steps between samples, ≥ 1
+     * @return this line
+     */
+    public FluxLine stride(int steps) {
+        if (steps < 1) {
+            throw new IllegalArgumentException("flux line stride " + steps + " steps: expected at least 1");
+        }
+        stride = steps;
+        return this;
+    }
+
+    /** Steps between samples (1: every step). */
+    public int stride() {
+        return stride;
+    }
+
     @Override
     public boolean prepare(StepView v, int workers) {
         return prepare(v, workers, null);
@@ -162,6 +190,9 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
      * compute them once instead of four times; the values are those this line would compute, bit for bit.
      */
     boolean prepare(StepView v, int workers, FluxLine model) {
+        if (stride > 1 && v.stepCount() % stride != 0) {
+            return false;
+        }
         double te = v.time(e);
         double th = v.time(h);
         boolean eIn = te >= windowStart && te < windowEnd;
@@ -173,12 +204,12 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
         hSamples += hIn ? 1 : 0;
         complex = v.complexFields();
         double dt = v.dt();
-        double we = eIn ? dt : 0;
-        double wh = hIn ? dt : 0;
+        double we = eIn ? stride * dt : 0;
+        double wh = hIn ? stride * dt : 0;
         this.dt = dt;
         slot = held;
         held = (held + 1) % HOLD;
-        if (model != null && model.slot == slot && model.dt == dt && model.windowStart == windowStart
+        if (model != null && model.slot == slot && model.dt == dt && model.stride == stride && model.windowStart == windowStart
                 && model.windowEnd == windowEnd && model.e.electric == e.electric && model.h.electric == h.electric
                 && java.util.Arrays.equals(model.omega, omega)) {
             System.arraycopy(model.ce[slot], 0, ce[slot], 0, omega.length);
@@ -375,12 +406,12 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
     /**
      * The time-averaged flux along +y of a continuous wave at frequency q, W per metre of z (for the
      * fields' own amplitudes): 4·{@link #flux(int, double)}/(D_E D_H), D = (samples transformed)·Δt the
-     * duration of the samples (see the class comment). Meaningful when the window holds whole periods of a settled
-     * wave; NaN before any sample was taken.
+     * duration of the samples (see the class comment; samples·stride·Δt with a {@link #stride}). Meaningful when the
+     * window holds whole periods of a settled wave; NaN before any sample was taken.
      */
     public double meanPower(int q, double cellSize) {
-        double de = eSamples * dt;
-        double dh = hSamples * dt;
+        double de = eSamples * stride * dt;
+        double dh = hSamples * stride * dt;
         return de > 0 && dh > 0 ? 4 * flux(q, cellSize) / (de * dh) : Double.NaN;
     }
 
@@ -389,8 +420,8 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
      * such as a far field's) into a continuous wave's time-averaged power ({@link #meanPower}); NaN before any sample.
      */
     public double meanPowerScale() {
-        double de = eSamples * dt;
-        double dh = hSamples * dt;
+        double de = eSamples * stride * dt;
+        double dh = hSamples * stride * dt;
         return de > 0 && dh > 0 ? 4 / (de * dh) : Double.NaN;
     }
 
@@ -506,9 +537,10 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
      * @param cellSize Δ, m
      */
     public void spreadFrom(FluxLine strip, double kx, double cellSize) {
-        if (vertical || strip.vertical || strip.row != row || strip.omega.length != omega.length || strip.e != e) {
-            throw new IllegalArgumentException("a line is spread only from a horizontal line of the same row, component and "
-                    + "frequencies");
+        if (vertical || strip.vertical || strip.row != row || strip.omega.length != omega.length || strip.e != e
+                || strip.stride != stride) {
+            throw new IllegalArgumentException("a line is spread only from a horizontal line of the same row, component, "
+                    + "frequencies and stride");
         }
         eSamples = strip.eSamples;
         hSamples = strip.hSamples;
