@@ -165,6 +165,52 @@ class IncidentPowerCacheTest {
         assertEquals(List.of(), notes, "nothing to note");
     }
 
+    /**
+     * A pulse run for a fixed time (the run's length a parameter, the set-up the same), on the strip or on the full
+     * width.
+     */
+    private static String timed(boolean strip) {
+        String t = text(true).replace("{energy_below: 1e-6, latest: 400 fs}", "{time: dur}")
+                .replace("  bw: 20 nm\n", "  bw: 20 nm\n  dur: 200 fs\n");
+        return strip ? t : t.replace("  transfer_matrix: true\n", "  transfer_matrix: true\n  incident_run: full\n");
+    }
+
+    @ParameterizedTest(name = "strip {0}")
+    @ValueSource(booleans = {true, false})
+    void aRunOfAnotherLengthContinuesAKeptStateBitForBit(boolean strip) throws Exception {
+        String text = timed(strip);
+        assertTrue(text.contains("{time: dur}") && text.contains("dur: 200 fs") && (strip || text.contains("incident_run: full")));
+        IncidentPowerCache cache = IncidentPowerCache.inMemory();
+        // a length, a longer one (continues the first's end), one between (continues a state kept on the way), the
+        // first again (reused whole), a shorter one than all (continues a state the first kept on the way)
+        String[] lengths = {"150 fs", "260 fs", "210 fs", "150 fs", "100 fs"};
+        long[] from = new long[lengths.length];
+        for (int k = 0; k < lengths.length; k++) {
+            CasePlan kept = plan(text, Map.of("dur", lengths[k], "gap", "120 nm"));
+            CaseRunner.Result a = CaseRunner.run(kept, null, 1, null, null, cache);
+            CasePlan fresh = plan(text, Map.of("dur", lengths[k], "gap", "120 nm"));
+            CaseRunner.Result b = CaseRunner.run(fresh, null, 1, null, null, IncidentPowerCache.none());
+            String what = lengths[k] + " (" + a.steps() + " steps, " + a.incidentPower().origin() + ")";
+            assertEquals(a.steps(), b.steps(), what);
+            assertEquals(strip, a.incidentPower().strip(), what);
+            assertSameStates(states(fresh), states(kept), what);
+            assertArrayEquals(bits(fresh), bits(kept), what + ": every T, R, A and incident value");
+            assertEquals(Double.doubleToRawLongBits(b.incidentPowerRunFinalEnergy()),
+                    Double.doubleToRawLongBits(a.incidentPowerRunFinalEnergy()), what + ": the final energy");
+            assertEquals(Double.doubleToRawLongBits(b.incidentPowerRunPeakEnergy()),
+                    Double.doubleToRawLongBits(a.incidentPowerRunPeakEnergy()), what + ": the peak energy");
+            String o = a.incidentPower().origin();
+            from[k] = o.contains("continuing from step ") ? Long.parseLong(o.replaceAll(".*continuing from step (\\d+).*", "$1")) : -1;
+            assertTrue(from[k] < a.steps(), what);
+        }
+        assertEquals(-1, from[0], "the first run starts at step 0");
+        assertTrue(from[1] > 0, "the longer run continues the first's state: " + from[1]);
+        assertTrue(from[2] >= from[1], "the run between continues a state kept on the way: " + from[2]);
+        assertEquals(-1, from[3], "the first length again is reused, not measured: " + from[3]);
+        assertTrue(from[4] > 0 && from[4] % CaseRunner.KEEP_EVERY == 0, "a run shorter than every run before continues a "
+                + "state kept on the way, every " + CaseRunner.KEEP_EVERY + " steps: " + from[4]);
+    }
+
     @Test
     void aDamagedFileIsNotUsedAndIsReplaced() throws Exception {
         List<String> notes = new ArrayList<>();
