@@ -221,8 +221,12 @@ public final class CasePlanner {
         if (spec.flux().isPresent()) {
             IncidentKey.Setup setup = new IncidentKey.Setup(spec.polarization().value(), spec.numerics().precision().value(),
                     courant, sides, sources, sheets);
+            // a surfaces section normalised by the incident power reads it on a line of this incident-power run
+            double[] surfacesFrequencies = spec.surfaces().filter(s -> s.normalise().value()
+                    == org.evanesce.io.casefile.model.SurfacesSpec.Normalise.INCIDENT)
+                    .map(s -> s.frequencies().stream().mapToDouble(v -> v.si()).toArray()).orElse(null);
             flux = Optional.of(FluxPlanner.plan(spec, grid, interior(sides, grid), materials, b, configured, setup, stop, dt,
-                    errors));
+                    surfacesFrequencies, errors));
             if (!errors.isEmpty()) {
                 throw new PlanException(errors);
             }

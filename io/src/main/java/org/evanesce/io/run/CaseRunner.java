@@ -199,8 +199,8 @@ public final class CaseRunner {
             }
             double[] reference = {0, Double.NaN, Double.NaN};
             IncidentPowerCache.Obtained obtained = null;
-            if (plan.flux().isPresent() && plan.surfaces().isEmpty()) {
-                // surfaces add their own recorders to the incident-power run: no strip, no reuse (below)
+            if (plan.flux().isPresent()) {
+                // a surfaces section's incident line is one of its recorders (FluxPlan.surfacesIncident)
                 long steps = sim.stepCount();
                 obtained = incident.obtain(plan.flux().get(), steps, c -> {
                     double[] m = runIncidentPower(plan, steps, progress, progressSeconds, c);

@@ -211,6 +211,46 @@ class IncidentPowerCacheTest {
                 + "state kept on the way, every " + CaseRunner.KEEP_EVERY + " steps: " + from[4]);
     }
 
+    /** The case with a surfaces section normalised by the incident power: an exit line above the gap. */
+    private static final String SURFACES = """
+            surfaces:
+              wavelengths: [620 nm, 640 nm, 650 nm]
+              exit_spectra:
+                - {name: up, y: 0.8 um, towards: up, numerical_aperture: 1.2}
+            """;
+
+    @Test
+    void aSurfacesSectionsIncidentLineIsReusedWithTheRunsOwn() throws Exception {
+        String text = text(true).replace("until: ", SURFACES + "until: ");
+        assertTrue(text.contains("exit_spectra"), text);
+        IncidentPowerCache cache = IncidentPowerCache.inMemory();
+        CaseRunner.Result a = CaseRunner.run(plan(text, Map.of("gap", "100 nm")), null, 1, null, null, cache);
+        assertFalse(a.incidentPower().reused(), "the first point measures: " + a.incidentPower());
+        assertTrue(a.incidentPower().strip(), "on the strip: " + a.incidentPower());
+        CasePlan reused = plan(text, Map.of("gap", "200 nm"));
+        CaseRunner.Result b = CaseRunner.run(reused, null, 1, null, null, cache);
+        assertTrue(b.incidentPower().reused(), "the second gap reuses it: " + b.incidentPower());
+        CasePlan fresh = plan(text, Map.of("gap", "200 nm"));
+        CaseRunner.Result c = CaseRunner.run(fresh, null, 1, null, null, IncidentPowerCache.none());
+        assertEquals(b.steps(), c.steps());
+        var line = fresh.flux().orElseThrow().surfacesIncident();
+        assertTrue(line.isPresent() && fresh.flux().orElseThrow().recorders().contains(line.get()),
+                "the surfaces' incident line is a recorder of the incident-power run");
+        assertSameStates(states(fresh), states(reused), "reused against measured, the surfaces' incident line among them");
+        SurfaceResults r = SurfaceResults.of(reused.surfaces().orElseThrow());
+        SurfaceResults f = SurfaceResults.of(fresh.surfaces().orElseThrow());
+        assertEquals(f.columns(), r.columns());
+        for (int q = 0; q < f.rows().length; q++) {
+            assertArrayEquals(f.rows()[q], r.rows()[q], "every surfaces value at frequency " + q);
+            assertEquals(f.norm()[q], r.norm()[q], "the norm at frequency " + q);
+            assertTrue(f.norm()[q] > 0, "an incident power was measured: " + f.norm()[q]);
+        }
+        // the surfaces' frequencies are part of the key
+        assertNotEquals(plan(text, Map.of()).flux().orElseThrow().setupKey(),
+                plan(text.replace("[620 nm, 640 nm, 650 nm]", "[620 nm, 640 nm, 651 nm]"), Map.of()).flux().orElseThrow().setupKey());
+        assertNotEquals(plan(text, Map.of()).flux().orElseThrow().setupKey(), plan(Map.of()).flux().orElseThrow().setupKey());
+    }
+
     @Test
     void aDamagedFileIsNotUsedAndIsReplaced() throws Exception {
         List<String> notes = new ArrayList<>();
