@@ -247,7 +247,7 @@ public final class CasePlanner {
             throw new PlanException(errors);
         }
         return new CasePlan(spec, grid, mg, b, List.copyOf(probes), stop, dt, interior(sides, grid), flux, eps, fields,
-                List.copyOf(sites), memory, surfaces);
+                List.copyOf(sites), memory, surfaces, List.copyOf(planned));
     }
 
     /** The span of sites a source drives (its cells are flat indices j·nx + i). */
