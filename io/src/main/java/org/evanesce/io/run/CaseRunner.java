@@ -215,7 +215,7 @@ public final class CaseRunner {
                         "measured by this run, ".length()) + ")" : "");
             } else if (plan.referenceRun().isPresent()) {
                 reference = step(plan, plan.referenceRun().get(), sim.stepCount(), progress, progressSeconds, plan.interior());
-                reason += plan.flux().isPresent() || plan.surfaces().get().incidentLine().isPresent()
+                reason += plan.surfaces().get().incidentLine().isPresent()
                         ? "; the incident-power run took the same number of steps"
                         : "; the run measuring the sources' own power took the same number of steps";
             }
@@ -259,7 +259,8 @@ public final class CaseRunner {
 
     /**
      * Steps kept while an incident-power run goes on, for later runs of the same set-up that stop earlier (only where
-     * the run's state is at most {@link #SMALL_STATE} bytes, as a strip's is; at the end a state is always kept).
+     * the run's state is at most {@link #SMALL_STATE} bytes, as a strip's is; the end state is kept whenever it fits half
+     * of {@link IncidentPowerCache#SNAPSHOT_LIMIT}).
      */
     static final long KEEP_EVERY = 16L * Checkpoints.CHUNK;
     /** The largest state (fields and coefficients, bytes) kept every {@link #KEEP_EVERY} steps. */
