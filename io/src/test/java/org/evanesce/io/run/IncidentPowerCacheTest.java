@@ -181,9 +181,10 @@ class IncidentPowerCacheTest {
         String text = timed(strip);
         assertTrue(text.contains("{time: dur}") && text.contains("dur: 200 fs") && (strip || text.contains("incident_run: full")));
         IncidentPowerCache cache = IncidentPowerCache.inMemory();
-        // a length, a longer one (continues the first's end), one between (continues a state kept on the way), the
-        // first again (reused whole), a shorter one than all (continues a state the first kept on the way)
-        String[] lengths = {"150 fs", "260 fs", "210 fs", "150 fs", "100 fs"};
+        // a short one (852 steps: the pulse is still arriving, so the energies after it decide the peak), a longer one
+        // (continues the first's end), a longer one still, one between (continues a state kept on the way), the
+        // second again (reused whole), one shorter than those (continues a state the second kept on the way)
+        String[] lengths = {"30 fs", "150 fs", "260 fs", "210 fs", "150 fs", "100 fs"};
         long[] from = new long[lengths.length];
         for (int k = 0; k < lengths.length; k++) {
             CasePlan kept = plan(text, Map.of("dur", lengths[k], "gap", "120 nm"));
@@ -204,11 +205,13 @@ class IncidentPowerCacheTest {
             assertTrue(from[k] < a.steps(), what);
         }
         assertEquals(-1, from[0], "the first run starts at step 0");
-        assertTrue(from[1] > 0, "the longer run continues the first's state: " + from[1]);
-        assertTrue(from[2] >= from[1], "the run between continues a state kept on the way: " + from[2]);
-        assertEquals(-1, from[3], "the first length again is reused, not measured: " + from[3]);
-        assertTrue(from[4] > 0 && from[4] % CaseRunner.KEEP_EVERY == 0, "a run shorter than every run before continues a "
-                + "state kept on the way, every " + CaseRunner.KEEP_EVERY + " steps: " + from[4]);
+        assertTrue(from[1] > 0 && from[1] % Checkpoints.CHUNK != 0, "the longer run continues the first's end state, "
+                + "between two energy measurements: " + from[1]);
+        assertTrue(from[2] > from[1], "the longer one still continues the second's end: " + from[2]);
+        assertTrue(from[3] >= from[2], "the run between continues a state kept on the way: " + from[3]);
+        assertEquals(-1, from[4], "the second length again is reused, not measured: " + from[4]);
+        assertTrue(from[5] > from[1] && from[5] % CaseRunner.KEEP_EVERY == 0, "a shorter run continues a state kept on the "
+                + "way, every " + CaseRunner.KEEP_EVERY + " steps: " + from[5]);
     }
 
     /** The case with a surfaces section normalised by the incident power: an exit line above the gap. */
