@@ -26,12 +26,14 @@ import org.evanesce.solver.record.Probe;
  * @param sourceSites where each source drives the grid, in the case's order
  * @param memory      the heap the run is estimated to need
  * @param surfaces    the segments, boxes, far fields and exit spectra and their norm, when the case asks for them
+ * @param lightBoxes  the planned plane-wave boxes (total-field/scattered-field), in the case's order
  */
 public record CasePlan(CaseSpec spec, GridSpec grid, MaterialGrid materials, Simulation.Builder builder,
                        List<NamedProbe> probes, Stop stop, double dt, int[] interior,
                        java.util.Optional<FluxPlan> flux, java.util.Map<String, Double> gridPermittivity,
                        FieldPlan fields, List<SourceSite> sourceSites, MemoryEstimate memory,
-                       java.util.Optional<SurfacePlan> surfaces) {
+                       java.util.Optional<SurfacePlan> surfaces,
+                       List<org.evanesce.solver.source.TotalFieldBox> lightBoxes) {
 
     /** The PML's thickness on {@code side} in cells, as planned; 0 where the side has none. */
     public int pmlCells(org.evanesce.solver.grid.Side side) {

@@ -221,8 +221,12 @@ public final class CasePlanner {
         if (spec.flux().isPresent()) {
             IncidentKey.Setup setup = new IncidentKey.Setup(spec.polarization().value(), spec.numerics().precision().value(),
                     courant, sides, sources, sheets);
+            // a surfaces section normalised by the incident power reads it on a line of this incident-power run
+            double[] surfacesFrequencies = spec.surfaces().filter(s -> s.normalise().value()
+                    == org.evanesce.io.casefile.model.SurfacesSpec.Normalise.INCIDENT)
+                    .map(s -> s.frequencies().stream().mapToDouble(v -> v.si()).toArray()).orElse(null);
             flux = Optional.of(FluxPlanner.plan(spec, grid, interior(sides, grid), materials, b, configured, setup, stop, dt,
-                    errors));
+                    surfacesFrequencies, errors));
             if (!errors.isEmpty()) {
                 throw new PlanException(errors);
             }
@@ -243,7 +247,7 @@ public final class CasePlanner {
             throw new PlanException(errors);
         }
         return new CasePlan(spec, grid, mg, b, List.copyOf(probes), stop, dt, interior(sides, grid), flux, eps, fields,
-                List.copyOf(sites), memory, surfaces);
+                List.copyOf(sites), memory, surfaces, List.copyOf(planned));
     }
 
     /** The span of sites a source drives (its cells are flat indices j·nx + i). */

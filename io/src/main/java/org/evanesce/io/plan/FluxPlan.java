@@ -49,13 +49,16 @@ import org.evanesce.solver.reference.PlanarStack;
  * @param computed       for a pulsed Gaussian beam with PMLs on every side (unless the case asks for {@code incident_run:
  *                       full}): the recorders' state computed from the beam's sheets instead of stepped
  *                       ({@link org.evanesce.solver.source.SheetResponse})
+ * @param surfacesIncident the incident line of a {@code surfaces} section normalised by the incident power, at its
+ *                       frequencies: a recorder of this incident-power run (so reused and stepped on the strip with it)
  */
 public record FluxPlan(double[] frequencies, double kx, String medium, double mediumIndex, int direction, List<Line> lines,
                        FluxLine incident, double incidentY, Simulation.Builder reference, double cellSize,
                        Optional<Exact> exact, Optional<SourceSpec.GaussianBeamSource> beam, double gridX0,
                        java.util.function.DoubleBinaryOperator indexAt, Optional<Steady> steady, double lineLength,
                        double sourceAmplitude, Optional<Path> path, String setupKey, List<FluxLine> recorders,
-                       Optional<Strip> strip, Optional<org.evanesce.solver.source.SheetResponse> computed) {
+                       Optional<Strip> strip, Optional<org.evanesce.solver.source.SheetResponse> computed,
+                       Optional<FluxLine> surfacesIncident) {
 
     /**
      * The incident-power run of a Bloch-periodic plane wave done on a strip of a few columns: in a homogeneous medium

@@ -39,11 +39,15 @@ final class FluxPlanner {
      * @param setup      what {@code configured} configures besides the material grid (for the incident-power run's key)
      * @param stop       when the run ends (a continuous wave's window ends there)
      * @param dt         the time step, s
+     * @param surfacesFrequencies the frequencies (Hz) of a {@code surfaces} section whose powers are normalised by the
+     *                   incident power: its incident line rides on this incident-power run (a recorder of the run, part
+     *                   of its key and of the strip); null without one
      * @param errors     receives what cannot be planned
      */
     static FluxPlan plan(CaseSpec spec, GridSpec grid, int[] interior, Map<String, Material> materials,
                          Simulation.Builder run, Function<MaterialGrid, Simulation.Builder> configured,
-                         IncidentKey.Setup setup, CasePlan.Stop stop, double dt, List<Diagnostic> errors) {
+                         IncidentKey.Setup setup, CasePlan.Stop stop, double dt, double[] surfacesFrequencies,
+                         List<Diagnostic> errors) {
         FluxSpec f = spec.flux().orElseThrow();
         SourceSpec.Launched w = PlaneWaves.launched(spec).orElseThrow();
         // lines span the whole width with periodic sides, else the interior between the side PMLs
@@ -97,6 +101,12 @@ final class FluxPlanner {
         reference.add("incident line", incident);
         Optional<FluxPlan.Steady> check = steady == null ? Optional.empty() : Optional.of(new FluxPlan.Steady(steady,
                 runHalves, referenceHalves, reference.halves(steady, incident, freqs, pol)));
+        Optional<FluxLine> surfacesIncident = Optional.empty();
+        if (surfacesFrequencies != null) {
+            FluxLine l = windowed(new FluxLine(pol, Math.max(0, incidentRow), i0, i1, surfacesFrequencies), steady, stride);
+            reference.add("surfaces' incident line", l, -1, surfacesFrequencies);
+            surfacesIncident = Optional.of(l);
+        }
         Optional<FluxPlan.Exact> exact = f.transferMatrix().value()
                 ? transferMatrix(spec, grid, w, interior, errors, f.referencePermittivity().value(), dt, true)
                 : Optional.empty();
@@ -114,7 +124,7 @@ final class FluxPlanner {
         return new FluxPlan(freqs, PlaneWaves.kx(spec), medium.name(), medium.index(), dir, lines, incident,
                 grid.y0() + (incidentRow + 0.5) * dx, reference.builder, dx, exact, beam, grid.x0(),
                 (x, y) -> spec.materials().get(spec.materialAt(x, y)).index(), check, (i1 - i0) * dx,
-                w.amplitude().si(), path, reference.key.hex(), reference.lines, reference.strip(), computed);
+                w.amplitude().si(), path, reference.key.hex(), reference.lines, reference.strip(), computed, surfacesIncident);
     }
 
     /** Columns of the strip that stands for a Bloch-periodic plane wave's incident-power run. */
@@ -180,21 +190,24 @@ final class FluxPlanner {
         }
 
         void add(String what, FluxLine l) {
-            add(what, l, -1);
+            add(what, l, -1, freqs);
         }
 
-        /** @param half −1 for the whole window, 0 or 1 for a continuous wave's early or late half */
-        private void add(String what, FluxLine l, int half) {
+        /**
+         * @param half −1 for the whole window, 0 or 1 for a continuous wave's early or late half
+         * @param f    the line's frequencies, Hz
+         */
+        private void add(String what, FluxLine l, int half, double[] f) {
             builder.listener(l);
             lines.add(l);
             String window = steady == null ? "whole run" : steady + (half < 0 ? "" : half == 0 ? " early half" : " late half");
             if (stride > 1) {
                 window += ", every " + stride + " steps";
             }
-            key.recorder(what, l.row(), l.firstCell(), l.cells(), freqs, window);
+            key.recorder(what, l.row(), l.firstCell(), l.cells(), f, window);
             if (strip != null) {
-                FluxLine s = new FluxLine(pol, l.row(), 0, STRIP_COLUMNS, freqs);
-                s = half >= 0 ? steady.halfLine(s, half, freqs, pol) : windowed(s, steady, stride);
+                FluxLine s = new FluxLine(pol, l.row(), 0, STRIP_COLUMNS, f);
+                s = half >= 0 ? steady.halfLine(s, half, f, pol) : windowed(s, steady, stride);
                 strip.listener(s);
                 stripLines.add(s);
             }
@@ -202,8 +215,8 @@ final class FluxPlanner {
 
         FluxLine[] halves(SteadyState steady, FluxLine like, double[] frequencies, org.evanesce.solver.grid.Polarization pol) {
             FluxLine[] h = {steady.halfLine(like, 0, frequencies, pol), steady.halfLine(like, 1, frequencies, pol)};
-            add("early half", h[0], 0);
-            add("late half", h[1], 1);
+            add("early half", h[0], 0, freqs);
+            add("late half", h[1], 1, freqs);
             return h;
         }
     }

@@ -136,6 +136,15 @@ public final class IncidentKey {
         }
     }
 
+    /**
+     * The key of a set-up's run of any number of steps by this program: the SHA-256 of the set-up's key, the program's
+     * version and its build id. Runs of one such key are the same run stopped at different steps, so a state of one
+     * can be continued to give another's result bit for bit ({@code IncidentPowerCache.Continuation}).
+     */
+    public static String anySteps(String setupKey, String version, String buildId) {
+        return withSteps(setupKey, -1, version, buildId);
+    }
+
     private void flush() {
         try {
             out.flush();

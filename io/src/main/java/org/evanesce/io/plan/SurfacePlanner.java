@@ -154,17 +154,15 @@ final class SurfacePlanner {
             SourceSpec.Launched w = PlaneWaves.launched(spec).orElseThrow();
             String medium = PlaneWaves.medium(spec, w).name();
             normMedium = Optional.of(medium);
-            Simulation.Builder ref;
-            if (flux.isPresent()) {
-                ref = flux.get().reference();
-            } else {
-                ref = configured.apply(homogeneous(materials.get(medium), grid));
-                own = Optional.of(ref);
-            }
             direction = w.direction().value().sign();
             int sourceRow = CasePlanner.nearest(w.y().si(), grid.y0(), dx, w.component().value().dy);
             int row = direction > 0 ? sourceRow + FluxPlanner.INCIDENT_OFFSET - 1 : sourceRow - FluxPlanner.INCIDENT_OFFSET;
-            if (row >= 1 && row + 2 < grid.ny()) {
+            if (flux.isPresent()) {
+                // the flux section's incident-power run records it (FluxPlanner: in its key, strip and reuse)
+                incident = Optional.of(flux.get().surfacesIncident().orElseThrow());
+            } else if (row >= 1 && row + 2 < grid.ny()) {
+                Simulation.Builder ref = configured.apply(homogeneous(materials.get(medium), grid));
+                own = Optional.of(ref);
                 FluxLine line = new FluxLine(pol, row, i0, i1, freqs);
                 ref.listener(windowed(line, steady));
                 incident = Optional.of(line);

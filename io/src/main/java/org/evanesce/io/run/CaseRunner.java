@@ -199,21 +199,23 @@ public final class CaseRunner {
             }
             double[] reference = {0, Double.NaN, Double.NaN};
             IncidentPowerCache.Obtained obtained = null;
-            if (plan.flux().isPresent() && plan.surfaces().isEmpty()) {
-                // surfaces add their own recorders to the incident-power run: no strip, no reuse (below)
+            if (plan.flux().isPresent()) {
+                // a surfaces section's incident line is one of its recorders (FluxPlan.surfacesIncident)
                 long steps = sim.stepCount();
-                obtained = incident.obtain(plan.flux().get(), steps, () -> {
-                    double[] m = runIncidentPower(plan, steps, progress, progressSeconds);
+                obtained = incident.obtain(plan.flux().get(), steps, c -> {
+                    double[] m = runIncidentPower(plan, steps, progress, progressSeconds, c);
                     return new IncidentPowerCache.Measured(m[0], m[1], m[2]);
                 });
                 IncidentPowerCache.Measured m = obtained.measured();
                 reference = new double[] {obtained.reused() ? 0 : m.wallSeconds(), m.finalEnergy(), m.peakEnergy()};
                 reason += obtained.reused() ? "; the incident power was reused from an incident-power run of the same set-up "
                         + "and number of steps (" + obtained.origin() + ")" : obtained.computed() ? "; the incident power was "
-                        + "computed from the beam's sheets (no incident-power run)" : "; the incident-power run took the same number of steps";
+                        + "computed from the beam's sheets (no incident-power run)" : "; the incident-power run took the same number of steps"
+                        + (obtained.origin().contains("continuing from step") ? " (" + obtained.origin().substring(
+                        "measured by this run, ".length()) + ")" : "");
             } else if (plan.referenceRun().isPresent()) {
                 reference = step(plan, plan.referenceRun().get(), sim.stepCount(), progress, progressSeconds, plan.interior());
-                reason += plan.flux().isPresent() || plan.surfaces().get().incidentLine().isPresent()
+                reason += plan.surfaces().get().incidentLine().isPresent()
                         ? "; the incident-power run took the same number of steps"
                         : "; the run measuring the sources' own power took the same number of steps";
             }
@@ -227,10 +229,12 @@ public final class CaseRunner {
      * stands for it, see {@link org.evanesce.io.plan.FluxPlan.Strip}) for exactly as many steps as the case's run, so
      * both transforms cover the same time window.
      *
+     * @param c where it starts (a kept state of the same set-up's run, else step 0) and where it keeps its states
      * @return its wall time, s, its energy inside the PMLs at the end and the largest measured, J/m (a strip's scaled
      *         to the full width)
      */
-    private static double[] runIncidentPower(CasePlan plan, long steps, Consumer<Progress.Report> progress, double progressSeconds) {
+    private static double[] runIncidentPower(CasePlan plan, long steps, Consumer<Progress.Report> progress, double progressSeconds,
+                                             IncidentPowerCache.Continuation c) {
         org.evanesce.io.plan.FluxPlan f = plan.flux().orElseThrow();
         if (f.computed().isPresent()) {
             // a pulsed beam in an unbounded medium: the recorders' transforms in closed form, no grid stepped
@@ -243,18 +247,38 @@ public final class CaseRunner {
         if (f.strip().isPresent()) {
             var s = f.strip().get();
             int[] r = plan.interior();
-            double[] m = step(plan, s.builder(), steps, null, progressSeconds, new int[] {0, r[1], s.columns(), r[3]});
+            double[] m = step(plan, s.builder(), steps, null, progressSeconds, new int[] {0, r[1], s.columns(), r[3]}, c);
             for (int k = 0; k < s.lines().size(); k++) {
                 f.recorders().get(k).spreadFrom(s.lines().get(k), f.kx(), f.cellSize());
             }
             double widths = (double) (r[2] - r[0]) / s.columns();
             return new double[] {m[0], m[1] * widths, m[2] * widths};
         }
-        return step(plan, f.reference(), steps, progress, progressSeconds, plan.interior());
+        return step(plan, f.reference(), steps, progress, progressSeconds, plan.interior(), c);
     }
+
+    /**
+     * Steps kept while an incident-power run goes on, for later runs of the same set-up that stop earlier (only where
+     * the run's state is at most {@link #SMALL_STATE} bytes, as a strip's is; the end state is kept whenever it fits half
+     * of {@link IncidentPowerCache#SNAPSHOT_LIMIT}).
+     */
+    static final long KEEP_EVERY = 16L * Checkpoints.CHUNK;
+    /** The largest state (fields and coefficients, bytes) kept every {@link #KEEP_EVERY} steps. */
+    static final long SMALL_STATE = 1L << 20;
 
     private static double[] step(CasePlan plan, Simulation.Builder b, long steps, Consumer<Progress.Report> progress,
                                  double progressSeconds, int[] r) {
+        return step(plan, b, steps, progress, progressSeconds, r, null);
+    }
+
+    /**
+     * Steps a run (the incident-power run, or the run measuring the sources' own power) to {@code steps}, measuring its
+     * energy inside {@code r} after every multiple of {@link Checkpoints#CHUNK} steps and at the end. With a
+     * continuation it starts from the kept state of the same set-up with the most steps up to {@code steps}, and the
+     * energies are still those measured at the same steps as from step 0, so the result is the same bit for bit.
+     */
+    private static double[] step(CasePlan plan, Simulation.Builder b, long steps, Consumer<Progress.Report> progress,
+                                 double progressSeconds, int[] r, IncidentPowerCache.Continuation c) {
         Simulation ref;
         try {
             ref = b.build();
@@ -268,13 +292,57 @@ public final class CaseRunner {
             }
             long t0 = System.nanoTime();
             double energy = Double.NaN;
-            double peak = 0;
-            while (ref.stepCount() < steps) {
-                ref.run(Math.min(Checkpoints.CHUNK, steps - ref.stepCount()));
-                energy = ref.energy(r[0], r[1], r[2], r[3]);
-                peak = Math.max(peak, energy);
+            boolean measured = false;
+            double chunkPeak = 0;
+            // a state costs its bytes once more in memory: only runs whose state fits the cache's room keep one
+            boolean keep = c != null && c.keeps() && ref.bytes() <= IncidentPowerCache.SNAPSHOT_LIMIT / 2;
+            IncidentPowerCache.Snapshot from = keep ? c.start(steps) : null;
+            if (from != null) {
+                restore(ref, from);
+                chunkPeak = from.chunkPeak();
+                if (ref.stepCount() == steps && steps > 0) {
+                    energy = ref.energy(r[0], r[1], r[2], r[3]);
+                    measured = true;
+                }
             }
+            boolean keepOnTheWay = keep && ref.bytes() <= SMALL_STATE;
+            while (ref.stepCount() < steps) {
+                long n = ref.stepCount();
+                // to the next multiple of CHUNK (or the end), so the energies are measured where a run from step 0 measures them
+                ref.run(Math.min(Checkpoints.CHUNK - n % Checkpoints.CHUNK, steps - n));
+                energy = ref.energy(r[0], r[1], r[2], r[3]);
+                measured = true;
+                if (ref.stepCount() % Checkpoints.CHUNK == 0) {
+                    chunkPeak = Math.max(chunkPeak, energy);
+                    if (keepOnTheWay && ref.stepCount() % KEEP_EVERY == 0 && ref.stepCount() < steps) {
+                        c.keep(snapshot(ref, chunkPeak));
+                    }
+                }
+            }
+            if (keep && (from == null || from.step() < steps)) {
+                c.keep(snapshot(ref, chunkPeak));
+            }
+            double peak = measured ? Math.max(chunkPeak, energy) : chunkPeak;
             return new double[] {(System.nanoTime() - t0) * 1e-9, energy, peak};
+        }
+    }
+
+    private static IncidentPowerCache.Snapshot snapshot(Simulation sim, double chunkPeak) {
+        java.io.ByteArrayOutputStream b = new java.io.ByteArrayOutputStream();
+        try {
+            sim.saveState(b);
+        } catch (java.io.IOException e) {
+            throw new IllegalStateException("writing to memory cannot fail", e);
+        }
+        return new IncidentPowerCache.Snapshot(sim.stepCount(), b.toByteArray(), chunkPeak);
+    }
+
+    private static void restore(Simulation sim, IncidentPowerCache.Snapshot s) {
+        try {
+            sim.restoreState(new java.io.ByteArrayInputStream(s.state()));
+        } catch (java.io.IOException e) {
+            // states are kept under the key of everything the run depends on, so one always fits
+            throw new IllegalStateException("a kept incident-power run state of the same key did not fit: " + e.getMessage(), e);
         }
     }
 }

@@ -12,6 +12,8 @@ import org.evanesce.io.plan.PlaneWaves;
 import org.evanesce.io.plan.SteadyState;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.source.GaussianPulse;
+import org.evanesce.solver.source.GridWave;
+import org.evanesce.solver.source.TotalFieldBox;
 import org.evanesce.solver.source.PlaneSheetAmplitude;
 import org.evanesce.solver.source.RampedContinuous;
 
@@ -30,6 +32,10 @@ import org.evanesce.solver.source.RampedContinuous;
  *   from the axis: {@link #meanCosine}, 1 − 1/(k w0)² to leading order, 0.45 % below 1 for a 1 µm waist in glass at
  *   633 nm). The beam is exact at the signal's centre frequency; a pulse's other frequencies carry the
  *   centre frequency's profile, so away from it |E_inc| is the injected amplitude, not the waist's.</li>
+ *   <li>A plane-wave box: the wave it lights its inside with, the grid's own plane wave in the medium it comes from
+ *   ({@link GridWave}; in layers the bottom or top layer's): amplitude × |G(f)| for s (Ez is the amplitude), amplitude
+ *   × |G(f)| × √(|Ex|² + |Ey|²)/|η0Hz| for p, Ex and Ey by the grid's own ratios averaged onto the nodes as the maps are
+ *   (factors cos(k̃xΔ/2), cos(k̃yΔ/2)); this tends to amplitude/n as the cells shrink.</li>
  * </ul>
  * |G(f)| is the source signal's transform: a pulse's closed form ({@link GaussianPulse#amplitudeSpectrum}), a
  * ramped wave's sum over the maps' window (whole periods in the steady state: about half the window's length).
@@ -58,6 +64,9 @@ public record IncidentField(double[] amplitude, String definition) {
     public static IncidentField of(CasePlan plan) {
         FieldPlan.Maps maps = plan.fields().maps().orElseThrow();
         CaseSpec spec = plan.spec();
+        if (PlaneWaves.launched(spec).isEmpty() && plan.lightBoxes().size() == 1) {
+            return ofBox(plan, maps, plan.lightBoxes().get(0));
+        }
         SourceSpec.Launched w = PlaneWaves.launched(spec).orElseThrow(() -> new IllegalStateException(
                 "maps relative to the incident field without a plane wave or Gaussian beam (the checks refuse this)"));
         MaterialSpec medium = PlaneWaves.medium(spec, w);
@@ -87,6 +96,51 @@ public record IncidentField(double[] amplitude, String definition) {
                         pol == Polarization.S ? "" : ", amplitude / n times the mean cosine of its "
                         + "angular spectrum");
         return new IncidentField(out, what + ", times the source signal's transform at that wavelength (docs/outputs.md)");
+    }
+
+    /** The incident field of a plane-wave box (the case's only source; the checks make sure). */
+    private static IncidentField ofBox(CasePlan plan, FieldPlan.Maps maps, TotalFieldBox box) {
+        SourceSpec.PlaneWaveBox pb = plan.spec().sources().stream().filter(SourceSpec.PlaneWaveBox.class::isInstance)
+                .map(SourceSpec.PlaneWaveBox.class::cast).findFirst().orElseThrow();
+        Polarization pol = plan.spec().polarization().value();
+        double dt = plan.dt();
+        double dx = plan.grid().cellSize();
+        double eps = box.incidenceMediumPermittivity();
+        double[] out = new double[maps.map().frequencyCount()];
+        for (int q = 0; q < out.length; q++) {
+            double f = maps.map().frequency(q);
+            double g = signalSpectrum(pb.signal(), f, dt, maps.steady().orElse(null));
+            out[q] = box.spec().amplitude() * g * (pol == Polarization.S ? 1
+                    : boxElectricPerMagnetic(eps, box.spec().direction(), 2 * Math.PI * f, dx, dt));
+        }
+        String what = String.format(Locale.ROOT, "the plane-wave box's incident electric field amplitude in the medium it "
+                + "comes from (n = %s) as the grid carries it, at each wavelength", org.evanesce.io.casefile.expr.Units.number(
+                Math.sqrt(eps)));
+        return new IncidentField(out, what + ", times the source signal's transform at that wavelength (docs/outputs.md)");
+    }
+
+    /**
+     * √(|Ex|² + |Ey|²)/|η0Hz| of the grid's p plane wave along {@code direction} (radians) in a medium of relative
+     * permittivity ε, Ex and Ey averaged onto the nodes: the {@link GridWave#ratio} factors times cos(k̃xΔ/2) and
+     * cos(k̃yΔ/2) (the mean of the two sites either side). Tends to 1/√ε as Δ → 0.
+     *
+     * @param omega rad/s
+     * @param dx    Δ, m
+     * @param dt    Δt, s
+     */
+    static double boxElectricPerMagnetic(double eps, double direction, double omega, double dx, double dt) {
+        double courant = PhysicalConstants.C0 * dt / dx;
+        double k = GridWave.wavenumber(eps, direction, omega, dx, courant);
+        if (Double.isNaN(k)) {
+            throw new IllegalArgumentException(String.format("the grid (cell %g m) carries no wave of %g Hz in a medium of "
+                    + "permittivity %g; refine the grid", dx, omega / (2 * Math.PI), eps));
+        }
+        double kx = k * Math.cos(direction);
+        double ky = k * Math.sin(direction);
+        double w = Math.sin(omega * dt / 2);
+        double ex = GridWave.ratio(org.evanesce.solver.grid.Component.EX, kx, ky, eps, dx, courant, w) * Math.cos(kx * dx / 2);
+        double ey = GridWave.ratio(org.evanesce.solver.grid.Component.EY, kx, ky, eps, dx, courant, w) * Math.cos(ky * dx / 2);
+        return Math.hypot(ex, ey);
     }
 
     /**

@@ -18,7 +18,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.function.Consumer;
-import java.util.function.Supplier;
+import java.util.function.Function;
 import java.util.zip.CRC32C;
 import org.evanesce.io.output.BuildInfo;
 import org.evanesce.io.output.Faults;
@@ -40,6 +40,12 @@ import org.evanesce.solver.record.FluxLine;
  * inside it and the size of every recorder's state; any other file is left alone and replaced by the new
  * result, with a note. A file that cannot be written costs only the reuse (a note), never the run.
  *
+ * <p>A case whose run stopped after another number of steps than the kept results' (a sweep whose points stop when
+ * their fields have decayed) continues a kept state of the same set-up's incident-power run instead of starting at
+ * step 0 ({@link Continuation}): the simulation's whole state at the largest kept step up to its own, kept in memory
+ * only (up to {@link #SNAPSHOT_LIMIT} bytes). Stepping on from a saved state gives the same fields and recorders, bit
+ * for bit, as stepping from the start ({@code Simulation.saveState}), so the result is still exactly the case's own.
+ *
  * <p>The file: {@code evanesce incident-power cache 1\n}, the key (UTF), the step count, the measurement's
  * wall time, final and peak energy (doubles), the number of recorders, each recorder's state as written by
  * {@link FluxLine#writeState} (its length, then the bytes), and last the byte count and CRC-32C of all before.
@@ -51,6 +57,8 @@ public final class IncidentPowerCache {
     static final int NAME_DIGITS = 32;
     /** Most bytes of results kept in memory; older ones are dropped first (the files stay). */
     static final long MEMORY_LIMIT = 256L << 20;
+    /** Most bytes of kept incident-power run states ({@link Continuation}) in memory; older ones are dropped first. */
+    static final long SNAPSHOT_LIMIT = 64L << 20;
     private static final byte[] MAGIC = "evanesce incident-power cache 1\n".getBytes(StandardCharsets.US_ASCII);
     /** Byte count (8) and CRC-32C (8) at the end. */
     private static final int TRAILER = 16;
@@ -106,11 +114,63 @@ public final class IncidentPowerCache {
 
     private record Entry(Measured measured, byte[][] states, long bytes) { }
 
+    /**
+     * A state of an incident-power run kept to be continued by a later run of the same set-up.
+     *
+     * @param step      the step it was saved after
+     * @param state     the simulation's whole state (fields, PML arrays, recorders), as {@code Simulation.saveState} wrote it
+     * @param chunkPeak the largest energy measured at the multiples of the run's measuring interval up to {@code step}
+     *                  (the energy at {@code step} itself only where it is such a multiple), J/m; 0 before any
+     */
+    public record Snapshot(long step, byte[] state, double chunkPeak) { }
+
+    /**
+     * Where one incident-power run may start, and where it leaves states for later runs of the same set-up (all runs
+     * of one {@link IncidentKey#anySteps} key). Without reuse ({@link #none()}) it starts at step 0 and keeps nothing.
+     */
+    public static final class Continuation {
+        private final IncidentPowerCache cache;
+        private final String runKey;
+        private long continuedFrom = -1;
+
+        private Continuation(IncidentPowerCache cache, String runKey) {
+            this.cache = cache;
+            this.runKey = runKey;
+        }
+
+        /** The kept state with the most steps up to {@code steps}, or null: start at step 0. */
+        public Snapshot start(long steps) {
+            Snapshot s = cache == null ? null : cache.latest(runKey, steps);
+            continuedFrom = s == null ? -1 : s.step();
+            return s;
+        }
+
+        /** Whether states are kept at all (else {@link #keep} does nothing, and a run need not save any). */
+        public boolean keeps() {
+            return cache != null;
+        }
+
+        /** Keeps a state for later runs (dropping the oldest kept states beyond {@link #SNAPSHOT_LIMIT} bytes). */
+        public void keep(Snapshot s) {
+            if (cache != null) {
+                cache.keepSnapshot(runKey, s);
+            }
+        }
+
+        /** The step the run continued from, or −1 when it started at step 0. */
+        public long continuedFrom() {
+            return continuedFrom;
+        }
+    }
+
     private final Path folder;
     private final Consumer<String> notes;
     private final Map<String, Object> locks = new ConcurrentHashMap<>();
     private final LinkedHashMap<String, Entry> memory = new LinkedHashMap<>(16, 0.75f, true);
     private long memoryBytes;
+    /** Kept states by run key and step ("KEY@STEP"), least recently used first. */
+    private final LinkedHashMap<String, Snapshot> snapshots = new LinkedHashMap<>(16, 0.75f, true);
+    private long snapshotBytes;
 
     private final boolean enabled;
 
@@ -156,15 +216,22 @@ public final class IncidentPowerCache {
         return IncidentKey.withSteps(plan.setupKey(), steps, b.version(), b.id());
     }
 
+    /** The key of all a plan's incident-power runs by this build, whatever their number of steps. */
+    public static String runKey(FluxPlan plan) {
+        BuildInfo b = BuildInfo.current();
+        return IncidentKey.anySteps(plan.setupKey(), b.version(), b.id());
+    }
+
     /**
      * The plan's incident-power run of {@code steps} steps: restored into its recorders from an earlier result of
-     * the same key, or measured by {@code measure} (which steps the plan's recorders) and kept.
+     * the same key, or measured by {@code measure} (which steps the plan's recorders, starting where the
+     * continuation says) and kept.
      */
-    public Obtained obtain(FluxPlan plan, long steps, Supplier<Measured> measure) {
+    public Obtained obtain(FluxPlan plan, long steps, Function<Continuation, Measured> measure) {
         String key = key(plan, steps);
         if (!enabled) {
-            return new Obtained(false, key, "measured by this run", measure.get(), plan.strip().isPresent(),
-                    plan.computed().isPresent());
+            return new Obtained(false, key, "measured by this run", measure.apply(new Continuation(null, null)),
+                    plan.strip().isPresent(), plan.computed().isPresent());
         }
         synchronized (locks.computeIfAbsent(key, k -> new Object())) {
             List<FluxLine> recorders = plan.recorders();
@@ -182,14 +249,51 @@ public final class IncidentPowerCache {
                 remember(key, e);
                 return new Obtained(true, key, origin, e.measured(), plan.strip().isPresent(), plan.computed().isPresent());
             }
-            Measured m = measure.get();
+            Continuation c = new Continuation(this, runKey(plan));
+            Measured m = measure.apply(c);
             e = capture(m, recorders);
             remember(key, e);
             if (folder != null) {
                 write(key, steps, e);
             }
-            return new Obtained(false, key, "measured by this run", m, plan.strip().isPresent(),
-                    plan.computed().isPresent());
+            return new Obtained(false, key, c.continuedFrom() < 0 ? "measured by this run" : "measured by this run, "
+                    + "continuing from step " + c.continuedFrom() + " a state kept by an earlier incident-power run of "
+                    + "the same set-up in this process", m, plan.strip().isPresent(), plan.computed().isPresent());
+        }
+    }
+
+    private Snapshot latest(String runKey, long steps) {
+        Snapshot best = null;
+        synchronized (snapshots) {
+            for (Map.Entry<String, Snapshot> en : snapshots.entrySet()) {
+                Snapshot s = en.getValue();
+                if (en.getKey().startsWith(runKey + "@") && s.step() <= steps && (best == null || s.step() > best.step())) {
+                    best = s;
+                }
+            }
+            if (best != null) {
+                snapshots.get(runKey + "@" + best.step()); // most recently used
+            }
+        }
+        return best;
+    }
+
+    private void keepSnapshot(String runKey, Snapshot s) {
+        if (s.state().length > SNAPSHOT_LIMIT) {
+            return;
+        }
+        String name = runKey + "@" + s.step();
+        synchronized (snapshots) {
+            Snapshot old = snapshots.put(name, s);
+            snapshotBytes += s.state().length - (old == null ? 0 : old.state().length);
+            Iterator<Map.Entry<String, Snapshot>> it = snapshots.entrySet().iterator();
+            while (snapshotBytes > SNAPSHOT_LIMIT && it.hasNext()) {
+                Map.Entry<String, Snapshot> o = it.next();
+                if (!o.getKey().equals(name)) {
+                    snapshotBytes -= o.getValue().state().length;
+                    it.remove();
+                }
+            }
         }
     }
 

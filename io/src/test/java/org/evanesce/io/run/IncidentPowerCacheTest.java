@@ -165,6 +165,95 @@ class IncidentPowerCacheTest {
         assertEquals(List.of(), notes, "nothing to note");
     }
 
+    /**
+     * A pulse run for a fixed time (the run's length a parameter, the set-up the same), on the strip or on the full
+     * width.
+     */
+    private static String timed(boolean strip) {
+        String t = text(true).replace("{energy_below: 1e-6, latest: 400 fs}", "{time: dur}")
+                .replace("  bw: 20 nm\n", "  bw: 20 nm\n  dur: 200 fs\n");
+        return strip ? t : t.replace("  transfer_matrix: true\n", "  transfer_matrix: true\n  incident_run: full\n");
+    }
+
+    @ParameterizedTest(name = "strip {0}")
+    @ValueSource(booleans = {true, false})
+    void aRunOfAnotherLengthContinuesAKeptStateBitForBit(boolean strip) throws Exception {
+        String text = timed(strip);
+        assertTrue(text.contains("{time: dur}") && text.contains("dur: 200 fs") && (strip || text.contains("incident_run: full")));
+        IncidentPowerCache cache = IncidentPowerCache.inMemory();
+        // a short one (852 steps: the pulse is still arriving, so the energies after it decide the peak), a longer one
+        // (continues the first's end), a longer one still, one between (continues a state kept on the way), the
+        // second again (reused whole), one shorter than those (continues a state the second kept on the way)
+        String[] lengths = {"30 fs", "150 fs", "260 fs", "210 fs", "150 fs", "100 fs"};
+        long[] from = new long[lengths.length];
+        for (int k = 0; k < lengths.length; k++) {
+            CasePlan kept = plan(text, Map.of("dur", lengths[k], "gap", "120 nm"));
+            CaseRunner.Result a = CaseRunner.run(kept, null, 1, null, null, cache);
+            CasePlan fresh = plan(text, Map.of("dur", lengths[k], "gap", "120 nm"));
+            CaseRunner.Result b = CaseRunner.run(fresh, null, 1, null, null, IncidentPowerCache.none());
+            String what = lengths[k] + " (" + a.steps() + " steps, " + a.incidentPower().origin() + ")";
+            assertEquals(a.steps(), b.steps(), what);
+            assertEquals(strip, a.incidentPower().strip(), what);
+            assertSameStates(states(fresh), states(kept), what);
+            assertArrayEquals(bits(fresh), bits(kept), what + ": every T, R, A and incident value");
+            assertEquals(Double.doubleToRawLongBits(b.incidentPowerRunFinalEnergy()),
+                    Double.doubleToRawLongBits(a.incidentPowerRunFinalEnergy()), what + ": the final energy");
+            assertEquals(Double.doubleToRawLongBits(b.incidentPowerRunPeakEnergy()),
+                    Double.doubleToRawLongBits(a.incidentPowerRunPeakEnergy()), what + ": the peak energy");
+            String o = a.incidentPower().origin();
+            from[k] = o.contains("continuing from step ") ? Long.parseLong(o.replaceAll(".*continuing from step (\\d+).*", "$1")) : -1;
+            assertTrue(from[k] < a.steps(), what);
+        }
+        assertEquals(-1, from[0], "the first run starts at step 0");
+        assertTrue(from[1] > 0 && from[1] % Checkpoints.CHUNK != 0, "the longer run continues the first's end state, "
+                + "between two energy measurements: " + from[1]);
+        assertTrue(from[2] > from[1], "the longer one still continues the second's end: " + from[2]);
+        assertTrue(from[3] >= from[2], "the run between continues a state kept on the way: " + from[3]);
+        assertEquals(-1, from[4], "the second length again is reused, not measured: " + from[4]);
+        assertTrue(from[5] > from[1] && from[5] % CaseRunner.KEEP_EVERY == 0, "a shorter run continues a state kept on the "
+                + "way, every " + CaseRunner.KEEP_EVERY + " steps: " + from[5]);
+    }
+
+    /** The case with a surfaces section normalised by the incident power: an exit line above the gap. */
+    private static final String SURFACES = """
+            surfaces:
+              wavelengths: [620 nm, 640 nm, 650 nm]
+              exit_spectra:
+                - {name: up, y: 0.8 um, towards: up, numerical_aperture: 1.2}
+            """;
+
+    @Test
+    void aSurfacesSectionsIncidentLineIsReusedWithTheRunsOwn() throws Exception {
+        String text = text(true).replace("until: ", SURFACES + "until: ");
+        assertTrue(text.contains("exit_spectra"), text);
+        IncidentPowerCache cache = IncidentPowerCache.inMemory();
+        CaseRunner.Result a = CaseRunner.run(plan(text, Map.of("gap", "100 nm")), null, 1, null, null, cache);
+        assertFalse(a.incidentPower().reused(), "the first point measures: " + a.incidentPower());
+        assertTrue(a.incidentPower().strip(), "on the strip: " + a.incidentPower());
+        CasePlan reused = plan(text, Map.of("gap", "200 nm"));
+        CaseRunner.Result b = CaseRunner.run(reused, null, 1, null, null, cache);
+        assertTrue(b.incidentPower().reused(), "the second gap reuses it: " + b.incidentPower());
+        CasePlan fresh = plan(text, Map.of("gap", "200 nm"));
+        CaseRunner.Result c = CaseRunner.run(fresh, null, 1, null, null, IncidentPowerCache.none());
+        assertEquals(b.steps(), c.steps());
+        var line = fresh.flux().orElseThrow().surfacesIncident();
+        assertTrue(line.isPresent() && fresh.flux().orElseThrow().recorders().contains(line.get()),
+                "the surfaces' incident line is a recorder of the incident-power run");
+        assertSameStates(states(fresh), states(reused), "reused against measured, the surfaces' incident line among them");
+        SurfaceResults r = SurfaceResults.of(reused.surfaces().orElseThrow());
+        SurfaceResults f = SurfaceResults.of(fresh.surfaces().orElseThrow());
+        assertEquals(f.columns(), r.columns());
+        for (int q = 0; q < f.rows().length; q++) {
+            assertArrayEquals(f.rows()[q], r.rows()[q], "every surfaces value at frequency " + q);
+            assertEquals(f.norm()[q], r.norm()[q], "the norm at frequency " + q);
+            assertTrue(f.norm()[q] > 0, "an incident power was measured: " + f.norm()[q]);
+        }
+        // the surfaces' frequencies are part of the key
+        assertNotEquals(plan(text, Map.of()).flux().orElseThrow().setupKey(),
+                plan(text.replace("[620 nm, 640 nm, 650 nm]", "[620 nm, 640 nm, 651 nm]"), Map.of()).flux().orElseThrow().setupKey());
+        assertNotEquals(plan(text, Map.of()).flux().orElseThrow().setupKey(), plan(Map.of()).flux().orElseThrow().setupKey());
+    }
+
     @Test
     void aDamagedFileIsNotUsedAndIsReplaced() throws Exception {
         List<String> notes = new ArrayList<>();

@@ -40,12 +40,13 @@ final class MapNormaliseChecks {
         MapsSpec maps = spec.maps().get();
         Located<MapsSpec.Normalise> key = maps.normalise();
         if (wave == null) {
-            boolean box = spec.sources().stream().anyMatch(s -> s instanceof SourceSpec.PlaneWaveBox);
-            checks.error(key.at(), "maps.normalise", box
-                    ? "'incident' divides the maps by the incident field of a plane_wave or gaussian_beam; a plane_wave_box's "
-                    + "is not available for maps yet; expected normalise: absolute (the default)"
-                    : "'incident' divides the maps by the incident field of a plane_wave or gaussian_beam, and this case has "
-                    + "neither; expected normalise: absolute (the default) or such a source");
+            if (spec.sources().stream().anyMatch(s -> s instanceof SourceSpec.PlaneWaveBox)) {
+                box(maps, key);
+                return;
+            }
+            checks.error(key.at(), "maps.normalise", "'incident' divides the maps by the incident field of a plane_wave, "
+                    + "gaussian_beam or plane_wave_box, and this case has none; expected normalise: absolute (the default) "
+                    + "or such a source");
             return;
         }
         for (int k = 0; k < spec.sources().size(); k++) {
@@ -78,12 +79,44 @@ final class MapNormaliseChecks {
                             + "wavelength towards %s)", what, Math.exp(-x * x), Units.format(PhysicalConstants.C0 / centre,
                             Dimension.LENGTH)));
                 }
-            } else if (wave.signal() instanceof SignalSpec.RampedWave && Math.abs(f.si() / centre - 1) > 1e-9) {
-                checks.error(f.at(), "maps", String.format("with normalise: incident, at %s: a ramped wave carries only its "
-                        + "own frequency (%s), so its incident field is nearly zero at any other; expected the wave's own "
-                        + "wavelength %s", what, Units.format(centre, Dimension.FREQUENCY),
-                        Units.format(PhysicalConstants.C0 / centre, Dimension.LENGTH)));
+            } else if (wave.signal() instanceof SignalSpec.RampedWave) {
+                ownFrequency(f, what, centre);
             }
+        }
+    }
+
+    /** A plane-wave box lights its inside with its wave: the only source, and each map at a ramped wave's frequency. */
+    private void box(MapsSpec maps, Located<MapsSpec.Normalise> key) {
+        for (int k = 0; k < spec.sources().size(); k++) {
+            if (!(spec.sources().get(k) instanceof SourceSpec.PlaneWaveBox)) {
+                checks.error(key.at(), "maps.normalise", "'incident' needs the plane_wave_box as the only source (the "
+                        + "incident field is its alone), but " + paths.sources().get(k) + " is a " + spec.sources().get(k).kind()
+                        + " source; expected normalise: absolute (the default) or no other source");
+                return;
+            }
+        }
+        if (spec.sources().size() > 1) {
+            checks.error(key.at(), "maps.normalise", "'incident' divides by the incident field of one plane_wave_box, and "
+                    + "this case has " + spec.sources().size() + "; expected normalise: absolute (the default) or one box");
+            return;
+        }
+        SignalSpec signal = spec.sources().get(0).signal();
+        if (!(signal instanceof SignalSpec.RampedWave)) {
+            return; // a box takes only a ramped wave; its own check says so
+        }
+        double centre = signal.frequency().si();
+        for (Value f : maps.frequencies()) {
+            ownFrequency(f, String.format("%s (%s)", Units.format(PhysicalConstants.C0 / f.si(), Dimension.LENGTH),
+                    Units.format(f.si(), Dimension.FREQUENCY)), centre);
+        }
+    }
+
+    private void ownFrequency(Value f, String what, double centre) {
+        if (Math.abs(f.si() / centre - 1) > 1e-9) {
+            checks.error(f.at(), "maps", String.format("with normalise: incident, at %s: a ramped wave carries only its "
+                    + "own frequency (%s), so its incident field is nearly zero at any other; expected the wave's own "
+                    + "wavelength %s", what, Units.format(centre, Dimension.FREQUENCY),
+                    Units.format(PhysicalConstants.C0 / centre, Dimension.LENGTH)));
         }
     }
 }
