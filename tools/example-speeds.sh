@@ -9,22 +9,26 @@
 #   the ratio useful / bench. Issue 18's goal: at least 0.6 for examples with a flux section, 0.8
 #   for the others.
 #
-# Usage: tools/example-speeds.sh [--threads N] [--bench-seconds S] [CASE.yaml ...]   (build the jar first)
+# Usage: tools/example-speeds.sh [--threads N] [--bench-seconds S] [--jar JAR] [CASE.yaml ...]   (build the jar first)
 #   --threads N        passed to every run (default: the runs' own default, all cores); the bench
 #                      uses the thread count the run reports
 #   --bench-seconds S  timed seconds per bench repeat (default 2; 3 repeats, the median)
+#   --jar JAR          run this build's jar (runs and bench) instead of io/target/evanesce.jar, e.g. an
+#                      older build kept aside, to compare two builds example by example
 # The figures drift with other work on the machine: compare examples measured in one sitting only,
 # and on a shared machine call them provisional. A bench rate marked * did not settle during its
 # warm-up (the bench's CSV column 'settled'): on a very busy machine the JIT compiler itself gets
 # too little time, and that rate means nothing. Temporary folders are removed when the script ends.
 set -euo pipefail
 here="$(cd "$(dirname "$0")/.." && pwd)"
-threads=(); bench_seconds=2; cases=()
+threads=(); bench_seconds=2; cases=(); jar=""
 while [[ $# -gt 0 ]]; do
     case "$1" in
         --threads) threads=(--threads "${2:?--threads needs a count}"); shift 2 ;;
         --bench-seconds) bench_seconds=${2:?--bench-seconds needs S}; shift 2 ;;
-        -h|--help) sed -n '2,20p' "$0"; exit 0 ;;
+        --jar) jar=${2:?--jar needs a file}; [[ -f "$jar" ]] || { echo "example-speeds: jar '$jar' not found" >&2; exit 2; }
+               shift 2 ;;
+        -h|--help) sed -n '2,21p' "$0"; exit 0 ;;
         -*) echo "example-speeds: unknown option '$1' (see the header of $0)" >&2; exit 2 ;;
         *) [[ -f "$1" ]] || { echo "example-speeds: case file '$1' not found" >&2; exit 2; }; cases+=("$1"); shift ;;
     esac
@@ -32,7 +36,16 @@ done
 if [[ ${#cases[@]} -eq 0 ]]; then
     cases=("$here"/cases/*.yaml)
 fi
-[[ -f "$here/io/target/evanesce.jar" ]] || { echo "example-speeds: build the jar first (mvn -B -q -DskipTests package)" >&2; exit 2; }
+[[ -n "$jar" || -f "$here/io/target/evanesce.jar" ]] || { echo "example-speeds: build the jar first (mvn -B -q -DskipTests package)" >&2; exit 2; }
+# the launcher, or the given jar with the launcher's JVM flags
+evanesce() {
+    if [[ -n "$jar" ]]; then
+        # shellcheck disable=SC2086
+        java --add-modules jdk.incubator.vector -XX:+UseParallelGC ${JAVA_OPTS:-} -jar "$jar" "$@"
+    else
+        "$here/evanesce" "$@"
+    fi
+}
 
 tmp="$(mktemp -d)"
 trap 'rm -rf -- "$tmp"' EXIT
@@ -43,7 +56,7 @@ for c in "${cases[@]}"; do
     name="$(basename "$c" .yaml)"
     log="$tmp/$name.log"
     t0=$(date +%s%N)
-    if ! "$here/evanesce" run "$c" --out "$tmp/$name" "${threads[@]}" >"$log" 2>&1; then
+    if ! evanesce run "$c" --out "$tmp/$name" "${threads[@]}" >"$log" 2>&1; then
         echo "example-speeds: $name failed; its output:" >&2
         tail -5 "$log" >&2
         continue
@@ -59,7 +72,7 @@ for c in "${cases[@]}"; do
     wall=$(awk -v a="$t0" -v b="$t1" 'BEGIN { printf "%.2f", (b - a) / 1e9 }')
     useful=$(awk -v x="$nx" -v y="$ny" -v s="$steps" -v w="$wall" 'BEGIN { printf "%.1f", x * y * s / w / 1e6 }')
     side=$(awk -v x="$nx" -v y="$ny" 'BEGIN { printf "%d", sqrt(x * y) + 0.5 }')
-    bench=$("$here/evanesce" bench --size "$side" --threads "$used" --polarization "${pol:-s}" --seconds "$bench_seconds" \
+    bench=$(evanesce bench --size "$side" --threads "$used" --polarization "${pol:-s}" --seconds "$bench_seconds" \
         --repeats 3 --csv 2>/dev/null | awk -F, 'NR == 1 { for (i = 1; i <= NF; i++) { if ($i == "mcells_per_s") col = i;
         if ($i == "settled") st = i }; next } { printf "%.1f%s", $col, ($st == "false" ? "*" : "") }')
     ratio=$(awk -v u="$useful" -v b="${bench%\*}" 'BEGIN { printf "%.2f", (b > 0 ? u / b : 0) }')

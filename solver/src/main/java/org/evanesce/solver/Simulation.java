@@ -22,6 +22,7 @@ import org.evanesce.solver.kernel.Engine;
 import org.evanesce.solver.record.StepListener;
 import org.evanesce.solver.record.StepView;
 import org.evanesce.solver.parallel.BandTeam;
+import org.evanesce.solver.parallel.RowWork;
 import org.evanesce.solver.source.IncidentSheet;
 import org.evanesce.solver.source.SampledSheet;
 import org.evanesce.solver.source.Source;
@@ -171,7 +172,7 @@ public final class Simulation implements StepView, AutoCloseable {
         }
         engine.setSources(cells, comps);
         divergenceLimit = b.divergenceLimit > 0 ? b.divergenceLimit : 1e15 * Math.max(1.0, amplitudeSum);
-        team = new BandTeam(g.ny(), b.effectiveThreads(), "evanesce-band");
+        team = new BandTeam(RowWork.of(engine.rowWork()), b.effectiveThreads(), "evanesce-band");
         shared = new SharedRecorders(this, team.threads());
         java.util.Set<Integer> special = new java.util.HashSet<>(b.dispersive.keySet());
         special.addAll(b.series.keySet());

@@ -28,6 +28,11 @@ abstract class DoubleEngine extends Engine {
     private final Polarization pol;
     /** CPML strips on the x sides (widened to whole vectors) and the y sides, as {@link Layout} says. */
     final DoubleStrip[] xs, ys;
+    /**
+     * Columns [xFree0, xFree1) that no x strip corrects: rows of a y strip correct them in the same pass
+     * as their plain update ({@link DoublePmlRows}); empty (xFree0 ≥ xFree1) when the x strips meet.
+     */
+    final int xFree0, xFree1;
     /** The dispersive cells of each electric component by {@link Component#ordinal()}: null where it has none. */
     private final DoubleAde[] ade;
     /** The series sites (a field across a metal's face) of each electric component: null where it has none. */
@@ -76,6 +81,18 @@ abstract class DoubleEngine extends Engine {
             PmlProfile p = xProfiles[q].padded(layout.xStripWidth(xProfiles[q].layers), nx);
             xs[q] = new DoubleStrip(p, layout.xPsiLength(p.width));
         }
+        int free0 = 0;
+        int free1 = nx;
+        for (DoubleStrip x : xs) {
+            // a strip corrects columns [start, start + width] at most; a low side's starts at the wall
+            if (x.start == 0) {
+                free0 = Math.max(free0, x.width + 1);
+            } else {
+                free1 = Math.min(free1, x.start);
+            }
+        }
+        xFree0 = free0;
+        xFree1 = free1;
         ys = new DoubleStrip[yProfiles.length];
         for (int q = 0; q < ys.length; q++) {
             ys[q] = new DoubleStrip(yProfiles[q], layout.yPsiLength(yProfiles[q].layers));

@@ -71,9 +71,13 @@ final class DoubleKernels {
      * {@code ca == null} means ca = 1 everywhere (no conductivity): one array less to stream.
      */
     static void sE(double[] ez, double[] hx, double[] hy, double[] ca, double[] cb, int nx, int j, int vl) {
+        sE(ez, hx, hy, ca, cb, nx, j, 1, nx - 1, vl);
+    }
+
+    /** {@link #sE(double[], double[], double[], double[], double[], int, int, int)} over the columns [i0, end) only. */
+    static void sE(double[] ez, double[] hx, double[] hy, double[] ca, double[] cb, int nx, int j, int i0, int end, int vl) {
         int r = j * nx;
-        int end = nx - 1;
-        int i = 1;
+        int i = i0;
         if (ca == null) {
             for (; i <= end - vl; i += VL) {
                 int k = r + i;
@@ -116,9 +120,13 @@ final class DoubleKernels {
 
     /** p, row j ≤ ny−2, columns 0..nx−2: Hz += s·((Ex(j+1) − Ex(j)) − (Ey(i+1) − Ey(i))). */
     static void pH(double[] hz, double[] ex, double[] ey, int nx, int j, double s, int vl) {
+        pH(hz, ex, ey, nx, j, 0, nx - 1, s, vl);
+    }
+
+    /** {@link #pH(double[], double[], double[], int, int, double, int)} over the columns [i0, n) only. */
+    static void pH(double[] hz, double[] ex, double[] ey, int nx, int j, int i0, int n, double s, int vl) {
         int r = j * nx;
-        int n = nx - 1;
-        int i = 0;
+        int i = i0;
         DoubleVector vs = vl <= nx ? DoubleVector.broadcast(SP, s) : null;
         for (; i <= n - vl; i += VL) {
             int k = r + i;
@@ -327,10 +335,11 @@ final class DoubleKernels {
     }
 
     /**
-     * CPML correction of a magnetic component along y in row j = start + jj, cells i in [0, i1):
+     * CPML correction of a magnetic component along y in row j = start + jj, cells i in [i0, i1):
      * d = g(j+1) − g(j), otherwise as {@link #pmlXH}; ψ is indexed {@code psi[jj*nx + i]}.
      */
-    static void pmlYH(double[] f, double[] g, double coef, int nx, int jj, DoubleStrip st, double[] psi, int i1, int vl) {
+    static void pmlYH(double[] f, double[] g, double coef, int nx, int jj, DoubleStrip st, double[] psi, int i0, int i1,
+                      int vl) {
         int r = (st.start + jj) * nx;
         int pb = jj * nx;
         double b = st.bH[jj];
@@ -340,7 +349,7 @@ final class DoubleKernels {
         DoubleVector vcc = vl <= nx ? DoubleVector.broadcast(SP, c) : null;
         DoubleVector vk = vl <= nx ? DoubleVector.broadcast(SP, kt) : null;
         DoubleVector vc = vl <= nx ? DoubleVector.broadcast(SP, coef) : null;
-        int i = 0;
+        int i = i0;
         for (; i <= i1 - vl; i += VL) {
             int k = r + i;
             DoubleVector d = DoubleVector.fromArray(SP, g, k + nx).sub(DoubleVector.fromArray(SP, g, k));

@@ -19,6 +19,8 @@ final class DoubleS extends DoubleEngine {
     final double[] ez, hx, hy, cb;
     /** ca per cell, or null when every cell is lossless (ca = 1). */
     final double[] ca;
+    /** The columns of Ez that rows of a y strip correct in their plain update: [eFused0, eFused1). */
+    private final int eFused0, eFused1;
 
     DoubleS(MaterialGrid grid, double courant, double[] caOfMaterial, double[] cbOfMaterial, AdeCoefficients[] adeOf,
             SeriesCoefficients[] seriesOf, Map<Side, Boundary> sides) {
@@ -28,13 +30,14 @@ final class DoubleS extends DoubleEngine {
         hy = field(Component.HY);
         cb = cb(Component.EZ);
         ca = ca(Component.EZ);
+        eFused0 = Math.min(DoublePmlRows.fusedFrom(1, xFree0), nx - 1);
+        eFused1 = DoublePmlRows.fusedTo(eFused0, Math.min(xFree1, nx - 1));
     }
 
     @Override
     protected void hRow(int j) {
         hCore(j);
         hStrips(j, j + 1);
-        hYStrip(j);
     }
 
     @Override
@@ -45,15 +48,23 @@ final class DoubleS extends DoubleEngine {
         hStrips(a, b);
         double max = 0;
         for (int j = a; j < b; j++) {
-            hYStrip(j);
             max = Math.max(max, hFinish(j, flush));
         }
         return max;
     }
 
-    /** Row j's magnetic update without the CPML corrections. */
+    /**
+     * Row j's magnetic update with the y-side CPML correction of Hx (which no x strip corrects; fused
+     * into the update in a y strip's rows) and without the x-side corrections of Hy.
+     */
     private void hCore(int j) {
-        DoubleKernels.sH(ez, hx, hy, nx, ny, j, s, vl);
+        int q = yStripOfRow[j];
+        if (q >= 0) {
+            DoubleStrip y = ys[q];
+            DoublePmlRows.sH(ez, hx, hy, nx, j, s, y, j - y.start, vl);
+        } else {
+            DoubleKernels.sH(ez, hx, hy, nx, ny, j, s, vl);
+        }
         if (blochX) {
             int k = j * nx + nx - 1;
             hy[k] += s * (ghostE[j] - ez[k]);
@@ -64,15 +75,6 @@ final class DoubleS extends DoubleEngine {
     private void hStrips(int a, int b) {
         for (DoubleStrip x : xs) {
             DoubleKernels.pmlXH(hy, ez, s, nx, a, b, x, x.psiH, vl);
-        }
-    }
-
-    /** The y-side CPML correction of Hx in row j, if it lies in a y strip. */
-    private void hYStrip(int j) {
-        int q = yStripOfRow[j];
-        if (q >= 0) {
-            DoubleStrip y = ys[q];
-            DoubleKernels.pmlYH(hx, ez, -s, nx, j - y.start, y, y.psiH, nx, vl);
         }
     }
 
@@ -113,7 +115,13 @@ final class DoubleS extends DoubleEngine {
         boolean last = pmcRight || blochX;
         double west = blochX ? ghostW[j] : 0.0;
         if (!wallRow) {
-            DoubleKernels.sE(ez, hx, hy, ca, cb, nx, j, vl);
+            int q = yStripOfRow[j];
+            if (q >= 0 && j > ys[q].start) {
+                DoubleStrip y = ys[q];
+                DoublePmlRows.sE(ez, hx, hy, ca, cb, nx, j, y, j - y.start, eFused0, eFused1, vl);
+            } else {
+                DoubleKernels.sE(ez, hx, hy, ca, cb, nx, j, vl);
+            }
             if (first) {
                 DoubleKernels.sEdge(ez, hx, hy, ca, cb, nx, 0, j, west);
             }
@@ -137,7 +145,10 @@ final class DoubleS extends DoubleEngine {
         }
     }
 
-    /** The y-side CPML correction of Ez in row j, if it lies in a y strip. */
+    /**
+     * The y-side CPML correction of Ez in row j, if it lies in a y strip, in the columns that eCore
+     * did not correct (those an x strip corrects first, and the walls' or seam's edge columns).
+     */
     private void eYStrip(int j) {
         int q = yStripOfRow[j];
         if (q >= 0) {
@@ -146,7 +157,14 @@ final class DoubleS extends DoubleEngine {
             if (jj >= 1) {
                 boolean first = pmcLeft || blochX;
                 boolean last = pmcRight || blochX;
-                DoubleKernels.pmlYE(ez, hx, cb, true, nx, jj, y, y.psiE, first ? 0 : 1, last ? nx : nx - 1, vl);
+                int i0 = first ? 0 : 1;
+                int i1 = last ? nx : nx - 1;
+                if (j == 0 || j == ny - 1) {
+                    DoubleKernels.pmlYE(ez, hx, cb, true, nx, jj, y, y.psiE, i0, i1, vl);
+                } else {
+                    DoubleKernels.pmlYE(ez, hx, cb, true, nx, jj, y, y.psiE, i0, eFused0, vl);
+                    DoubleKernels.pmlYE(ez, hx, cb, true, nx, jj, y, y.psiE, eFused1, i1, vl);
+                }
             }
         }
     }

@@ -323,6 +323,36 @@ public abstract class Engine {
         return true;
     }
 
+    /**
+     * Extra work of a cell that a y-side CPML strip corrects, relative to a plain cell's update: the rows
+     * of a y strip take about 1.3 times a plain row with the correction fused into the update
+     * ({@link FloatPmlRows}; JFR samples of the two-prism example, 2 threads, under load: provisional).
+     */
+    static final double Y_PML_CELL_WORK = 0.3;
+    /**
+     * Extra work of a cell that an x-side strip corrects: its second pass down the strip's columns costs
+     * about two plain cell updates per cell (the same profile).
+     */
+    static final double X_PML_CELL_WORK = 2.0;
+
+    /**
+     * The expected work of each row of a step, relative: one per cell, plus {@link #Y_PML_CELL_WORK} per
+     * cell of a y-side strip's row and {@link #X_PML_CELL_WORK} per cell of the x-side strips, for the
+     * bands' split ({@link org.evanesce.solver.parallel.RowWork}). Only where the bands start depends on
+     * it, never a result.
+     */
+    public double[] rowWork() {
+        double[] w = new double[ny];
+        int xCells = 0;
+        for (PmlProfile p : xProfiles) {
+            xCells += p.layers;
+        }
+        for (int j = 0; j < ny; j++) {
+            w[j] = nx + X_PML_CELL_WORK * xCells + (yStripOfRow[j] >= 0 ? Y_PML_CELL_WORK * nx : 0);
+        }
+        return w;
+    }
+
     public final int nx() {
         return nx;
     }

@@ -71,9 +71,13 @@ final class FloatKernels {
      * {@code ca == null} means ca = 1 everywhere (no conductivity): one array less to stream.
      */
     static void sE(float[] ez, float[] hx, float[] hy, float[] ca, float[] cb, int nx, int j, int vl) {
+        sE(ez, hx, hy, ca, cb, nx, j, 1, nx - 1, vl);
+    }
+
+    /** {@link #sE(float[], float[], float[], float[], float[], int, int, int)} over the columns [i0, end) only. */
+    static void sE(float[] ez, float[] hx, float[] hy, float[] ca, float[] cb, int nx, int j, int i0, int end, int vl) {
         int r = j * nx;
-        int end = nx - 1;
-        int i = 1;
+        int i = i0;
         if (ca == null) {
             for (; i <= end - vl; i += VL) {
                 int k = r + i;
@@ -116,9 +120,13 @@ final class FloatKernels {
 
     /** p, row j ≤ ny−2, columns 0..nx−2: Hz += s·((Ex(j+1) − Ex(j)) − (Ey(i+1) − Ey(i))). */
     static void pH(float[] hz, float[] ex, float[] ey, int nx, int j, float s, int vl) {
+        pH(hz, ex, ey, nx, j, 0, nx - 1, s, vl);
+    }
+
+    /** {@link #pH(float[], float[], float[], int, int, float, int)} over the columns [i0, n) only. */
+    static void pH(float[] hz, float[] ex, float[] ey, int nx, int j, int i0, int n, float s, int vl) {
         int r = j * nx;
-        int n = nx - 1;
-        int i = 0;
+        int i = i0;
         FloatVector vs = vl <= nx ? FloatVector.broadcast(SP, s) : null;
         for (; i <= n - vl; i += VL) {
             int k = r + i;
@@ -327,10 +335,11 @@ final class FloatKernels {
     }
 
     /**
-     * CPML correction of a magnetic component along y in row j = start + jj, cells i in [0, i1):
+     * CPML correction of a magnetic component along y in row j = start + jj, cells i in [i0, i1):
      * d = g(j+1) − g(j), otherwise as {@link #pmlXH}; ψ is indexed {@code psi[jj*nx + i]}.
      */
-    static void pmlYH(float[] f, float[] g, float coef, int nx, int jj, FloatStrip st, float[] psi, int i1, int vl) {
+    static void pmlYH(float[] f, float[] g, float coef, int nx, int jj, FloatStrip st, float[] psi, int i0, int i1,
+                      int vl) {
         int r = (st.start + jj) * nx;
         int pb = jj * nx;
         float b = st.bH[jj];
@@ -340,7 +349,7 @@ final class FloatKernels {
         FloatVector vcc = vl <= nx ? FloatVector.broadcast(SP, c) : null;
         FloatVector vk = vl <= nx ? FloatVector.broadcast(SP, kt) : null;
         FloatVector vc = vl <= nx ? FloatVector.broadcast(SP, coef) : null;
-        int i = 0;
+        int i = i0;
         for (; i <= i1 - vl; i += VL) {
             int k = r + i;
             FloatVector d = FloatVector.fromArray(SP, g, k + nx).sub(FloatVector.fromArray(SP, g, k));

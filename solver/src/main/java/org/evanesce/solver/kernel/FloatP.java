@@ -20,6 +20,8 @@ final class FloatP extends FloatEngine {
     final float[] hz, ex, ey, cbx, cby;
     /** ca per cell, or null when every cell at that site is lossless (ca = 1). */
     final float[] cax, cay;
+    /** The columns of Hz that rows of a y strip correct in their plain update: [hFused0, hFused1). */
+    private final int hFused0, hFused1;
 
     FloatP(MaterialGrid grid, double courant, double[] caOfMaterial, double[] cbOfMaterial, AdeCoefficients[] adeOf,
             SeriesCoefficients[] seriesOf, Map<Side, Boundary> sides) {
@@ -31,6 +33,8 @@ final class FloatP extends FloatEngine {
         cby = cb(Component.EY);
         cax = ca(Component.EX);
         cay = ca(Component.EY);
+        hFused0 = Math.min(FloatPmlRows.fusedFrom(0, xFree0), nx - 1);
+        hFused1 = FloatPmlRows.fusedTo(hFused0, Math.min(xFree1, nx - 1));
     }
 
     @Override
@@ -60,9 +64,18 @@ final class FloatP extends FloatEngine {
         return max;
     }
 
-    /** Row j's magnetic update without the CPML corrections (j ≤ ny−2). */
+    /**
+     * Row j's magnetic update (j ≤ ny−2) without the x-side CPML corrections; in a y strip's rows with
+     * the y-side correction of the columns [hFused0, hFused1) that no x strip corrects.
+     */
     private void hCore(int j) {
-        FloatKernels.pH(hz, ex, ey, nx, j, s, vl);
+        int q = yStripOfRow[j];
+        if (q >= 0) {
+            FloatStrip y = ys[q];
+            FloatPmlRows.pH(hz, ex, ey, nx, j, s, y, j - y.start, hFused0, hFused1, vl);
+        } else {
+            FloatKernels.pH(hz, ex, ey, nx, j, s, vl);
+        }
         if (blochX) {
             int k = j * nx + nx - 1;
             hz[k] += s * ((ex[k + nx] - ex[k]) - ((float) ghostE[j] - ey[k]));
@@ -76,12 +89,13 @@ final class FloatP extends FloatEngine {
         }
     }
 
-    /** The y-side CPML correction of Hz in row j, if it lies in a y strip. */
+    /** The y-side CPML correction of Hz in row j, if it lies in a y strip, in the columns hCore did not correct. */
     private void hYStrip(int j) {
         int q = yStripOfRow[j];
         if (q >= 0) {
             FloatStrip y = ys[q];
-            FloatKernels.pmlYH(hz, ex, s, nx, j - y.start, y, y.psiH, blochX ? nx : nx - 1, vl);
+            FloatKernels.pmlYH(hz, ex, s, nx, j - y.start, y, y.psiH, 0, hFused0, vl);
+            FloatKernels.pmlYH(hz, ex, s, nx, j - y.start, y, y.psiH, hFused1, blochX ? nx : nx - 1, vl);
         }
     }
 
@@ -111,23 +125,27 @@ final class FloatP extends FloatEngine {
         boolean wallRow = j == 0 || j == ny - 1;
         // Ex: interior rows, or a PMC wall row; with Bloch boundaries the last column too
         int exEnd = blochX ? nx : nx - 1;
+        int q = yStripOfRow[j];
+        // the y-side CPML correction of Ex (no x strip corrects Ex): in the same pass on an interior row
+        boolean corrected = q >= 0 && j > ys[q].start;
         if (!wallRow) {
-            FloatKernels.pEx(hz, ex, cax, cbx, nx, j, vl);
+            if (corrected) {
+                FloatPmlRows.pEx(hz, ex, cax, cbx, nx, j, ys[q], j - ys[q].start, vl);
+            } else {
+                FloatKernels.pEx(hz, ex, cax, cbx, nx, j, vl);
+            }
             if (blochX) {
                 FloatKernels.pExEdge(hz, ex, cax, cbx, nx, nx - 1, j);
+                if (corrected) {
+                    FloatKernels.pmlYE(ex, hz, cbx, false, nx, j - ys[q].start, ys[q], ys[q].psiE, nx - 1, nx, vl);
+                }
             }
         } else if (j == 0 ? pmcBottom : pmcTop) {
             for (int i = 0; i < exEnd; i++) {
                 FloatKernels.pExEdge(hz, ex, cax, cbx, nx, i, j);
             }
-        }
-        boolean exUpdated = !wallRow || (j == 0 ? pmcBottom : pmcTop);
-        int q = yStripOfRow[j];
-        if (exUpdated && q >= 0) {
-            FloatStrip y = ys[q];
-            int jj = j - y.start;
-            if (jj >= 1) {
-                FloatKernels.pmlYE(ex, hz, cbx, false, nx, jj, y, y.psiE, 0, exEnd, vl);
+            if (corrected) {
+                FloatKernels.pmlYE(ex, hz, cbx, false, nx, j - ys[q].start, ys[q], ys[q].psiE, 0, exEnd, vl);
             }
         }
         // Ey: rows 0..ny-2

@@ -78,6 +78,8 @@ public final class BandTeam implements AutoCloseable {
 
     private final int threads;
     private final int rows;
+    /** The expected work of each row: where bands start, and what the balancing moves. */
+    private final RowWork rowWork;
     private final String name;
     /** Band starts for each number of stepping threads k (index k, created when first used; k + 1 entries). */
     private final int[][] startFor;
@@ -120,7 +122,15 @@ public final class BandTeam implements AutoCloseable {
      * @param name    prefix of the worker threads' names
      */
     public BandTeam(int rows, int threads, String name) {
-        this(rows, threads, name, WINDOW_NANOS, System::nanoTime, true);
+        this(RowWork.uniform(rows), threads, name, WINDOW_NANOS, System::nanoTime, true);
+    }
+
+    /**
+     * As {@link #BandTeam(int, int, String)} with the expected work of each row: the bands start with
+     * equal work rather than equal rows, and balancing moves each boundary by work.
+     */
+    public BandTeam(RowWork rowWork, int threads, String name) {
+        this(rowWork, threads, name, WINDOW_NANOS, System::nanoTime, true);
     }
 
     /**
@@ -129,11 +139,18 @@ public final class BandTeam implements AutoCloseable {
      * window of 0 balances after every step). Waits always spin by the real clock.
      */
     BandTeam(int rows, int threads, String name, long windowNanos, LongSupplier clock, boolean adaptive) {
+        this(RowWork.uniform(rows), threads, name, windowNanos, clock, adaptive);
+    }
+
+    /** As the constructor above with the expected work of each row (see {@link RowWork}). */
+    BandTeam(RowWork rowWork, int threads, String name, long windowNanos, LongSupplier clock, boolean adaptive) {
+        int rows = rowWork.rows();
         if (threads < 1 || threads > rows) {
             throw new IllegalArgumentException("threads " + threads + " must lie in [1, " + rows + "]");
         }
         this.threads = threads;
         this.rows = rows;
+        this.rowWork = rowWork;
         this.name = name;
         this.clock = clock;
         this.windowNanos = windowNanos;
@@ -189,7 +206,9 @@ public final class BandTeam implements AutoCloseable {
             s = new int[k + 1];
             int per = rows / k;
             for (int b = 0; b < k; b++) {
-                s[b] = b * per;
+                // equal rows (the last band takes the remainder), or equal work; at least one row each
+                s[b] = rowWork.isUniform() ? b * per
+                        : b == 0 ? 0 : Math.max(s[b - 1] + 1, Math.min(rows - (k - b), rowWork.rowNear(rowWork.total() * b / k)));
             }
             s[k] = rows;
             startFor[k] = s;
@@ -304,7 +323,7 @@ public final class BandTeam implements AutoCloseable {
 
     /**
      * Moves each boundary halfway towards the split that would equalise the bands' measured times
-     * (rows per nanosecond of each band times its share), keeping every band at least a quarter of
+     * (work per nanosecond of each band times its share, the work of rows as {@link RowWork} expects it), keeping every band at least a quarter of
      * an equal share (at least 1 row); a boundary one row from its target stays. Called between
      * steps, while every worker waits.
      */
@@ -314,13 +333,13 @@ public final class BandTeam implements AutoCloseable {
         double total = 0;
         double[] rate = new double[k];
         for (int b = 0; b < k; b++) {
-            rate[b] = (s[b + 1] - s[b]) / (double) Math.max(1, busy[b]);
+            rate[b] = rowWork.between(s[b], s[b + 1]) / Math.max(1, busy[b]);
             total += rate[b];
         }
         double share = 0;
         for (int b = 1; b < k; b++) {
-            share += rate[b - 1] / total * rows;
-            int target = (int) Math.round(share);
+            share += rate[b - 1] / total * rowWork.total();
+            int target = rowWork.isUniform() ? (int) Math.round(share) : rowWork.rowNear(share);
             int moved = s[b] + (target - s[b]) / 2;
             s[b] = Math.max(s[b - 1] + minRows, Math.min(rows - (k - b) * minRows, moved));
         }
