@@ -77,6 +77,7 @@ public final class CaseChecks {
         framesWithinTheRun();
         new PlaneWaveChecks(spec, paths, this).run();
         new SurfaceChecks(spec, this).run();
+        new ConductorFaceChecks(spec, paths, this).run();
     }
 
     void error(SourcePosition at, String path, String message) {
