@@ -45,7 +45,7 @@ class ConductorFaceWarningTest {
     void curvedOrTiltedConductorFacesInPAreWarnedAbout() throws CaseFileException {
         List<String> w = warnings("p", "0", "disk: {centre: [0, 0.5 um], radius: 100 nm, material: screen}");
         assertEquals(1, w.size(), w.toString());
-        assertTrue(w.get(0).startsWith("case.yaml:9:5: warning: shapes[1].disk: the perfect conductor screen has faces off the "
+        assertTrue(w.get(0).startsWith("case.yaml:8:5: warning: shapes[1].disk: the perfect conductor screen has faces off the "
                 + "grid's axes and the run is in p polarization"), w.get(0));
         assertEquals(2, warnings("p", "30", "polygon: {corners: [[0, 0.3 um], [0.3 um, 0.3 um], [0.3 um, 0.6 um]], material: screen}")
                 .size(), "a rotated rectangle and a polygon with a slanted edge");
