@@ -16,6 +16,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.evanesce.io.output.hdf5.Xdmf;
 import org.evanesce.io.run.BeamPlots;
+import org.evanesce.io.run.BeamReferences;
 import org.evanesce.io.run.FluxPlot;
 import org.evanesce.io.run.Checkpoints;
 import org.evanesce.io.run.FieldOutputs;
@@ -109,12 +110,16 @@ final class CaseExecution {
         }
         FieldOutputs.writeFrameIndex(rf.dir(), frames);
         List<MapOutputs.Decay> decays = plan.fields().maps().isPresent() ? MapOutputs.write(plan, rf.dir()) : List.of();
-        FluxResults flux = plan.flux().map(f -> FluxResults.of(f, s.polarization().value())).orElse(null);
-        if (flux != null) {
+        FluxResults flux = null;
+        if (plan.flux().isPresent()) {
+            // a beam's angular-spectrum references, once for the table and the plots, on the run's threads
+            FluxPlan f = plan.flux().get();
+            BeamReferences references = BeamReferences.of(f, s.polarization().value(), r.threads());
+            flux = FluxResults.of(f, s.polarization().value(), references);
             rf.writeText("flux.csv", flux.csv());
             FluxPlot.write(flux, s.title().orElse(""), rf.dir());
-            FluxPlan f = plan.flux().get();
-            BeamPlots.write(f, s.polarization().value(), f.closest(s.sources().get(0).signal().frequency().si()), rf.dir());
+            BeamPlots.write(f, s.polarization().value(), f.closest(s.sources().get(0).signal().frequency().si()), rf.dir(),
+                    references);
         }
         SurfaceResults surfaces = plan.surfaces().map(sp -> SurfaceResults.of(sp, r.threads())).orElse(null);
         if (surfaces != null) {
