@@ -45,12 +45,13 @@ final class SurfacePlanner {
      * @param sites      where each source drives the grid
      * @param flux       the flux plan, whose incident-power run the incident norm rides on when there is one
      * @param lightBoxes the case's planned plane-wave boxes (the incident norm is then their wave's intensity)
+     * @param setup      what {@code configured} configures besides the material grid (sources, sheets, sides)
      * @param errors     receives what cannot be planned
      */
     static SurfacePlan plan(CaseSpec spec, GridSpec grid, int[] interior, Map<String, Material> materials,
                             Simulation.Builder run, Function<MaterialGrid, Simulation.Builder> configured,
                             CasePlan.Stop stop, double dt, List<CasePlan.SourceSite> sites, Optional<FluxPlan> flux,
-                            List<TotalFieldBox> lightBoxes, List<Diagnostic> errors) {
+                            List<TotalFieldBox> lightBoxes, IncidentKey.Setup setup, List<Diagnostic> errors) {
         SurfacesSpec s = spec.surfaces().orElseThrow();
         double[] freqs = s.frequencies().stream().mapToDouble(v -> v.si()).toArray();
         Polarization pol = spec.polarization().value();
@@ -147,6 +148,7 @@ final class SurfacePlanner {
         Optional<String> normMedium = Optional.empty();
         int direction = 0;
         Optional<SurfacePlan.BoxWave> boxWave = Optional.empty();
+        Optional<org.evanesce.solver.source.SheetResponse> computed = Optional.empty();
         if (s.normalise().value() == SurfacesSpec.Normalise.INCIDENT && !lightBoxes.isEmpty()) {
             boxWave = Optional.of(boxWave(spec, grid, interior, lightBoxes.get(0)));
             normMedium = Optional.of(boxWave.get().medium());
@@ -154,10 +156,11 @@ final class SurfacePlanner {
             SourceSpec.Launched w = PlaneWaves.launched(spec).orElseThrow();
             String medium = PlaneWaves.medium(spec, w).name();
             normMedium = Optional.of(medium);
-            Simulation.Builder ref;
+            computed = BeamIncident.forSurfaces(spec, w, PlaneWaves.medium(spec, w), materials.get(medium), setup, grid.nx());
+            Simulation.Builder ref = null;
             if (flux.isPresent()) {
                 ref = flux.get().reference();
-            } else {
+            } else if (computed.isEmpty()) {
                 ref = configured.apply(homogeneous(materials.get(medium), grid));
                 own = Optional.of(ref);
             }
@@ -165,8 +168,10 @@ final class SurfacePlanner {
             int sourceRow = CasePlanner.nearest(w.y().si(), grid.y0(), dx, w.component().value().dy);
             int row = direction > 0 ? sourceRow + FluxPlanner.INCIDENT_OFFSET - 1 : sourceRow - FluxPlanner.INCIDENT_OFFSET;
             if (row >= 1 && row + 2 < grid.ny()) {
-                FluxLine line = new FluxLine(pol, row, i0, i1, freqs);
-                ref.listener(windowed(line, steady));
+                FluxLine line = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
+                if (ref != null) { // else computed after the run from the beam's sheets
+                    ref.listener(line);
+                }
                 incident = Optional.of(line);
             } else {
                 errors.add(new Diagnostic(Diagnostic.Severity.ERROR, w.at(), "sources", String.format("the incident power is "
@@ -210,7 +215,7 @@ final class SurfacePlanner {
             }
         }
         return new SurfacePlan(freqs, pol, s.normalise().value(), segments, boxes, farFields, exits, incident, direction,
-                sourceBox, own, Optional.ofNullable(steady), grid.x0(), grid.y0(), dx, normMedium, boxWave);
+                sourceBox, own, Optional.ofNullable(steady), grid.x0(), grid.y0(), dx, normMedium, boxWave, computed);
     }
 
     /** A plane-wave box's wave: the medium it comes from (just left of the box) and its intensity there. */
