@@ -29,7 +29,8 @@ import org.evanesce.solver.source.TotalFieldBox;
  * @param boxes        in the case's order
  * @param farFields    in the case's order
  * @param exits        in the case's order
- * @param incidentLine for incident: the line just ahead of the source in the incident-power run
+ * @param incidentLine for incident: the line just ahead of the source in the incident-power run (or, with
+ *                     {@code computedIncident}, filled after the case's run without one)
  * @param incidentDirection +1 when the launched wave travels towards +y, −1 towards −y (0 without one)
  * @param sourceBox    for source: the box round the sources in the reference run
  * @param ownReference the reference run when the case has no flux section whose incident-power run the norm rides on
