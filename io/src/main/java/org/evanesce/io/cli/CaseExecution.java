@@ -77,7 +77,10 @@ final class CaseExecution {
         o.printf(Locale.ROOT, "%s: %d x %d cells of %.4g nm, up to %d steps, %s polarization%s; writing %s%n",
                 s.source(), plan.grid().nx(), plan.grid().ny(), plan.grid().cellSize() * 1e9, plan.stop().maxSteps(),
                 s.polarization().value().name().toLowerCase(Locale.ROOT),
-                plan.referenceRun().isPresent() ? plan.flux().isPresent() || plan.surfaces().orElseThrow().incidentLine()
+                plan.flux().flatMap(FluxPlan::computed).isPresent()
+                        || plan.surfaces().flatMap(org.evanesce.io.plan.SurfacePlan::computedIncident).isPresent()
+                        ? ", the incident power computed from the beam's sheets (no incident-power run)"
+                        : plan.referenceRun().isPresent() ? plan.flux().isPresent() || plan.surfaces().orElseThrow().incidentLine()
                         .isPresent() ? ", then an incident-power run" : ", then a run measuring the sources' own power" : "",
                 rf.target());
         ProgressLine progress = new ProgressLine(o, terminal, plan.dt());
