@@ -206,27 +206,11 @@ public final class AngularSpectrum {
      * @throws IllegalArgumentException if the window or the sampling cannot hold the beam
      */
     public static Result of(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples, double window) {
-        return of(stack, polarization, beam, samples, window, null);
+        return profiles(spectra(stack, polarization, beam, samples, window, null));
     }
 
     /**
-     * {@link #of}; when {@code keep} is not null, keep[0] receives the incident spectrum A_m (with the sign
-     * (−1)^(m−c), interleaved), keep[1] the reflected one r·A_m and keep[2] the transmitted one t·A_m, before
-     * the transforms.
-     */
-    private static Result of(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples, double window,
-                             double[][] keep) {
-        Spectra s = spectra(stack, polarization, beam, samples, window, null);
-        if (keep != null) {
-            keep[0] = s.incident.clone();
-            keep[1] = s.reflected.clone();
-            keep[2] = s.transmitted.clone();
-        }
-        return profiles(s);
-    }
-
-    /**
-     * One sampling's spectra before the transforms (as {@link #of} keeps them) and its power sums, with the stack's
+     * One sampling's spectra before the transforms (A_m with the sign (−1)^(m−c), r·A_m, t·A_m, interleaved) and its power sums, with the stack's
      * responses at each kx_m (null where the beam has no component), which the next doubling reuses: its even samples
      * lie at the same kx, bit for bit (W and Δk = 2π/W scale by powers of two exactly).
      */
@@ -603,7 +587,7 @@ public final class AngularSpectrum {
 
     /**
      * The flux density towards −z across the line z = −d of the beam whose spectrum on the first interface is
-     * {@code reflected} (as {@link #of} keeps it), at x_j = −W/2 + j·W/N: Re(U V*) with V = Q1·U plane wave by plane
+     * {@code reflected} (as {@link Spectra} holds it), at x_j = −W/2 + j·W/N: Re(U V*) with V = Q1·U plane wave by plane
      * wave (Q1 = kz/k0 for s, kz/(k0 n1²) for p; {@link #reflectedCentroid}).
      */
     private static double[] fluxAt(PlanarStack stack, GaussianBeam beam, Spectra s, double distance, double[] reflected) {
