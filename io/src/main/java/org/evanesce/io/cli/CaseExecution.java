@@ -16,6 +16,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.evanesce.io.output.hdf5.Xdmf;
 import org.evanesce.io.run.BeamPlots;
+import org.evanesce.io.run.BeamReferences;
 import org.evanesce.io.run.FluxPlot;
 import org.evanesce.io.run.Checkpoints;
 import org.evanesce.io.run.FieldOutputs;
@@ -76,7 +77,10 @@ final class CaseExecution {
         o.printf(Locale.ROOT, "%s: %d x %d cells of %.4g nm, up to %d steps, %s polarization%s; writing %s%n",
                 s.source(), plan.grid().nx(), plan.grid().ny(), plan.grid().cellSize() * 1e9, plan.stop().maxSteps(),
                 s.polarization().value().name().toLowerCase(Locale.ROOT),
-                plan.referenceRun().isPresent() ? plan.flux().isPresent() || plan.surfaces().orElseThrow().incidentLine()
+                plan.flux().flatMap(FluxPlan::computed).isPresent()
+                        || plan.surfaces().flatMap(org.evanesce.io.plan.SurfacePlan::computedIncident).isPresent()
+                        ? ", the incident power computed from the beam's sheets (no incident-power run)"
+                        : plan.referenceRun().isPresent() ? plan.flux().isPresent() || plan.surfaces().orElseThrow().incidentLine()
                         .isPresent() ? ", then an incident-power run" : ", then a run measuring the sources' own power" : "",
                 rf.target());
         ProgressLine progress = new ProgressLine(o, terminal, plan.dt());
@@ -109,12 +113,16 @@ final class CaseExecution {
         }
         FieldOutputs.writeFrameIndex(rf.dir(), frames);
         List<MapOutputs.Decay> decays = plan.fields().maps().isPresent() ? MapOutputs.write(plan, rf.dir()) : List.of();
-        FluxResults flux = plan.flux().map(f -> FluxResults.of(f, s.polarization().value())).orElse(null);
-        if (flux != null) {
+        FluxResults flux = null;
+        if (plan.flux().isPresent()) {
+            // a beam's angular-spectrum references, once for the table and the plots, on the run's threads
+            FluxPlan f = plan.flux().get();
+            BeamReferences references = BeamReferences.of(f, s.polarization().value(), r.threads());
+            flux = FluxResults.of(f, s.polarization().value(), references);
             rf.writeText("flux.csv", flux.csv());
             FluxPlot.write(flux, s.title().orElse(""), rf.dir());
-            FluxPlan f = plan.flux().get();
-            BeamPlots.write(f, s.polarization().value(), f.closest(s.sources().get(0).signal().frequency().si()), rf.dir());
+            BeamPlots.write(f, s.polarization().value(), f.closest(s.sources().get(0).signal().frequency().si()), rf.dir(),
+                    references);
         }
         SurfaceResults surfaces = plan.surfaces().map(sp -> SurfaceResults.of(sp, r.threads())).orElse(null);
         if (surfaces != null) {

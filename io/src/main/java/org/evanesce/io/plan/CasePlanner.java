@@ -218,9 +218,9 @@ public final class CasePlanner {
         Simulation.Builder b = configured.apply(mg);
         probes.forEach(p -> b.listener(p.probe()));
         Optional<FluxPlan> flux = Optional.empty();
+        IncidentKey.Setup setup = new IncidentKey.Setup(spec.polarization().value(), spec.numerics().precision().value(),
+                courant, sides, sources, sheets);
         if (spec.flux().isPresent()) {
-            IncidentKey.Setup setup = new IncidentKey.Setup(spec.polarization().value(), spec.numerics().precision().value(),
-                    courant, sides, sources, sheets);
             // a surfaces section normalised by the incident power reads it on a line of this incident-power run
             double[] surfacesFrequencies = spec.surfaces().filter(s -> s.normalise().value()
                     == org.evanesce.io.casefile.model.SurfacesSpec.Normalise.INCIDENT)
@@ -234,7 +234,7 @@ public final class CasePlanner {
         Optional<SurfacePlan> surfaces = Optional.empty();
         if (spec.surfaces().isPresent()) {
             surfaces = Optional.of(SurfacePlanner.plan(spec, grid, interior(sides, grid), materials, b, configured, stop, dt,
-                    sites, flux, planned, errors));
+                    sites, flux, planned, setup, errors));
             if (!errors.isEmpty()) {
                 throw new PlanException(errors);
             }

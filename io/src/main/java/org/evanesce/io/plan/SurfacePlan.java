@@ -29,7 +29,8 @@ import org.evanesce.solver.source.TotalFieldBox;
  * @param boxes        in the case's order
  * @param farFields    in the case's order
  * @param exits        in the case's order
- * @param incidentLine for incident: the line just ahead of the source in the incident-power run
+ * @param incidentLine for incident: the line just ahead of the source in the incident-power run (or, with
+ *                     {@code computedIncident}, filled after the case's run without one)
  * @param incidentDirection +1 when the launched wave travels towards +y, −1 towards −y (0 without one)
  * @param sourceBox    for source: the box round the sources in the reference run
  * @param ownReference the reference run when the case has no flux section whose incident-power run the norm rides on
@@ -40,12 +41,16 @@ import org.evanesce.solver.source.TotalFieldBox;
  * @param cellSize     Δ, m
  * @param normMedium   the material the norm is measured in (the launching medium or the sources'), or empty
  * @param boxWave      for incident with a plane-wave box: its wave, else empty
+ * @param computedIncident for incident with a pulsed Gaussian beam, PMLs on every side and no flux section (unless
+ *                     {@code incident_run: full}): the incident line's transforms computed from the beam's sheets
+ *                     ({@link org.evanesce.solver.source.SheetResponse}) instead of an incident-power run
  */
 public record SurfacePlan(double[] frequencies, Polarization polarization, SurfacesSpec.Normalise normalise,
                           List<Segment> segments, List<Box> boxes, List<FarField> farFields, List<Exit> exits,
                           Optional<FluxLine> incidentLine, int incidentDirection, Optional<FluxBox> sourceBox, Optional<Simulation.Builder> ownReference,
                           Optional<SteadyState> steady, double gridX0, double gridY0, double cellSize,
-                          Optional<String> normMedium, Optional<BoxWave> boxWave) {
+                          Optional<String> normMedium, Optional<BoxWave> boxWave,
+                          Optional<org.evanesce.solver.source.SheetResponse> computedIncident) {
 
     /** The box that measures what the sources radiate lies this many cells clear of every source site. */
     public static final int SOURCE_MARGIN = 3;

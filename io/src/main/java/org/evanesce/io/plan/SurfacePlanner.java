@@ -45,12 +45,13 @@ final class SurfacePlanner {
      * @param sites      where each source drives the grid
      * @param flux       the flux plan, whose incident-power run the incident norm rides on when there is one
      * @param lightBoxes the case's planned plane-wave boxes (the incident norm is then their wave's intensity)
+     * @param setup      what {@code configured} configures besides the material grid (sources, sheets, sides)
      * @param errors     receives what cannot be planned
      */
     static SurfacePlan plan(CaseSpec spec, GridSpec grid, int[] interior, Map<String, Material> materials,
                             Simulation.Builder run, Function<MaterialGrid, Simulation.Builder> configured,
                             CasePlan.Stop stop, double dt, List<CasePlan.SourceSite> sites, Optional<FluxPlan> flux,
-                            List<TotalFieldBox> lightBoxes, List<Diagnostic> errors) {
+                            List<TotalFieldBox> lightBoxes, IncidentKey.Setup setup, List<Diagnostic> errors) {
         SurfacesSpec s = spec.surfaces().orElseThrow();
         double[] freqs = s.frequencies().stream().mapToDouble(v -> v.si()).toArray();
         Polarization pol = spec.polarization().value();
@@ -147,6 +148,7 @@ final class SurfacePlanner {
         Optional<String> normMedium = Optional.empty();
         int direction = 0;
         Optional<SurfacePlan.BoxWave> boxWave = Optional.empty();
+        Optional<org.evanesce.solver.source.SheetResponse> computed = Optional.empty();
         if (s.normalise().value() == SurfacesSpec.Normalise.INCIDENT && !lightBoxes.isEmpty()) {
             boxWave = Optional.of(boxWave(spec, grid, interior, lightBoxes.get(0)));
             normMedium = Optional.of(boxWave.get().medium());
@@ -161,10 +163,13 @@ final class SurfacePlanner {
                 // the flux section's incident-power run records it (FluxPlanner: in its key, strip and reuse)
                 incident = Optional.of(flux.get().surfacesIncident().orElseThrow());
             } else if (row >= 1 && row + 2 < grid.ny()) {
-                Simulation.Builder ref = configured.apply(homogeneous(materials.get(medium), grid));
-                own = Optional.of(ref);
-                FluxLine line = new FluxLine(pol, row, i0, i1, freqs);
-                ref.listener(windowed(line, steady));
+                computed = BeamIncident.forSurfaces(spec, w, PlaneWaves.medium(spec, w), materials.get(medium), setup, grid.nx());
+                FluxLine line = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
+                if (computed.isEmpty()) { // else computed after the run from the beam's sheets
+                    Simulation.Builder ref = configured.apply(homogeneous(materials.get(medium), grid));
+                    own = Optional.of(ref);
+                    ref.listener(line);
+                }
                 incident = Optional.of(line);
             } else {
                 errors.add(new Diagnostic(Diagnostic.Severity.ERROR, w.at(), "sources", String.format("the incident power is "
@@ -208,7 +213,7 @@ final class SurfacePlanner {
             }
         }
         return new SurfacePlan(freqs, pol, s.normalise().value(), segments, boxes, farFields, exits, incident, direction,
-                sourceBox, own, Optional.ofNullable(steady), grid.x0(), grid.y0(), dx, normMedium, boxWave);
+                sourceBox, own, Optional.ofNullable(steady), grid.x0(), grid.y0(), dx, normMedium, boxWave, computed);
     }
 
     /** A plane-wave box's wave: the medium it comes from (just left of the box) and its intensity there. */

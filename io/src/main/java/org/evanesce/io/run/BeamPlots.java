@@ -44,12 +44,26 @@ public final class BeamPlots {
         if (plan.beam().isEmpty()) {
             return 0;
         }
+        double wl = plan.wavelength(q);
+        return write(plan, pol, q, dir, plan.exact().isPresent()
+                ? BeamReference.of(plan, plan.exact().get().stack().apply(wl), pol, wl) : null);
+    }
+
+    /** The same with the beam's references already computed (as for flux.csv). */
+    public static int write(FluxPlan plan, Polarization pol, int q, Path dir, BeamReferences references) throws IOException {
+        return write(plan, pol, q, dir, references.at(q));
+    }
+
+    /** The same with the beam's reference at frequency q, or null without an exact stack. */
+    private static int write(FluxPlan plan, Polarization pol, int q, Path dir, AngularSpectrum.Converged reference)
+            throws IOException {
+        if (plan.beam().isEmpty()) {
+            return 0;
+        }
         double dx = plan.cellSize();
         double wl = plan.wavelength(q);
         AngularSpectrum.Result as = null;
-        if (plan.exact().isPresent()) {
-            PlanarStack stack = plan.exact().get().stack().apply(wl);
-            AngularSpectrum.Converged reference = BeamReference.of(plan, stack, pol, wl);
+        if (plan.exact().isPresent() && reference != null) {
             as = reference.converged() ? reference.result() : null; // a reference that did not converge is not drawn
         }
         int written = 0;
@@ -94,11 +108,10 @@ public final class BeamPlots {
                     // reference's shift (BeamReference.reflectedShift), diffraction over the distance included
                     PlanarStack stack = plan.exact().get().stack().apply(wl);
                     AngularSpectrum.GaussianBeam beam = BeamReference.beam(plan, wl);
-                    double window = as.samples() * as.spacing();
-                    double[] line = AngularSpectrum.fluxDensity(stack, pol, beam, as.samples(), window,
+                    // from the spectra the reference kept: no second pass through the stack
+                    double[] line = AngularSpectrum.fluxDensity(stack, pol, beam, reference,
                             Math.abs(interfaceY - l.y()), false);
-                    double incidentPeakFlux = peak(AngularSpectrum.fluxDensity(stack, pol, beam, as.samples(), window, 0,
-                            true));
+                    double incidentPeakFlux = peak(AngularSpectrum.fluxDensity(stack, pol, beam, reference, 0, true));
                     if (incidentPeakFlux > 0) {
                         refX = new double[as.samples()];
                         refY = new double[as.samples()];

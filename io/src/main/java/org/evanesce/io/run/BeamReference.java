@@ -101,12 +101,12 @@ final class BeamReference {
         double first = plan.gridX0() + (line.run().firstCell() + line.run().electricComponent().dx) * dx - hit;
         double last = first + (line.run().cells() - 1) * dx;
         AngularSpectrum.Result r = reference.result();
-        double window = r.samples() * r.spacing();
+        double window = -2 * r.start(); // the window the reference sampled
         if (!(first >= -window / 2 && last <= window / 2)) {
             return null;
         }
         double d = Math.abs(plan.exact().orElseThrow().firstInterface() - line.y());
-        double onLine = AngularSpectrum.shiftOnSegment(stack, pol, beam, r.samples(), window, d, first, last);
+        double onLine = AngularSpectrum.shiftOnSegment(stack, pol, beam, reference, d, first, last);
         double whole = reference.shift(reflectedLines(plan).indexOf(line));
         return String.format(java.util.Locale.ROOT, "at %.2f nm the beam's plane waves reach grazing incidence (there %.2g of the "
                 + "power density on its axis, a %.3g um waist at %.4g deg): its flux-weighted centroids on a line then "

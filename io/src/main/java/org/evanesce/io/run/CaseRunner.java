@@ -213,6 +213,13 @@ public final class CaseRunner {
                         + "computed from the beam's sheets (no incident-power run)" : "; the incident-power run took the same number of steps"
                         + (obtained.origin().contains("continuing from step") ? " (" + obtained.origin().substring(
                         "measured by this run, ".length()) + ")" : "");
+            } else if (plan.surfaces().flatMap(org.evanesce.io.plan.SurfacePlan::computedIncident).isPresent()) {
+                // a pulsed beam's incident line in closed form: no incident-power run
+                var sp = plan.surfaces().get();
+                long t1 = System.nanoTime();
+                sp.computedIncident().get().fill(sp.incidentLine().orElseThrow(), sim.stepCount(), plan.dt());
+                reference = new double[] {(System.nanoTime() - t1) * 1e-9, Double.NaN, Double.NaN};
+                reason += "; the incident power was computed from the beam's sheets (no incident-power run)";
             } else if (plan.referenceRun().isPresent()) {
                 reference = step(plan, plan.referenceRun().get(), sim.stepCount(), progress, progressSeconds, plan.interior());
                 reason += plan.surfaces().get().incidentLine().isPresent()

@@ -74,8 +74,13 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
     /** A line carrying less than this fraction of the incident power gets no centroid or width. */
     static final double MIN_BEAM_POWER = 1e-3;
 
-    /** Computes the table. */
+    /** Computes the table (a beam's references on this thread). */
     public static FluxResults of(FluxPlan plan, Polarization pol) {
+        return of(plan, pol, BeamReferences.of(plan, pol, 1));
+    }
+
+    /** Computes the table with a beam's references already computed ({@link BeamReferences}). */
+    public static FluxResults of(FluxPlan plan, Polarization pol, BeamReferences references) {
         List<String> columns = new ArrayList<>();
         int transmitted = 0;
         int reflected = 0;
@@ -126,7 +131,7 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
             PlanarStack stack = exact ? plan.exact().get().stack().apply(wl) : null;
             PlanarStack.Response r = !exact ? null : beam ? stack.atAngle(pol, wl, plan.angle(q))
                     : stack.atTransverseWavenumber(pol, wl, plan.kx());
-            AngularSpectrum.Converged reference = exact && beam ? BeamReference.of(plan, stack, pol, wl) : null;
+            AngularSpectrum.Converged reference = exact && beam ? references.at(q) : null;
             // a reference that did not converge is not printed: its columns stay empty (NaN)
             AngularSpectrum.Result as = reference == null || !reference.converged() ? null : reference.result();
             if (reference != null && !reference.converged()) {

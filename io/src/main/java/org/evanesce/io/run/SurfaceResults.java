@@ -317,7 +317,11 @@ public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] 
                     : "A^2 / (2 n eta0)");
         }
         return switch (plan.normalise()) {
-            case INCIDENT -> "divided by the incident power: the flux through a line just ahead of the plane wave or beam in "
+            case INCIDENT -> plan.computedIncident().isPresent()
+                    ? "divided by the incident power: the flux through a line just ahead of the beam in an unbounded grid "
+                    + "filled with " + plan.normMedium().orElse("the launching medium") + ", computed from the beam's sheets "
+                    + "(the grid's own update in the frequency domain; no incident-power run)"
+                    : "divided by the incident power: the flux through a line just ahead of the plane wave or beam in "
                     + "the incident-power run (the same grid, sources and steps with the domain filled with "
                     + plan.normMedium().orElse("the launching medium") + ")";
             case SOURCE -> "divided by the power the point and line sources radiate into their own medium, measured: the net "

@@ -206,19 +206,34 @@ public final class AngularSpectrum {
      * @throws IllegalArgumentException if the window or the sampling cannot hold the beam
      */
     public static Result of(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples, double window) {
-        return of(stack, polarization, beam, samples, window, null);
+        return profiles(spectra(stack, polarization, beam, samples, window, null));
     }
 
     /**
-     * {@link #of}; when {@code keep} is not null, keep[0] receives the incident spectrum A_m (with the sign
-     * (−1)^(m−c), interleaved), keep[1] the reflected one r·A_m and keep[2] the transmitted one t·A_m, before
-     * the transforms.
+     * One sampling's spectra before the transforms (A_m with the sign (−1)^(m−c), r·A_m, t·A_m, interleaved) and its power sums, with the stack's
+     * responses at each kx_m (null where the beam has no component), which the next doubling reuses: its even samples
+     * lie at the same kx, bit for bit (W and Δk = 2π/W scale by powers of two exactly).
      */
-    private static Result of(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples, double window,
-                             double[][] keep) {
+    private record Spectra(Polarization polarization, int samples, double window, double[] incident, double[] reflected, double[] transmitted,
+                           double pInc, double pRef, double pTra, Complex[] r, Complex[] t, double[] qe, double[] phases) {
+        double reflectance() {
+            return pRef / pInc;
+        }
+
+        double transmittance() {
+            return pTra / pInc;
+        }
+    }
+
+    /**
+     * The sampled spectra of the class comment and their power sums; {@code coarser}, when not null, is the sampling
+     * at half the window and half the samples, whose responses are taken where the kx coincide (the same numbers as
+     * evaluating the stack again).
+     */
+    private static Spectra spectra(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples, double window,
+                                   Spectra coarser) {
         double n1 = stack.incidentIndex();
         double lambda = beam.wavelength();
-        double dx = window / samples;
         checkSampling(stack, beam, samples, window);
         double k0 = 2 * Math.PI / lambda;
         double k = n1 * k0;
@@ -227,10 +242,17 @@ public final class AngularSpectrum {
         int lastMedium = stack.media() - 1;
         double f1 = polarization == Polarization.S ? 1 : n1 * n1;
         Complex fe = polarization == Polarization.S ? Complex.ONE : stack.exitIndex().square();
+        // the coarser sampling's sample m0 lies at this one's c + 2(m0 − c0) when both are even-sized doublings
+        boolean reuse = coarser != null && 2 * coarser.samples == samples && coarser.window * 2 == window
+                && samples % 4 == 0;
+        int c0 = reuse ? coarser.samples / 2 : 0;
 
         double[] inc = new double[2 * samples];
         double[] ref = new double[2 * samples];
         double[] tra = new double[2 * samples];
+        Complex[] rs = new Complex[samples];
+        Complex[] ts = new Complex[samples];
+        double[] qes = new double[samples];
         double pInc = 0;
         double pRef = 0;
         double pTra = 0;
@@ -241,32 +263,47 @@ public final class AngularSpectrum {
                 continue;
             }
             double kz1 = Math.sqrt((k - kx) * (k + kx));
-            PlanarStack.Response resp = stack.atTransverseWavenumber(polarization, lambda, kx);
-            Complex r = a.times(resp.r());
-            Complex t = a.times(resp.t());
+            int m0 = reuse && ((m - c) & 1) == 0 ? c0 + (m - c) / 2 : -1;
+            if (m0 >= 0 && coarser.r[m0] != null) {
+                rs[m] = coarser.r[m0];
+                ts[m] = coarser.t[m0];
+                qes[m] = coarser.qe[m0];
+            } else {
+                PlanarStack.Response resp = stack.atTransverseWavenumber(polarization, lambda, kx);
+                rs[m] = resp.r();
+                ts[m] = resp.t();
+                qes[m] = stack.normalWavenumber(lastMedium, lambda, kx).divide(fe.times(k0)).re();
+            }
+            Complex r = a.times(rs[m]);
+            Complex t = a.times(ts[m]);
             put(inc, m, a);
             put(ref, m, r);
             put(tra, m, t);
             double q1 = kz1 / (k0 * f1);
-            double qe = stack.normalWavenumber(lastMedium, lambda, kx).divide(fe.times(k0)).re();
             pInc += q1 * a.norm();
             pRef += q1 * r.norm();
-            pTra += qe * t.norm();
+            pTra += qes[m] * t.norm();
         }
-        if (keep != null) {
-            keep[0] = inc.clone();
-            keep[1] = ref.clone();
-            keep[2] = tra.clone();
-        }
+        return new Spectra(polarization, samples, window, inc, ref, tra, pInc, pRef, pTra, rs, ts, qes,
+                windowPhases(samples, c, dk / (2 * Math.PI)));
+    }
+
+    /** The profiles of a sampling: its spectra transformed (the spectra are left as they are). */
+    private static Result profiles(Spectra s) {
+        int samples = s.samples;
+        double window = s.window;
+        double dx = window / samples;
+        double[] inc = s.incident.clone();
+        double[] ref = s.reflected.clone();
+        double[] tra = s.transmitted.clone();
         DoubleFFT_1D fft = new DoubleFFT_1D(samples);
-        double scale = dk / (2 * Math.PI);
         for (double[] u : new double[][] {inc, ref, tra}) {
             fft.complexInverse(u, false);
-            shiftToWindow(u, samples, c, scale);
+            shiftToWindow(u, s.phases);
         }
         double start = -window / 2;
         double incCentroid = centroid(inc, start, dx);
-        return new Result(start, dx, inc, ref, tra, pRef / pInc, pTra / pInc, incCentroid,
+        return new Result(start, dx, inc, ref, tra, s.reflectance(), s.transmittance(), incCentroid,
                 centroid(ref, start, dx) - incCentroid, centroid(tra, start, dx) - incCentroid);
     }
 
@@ -296,13 +333,31 @@ public final class AngularSpectrum {
      * @param resonance          kx of the narrowest resonance of the stack found in the beam's spectrum (the peak
      *                           of |t|², {@link Resonances}), rad/m; NaN with none
      * @param narrowest          its half-width at half height of |t|², rad/m; infinite with none
+     * @param incidentSpectrum   the incident spectrum A_m of that sampling before the transforms, with the sign
+     *                           (−1)^(m−c), interleaved ({@link #fluxDensity(PlanarStack, Polarization, GaussianBeam,
+     *                           Converged, double, boolean)} and {@link #shiftOnSegment(PlanarStack, Polarization,
+     *                           GaussianBeam, Converged, double, double, double)} start from it)
+     * @param reflectedSpectrum  the reflected one, r·A_m, likewise
      */
     public record Converged(Result result, double[] reflectedCentroids, double[] specularCentroids, boolean converged,
-                            int doublings, double[] change, double resonance, double narrowest) {
+                            int doublings, double[] change, double resonance, double narrowest, double[] incidentSpectrum,
+                            double[] reflectedSpectrum) {
         public Converged {
             reflectedCentroids = reflectedCentroids.clone();
             specularCentroids = specularCentroids.clone();
             change = change.clone();
+            incidentSpectrum = incidentSpectrum.clone();
+            reflectedSpectrum = reflectedSpectrum.clone();
+        }
+
+        @Override
+        public double[] incidentSpectrum() {
+            return incidentSpectrum.clone();
+        }
+
+        @Override
+        public double[] reflectedSpectrum() {
+            return reflectedSpectrum.clone();
         }
 
         @Override
@@ -348,7 +403,7 @@ public final class AngularSpectrum {
                 throw new IllegalArgumentException(String.format("distance %g m must be finite and >= 0", d));
             }
         }
-        Sampled prev = sample(stack, polarization, beam, samples, window, distances);
+        Sampled prev = sample(stack, polarization, beam, samples, window, distances, null);
         int doublings = 0;
         double[] change = {Double.NaN, Double.NaN, Double.NaN};
         while (true) {
@@ -356,15 +411,14 @@ public final class AngularSpectrum {
             // the samples the narrowest resonance needs (Δk at most half its half-width)
             double needed = prev.narrowest > 0 ? samples * (2 * dk / prev.narrowest) : Double.POSITIVE_INFINITY;
             if ((long) samples * 2 > maxSamples || needed > maxSamples) {
-                return new Converged(prev.result, prev.centroids, prev.specular, false, doublings, change, prev.resonance,
-                        prev.narrowest);
+                return prev.converged(false, doublings, change);
             }
             samples *= 2;
             window *= 2;
             doublings++;
-            Sampled cur = sample(stack, polarization, beam, samples, window, distances);
-            change = new double[] {Math.abs(cur.result.reflectance() - prev.result.reflectance()),
-                Math.abs(cur.result.transmittance() - prev.result.transmittance()), 0};
+            Sampled cur = sample(stack, polarization, beam, samples, window, distances, prev.spectra);
+            change = new double[] {Math.abs(cur.spectra.reflectance() - prev.spectra.reflectance()),
+                Math.abs(cur.spectra.transmittance() - prev.spectra.transmittance()), 0};
             boolean small = change[0] <= tolerance.power() && change[1] <= tolerance.power();
             for (int k = 0; k < distances.length; k++) {
                 for (double[][] c : new double[][][] {{cur.centroids, prev.centroids}, {cur.specular, prev.specular}}) {
@@ -378,30 +432,41 @@ public final class AngularSpectrum {
             boolean resolved = dk <= prev.narrowest / 2 && 2 * Math.PI / window <= cur.narrowest / 2;
             prev = cur;
             if (small && resolved) {
-                return new Converged(cur.result, cur.centroids, cur.specular, true, doublings, change, cur.resonance,
-                        cur.narrowest);
+                return cur.converged(true, doublings, change);
             }
         }
     }
 
-    /** One sampling's result, reflected and specular centroids and narrowest resonance. */
-    private record Sampled(Result result, double[] centroids, double[] specular, double resonance, double narrowest) { }
+    /**
+     * One sampling's spectra, reflected and specular centroids and narrowest resonance; its profiles
+     * ({@link #profiles}, three transforms) are made only for the sampling {@link #converged} returns.
+     */
+    private record Sampled(Spectra spectra, double[] centroids, double[] specular, double resonance, double narrowest) {
+        Converged converged(boolean converged, int doublings, double[] change) {
+            return new Converged(profiles(spectra), centroids, specular, converged, doublings, change, resonance, narrowest,
+                    spectra.incident, spectra.reflected);
+        }
+    }
 
-    /** {@link #of}, {@link #reflectedCentroid} at each distance and the resonances, from one pass through the stack. */
+    /**
+     * The spectra, {@link #reflectedCentroid} and {@link #specularCentroid} at each distance and the resonances, from
+     * one pass through the stack (its responses taken from {@code coarser} where the kx coincide).
+     */
     private static Sampled sample(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples,
-                                  double window, double[] distances) {
-        double[][] spectra = new double[3][];
-        Result res = of(stack, polarization, beam, samples, window, spectra);
+                                  double window, double[] distances, Spectra coarser) {
+        Spectra s = spectra(stack, polarization, beam, samples, window, coarser);
         double[] centroids = new double[distances.length];
         double[] specular = new double[distances.length];
         for (int k = 0; k < distances.length; k++) {
-            centroids[k] = centroidAt(stack, polarization, beam, samples, window, distances[k], spectra[0], spectra[1]);
-            specular[k] = centroidAt(stack, polarization, beam, samples, window, distances[k], spectra[0], spectra[0]);
+            centroids[k] = centroidAt(stack, beam, s, distances[k], s.reflected, Double.NEGATIVE_INFINITY,
+                    Double.POSITIVE_INFINITY);
+            specular[k] = centroidAt(stack, beam, s, distances[k], s.incident, Double.NEGATIVE_INFINITY,
+                    Double.POSITIVE_INFINITY);
         }
         double dk = 2 * Math.PI / window;
-        double[] narrowest = Resonances.narrowest(stack, polarization, beam.wavelength(), spectra[0], spectra[2],
+        double[] narrowest = Resonances.narrowest(stack, polarization, beam.wavelength(), s.incident, s.transmitted,
                 -(samples / 2) * dk, dk);
-        return new Sampled(res, centroids, specular, narrowest[0], narrowest[1]);
+        return new Sampled(s, centroids, specular, narrowest[0], narrowest[1]);
     }
 
     /**
@@ -422,9 +487,8 @@ public final class AngularSpectrum {
         if (!(distance >= 0) || Double.isInfinite(distance)) {
             throw new IllegalArgumentException(String.format("distance %g m must be finite and >= 0", distance));
         }
-        double[][] spectra = new double[3][];
-        of(stack, polarization, beam, samples, window, spectra);
-        return centroidAt(stack, polarization, beam, samples, window, distance, spectra[0], spectra[1]);
+        Spectra s = spectra(stack, polarization, beam, samples, window, null);
+        return centroidAt(stack, beam, s, distance, s.reflected, Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY);
     }
 
     /**
@@ -448,9 +512,8 @@ public final class AngularSpectrum {
         if (!(distance >= 0) || Double.isInfinite(distance)) {
             throw new IllegalArgumentException(String.format("distance %g m must be finite and >= 0", distance));
         }
-        double[][] spectra = new double[3][];
-        of(stack, polarization, beam, samples, window, spectra);
-        return centroidAt(stack, polarization, beam, samples, window, distance, spectra[0], spectra[0]);
+        Spectra s = spectra(stack, polarization, beam, samples, window, null);
+        return centroidAt(stack, beam, s, distance, s.incident, Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY);
     }
 
     /**
@@ -466,32 +529,52 @@ public final class AngularSpectrum {
             throw new IllegalArgumentException(String.format("segment from %g m to %g m must be increasing and inside the "
                     + "window of %g m about x = 0", from, to, window));
         }
-        double[][] spectra = new double[3][];
-        of(stack, polarization, beam, samples, window, spectra);
-        return centroidAt(stack, polarization, beam, samples, window, distance, spectra[0], spectra[1], from, to)
-                - centroidAt(stack, polarization, beam, samples, window, distance, spectra[0], spectra[0], from, to);
+        return segmentShift(stack, beam, spectra(stack, polarization, beam, samples, window, null), distance, from, to);
     }
 
     /**
-     * {@link #reflectedCentroid} from the sampled spectra of {@link #of}: the reflected spectrum r·A carried a
-     * distance d back into the incidence medium (times e^{i kz d}) and its admittance-weighted copy, transformed.
+     * {@link #shiftOnSegment} at the sampling {@link #converged} returned, from the spectra it kept (no second pass
+     * through the stack).
+     *
+     * @param reference what {@link #converged} returned for this stack, polarization and beam
      */
-    private static double centroidAt(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples,
-                                     double window, double distance, double[] incident, double[] reflected) {
-        return centroidAt(stack, polarization, beam, samples, window, distance, incident, reflected,
-                Double.NEGATIVE_INFINITY, Double.POSITIVE_INFINITY);
+    public static double shiftOnSegment(PlanarStack stack, Polarization polarization, GaussianBeam beam,
+                                        Converged reference, double distance, double from, double to) {
+        Spectra s = kept(polarization, reference);
+        if (!(from < to) || !(from >= -s.window / 2) || !(to <= s.window / 2)) {
+            throw new IllegalArgumentException(String.format("segment from %g m to %g m must be increasing and inside the "
+                    + "window of %g m about x = 0", from, to, s.window));
+        }
+        return segmentShift(stack, beam, s, distance, from, to);
     }
 
-    /** {@link #centroidAt} over the samples with from ≤ x ≤ to only. */
-    private static double centroidAt(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples,
-                                     double window, double distance, double[] incident, double[] reflected,
+    private static double segmentShift(PlanarStack stack, GaussianBeam beam, Spectra s, double distance, double from,
+                                       double to) {
+        return centroidAt(stack, beam, s, distance, s.reflected, from, to)
+                - centroidAt(stack, beam, s, distance, s.incident, from, to);
+    }
+
+    /** The spectra a {@link Converged} kept, as a sampling (without the stack's responses). */
+    private static Spectra kept(Polarization polarization, Converged c) {
+        int samples = c.result().samples();
+        double window = -2 * c.result().start();
+        return new Spectra(polarization, samples, window, c.incidentSpectrum, c.reflectedSpectrum, null, Double.NaN,
+                Double.NaN, Double.NaN, null, null, null, windowPhases(samples, samples / 2, (2 * Math.PI / window) / (2 * Math.PI)));
+    }
+
+    /**
+     * {@link #reflectedCentroid} from a sampling's spectra over the samples with from ≤ x ≤ to: the spectrum
+     * {@code reflected} (r·A, or A for the mirrored beam) carried a distance d back into the incidence medium (times
+     * e^{i kz d}) and its admittance-weighted copy, transformed.
+     */
+    private static double centroidAt(PlanarStack stack, GaussianBeam beam, Spectra s, double distance, double[] reflected,
                                      double from, double to) {
-        double[] flux = fluxAt(stack, polarization, beam, samples, window, distance, incident, reflected);
-        double start = -window / 2;
-        double dx = window / samples;
+        double[] flux = fluxAt(stack, beam, s, distance, reflected);
+        double start = -s.window / 2;
+        double dx = s.window / s.samples;
         double sum = 0;
         double moment = 0;
-        for (int j = 0; j < samples; j++) {
+        for (int j = 0; j < s.samples; j++) {
             double x = start + j * dx;
             if (!(x >= from && x <= to)) {
                 continue;
@@ -504,17 +587,18 @@ public final class AngularSpectrum {
 
     /**
      * The flux density towards −z across the line z = −d of the beam whose spectrum on the first interface is
-     * {@code reflected} (as {@link #of} keeps it), at x_j = −W/2 + j·W/N: Re(U V*) with V = Q1·U plane wave by plane
+     * {@code reflected} (as {@link Spectra} holds it), at x_j = −W/2 + j·W/N: Re(U V*) with V = Q1·U plane wave by plane
      * wave (Q1 = kz/k0 for s, kz/(k0 n1²) for p; {@link #reflectedCentroid}).
      */
-    private static double[] fluxAt(PlanarStack stack, Polarization polarization, GaussianBeam beam, int samples,
-                                   double window, double distance, double[] incident, double[] reflected) {
+    private static double[] fluxAt(PlanarStack stack, GaussianBeam beam, Spectra s, double distance, double[] reflected) {
+        int samples = s.samples;
+        double[] incident = s.incident;
         double n1 = stack.incidentIndex();
         double k0 = 2 * Math.PI / beam.wavelength();
         double k = n1 * k0;
-        double dk = 2 * Math.PI / window;
+        double dk = 2 * Math.PI / s.window;
         int c = samples / 2;
-        double f1 = polarization == Polarization.S ? 1 : n1 * n1;
+        double f1 = s.polarization == Polarization.S ? 1 : n1 * n1;
         double[] u = new double[2 * samples];
         double[] v = new double[2 * samples];
         for (int m = 0; m < samples; m++) {
@@ -528,10 +612,9 @@ public final class AngularSpectrum {
             put(v, m, r.times(kz1 / (k0 * f1)));
         }
         DoubleFFT_1D fft = new DoubleFFT_1D(samples);
-        double scale = dk / (2 * Math.PI);
         for (double[] x : new double[][] {u, v}) {
             fft.complexInverse(x, false);
-            shiftToWindow(x, samples, c, scale);
+            shiftToWindow(x, s.phases);
         }
         double[] flux = new double[samples];
         for (int j = 0; j < samples; j++) {
@@ -555,9 +638,23 @@ public final class AngularSpectrum {
         if (!(distance >= 0) || Double.isInfinite(distance)) {
             throw new IllegalArgumentException(String.format("distance %g m must be finite and >= 0", distance));
         }
-        double[][] spectra = new double[3][];
-        of(stack, polarization, beam, samples, window, spectra);
-        return fluxAt(stack, polarization, beam, samples, window, distance, spectra[0], mirrored ? spectra[0] : spectra[1]);
+        Spectra s = spectra(stack, polarization, beam, samples, window, null);
+        return fluxAt(stack, beam, s, distance, mirrored ? s.incident : s.reflected);
+    }
+
+    /**
+     * {@link #fluxDensity} at the sampling {@link #converged} returned, from the spectra it kept (no second pass
+     * through the stack).
+     *
+     * @param reference what {@link #converged} returned for this stack, polarization and beam
+     */
+    public static double[] fluxDensity(PlanarStack stack, Polarization polarization, GaussianBeam beam, Converged reference,
+                                       double distance, boolean mirrored) {
+        if (!(distance >= 0) || Double.isInfinite(distance)) {
+            throw new IllegalArgumentException(String.format("distance %g m must be finite and >= 0", distance));
+        }
+        Spectra s = kept(polarization, reference);
+        return fluxAt(stack, beam, s, distance, mirrored ? s.incident : s.reflected);
     }
 
     /**
@@ -613,14 +710,24 @@ public final class AngularSpectrum {
 
     /**
      * Turns F_j = Σ_m B_m exp(2πi mj/N), with B_m = (−1)^(m−c) A_m, into U(x_j) = scale · exp(−2πi c j/N) · F_j,
-     * since kx_m x_j = −π(m − c) + 2π mj/N − 2π cj/N. The phase c·j is reduced mod N first so that it stays exact.
-     * Modifies {@code u} in place.
+     * since kx_m x_j = −π(m − c) + 2π mj/N − 2π cj/N: the factors, {scale·cos φ_j, scale·sin φ_j} interleaved. The
+     * phase c·j is reduced mod N first so that it stays exact.
      */
-    private static void shiftToWindow(double[] u, int n, int c, double scale) {
+    private static double[] windowPhases(int n, int c, double scale) {
+        double[] out = new double[2 * n];
         for (int j = 0; j < n; j++) {
             double phi = -2 * Math.PI * (int) (((long) c * j) % n) / n;
-            double cs = Math.cos(phi) * scale;
-            double sn = Math.sin(phi) * scale;
+            out[2 * j] = Math.cos(phi) * scale;
+            out[2 * j + 1] = Math.sin(phi) * scale;
+        }
+        return out;
+    }
+
+    /** Multiplies F_j by the factors of {@link #windowPhases}; modifies {@code u} in place. */
+    private static void shiftToWindow(double[] u, double[] phases) {
+        for (int j = 0; j < phases.length / 2; j++) {
+            double cs = phases[2 * j];
+            double sn = phases[2 * j + 1];
             double re = u[2 * j];
             double im = u[2 * j + 1];
             u[2 * j] = re * cs - im * sn;

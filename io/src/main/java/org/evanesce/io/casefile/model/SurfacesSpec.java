@@ -19,9 +19,12 @@ import java.util.List;
  * @param farFields   possibly none
  * @param exitSpectra possibly none (at least one of the four lists is not empty)
  * @param at          where the section starts
+ * @param incidentRun how the incident norm of a case without a flux section is obtained ({@code incident_run}): auto
+ *                    computes a pulsed beam's from its sheets where it can, full always steps the incident-power run
  */
 public record SurfacesSpec(List<Value> frequencies, Located<Normalise> normalise, List<Segment> segments, List<Box> boxes,
-                           List<FarField> farFields, List<ExitSpectrum> exitSpectra, SourcePosition at) {
+                           List<FarField> farFields, List<ExitSpectrum> exitSpectra, SourcePosition at,
+                           Located<FluxSpec.IncidentRun> incidentRun) {
 
     public SurfacesSpec {
         frequencies = List.copyOf(frequencies);

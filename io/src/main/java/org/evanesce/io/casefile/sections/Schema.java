@@ -97,7 +97,7 @@ final class Schema {
     static final Section FREQUENCY_RANGE = new Section("flux.frequencies", List.of("from", "to", "count"));
     static final Section FLUX_LINE = new Section("flux.lines[]", List.of("name", "y", "measures"));
     static final Section SURFACES = new Section("surfaces", List.of("wavelengths", "frequencies", "normalise", "segments",
-            "boxes", "far_field", "exit_spectra"));
+            "boxes", "far_field", "exit_spectra", "incident_run"));
     static final Section SURFACE_WAVELENGTHS = new Section("surfaces.wavelengths", List.of("from", "to", "count"));
     static final Section SURFACE_FREQUENCIES = new Section("surfaces.frequencies", List.of("from", "to", "count"));
     static final Section SEGMENT = new Section("surfaces.segments[]", List.of("name", "from", "to"));

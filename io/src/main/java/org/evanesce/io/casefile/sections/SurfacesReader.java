@@ -1,5 +1,6 @@
 package org.evanesce.io.casefile.sections;
 
+import org.evanesce.io.casefile.model.FluxSpec;
 import org.evanesce.io.casefile.model.Point;
 import org.evanesce.io.casefile.model.SurfacesSpec;
 import org.evanesce.io.casefile.text.Located;
@@ -72,6 +73,17 @@ final class SurfacesReader {
             ok &= n != null;
             normalise = new Located<>(n, ctx.pos(nn));
         }
+        Node rn = v.get("incident_run");
+        Located<FluxSpec.IncidentRun> run = new Located<>(FluxSpec.IncidentRun.AUTO, v.at());
+        if (rn != null) {
+            Map<String, FluxSpec.IncidentRun> runs = new LinkedHashMap<>();
+            for (FluxSpec.IncidentRun r : FluxSpec.IncidentRun.values()) {
+                runs.put(r.caseName(), r);
+            }
+            FluxSpec.IncidentRun r = ctx.choice(rn, v.path("incident_run"), runs);
+            ok &= r != null;
+            run = new Located<>(r, ctx.pos(rn));
+        }
         List<SurfacesSpec.Segment> segments = new ArrayList<>();
         for (MapView e : entries(v, "segments", Schema.SEGMENT)) {
             Located<String> name = name(e);
@@ -137,7 +149,7 @@ final class SurfacesReader {
             ctx.error(v.at(), "surfaces", "lists no surface; expected at least one of segments, boxes, far_field, exit_spectra");
             return null;
         }
-        return ok ? new SurfacesSpec(frequencies, normalise, segments, boxes, farFields, exits, v.at()) : null;
+        return ok ? new SurfacesSpec(frequencies, normalise, segments, boxes, farFields, exits, v.at(), run) : null;
     }
 
     private List<MapView> entries(MapView v, String key, Schema.Section section) {
