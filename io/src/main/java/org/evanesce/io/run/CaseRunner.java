@@ -211,8 +211,8 @@ public final class CaseRunner {
                 reason += obtained.reused() ? "; the incident power was reused from an incident-power run of the same set-up "
                         + "and number of steps (" + obtained.origin() + ")" : obtained.computed() ? "; the incident power was "
                         + "computed from the beam's sheets (no incident-power run)" : "; the incident-power run took the same number of steps"
-                        + (obtained.origin().contains("continuing from step") ? " (" + obtained.origin().substring(
-                        "measured by this run, ".length()) + ")" : "");
+                        + (obtained.continuedFrom() >= 0 ? " (continuing from step " + obtained.continuedFrom()
+                        + " a state kept by an earlier incident-power run of the same set-up in this process)" : "");
             } else if (plan.surfaces().flatMap(org.evanesce.io.plan.SurfacePlan::computedIncident).isPresent()) {
                 // a pulsed beam's incident line in closed form: no incident-power run
                 var sp = plan.surfaces().get();

@@ -82,8 +82,11 @@ public final class IncidentPowerCache {
      * @param strip      whether that measurement stepped a strip of a few columns for a Bloch-periodic plane wave
      *                   (else the full grid)
      * @param computed   whether it was computed from a pulsed beam's sheets, no grid stepped
+     * @param continuedFrom the step this run's own measurement started from (a state kept by an earlier run of the
+     *                   same set-up), or −1 (from step 0, or not measured here)
      */
-    public record Obtained(boolean reused, String key, String origin, Measured measured, boolean strip, boolean computed) {
+    public record Obtained(boolean reused, String key, String origin, Measured measured, boolean strip, boolean computed,
+                           long continuedFrom) {
         /** {@code measured}, {@code computed} or {@code reused}, for run.json and summary.json. */
         public String how() {
             return reused ? "reused" : computed ? "computed" : "measured";
@@ -231,7 +234,7 @@ public final class IncidentPowerCache {
         String key = key(plan, steps);
         if (!enabled) {
             return new Obtained(false, key, "measured by this run", measure.apply(new Continuation(null, null)),
-                    plan.strip().isPresent(), plan.computed().isPresent());
+                    plan.strip().isPresent(), plan.computed().isPresent(), -1);
         }
         synchronized (locks.computeIfAbsent(key, k -> new Object())) {
             List<FluxLine> recorders = plan.recorders();
@@ -247,7 +250,7 @@ public final class IncidentPowerCache {
             if (e != null && fits(e, recorders)) {
                 restore(e, recorders);
                 remember(key, e);
-                return new Obtained(true, key, origin, e.measured(), plan.strip().isPresent(), plan.computed().isPresent());
+                return new Obtained(true, key, origin, e.measured(), plan.strip().isPresent(), plan.computed().isPresent(), -1);
             }
             Continuation c = new Continuation(this, runKey(plan));
             Measured m = measure.apply(c);
@@ -258,7 +261,8 @@ public final class IncidentPowerCache {
             }
             return new Obtained(false, key, c.continuedFrom() < 0 ? "measured by this run" : "measured by this run, "
                     + "continuing from step " + c.continuedFrom() + " a state kept by an earlier incident-power run of "
-                    + "the same set-up in this process", m, plan.strip().isPresent(), plan.computed().isPresent());
+                    + "the same set-up in this process", m, plan.strip().isPresent(), plan.computed().isPresent(),
+                    c.continuedFrom());
         }
     }
 
