@@ -65,17 +65,8 @@ final class FluxReader {
             ok &= b != null;
             tmm = new Located<>(b != null && b, ctx.pos(tn));
         }
-        Node rn = v.get("incident_run");
-        Located<FluxSpec.IncidentRun> run = new Located<>(FluxSpec.IncidentRun.AUTO, v.at());
-        if (rn != null) {
-            Map<String, FluxSpec.IncidentRun> runs = new LinkedHashMap<>();
-            for (FluxSpec.IncidentRun r : FluxSpec.IncidentRun.values()) {
-                runs.put(r.caseName(), r);
-            }
-            FluxSpec.IncidentRun r = ctx.choice(rn, v.path("incident_run"), runs);
-            ok &= r != null;
-            run = new Located<>(r, ctx.pos(rn));
-        }
+        Located<FluxSpec.IncidentRun> run = incidentRun(ctx, v);
+        ok &= run.value() != null;
         Node pn = v.get("reference_permittivity");
         Located<FluxSpec.ReferencePermittivity> eps = new Located<>(FluxSpec.ReferencePermittivity.DISCRETE, v.at());
         if (pn != null) {
@@ -100,6 +91,22 @@ final class FluxReader {
      *
      * @return the frequencies, or null (errors reported, or neither given and no default)
      */
+    /**
+     * The {@code incident_run} key of a section ({@code flux}, {@code surfaces}): {@code auto} when absent; a null
+     * value after an error (reported).
+     */
+    static Located<FluxSpec.IncidentRun> incidentRun(Context ctx, MapView v) {
+        Node rn = v.get("incident_run");
+        if (rn == null) {
+            return new Located<>(FluxSpec.IncidentRun.AUTO, v.at());
+        }
+        Map<String, FluxSpec.IncidentRun> runs = new LinkedHashMap<>();
+        for (FluxSpec.IncidentRun r : FluxSpec.IncidentRun.values()) {
+            runs.put(r.caseName(), r);
+        }
+        return new Located<>(ctx.choice(rn, v.path("incident_run"), runs), ctx.pos(rn));
+    }
+
     static List<Value> frequencies(Context ctx, MapView v, Value defaultFrequency, Schema.Section wavelengthRange,
                                    Schema.Section frequencyRange) {
         String how = v.oneOf(true, "wavelengths", "frequencies");

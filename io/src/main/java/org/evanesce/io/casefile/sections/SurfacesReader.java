@@ -73,17 +73,8 @@ final class SurfacesReader {
             ok &= n != null;
             normalise = new Located<>(n, ctx.pos(nn));
         }
-        Node rn = v.get("incident_run");
-        Located<FluxSpec.IncidentRun> run = new Located<>(FluxSpec.IncidentRun.AUTO, v.at());
-        if (rn != null) {
-            Map<String, FluxSpec.IncidentRun> runs = new LinkedHashMap<>();
-            for (FluxSpec.IncidentRun r : FluxSpec.IncidentRun.values()) {
-                runs.put(r.caseName(), r);
-            }
-            FluxSpec.IncidentRun r = ctx.choice(rn, v.path("incident_run"), runs);
-            ok &= r != null;
-            run = new Located<>(r, ctx.pos(rn));
-        }
+        Located<FluxSpec.IncidentRun> run = FluxReader.incidentRun(ctx, v);
+        ok &= run.value() != null;
         List<SurfacesSpec.Segment> segments = new ArrayList<>();
         for (MapView e : entries(v, "segments", Schema.SEGMENT)) {
             Located<String> name = name(e);
