@@ -115,7 +115,7 @@ public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] 
             double[] ext = new double[nf];
             boolean theorem = opticalTheorem(p, f);
             // each wavelength's transform on its own (they share nothing), several at once on the run's threads
-            inParallel(nf, threads, q -> {
+            WorkShare.each(nf, threads, q -> {
                 NearToFarField ff = f.contour().farField(q, f.index(), p.gridX0(), p.gridY0(), dx, f.originX(), f.originY());
                 for (int a = 0; a < na; a++) {
                     per[q][a] = ff.powerPerRadian(Math.toRadians(deg[a])) * factor[q] * (p.widths() ? 2 * Math.PI : 1);
@@ -180,53 +180,6 @@ public record SurfaceResults(SurfacePlan plan, List<String> columns, double[][] 
             }
         }
         return new SurfaceResults(p, columns, rows, norm, patterns, spectra, p.continuous());
-    }
-
-    /**
-     * Runs {@code work} for 0 ≤ q &lt; n, on up to {@code threads} threads (the caller's among them), each taking the
-     * next q not yet taken; returns when all are done, throwing the first failure.
-     */
-    static void inParallel(int n, int threads, java.util.function.IntConsumer work) {
-        int k = Math.max(1, Math.min(threads, n));
-        java.util.concurrent.atomic.AtomicInteger next = new java.util.concurrent.atomic.AtomicInteger();
-        java.util.concurrent.atomic.AtomicReference<Throwable> failure = new java.util.concurrent.atomic.AtomicReference<>();
-        Runnable take = () -> {
-            try {
-                for (int q = next.getAndIncrement(); q < n && failure.get() == null; q = next.getAndIncrement()) {
-                    work.accept(q);
-                }
-            } catch (RuntimeException | Error e) {
-                failure.compareAndSet(null, e);
-            }
-        };
-        Thread[] helpers = new Thread[k - 1];
-        for (int t = 0; t < helpers.length; t++) {
-            helpers[t] = new Thread(take, "far-field transform " + (t + 1));
-            helpers[t].setDaemon(true);
-            helpers[t].start();
-        }
-        take.run();
-        for (Thread t : helpers) {
-            boolean interrupted = false;
-            while (true) {
-                try {
-                    t.join();
-                    break;
-                } catch (InterruptedException e) {
-                    interrupted = true;
-                }
-            }
-            if (interrupted) {
-                Thread.currentThread().interrupt();
-            }
-        }
-        Throwable f = failure.get();
-        if (f instanceof RuntimeException re) {
-            throw re;
-        }
-        if (f instanceof Error er) {
-            throw er;
-        }
     }
 
     /**
