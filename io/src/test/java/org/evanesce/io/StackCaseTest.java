@@ -96,4 +96,16 @@ class StackCaseTest {
         assertEquals(ExitCode.USAGE, m.code(), m::toString);
         assertTrue(m.err().contains("missing --wavelength (or give --case FILE"), m.err());
     }
+
+    @Test
+    void aBadCaseGetsOneLinePerErrorAndExit2() throws IOException {
+        Path c = tmp.resolve("bad.yaml");
+        Files.writeString(c, CASE.replace("polarization: p", "polarization: q").replace("until:", "untill:"));
+        Cli.Outcome o = Cli.run("stack", "--case", c.toString());
+        assertEquals(ExitCode.USAGE, o.code(), o::toString);
+        List<String> lines = o.err().lines().filter(l -> l.startsWith(c.toString() + ":")).toList();
+        assertTrue(lines.size() >= 2, o.err());
+        assertTrue(lines.stream().anyMatch(l -> l.contains("polarization")), o.err());
+        assertTrue(o.err().contains(" error(s) in " + c + "; nothing was computed"), o.err());
+    }
 }

@@ -288,9 +288,12 @@ public final class StackCommand implements Callable<Integer> {
         } catch (java.io.IOException x) {
             throw usage(caseFile + ": cannot read: " + x.getMessage());
         } catch (org.evanesce.io.casefile.CaseFileException x) {
-            throw usage(String.join("\n", x.errors().stream().map(Object::toString).toList()));
+            // one line per error, as `run` and `check` print them, then the one-line summary
+            x.diagnostics().forEach(spec.commandLine().getErr()::println);
+            throw usage(x.errors().size() + " error(s) in " + caseFile + "; nothing was computed");
         } catch (org.evanesce.io.plan.PlanException x) {
-            throw usage(String.join("\n", x.diagnostics().stream().map(Object::toString).toList()));
+            x.diagnostics().forEach(spec.commandLine().getErr()::println);
+            throw usage(x.diagnostics().size() + " error(s) in " + caseFile + "; nothing was computed");
         }
         if (wavelength == null) {
             wavelength = new Sweep(Units.format(e.wavelength(), Dimension.LENGTH), List.of(e.wavelength()));
