@@ -8,4 +8,10 @@ public final class FitInputException extends Exception {
     public FitInputException(String message) {
         super(message);
     }
+
+    /** A trial case that cannot be read or planned: its diagnostics, then the overrides it was read with. */
+    static FitInputException ofCase(java.util.List<org.evanesce.io.casefile.text.Diagnostic> diagnostics,
+                                    java.util.Map<String, String> set) {
+        return new FitInputException(org.evanesce.io.casefile.text.DiagnosticText.withOverrides(diagnostics, set));
+    }
 }

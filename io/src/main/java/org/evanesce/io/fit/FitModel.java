@@ -9,7 +9,7 @@ import java.util.Map;
 import org.evanesce.io.casefile.CaseFileException;
 import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.model.CaseSpec;
-import org.evanesce.io.casefile.text.Diagnostic;
+import org.evanesce.io.casefile.text.DiagnosticText;
 import org.evanesce.io.casefile.model.Parameter;
 import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.plan.ExactStack;
@@ -207,7 +207,7 @@ final class FitModel {
         try {
             return ExactStack.of(read(set));
         } catch (PlanException e) {
-            throw new FitInputException(lines(e.diagnostics()) + "\n(with " + describe(p) + ")");
+            throw new FitInputException(DiagnosticText.lines(e.diagnostics()) + "\n(with " + describe(p) + ")");
         }
     }
 
@@ -216,11 +216,7 @@ final class FitModel {
         try {
             return CaseLoader.read(caseFile, set).spec();
         } catch (CaseFileException e) {
-            throw new FitInputException(lines(e.errors()) + "\n(with " + set + ")");
+            throw FitInputException.ofCase(e.errors(), set);
         }
-    }
-
-    private static String lines(List<Diagnostic> d) {
-        return String.join("\n", d.stream().map(Diagnostic::toString).toList());
     }
 }

@@ -13,7 +13,6 @@ import java.util.Map;
 import org.evanesce.io.casefile.CaseFileException;
 import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.model.CaseSpec;
-import org.evanesce.io.casefile.text.Diagnostic;
 import org.evanesce.io.casefile.LoadedCase;
 import org.evanesce.io.casefile.model.PolarizationChoice;
 import org.evanesce.io.casefile.ReadOptions;
@@ -207,7 +206,7 @@ final class SimulationModel {
         try {
             return CaseLoader.parse(caseText, caseFile.toString(), set, ReadOptions.defaults()).spec();
         } catch (CaseFileException e) {
-            throw new FitInputException(lines(e.errors()) + "\n(with " + set + ")");
+            throw FitInputException.ofCase(e.errors(), set);
         }
     }
 
@@ -224,9 +223,9 @@ final class SimulationModel {
             out.flush();
             return csv;
         } catch (CaseFileException e) {
-            throw new FitInputException(lines(e.errors()) + "\n(with " + set + ")");
+            throw FitInputException.ofCase(e.errors(), set);
         } catch (PlanException e) {
-            throw new FitInputException(lines(e.diagnostics()) + "\n(with " + set + ")");
+            throw FitInputException.ofCase(e.diagnostics(), set);
         } catch (DivergenceException | CaseRunner.RefusedException e) {
             throw new FitInputException("the simulation with " + set + " failed: " + e.getMessage());
         }
@@ -236,9 +235,5 @@ final class SimulationModel {
         List<String> parts = new ArrayList<>();
         set.forEach((k, v) -> parts.add(k + "=" + v));
         return String.join(", ", parts);
-    }
-
-    private static String lines(List<Diagnostic> d) {
-        return String.join("\n", d.stream().map(Diagnostic::toString).toList());
     }
 }

@@ -526,13 +526,22 @@ public final class CasePlanner {
                             .map(l -> new LayerStack.Layer(materials.get(l.material().value()), l.thickness().si())).toList();
                     sb.add(new LayerStack(ls.start().x().si(), ls.start().y().si(), -Math.sin(a), Math.cos(a), layers));
                 } else {
-                    sb.add(shape(s), materials.get(s.materials().get(0).value()));
+                    PeriodicImages.add(sb, shape(s), materials.get(s.materials().get(0).value()), periodicSpan());
                 }
             } catch (IllegalArgumentException e) {
                 error(s.at(), path, e.getMessage());
             }
         }
         return sb.build();
+    }
+
+    /** The period's span along x, {x0, x0 + P}, with periodic sides; null without. */
+    private double[] periodicSpan() {
+        if (!(spec.boundary(Side.LEFT) instanceof BoundarySpec.Periodic)) {
+            return null;
+        }
+        GridSpec g = gridPlan.solverGrid(true);
+        return new double[] {g.x0(), g.x0() + g.nx() * g.cellSize()};
     }
 
     private static Shape shape(ShapeSpec s) {

@@ -11,7 +11,7 @@ import java.util.Random;
 import org.evanesce.io.casefile.CaseFileException;
 import org.evanesce.io.plan.CaseLoader;
 import org.evanesce.io.casefile.model.CaseSpec;
-import org.evanesce.io.casefile.text.Diagnostic;
+import org.evanesce.io.casefile.text.DiagnosticText;
 import org.evanesce.io.casefile.model.Parameter;
 import org.evanesce.io.plan.ExactStack;
 import org.evanesce.io.plan.PlanException;
@@ -74,7 +74,7 @@ public record ToleranceStudy(List<Distribution> distributions, double[][] values
             try {
                 e = ExactStack.of(read(caseFile, set));
             } catch (PlanException x) {
-                throw new ToleranceInputException(lines(x.diagnostics()) + "\n(sample " + (s + 1) + ": " + set + ")");
+                throw new ToleranceInputException(DiagnosticText.lines(x.diagnostics()) + "\n(sample " + (s + 1) + ": " + set + ")");
             }
             PlanarStack.Response resp;
             try {
@@ -94,12 +94,8 @@ public record ToleranceStudy(List<Distribution> distributions, double[][] values
         try {
             return CaseLoader.read(caseFile, set).spec();
         } catch (CaseFileException e) {
-            throw new ToleranceInputException(lines(e.errors()) + "\n(with " + set + ")");
+            throw new ToleranceInputException(DiagnosticText.withOverrides(e.errors(), set));
         }
-    }
-
-    private static String lines(List<Diagnostic> d) {
-        return String.join("\n", d.stream().map(Diagnostic::toString).toList());
     }
 
     /** Samples meeting every requirement. */

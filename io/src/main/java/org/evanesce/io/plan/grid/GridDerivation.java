@@ -54,6 +54,7 @@ public final class GridDerivation {
             note(out, n.at(), path, String.format("cell size %s: %s cells per wavelength of %s in %s (n = %s)",
                     fmt(cell.si()), Units.number(n.si()), fmt(wavelength), densest.name(), Units.number(densest.index())));
         }
+        cell = periodicCell(spec, cell, path, out);
         double cx = Math.ceil(domain.width().si() / cell.si() - 1e-9);
         double cy = Math.ceil(domain.height().si() / cell.si() - 1e-9);
         if ((cx + 1) * (cy + 1) > MAX_NODES) {
@@ -80,6 +81,27 @@ public final class GridDerivation {
             }
         }
         return new GridPlan(cell, (int) cx + 1, (int) cy + 1, perWavelength, r.offset(), pml);
+    }
+
+    /**
+     * With periodic sides (left and right, the only pair that may be) the domain's width is the period, so it must
+     * be a whole number of cells: the cell shrinks to width / ceil(width / cell), and a note says so. Otherwise the
+     * period would be up to a cell longer than the case says, and every shape that ends at the domain's edge would
+     * leave a slit of background in each period.
+     */
+    static Value periodicCell(CaseSpec spec, Value cell, String path, List<Diagnostic> out) {
+        if (!(spec.boundary(Side.LEFT) instanceof BoundarySpec.Periodic)) {
+            return cell;
+        }
+        double period = spec.domain().width().si();
+        double cells = Math.ceil(period / cell.si() - 1e-9);
+        double fitted = period / cells;
+        if (Math.abs(fitted - cell.si()) <= 1e-9 * cell.si()) {
+            return cell;
+        }
+        note(out, cell.at(), path, String.format("cell size %s instead of %s, so that the periodic width (%s) is a whole "
+                + "number of cells (%d)", fmt(fitted), fmt(cell.si()), fmt(period), (long) cells));
+        return new Value(fitted, cell.at());
     }
 
     /** A PML's cells: as written, or its thickness rounded to whole cells (at least 1). */
