@@ -43,9 +43,6 @@ public final class StepProfile {
         if (cls.startsWith("org.evanesce.solver.parallel.")) {
             return simple.equals("BandTeam") && !method.startsWith("await") ? null : "waits (spinning at barriers)";
         }
-        if (simple.endsWith("XStripRows")) {
-            return "PML x rows (update and x-side CPML in one pass)";
-        }
         if (simple.endsWith("PmlRows")) {
             return "PML rows (update and y-side CPML in one pass)";
         }

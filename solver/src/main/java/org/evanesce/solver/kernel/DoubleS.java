@@ -21,11 +21,6 @@ final class DoubleS extends DoubleEngine {
     final double[] ca;
     /** The columns of Ez that rows of a y strip correct in their plain update: [eFused0, eFused1). */
     private final int eFused0, eFused1;
-    /**
-     * Where the x strips' Hy and Ez cells lie in a row, for the rows that correct them in the same pass
-     * as the plain update ({@link DoubleXStripRows}); null where the strips keep the column pass.
-     */
-    private DoubleXStripRows.Split hSplit, eSplit;
 
     DoubleS(MaterialGrid grid, double courant, double[] caOfMaterial, double[] cbOfMaterial, AdeCoefficients[] adeOf,
             SeriesCoefficients[] seriesOf, Map<Side, Boundary> sides) {
@@ -37,28 +32,6 @@ final class DoubleS extends DoubleEngine {
         ca = ca(Component.EZ);
         eFused0 = Math.min(DoublePmlRows.fusedFrom(1, xFree0), nx - 1);
         eFused1 = DoublePmlRows.fusedTo(eFused0, Math.min(xFree1, nx - 1));
-        hSplit = blochX ? null : DoubleXStripRows.split(xs, false, 0, nx - 1);
-        eSplit = blochX ? null : DoubleXStripRows.split(xs, true, 1, nx - 1);
-    }
-
-    /** Every row corrects the x strips in the column pass, as before {@link DoubleXStripRows} (for tests comparing the two). */
-    void columnPass() {
-        hSplit = null;
-        eSplit = null;
-    }
-
-    /** Whether row j corrects the x strips' Hy in its own pass: rows ≤ ny−2 outside the y strips. */
-    private boolean hFusedX(int j) {
-        return hSplit != null && j < ny - 1 && yStripOfRow[j] < 0;
-    }
-
-    /** Whether row j corrects the x strips' Ez in its own pass: interior rows the y strips do not correct. */
-    private boolean eFusedX(int j) {
-        if (eSplit == null || j == 0 || j == ny - 1) {
-            return false;
-        }
-        int q = yStripOfRow[j];
-        return q < 0 || j == ys[q].start;
     }
 
     @Override
@@ -86,9 +59,7 @@ final class DoubleS extends DoubleEngine {
      */
     private void hCore(int j) {
         int q = yStripOfRow[j];
-        if (hFusedX(j)) {
-            DoubleXStripRows.sH(ez, hx, hy, nx, j, s, hSplit, vl);
-        } else if (q >= 0) {
+        if (q >= 0) {
             DoubleStrip y = ys[q];
             DoublePmlRows.sH(ez, hx, hy, nx, j, s, y, j - y.start, vl);
         } else {
@@ -100,19 +71,10 @@ final class DoubleS extends DoubleEngine {
         }
     }
 
-    /** The x-side CPML corrections of Hy in rows [a, b) that hCore did not correct, down the columns. */
+    /** The x-side CPML corrections of Hy in rows [a, b). */
     private void hStrips(int a, int b) {
-        for (int j = a; j < b;) {
-            int e = j;
-            while (e < b && !hFusedX(e)) {
-                e++;
-            }
-            for (DoubleStrip x : xs) {
-                if (e > j) {
-                    DoubleKernels.pmlXH(hy, ez, s, nx, j, e, x, x.psiH, vl);
-                }
-            }
-            j = e + 1;
+        for (DoubleStrip x : xs) {
+            DoubleKernels.pmlXH(hy, ez, s, nx, a, b, x, x.psiH, vl);
         }
     }
 
@@ -157,8 +119,6 @@ final class DoubleS extends DoubleEngine {
             if (q >= 0 && j > ys[q].start) {
                 DoubleStrip y = ys[q];
                 DoublePmlRows.sE(ez, hx, hy, ca, cb, nx, j, y, j - y.start, eFused0, eFused1, vl);
-            } else if (eFusedX(j)) {
-                DoubleXStripRows.sE(ez, hx, hy, ca, cb, nx, j, eSplit, vl);
             } else {
                 DoubleKernels.sE(ez, hx, hy, ca, cb, nx, j, vl);
             }
@@ -178,19 +138,10 @@ final class DoubleS extends DoubleEngine {
         return false;
     }
 
-    /** The x-side CPML corrections of Ez in rows [a, b) (all updated rows) that eCore did not correct. */
+    /** The x-side CPML corrections of Ez in rows [a, b) (all updated rows). */
     private void eStrips(int a, int b) {
-        for (int j = a; j < b;) {
-            int e = j;
-            while (e < b && !eFusedX(e)) {
-                e++;
-            }
-            for (DoubleStrip x : xs) {
-                if (e > j) {
-                    DoubleKernels.pmlXE(ez, hy, cb, false, nx, j, e, x, x.psiE, vl);
-                }
-            }
-            j = e + 1;
+        for (DoubleStrip x : xs) {
+            DoubleKernels.pmlXE(ez, hy, cb, false, nx, a, b, x, x.psiE, vl);
         }
     }
 

@@ -22,11 +22,6 @@ final class FloatP extends FloatEngine {
     final float[] cax, cay;
     /** The columns of Hz that rows of a y strip correct in their plain update: [hFused0, hFused1). */
     private final int hFused0, hFused1;
-    /**
-     * Where the x strips' Hz and Ey cells lie in a row, for the rows that correct them in the same pass
-     * as the plain update ({@link FloatXStripRows}); null where the strips keep the column pass.
-     */
-    private FloatXStripRows.Split hSplit, eSplit;
 
     FloatP(MaterialGrid grid, double courant, double[] caOfMaterial, double[] cbOfMaterial, AdeCoefficients[] adeOf,
             SeriesCoefficients[] seriesOf, Map<Side, Boundary> sides) {
@@ -40,19 +35,6 @@ final class FloatP extends FloatEngine {
         cay = ca(Component.EY);
         hFused0 = Math.min(FloatPmlRows.fusedFrom(0, xFree0), nx - 1);
         hFused1 = FloatPmlRows.fusedTo(hFused0, Math.min(xFree1, nx - 1));
-        hSplit = blochX ? null : FloatXStripRows.split(xs, false, 0, nx - 1);
-        eSplit = blochX ? null : FloatXStripRows.split(xs, true, 1, nx - 1);
-    }
-
-    /** Every row corrects the x strips in the column pass, as before {@link FloatXStripRows} (for tests comparing the two). */
-    void columnPass() {
-        hSplit = null;
-        eSplit = null;
-    }
-
-    /** Whether row j (≤ ny−2) corrects the x strips' Hz in its own pass: rows outside the y strips. */
-    private boolean hFusedX(int j) {
-        return hSplit != null && yStripOfRow[j] < 0;
     }
 
     @Override
@@ -88,9 +70,7 @@ final class FloatP extends FloatEngine {
      */
     private void hCore(int j) {
         int q = yStripOfRow[j];
-        if (hFusedX(j)) {
-            FloatXStripRows.pH(hz, ex, ey, nx, j, s, hSplit, vl);
-        } else if (q >= 0) {
+        if (q >= 0) {
             FloatStrip y = ys[q];
             FloatPmlRows.pH(hz, ex, ey, nx, j, s, y, j - y.start, hFused0, hFused1, vl);
         } else {
@@ -102,19 +82,10 @@ final class FloatP extends FloatEngine {
         }
     }
 
-    /** The x-side CPML corrections of Hz in rows [a, b) that hCore did not correct, down the columns. */
+    /** The x-side CPML corrections of Hz in rows [a, b). */
     private void hStrips(int a, int b) {
-        for (int j = a; j < b;) {
-            int e = j;
-            while (e < b && !hFusedX(e)) {
-                e++;
-            }
-            for (FloatStrip x : xs) {
-                if (e > j) {
-                    FloatKernels.pmlXH(hz, ey, -s, nx, j, e, x, x.psiH, vl);
-                }
-            }
-            j = e + 1;
+        for (FloatStrip x : xs) {
+            FloatKernels.pmlXH(hz, ey, -s, nx, a, b, x, x.psiH, vl);
         }
     }
 
@@ -179,11 +150,7 @@ final class FloatP extends FloatEngine {
         }
         // Ey: rows 0..ny-2
         if (j < ny - 1) {
-            if (eSplit != null) {
-                FloatXStripRows.pEy(hz, ey, cay, cby, nx, j, eSplit, vl);
-            } else {
-                FloatKernels.pEy(hz, ey, cay, cby, nx, j, vl);
-            }
+            FloatKernels.pEy(hz, ey, cay, cby, nx, j, vl);
             if (pmcLeft || blochX) {
                 FloatKernels.pEyEdge(hz, ey, cay, cby, nx, 0, j, blochX ? (float) ghostW[j] : 0f);
             }
@@ -193,11 +160,8 @@ final class FloatP extends FloatEngine {
         }
     }
 
-    /** The x-side CPML corrections of Ey in rows [a, b) (rows ≤ ny−2), unless eCore made them. */
+    /** The x-side CPML corrections of Ey in rows [a, b) (rows ≤ ny−2). */
     private void eStrips(int a, int b) {
-        if (eSplit != null) {
-            return;
-        }
         for (FloatStrip x : xs) {
             FloatKernels.pmlXE(ey, hz, cby, true, nx, a, b, x, x.psiE, vl);
         }

@@ -21,11 +21,6 @@ final class FloatS extends FloatEngine {
     final float[] ca;
     /** The columns of Ez that rows of a y strip correct in their plain update: [eFused0, eFused1). */
     private final int eFused0, eFused1;
-    /**
-     * Where the x strips' Hy and Ez cells lie in a row, for the rows that correct them in the same pass
-     * as the plain update ({@link FloatXStripRows}); null where the strips keep the column pass.
-     */
-    private FloatXStripRows.Split hSplit, eSplit;
 
     FloatS(MaterialGrid grid, double courant, double[] caOfMaterial, double[] cbOfMaterial, AdeCoefficients[] adeOf,
             SeriesCoefficients[] seriesOf, Map<Side, Boundary> sides) {
@@ -37,28 +32,6 @@ final class FloatS extends FloatEngine {
         ca = ca(Component.EZ);
         eFused0 = Math.min(FloatPmlRows.fusedFrom(1, xFree0), nx - 1);
         eFused1 = FloatPmlRows.fusedTo(eFused0, Math.min(xFree1, nx - 1));
-        hSplit = blochX ? null : FloatXStripRows.split(xs, false, 0, nx - 1);
-        eSplit = blochX ? null : FloatXStripRows.split(xs, true, 1, nx - 1);
-    }
-
-    /** Every row corrects the x strips in the column pass, as before {@link FloatXStripRows} (for tests comparing the two). */
-    void columnPass() {
-        hSplit = null;
-        eSplit = null;
-    }
-
-    /** Whether row j corrects the x strips' Hy in its own pass: rows ≤ ny−2 outside the y strips. */
-    private boolean hFusedX(int j) {
-        return hSplit != null && j < ny - 1 && yStripOfRow[j] < 0;
-    }
-
-    /** Whether row j corrects the x strips' Ez in its own pass: interior rows the y strips do not correct. */
-    private boolean eFusedX(int j) {
-        if (eSplit == null || j == 0 || j == ny - 1) {
-            return false;
-        }
-        int q = yStripOfRow[j];
-        return q < 0 || j == ys[q].start;
     }
 
     @Override
@@ -86,9 +59,7 @@ final class FloatS extends FloatEngine {
      */
     private void hCore(int j) {
         int q = yStripOfRow[j];
-        if (hFusedX(j)) {
-            FloatXStripRows.sH(ez, hx, hy, nx, j, s, hSplit, vl);
-        } else if (q >= 0) {
+        if (q >= 0) {
             FloatStrip y = ys[q];
             FloatPmlRows.sH(ez, hx, hy, nx, j, s, y, j - y.start, vl);
         } else {
@@ -100,19 +71,10 @@ final class FloatS extends FloatEngine {
         }
     }
 
-    /** The x-side CPML corrections of Hy in rows [a, b) that hCore did not correct, down the columns. */
+    /** The x-side CPML corrections of Hy in rows [a, b). */
     private void hStrips(int a, int b) {
-        for (int j = a; j < b;) {
-            int e = j;
-            while (e < b && !hFusedX(e)) {
-                e++;
-            }
-            for (FloatStrip x : xs) {
-                if (e > j) {
-                    FloatKernels.pmlXH(hy, ez, s, nx, j, e, x, x.psiH, vl);
-                }
-            }
-            j = e + 1;
+        for (FloatStrip x : xs) {
+            FloatKernels.pmlXH(hy, ez, s, nx, a, b, x, x.psiH, vl);
         }
     }
 
@@ -157,8 +119,6 @@ final class FloatS extends FloatEngine {
             if (q >= 0 && j > ys[q].start) {
                 FloatStrip y = ys[q];
                 FloatPmlRows.sE(ez, hx, hy, ca, cb, nx, j, y, j - y.start, eFused0, eFused1, vl);
-            } else if (eFusedX(j)) {
-                FloatXStripRows.sE(ez, hx, hy, ca, cb, nx, j, eSplit, vl);
             } else {
                 FloatKernels.sE(ez, hx, hy, ca, cb, nx, j, vl);
             }
@@ -178,19 +138,10 @@ final class FloatS extends FloatEngine {
         return false;
     }
 
-    /** The x-side CPML corrections of Ez in rows [a, b) (all updated rows) that eCore did not correct. */
+    /** The x-side CPML corrections of Ez in rows [a, b) (all updated rows). */
     private void eStrips(int a, int b) {
-        for (int j = a; j < b;) {
-            int e = j;
-            while (e < b && !eFusedX(e)) {
-                e++;
-            }
-            for (FloatStrip x : xs) {
-                if (e > j) {
-                    FloatKernels.pmlXE(ez, hy, cb, false, nx, j, e, x, x.psiE, vl);
-                }
-            }
-            j = e + 1;
+        for (FloatStrip x : xs) {
+            FloatKernels.pmlXE(ez, hy, cb, false, nx, a, b, x, x.psiE, vl);
         }
     }
 
