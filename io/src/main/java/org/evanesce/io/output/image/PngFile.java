@@ -29,9 +29,9 @@ public final class PngFile {
     static final String SOFTWARE = "evanesce";
     /**
      * zlib's compression level: its fastest. The plots are mostly flat colour, so level 1 already shrinks them about
-     * 90-fold; zlib's default (6) made them about half as large again at five to ten times the deflate time (a sweep
-     * point's flux.png, 1109 x 546: 19.8 kB in 3.4 ms against 9.1 kB in 34 ms; its preview, 630 x 697: 14.7 kB against
-     * 7.0 kB), which was 3-5 % of a 20-point gap sweep's CPU samples. The pixels are the same at any level.
+     * 90-fold; zlib's default (6) made them half the size at two to three times the deflate CPU (a sweep point's
+     * flux.png, 1109 x 546: 19.8 kB in 3.9 ms against 9.1 kB in 13.1 ms; its preview, 630 x 697: 14.7 kB in 3.4 ms
+     * against 7.0 kB in 8.8 ms), about 2 % of a 20-point gap sweep's CPU. The pixels are the same at any level.
      */
     static final int LEVEL = 1;
 
