@@ -26,7 +26,7 @@ class HelpTextTest {
         try {
             Cli.Outcome top = Cli.run("--help");
             assertEquals(0, top.code(), top::toString);
-            for (Map.Entry<String, CommandLine> e : new CommandLine(new Main()).getSubcommands().entrySet()) {
+            for (Map.Entry<String, CommandLine> e : Main.commandLine(null).getSubcommands().entrySet()) {
                 if (e.getValue().getCommandSpec().usageMessage().hidden()) {
                     continue; // the old names of renamed commands: they only say the new name
                 }

@@ -736,7 +736,8 @@ public final class Simulation implements StepView, AutoCloseable {
             return this;
         }
 
-        int effectiveThreads() {
+        /** The threads the built simulation will step on: those requested, fewer for a small grid. */
+        public int effectiveThreads() {
             long cells = (long) grid.nx() * grid.ny();
             long byCells = Math.max(1, cells / Math.max(1, minRowsCellsPerThread));
             return (int) Math.max(1, Math.min(Math.min(threads, byCells), grid.ny() / 2));

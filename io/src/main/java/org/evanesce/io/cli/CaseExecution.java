@@ -72,6 +72,23 @@ final class CaseExecution {
                         double progressSeconds, boolean table, Checkpoints checkpoints, List<String> commandLine,
                         IncidentPowerCache incident) throws IOException {
         CasePlan plan = l.plan();
+        // the preview depends on the plan alone: drawn beside the stepping when the run leaves a core idle
+        BesideTheRun preview = !plan.spec().output().writes(OutputSpec.Item.PREVIEW) ? null
+                : BesideTheRun.start(plan.builder().effectiveThreads(),
+                        () -> RunOutputs.preview(plan, rf.dir().resolve("preview.png")));
+        try {
+            return run(l, overrides, rf, o, progressSeconds, table, checkpoints, commandLine, incident, preview);
+        } finally {
+            if (preview != null) {
+                preview.awaitQuietly(); // a failed run: nothing may still write into its folder when it is removed
+            }
+        }
+    }
+
+    private static Finished run(CaseOptions.Loaded l, Map<String, String> overrides, RunFolder rf, PrintWriter o,
+                                double progressSeconds, boolean table, Checkpoints checkpoints, List<String> commandLine,
+                                IncidentPowerCache incident, BesideTheRun preview) throws IOException {
+        CasePlan plan = l.plan();
         CaseSpec s = plan.spec();
         boolean terminal = System.console() != null;
         o.printf(Locale.ROOT, "%s: %d x %d cells of %.4g nm, up to %d steps, %s polarization%s; writing %s%n",
@@ -149,8 +166,8 @@ final class CaseExecution {
         if (s.output().writes(OutputSpec.Item.PROBES)) {
             rf.writeText("probes.csv", RunOutputs.probesCsv(plan.probes()));
         }
-        if (s.output().writes(OutputSpec.Item.PREVIEW)) {
-            RunOutputs.preview(plan, rf.dir().resolve("preview.png"));
+        if (preview != null) {
+            preview.await();
         }
         RunOutputs.writeRunRecord(rf, RunOutputs.runRecord(new RunOutputs.Invocation(BuildInfo.current(), commandLine),
                 l.sha256(), plan, r, settling, l.loaded().diagnostics(), warnings, overrides));

@@ -196,13 +196,14 @@ final class PlaneWaveChecks {
         for (int k = 0; k < flux.frequencies().size(); k++) {
             Value f = flux.frequencies().get(k);
             double s = sin * centre / f.si();
-            String what = String.format("%s (%s)", Units.format(PhysicalConstants.C0 / f.si(), Dimension.LENGTH),
-                    Units.format(f.si(), Dimension.FREQUENCY));
+            // formatted only for a message (a sweep checks every point's frequencies)
+            java.util.function.Supplier<String> what = () -> String.format("%s (%s)",
+                    Units.format(PhysicalConstants.C0 / f.si(), Dimension.LENGTH), Units.format(f.si(), Dimension.FREQUENCY));
             if (w instanceof SourceSpec.PlaneWave && Math.abs(s) >= 1) {
                 double fMin = Math.abs(sin) * centre;
                 error(f.at(), "flux", String.format("at %s the plane wave's in-plane wavenumber exceeds the wavenumber in %s "
                         + "(n = %s): no incident wave propagates there; expected frequencies above %s (wavelengths below %s)",
-                        what, medium.name(), Units.number(n), Units.format(fMin, Dimension.FREQUENCY),
+                        what.get(), medium.name(), Units.number(n), Units.format(fMin, Dimension.FREQUENCY),
                         Units.format(PhysicalConstants.C0 / fMin, Dimension.LENGTH)));
                 continue;
             }
@@ -210,12 +211,12 @@ final class PlaneWaveChecks {
                 double x = (f.si() - centre) / pulse.spectrumSigma();
                 if (Math.exp(-x * x) < MIN_SPECTRAL_POWER) {
                     warn(f.at(), "flux", String.format("at %s the pulse carries %.1e of its peak power; the normalised flux "
-                            + "there is unreliable (widen the bandwidth or move the frequency towards %s)", what, Math.exp(-x * x),
+                            + "there is unreliable (widen the bandwidth or move the frequency towards %s)", what.get(), Math.exp(-x * x),
                             Units.format(PhysicalConstants.C0 / centre, Dimension.LENGTH)));
                 }
             } else if (Math.abs(f.si() / centre - 1) > 1e-9) {
                 warn(f.at(), "flux", String.format("at %s: a ramped wave carries only its own frequency (%s); other frequencies "
-                        + "see only its switch-on", what, Units.format(centre, Dimension.FREQUENCY)));
+                        + "see only its switch-on", what.get(), Units.format(centre, Dimension.FREQUENCY)));
             }
         }
     }
