@@ -74,7 +74,7 @@ final class FluxPlanner {
         sheets.ifPresent(c -> reference.key.method("computed from the beam's sheets, FFT of " + c.size()));
         // a plane wave in one lossless medium, open above and below: the one-dimensional problem in closed form
         Optional<ComputedIncident> computed = sheets.<ComputedIncident>map(c -> c).or(() -> PlaneWaveIncident.of(f, w, medium,
-                materials.get(medium.name()), setup, grid.nx(), dx));
+                materials.get(medium.name()), setup, grid.nx(), dx, dt));
         if (sheets.isEmpty()) {
             computed.ifPresent(c -> reference.key.method("computed from the plane wave's sheet, one wavenumber"));
         }
