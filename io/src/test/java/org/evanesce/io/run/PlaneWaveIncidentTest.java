@@ -31,11 +31,13 @@ import org.junit.jupiter.params.provider.CsvSource;
 class PlaneWaveIncidentTest {
 
     /**
-     * T, R and A, absolute: the issue's bound. Measured (2026-12-04): see the printed lines; at most 1.1e-5 in the
-     * shipped chromium example (A, p; the incident value 8.8e-6 relative, the strip's PML reflections).
+     * T, R and A, absolute: the issue's bound. Measured (2026-12-04): gap s normal 5.5e-6, p 45° 3.9e-6, s 43° 4.8e-6,
+     * chromium s 5.3e-7, p 2.2e-7, gold p 2.2e-6; 1.1e-5 in the shipped chromium example (whose pulse carries 6.6e-5
+     * of its peak at the grazing frequency). What is left is the strip's PML reflections: the gap case with PMLs of
+     * 47 cells instead of 24 came within 6.9e-7 instead of 5.5e-6.
      */
     static final double NORMALISED_TOLERANCE = 1e-4;
-    /** The incident value, relative: the same reasons. */
+    /** The incident value, relative: the same reasons. Measured: at most 6.4e-6 (gap s normal). */
     static final double INCIDENT_TOLERANCE = 1e-4;
 
     private static final String GAP = """
