@@ -74,7 +74,11 @@ class SettlingTest {
 
     @Test
     void aDecayRunCutShortByItsLimitIsFlaggedEverywhereAndAFullOneIsNot() throws IOException {
-        Path c = write("gap.yaml", GAP.replace("STOP", "until: {energy_below: 1e-6, latest: end}"));
+        // the stepped strip (its window cut as short as the run's): a computed incident power is the whole pulse's, so
+        // the short run's R and T then look plausible and only the settling warnings below flag it
+        Path c = write("gap.yaml", GAP.replace("STOP", "until: {energy_below: 1e-6, latest: end}")
+                .replace("measures: transmitted}\n", "measures: transmitted}\n  incident_run: strip\n"));
+        assertTrue(Files.readString(c).contains("incident_run: strip"));
         // 40 fs: the pulse (about 30 fs long) has not yet passed the lines
         Path out = tmp.resolve("short");
         Cli.Outcome o = Cli.run("run", c.toString(), "--set", "end=40fs", "--out", out.toString());

@@ -95,7 +95,9 @@ final class CaseExecution {
                 s.source(), plan.grid().nx(), plan.grid().ny(), plan.grid().cellSize() * 1e9, plan.stop().maxSteps(),
                 s.polarization().value().name().toLowerCase(Locale.ROOT),
                 plan.flux().flatMap(FluxPlan::computed).isPresent()
-                        || plan.surfaces().flatMap(org.evanesce.io.plan.SurfacePlan::computedIncident).isPresent()
+                        ? ", the incident power computed from " + plan.flux().get().computed().get().from()
+                        + " (no incident-power run)"
+                        : plan.surfaces().flatMap(org.evanesce.io.plan.SurfacePlan::computedIncident).isPresent()
                         ? ", the incident power computed from the beam's sheets (no incident-power run)"
                         : plan.referenceRun().isPresent() ? plan.flux().isPresent() || plan.surfaces().orElseThrow().incidentLine()
                         .isPresent() ? ", then an incident-power run" : ", then a run measuring the sources' own power" : "",

@@ -82,7 +82,7 @@ public final class CheckCommand implements Callable<Integer> {
                 double rate = steps / sec;
                 // a flux case runs an incident-power run of the same grid for as many steps (a plane wave's: a strip
                 // of a few columns, counted at its share of the cells), unless the incident power is computed (a pulsed
-                // beam: no stepping)
+                // beam, a plane wave with periodic sides: no stepping)
                 var strip = plan.flux().flatMap(f -> f.strip());
                 boolean computed = plan.flux().flatMap(f -> f.computed()).isPresent();
                 double runs = plan.flux().isEmpty() || computed ? 1 : 1 + (strip.isPresent()

@@ -44,11 +44,13 @@ import org.evanesce.solver.reference.PlanarStack;
  *                       keys and steps give the same numbers
  * @param recorders      every recorder of the incident-power run (its lines, the incident line, a continuous wave's
  *                       halves, the path line) in the order registered: their state is its whole result
- * @param strip          for a plane wave with periodic sides (unless the case asks for {@code incident_run: full}): the
+ * @param strip          for a plane wave with periodic sides whose incident power is not computed (unless the case
+ *                       asks for {@code incident_run: full}): the
  *                       narrow strip whose run gives the recorders' state instead of the full-width incident-power run
- * @param computed       for a pulsed Gaussian beam with PMLs on every side (unless the case asks for {@code incident_run:
- *                       full}): the recorders' state computed from the beam's sheets instead of stepped
- *                       ({@link org.evanesce.solver.source.SheetResponse})
+ * @param computed       for a pulsed Gaussian beam with PMLs on every side, or a plane wave with periodic sides and
+ *                       PMLs above and below (unless the case asks for {@code incident_run: strip} or {@code full}): the
+ *                       recorders' state computed instead of stepped ({@link org.evanesce.solver.source.SheetResponse},
+ *                       {@link org.evanesce.solver.source.PlaneWaveResponse})
  * @param surfacesIncident the incident line of a {@code surfaces} section normalised by the incident power, at its
  *                       frequencies: a recorder of this incident-power run (so reused and stepped on the strip with it)
  */
@@ -57,7 +59,7 @@ public record FluxPlan(double[] frequencies, double kx, String medium, double me
                        Optional<Exact> exact, Optional<SourceSpec.GaussianBeamSource> beam, double gridX0,
                        java.util.function.DoubleBinaryOperator indexAt, Optional<Steady> steady, double lineLength,
                        double sourceAmplitude, Optional<Path> path, String setupKey, List<FluxLine> recorders,
-                       Optional<Strip> strip, Optional<org.evanesce.solver.source.SheetResponse> computed,
+                       Optional<Strip> strip, Optional<org.evanesce.solver.source.ComputedIncident> computed,
                        Optional<FluxLine> surfacesIncident) {
 
     /**

@@ -22,6 +22,7 @@ import org.evanesce.io.casefile.expr.Dimension;
 import org.evanesce.io.casefile.expr.Units;
 import org.evanesce.solver.Simulation;
 import org.evanesce.solver.record.FluxLine;
+import org.evanesce.solver.source.ComputedIncident;
 
 /** Plans a case's flux lines, the incident-power run that normalises them and, for a layered scene, the exact stack. */
 final class FluxPlanner {
@@ -68,12 +69,24 @@ final class FluxPlanner {
         int stride = steady != null ? 1 : MapStride.of(spec.sources().stream().map(x -> x.signal()).toList(), freqs, dt);
         Recorders reference = new Recorders(configured.apply(homogeneous), new IncidentKey(setup, homogeneous), freqs,
                 steady, stride, pol);
-        if (periodic && f.incidentRun().value() == FluxSpec.IncidentRun.AUTO && grid.nx() > STRIP_COLUMNS) {
+        Optional<org.evanesce.solver.source.SheetResponse> sheets = BeamIncident.of(spec, f, w, medium,
+                materials.get(medium.name()), setup, grid.nx());
+        sheets.ifPresent(c -> reference.key.method("computed from the beam's sheets, FFT of " + c.size()));
+        // a plane wave in one lossless medium, open above and below: the one-dimensional problem in closed form
+        Optional<ComputedIncident> computed = sheets.<ComputedIncident>map(c -> c).or(() -> PlaneWaveIncident.of(f, w, medium,
+                materials.get(medium.name()), setup, grid.nx(), dx, dt));
+        if (sheets.isEmpty()) {
+            computed.ifPresent(c -> reference.key.method("computed from the plane wave's sheet, one wavenumber"));
+        }
+        FluxSpec.IncidentRun how = f.incidentRun().value();
+        if (how == FluxSpec.IncidentRun.STRIP && !periodic) {
+            errors.add(new Diagnostic(Diagnostic.Severity.ERROR, f.incidentRun().at(), "flux.incident_run", "'strip' "
+                    + "steps a strip of a plane wave with periodic sides, and this case's source is a " + w.kind()
+                    + "; expected auto or full"));
+        }
+        if (computed.isEmpty() && periodic && how != FluxSpec.IncidentRun.FULL && grid.nx() > STRIP_COLUMNS) {
             reference.strip(setup, materials.get(medium.name()), grid);
         }
-        Optional<org.evanesce.solver.source.SheetResponse> computed = BeamIncident.of(spec, f, w, medium,
-                materials.get(medium.name()), setup, grid.nx());
-        computed.ifPresent(c -> reference.key.method("computed from the beam's sheets, FFT of " + c.size()));
         List<FluxPlan.Line> lines = new ArrayList<>();
         List<FluxLine[]> runHalves = new ArrayList<>();
         List<FluxLine[]> referenceHalves = new ArrayList<>();

@@ -210,7 +210,7 @@ public final class CaseRunner {
                 reference = new double[] {obtained.reused() ? 0 : m.wallSeconds(), m.finalEnergy(), m.peakEnergy()};
                 reason += obtained.reused() ? "; the incident power was reused from an incident-power run of the same set-up "
                         + "and number of steps (" + obtained.origin() + ")" : obtained.computed() ? "; the incident power was "
-                        + "computed from the beam's sheets (no incident-power run)" : "; the incident-power run took the same number of steps"
+                        + "computed from " + obtained.computedFrom() + " (no incident-power run)" : "; the incident-power run took the same number of steps"
                         + (obtained.continuedFrom() >= 0 ? " (continuing from step " + obtained.continuedFrom()
                         + " a state kept by an earlier incident-power run of the same set-up in this process)" : "");
             } else if (plan.surfaces().flatMap(org.evanesce.io.plan.SurfacePlan::computedIncident).isPresent()) {
@@ -244,7 +244,8 @@ public final class CaseRunner {
                                              IncidentPowerCache.Continuation c) {
         org.evanesce.io.plan.FluxPlan f = plan.flux().orElseThrow();
         if (f.computed().isPresent()) {
-            // a pulsed beam in an unbounded medium: the recorders' transforms in closed form, no grid stepped
+            // a pulsed beam in an unbounded medium, a plane wave with periodic sides: the recorders' transforms in closed
+            // form, no grid stepped
             long t0 = System.nanoTime();
             for (org.evanesce.solver.record.FluxLine l : f.recorders()) {
                 f.computed().get().fill(l, steps, plan.dt());

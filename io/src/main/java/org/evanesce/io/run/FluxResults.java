@@ -266,9 +266,12 @@ public record FluxResults(List<String> columns, List<Row> rows, Incident inciden
     /** The "flux" part of summary.json. */
     public Map<String, Object> summary(FluxPlan plan) {
         Map<String, Object> m = new LinkedHashMap<>();
-        m.put("method", plan.computed().isPresent() ? METHOD + " For this pulsed Gaussian beam the incident-power run was "
-                + "computed, not stepped: its lines' transforms are those the beam's sheets give in an unbounded grid of the "
-                + "incident medium (incident_power_obtained says how)." : METHOD);
+        m.put("method", plan.computed().isPresent() && plan.beam().isPresent() ? METHOD + " For this pulsed Gaussian beam "
+                + "the incident-power run was computed, not stepped: its lines' transforms are those the beam's sheets give "
+                + "in an unbounded grid of the incident medium (incident_power_obtained says how)."
+                : plan.computed().isPresent() ? METHOD + " For this plane wave the incident-power run was computed, not "
+                + "stepped: its lines' transforms are those the plane wave's sheet gives in a grid of the incident medium "
+                + "with the same periodic sides, open above and below (incident_power_obtained says how)." : METHOD);
         Map<String, Object> wave = new LinkedHashMap<>();
         wave.put("medium", plan.medium());
         wave.put("medium_index", plan.mediumIndex());

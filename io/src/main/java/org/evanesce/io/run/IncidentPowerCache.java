@@ -26,6 +26,7 @@ import org.evanesce.io.output.SafeFiles;
 import org.evanesce.io.plan.FluxPlan;
 import org.evanesce.io.plan.IncidentKey;
 import org.evanesce.solver.record.FluxLine;
+import org.evanesce.solver.source.ComputedIncident;
 
 /**
  * Incident-power runs done once per distinct set-up: the result of a run (the state of its recorders, its
@@ -81,12 +82,13 @@ public final class IncidentPowerCache {
      * @param measured   the measurement the numbers come from (this run's or the earlier one's)
      * @param strip      whether that measurement stepped a strip of a few columns for a Bloch-periodic plane wave
      *                   (else the full grid)
-     * @param computed   whether it was computed from a pulsed beam's sheets, no grid stepped
+     * @param computed   whether it was computed (from a pulsed beam's sheets or a plane wave's sheet), no grid stepped
      * @param continuedFrom the step this run's own measurement started from (a state kept by an earlier run of the
      *                   same set-up), or −1 (from step 0, or not measured here)
+     * @param computedFrom what a computed one was computed from ({@link ComputedIncident#from}), else empty
      */
     public record Obtained(boolean reused, String key, String origin, Measured measured, boolean strip, boolean computed,
-                           long continuedFrom) {
+                           long continuedFrom, String computedFrom) {
         /** {@code measured}, {@code computed} or {@code reused}, for run.json and summary.json. */
         public String how() {
             return reused ? "reused" : computed ? "computed" : "measured";
@@ -99,7 +101,12 @@ public final class IncidentPowerCache {
             m.put("run", computed ? "computed" : strip ? "strip" : "full");
             m.put("by", (reused ? "the result of an earlier incident-power run with the same key (same grid, medium, "
                     + "sources, boundaries, numerics, lines, frequencies, steps and program build), bit for bit what this "
-                    + "run's own would have been: " : "") + (computed ? "computed, not stepped: the transforms the "
+                    + "run's own would have been: " : "") + (computed && computedFrom.contains("plane wave") ? "computed, not stepped: "
+                    + "the transforms the plane wave's sheet gives on each line of a grid of the incident medium with the "
+                    + "same Bloch-periodic sides, open above and below (the discrete one-dimensional problem of its one "
+                    + "in-plane wavenumber: the grid's own update in the frequency domain, the discrete Green's function "
+                    + "along y, the lines' own sampling), what the strip's run records up to its PMLs' reflections and "
+                    + "rounding" : computed ? "computed, not stepped: the transforms the "
                     + "beam's pulsed sheets give on each line of an unbounded grid of the incident medium (the grid's own "
                     + "update in the frequency domain, one Fourier series along x, the discrete Green's function along y), "
                     + "what an incident-power run of the whole grid records up to its PMLs' reflections and rounding"
@@ -234,7 +241,8 @@ public final class IncidentPowerCache {
         String key = key(plan, steps);
         if (!enabled) {
             return new Obtained(false, key, "measured by this run", measure.apply(new Continuation(null, null)),
-                    plan.strip().isPresent(), plan.computed().isPresent(), -1);
+                    plan.strip().isPresent(), plan.computed().isPresent(), -1,
+                    from(plan));
         }
         synchronized (locks.computeIfAbsent(key, k -> new Object())) {
             List<FluxLine> recorders = plan.recorders();
@@ -250,7 +258,8 @@ public final class IncidentPowerCache {
             if (e != null && fits(e, recorders)) {
                 restore(e, recorders);
                 remember(key, e);
-                return new Obtained(true, key, origin, e.measured(), plan.strip().isPresent(), plan.computed().isPresent(), -1);
+                return new Obtained(true, key, origin, e.measured(), plan.strip().isPresent(), plan.computed().isPresent(), -1,
+                    from(plan));
             }
             Continuation c = new Continuation(this, runKey(plan));
             Measured m = measure.apply(c);
@@ -262,8 +271,13 @@ public final class IncidentPowerCache {
             return new Obtained(false, key, c.continuedFrom() < 0 ? "measured by this run" : "measured by this run, "
                     + "continuing from step " + c.continuedFrom() + " a state kept by an earlier incident-power run of "
                     + "the same set-up in this process", m, plan.strip().isPresent(), plan.computed().isPresent(),
-                    c.continuedFrom());
+                    c.continuedFrom(), from(plan));
         }
+    }
+
+    /** What the plan's incident power is computed from, or empty when it is stepped. */
+    private static String from(FluxPlan plan) {
+        return plan.computed().map(ComputedIncident::from).orElse("");
     }
 
     private Snapshot latest(String runKey, long steps) {

@@ -74,6 +74,7 @@ class IncidentPowerCacheTest {
                 - {name: front, y: front, measures: reflected}
                 - {name: back, y: 0.7 um, measures: transmitted}
               transfer_matrix: true
+              incident_run: strip
             until: STOP
             """;
 
@@ -172,7 +173,7 @@ class IncidentPowerCacheTest {
     private static String timed(boolean strip) {
         String t = text(true).replace("{energy_below: 1e-6, latest: 400 fs}", "{time: dur}")
                 .replace("  bw: 20 nm\n", "  bw: 20 nm\n  dur: 200 fs\n");
-        return strip ? t : t.replace("  transfer_matrix: true\n", "  transfer_matrix: true\n  incident_run: full\n");
+        return strip ? t : t.replace("  incident_run: strip\n", "  incident_run: full\n");
     }
 
     @ParameterizedTest(name = "strip {0}")

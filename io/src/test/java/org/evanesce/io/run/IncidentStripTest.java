@@ -73,7 +73,7 @@ class IncidentStripTest {
     @ParameterizedTest(name = "{0} polarization, pulse {1}")
     @CsvSource({"s, true", "p, true", "s, false", "p, false"})
     void stripAgreesWithTheFullWidth(String pol, boolean pulse) throws Exception {
-        CasePlan strip = plan(pol, pulse, "auto");
+        CasePlan strip = plan(pol, pulse, "strip");
         CasePlan full = plan(pol, pulse, "full");
         assertTrue(strip.flux().orElseThrow().strip().isPresent(), "a periodic plane wave gets the strip");
         assertFalse(full.flux().orElseThrow().strip().isPresent(), "incident_run: full steps the whole grid");

@@ -30,8 +30,9 @@ class SweepIncidentContinuationTest {
     @Test
     void pointsOfOtherLengthsContinueTheIncidentPowerRunAndMatchIndependentRuns() throws IOException {
         String text = SweepCases.gapCase(LENGTHS).replace("until: {energy_below: 1e-6, latest: 400 fs}", "until: {time: dur}")
-                .replace("  theta: 45 deg\n", "  theta: 45 deg\n  dur: 200 fs\n");
-        assertTrue(text.contains("until: {time: dur}") && text.contains("dur: 200 fs"), text);
+                .replace("  theta: 45 deg\n", "  theta: 45 deg\n  dur: 200 fs\n")
+                .replace("  transfer_matrix: true\n", "  transfer_matrix: true\n  incident_run: strip\n");
+        assertTrue(text.contains("until: {time: dur}") && text.contains("dur: 200 fs") && text.contains("incident_run: strip"), text);
         Path c = SweepCases.write(tmp, "timed.yaml", text);
         Path one = tmp.resolve("one");
         SweepCases.Outcome o = SweepCases.ok("sweep", c.toString(), "--out", one.toString(), "--parallel", "1");

@@ -178,6 +178,16 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
         return stride;
     }
 
+    /** The start of the window ({@link #window}), s; −∞ without one. */
+    public double windowStart() {
+        return windowStart;
+    }
+
+    /** The end of the window (exclusive), s; +∞ without one. */
+    public double windowEnd() {
+        return windowEnd;
+    }
+
     @Override
     public boolean prepare(StepView v, int workers) {
         return prepare(v, workers, null);

@@ -34,7 +34,7 @@ import org.jtransforms.fft.DoubleFFT_1D;
  * the sheets' terms. What differs from a stepped run: the stepped run's PMLs reflect a little, its window ends
  * with the run (the pulse must have passed the lines), and its fields are rounded to the run's precision.
  */
-public final class SheetResponse {
+public final class SheetResponse implements ComputedIncident {
 
     private final Polarization pol;
     private final double s;
@@ -86,6 +86,11 @@ public final class SheetResponse {
         return pair && sh.signal() instanceof GaussianPulse;
     }
 
+    @Override
+    public String from() {
+        return "the beam's sheets";
+    }
+
     /** The FFT length along x. */
     public int size() {
         return size;
@@ -95,6 +100,7 @@ public final class SheetResponse {
      * Sets a horizontal line's transforms at each of its frequencies to the computed ones, and its sample counts to
      * {@code steps} (each component is sampled once a step) with time step {@code dt}.
      */
+    @Override
     public void fill(FluxLine line, long steps, double dt) {
         if (line.isVertical() || line.electricComponent().polarization != pol) {
             throw new IllegalArgumentException("sheet response: only a horizontal " + pol + " line is computed");
@@ -115,92 +121,29 @@ public final class SheetResponse {
     double[][] fields(double f, double dt, int row, int i0, int n) {
         double omega = 2 * Math.PI * f;
         double sigma = Math.sin(omega * dt / 2);
-        // A = −2iσ (purely imaginary): keep its imaginary part
-        double aIm = -2 * sigma;
-        // the sheets' transforms along x, by row and kind: [electric | magnetic][re, im interleaved]
+        // the sheets' transforms along x, by row and kind
         int[] rows = new int[sheets.size()];
+        boolean[] electric = new boolean[sheets.size()];
         for (int k = 0; k < sheets.size(); k++) {
             rows[k] = sheets.get(k).cells()[0] / nx;
+            electric[k] = sheets.get(k).component().electric;
         }
         double[][] spectra = spectra(omega);
-        boolean sPol = pol == Polarization.S;
         double[] e = new double[2 * size];
         double[] h = new double[2 * size];
-        double[] u = new double[6]; // U at rows row − 1, row, row + 1 (re, im)
+        double[] vr = new double[sheets.size()];
+        double[] vi = new double[sheets.size()];
+        double[] mode = new double[4];
         for (int m = 0; m < size; m++) {
-            double sx = Math.sin(Math.PI * m / size); // sin(κ/2), κ = 2πm/size
-            double c = 1 + 2 * sx * sx - 2 * sigma * sigma / (s * cb);
-            // the Green's function i e^{iq|d|}/(2 sin q): g0 = i/(2 sin q) and the step factor e^{iq}
-            double g0Re;
-            double g0Im;
-            double stepRe;
-            double stepIm;
-            double decay = 1;
-            if (c >= 1 || c <= -1) {
-                double alpha = acosh(Math.abs(c));
-                double sinh = Math.max(Math.sinh(alpha), 1e-300);
-                g0Re = (c > 0 ? 1 : -1) / (2 * sinh);
-                g0Im = 0;
-                stepRe = c > 0 ? 1 : -1;
-                stepIm = 0;
-                decay = Math.exp(-alpha);
-            } else {
-                double q = Math.acos(c);
-                double sq = Math.max(Math.sin(q), 1e-300);
-                g0Re = 0;
-                g0Im = 1 / (2 * sq);
-                stepRe = Math.cos(q);
-                stepIm = Math.sin(q);
-            }
-            java.util.Arrays.fill(u, 0);
             for (int k = 0; k < sheets.size(); k++) {
-                double vr = spectra[k][2 * m];
-                double vi = spectra[k][2 * m + 1];
-                if (vr == 0 && vi == 0) {
-                    continue;
-                }
-                boolean electric = sheets.get(k).component().electric;
-                int r = rows[k];
-                if (sPol == electric) {
-                    // s: J enters as −(A/S)·J at its row; p: M enters as −(A/c_b)·M at its row
-                    double coef = -aIm / (electric ? s : cb);
-                    // multiply by i·coef
-                    addSource(u, row, r, -coef * vi, coef * vr, g0Re, g0Im, stepRe, stepIm, decay);
-                } else if (sPol) {
-                    // s: M_j − M_{j−1}: +M at its row, −M at the row above
-                    addSource(u, row, r, vr, vi, g0Re, g0Im, stepRe, stepIm, decay);
-                    addSource(u, row, r + 1, -vr, -vi, g0Re, g0Im, stepRe, stepIm, decay);
-                } else {
-                    // p: −(J_{j+1} − J_j): +J at its row, −J at the row below
-                    addSource(u, row, r, vr, vi, g0Re, g0Im, stepRe, stepIm, decay);
-                    addSource(u, row, r - 1, -vr, -vi, g0Re, g0Im, stepRe, stepIm, decay);
-                }
+                vr[k] = spectra[k][2 * m];
+                vi[k] = spectra[k][2 * m + 1];
             }
-            if (sPol) {
-                // E on the line: the mean of Ez on rows row and row + 1; Hx(row) = −(S/A)(Ez(row+1) − Ez(row) + M(row))
-                e[2 * m] = 0.5 * (u[2] + u[4]);
-                e[2 * m + 1] = 0.5 * (u[3] + u[5]);
-                double dr = u[4] - u[2] + sheet(spectra, rows, false, row, m, 0);
-                double di = u[5] - u[3] + sheet(spectra, rows, false, row, m, 1);
-                // −S/A = −S/(i aIm) = i S/aIm
-                double f0 = s / aIm;
-                h[2 * m] = -f0 * di;
-                h[2 * m + 1] = f0 * dr;
-            } else {
-                // η0Hz on the line is U(row); Ex(j) = (c_b/A)(U(j) − U(j−1) − J(j)), averaged over rows row, row + 1
-                h[2 * m] = u[2];
-                h[2 * m + 1] = u[3];
-                double lr = u[2] - u[0] - sheet(spectra, rows, true, row, m, 0);
-                double li = u[3] - u[1] - sheet(spectra, rows, true, row, m, 1);
-                double ur = u[4] - u[2] - sheet(spectra, rows, true, row + 1, m, 0);
-                double ui = u[5] - u[3] - sheet(spectra, rows, true, row + 1, m, 1);
-                // c_b/A = c_b/(i aIm) = −i c_b/aIm
-                double f0 = -cb / aIm;
-                double sr = 0.5 * (lr + ur);
-                double si = 0.5 * (li + ui);
-                e[2 * m] = -f0 * si;
-                e[2 * m + 1] = f0 * sr;
-            }
+            lineMode(pol == Polarization.S, s, cb, sigma, Math.sin(Math.PI * m / size), row, rows, electric, vr, vi, mode);
+            e[2 * m] = mode[0];
+            e[2 * m + 1] = mode[1];
+            h[2 * m] = mode[2];
+            h[2 * m + 1] = mode[3];
         }
         DoubleFFT_1D fft = fft();
         fft.complexInverse(e, true);
@@ -248,12 +191,97 @@ public final class SheetResponse {
         return fft;
     }
 
-    /** The spectrum at mode m of the sheets of one kind on one row (part 0 real, 1 imaginary), summed. */
-    private double sheet(double[][] spectra, int[] rows, boolean electricKind, int row, int m, int part) {
+    /**
+     * One wavenumber κ of the response (see the class comment): {E re, E im, H re, H im} into {@code out} on the line
+     * at y = (row + ½)Δ, from sheets k on rows {@code rows[k]}, electric or magnetic, whose transforms at this κ are
+     * vr[k] + i·vi[k].
+     *
+     * @param s     the Courant number as the kernels hold it
+     * @param cb    S/ε as the kernels hold it
+     * @param sigma sin(ωΔt/2)
+     * @param sx    sin(κ/2)
+     */
+    static void lineMode(boolean sPol, double s, double cb, double sigma, double sx, int row, int[] rows, boolean[] electric,
+                         double[] vr, double[] vi, double[] out) {
+        // A = −2iσ (purely imaginary): keep its imaginary part
+        double aIm = -2 * sigma;
+        double[] u = new double[6]; // U at rows row − 1, row, row + 1 (re, im)
+        double c = 1 + 2 * sx * sx - 2 * sigma * sigma / (s * cb);
+        // the Green's function i e^{iq|d|}/(2 sin q): g0 = i/(2 sin q) and the step factor e^{iq}
+        double g0Re;
+        double g0Im;
+        double stepRe;
+        double stepIm;
+        double decay = 1;
+        if (c >= 1 || c <= -1) {
+            double alpha = acosh(Math.abs(c));
+            double sinh = Math.max(Math.sinh(alpha), 1e-300);
+            g0Re = (c > 0 ? 1 : -1) / (2 * sinh);
+            g0Im = 0;
+            stepRe = c > 0 ? 1 : -1;
+            stepIm = 0;
+            decay = Math.exp(-alpha);
+        } else {
+            double q = Math.acos(c);
+            double sq = Math.max(Math.sin(q), 1e-300);
+            g0Re = 0;
+            g0Im = 1 / (2 * sq);
+            stepRe = Math.cos(q);
+            stepIm = Math.sin(q);
+        }
+        for (int k = 0; k < rows.length; k++) {
+            if (vr[k] == 0 && vi[k] == 0) {
+                continue;
+            }
+            int r = rows[k];
+            if (sPol == electric[k]) {
+                // s: J enters as −(A/S)·J at its row; p: M enters as −(A/c_b)·M at its row
+                double coef = -aIm / (electric[k] ? s : cb);
+                // multiply by i·coef
+                addSource(u, row, r, -coef * vi[k], coef * vr[k], g0Re, g0Im, stepRe, stepIm, decay);
+            } else if (sPol) {
+                // s: M_j − M_{j−1}: +M at its row, −M at the row above
+                addSource(u, row, r, vr[k], vi[k], g0Re, g0Im, stepRe, stepIm, decay);
+                addSource(u, row, r + 1, -vr[k], -vi[k], g0Re, g0Im, stepRe, stepIm, decay);
+            } else {
+                // p: −(J_{j+1} − J_j): +J at its row, −J at the row below
+                addSource(u, row, r, vr[k], vi[k], g0Re, g0Im, stepRe, stepIm, decay);
+                addSource(u, row, r - 1, -vr[k], -vi[k], g0Re, g0Im, stepRe, stepIm, decay);
+            }
+        }
+        if (sPol) {
+            // E on the line: the mean of Ez on rows row and row + 1; Hx(row) = −(S/A)(Ez(row+1) − Ez(row) + M(row))
+            out[0] = 0.5 * (u[2] + u[4]);
+            out[1] = 0.5 * (u[3] + u[5]);
+            double dr = u[4] - u[2] + sheet(rows, electric, vr, false, row);
+            double di = u[5] - u[3] + sheet(rows, electric, vi, false, row);
+            // −S/A = −S/(i aIm) = i S/aIm
+            double f0 = s / aIm;
+            out[2] = -f0 * di;
+            out[3] = f0 * dr;
+        } else {
+            // η0Hz on the line is U(row); Ex(j) = (c_b/A)(U(j) − U(j−1) − J(j)), averaged over rows row, row + 1
+            out[2] = u[2];
+            out[3] = u[3];
+            double lr = u[2] - u[0] - sheet(rows, electric, vr, true, row);
+            double li = u[3] - u[1] - sheet(rows, electric, vi, true, row);
+            double ur = u[4] - u[2] - sheet(rows, electric, vr, true, row + 1);
+            double ui = u[5] - u[3] - sheet(rows, electric, vi, true, row + 1);
+            // c_b/A = c_b/(i aIm) = −i c_b/aIm
+            double f0 = -cb / aIm;
+            double sr = 0.5 * (lr + ur);
+            double si = 0.5 * (li + ui);
+            out[0] = -f0 * si;
+            out[1] = f0 * sr;
+        }
+    }
+
+    /** The sum of the values v[k] of the sheets of one kind on one row. */
+    private static double sheet(int[] rows, boolean[] electric, double[] v, boolean electricKind, int row) {
         double sum = 0;
-        for (int k = 0; k < spectra.length; k++) {
-            if (rows[k] == row && sheets.get(k).component().electric == electricKind) {
-                sum += spectra[k][2 * m + part];
+        for (int k = 0; k < v.length; k++) {
+            if (rows[k] == row && electric[k] == electricKind) {
+                sum += v[k];
             }
         }
         return sum;

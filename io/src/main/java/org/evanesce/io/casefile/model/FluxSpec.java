@@ -38,8 +38,13 @@ public record FluxSpec(List<Value> frequencies, List<Line> lines, Located<Boolea
 
     /** How the incident power is obtained. */
     public enum IncidentRun {
-        /** A plane wave with periodic sides: a strip two cells wide with the same sides; a beam: the full grid. */
+        /**
+         * Computed where the incident medium's response is known in closed form (a plane wave with periodic sides and
+         * PMLs above and below, a pulsed beam with PMLs on every side); else a plane wave's strip, a beam's full grid.
+         */
         AUTO("auto"),
+        /** A plane wave with periodic sides: always the strip a few cells wide with the same sides (stepped). */
+        STRIP("strip"),
         /** Always the full grid filled with the incident medium. */
         FULL("full");
 

@@ -65,7 +65,7 @@ final class FluxReader {
             ok &= b != null;
             tmm = new Located<>(b != null && b, ctx.pos(tn));
         }
-        Located<FluxSpec.IncidentRun> run = incidentRun(ctx, v);
+        Located<FluxSpec.IncidentRun> run = incidentRun(ctx, v, true);
         ok &= run.value() != null;
         Node pn = v.get("reference_permittivity");
         Located<FluxSpec.ReferencePermittivity> eps = new Located<>(FluxSpec.ReferencePermittivity.DISCRETE, v.at());
@@ -93,16 +93,19 @@ final class FluxReader {
      */
     /**
      * The {@code incident_run} key of a section ({@code flux}, {@code surfaces}): {@code auto} when absent; a null
-     * value after an error (reported).
+     * value after an error (reported). {@code strip} (a plane wave's stepped strip) is a choice only where
+     * {@code strip} is true (flux).
      */
-    static Located<FluxSpec.IncidentRun> incidentRun(Context ctx, MapView v) {
+    static Located<FluxSpec.IncidentRun> incidentRun(Context ctx, MapView v, boolean strip) {
         Node rn = v.get("incident_run");
         if (rn == null) {
             return new Located<>(FluxSpec.IncidentRun.AUTO, v.at());
         }
         Map<String, FluxSpec.IncidentRun> runs = new LinkedHashMap<>();
         for (FluxSpec.IncidentRun r : FluxSpec.IncidentRun.values()) {
-            runs.put(r.caseName(), r);
+            if (strip || r != FluxSpec.IncidentRun.STRIP) {
+                runs.put(r.caseName(), r);
+            }
         }
         return new Located<>(ctx.choice(rn, v.path("incident_run"), runs), ctx.pos(rn));
     }

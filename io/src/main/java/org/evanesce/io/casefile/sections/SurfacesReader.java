@@ -73,7 +73,7 @@ final class SurfacesReader {
             ok &= n != null;
             normalise = new Located<>(n, ctx.pos(nn));
         }
-        Located<FluxSpec.IncidentRun> run = FluxReader.incidentRun(ctx, v);
+        Located<FluxSpec.IncidentRun> run = FluxReader.incidentRun(ctx, v, false);
         ok &= run.value() != null;
         List<SurfacesSpec.Segment> segments = new ArrayList<>();
         for (MapView e : entries(v, "segments", Schema.SEGMENT)) {
