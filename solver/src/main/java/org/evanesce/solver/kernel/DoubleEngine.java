@@ -37,6 +37,11 @@ abstract class DoubleEngine extends Engine {
     private final DoubleAde[] ade;
     /** The series sites (a field across a metal's face) of each electric component: null where it has none. */
     private final DoubleSeries[] series;
+    /**
+     * Per row, three slots of ny values: the edge-column values a flat pass overwrites, kept over it
+     * ({@link DoubleFlat}); slot m of row j is {@code keep[m*ny + j]}, so bands never share a slot.
+     */
+    final double[] keep;
 
     /**
      * Arrays for grid's cells with ca and cb of each of its materials (see {@link Engine#create});
@@ -102,11 +107,28 @@ abstract class DoubleEngine extends Engine {
             ade[e.ordinal()] = DoubleAde.of(grid, e, field[e.ordinal()], adeOf, sides, fold[e.ordinal()]);
             dispersive |= ade[e.ordinal()] != null;
         }
+        keep = new double[Layout.KEPT_PER_ROW * ny];
         series = new DoubleSeries[nc];
         for (Component e : el) {
             series[e.ordinal()] = DoubleSeries.of(grid, e, field[e.ordinal()], seriesOf, sides);
             dispersive |= series[e.ordinal()] != null;
         }
+    }
+
+    /**
+     * The end of the run of plain rows from row j: rows in [lo, hi) outside every y-side strip, up to b;
+     * j itself when row j is not one.
+     */
+    final int plainRun(int j, int b, int lo, int hi) {
+        if (j < lo) {
+            return j;
+        }
+        int end = Math.min(b, hi);
+        int r = j;
+        while (r < end && yStripOfRow[r] < 0) {
+            r++;
+        }
+        return Math.max(r, j);
     }
 
     private double[][] arrays(Component[] comps) {
@@ -245,7 +267,7 @@ abstract class DoubleEngine extends Engine {
         for (DoubleStrip y : ys) {
             values += y.values();
         }
-        return values * Double.BYTES + seamBytes() + dispersiveBytes();
+        return (values + keep.length) * Double.BYTES + seamBytes() + dispersiveBytes();
     }
 
     @Override

@@ -37,6 +37,11 @@ abstract class FloatEngine extends Engine {
     private final FloatAde[] ade;
     /** The series sites (a field across a metal's face) of each electric component: null where it has none. */
     private final FloatSeries[] series;
+    /**
+     * Per row, three slots of ny values: the edge-column values a flat pass overwrites, kept over it
+     * ({@link FloatFlat}); slot m of row j is {@code keep[m*ny + j]}, so bands never share a slot.
+     */
+    final float[] keep;
 
     /**
      * Arrays for grid's cells with ca and cb of each of its materials (see {@link Engine#create});
@@ -102,11 +107,28 @@ abstract class FloatEngine extends Engine {
             ade[e.ordinal()] = FloatAde.of(grid, e, field[e.ordinal()], adeOf, sides, fold[e.ordinal()]);
             dispersive |= ade[e.ordinal()] != null;
         }
+        keep = new float[Layout.KEPT_PER_ROW * ny];
         series = new FloatSeries[nc];
         for (Component e : el) {
             series[e.ordinal()] = FloatSeries.of(grid, e, field[e.ordinal()], seriesOf, sides);
             dispersive |= series[e.ordinal()] != null;
         }
+    }
+
+    /**
+     * The end of the run of plain rows from row j: rows in [lo, hi) outside every y-side strip, up to b;
+     * j itself when row j is not one.
+     */
+    final int plainRun(int j, int b, int lo, int hi) {
+        if (j < lo) {
+            return j;
+        }
+        int end = Math.min(b, hi);
+        int r = j;
+        while (r < end && yStripOfRow[r] < 0) {
+            r++;
+        }
+        return Math.max(r, j);
     }
 
     private float[][] arrays(Component[] comps) {
@@ -245,7 +267,7 @@ abstract class FloatEngine extends Engine {
         for (FloatStrip y : ys) {
             values += y.values();
         }
-        return values * Float.BYTES + seamBytes() + dispersiveBytes();
+        return (values + keep.length) * Float.BYTES + seamBytes() + dispersiveBytes();
     }
 
     @Override

@@ -60,9 +60,15 @@ record Layout(int nx, int ny, Polarization pol, int valueBytes, int lanes) {
         return nx * layers;
     }
 
-    /** Bytes of one engine's arrays spanning the grid (three fields, cb, and ca when lossy), with the Bloch seam values. */
+    /** Values per row an engine keeps over a flat pass (edge columns; see {@link FloatFlat}). */
+    static final int KEPT_PER_ROW = 3;
+
+    /**
+     * Bytes of one engine's arrays spanning the grid (three fields, cb, and ca when lossy), with the Bloch
+     * seam values and the values kept over a flat pass.
+     */
     long gridBytes(boolean lossy, boolean blochX) {
-        long values = (long) length() * (3 + electric().length * (lossy ? 2 : 1));
+        long values = (long) length() * (3 + electric().length * (lossy ? 2 : 1)) + (long) KEPT_PER_ROW * ny;
         // Engine.ghostE and ghostW: ny doubles each
         return values * valueBytes + (blochX ? 2L * ny * Double.BYTES : 0);
     }
