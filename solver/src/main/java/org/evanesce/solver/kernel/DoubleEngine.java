@@ -42,6 +42,12 @@ abstract class DoubleEngine extends Engine {
      * ({@link DoubleFlat}); slot m of row j is {@code keep[m*ny + j]}, so bands never share a slot.
      */
     final double[] keep;
+    /**
+     * Whether the rows of the y-side strips are updated in flat runs too (their correction over the run's
+     * cells with per-cell coefficients): on flat engines with Bloch-periodic x sides, where the
+     * correction covers every column of a strip row as the row path's does.
+     */
+    boolean yFlat;
 
     /**
      * Arrays for grid's cells with ca and cb of each of its materials (see {@link Engine#create});
@@ -108,11 +114,51 @@ abstract class DoubleEngine extends Engine {
             dispersive |= ade[e.ordinal()] != null;
         }
         keep = new double[Layout.KEPT_PER_ROW * ny];
+        flatStrips();
         series = new DoubleSeries[nc];
         for (Component e : el) {
             series[e.ordinal()] = DoubleSeries.of(grid, e, field[e.ordinal()], seriesOf, sides);
             dispersive |= series[e.ordinal()] != null;
         }
+    }
+
+    @Override
+    public void flatRuns(boolean on) {
+        super.flatRuns(on);
+        flatStrips();
+    }
+
+    /** Sets {@link #yFlat} from {@link #flat}, making the strips' per-cell coefficients where needed. */
+    private void flatStrips() {
+        yFlat = flat && blochX;
+        if (yFlat) {
+            for (DoubleStrip y : ys) {
+                y.perCell(nx);
+            }
+        }
+    }
+
+    /**
+     * The end of the run of rows from row j that lie in one y strip, in [lo, hi) and at least {@code from}
+     * rows into the strip, up to b; j itself when row j is not one or the strips' rows are not flat.
+     */
+    final int stripRun(int j, int b, int lo, int hi, int from) {
+        if (!yFlat || !inStripRun(j, lo, hi, from)) {
+            return j;
+        }
+        int q = yStripOfRow[j];
+        int end = Math.min(b, hi);
+        int r = j + 1;
+        while (r < end && yStripOfRow[r] == q) {
+            r++;
+        }
+        return r;
+    }
+
+    /** Whether row j is one that {@link #stripRun} covers (so the row path's separate y pass must leave it). */
+    final boolean inStripRun(int j, int lo, int hi, int from) {
+        int q = yStripOfRow[j];
+        return yFlat && q >= 0 && j >= lo && j < hi && j - ys[q].start >= from;
     }
 
     /**

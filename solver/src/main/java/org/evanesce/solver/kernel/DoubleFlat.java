@@ -118,4 +118,77 @@ final class DoubleFlat {
             ey[k] = ca[k] * ey[k] - cb[k] * (hz[k] - hz[k - 1]);
         }
     }
+
+    /**
+     * CPML correction of a magnetic component along y over cells [k0, k1) of one strip's rows, as
+     * {@link DoubleKernels#pmlYH} does row by row: d = g(k+nx) − g(k), ψ ← bψ + c·d (flushed below
+     * {@link DoubleKernels#TINY}), f += coef·(kappaTerm·d + ψ), with cell k's ψ and per-cell coefficients
+     * ({@link DoubleStrip#perCell}) at k − base.
+     */
+    static void yH(double[] f, double[] g, double coef, int nx, int k0, int k1, int base, DoubleStrip st, int vl) {
+        double[] psi = st.psiH;
+        double[] b = st.bHc;
+        double[] c = st.cHc;
+        double[] kt = st.kHc;
+        int k = k0;
+        if (vl <= k1 - k0) {
+            DoubleVector vc = DoubleVector.broadcast(SP, coef);
+            for (; k <= k1 - vl; k += VL) {
+                int p = k - base;
+                DoubleVector d = DoubleVector.fromArray(SP, g, k + nx).sub(DoubleVector.fromArray(SP, g, k));
+                DoubleVector ps = DoubleVector.fromArray(SP, b, p).mul(DoubleVector.fromArray(SP, psi, p))
+                        .add(DoubleVector.fromArray(SP, c, p).mul(d));
+                ps = ps.blend(0.0, ps.abs().lt(DoubleKernels.TINY));
+                ps.intoArray(psi, p);
+                DoubleVector.fromArray(SP, f, k).add(vc.mul(DoubleVector.fromArray(SP, kt, p).mul(d).add(ps)))
+                        .intoArray(f, k);
+            }
+        }
+        for (; k < k1; k++) {
+            int p = k - base;
+            double d = g[k + nx] - g[k];
+            double ps = b[p] * psi[p] + c[p] * d;
+            if (Math.abs(ps) < DoubleKernels.TINY) {
+                ps = 0.0;
+            }
+            psi[p] = ps;
+            f[k] = f[k] + coef * (kt[p] * d + ps);
+        }
+    }
+
+    /**
+     * CPML correction of an electric component along y over cells [k0, k1) of one strip's rows, as
+     * {@link DoubleKernels#pmlYE} does row by row: d = g(k) − g(k−nx), f ± = cb·(kappaTerm·d + ψ)
+     * (subtracted when {@code subtract}); ψ and coefficients as {@link #yH}.
+     */
+    static void yE(double[] f, double[] g, double[] cb, boolean subtract, int nx, int k0, int k1, int base, DoubleStrip st,
+                   int vl) {
+        double[] psi = st.psiE;
+        double[] b = st.bEc;
+        double[] c = st.cEc;
+        double[] kt = st.kEc;
+        int k = k0;
+        for (; k <= k1 - vl; k += VL) {
+            int p = k - base;
+            DoubleVector d = DoubleVector.fromArray(SP, g, k).sub(DoubleVector.fromArray(SP, g, k - nx));
+            DoubleVector ps = DoubleVector.fromArray(SP, b, p).mul(DoubleVector.fromArray(SP, psi, p))
+                    .add(DoubleVector.fromArray(SP, c, p).mul(d));
+            ps = ps.blend(0.0, ps.abs().lt(DoubleKernels.TINY));
+            ps.intoArray(psi, p);
+            DoubleVector t = DoubleVector.fromArray(SP, cb, k).mul(DoubleVector.fromArray(SP, kt, p).mul(d).add(ps));
+            DoubleVector fv = DoubleVector.fromArray(SP, f, k);
+            (subtract ? fv.sub(t) : fv.add(t)).intoArray(f, k);
+        }
+        for (; k < k1; k++) {
+            int p = k - base;
+            double d = g[k] - g[k - nx];
+            double ps = b[p] * psi[p] + c[p] * d;
+            if (Math.abs(ps) < DoubleKernels.TINY) {
+                ps = 0.0;
+            }
+            psi[p] = ps;
+            double t = cb[k] * (kt[p] * d + ps);
+            f[k] = subtract ? f[k] - t : f[k] + t;
+        }
+    }
 }

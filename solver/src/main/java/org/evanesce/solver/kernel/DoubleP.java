@@ -52,9 +52,16 @@ final class DoubleP extends DoubleEngine {
         int hb = Math.min(b, ny - 1); // Hz lives on rows 0..ny-2
         for (int j = a; j < hb; ) {
             int r = flat ? plainRun(j, hb, 0, ny - 1) : j;
+            int y = r > j ? j : stripRun(j, hb, 0, ny - 1, 0);
             if (r > j) {
                 hFlat(j, r);
                 j = r;
+            } else if (y > j) {
+                // the strip's rows: the plain update, then the correction of Hz (all columns)
+                hFlat(j, y);
+                DoubleStrip st = ys[yStripOfRow[j]];
+                DoubleFlat.yH(hz, ex, s, nx, j * nx, y * nx, st.start * nx, st, vl);
+                j = y;
             } else {
                 hCore(j++);
             }
@@ -62,7 +69,7 @@ final class DoubleP extends DoubleEngine {
         hStrips(a, hb);
         double max = 0;
         for (int j = a; j < b; j++) {
-            if (j < hb) {
+            if (j < hb && !inStripRun(j, 0, ny - 1, 0)) {
                 hYStrip(j);
             }
             max = Math.max(max, hFinish(j, flush));
@@ -136,9 +143,16 @@ final class DoubleP extends DoubleEngine {
     protected double eRows(int a, int b, boolean flush) {
         for (int j = a; j < b; ) {
             int r = flat ? plainRun(j, b, 1, ny - 1) : j;
+            int y = r > j ? j : stripRun(j, b, 1, ny - 1, 1);
             if (r > j) {
                 eFlat(j, r);
                 j = r;
+            } else if (y > j) {
+                // the strip's interior rows past its first: the plain update, then the correction of Ex (all columns)
+                eFlat(j, y);
+                DoubleStrip st = ys[yStripOfRow[j]];
+                DoubleFlat.yE(ex, hz, cbx, false, nx, j * nx, y * nx, st.start * nx, st, vl);
+                j = y;
             } else {
                 eCore(j++);
             }

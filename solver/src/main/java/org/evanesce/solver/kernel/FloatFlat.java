@@ -118,4 +118,77 @@ final class FloatFlat {
             ey[k] = ca[k] * ey[k] - cb[k] * (hz[k] - hz[k - 1]);
         }
     }
+
+    /**
+     * CPML correction of a magnetic component along y over cells [k0, k1) of one strip's rows, as
+     * {@link FloatKernels#pmlYH} does row by row: d = g(k+nx) − g(k), ψ ← bψ + c·d (flushed below
+     * {@link FloatKernels#TINY}), f += coef·(kappaTerm·d + ψ), with cell k's ψ and per-cell coefficients
+     * ({@link FloatStrip#perCell}) at k − base.
+     */
+    static void yH(float[] f, float[] g, float coef, int nx, int k0, int k1, int base, FloatStrip st, int vl) {
+        float[] psi = st.psiH;
+        float[] b = st.bHc;
+        float[] c = st.cHc;
+        float[] kt = st.kHc;
+        int k = k0;
+        if (vl <= k1 - k0) {
+            FloatVector vc = FloatVector.broadcast(SP, coef);
+            for (; k <= k1 - vl; k += VL) {
+                int p = k - base;
+                FloatVector d = FloatVector.fromArray(SP, g, k + nx).sub(FloatVector.fromArray(SP, g, k));
+                FloatVector ps = FloatVector.fromArray(SP, b, p).mul(FloatVector.fromArray(SP, psi, p))
+                        .add(FloatVector.fromArray(SP, c, p).mul(d));
+                ps = ps.blend(0f, ps.abs().lt(FloatKernels.TINY));
+                ps.intoArray(psi, p);
+                FloatVector.fromArray(SP, f, k).add(vc.mul(FloatVector.fromArray(SP, kt, p).mul(d).add(ps)))
+                        .intoArray(f, k);
+            }
+        }
+        for (; k < k1; k++) {
+            int p = k - base;
+            float d = g[k + nx] - g[k];
+            float ps = b[p] * psi[p] + c[p] * d;
+            if (Math.abs(ps) < FloatKernels.TINY) {
+                ps = 0f;
+            }
+            psi[p] = ps;
+            f[k] = f[k] + coef * (kt[p] * d + ps);
+        }
+    }
+
+    /**
+     * CPML correction of an electric component along y over cells [k0, k1) of one strip's rows, as
+     * {@link FloatKernels#pmlYE} does row by row: d = g(k) − g(k−nx), f ± = cb·(kappaTerm·d + ψ)
+     * (subtracted when {@code subtract}); ψ and coefficients as {@link #yH}.
+     */
+    static void yE(float[] f, float[] g, float[] cb, boolean subtract, int nx, int k0, int k1, int base, FloatStrip st,
+                   int vl) {
+        float[] psi = st.psiE;
+        float[] b = st.bEc;
+        float[] c = st.cEc;
+        float[] kt = st.kEc;
+        int k = k0;
+        for (; k <= k1 - vl; k += VL) {
+            int p = k - base;
+            FloatVector d = FloatVector.fromArray(SP, g, k).sub(FloatVector.fromArray(SP, g, k - nx));
+            FloatVector ps = FloatVector.fromArray(SP, b, p).mul(FloatVector.fromArray(SP, psi, p))
+                    .add(FloatVector.fromArray(SP, c, p).mul(d));
+            ps = ps.blend(0f, ps.abs().lt(FloatKernels.TINY));
+            ps.intoArray(psi, p);
+            FloatVector t = FloatVector.fromArray(SP, cb, k).mul(FloatVector.fromArray(SP, kt, p).mul(d).add(ps));
+            FloatVector fv = FloatVector.fromArray(SP, f, k);
+            (subtract ? fv.sub(t) : fv.add(t)).intoArray(f, k);
+        }
+        for (; k < k1; k++) {
+            int p = k - base;
+            float d = g[k] - g[k - nx];
+            float ps = b[p] * psi[p] + c[p] * d;
+            if (Math.abs(ps) < FloatKernels.TINY) {
+                ps = 0f;
+            }
+            psi[p] = ps;
+            float t = cb[k] * (kt[p] * d + ps);
+            f[k] = subtract ? f[k] - t : f[k] + t;
+        }
+    }
 }

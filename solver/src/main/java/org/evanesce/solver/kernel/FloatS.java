@@ -44,9 +44,16 @@ final class FloatS extends FloatEngine {
     protected double hRows(int a, int b, boolean flush) {
         for (int j = a; j < b; ) {
             int r = flat ? plainRun(j, b, 0, ny - 1) : j;
+            int y = r > j ? j : stripRun(j, b, 0, ny - 1, 0);
             if (r > j) {
                 hFlat(j, r);
                 j = r;
+            } else if (y > j) {
+                // the strip's rows: the plain update, then the correction of Hx (all columns)
+                hFlat(j, y);
+                FloatStrip st = ys[yStripOfRow[j]];
+                FloatFlat.yH(hx, ez, -s, nx, j * nx, y * nx, st.start * nx, st, vl);
+                j = y;
             } else {
                 hCore(j++);
             }
@@ -115,9 +122,16 @@ final class FloatS extends FloatEngine {
     protected double eRows(int a, int b, boolean flush) {
         for (int j = a; j < b; ) {
             int r = flat ? plainRun(j, b, 1, ny - 1) : j;
+            int y = r > j ? j : stripRun(j, b, 1, ny - 1, 1);
             if (r > j) {
                 eFlat(j, r);
                 j = r;
+            } else if (y > j) {
+                // the strip's interior rows past its first: the plain update, then the correction (all columns)
+                eFlat(j, y);
+                FloatStrip st = ys[yStripOfRow[j]];
+                FloatFlat.yE(ez, hx, cb, true, nx, j * nx, y * nx, st.start * nx, st, vl);
+                j = y;
             } else {
                 eCore(j++);
             }
@@ -126,7 +140,7 @@ final class FloatS extends FloatEngine {
         eStrips(Math.max(a, pmcBottom ? 0 : 1), Math.min(b, pmcTop ? ny : ny - 1));
         double max = 0;
         for (int j = a; j < b; j++) {
-            if (eUpdated(j)) {
+            if (eUpdated(j) && !inStripRun(j, 1, ny - 1, 1)) {
                 eYStrip(j);
             }
             max = Math.max(max, eFinish(j, flush));
