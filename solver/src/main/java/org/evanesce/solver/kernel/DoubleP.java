@@ -96,7 +96,8 @@ final class DoubleP extends DoubleEngine {
     }
 
     /**
-     * hCore of the plain rows [r0, r1) (rows ≤ ny−2 outside the y strips) as one flat pass: the last
+     * The plain magnetic update of rows [r0, r1), all ≤ ny−2 (plain rows, or a y strip's rows whose
+     * correction follows) as one flat pass: the last
      * column's Hz, which the pass computes from the next row's first Ey, is put back and updated as
      * hCore does (left alone, or from the Bloch seam).
      */
@@ -206,7 +207,8 @@ final class DoubleP extends DoubleEngine {
     }
 
     /**
-     * eCore of the interior plain rows [r0, r1) as one flat pass of Ex and one of Ey. Put back after
+     * The plain electric update of interior rows [r0, r1) (plain rows, or a y strip's rows whose correction
+     * of Ex follows) as one flat pass of Ex and one of Ey. Put back after
      * them: Ex of column nx − 1 unless the Bloch seam updates it (the pass computed it as eCore does);
      * Ey of column 0 (computed from the row before's last Hz), then updated as eCore does on a PMC
      * wall or the seam; Ey of column nx − 1 where eCore leaves it alone.

@@ -85,7 +85,8 @@ final class FloatS extends FloatEngine {
     }
 
     /**
-     * hCore of the plain rows [r0, r1) (below the last row, outside the y strips) as one flat pass:
+     * The plain magnetic update of rows [r0, r1) below the last row (plain rows, or a y strip's rows whose
+     * correction follows) as one flat pass:
      * the last column's Hy, which the pass computes from the next row's first Ez, is put back and
      * updated as hCore does (left alone, or from the Bloch seam).
      */
@@ -184,7 +185,8 @@ final class FloatS extends FloatEngine {
     }
 
     /**
-     * eCore of the interior plain rows [r0, r1) as one flat pass: column 0 (which the pass computes
+     * The plain electric update of interior rows [r0, r1) (plain rows, or a y strip's rows whose correction
+     * follows) as one flat pass: column 0 (which the pass computes
      * from the row before's last Hy) is put back and, on a PMC wall or the Bloch seam, updated as
      * eCore does; column nx − 1 is put back where eCore leaves it alone (elsewhere the pass computed
      * it as eCore does).
