@@ -141,7 +141,7 @@ final class DoubleS extends DoubleEngine {
         eStrips(Math.max(a, pmcBottom ? 0 : 1), Math.min(b, pmcTop ? ny : ny - 1));
         double max = 0;
         for (int j = a; j < b; j++) {
-            if (eUpdated(j) && !inStripRun(j, 1, ny - 1, 1)) {
+            if (eUpdated(j) && !yFlat) { // with yFlat, stripRun corrected every strip row that has a correction
                 eYStrip(j);
             }
             max = Math.max(max, eFinish(j, flush));

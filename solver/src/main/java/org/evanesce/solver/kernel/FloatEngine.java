@@ -141,24 +141,21 @@ abstract class FloatEngine extends Engine {
     /**
      * The end of the run of rows from row j that lie in one y strip, in [lo, hi) and at least {@code from}
      * rows into the strip, up to b; j itself when row j is not one or the strips' rows are not flat.
+     * With {@link #yFlat}, the engines' runs start at every strip row that has a y correction (magnetic
+     * rows below ny − 1, interior electric rows past a strip's first), so their separate y pass has
+     * nothing left to do.
      */
     final int stripRun(int j, int b, int lo, int hi, int from) {
-        if (!yFlat || !inStripRun(j, lo, hi, from)) {
+        int q = yStripOfRow[j];
+        if (!yFlat || q < 0 || j < lo || j >= hi || j - ys[q].start < from) {
             return j;
         }
-        int q = yStripOfRow[j];
         int end = Math.min(b, hi);
         int r = j + 1;
         while (r < end && yStripOfRow[r] == q) {
             r++;
         }
         return r;
-    }
-
-    /** Whether row j is one that {@link #stripRun} covers (so the row path's separate y pass must leave it). */
-    final boolean inStripRun(int j, int lo, int hi, int from) {
-        int q = yStripOfRow[j];
-        return yFlat && q >= 0 && j >= lo && j < hi && j - ys[q].start >= from;
     }
 
     /**

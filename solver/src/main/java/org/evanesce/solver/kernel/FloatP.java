@@ -69,7 +69,7 @@ final class FloatP extends FloatEngine {
         hStrips(a, hb);
         double max = 0;
         for (int j = a; j < b; j++) {
-            if (j < hb && !inStripRun(j, 0, ny - 1, 0)) {
+            if (j < hb && !yFlat) { // with yFlat, stripRun corrected every strip row below hb
                 hYStrip(j);
             }
             max = Math.max(max, hFinish(j, flush));
