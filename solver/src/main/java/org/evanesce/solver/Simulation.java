@@ -115,6 +115,9 @@ public final class Simulation implements StepView, AutoCloseable {
         if (b.vectorsFromStart) {
             engine.vectorAfter(0);
         }
+        if (b.flatRuns != null) {
+            engine.flatRuns(b.flatRuns);
+        }
         sourceTermStart = new int[sources.length + 1];
         int n = 0;
         double amplitudeSum = 0;
@@ -594,6 +597,7 @@ public final class Simulation implements StepView, AutoCloseable {
         private final List<StepListener> listeners = new ArrayList<>();
         private int flushInterval = 64;
         private boolean vectorsFromStart;
+        private Boolean flatRuns;
         private double divergenceLimit;
         private final Map<Integer, DispersiveMaterial> dispersive = new TreeMap<>();
         private final Map<Integer, SeriesMaterial> series = new TreeMap<>();
@@ -718,6 +722,15 @@ public final class Simulation implements StepView, AutoCloseable {
          */
         public Builder vectorsFromStart() {
             vectorsFromStart = true;
+            return this;
+        }
+
+        /**
+         * Whether plain rows are updated in flat runs (see Engine.FLAT_BELOW; same bits either way), rather
+         * than as the grid's width decides: for tests that compare both paths, and measurements.
+         */
+        public Builder flatRuns(boolean on) {
+            flatRuns = on;
             return this;
         }
 

@@ -59,23 +59,66 @@ final class BlochPair extends Engine {
     }
 
     @Override
+    public void flatRuns(boolean on) {
+        super.flatRuns(on);
+        re.flatRuns(on);
+        im.flatRuns(on);
+    }
+
+    @Override
     protected double hRowFull(int j, boolean flush) {
-        int k = j * nx;
-        double a = re.get(seamE, k);
-        double b = im.get(seamE, k);
-        re.ghostE[j] = cos * a - sin * b;
-        im.ghostE[j] = sin * a + cos * b;
+        seamEast(j);
         return Math.max(re.hRowFull(j, flush), im.hRowFull(j, flush));
     }
 
     @Override
     protected double eRowFull(int j, boolean flush) {
+        seamWest(j);
+        return Math.max(re.eRowFull(j, flush), im.eRowFull(j, flush));
+    }
+
+    /**
+     * The magnetic rows [a, b) of both parts, each part's rows at once (its own blocking and flat runs):
+     * the seam values east of the last column come from the old E of column 0, which no magnetic row
+     * changes, so forming them all first gives each row the value it got row by row.
+     */
+    @Override
+    protected double hRows(int a, int b, boolean flush) {
+        for (int j = a; j < b; j++) {
+            seamEast(j);
+        }
+        return Math.max(re.hRows(a, b, flush), im.hRows(a, b, flush));
+    }
+
+    /**
+     * The electric rows [a, b) of both parts, each part's rows at once: the seam values west of column 0
+     * come from the new H of the last column, complete (sources included) for every row of the block
+     * before its electric rows start, and no electric row changes them.
+     */
+    @Override
+    protected double eRows(int a, int b, boolean flush) {
+        for (int j = a; j < b; j++) {
+            seamWest(j);
+        }
+        return Math.max(re.eRows(a, b, flush), im.eRows(a, b, flush));
+    }
+
+    /** Row j's electric value east of the last column, one period on from column 0, for both parts. */
+    private void seamEast(int j) {
+        int k = j * nx;
+        double a = re.get(seamE, k);
+        double b = im.get(seamE, k);
+        re.ghostE[j] = cos * a - sin * b;
+        im.ghostE[j] = sin * a + cos * b;
+    }
+
+    /** Row j's magnetic value west of column 0, one period back from the last column, for both parts. */
+    private void seamWest(int j) {
         int k = j * nx + nx - 1;
         double a = re.get(seamH, k);
         double b = im.get(seamH, k);
         re.ghostW[j] = cos * a + sin * b;
         im.ghostW[j] = -sin * a + cos * b;
-        return Math.max(re.eRowFull(j, flush), im.eRowFull(j, flush));
     }
 
     @Override

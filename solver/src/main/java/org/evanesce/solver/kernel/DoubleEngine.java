@@ -37,6 +37,17 @@ abstract class DoubleEngine extends Engine {
     private final DoubleAde[] ade;
     /** The series sites (a field across a metal's face) of each electric component: null where it has none. */
     private final DoubleSeries[] series;
+    /**
+     * Per row, three slots of ny values: the edge-column values a flat pass overwrites, kept over it
+     * ({@link DoubleFlat}); slot m of row j is {@code keep[m*ny + j]}, so bands never share a slot.
+     */
+    final double[] keep;
+    /**
+     * Whether the rows of the y-side strips are updated in flat runs too (their correction over the run's
+     * cells with per-cell coefficients): on flat engines with Bloch-periodic x sides, where the
+     * correction covers every column of a strip row as the row path's does.
+     */
+    boolean yFlat;
 
     /**
      * Arrays for grid's cells with ca and cb of each of its materials (see {@link Engine#create});
@@ -102,11 +113,65 @@ abstract class DoubleEngine extends Engine {
             ade[e.ordinal()] = DoubleAde.of(grid, e, field[e.ordinal()], adeOf, sides, fold[e.ordinal()]);
             dispersive |= ade[e.ordinal()] != null;
         }
+        keep = new double[Layout.KEPT_PER_ROW * ny];
+        flatStrips();
         series = new DoubleSeries[nc];
         for (Component e : el) {
             series[e.ordinal()] = DoubleSeries.of(grid, e, field[e.ordinal()], seriesOf, sides);
             dispersive |= series[e.ordinal()] != null;
         }
+    }
+
+    @Override
+    public void flatRuns(boolean on) {
+        super.flatRuns(on);
+        flatStrips();
+    }
+
+    /** Sets {@link #yFlat} from {@link #flat}, making the strips' per-cell coefficients where needed. */
+    private void flatStrips() {
+        yFlat = flat && blochX;
+        if (yFlat) {
+            for (DoubleStrip y : ys) {
+                y.perCell(nx);
+            }
+        }
+    }
+
+    /**
+     * The end of the run of rows from row j that lie in one y strip, in [lo, hi) and at least {@code from}
+     * rows into the strip, up to b; j itself when row j is not one or the strips' rows are not flat.
+     * With {@link #yFlat}, the engines' runs start at every strip row that has a y correction (magnetic
+     * rows below ny − 1, interior electric rows past a strip's first), so their separate y pass has
+     * nothing left to do.
+     */
+    final int stripRun(int j, int b, int lo, int hi, int from) {
+        int q = yStripOfRow[j];
+        if (!yFlat || q < 0 || j < lo || j >= hi || j - ys[q].start < from) {
+            return j;
+        }
+        int end = Math.min(b, hi);
+        int r = j + 1;
+        while (r < end && yStripOfRow[r] == q) {
+            r++;
+        }
+        return r;
+    }
+
+    /**
+     * The end of the run of plain rows from row j: rows in [lo, hi) outside every y-side strip, up to b;
+     * j itself when row j is not one.
+     */
+    final int plainRun(int j, int b, int lo, int hi) {
+        if (j < lo) {
+            return j;
+        }
+        int end = Math.min(b, hi);
+        int r = j;
+        while (r < end && yStripOfRow[r] < 0) {
+            r++;
+        }
+        return Math.max(r, j);
     }
 
     private double[][] arrays(Component[] comps) {
@@ -245,7 +310,7 @@ abstract class DoubleEngine extends Engine {
         for (DoubleStrip y : ys) {
             values += y.values();
         }
-        return values * Double.BYTES + seamBytes() + dispersiveBytes();
+        return (values + keep.length) * Double.BYTES + seamBytes() + dispersiveBytes();
     }
 
     @Override

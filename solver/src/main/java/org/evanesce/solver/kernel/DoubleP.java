@@ -50,13 +50,26 @@ final class DoubleP extends DoubleEngine {
     @Override
     protected double hRows(int a, int b, boolean flush) {
         int hb = Math.min(b, ny - 1); // Hz lives on rows 0..ny-2
-        for (int j = a; j < hb; j++) {
-            hCore(j);
+        for (int j = a; j < hb; ) {
+            int r = flat ? plainRun(j, hb, 0, ny - 1) : j;
+            int y = r > j ? j : stripRun(j, hb, 0, ny - 1, 0);
+            if (r > j) {
+                hFlat(j, r);
+                j = r;
+            } else if (y > j) {
+                // the strip's rows: the plain update, then the correction of Hz (all columns)
+                hFlat(j, y);
+                DoubleStrip st = ys[yStripOfRow[j]];
+                DoubleFlat.yH(hz, ex, s, nx, j * nx, y * nx, st.start * nx, st, vl);
+                j = y;
+            } else {
+                hCore(j++);
+            }
         }
         hStrips(a, hb);
         double max = 0;
         for (int j = a; j < b; j++) {
-            if (j < hb) {
+            if (j < hb && !yFlat) { // with yFlat, stripRun corrected every strip row below hb
                 hYStrip(j);
             }
             max = Math.max(max, hFinish(j, flush));
@@ -79,6 +92,26 @@ final class DoubleP extends DoubleEngine {
         if (blochX) {
             int k = j * nx + nx - 1;
             hz[k] += s * ((ex[k + nx] - ex[k]) - (ghostE[j] - ey[k]));
+        }
+    }
+
+    /**
+     * The plain magnetic update of rows [r0, r1), all ≤ ny−2 (plain rows, or a y strip's rows whose
+     * correction follows) as one flat pass: the last
+     * column's Hz, which the pass computes from the next row's first Ey, is put back and updated as
+     * hCore does (left alone, or from the Bloch seam).
+     */
+    private void hFlat(int r0, int r1) {
+        for (int j = r0; j < r1; j++) {
+            keep[j] = hz[j * nx + nx - 1];
+        }
+        DoubleFlat.pH(hz, ex, ey, nx, r0 * nx, r1 * nx, s, vl);
+        for (int j = r0; j < r1; j++) {
+            int k = j * nx + nx - 1;
+            hz[k] = keep[j];
+            if (blochX) {
+                hz[k] += s * ((ex[k + nx] - ex[k]) - (ghostE[j] - ey[k]));
+            }
         }
     }
 
@@ -109,8 +142,21 @@ final class DoubleP extends DoubleEngine {
 
     @Override
     protected double eRows(int a, int b, boolean flush) {
-        for (int j = a; j < b; j++) {
-            eCore(j);
+        for (int j = a; j < b; ) {
+            int r = flat ? plainRun(j, b, 1, ny - 1) : j;
+            int y = r > j ? j : stripRun(j, b, 1, ny - 1, 1);
+            if (r > j) {
+                eFlat(j, r);
+                j = r;
+            } else if (y > j) {
+                // the strip's interior rows past its first: the plain update, then the correction of Ex (all columns)
+                eFlat(j, y);
+                DoubleStrip st = ys[yStripOfRow[j]];
+                DoubleFlat.yE(ex, hz, cbx, false, nx, j * nx, y * nx, st.start * nx, st, vl);
+                j = y;
+            } else {
+                eCore(j++);
+            }
         }
         eStrips(a, Math.min(b, ny - 1));
         double max = 0;
@@ -156,6 +202,38 @@ final class DoubleP extends DoubleEngine {
             }
             if (pmcRight || blochX) {
                 DoubleKernels.pEyEdge(hz, ey, cay, cby, nx, nx - 1, j, 0.0);
+            }
+        }
+    }
+
+    /**
+     * The plain electric update of interior rows [r0, r1) (plain rows, or a y strip's rows whose correction
+     * of Ex follows) as one flat pass of Ex and one of Ey. Put back after
+     * them: Ex of column nx − 1 unless the Bloch seam updates it (the pass computed it as eCore does);
+     * Ey of column 0 (computed from the row before's last Hz), then updated as eCore does on a PMC
+     * wall or the seam; Ey of column nx − 1 where eCore leaves it alone.
+     */
+    private void eFlat(int r0, int r1) {
+        boolean first = pmcLeft || blochX;
+        boolean last = pmcRight || blochX;
+        for (int j = r0; j < r1; j++) {
+            keep[j] = ex[j * nx + nx - 1];
+            keep[ny + j] = ey[j * nx];
+            keep[2 * ny + j] = ey[j * nx + nx - 1];
+        }
+        DoubleFlat.pEx(hz, ex, cax, cbx, nx, r0 * nx, r1 * nx, vl);
+        DoubleFlat.pEy(hz, ey, cay, cby, r0 * nx, r1 * nx, vl);
+        for (int j = r0; j < r1; j++) {
+            int k = j * nx;
+            if (!blochX) {
+                ex[k + nx - 1] = keep[j];
+            }
+            ey[k] = keep[ny + j];
+            if (first) {
+                DoubleKernels.pEyEdge(hz, ey, cay, cby, nx, 0, j, blochX ? ghostW[j] : 0.0);
+            }
+            if (!last) {
+                ey[k + nx - 1] = keep[2 * ny + j];
             }
         }
     }

@@ -42,8 +42,21 @@ final class DoubleS extends DoubleEngine {
 
     @Override
     protected double hRows(int a, int b, boolean flush) {
-        for (int j = a; j < b; j++) {
-            hCore(j);
+        for (int j = a; j < b; ) {
+            int r = flat ? plainRun(j, b, 0, ny - 1) : j;
+            int y = r > j ? j : stripRun(j, b, 0, ny - 1, 0);
+            if (r > j) {
+                hFlat(j, r);
+                j = r;
+            } else if (y > j) {
+                // the strip's rows: the plain update, then the correction of Hx (all columns)
+                hFlat(j, y);
+                DoubleStrip st = ys[yStripOfRow[j]];
+                DoubleFlat.yH(hx, ez, -s, nx, j * nx, y * nx, st.start * nx, st, vl);
+                j = y;
+            } else {
+                hCore(j++);
+            }
         }
         hStrips(a, b);
         double max = 0;
@@ -71,6 +84,26 @@ final class DoubleS extends DoubleEngine {
         }
     }
 
+    /**
+     * The plain magnetic update of rows [r0, r1) below the last row (plain rows, or a y strip's rows whose
+     * correction follows) as one flat pass:
+     * the last column's Hy, which the pass computes from the next row's first Ez, is put back and
+     * updated as hCore does (left alone, or from the Bloch seam).
+     */
+    private void hFlat(int r0, int r1) {
+        for (int j = r0; j < r1; j++) {
+            keep[j] = hy[j * nx + nx - 1];
+        }
+        DoubleFlat.sH(ez, hx, hy, nx, r0 * nx, r1 * nx, s, vl);
+        for (int j = r0; j < r1; j++) {
+            int k = j * nx + nx - 1;
+            hy[k] = keep[j];
+            if (blochX) {
+                hy[k] += s * (ghostE[j] - ez[k]);
+            }
+        }
+    }
+
     /** The x-side CPML corrections of Hy in rows [a, b). */
     private void hStrips(int a, int b) {
         for (DoubleStrip x : xs) {
@@ -88,14 +121,27 @@ final class DoubleS extends DoubleEngine {
 
     @Override
     protected double eRows(int a, int b, boolean flush) {
-        for (int j = a; j < b; j++) {
-            eCore(j);
+        for (int j = a; j < b; ) {
+            int r = flat ? plainRun(j, b, 1, ny - 1) : j;
+            int y = r > j ? j : stripRun(j, b, 1, ny - 1, 1);
+            if (r > j) {
+                eFlat(j, r);
+                j = r;
+            } else if (y > j) {
+                // the strip's interior rows past its first: the plain update, then the correction (all columns)
+                eFlat(j, y);
+                DoubleStrip st = ys[yStripOfRow[j]];
+                DoubleFlat.yE(ez, hx, cb, true, nx, j * nx, y * nx, st.start * nx, st, vl);
+                j = y;
+            } else {
+                eCore(j++);
+            }
         }
         // the rows eCore updates: the interior ones, and a wall row only on a PMC wall
         eStrips(Math.max(a, pmcBottom ? 0 : 1), Math.min(b, pmcTop ? ny : ny - 1));
         double max = 0;
         for (int j = a; j < b; j++) {
-            if (eUpdated(j)) {
+            if (eUpdated(j) && !yFlat) { // with yFlat, stripRun corrected every strip row that has a correction
                 eYStrip(j);
             }
             max = Math.max(max, eFinish(j, flush));
@@ -136,6 +182,33 @@ final class DoubleS extends DoubleEngine {
             return true;
         }
         return false;
+    }
+
+    /**
+     * The plain electric update of interior rows [r0, r1) (plain rows, or a y strip's rows whose correction
+     * follows) as one flat pass: column 0 (which the pass computes
+     * from the row before's last Hy) is put back and, on a PMC wall or the Bloch seam, updated as
+     * eCore does; column nx − 1 is put back where eCore leaves it alone (elsewhere the pass computed
+     * it as eCore does).
+     */
+    private void eFlat(int r0, int r1) {
+        boolean first = pmcLeft || blochX;
+        boolean last = pmcRight || blochX;
+        for (int j = r0; j < r1; j++) {
+            keep[j] = ez[j * nx];
+            keep[ny + j] = ez[j * nx + nx - 1];
+        }
+        DoubleFlat.sE(ez, hx, hy, ca, cb, nx, r0 * nx, r1 * nx, vl);
+        for (int j = r0; j < r1; j++) {
+            int k = j * nx;
+            ez[k] = keep[j];
+            if (first) {
+                DoubleKernels.sEdge(ez, hx, hy, ca, cb, nx, 0, j, blochX ? ghostW[j] : 0.0);
+            }
+            if (!last) {
+                ez[k + nx - 1] = keep[ny + j];
+            }
+        }
     }
 
     /** The x-side CPML corrections of Ez in rows [a, b) (all updated rows). */

@@ -31,9 +31,39 @@ final class DoubleStrip {
         psiE = new double[psiLength];
     }
 
-    /** Values held: the six coefficient arrays and the two ψ arrays. */
+    /**
+     * A y strip's six coefficients per cell, {@code [jj*nx + i]} as ψ, for flat runs over its rows
+     * ({@link DoubleFlat#yH}, {@link DoubleFlat#yE}); null until {@link #perCell} makes them.
+     */
+    double[] bEc, cEc, kEc, bHc, cHc, kHc;
+
+    /** Makes the per-cell coefficients of a y strip of rows nx cells wide (once; before the first step). */
+    void perCell(int nx) {
+        if (bEc != null) {
+            return;
+        }
+        bEc = spread(bE, nx);
+        cEc = spread(cE, nx);
+        kEc = spread(kE, nx);
+        bHc = spread(bH, nx);
+        cHc = spread(cH, nx);
+        kHc = spread(kH, nx);
+    }
+
+    /** Row jj's value of a, once per cell of the row, for the strip's rows. */
+    private double[] spread(double[] a, int nx) {
+        double[] out = new double[width * nx];
+        for (int jj = 0; jj < width; jj++) {
+            java.util.Arrays.fill(out, jj * nx, (jj + 1) * nx, a[jj]);
+        }
+        return out;
+    }
+
+    /** Values held: the six coefficient arrays, the two ψ arrays and the per-cell coefficients when made. */
     long values() {
-        return (long) bE.length + cE.length + kE.length + bH.length + cH.length + kH.length + psiH.length + psiE.length;
+        long perCell = bEc == null ? 0 : 6L * bEc.length;
+        return (long) bE.length + cE.length + kE.length + bH.length + cH.length + kH.length + psiH.length + psiE.length
+                + perCell;
     }
 
     /** Writes both ψ arrays for a checkpoint (see {@link StateIO}). */

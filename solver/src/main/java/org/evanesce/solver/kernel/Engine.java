@@ -88,6 +88,33 @@ public abstract class Engine {
      */
     public static final long VECTOR_AFTER = Long.getLong("evanesce.vectorAfter", 200_000_000L);
 
+    /**
+     * Grids narrower than this many cells (and at least 2 wide) update their plain rows (neither a wall
+     * row nor in a y-side CPML strip) a run of rows at a time, as one flat loop over the run's cells
+     * ({@link FloatFlat}), then put right the cells of columns 0 and nx−1, whose neighbours across the
+     * row's end differ: same bits as row by row. Rows of a few cells are mostly loop set-up and scalar
+     * tails when updated one at a time. Developers may override it with {@code -Devanesce.flatBelow=N}
+     * (0: never).
+     */
+    static final int FLAT_BELOW = Integer.getInteger("evanesce.flatBelow", 64);
+
+    /** Whether this engine updates its plain rows in flat runs (see {@link #FLAT_BELOW}); tests switch it. */
+    protected boolean flat;
+
+    /**
+     * Sets whether plain rows are updated in flat runs (for tests comparing both paths, and measurements);
+     * grids narrower than 2 cells never are. Call before the first step.
+     */
+    public void flatRuns(boolean on) {
+        flat = on && nx >= 2;
+    }
+
+    /**
+     * Cells a block of a flat engine's sweep spans at least (rows of a narrow grid are few cells each):
+     * longer flat runs pay their set-up and edge fixes over more cells.
+     */
+    static final int FLAT_BLOCK_CELLS = 4096;
+
     /** This engine's threshold: {@link #VECTOR_AFTER} unless a test sets another. */
     private long vectorAfter = VECTOR_AFTER;
 
@@ -120,6 +147,7 @@ public abstract class Engine {
         pmcBottom = sides.get(Side.BOTTOM) instanceof Boundary.Pmc;
         pmcTop = sides.get(Side.TOP) instanceof Boundary.Pmc;
         blochX = sides.get(Side.LEFT) instanceof Boundary.Bloch;
+        flat = nx >= 2 && nx < FLAT_BELOW; // not flatRuns(..): a subclass overrides it
         ghostE = new double[blochX ? ny : 0];
         ghostW = new double[blochX ? ny : 0];
         xProfiles = profiles(sides, Side.LEFT, Side.RIGHT, nx, courant);
@@ -456,12 +484,14 @@ public abstract class Engine {
 
     /**
      * Rows per block of {@link #sweep}'s phase 1: as many as fit about {@link #BLOCK_BYTES} of
-     * field and coefficient rows (at least 1, at most 64), fixed at the first sweep. Every cell
+     * field and coefficient rows (at least 1, at most 64, or {@link #FLAT_BLOCK_CELLS} / nx when
+     * more for a flat engine), fixed at the first sweep. Every cell
      * gets the same operations whatever the block size, so results do not depend on it.
      */
     protected final int blockRows() {
         if (blockRows == 0) {
-            blockRows = Math.max(1, Math.min(64, (int) (BLOCK_BYTES / ((long) bytesPerCell() * nx))));
+            int most = flat ? Math.max(64, FLAT_BLOCK_CELLS / nx) : 64;
+            blockRows = Math.max(1, Math.min(most, (int) (BLOCK_BYTES / ((long) bytesPerCell() * nx))));
         }
         return blockRows;
     }

@@ -60,15 +60,26 @@ record Layout(int nx, int ny, Polarization pol, int valueBytes, int lanes) {
         return nx * layers;
     }
 
-    /** Bytes of one engine's arrays spanning the grid (three fields, cb, and ca when lossy), with the Bloch seam values. */
+    /** Values per row an engine keeps over a flat pass (edge columns; see {@link FloatFlat}). */
+    static final int KEPT_PER_ROW = 3;
+
+    /**
+     * Bytes of one engine's arrays spanning the grid (three fields, cb, and ca when lossy), with the Bloch
+     * seam values and the values kept over a flat pass.
+     */
     long gridBytes(boolean lossy, boolean blochX) {
-        long values = (long) length() * (3 + electric().length * (lossy ? 2 : 1));
+        long values = (long) length() * (3 + electric().length * (lossy ? 2 : 1)) + (long) KEPT_PER_ROW * ny;
         // Engine.ghostE and ghostW: ny doubles each
         return values * valueBytes + (blochX ? 2L * ny * Double.BYTES : 0);
     }
 
-    /** Bytes of one engine's CPML strips: six coefficient arrays of width + 1 values and two ψ arrays each. */
+    /**
+     * Bytes of one engine's CPML strips: six coefficient arrays of width + 1 values and two ψ arrays each;
+     * with Bloch-periodic x sides on a grid narrow enough for flat runs ({@link Engine#FLAT_BELOW}), six
+     * more per cell of a y strip (its coefficients per cell, {@link FloatStrip#perCell}).
+     */
     long stripBytes(Map<Side, Boundary> sides) {
+        boolean perCell = sides.get(Side.LEFT) instanceof Boundary.Bloch && nx >= 2 && nx < Engine.FLAT_BELOW;
         long v = 0;
         for (Side side : Side.values()) {
             if (sides.get(side) instanceof Boundary.Pml p) {
@@ -76,6 +87,9 @@ record Layout(int nx, int ny, Polarization pol, int valueBytes, int lanes) {
                 boolean x = side == Side.LEFT || side == Side.RIGHT;
                 int w = x ? xStripWidth(layers) : layers;
                 v += 6L * (w + 1) + 2L * (x ? xPsiLength(w) : yPsiLength(layers));
+                if (!x && perCell) {
+                    v += 6L * yPsiLength(layers);
+                }
             }
         }
         return v * valueBytes;

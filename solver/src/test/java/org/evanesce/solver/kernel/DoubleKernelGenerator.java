@@ -27,7 +27,7 @@ public final class DoubleKernelGenerator {
 
     /** The source classes; each X has the generated twin X with Float replaced by Double. */
     static final List<String> SOURCES = List.of("FloatKernels", "FloatStrip", "FloatEngine", "FloatS", "FloatP", "FloatAde",
-            "FloatSeries", "FloatPmlRows");
+            "FloatSeries", "FloatPmlRows", "FloatFlat");
 
     /** Where the kernel classes live, relative to the repository root. */
     static final String KERNEL_DIR = "solver/src/main/java/org/evanesce/solver/kernel";
@@ -40,7 +40,7 @@ public final class DoubleKernelGenerator {
     private static final String[][] RULES = {
         {"\\(float\\) ", ""},
         {"1e-30f\\b", "1e-300"},
-        {"\\bFloat(Vector|Kernels|Strip|Engine|S|P|Ade|Series|PmlRows)\\b", "Double$1"},
+        {"\\bFloat(Vector|Kernels|Strip|Engine|S|P|Ade|Series|PmlRows|Flat)\\b", "Double$1"},
         {"<Float>", "<Double>"},
         {"\\bfloatSpecies\\b", "doubleSpecies"},
         {"\\bfloat\\b", "double"},
