@@ -37,6 +37,14 @@ abstract class DoubleEngine extends Engine {
     private final DoubleAde[] ade;
     /** The series sites (a field across a metal's face) of each electric component: null where it has none. */
     private final DoubleSeries[] series;
+    /** The non-null entries of {@link #ade} and {@link #series}, for the per-row passes. */
+    private final DoubleAde[] adeHeld;
+    private final DoubleSeries[] seriesHeld;
+    /**
+     * Whether row j holds a dispersive or series cell of any electric component: the per-row post-pass and
+     * its flush skip the other rows at one lookup (a metal film fills a few rows of a tall, narrow grid).
+     */
+    private final boolean[] rowHeld;
 
     /**
      * Arrays for grid's cells with ca and cb of each of its materials (see {@link Engine#create});
@@ -107,6 +115,17 @@ abstract class DoubleEngine extends Engine {
             series[e.ordinal()] = DoubleSeries.of(grid, e, field[e.ordinal()], seriesOf, sides);
             dispersive |= series[e.ordinal()] != null;
         }
+        adeHeld = java.util.Arrays.stream(ade).filter(java.util.Objects::nonNull).toArray(DoubleAde[]::new);
+        seriesHeld = java.util.Arrays.stream(series).filter(java.util.Objects::nonNull).toArray(DoubleSeries[]::new);
+        rowHeld = new boolean[ny];
+        for (int j = 0; j < ny; j++) {
+            for (DoubleAde a : adeHeld) {
+                rowHeld[j] |= a.holdsRow(j);
+            }
+            for (DoubleSeries a : seriesHeld) {
+                rowHeld[j] |= a.holdsRow(j);
+            }
+        }
     }
 
     private double[][] arrays(Component[] comps) {
@@ -163,16 +182,12 @@ abstract class DoubleEngine extends Engine {
 
     @Override
     protected double flushE(int j) {
-        if (dispersive) {
-            for (DoubleAde a : ade) {
-                if (a != null) {
-                    a.flushRow(j, vl);
-                }
+        if (rowHeld[j]) {
+            for (DoubleAde a : adeHeld) {
+                a.flushRow(j, vl);
             }
-            for (DoubleSeries a : series) {
-                if (a != null) {
-                    a.flushRow(j, vl);
-                }
+            for (DoubleSeries a : seriesHeld) {
+                a.flushRow(j, vl);
             }
         }
         return flush(electric, j);
@@ -185,15 +200,14 @@ abstract class DoubleEngine extends Engine {
 
     @Override
     protected void dispersiveRow(int j) {
-        for (DoubleAde a : ade) {
-            if (a != null) {
-                a.row(j);
-            }
+        if (!rowHeld[j]) {
+            return;
         }
-        for (DoubleSeries a : series) {
-            if (a != null) {
-                a.row(j);
-            }
+        for (DoubleAde a : adeHeld) {
+            a.row(j);
+        }
+        for (DoubleSeries a : seriesHeld) {
+            a.row(j);
         }
     }
 

@@ -204,6 +204,16 @@ final class FloatAde {
         return f;
     }
 
+    /** Whether row j holds a cell of this component's dispersive materials. */
+    boolean holdsRow(int j) {
+        for (Group g : groups) {
+            if (g.rowStart[j + 1] > g.rowStart[j]) {
+                return true;
+            }
+        }
+        return false;
+    }
+
     /**
      * The post-pass of row j: for each dispersive cell, E¹ = E_ord + (ca' − 1)·E⁰ (when folded) − the
      * currents' correction, then the currents advance ({@link AdeCoefficients#postPass}, the same sums

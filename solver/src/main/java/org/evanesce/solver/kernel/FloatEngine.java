@@ -37,6 +37,14 @@ abstract class FloatEngine extends Engine {
     private final FloatAde[] ade;
     /** The series sites (a field across a metal's face) of each electric component: null where it has none. */
     private final FloatSeries[] series;
+    /** The non-null entries of {@link #ade} and {@link #series}, for the per-row passes. */
+    private final FloatAde[] adeHeld;
+    private final FloatSeries[] seriesHeld;
+    /**
+     * Whether row j holds a dispersive or series cell of any electric component: the per-row post-pass and
+     * its flush skip the other rows at one lookup (a metal film fills a few rows of a tall, narrow grid).
+     */
+    private final boolean[] rowHeld;
 
     /**
      * Arrays for grid's cells with ca and cb of each of its materials (see {@link Engine#create});
@@ -107,6 +115,17 @@ abstract class FloatEngine extends Engine {
             series[e.ordinal()] = FloatSeries.of(grid, e, field[e.ordinal()], seriesOf, sides);
             dispersive |= series[e.ordinal()] != null;
         }
+        adeHeld = java.util.Arrays.stream(ade).filter(java.util.Objects::nonNull).toArray(FloatAde[]::new);
+        seriesHeld = java.util.Arrays.stream(series).filter(java.util.Objects::nonNull).toArray(FloatSeries[]::new);
+        rowHeld = new boolean[ny];
+        for (int j = 0; j < ny; j++) {
+            for (FloatAde a : adeHeld) {
+                rowHeld[j] |= a.holdsRow(j);
+            }
+            for (FloatSeries a : seriesHeld) {
+                rowHeld[j] |= a.holdsRow(j);
+            }
+        }
     }
 
     private float[][] arrays(Component[] comps) {
@@ -163,16 +182,12 @@ abstract class FloatEngine extends Engine {
 
     @Override
     protected double flushE(int j) {
-        if (dispersive) {
-            for (FloatAde a : ade) {
-                if (a != null) {
-                    a.flushRow(j, vl);
-                }
+        if (rowHeld[j]) {
+            for (FloatAde a : adeHeld) {
+                a.flushRow(j, vl);
             }
-            for (FloatSeries a : series) {
-                if (a != null) {
-                    a.flushRow(j, vl);
-                }
+            for (FloatSeries a : seriesHeld) {
+                a.flushRow(j, vl);
             }
         }
         return flush(electric, j);
@@ -185,15 +200,14 @@ abstract class FloatEngine extends Engine {
 
     @Override
     protected void dispersiveRow(int j) {
-        for (FloatAde a : ade) {
-            if (a != null) {
-                a.row(j);
-            }
+        if (!rowHeld[j]) {
+            return;
         }
-        for (FloatSeries a : series) {
-            if (a != null) {
-                a.row(j);
-            }
+        for (FloatAde a : adeHeld) {
+            a.row(j);
+        }
+        for (FloatSeries a : seriesHeld) {
+            a.row(j);
         }
     }
 
