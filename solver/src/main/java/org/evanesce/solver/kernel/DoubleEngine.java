@@ -211,6 +211,20 @@ abstract class DoubleEngine extends Engine {
         }
     }
 
+    @Override
+    protected void dispersiveRows(int a, int b) {
+        for (DoubleAde x : adeHeld) {
+            x.rows(a, b);
+        }
+        for (DoubleSeries x : seriesHeld) {
+            for (int j = a; j < b; j++) {
+                if (rowHeld[j]) {
+                    x.row(j);
+                }
+            }
+        }
+    }
+
     private double flush(double[][] arrays, int j) {
         int r = j * nx;
         double max = 0;

@@ -227,6 +227,32 @@ final class FloatAde {
         }
     }
 
+    /**
+     * The post-pass of rows [a, b) at once: the same per cell as {@link #row} row after row, but runs that continue
+     * from one row's end to the next row's start (a film across the whole grid's width) are joined into one run, so
+     * a narrow grid's film is updated a vector of cells at a time rather than a few cells per row.
+     */
+    void rows(int a, int b) {
+        for (Group g : groups) {
+            int[] runK = g.runK;
+            int[] runLength = g.runLength;
+            int r = g.rowRun[a];
+            int end = g.rowRun[b];
+            while (r < end) {
+                int k0 = runK[r];
+                int len = runLength[r];
+                int t0 = g.runT[r];
+                r++;
+                // the group's cells are in row order, so the next run's cells follow in t as well
+                while (r < end && runK[r] == k0 + len) {
+                    len += runLength[r];
+                    r++;
+                }
+                run(g, t0, k0, len);
+            }
+        }
+    }
+
     private void run(Group g, int t0, int k0, int len) {
         float[] f = field;
         float[] e0 = g.e0;

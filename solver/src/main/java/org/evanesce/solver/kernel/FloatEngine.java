@@ -211,6 +211,20 @@ abstract class FloatEngine extends Engine {
         }
     }
 
+    @Override
+    protected void dispersiveRows(int a, int b) {
+        for (FloatAde x : adeHeld) {
+            x.rows(a, b);
+        }
+        for (FloatSeries x : seriesHeld) {
+            for (int j = a; j < b; j++) {
+                if (rowHeld[j]) {
+                    x.row(j);
+                }
+            }
+        }
+    }
+
     private double flush(float[][] arrays, int j) {
         int r = j * nx;
         double max = 0;
