@@ -59,6 +59,8 @@ final class SurfacePlanner {
         SignalSpec signal = spec.sources().get(0).signal();
         SteadyState steady = signal instanceof SignalSpec.RampedWave rw
                 ? FluxPlanner.continuousWindow(spec, grid, rw, stop.maxSteps() * dt, errors) : null;
+        // pulses: the segments, boxes and exit lines read every few steps, as the flux section's lines (MapStride)
+        int stride = steady != null ? 1 : MapStride.of(spec.sources().stream().map(x -> x.signal()).toList(), freqs, dt);
         boolean periodic = PlaneWaves.of(spec).isPresent();
         int i0 = periodic ? 0 : interior[0];
         int i1 = periodic ? grid.nx() : interior[2];
@@ -85,7 +87,7 @@ final class SurfacePlanner {
             }
             int c0 = pol == Polarization.S ? a + 1 : a;
             FluxLine line = vertical ? FluxLine.vertical(pol, across, c0, b + 1, freqs) : new FluxLine(pol, across, c0, b + 1, freqs);
-            run.listener(windowed(line, steady));
+            run.listener(windowed(line, steady, stride));
             double at = (vertical ? grid.x0() : grid.y0()) + (across + 0.5) * dx;
             segments.add(new SurfacePlan.Segment(g, line, origin + (a + 0.5) * dx, origin + (b + 0.5) * dx, at));
         }
@@ -97,9 +99,7 @@ final class SurfacePlanner {
                 continue;
             }
             FluxBox box = new FluxBox(pol, lbrt[0], lbrt[1], lbrt[2], lbrt[3], freqs);
-            if (steady != null) {
-                box.window(steady.start(), steady.end() + 1e-6 * steady.period());
-            }
+            windowed(box, steady, stride);
             run.listener(box);
             boxes.add(new SurfacePlan.Box(b, box, x(grid, lbrt[0]), y(grid, lbrt[1]), x(grid, lbrt[2]), y(grid, lbrt[3])));
         }
@@ -135,7 +135,7 @@ final class SurfacePlanner {
                 continue;
             }
             FluxLine line = new FluxLine(pol, row, i0, i1, freqs);
-            run.listener(windowed(line, steady));
+            run.listener(windowed(line, steady, stride));
             String medium = spec.materialAt(0, x.y().si());
             exits.add(new SurfacePlan.Exit(x, line, medium, spec.materials().get(medium).index(),
                     x.towards().value() == SurfacesSpec.Towards.UP ? Side.TOP : Side.BOTTOM, grid.x0() + (i0 + e.dx) * dx,
@@ -164,7 +164,7 @@ final class SurfacePlanner {
                 incident = Optional.of(flux.get().surfacesIncident().orElseThrow());
             } else if (row >= 1 && row + 2 < grid.ny()) {
                 computed = BeamIncident.forSurfaces(spec, w, PlaneWaves.medium(spec, w), materials.get(medium), setup, grid.nx());
-                FluxLine line = windowed(new FluxLine(pol, row, i0, i1, freqs), steady);
+                FluxLine line = windowed(new FluxLine(pol, row, i0, i1, freqs), steady, stride);
                 if (computed.isEmpty()) { // else computed after the run from the beam's sheets
                     Simulation.Builder ref = configured.apply(homogeneous(materials.get(medium), grid));
                     own = Optional.of(ref);
@@ -201,9 +201,7 @@ final class SurfacePlanner {
                 Simulation.Builder ref = configured.apply(homogeneous(materials.get(medium), grid));
                 own = Optional.of(ref);
                 FluxBox box = new FluxBox(pol, l, b, r, t, freqs);
-                if (steady != null) {
-                    box.window(steady.start(), steady.end() + 1e-6 * steady.period());
-                }
+                windowed(box, steady, stride);
                 ref.listener(box);
                 sourceBox = Optional.of(box);
             } else {
@@ -235,8 +233,17 @@ final class SurfacePlanner {
         return Rasterizer.rasterize(Scene.builder(m).build(), grid, Smoothing.ANISOTROPIC);
     }
 
-    private static FluxLine windowed(FluxLine l, SteadyState steady) {
-        return steady == null ? l : l.window(steady.start(), steady.end() + 1e-6 * steady.period());
+    private static FluxLine windowed(FluxLine l, SteadyState steady, int stride) {
+        return steady == null ? l.stride(stride) : l.window(steady.start(), steady.end() + 1e-6 * steady.period());
+    }
+
+    /** A continuous wave's window on a box's sides, or a pulse's stride (1: every step). */
+    private static void windowed(FluxBox box, SteadyState steady, int stride) {
+        if (steady == null) {
+            box.stride(stride);
+        } else {
+            box.window(steady.start(), steady.end() + 1e-6 * steady.period());
+        }
     }
 
     private static double x(GridSpec g, int col) {

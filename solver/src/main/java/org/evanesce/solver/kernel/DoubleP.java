@@ -159,11 +159,7 @@ final class DoubleP extends DoubleEngine {
             }
         }
         eStrips(a, Math.min(b, ny - 1));
-        double max = 0;
-        for (int j = a; j < b; j++) {
-            max = Math.max(max, eFinish(j, flush));
-        }
-        return max;
+        return eFinishRows(a, b, flush);
     }
 
     /** Row j's electric update (walls and the y-side CPML of Ex included) without the x-side CPML of Ey. */

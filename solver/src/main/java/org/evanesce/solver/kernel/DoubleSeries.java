@@ -123,6 +123,16 @@ final class DoubleSeries {
         return f;
     }
 
+    /** Whether row j holds a series site of this component. */
+    boolean holdsRow(int j) {
+        for (Group g : groups) {
+            if (g.rowStart[j + 1] > g.rowStart[j]) {
+                return true;
+            }
+        }
+        return false;
+    }
+
     /** The post-pass of row j ({@link SeriesCoefficients#postPass} per cell, the same sums in the same order). */
     void row(int j) {
         for (Group g : groups) {

@@ -569,8 +569,47 @@ public abstract class Engine {
         return flush ? flushE(j) : 0;
     }
 
+    /**
+     * {@link #eFinish} for the rows [a, b) of a block whose electric update (CPML corrections included) is done:
+     * the same bits as calling it row after row. The sources of every row, then the dispersive post-pass of the
+     * whole block at once ({@link #dispersiveRows}: a film's cells in one run over several rows), then the flush
+     * of each row: every cell still sees sources, post-pass and flush in that order, and each of them reads and
+     * writes the cell's own row alone, so nothing of another row can have changed in between.
+     */
+    protected final double eFinishRows(int a, int b, boolean flush) {
+        double max = 0;
+        if (!dispersive) {
+            for (int j = a; j < b; j++) {
+                max = Math.max(max, eFinish(j, flush));
+            }
+            return max;
+        }
+        for (int j = a; j < b; j++) {
+            for (int t = eRowStart[j]; t < eRowStart[j + 1]; t++) {
+                addSource(eComp[t], eCell[t], eValue[t]);
+            }
+        }
+        dispersiveRows(a, b);
+        if (flush) {
+            for (int j = a; j < b; j++) {
+                max = Math.max(max, flushE(j));
+            }
+        }
+        return max;
+    }
+
     /** The dispersive cells' post-pass of row j ({@link AdeCoefficients#postPass} per cell); engines with poles override it. */
     protected void dispersiveRow(int j) {
+    }
+
+    /**
+     * The post-pass of rows [a, b), row after row unless an engine overrides it (cells of several rows at once: each
+     * cell's post-pass reads and writes its own values alone).
+     */
+    protected void dispersiveRows(int a, int b) {
+        for (int j = a; j < b; j++) {
+            dispersiveRow(j);
+        }
     }
 
     /**

@@ -204,6 +204,16 @@ final class FloatAde {
         return f;
     }
 
+    /** Whether row j holds a cell of this component's dispersive materials. */
+    boolean holdsRow(int j) {
+        for (Group g : groups) {
+            if (g.rowStart[j + 1] > g.rowStart[j]) {
+                return true;
+            }
+        }
+        return false;
+    }
+
     /**
      * The post-pass of row j: for each dispersive cell, E¹ = E_ord + (ca' − 1)·E⁰ (when folded) − the
      * currents' correction, then the currents advance ({@link AdeCoefficients#postPass}, the same sums
@@ -213,6 +223,32 @@ final class FloatAde {
         for (Group g : groups) {
             for (int r = g.rowRun[j], end = g.rowRun[j + 1]; r < end; r++) {
                 run(g, g.runT[r], g.runK[r], g.runLength[r]);
+            }
+        }
+    }
+
+    /**
+     * The post-pass of rows [a, b) at once: the same per cell as {@link #row} row after row, but runs that continue
+     * from one row's end to the next row's start (a film across the whole grid's width) are joined into one run, so
+     * a narrow grid's film is updated a vector of cells at a time rather than a few cells per row.
+     */
+    void rows(int a, int b) {
+        for (Group g : groups) {
+            int[] runK = g.runK;
+            int[] runLength = g.runLength;
+            int r = g.rowRun[a];
+            int end = g.rowRun[b];
+            while (r < end) {
+                int k0 = runK[r];
+                int len = runLength[r];
+                int t0 = g.runT[r];
+                r++;
+                // the group's cells are in row order, so the next run's cells follow in t as well
+                while (r < end && runK[r] == k0 + len) {
+                    len += runLength[r];
+                    r++;
+                }
+                run(g, t0, k0, len);
             }
         }
     }

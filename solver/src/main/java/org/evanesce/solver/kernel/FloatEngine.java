@@ -48,6 +48,14 @@ abstract class FloatEngine extends Engine {
      * correction covers every column of a strip row as the row path's does.
      */
     boolean yFlat;
+    /** The non-null entries of {@link #ade} and {@link #series}, for the per-row passes. */
+    private final FloatAde[] adeHeld;
+    private final FloatSeries[] seriesHeld;
+    /**
+     * Whether row j holds a dispersive or series cell of any electric component: the per-row post-pass and
+     * its flush skip the other rows at one lookup (a metal film fills a few rows of a tall, narrow grid).
+     */
+    private final boolean[] rowHeld;
 
     /**
      * Arrays for grid's cells with ca and cb of each of its materials (see {@link Engine#create});
@@ -119,6 +127,17 @@ abstract class FloatEngine extends Engine {
         for (Component e : el) {
             series[e.ordinal()] = FloatSeries.of(grid, e, field[e.ordinal()], seriesOf, sides);
             dispersive |= series[e.ordinal()] != null;
+        }
+        adeHeld = java.util.Arrays.stream(ade).filter(java.util.Objects::nonNull).toArray(FloatAde[]::new);
+        seriesHeld = java.util.Arrays.stream(series).filter(java.util.Objects::nonNull).toArray(FloatSeries[]::new);
+        rowHeld = new boolean[ny];
+        for (int j = 0; j < ny; j++) {
+            for (FloatAde a : adeHeld) {
+                rowHeld[j] |= a.holdsRow(j);
+            }
+            for (FloatSeries a : seriesHeld) {
+                rowHeld[j] |= a.holdsRow(j);
+            }
         }
     }
 
@@ -228,16 +247,12 @@ abstract class FloatEngine extends Engine {
 
     @Override
     protected double flushE(int j) {
-        if (dispersive) {
-            for (FloatAde a : ade) {
-                if (a != null) {
-                    a.flushRow(j, vl);
-                }
+        if (rowHeld[j]) {
+            for (FloatAde a : adeHeld) {
+                a.flushRow(j, vl);
             }
-            for (FloatSeries a : series) {
-                if (a != null) {
-                    a.flushRow(j, vl);
-                }
+            for (FloatSeries a : seriesHeld) {
+                a.flushRow(j, vl);
             }
         }
         return flush(electric, j);
@@ -250,14 +265,27 @@ abstract class FloatEngine extends Engine {
 
     @Override
     protected void dispersiveRow(int j) {
-        for (FloatAde a : ade) {
-            if (a != null) {
-                a.row(j);
-            }
+        if (!rowHeld[j]) {
+            return;
         }
-        for (FloatSeries a : series) {
-            if (a != null) {
-                a.row(j);
+        for (FloatAde a : adeHeld) {
+            a.row(j);
+        }
+        for (FloatSeries a : seriesHeld) {
+            a.row(j);
+        }
+    }
+
+    @Override
+    protected void dispersiveRows(int a, int b) {
+        for (FloatAde x : adeHeld) {
+            x.rows(a, b);
+        }
+        for (FloatSeries x : seriesHeld) {
+            for (int j = a; j < b; j++) {
+                if (rowHeld[j]) {
+                    x.row(j);
+                }
             }
         }
     }

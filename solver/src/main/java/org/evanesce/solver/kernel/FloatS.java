@@ -139,14 +139,13 @@ final class FloatS extends FloatEngine {
         }
         // the rows eCore updates: the interior ones, and a wall row only on a PMC wall
         eStrips(Math.max(a, pmcBottom ? 0 : 1), Math.min(b, pmcTop ? ny : ny - 1));
-        double max = 0;
         for (int j = a; j < b; j++) {
             if (eUpdated(j) && !yFlat) { // with yFlat, stripRun corrected every strip row that has a correction
                 eYStrip(j);
             }
-            max = Math.max(max, eFinish(j, flush));
         }
-        return max;
+        // eYStrip reads H alone, so the rows' finishing may follow all of them
+        return eFinishRows(a, b, flush);
     }
 
     /** Whether row j's electric field is updated at all: interior rows, and wall rows on a PMC wall. */

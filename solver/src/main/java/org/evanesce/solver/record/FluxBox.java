@@ -93,6 +93,18 @@ public final class FluxBox implements StatefulListener, SharedRecorder {
         return this;
     }
 
+    /**
+     * Reads the sides every {@code steps}-th step ({@link FluxLine#stride}: the same rule and caveat, for pulses only).
+     *
+     * @return this box
+     */
+    public FluxBox stride(int steps) {
+        for (FluxLine line : sides()) {
+            line.stride(steps);
+        }
+        return this;
+    }
+
     /** The sides: bottom, top, left, right. */
     public FluxLine[] sides() {
         return new FluxLine[] {bottom, top, left, right};

@@ -210,6 +210,15 @@ public final class FluxLine implements StatefulListener, SharedRecorder {
         if (!eIn && !hIn) {
             return false;
         }
+        return open(v, workers, model, te, th, eIn, hIn);
+    }
+
+    /**
+     * The part of {@link #prepare} for a step inside the window, kept apart from the early returns: the JIT compiles
+     * prepare while the window is still closed, and would then throw the compiled code away (deoptimise) when the
+     * window opens if this part were inlined there as never taken; on its own it is compiled when it runs.
+     */
+    private boolean open(StepView v, int workers, FluxLine model, double te, double th, boolean eIn, boolean hIn) {
         eSamples += eIn ? 1 : 0;
         hSamples += hIn ? 1 : 0;
         complex = v.complexFields();
