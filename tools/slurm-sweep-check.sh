@@ -44,24 +44,26 @@ sources:
 flux:
   wavelengths: 633 nm
   lines:
-    - {y: -1 um, measures: reflected}
+    - {y: -0.95 um, measures: reflected}
     - {y: 0.8 um, measures: transmitted}
 until: {energy_below: 1e-6, latest: 400 fs}
 sweep:
   parameters:
     gap: [100 nm, 200 nm, 300 nm]
 CASE
-"$root/evanesce" sweep "$work/gap.yaml" --out "$work/local" --progress-seconds 60 > "$work/local.log" 2>&1
+# a step that fails says why (its log lives in the temporary folder, removed on exit)
+run_logged() { local log=$1; shift; "$@" > "$log" 2>&1 || { echo "slurm-sweep-check: '$*' failed; its output:" >&2; tail -20 "$log" >&2; exit 1; }; }
+run_logged "$work/local.log" "$root/evanesce" sweep "$work/gap.yaml" --out "$work/local" --progress-seconds 60
 # a folder name with a space, a quote and a dollar sign: the script must quote every path (issue 13)
 run="$work/cluster run's \$x"
-"$root/evanesce" sweep "$work/gap.yaml" --out "$run" --slurm-script 2 > "$work/script.log" 2>&1
+run_logged "$work/script.log" "$root/evanesce" sweep "$work/gap.yaml" --out "$run" --slurm-script 2
 if ! timeout 900 sbatch --wait "$run/sweep.slurm" > "$work/sbatch.log" 2>&1; then
   if grep -q "COMPLETED\|exit code" "$work/sbatch.log" 2>/dev/null; then :; fi
   if ! ls "$run"/point-* >/dev/null 2>&1; then
     skip "the job array did not run on the local cluster (see $work/sbatch.log)"
   fi
 fi
-"$root/evanesce" sweep "$work/gap.yaml" --out "$run" --merge-only > "$work/merge.log" 2>&1
+run_logged "$work/merge.log" "$root/evanesce" sweep "$work/gap.yaml" --out "$run" --merge-only
 if ! ls "$run"/slurm-*_0.out >/dev/null 2>&1; then
   echo "slurm check FAILED: the tasks' logs are not in $run (#SBATCH --output)"; exit 1
 fi
