@@ -535,13 +535,15 @@ public final class CasePlanner {
         return sb.build();
     }
 
-    /** The period's span along x, {x0, x0 + P}, with periodic sides; null without. */
+    /**
+     * The period's span along x with periodic sides, the domain's {x_min, x_max} (a whole number of cells, see
+     * GridDerivation; an accuracy study's offset grid samples the same repeated structure), or null without.
+     */
     private double[] periodicSpan() {
         if (!(spec.boundary(Side.LEFT) instanceof BoundarySpec.Periodic)) {
             return null;
         }
-        GridSpec g = gridPlan.solverGrid(true);
-        return new double[] {g.x0(), g.x0() + g.nx() * g.cellSize()};
+        return new double[] {spec.domain().xMin(), spec.domain().xMax()};
     }
 
     private static Shape shape(ShapeSpec s) {
