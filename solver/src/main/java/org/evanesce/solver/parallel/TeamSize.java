@@ -16,13 +16,21 @@ package org.evanesce.solver.parallel;
  *     {@link #EFFICIENCY_FLOOR} (threads wait for each other; at most every {@code downGap}
  *     windows), or anyway every {@link #MAX_GAP} windows, the next window tries the smaller size.
  *     The team moves down only when the trial was at least {@link #SMALLER_WINS} times as fast as
- *     the window just before it; a failed trial doubles {@code downGap}.</li>
+ *     the size in use's typical window (the faster of the window just before and the median of its
+ *     recent ones); a failed trial doubles {@code downGap}.</li>
  * <li>Below the full size, every {@code upGap} windows (first {@link #FIRST_UP_GAP}) the next
  *     window tries the next larger size, and the team moves up if it was at least
- *     {@link #LARGER_RETURNS} times as fast as the window before; a failed trial doubles
+ *     {@link #LARGER_RETURNS} times as fast as the median of the recent windows; a failed trial doubles
  *     {@code upGap} (up to {@link #MAX_GAP}), so a machine that stays busy costs ever fewer
  *     trials. So does a move up that is undone within {@link #HELD_LONG} windows.</li>
  * </ul>
+ * The efficiency that calls for a trial and the rates a trial is compared with are medians of the last
+ * {@link #HISTORY} windows at the size in use (the upper middle one of an even count): a lone slow window
+ * (another process, the JIT compiler or a collection holding a core for a few milliseconds) neither
+ * calls for a trial nor lets one win by chance. Compared with the one window before it, such chance
+ * wins had moved a quiet two-prism example (1897 × 456 cells, 2 threads at about 0.45 ms per step,
+ * one at 0.8 ms; a slow window every 30–70) to one thread for 92 % of its windows: the moves down
+ * made each trial's return short-lived, and the gaps between trials grew to their longest.
  * The two thresholds differ (hysteresis) so that noise between windows does not move the team
  * back and forth. Comparing adjacent windows is the method of the issue's measurements (rates on
  * a shared machine drift by tens of percent within minutes, so only runs taken together compare).
@@ -63,8 +71,16 @@ final class TeamSize {
      */
     static final int HELD_LONG = 64;
 
+    /** Windows at the size in use whose medians decide (see the class comment). */
+    static final int HISTORY = 5;
+
     private final int[] sizes;
     private final boolean adaptive;
+    /** Rates and efficiencies of the last windows at {@link #level} (trials not counted), oldest overwritten first. */
+    private final double[] recentRates = new double[HISTORY];
+    private final double[] recentEfficiencies = new double[HISTORY];
+    private int recent;
+    private int recentNext;
     /** Index in {@link #sizes} of the size in use, and of the size the current window runs at (a trial differs). */
     private int level;
     private int running;
@@ -121,15 +137,25 @@ final class TeamSize {
      * @param efficiency its bands' working time over threads × its wall time (1 for one thread)
      */
     void windowEnded(double rate, double efficiency) {
+        windowEnded(rate, efficiency, false);
+    }
+
+    /**
+     * As {@link #windowEnded(double, double)}; {@code disturbed} says the JIT compilers were busy during this window
+     * or the one before it (see {@link BandTeam#JIT_DISTURBS}): a trial of a larger size that fails then, or a move
+     * down then, is followed by a trial of the larger size after {@link #FIRST_UP_GAP} windows, not a doubled gap.
+     */
+    void windowEnded(double rate, double efficiency, boolean disturbed) {
         if (!adaptive) {
             return;
         }
         if (running == level) {
             levelRate = rate;
+            remember(rate, efficiency);
             since++;
             held++;
             boolean smaller = level + 1 < sizes.length;
-            if (smaller && (since >= MAX_GAP || efficiency < EFFICIENCY_FLOOR && since >= downGap)) {
+            if (smaller && (since >= MAX_GAP || median(recentEfficiencies) < EFFICIENCY_FLOOR && since >= downGap)) {
                 running = level + 1;
                 since = 0;
             } else if (level > 0 && since >= upGap) {
@@ -137,28 +163,45 @@ final class TeamSize {
                 since = 0;
             }
         } else if (running > level) {
-            if (rate >= SMALLER_WINS * levelRate) {
-                upGap = held >= HELD_LONG ? FIRST_UP_GAP : Math.min(2 * upGap, MAX_GAP);
-                move(rate);
+            if (rate >= SMALLER_WINS * Math.max(levelRate, median(recentRates))) {
+                upGap = held >= HELD_LONG || disturbed ? FIRST_UP_GAP : Math.min(2 * upGap, MAX_GAP);
+                move(rate, efficiency);
             } else {
                 downGap = Math.min(2 * downGap, MAX_GAP);
                 running = level;
             }
         } else {
-            if (rate >= LARGER_RETURNS * levelRate) {
-                move(rate);
+            if (rate >= LARGER_RETURNS * median(recentRates)) {
+                move(rate, efficiency);
             } else {
-                upGap = Math.min(2 * upGap, MAX_GAP);
+                upGap = disturbed ? FIRST_UP_GAP : Math.min(2 * upGap, MAX_GAP);
                 running = level;
             }
         }
     }
 
-    /** Makes the size of the trial just run the size in use. */
-    private void move(double rate) {
+    /** Makes the size of the trial just run the size in use; its window starts the new size's history. */
+    private void move(double rate, double efficiency) {
         level = running;
         levelRate = rate;
         downGap = 1;
         held = 0;
+        recent = 0;
+        recentNext = 0;
+        remember(rate, efficiency);
+    }
+
+    private void remember(double rate, double efficiency) {
+        recentRates[recentNext] = rate;
+        recentEfficiencies[recentNext] = efficiency;
+        recentNext = (recentNext + 1) % HISTORY;
+        recent = Math.min(recent + 1, HISTORY);
+    }
+
+    /** The median of the first {@link #recent} values (the upper middle one of an even count). */
+    private double median(double[] values) {
+        double[] v = java.util.Arrays.copyOf(values, recent);
+        java.util.Arrays.sort(v);
+        return v[recent / 2];
     }
 }
