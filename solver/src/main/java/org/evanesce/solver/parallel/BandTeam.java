@@ -94,6 +94,33 @@ public final class BandTeam implements AutoCloseable {
     /** Nanoseconds each band spent on its phases (waits excluded) in the current window; written by its own thread. */
     private final long[] busy;
     private final LongSupplier clock;
+    /** The JIT compilers' working time so far (ms), and its value at the start of the window before the current one. */
+    private final LongSupplier jitMillis;
+    private long jitAtPreviousWindow;
+    private long jitAtWindow;
+
+    /**
+     * A window is disturbed by the JIT when its compilers worked at least this fraction of the wall time of it
+     * and the window before it: on a machine with few cores they take one from the team (a run's first seconds
+     * compile the kernels, on a 2-core machine about 3 s of compiler time in a 7 s run of the two-prism example),
+     * and a trial of more threads then fails because of a cost that soon ends.
+     */
+    static final double JIT_DISTURBS = 0.1;
+
+    /** The JVM's total compilation time so far in ms, or 0 always where the JVM does not report it. */
+    static final LongSupplier JIT_MILLIS = jitMillis();
+
+    private static LongSupplier jitMillis() {
+        try {
+            java.lang.management.CompilationMXBean jit = java.lang.management.ManagementFactory.getCompilationMXBean();
+            if (jit != null && jit.isCompilationTimeMonitoringSupported()) {
+                return jit::getTotalCompilationTime;
+            }
+        } catch (RuntimeException | Error e) {
+            // no management support in this runtime: no disturbance is ever seen
+        }
+        return () -> 0;
+    }
     private final long windowNanos;
     private final TeamSize size;
     private final AtomicReference<Throwable> failure = new AtomicReference<>();
@@ -109,6 +136,8 @@ public final class BandTeam implements AutoCloseable {
     private int forced;
 
     private long windowWall;
+    /** The wall time of the window before the current one (ns). */
+    private double previousWindowWall;
     private long windowSteps;
     private long lastStepStart = Long.MIN_VALUE;
     private long cycleSum;
@@ -122,7 +151,7 @@ public final class BandTeam implements AutoCloseable {
      * @param name    prefix of the worker threads' names
      */
     public BandTeam(int rows, int threads, String name) {
-        this(RowWork.uniform(rows), threads, name, WINDOW_NANOS, System::nanoTime, true);
+        this(RowWork.uniform(rows), threads, name, WINDOW_NANOS, System::nanoTime, true, JIT_MILLIS);
     }
 
     /**
@@ -130,7 +159,7 @@ public final class BandTeam implements AutoCloseable {
      * equal work rather than equal rows, and balancing moves each boundary by work.
      */
     public BandTeam(RowWork rowWork, int threads, String name) {
-        this(rowWork, threads, name, WINDOW_NANOS, System::nanoTime, true);
+        this(rowWork, threads, name, WINDOW_NANOS, System::nanoTime, true, JIT_MILLIS);
     }
 
     /**
@@ -144,6 +173,18 @@ public final class BandTeam implements AutoCloseable {
 
     /** As the constructor above with the expected work of each row (see {@link RowWork}). */
     BandTeam(RowWork rowWork, int threads, String name, long windowNanos, LongSupplier clock, boolean adaptive) {
+        this(rowWork, threads, name, windowNanos, clock, adaptive, () -> 0);
+    }
+
+    /**
+     * As the constructor above, with the JIT compilers' total working time so far in milliseconds (tests give
+     * their own, or none: 0 always).
+     */
+    BandTeam(RowWork rowWork, int threads, String name, long windowNanos, LongSupplier clock, boolean adaptive,
+             LongSupplier jitMillis) {
+        this.jitMillis = jitMillis;
+        jitAtWindow = jitMillis.getAsLong();
+        jitAtPreviousWindow = jitAtWindow;
         int rows = rowWork.rows();
         if (threads < 1 || threads > rows) {
             throw new IllegalArgumentException("threads " + threads + " must lie in [1, " + rows + "]");
@@ -345,6 +386,53 @@ public final class BandTeam implements AutoCloseable {
         }
     }
 
+    /** Runs nothing in either phase (for {@link #each}). */
+    private static final Phase IDLE = (j0, j1, phase) -> 0;
+
+    /**
+     * Runs {@code task} once on every stepping band, between steps, from the band's thread with its rows (as the
+     * last step split them), e.g. a sum over the grid's rows; returns when all have finished. Not a step: no
+     * window, balance or team size counts it. A worker's exception is rethrown here.
+     */
+    public void each(After task) {
+        if (closed) {
+            throw new IllegalStateException("band team is closed");
+        }
+        int k = activeThreads();
+        if (k == 1) {
+            task.run(0, 0, rows);
+            return;
+        }
+        long[] kept = busy.clone();
+        work = IDLE;
+        after = task;
+        active = k;
+        start = bands(k);
+        mid.parties(k);
+        done.set(0);
+        ticket++;
+        for (int b = 1; b < k; b++) {
+            open(b);
+        }
+        runPhases(0);
+        awaitWorkers(k - 1);
+        System.arraycopy(kept, 0, busy, 0, kept.length);
+        rethrow();
+    }
+
+    private void rethrow() {
+        Throwable t = failure.getAndSet(null);
+        if (t != null) {
+            if (t instanceof RuntimeException r) {
+                throw r;
+            }
+            if (t instanceof Error e) {
+                throw e;
+            }
+            throw new IllegalStateException("worker failed", t);
+        }
+    }
+
     /**
      * Runs phase 0 on every band, waits for all, then phase 1 on every band, and returns once all
      * bands have finished. Returns the maximum of the values the phases returned (NaN if any was NaN).
@@ -384,16 +472,7 @@ public final class BandTeam implements AutoCloseable {
         if (k > 1) {
             awaitWorkers(k - 1);
         }
-        Throwable t = failure.getAndSet(null);
-        if (t != null) {
-            if (t instanceof RuntimeException r) {
-                throw r;
-            }
-            if (t instanceof Error e) {
-                throw e;
-            }
-            throw new IllegalStateException("worker failed", t);
-        }
+        rethrow();
         for (int b = 1; b < k; b++) {
             m = Math.max(m, results[b]);
         }
@@ -424,8 +503,13 @@ public final class BandTeam implements AutoCloseable {
             }
         }
         boolean trial = size.trial();
+        long jit = jitMillis.getAsLong();
+        boolean disturbed = (jit - jitAtPreviousWindow) * 1e6 >= JIT_DISTURBS * (wall + previousWindowWall);
+        jitAtPreviousWindow = jitAtWindow;
+        jitAtWindow = jit;
+        previousWindowWall = wall;
         if (forced == 0) {
-            size.windowEnded(rate, efficiency);
+            size.windowEnded(rate, efficiency, disturbed);
             if (size.tryingLarger()) {
                 // The larger size's bands were last balanced on the measurements that made the team
                 // leave it, often taken while threads were descheduled; a trial starts from equal bands.
@@ -434,8 +518,8 @@ public final class BandTeam implements AutoCloseable {
         }
         if (TRACE) {
             System.err.printf("%s window: %d threads%s, %d steps in %.1f ms, %.1f us per step, efficiency %.2f, spin %d us,"
-                    + " bands %s -> %d threads next%n", name, k, trial ? " (trial)" : "", windowSteps, wall * 1e-6, 1e-3 / rate,
-                    efficiency, waiting.budget() / 1000, traced, activeThreads());
+                    + " bands %s%s -> %d threads next%n", name, k, trial ? " (trial)" : "", windowSteps, wall * 1e-6, 1e-3 / rate,
+                    efficiency, waiting.budget() / 1000, traced, disturbed ? ", JIT compiling" : "", activeThreads());
         }
         java.util.Arrays.fill(busy, 0);
         windowWall = 0;
