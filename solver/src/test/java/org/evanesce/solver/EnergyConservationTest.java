@@ -1,5 +1,6 @@
 package org.evanesce.solver;
 
+import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.evanesce.geometry.CellRegion;
@@ -58,6 +59,13 @@ class EnergyConservationTest {
             for (int n = 0; n < STEPS; n++) {
                 s.step();
                 double dev = Math.abs(s.energy(0, 0, nx, ny) - w0) / w0;
+                if (n % 97 == 0) {
+                    // the stopping rule's sum over the team's threads: the same bits, whole grid and a part of it
+                    assertEquals(Double.doubleToRawLongBits(s.energy(0, 0, nx, ny)),
+                            Double.doubleToRawLongBits(s.energyOnTeam(0, 0, nx, ny)), "step " + n);
+                    assertEquals(Double.doubleToRawLongBits(s.energy(3, 5, nx - 2, ny - 7)),
+                            Double.doubleToRawLongBits(s.energyOnTeam(3, 5, nx - 2, ny - 7)), "step " + n);
+                }
                 if (dev > worst) {
                     worst = dev;
                     worstStep = s.stepCount();

@@ -126,8 +126,11 @@ public final class CaseRunner {
                              Consumer<org.evanesce.solver.record.StepView> atEnd, Checkpoints ck,
                              IncidentPowerCache incident) {
         if (JitWarmUp.needed(plan)) {
-            // beside the run's first steps, which take the kernels' scalar parts
-            JitWarmUp.start(plan.spec().polarization().value(), plan.spec().numerics().precision().value());
+            // beside the run's first steps, which take the kernels' scalar parts until it is done
+            org.evanesce.solver.grid.Polarization pol = plan.spec().polarization().value();
+            org.evanesce.solver.grid.Precision precision = plan.spec().numerics().precision().value();
+            JitWarmUp.start(pol, precision);
+            plan.builder().vectorsWhen(JitWarmUp.done(pol, precision));
         }
         try (Simulation sim = build(plan)) {
             if (progress != null) {
@@ -153,7 +156,7 @@ public final class CaseRunner {
                 // the energy is measured as in a decay stop (every chunk, at the end) so the result can say whether it settled
                 while (sim.stepCount() < s.steps()) {
                     sim.run(Math.min(Checkpoints.CHUNK, s.steps() - sim.stepCount()));
-                    energy = sim.energy(r[0], r[1], r[2], r[3]);
+                    energy = sim.energyOnTeam(r[0], r[1], r[2], r[3]);
                     peak = Math.max(peak, energy);
                     if (ck != null && ck.due(lastSave)) {
                         ck.save(sim, peak, energy, null, before + (System.nanoTime() - t0) * 1e-9);
@@ -166,7 +169,7 @@ public final class CaseRunner {
                 while (sim.stepCount() < d.limitSteps()) {
                     long chunk = Math.min(d.checkInterval(), d.limitSteps() - sim.stepCount());
                     sim.run(chunk);
-                    energy = sim.energy(r[0], r[1], r[2], r[3]);
+                    energy = sim.energyOnTeam(r[0], r[1], r[2], r[3]);
                     peak = Math.max(peak, energy);
                     if (sim.stepCount() >= d.fadeSteps() && energy <= d.fraction() * peak) {
                         reason = String.format("the field energy fell to %.3g of its largest value (asked: below %.3g)",
@@ -309,7 +312,7 @@ public final class CaseRunner {
                 restore(ref, from);
                 chunkPeak = from.chunkPeak();
                 if (ref.stepCount() == steps && steps > 0) {
-                    energy = ref.energy(r[0], r[1], r[2], r[3]);
+                    energy = ref.energyOnTeam(r[0], r[1], r[2], r[3]);
                     measured = true;
                 }
             }
@@ -318,7 +321,7 @@ public final class CaseRunner {
                 long n = ref.stepCount();
                 // to the next multiple of CHUNK (or the end), so the energies are measured where a run from step 0 measures them
                 ref.run(Math.min(Checkpoints.CHUNK - n % Checkpoints.CHUNK, steps - n));
-                energy = ref.energy(r[0], r[1], r[2], r[3]);
+                energy = ref.energyOnTeam(r[0], r[1], r[2], r[3]);
                 measured = true;
                 if (ref.stepCount() % Checkpoints.CHUNK == 0) {
                     chunkPeak = Math.max(chunkPeak, energy);

@@ -25,7 +25,7 @@ public final class JitWarmUp {
 
     /** One polarization and precision's warm-up: done or not, and the lock a second caller waits on. */
     private static final class Once {
-        private boolean done;
+        private volatile boolean done;
     }
 
     private record Kernels(Polarization pol, Precision precision) { }
@@ -56,6 +56,15 @@ public final class JitWarmUp {
                 once.done = true;
             }
         }
+    }
+
+    /**
+     * Says whether the warm-up of one polarization and precision is done (for {@link
+     * org.evanesce.solver.Simulation.Builder#vectorsWhen}); cheap enough to ask once per step.
+     */
+    public static java.util.function.BooleanSupplier done(Polarization pol, Precision precision) {
+        Once once = WARM.computeIfAbsent(new Kernels(pol, precision), k -> new Once());
+        return () -> once.done;
     }
 
     /**
