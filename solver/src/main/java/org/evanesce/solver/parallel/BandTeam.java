@@ -140,6 +140,14 @@ public final class BandTeam implements AutoCloseable {
     private double previousWindowWall;
     private long windowSteps;
     private long lastStepStart = Long.MIN_VALUE;
+    /**
+     * The caller's time between steps in this window (ns): its own work (sources, listeners, the stopping rule),
+     * which the workers wait out; {@link #balance} counts it with band 0's. {@link #each}'s time, spent on every
+     * band, is left out.
+     */
+    private long callerOutside;
+    private long lastStepEnd = Long.MIN_VALUE;
+    private long eachSince;
     private long cycleSum;
     private long cycles;
     /** Steps run on fewer threads than the team has, for reports. */
@@ -377,13 +385,33 @@ public final class BandTeam implements AutoCloseable {
             rate[b] = rowWork.between(s[b], s[b + 1]) / Math.max(1, busy[b]);
             total += rate[b];
         }
+        // every band's time equal, band 0's with the caller's time between steps (at most as long as the
+        // window's steps, so one long pause, e.g. a checkpoint written, moves the bands little): T = w_0 / r_0 + O
+        // = w_b / r_b with the works w summing to the whole
+        double outside = Math.min(callerOutside, windowWall);
+        double time = (rowWork.total() + rate[0] * outside) / total;
         double share = 0;
         for (int b = 1; b < k; b++) {
-            share += rate[b - 1] / total * rowWork.total();
+            share += rate[b - 1] * (b == 1 ? Math.max(0, time - outside) : time);
             int target = rowWork.isUniform() ? (int) Math.round(share) : rowWork.rowNear(share);
             int moved = s[b] + (target - s[b]) / 2;
+            if (Math.abs(target - s[b]) == 1 && !rowWork.isUniform()
+                    && slower(b, target, s, rate, outside) < 0.95 * slower(b, s[b], s, rate, outside)) {
+                // one row off: the halving would stay, but a heavy row (a metal film's) is worth moving
+                moved = target;
+            }
             s[b] = Math.max(s[b - 1] + minRows, Math.min(rows - (k - b) * minRows, moved));
         }
+    }
+
+    /**
+     * The longer predicted time of bands b − 1 and b with their boundary at row x (the other boundaries as in
+     * {@code s}), from the window's rates of work and the caller's time between steps (band 0's).
+     */
+    private double slower(int b, int x, int[] s, double[] rate, double outside) {
+        double before = rowWork.between(s[b - 1], x) / rate[b - 1] + (b == 1 ? outside : 0);
+        double after = rowWork.between(x, s[b + 1]) / rate[b];
+        return Math.max(before, after);
     }
 
     /** Runs nothing in either phase (for {@link #each}). */
@@ -403,6 +431,7 @@ public final class BandTeam implements AutoCloseable {
             task.run(0, 0, rows);
             return;
         }
+        long e0 = clock.getAsLong();
         long[] kept = busy.clone();
         work = IDLE;
         after = task;
@@ -417,6 +446,7 @@ public final class BandTeam implements AutoCloseable {
         runPhases(0);
         awaitWorkers(k - 1);
         System.arraycopy(kept, 0, busy, 0, kept.length);
+        eachSince += clock.getAsLong() - e0;
         rethrow();
     }
 
@@ -454,6 +484,10 @@ public final class BandTeam implements AutoCloseable {
             cycleSum += t0 - lastStepStart;
             cycles++;
         }
+        if (lastStepEnd != Long.MIN_VALUE) {
+            callerOutside += Math.max(0, t0 - lastStepEnd - eachSince);
+        }
+        eachSince = 0;
         lastStepStart = t0;
         int k = activeThreads();
         work = phase;
@@ -476,7 +510,8 @@ public final class BandTeam implements AutoCloseable {
         for (int b = 1; b < k; b++) {
             m = Math.max(m, results[b]);
         }
-        windowWall += clock.getAsLong() - t0;
+        lastStepEnd = clock.getAsLong();
+        windowWall += lastStepEnd - t0;
         windowSteps++;
         if (k < threads) {
             fewerSteps++;
@@ -522,6 +557,7 @@ public final class BandTeam implements AutoCloseable {
                     efficiency, waiting.budget() / 1000, traced, disturbed ? ", JIT compiling" : "", activeThreads());
         }
         java.util.Arrays.fill(busy, 0);
+        callerOutside = 0;
         windowWall = 0;
         windowSteps = 0;
         cycleSum = 0;
@@ -534,7 +570,7 @@ public final class BandTeam implements AutoCloseable {
         for (int b = 0; b < k; b++) {
             sb.append(b == 0 ? "" : " ").append(bands(k)[b]).append(String.format(":%.1fms", busy[b] * 1e-6));
         }
-        return sb.toString();
+        return sb.append(String.format(", caller between steps %.1fms", callerOutside * 1e-6)).toString();
     }
 
     @Override

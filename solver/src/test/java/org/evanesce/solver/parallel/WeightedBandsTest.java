@@ -51,6 +51,28 @@ class WeightedBandsTest {
     }
 
     @Test
+    void theCallersWorkBetweenStepsMovesRowsToTheWorker() {
+        // equal threads, 500 units of work per step, and the caller busy for 100 units between steps (sources,
+        // listeners): equal times when the caller's band holds 200 units, rows [0, 100)
+        List<Integer> starts = run(weights(), 1, 1, 3000, 100 * NANOS_PER_WORK);
+        assertEquals(150, starts.get(0));
+        assertTrue(Math.abs(starts.get(starts.size() - 1) - 100) <= 1, "settles at 100: " + starts);
+    }
+
+    @Test
+    void aHeavyRowOneRowFromItsTargetIsCrossedWhenThatBalancesBetter() {
+        // 101 rows of 1 unit but row 60 of 30 (a metal film's row), the worker twice as slow: at 60 the bands
+        // take 60 and 2 x 70 = 140 units of time; at 61, 90 and 2 x 40 = 80. The equal-time split lies at 86.7
+        // units, nearest row 61, one row away: halving the way would never move
+        double[] w = new double[101];
+        Arrays.fill(w, 1.0);
+        w[60] = 30;
+        List<Integer> starts = run(w, 1, 2, 500);
+        assertEquals(60, starts.get(0), "equal work: the boundary before the heavy row");
+        assertEquals(61, starts.get(starts.size() - 1), "crosses it: " + starts);
+    }
+
+    @Test
     void rowNearPicksTheNearestBoundaryAndRefusesBadWork() {
         RowWork w = RowWork.of(new double[] {1, 3, 1, 1});
         assertEquals(0, w.rowNear(0.4));
@@ -75,6 +97,11 @@ class WeightedBandsTest {
      * after every window that moved it.
      */
     private List<Integer> run(double[] work, long callerSlow, long workerSlow, int count) {
+        return run(work, callerSlow, workerSlow, count, 0);
+    }
+
+    /** The same, the caller busy for {@code between} nanoseconds after every step. */
+    private List<Integer> run(double[] work, long callerSlow, long workerSlow, int count, long between) {
         Thread caller = Thread.currentThread();
         RowWork rw = RowWork.of(work);
         if (team == null) {
@@ -92,6 +119,7 @@ class WeightedBandsTest {
         for (int n = 0; n < count; n++) {
             int before = team.bandStart(1);
             team.step(phase);
+            clock.advance(between);
             if (team.bandStart(1) != before) {
                 starts.add(team.bandStart(1));
             }
