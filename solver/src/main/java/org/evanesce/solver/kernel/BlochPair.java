@@ -50,6 +50,13 @@ final class BlochPair extends Engine {
         return re.lanes();
     }
 
+    /** The parts' dispersive cells (both parts' work falls in the pair's rows). */
+    @Override
+    protected void addDispersiveWork(double[] w) {
+        re.addDispersiveWork(w);
+        im.addDispersiveWork(w);
+    }
+
     /** The parts run the rows, so they switch with the pair. */
     @Override
     protected void useVectors() {

@@ -416,4 +416,11 @@ abstract class DoubleEngine extends Engine {
             }
         }
     }
+
+    @Override
+    protected void addDispersiveWork(double[] w) {
+        for (DoubleAde a : adeHeld) {
+            a.addRowWork(w, ADE_VALUE_WORK);
+        }
+    }
 }

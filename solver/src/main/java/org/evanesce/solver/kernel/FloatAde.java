@@ -399,4 +399,18 @@ final class FloatAde {
                     + " materials at a field site where this run has none");
         }
     }
+
+    /**
+     * Adds each row's expected work of this component's dispersive cells to {@code w} (relative to a plain cell's
+     * update): {@code perValue} per value a cell keeps (E's previous value, one current per Drude term, two per
+     * Lorentz term).
+     */
+    void addRowWork(double[] w, double perValue) {
+        for (Group g : groups) {
+            int values = 1 + g.nd + 2 * g.nl;
+            for (int j = 0; j + 1 < g.rowStart.length && j < w.length; j++) {
+                w[j] += perValue * values * (g.rowStart[j + 1] - g.rowStart[j]);
+            }
+        }
+    }
 }

@@ -416,4 +416,11 @@ abstract class FloatEngine extends Engine {
             }
         }
     }
+
+    @Override
+    protected void addDispersiveWork(double[] w) {
+        for (FloatAde a : adeHeld) {
+            a.addRowWork(w, ADE_VALUE_WORK);
+        }
+    }
 }
