@@ -57,6 +57,13 @@ final class BlochPair extends Engine {
         im.addDispersiveWork(w);
     }
 
+    @Override
+    protected void useScalars() {
+        super.useScalars();
+        re.useScalars();
+        im.useScalars();
+    }
+
     /** The parts run the rows, so they switch with the pair. */
     @Override
     protected void useVectors() {

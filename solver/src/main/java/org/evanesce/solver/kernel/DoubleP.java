@@ -1,6 +1,9 @@
 package org.evanesce.solver.kernel;
 
 import java.util.Map;
+import jdk.incubator.vector.DoubleVector;
+import jdk.incubator.vector.VectorOperators;
+import jdk.incubator.vector.VectorSpecies;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.geometry.dispersion.AdeCoefficients;
 import org.evanesce.geometry.dispersion.SeriesCoefficients;
@@ -16,6 +19,9 @@ import org.evanesce.solver.grid.Side;
  * Generated from {@link FloatP} by tools/regen-double-kernels.sh: edit that file, not this one.
  */
 final class DoubleP extends DoubleEngine {
+
+    private static final VectorSpecies<Double> SP = DoubleKernels.SP;
+    private static final int VL = SP.length();
 
     final double[] hz, ex, ey, cbx, cby;
     /** ca per cell, or null when every cell at that site is lossless (ca = 1). */
@@ -244,17 +250,74 @@ final class DoubleP extends DoubleEngine {
     @Override
     public double energy(int i0, int j0, int i1, int j1) {
         double w = 0;
+        double[] lanes = new double[VL];
+        double num0 = (1.0 + 1.0) * courant;
         for (int j = j0; j < j1; j++) {
-            for (int i = i0; i < i1; i++) {
+            // the cells with both next neighbours (j < ny − 1, i < nx − 1) in lanes; the others as before
+            int iEnd = j < ny - 1 ? Math.max(i0, Math.min(i1, nx - 1)) : i0;
+            java.util.Arrays.fill(lanes, 0.0);
+            int i = i0;
+            if (iEnd - i0 >= vl) {
+                DoubleVector acc = DoubleVector.zero(SP);
+                DoubleVector vs = DoubleVector.broadcast(SP, s);
+                for (; i <= iEnd - vl; i += VL) {
+                    int k = j * nx + i;
+                    DoubleVector x = DoubleVector.fromArray(SP, ex, k);
+                    DoubleVector y = DoubleVector.fromArray(SP, ey, k);
+                    DoubleVector cx = DoubleVector.fromArray(SP, cbx, k);
+                    DoubleVector cy = DoubleVector.fromArray(SP, cby, k);
+                    DoubleVector numX = cax == null ? DoubleVector.broadcast(SP, num0)
+                            : DoubleVector.fromArray(SP, cax, k).add(1.0).mul(courant);
+                    DoubleVector numY = cay == null ? DoubleVector.broadcast(SP, num0)
+                            : DoubleVector.fromArray(SP, cay, k).add(1.0).mul(courant);
+                    // cb = 0: a perfect conductor, where E stays zero and holds no energy
+                    DoubleVector epsX = numX.div(cx.mul(2.0)).blend(0.0, cx.compare(VectorOperators.EQ, 0.0));
+                    DoubleVector epsY = numY.div(cy.mul(2.0)).blend(0.0, cy.compare(VectorOperators.EQ, 0.0));
+                    DoubleVector z = DoubleVector.fromArray(SP, hz, k);
+                    DoubleVector curl = DoubleVector.fromArray(SP, ex, k + nx).sub(x)
+                            .sub(DoubleVector.fromArray(SP, ey, k + 1).sub(y));
+                    DoubleVector zNext = z.add(curl.mul(vs));
+                    acc = acc.add(epsX.mul(x).mul(x).add(epsY.mul(y).mul(y)).add(z.mul(zNext)));
+                }
+                acc.intoArray(lanes, 0);
+            }
+            for (; i < iEnd; i++) {
                 int k = j * nx + i;
-                // cb = 0: a perfect conductor, where E stays zero and holds no energy
-                double epsX = cbx[k] == 0 ? 0.0 : courant * (1.0 + (cax == null ? 1.0 : cax[k])) / (2.0 * cbx[k]);
-                double epsY = cby[k] == 0 ? 0.0 : courant * (1.0 + (cay == null ? 1.0 : cay[k])) / (2.0 * cby[k]);
-                double hzNext = i < nx - 1 && j < ny - 1
-                        ? hz[k] + s * ((ex[k + nx] - ex[k]) - (ey[k + 1] - ey[k])) : 0.0;
-                w += epsX * ex[k] * ex[k] + epsY * ey[k] * ey[k] + hz[k] * hzNext;
+                double x = ex[k];
+                double y = ey[k];
+                double cx = cbx[k];
+                double cy = cby[k];
+                double numX = cax == null ? num0 : (cax[k] + 1.0) * courant;
+                double numY = cay == null ? num0 : (cay[k] + 1.0) * courant;
+                double epsX = cx == 0.0 ? 0.0 : numX / (cx * 2.0);
+                double epsY = cy == 0.0 ? 0.0 : numY / (cy * 2.0);
+                double z = hz[k];
+                double curl = ex[k + nx] - x - (ey[k + 1] - y);
+                double zNext = z + curl * s;
+                lanes[(i - i0) % VL] += epsX * x * x + epsY * y * y + z * zNext;
+            }
+            for (double v : lanes) {
+                w += v;
+            }
+            for (i = iEnd; i < i1; i++) {
+                w += cellEnergy(i, j);
             }
         }
         return w;
+    }
+
+    /**
+     * One cell's energy in double, as the whole sum was before it took lanes (tests compare with it): the cells in
+     * the last row or column,
+     * whose Hz has no next value to average with.
+     */
+    double cellEnergy(int i, int j) {
+        int k = j * nx + i;
+        // cb = 0: a perfect conductor, where E stays zero and holds no energy
+        double epsX = cbx[k] == 0 ? 0.0 : courant * (1.0 + (cax == null ? 1.0 : cax[k])) / (2.0 * cbx[k]);
+        double epsY = cby[k] == 0 ? 0.0 : courant * (1.0 + (cay == null ? 1.0 : cay[k])) / (2.0 * cby[k]);
+        double hzNext = i < nx - 1 && j < ny - 1
+                ? hz[k] + s * ((ex[k + nx] - ex[k]) - (ey[k + 1] - ey[k])) : 0.0;
+        return epsX * ex[k] * ex[k] + epsY * ey[k] * ey[k] + hz[k] * hzNext;
     }
 }

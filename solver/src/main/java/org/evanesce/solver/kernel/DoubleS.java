@@ -1,6 +1,9 @@
 package org.evanesce.solver.kernel;
 
 import java.util.Map;
+import jdk.incubator.vector.DoubleVector;
+import jdk.incubator.vector.VectorOperators;
+import jdk.incubator.vector.VectorSpecies;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.geometry.dispersion.AdeCoefficients;
 import org.evanesce.geometry.dispersion.SeriesCoefficients;
@@ -15,6 +18,9 @@ import org.evanesce.solver.grid.Side;
  * Generated from {@link FloatS} by tools/regen-double-kernels.sh: edit that file, not this one.
  */
 final class DoubleS extends DoubleEngine {
+
+    private static final VectorSpecies<Double> SP = DoubleKernels.SP;
+    private static final int VL = SP.length();
 
     final double[] ez, hx, hy, cb;
     /** ca per cell, or null when every cell is lossless (ca = 1). */
@@ -244,17 +250,65 @@ final class DoubleS extends DoubleEngine {
     @Override
     public double energy(int i0, int j0, int i1, int j1) {
         double w = 0;
+        double[] lanes = new double[VL];
+        double num0 = (1.0 + 1.0) * courant;
         for (int j = j0; j < j1; j++) {
-            for (int i = i0; i < i1; i++) {
+            // the cells with both next neighbours (j < ny − 1, i < nx − 1) in lanes; the others as before
+            int iEnd = j < ny - 1 ? Math.max(i0, Math.min(i1, nx - 1)) : i0;
+            java.util.Arrays.fill(lanes, 0.0);
+            int i = i0;
+            if (iEnd - i0 >= vl) {
+                DoubleVector acc = DoubleVector.zero(SP);
+                DoubleVector vs = DoubleVector.broadcast(SP, s);
+                for (; i <= iEnd - vl; i += VL) {
+                    int k = j * nx + i;
+                    DoubleVector e = DoubleVector.fromArray(SP, ez, k);
+                    DoubleVector c = DoubleVector.fromArray(SP, cb, k);
+                    DoubleVector num = ca == null ? DoubleVector.broadcast(SP, num0)
+                            : DoubleVector.fromArray(SP, ca, k).add(1.0).mul(courant);
+                    // cb = 0: a perfect conductor, where E stays zero and holds no energy
+                    DoubleVector eps = num.div(c.mul(2.0)).blend(0.0, c.compare(VectorOperators.EQ, 0.0));
+                    DoubleVector x = DoubleVector.fromArray(SP, hx, k);
+                    DoubleVector y = DoubleVector.fromArray(SP, hy, k);
+                    DoubleVector xNext = x.sub(DoubleVector.fromArray(SP, ez, k + nx).sub(e).mul(vs));
+                    DoubleVector yNext = y.add(DoubleVector.fromArray(SP, ez, k + 1).sub(e).mul(vs));
+                    acc = acc.add(eps.mul(e).mul(e).add(x.mul(xNext)).add(y.mul(yNext)));
+                }
+                acc.intoArray(lanes, 0);
+            }
+            for (; i < iEnd; i++) {
                 int k = j * nx + i;
                 double e = ez[k];
-                // cb = 0: a perfect conductor, where E stays zero and holds no energy
-                double eps = cb[k] == 0 ? 0.0 : courant * (1.0 + (ca == null ? 1.0 : ca[k])) / (2.0 * cb[k]);
-                double hxNext = j < ny - 1 ? hx[k] - s * (ez[k + nx] - e) : 0.0;
-                double hyNext = i < nx - 1 ? hy[k] + s * (ez[k + 1] - e) : 0.0;
-                w += eps * e * e + hx[k] * hxNext + hy[k] * hyNext;
+                double c = cb[k];
+                double num = ca == null ? num0 : (ca[k] + 1.0) * courant;
+                double eps = c == 0.0 ? 0.0 : num / (c * 2.0);
+                double x = hx[k];
+                double y = hy[k];
+                double xNext = x - (ez[k + nx] - e) * s;
+                double yNext = y + (ez[k + 1] - e) * s;
+                lanes[(i - i0) % VL] += eps * e * e + x * xNext + y * yNext;
+            }
+            for (double v : lanes) {
+                w += v;
+            }
+            for (i = iEnd; i < i1; i++) {
+                w += cellEnergy(i, j);
             }
         }
         return w;
+    }
+
+    /**
+     * One cell's energy in double, as the whole sum was before it took lanes (tests compare with it): the cells in
+     * the last row or column,
+     * whose H has no next neighbour to average with.
+     */
+    double cellEnergy(int i, int j) {
+        int k = j * nx + i;
+        double e = ez[k];
+        double eps = cb[k] == 0 ? 0.0 : courant * (1.0 + (ca == null ? 1.0 : ca[k])) / (2.0 * cb[k]);
+        double hxNext = j < ny - 1 ? hx[k] - s * (ez[k + nx] - e) : 0.0;
+        double hyNext = i < nx - 1 ? hy[k] + s * (ez[k + 1] - e) : 0.0;
+        return eps * e * e + hx[k] * hxNext + hy[k] * hyNext;
     }
 }

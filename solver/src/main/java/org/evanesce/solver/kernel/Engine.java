@@ -135,6 +135,11 @@ public abstract class Engine {
         vl = lanes();
     }
 
+    /** From now on the kernels run their scalar parts alone (tests: both parts must give the same bits). */
+    protected void useScalars() {
+        vl = SCALAR_ONLY;
+    }
+
     /**
      * Sets the cell updates made scalar before the vector parts take over (0: vectors from the
      * start, as a benchmark of the steady rate wants; Long.MAX_VALUE: never). Call before the

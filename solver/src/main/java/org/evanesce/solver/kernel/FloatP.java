@@ -1,6 +1,9 @@
 package org.evanesce.solver.kernel;
 
 import java.util.Map;
+import jdk.incubator.vector.FloatVector;
+import jdk.incubator.vector.VectorOperators;
+import jdk.incubator.vector.VectorSpecies;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.geometry.dispersion.AdeCoefficients;
 import org.evanesce.geometry.dispersion.SeriesCoefficients;
@@ -16,6 +19,9 @@ import org.evanesce.solver.grid.Side;
  * Edit this file; {@link DoubleP} is generated from it (tools/regen-double-kernels.sh).
  */
 final class FloatP extends FloatEngine {
+
+    private static final VectorSpecies<Float> SP = FloatKernels.SP;
+    private static final int VL = SP.length();
 
     final float[] hz, ex, ey, cbx, cby;
     /** ca per cell, or null when every cell at that site is lossless (ca = 1). */
@@ -244,17 +250,74 @@ final class FloatP extends FloatEngine {
     @Override
     public double energy(int i0, int j0, int i1, int j1) {
         double w = 0;
+        float[] lanes = new float[VL];
+        float num0 = (1f + 1f) * (float) courant;
         for (int j = j0; j < j1; j++) {
-            for (int i = i0; i < i1; i++) {
+            // the cells with both next neighbours (j < ny − 1, i < nx − 1) in lanes; the others as before
+            int iEnd = j < ny - 1 ? Math.max(i0, Math.min(i1, nx - 1)) : i0;
+            java.util.Arrays.fill(lanes, 0f);
+            int i = i0;
+            if (iEnd - i0 >= vl) {
+                FloatVector acc = FloatVector.zero(SP);
+                FloatVector vs = FloatVector.broadcast(SP, s);
+                for (; i <= iEnd - vl; i += VL) {
+                    int k = j * nx + i;
+                    FloatVector x = FloatVector.fromArray(SP, ex, k);
+                    FloatVector y = FloatVector.fromArray(SP, ey, k);
+                    FloatVector cx = FloatVector.fromArray(SP, cbx, k);
+                    FloatVector cy = FloatVector.fromArray(SP, cby, k);
+                    FloatVector numX = cax == null ? FloatVector.broadcast(SP, num0)
+                            : FloatVector.fromArray(SP, cax, k).add(1f).mul((float) courant);
+                    FloatVector numY = cay == null ? FloatVector.broadcast(SP, num0)
+                            : FloatVector.fromArray(SP, cay, k).add(1f).mul((float) courant);
+                    // cb = 0: a perfect conductor, where E stays zero and holds no energy
+                    FloatVector epsX = numX.div(cx.mul(2f)).blend(0f, cx.compare(VectorOperators.EQ, 0f));
+                    FloatVector epsY = numY.div(cy.mul(2f)).blend(0f, cy.compare(VectorOperators.EQ, 0f));
+                    FloatVector z = FloatVector.fromArray(SP, hz, k);
+                    FloatVector curl = FloatVector.fromArray(SP, ex, k + nx).sub(x)
+                            .sub(FloatVector.fromArray(SP, ey, k + 1).sub(y));
+                    FloatVector zNext = z.add(curl.mul(vs));
+                    acc = acc.add(epsX.mul(x).mul(x).add(epsY.mul(y).mul(y)).add(z.mul(zNext)));
+                }
+                acc.intoArray(lanes, 0);
+            }
+            for (; i < iEnd; i++) {
                 int k = j * nx + i;
-                // cb = 0: a perfect conductor, where E stays zero and holds no energy
-                double epsX = cbx[k] == 0 ? 0.0 : courant * (1.0 + (cax == null ? 1.0 : cax[k])) / (2.0 * cbx[k]);
-                double epsY = cby[k] == 0 ? 0.0 : courant * (1.0 + (cay == null ? 1.0 : cay[k])) / (2.0 * cby[k]);
-                double hzNext = i < nx - 1 && j < ny - 1
-                        ? hz[k] + s * ((ex[k + nx] - ex[k]) - (ey[k + 1] - ey[k])) : 0.0;
-                w += epsX * ex[k] * ex[k] + epsY * ey[k] * ey[k] + hz[k] * hzNext;
+                float x = ex[k];
+                float y = ey[k];
+                float cx = cbx[k];
+                float cy = cby[k];
+                float numX = cax == null ? num0 : (cax[k] + 1f) * (float) courant;
+                float numY = cay == null ? num0 : (cay[k] + 1f) * (float) courant;
+                float epsX = cx == 0f ? 0f : numX / (cx * 2f);
+                float epsY = cy == 0f ? 0f : numY / (cy * 2f);
+                float z = hz[k];
+                float curl = ex[k + nx] - x - (ey[k + 1] - y);
+                float zNext = z + curl * s;
+                lanes[(i - i0) % VL] += epsX * x * x + epsY * y * y + z * zNext;
+            }
+            for (float v : lanes) {
+                w += v;
+            }
+            for (i = iEnd; i < i1; i++) {
+                w += cellEnergy(i, j);
             }
         }
         return w;
+    }
+
+    /**
+     * One cell's energy in double, as the whole sum was before it took lanes (tests compare with it): the cells in
+     * the last row or column,
+     * whose Hz has no next value to average with.
+     */
+    double cellEnergy(int i, int j) {
+        int k = j * nx + i;
+        // cb = 0: a perfect conductor, where E stays zero and holds no energy
+        double epsX = cbx[k] == 0 ? 0.0 : courant * (1.0 + (cax == null ? 1.0 : cax[k])) / (2.0 * cbx[k]);
+        double epsY = cby[k] == 0 ? 0.0 : courant * (1.0 + (cay == null ? 1.0 : cay[k])) / (2.0 * cby[k]);
+        double hzNext = i < nx - 1 && j < ny - 1
+                ? hz[k] + s * ((ex[k + nx] - ex[k]) - (ey[k + 1] - ey[k])) : 0.0;
+        return epsX * ex[k] * ex[k] + epsY * ey[k] * ey[k] + hz[k] * hzNext;
     }
 }

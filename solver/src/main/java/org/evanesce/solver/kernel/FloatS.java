@@ -1,6 +1,9 @@
 package org.evanesce.solver.kernel;
 
 import java.util.Map;
+import jdk.incubator.vector.FloatVector;
+import jdk.incubator.vector.VectorOperators;
+import jdk.incubator.vector.VectorSpecies;
 import org.evanesce.geometry.MaterialGrid;
 import org.evanesce.geometry.dispersion.AdeCoefficients;
 import org.evanesce.geometry.dispersion.SeriesCoefficients;
@@ -15,6 +18,9 @@ import org.evanesce.solver.grid.Side;
  * Edit this file; {@link DoubleS} is generated from it (tools/regen-double-kernels.sh).
  */
 final class FloatS extends FloatEngine {
+
+    private static final VectorSpecies<Float> SP = FloatKernels.SP;
+    private static final int VL = SP.length();
 
     final float[] ez, hx, hy, cb;
     /** ca per cell, or null when every cell is lossless (ca = 1). */
@@ -244,17 +250,65 @@ final class FloatS extends FloatEngine {
     @Override
     public double energy(int i0, int j0, int i1, int j1) {
         double w = 0;
+        float[] lanes = new float[VL];
+        float num0 = (1f + 1f) * (float) courant;
         for (int j = j0; j < j1; j++) {
-            for (int i = i0; i < i1; i++) {
+            // the cells with both next neighbours (j < ny − 1, i < nx − 1) in lanes; the others as before
+            int iEnd = j < ny - 1 ? Math.max(i0, Math.min(i1, nx - 1)) : i0;
+            java.util.Arrays.fill(lanes, 0f);
+            int i = i0;
+            if (iEnd - i0 >= vl) {
+                FloatVector acc = FloatVector.zero(SP);
+                FloatVector vs = FloatVector.broadcast(SP, s);
+                for (; i <= iEnd - vl; i += VL) {
+                    int k = j * nx + i;
+                    FloatVector e = FloatVector.fromArray(SP, ez, k);
+                    FloatVector c = FloatVector.fromArray(SP, cb, k);
+                    FloatVector num = ca == null ? FloatVector.broadcast(SP, num0)
+                            : FloatVector.fromArray(SP, ca, k).add(1f).mul((float) courant);
+                    // cb = 0: a perfect conductor, where E stays zero and holds no energy
+                    FloatVector eps = num.div(c.mul(2f)).blend(0f, c.compare(VectorOperators.EQ, 0f));
+                    FloatVector x = FloatVector.fromArray(SP, hx, k);
+                    FloatVector y = FloatVector.fromArray(SP, hy, k);
+                    FloatVector xNext = x.sub(FloatVector.fromArray(SP, ez, k + nx).sub(e).mul(vs));
+                    FloatVector yNext = y.add(FloatVector.fromArray(SP, ez, k + 1).sub(e).mul(vs));
+                    acc = acc.add(eps.mul(e).mul(e).add(x.mul(xNext)).add(y.mul(yNext)));
+                }
+                acc.intoArray(lanes, 0);
+            }
+            for (; i < iEnd; i++) {
                 int k = j * nx + i;
-                double e = ez[k];
-                // cb = 0: a perfect conductor, where E stays zero and holds no energy
-                double eps = cb[k] == 0 ? 0.0 : courant * (1.0 + (ca == null ? 1.0 : ca[k])) / (2.0 * cb[k]);
-                double hxNext = j < ny - 1 ? hx[k] - s * (ez[k + nx] - e) : 0.0;
-                double hyNext = i < nx - 1 ? hy[k] + s * (ez[k + 1] - e) : 0.0;
-                w += eps * e * e + hx[k] * hxNext + hy[k] * hyNext;
+                float e = ez[k];
+                float c = cb[k];
+                float num = ca == null ? num0 : (ca[k] + 1f) * (float) courant;
+                float eps = c == 0f ? 0f : num / (c * 2f);
+                float x = hx[k];
+                float y = hy[k];
+                float xNext = x - (ez[k + nx] - e) * s;
+                float yNext = y + (ez[k + 1] - e) * s;
+                lanes[(i - i0) % VL] += eps * e * e + x * xNext + y * yNext;
+            }
+            for (float v : lanes) {
+                w += v;
+            }
+            for (i = iEnd; i < i1; i++) {
+                w += cellEnergy(i, j);
             }
         }
         return w;
+    }
+
+    /**
+     * One cell's energy in double, as the whole sum was before it took lanes (tests compare with it): the cells in
+     * the last row or column,
+     * whose H has no next neighbour to average with.
+     */
+    double cellEnergy(int i, int j) {
+        int k = j * nx + i;
+        double e = ez[k];
+        double eps = cb[k] == 0 ? 0.0 : courant * (1.0 + (ca == null ? 1.0 : ca[k])) / (2.0 * cb[k]);
+        double hxNext = j < ny - 1 ? hx[k] - s * (ez[k + nx] - e) : 0.0;
+        double hyNext = i < nx - 1 ? hy[k] + s * (ez[k + 1] - e) : 0.0;
+        return eps * e * e + hx[k] * hxNext + hy[k] * hyNext;
     }
 }

@@ -86,6 +86,27 @@ class ScalarStartTest {
         }
     }
 
+    /** The staggered energy summed cell by cell in double (the sum before lanes); NaN for a Bloch pair. */
+    private static double plainEnergy(Engine e, Polarization pol, int[] r) {
+        double w = 0;
+        for (int j = r[1]; j < r[3]; j++) {
+            for (int i = r[0]; i < r[2]; i++) {
+                if (e instanceof FloatS f) {
+                    w += f.cellEnergy(i, j);
+                } else if (e instanceof FloatP f) {
+                    w += f.cellEnergy(i, j);
+                } else if (e instanceof DoubleS d) {
+                    w += d.cellEnergy(i, j);
+                } else if (e instanceof DoubleP d) {
+                    w += d.cellEnergy(i, j);
+                } else {
+                    return Double.NaN;
+                }
+            }
+        }
+        return w;
+    }
+
     private static double[][] run(Polarization pol, Precision precision, String kind, long vectorAfter) {
         MaterialGrid grid = MaterialGrid.builder(NX, NY, 40e-9, Material.VACUUM)
                 .paint(CellRegion.below(15.5), Material.ofIndex("glass", 1.5))
@@ -126,6 +147,23 @@ class ScalarStartTest {
             largest = Math.max(largest, e.sweep(NY / 2, NY, 1, flush));
         }
         assertTrue(largest > 1e-3, "the fields must not have vanished: " + largest);
+        // the energy's lanes: the vector and the scalar part give the same bits, over the whole grid and a part
+        // of it whose width is no whole number of vectors; and it is the plain double sum to rounding
+        for (int[] r : new int[][] {{0, 0, NX, NY}, {3, 2, NX - 4, NY - 1}}) {
+            e.useVectors();
+            double vector = e.energy(r[0], r[1], r[2], r[3]);
+            e.useScalars();
+            double scalar = e.energy(r[0], r[1], r[2], r[3]);
+            e.useVectors();
+            assertEquals(Double.doubleToRawLongBits(vector), Double.doubleToRawLongBits(scalar),
+                    () -> String.format("%s %s %s: energy %s vector, %s scalar", pol, precision, kind, vector, scalar));
+            double plain = plainEnergy(e, pol, r);
+            if (Double.isNaN(plain)) {
+                continue; // a Bloch pair: its parts' sums are checked as the plain engines'
+            }
+            assertEquals(plain, vector, (precision == Precision.FLOAT ? 1e-6 : 1e-13) * Math.abs(plain),
+                    () -> String.format("%s %s %s: energy against the plain double sum", pol, precision, kind));
+        }
         int parts = e.isComplex() ? 2 : 1;
         double[][] out = new double[3 * parts][NX * NY];
         for (int q = 0; q < 3; q++) {
