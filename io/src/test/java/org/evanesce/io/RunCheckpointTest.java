@@ -30,7 +30,7 @@ class RunCheckpointTest {
     /** A plane wave through a gap, fine enough that its main run lasts a few seconds. */
     static final String CASE = """
             parameters:
-              cpw: 48
+              cpw: 60
             design_wavelength: 633 nm
             polarization: s
             domain: {width: 0.1 um, height: 4 um, background: glass}
@@ -75,7 +75,7 @@ class RunCheckpointTest {
             Thread.sleep(20);
         }
         assertTrue(Files.exists(checkpoint), "no checkpoint appeared before the child ended: " + Files.readString(tmp.resolve("child.log")));
-        Thread.sleep(random.nextInt(1500));
+        Thread.sleep(random.nextInt(1000));
         assertTrue(child.isAlive(), "the child finished before it could be killed; lengthen the case");
         child.destroyForcibly().waitFor();
         assertFalse(Files.exists(killed), "a killed run must not leave a results folder");

@@ -114,8 +114,8 @@ public final class Simulation implements StepView, AutoCloseable {
                 b.sides);
         if (b.vectorsFromStart) {
             engine.vectorAfter(0);
-        } else if (b.vectorsReady != null) {
-            engine.vectorsWhen(b.vectorsReady);
+        } else if (b.scalarOnly) {
+            engine.vectorAfter(Long.MAX_VALUE);
         }
         if (b.flatRuns != null) {
             engine.flatRuns(b.flatRuns);
@@ -607,14 +607,6 @@ public final class Simulation implements StepView, AutoCloseable {
         return Engine.predictBytesPerCell(polarization, precision, lossy, blochPeriodic);
     }
 
-    /**
-     * Cell updates a run makes with the kernels' scalar parts before their vector parts (which need
-     * the JIT's warm-up) take over; {@link Engine#VECTOR_AFTER}.
-     */
-    public static long scalarStartCellUpdates() {
-        return Engine.VECTOR_AFTER;
-    }
-
     @Override
     public void close() {
         team.close();
@@ -635,7 +627,7 @@ public final class Simulation implements StepView, AutoCloseable {
         private final List<StepListener> listeners = new ArrayList<>();
         private int flushInterval = 64;
         private boolean vectorsFromStart;
-        private java.util.function.BooleanSupplier vectorsReady;
+        private boolean scalarOnly;
         private Boolean flatRuns;
         private double divergenceLimit;
         private final Map<Integer, DispersiveMaterial> dispersive = new TreeMap<>();
@@ -761,18 +753,23 @@ public final class Simulation implements StepView, AutoCloseable {
          */
         public Builder vectorsFromStart() {
             vectorsFromStart = true;
+            scalarOnly = false;
             return this;
         }
 
         /**
-         * The kernels' scalar start ends when {@code ready} says the JIT has compiled their vector parts
-         * (warmed up on another grid, on another thread) rather than after a fixed count of cell updates;
-         * at the latest after 8 times that count (same bits either way). {@code ready} is called once per
-         * step of the scalar start, from the stepping thread.
+         * The kernels run their scalar parts alone for the whole run (same bits): for runs too short to repay the
+         * JIT's compiling of the vector parts (see io.run.JitWarmUp).
          */
-        public Builder vectorsWhen(java.util.function.BooleanSupplier ready) {
-            vectorsReady = java.util.Objects.requireNonNull(ready, "ready");
+        public Builder scalarOnly() {
+            scalarOnly = true;
+            vectorsFromStart = false;
             return this;
+        }
+
+        /** Cells of the grid (nx × ny nodes), for estimates of a run's work before it is built. */
+        public long cells() {
+            return (long) grid.nx() * grid.ny();
         }
 
         /**

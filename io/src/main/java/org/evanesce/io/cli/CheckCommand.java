@@ -60,10 +60,12 @@ public final class CheckCommand implements Callable<Integer> {
         o.printf(Locale.ROOT, "memory: about %s in all (%s); the JVM may use %s%n",
                 MemoryEstimate.format(plan.memory().total()), plan.memory().breakdown(),
                 MemoryEstimate.format(Runtime.getRuntime().maxMemory()));
-        boolean timeVectors = trialSeconds > 0 && JitWarmUp.needed(plan);
+        boolean timeVectors = trialSeconds > 0 && JitWarmUp.worth(plan);
         if (timeVectors) {
-            // the run will spend nearly all its steps in the kernels' vector parts: time those
+            // the run will step the kernels' vector parts: time those
             plan.builder().vectorsFromStart();
+        } else if (trialSeconds > 0) {
+            plan.builder().scalarOnly();
         }
         try (Simulation sim = CaseRunner.build(plan)) {
             o.printf(Locale.ROOT, "solver: %.1f MiB of field, coefficient and PML arrays (%d bytes per cell), %d thread%s%n",

@@ -125,13 +125,8 @@ public final class CaseRunner {
     public static Result run(CasePlan plan, Consumer<Progress.Report> progress, double progressSeconds,
                              Consumer<org.evanesce.solver.record.StepView> atEnd, Checkpoints ck,
                              IncidentPowerCache incident) {
-        if (JitWarmUp.needed(plan)) {
-            // beside the run's first steps, which take the kernels' scalar parts until it is done
-            org.evanesce.solver.grid.Polarization pol = plan.spec().polarization().value();
-            org.evanesce.solver.grid.Precision precision = plan.spec().numerics().precision().value();
-            JitWarmUp.start(pol, precision);
-            plan.builder().vectorsWhen(JitWarmUp.done(pol, precision));
-        }
+        JitWarmUp.choose(plan.builder(), plan.stop().maxSteps(), plan.spec().polarization().value(),
+                plan.spec().numerics().precision().value());
         try (Simulation sim = build(plan)) {
             if (progress != null) {
                 sim.addListener(new Progress(plan.stop().maxSteps(), progressSeconds, progress));
@@ -292,6 +287,7 @@ public final class CaseRunner {
                                  double progressSeconds, int[] r, IncidentPowerCache.Continuation c) {
         Simulation ref;
         try {
+            JitWarmUp.choose(b, steps, plan.spec().polarization().value(), plan.spec().numerics().precision().value());
             ref = b.build();
         } catch (IllegalArgumentException e) {
             throw new RefusedException(plan.spec().source() + ": the solver refused the incident-power run: "

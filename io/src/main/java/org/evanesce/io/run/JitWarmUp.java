@@ -9,14 +9,19 @@ import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
 
 /**
- * Runs the update kernels' vector parts on a small throw-away grid so the JIT compiles them before
- * a run reaches them: until then the Vector API runs in a slow generic form, which would spoil a
- * timed trial. A run steps scalar for its first cell updates (see {@link Simulation#scalarStartCellUpdates()}), so
- * the warm-up can run beside it ({@link #start}) and only runs that reach the vector parts need one
- * ({@link #needed}). Compiled code stays for the
- * life of the process, so each polarization and precision is warmed up once per process (a
- * sweep's later points, all in one process, skip it); a caller that asks while another warms
+ * Chooses a run's kernels: a run of at least {@link #WORTH_CELL_UPDATES} cell updates first warms the kernels' vector
+ * parts up on a small throw-away grid, so the JIT compiles them, and then steps them from its first step; a smaller
+ * run steps their scalar parts alone (same bits), which compile at once. Until it is compiled the Vector API runs in
+ * a slow generic form. Compiled code stays for the life of the process, so each polarization and precision is warmed
+ * up once per process (a sweep's later points, all in one process, skip it); a caller that asks while another warms
  * the same kernels up waits for it instead of doing the same work again.
+ *
+ * <p>The warm-up blocks the run. Beside the run's first (scalar) steps, as it ran before, on a 2-core machine it
+ * raced them for the cores and the JIT's compilers: the run's scalar code was slow (46 Mcell/s for the first 250
+ * steps of the cube splitter) and its profile sent the kernels back to the compiler when the vectors took over.
+ * Whole commands, paired and alternating, 2-core machine, quiet: cube splitter (5.7e8 cell updates) wall 0.84–0.88x
+ * and CPU 0.84x of the side-by-side warm-up; two-prism attenuator 0.86–0.91x (CPU 0.83–0.85x), tail 0.84–0.93x,
+ * attenuator corner 0.86–0.88x.
  */
 public final class JitWarmUp {
 
@@ -25,7 +30,7 @@ public final class JitWarmUp {
 
     /** One polarization and precision's warm-up: done or not, and the lock a second caller waits on. */
     private static final class Once {
-        private volatile boolean done;
+        private boolean done;
     }
 
     private record Kernels(Polarization pol, Precision precision) { }
@@ -36,12 +41,35 @@ public final class JitWarmUp {
     }
 
     /**
-     * Whether a run of this plan reaches the kernels' vector parts: an engine runs their scalar parts
-     * alone for its first {@link Simulation#scalarStartCellUpdates()} cell updates (they need no warm-up), so a
-     * smaller run gains nothing from one.
+     * The fewest cell updates (grid cells × the step limit, which for a stop on decay is the latest time's steps:
+     * more than are made) for which the warm-up and the vector parts pay. Whole commands on a 2-core machine,
+     * warm-up and vectors against scalar parts alone, updates made (limit): the touch plate 3.8e8 (5.5e8) 1.02–1.10x
+     * the wall time and 1.10x the CPU, the cube splitter 5.7e8 (5.7e8) 0.95–1.05x and 1.02–1.10x, the attenuator
+     * corner 7.5e8 (1.05e9) 0.82–0.84x and 0.80–0.87x, the tail 8.5e8 (1.44e9) 0.86–0.98x and 0.86–0.93x.
      */
-    public static boolean needed(CasePlan plan) {
-        return (double) plan.grid().nx() * plan.grid().ny() * plan.stop().maxSteps() >= Simulation.scalarStartCellUpdates();
+    public static final double WORTH_CELL_UPDATES = 6e8;
+
+    /** Whether a run of this plan warms up and steps the vector parts (see {@link #WORTH_CELL_UPDATES}). */
+    public static boolean worth(CasePlan plan) {
+        return worth((long) plan.grid().nx() * plan.grid().ny(), plan.stop().maxSteps());
+    }
+
+    /** Whether a run of {@code cells} cells and at most {@code steps} steps warms up and steps the vector parts. */
+    public static boolean worth(long cells, long steps) {
+        return (double) cells * steps >= WORTH_CELL_UPDATES;
+    }
+
+    /**
+     * Sets a run's kernels: for a run worth it, warms the vector parts up (blocking, once per process) and has the
+     * run step them from its first step; else the scalar parts alone.
+     */
+    public static void choose(Simulation.Builder b, long steps, Polarization pol, Precision precision) {
+        if (worth(b.cells(), steps)) {
+            run(pol, precision);
+            b.vectorsFromStart();
+        } else {
+            b.scalarOnly();
+        }
     }
 
     /**
@@ -56,32 +84,6 @@ public final class JitWarmUp {
                 once.done = true;
             }
         }
-    }
-
-    /**
-     * Says whether the warm-up of one polarization and precision is done (for {@link
-     * org.evanesce.solver.Simulation.Builder#vectorsWhen}); cheap enough to ask once per step.
-     */
-    public static java.util.function.BooleanSupplier done(Polarization pol, Precision precision) {
-        Once once = WARM.computeIfAbsent(new Kernels(pol, precision), k -> new Once());
-        return () -> once.done;
-    }
-
-    /**
-     * Starts the warm-up of one polarization and precision on a background (daemon) thread, so that it overlaps
-     * the work before the first run (a sweep reads and plans its points meanwhile); a run's own call then finds it
-     * done or waits for it. A warm-up that fails here is left to that call, which does it again.
-     */
-    public static void start(Polarization pol, Precision precision) {
-        Thread t = new Thread(() -> {
-            try {
-                run(pol, precision);
-            } catch (RuntimeException | OutOfMemoryError e) {
-                // not done: the run's own call warms up (and reports what goes wrong there)
-            }
-        }, "kernel-warm-up");
-        t.setDaemon(true);
-        t.start();
     }
 
     private static void warmUp(Polarization pol, Precision precision) {

@@ -118,15 +118,6 @@ public abstract class Engine {
     /** This engine's threshold: {@link #VECTOR_AFTER} unless a test sets another. */
     private long vectorAfter = VECTOR_AFTER;
 
-    /**
-     * With a readiness signal ({@link #vectorsWhen}), the scalar start lasts until it says ready, or at most
-     * this many times {@link #vectorAfter} cell updates.
-     */
-    static final int UNREADY_FACTOR = 8;
-
-    /** Says when the vector parts are compiled (another thread warmed them up); null: the count alone decides. */
-    private java.util.function.BooleanSupplier vectorsReady;
-
     /** The vector length of this engine's kernels (lanes per vector). */
     protected abstract int lanes();
 
@@ -150,17 +141,6 @@ public abstract class Engine {
         if (cellUpdates <= 0) {
             useVectors();
         }
-    }
-
-    /**
-     * The vector parts take over at the first step at which {@code ready} returns true (the JIT has compiled
-     * them, warmed up on another grid) rather than after {@link #vectorAfter} cell updates; at the latest after
-     * {@link #UNREADY_FACTOR} times that many. Vector code the JIT has not compiled yet runs very slowly, and
-     * once it has, scalar steps only waste time. Call before the first step; {@code ready} is called from the
-     * stepping thread, once per step of the scalar start.
-     */
-    public void vectorsWhen(java.util.function.BooleanSupplier ready) {
-        vectorsReady = ready;
     }
 
     protected Engine(int nx, int ny, double courant, Map<Side, Boundary> sides) {
@@ -502,9 +482,7 @@ public abstract class Engine {
     public final double sweep(int j0, int j1, int phase, boolean flush) {
         if (phase == 0 && j0 == 0 && vl == SCALAR_ONLY) {
             scalarSteps++;
-            long cellUpdates = scalarSteps * nx * ny;
-            if (vectorsReady == null ? cellUpdates >= vectorAfter
-                    : vectorsReady.getAsBoolean() || cellUpdates / UNREADY_FACTOR >= vectorAfter) {
+            if (scalarSteps * nx * ny >= vectorAfter) {
                 useVectors();
             }
         }

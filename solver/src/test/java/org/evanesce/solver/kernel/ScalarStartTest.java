@@ -53,39 +53,6 @@ class ScalarStartTest {
         }
     }
 
-    @org.junit.jupiter.api.Test
-    void aReadinessSignalEndsTheScalarStartOrEightTimesTheCountDoes() {
-        MaterialGrid grid = MaterialGrid.builder(NX, NY, 40e-9, Material.VACUUM).build();
-        Map<Side, Boundary> sides = new EnumMap<>(Side.class);
-        for (Side side : Side.values()) {
-            sides.put(side, Boundary.pml(6));
-        }
-        double[][] c = MaterialCoefficients.of(grid.materials(), 0.6, Courant.timeStep(0.6, 40e-9));
-        long step = (long) NX * NY;
-        // ready after the third step's question: vectors from the fourth step on, long before the count
-        int[] asked = {0};
-        Engine e = Engine.create(grid, Polarization.S, Precision.FLOAT, 0.6, c[0], c[1], null, sides);
-        e.setSources(new int[] {20 * NX + 9}, new Component[] {Component.EZ});
-        e.vectorAfter(100 * step);
-        e.vectorsWhen(() -> ++asked[0] >= 3);
-        for (int n = 1; n <= 5; n++) {
-            e.sweep(0, NY, 0, false);
-            assertEquals(n >= 3, e.vl != Engine.SCALAR_ONLY, "vectors after step " + n);
-            e.sweep(0, NY, 1, false);
-        }
-        assertEquals(3, asked[0], "asked once per scalar step, never after the switch");
-        // never ready: the count times UNREADY_FACTOR ends the scalar start
-        Engine never = Engine.create(grid, Polarization.S, Precision.FLOAT, 0.6, c[0], c[1], null, sides);
-        never.setSources(new int[] {20 * NX + 9}, new Component[] {Component.EZ});
-        never.vectorAfter(2 * step);
-        never.vectorsWhen(() -> false);
-        for (int n = 1; n <= 2 * Engine.UNREADY_FACTOR; n++) {
-            never.sweep(0, NY, 0, false);
-            assertEquals(n >= 2 * Engine.UNREADY_FACTOR, never.vl != Engine.SCALAR_ONLY, "vectors after step " + n);
-            never.sweep(0, NY, 1, false);
-        }
-    }
-
     /** The staggered energy summed cell by cell in double (the sum before lanes); NaN for a Bloch pair. */
     private static double plainEnergy(Engine e, Polarization pol, int[] r) {
         double w = 0;
