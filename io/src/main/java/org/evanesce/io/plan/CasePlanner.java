@@ -151,14 +151,8 @@ public final class CasePlanner {
         }
         MemoryEstimate memory = MemoryEstimate.of(spec, grid, sides, interior(sides, grid), stop.maxSteps(),
                 spec.flux().isPresent() ? PlaneWaves.medium(spec, PlaneWaves.launched(spec).orElseThrow()) : null);
-        if (memory.total() > memoryLimit) {
-            MemoryEstimate.Item big = memory.largest();
-            error(big.at(), big.path(), String.format("the run needs about %s of memory (%s) but the JVM may use at most %s; "
-                    + "largest part: %s (%s), to reduce it: %s; or give the JVM more memory (e.g. JAVA_OPTS=-Xmx%dg)",
-                    MemoryEstimate.format(memory.total()), memory.breakdown(), MemoryEstimate.format(memoryLimit), big.what(),
-                    MemoryEstimate.format(big.bytes()), big.reduce(), (long) Math.ceil(memory.total() * 1.25 / (1L << 30))));
-            throw new PlanException(errors);
-        }
+        // the incident-power run, which the flux plan may compute or step on a strip, counts once planned
+        refuseBeyondLimit(memory.withIncidentRun(true, 0, grid.nx()));
         Integer t = threads != null ? threads : spec.numerics().threads().map(l -> l.value()).orElse(null);
         List<TotalFieldBox> planned = new ArrayList<>();
         Function<MaterialGrid, Simulation.Builder> configured = m -> {
@@ -207,7 +201,7 @@ public final class CasePlanner {
             MaterialSpec first = spec.materials().values().stream().filter(MaterialSpec::isDispersive).findFirst().orElseThrow();
             memory = memory.with(new MemoryEstimate.Item("dispersive cells' currents", metalBytes, first.at(),
                     "materials." + first.name(), "a larger cell or less metal"));
-            if (memory.total() > memoryLimit) {
+            if (memory.withIncidentRun(true, 0, grid.nx()).total() > memoryLimit) {
                 error(first.at(), "materials." + first.name(), String.format("the run needs about %s of memory (%s) but the JVM "
                         + "may use at most %s; give the JVM more memory (e.g. JAVA_OPTS=-Xmx%dg) or use a larger cell",
                         MemoryEstimate.format(memory.total()), memory.breakdown(), MemoryEstimate.format(memoryLimit),
@@ -230,6 +224,10 @@ public final class CasePlanner {
             if (!errors.isEmpty()) {
                 throw new PlanException(errors);
             }
+            FluxPlan fp = flux.get();
+            memory = memory.withIncidentRun(fp.computed().isPresent(), fp.strip().map(FluxPlan.Strip::columns).orElse(0),
+                    grid.nx());
+            refuseBeyondLimit(memory);
         }
         Optional<SurfacePlan> surfaces = Optional.empty();
         if (spec.surfaces().isPresent()) {
@@ -248,6 +246,18 @@ public final class CasePlanner {
         }
         return new CasePlan(spec, grid, mg, b, List.copyOf(probes), stop, dt, interior(sides, grid), flux, eps, fields,
                 List.copyOf(sites), memory, surfaces, List.copyOf(planned));
+    }
+
+    /** Refuses the case (its largest part named) when the estimate exceeds the memory the JVM may use. */
+    private void refuseBeyondLimit(MemoryEstimate memory) throws PlanException {
+        if (memory.total() > memoryLimit) {
+            MemoryEstimate.Item big = memory.largest();
+            error(big.at(), big.path(), String.format("the run needs about %s of memory (%s) but the JVM may use at most %s; "
+                    + "largest part: %s (%s), to reduce it: %s; or give the JVM more memory (e.g. JAVA_OPTS=-Xmx%dg)",
+                    MemoryEstimate.format(memory.total()), memory.breakdown(), MemoryEstimate.format(memoryLimit), big.what(),
+                    MemoryEstimate.format(big.bytes()), big.reduce(), (long) Math.ceil(memory.total() * 1.25 / (1L << 30))));
+            throw new PlanException(errors);
+        }
     }
 
     /** The span of sites a source drives (its cells are flat indices j·nx + i). */

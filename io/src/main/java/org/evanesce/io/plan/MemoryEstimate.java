@@ -85,6 +85,29 @@ public record MemoryEstimate(List<Item> items) {
         return new MemoryEstimate(List.copyOf(all));
     }
 
+    /** The name of the incident-power run's part, which {@link #withIncidentRun} resizes once the run is planned. */
+    static final String INCIDENT_RUN = "incident-power run";
+
+    /**
+     * The estimate with the incident-power run's part as planned: none where the incident power is computed, a
+     * strip's share ({@code columns} of the grid's {@code nx}) where a strip steps it, the whole grid's otherwise (as
+     * first estimated, before the plan knew which).
+     */
+    public MemoryEstimate withIncidentRun(boolean computed, int columns, int nx) {
+        List<Item> all = new java.util.ArrayList<>();
+        for (Item i : items) {
+            if (!i.what().equals(INCIDENT_RUN)) {
+                all.add(i);
+            } else if (!computed) {
+                long bytes = columns > 0 && columns < nx ? (long) Math.ceil(i.bytes() * (double) columns / nx) : i.bytes();
+                all.add(new Item(columns > 0 && columns < nx ? INCIDENT_RUN + " (strip)" : INCIDENT_RUN, bytes, i.at(),
+                        i.path(), i.reduce()));
+            }
+        }
+        all.sort((a, b) -> Long.compare(b.bytes(), a.bytes()));
+        return new MemoryEstimate(List.copyOf(all));
+    }
+
     /** The whole estimate, bytes (Long.MAX_VALUE when it does not fit a long). */
     public long total() {
         long sum = 0;
@@ -157,7 +180,7 @@ public record MemoryEstimate(List<Item> items) {
             int lines = flux.lines().size();
             held.add(new Item("flux lines", saturated(perLine, 2L * lines + 1), flux.at(), "flux", "fewer lines or wavelengths"));
             long[] r = Simulation.footprint(grid.nx(), grid.ny(), pol, precision, sides, medium.conductivity().si() != 0);
-            held.add(new Item("incident-power run", 6 * nodes + r[0] + r[1], flux.at(), "flux", gridAdvice));
+            held.add(new Item(INCIDENT_RUN, 6 * nodes + r[0] + r[1], flux.at(), "flux", gridAdvice));
         }
         if (spec.surfaces().isPresent()) {
             var sf = spec.surfaces().get();

@@ -162,6 +162,35 @@ class MemoryEstimateTest {
         }
     }
 
+    /**
+     * The incident-power run counts as planned (issue 18): none where its power is computed, a strip's share where a
+     * strip steps it, the whole grid's where the whole grid does; a limit that fits the case without the whole-grid
+     * run refuses only the case that asks for one (the estimate used to count it always, and refused such cases).
+     */
+    @Test
+    void theIncidentPowerRunCountsAsPlanned() throws Exception {
+        java.util.function.Function<String, String> withRun = run -> FLUX_CASE.replace(
+                "  wavelengths: {from: 600 nm, to: 660 nm, count: 40}\n",
+                "  wavelengths: {from: 600 nm, to: 660 nm, count: 40}\n  incident_run: " + run + "\n");
+        CasePlan computed = CasePlanner.plan(spec(withRun.apply("auto")), 1, Long.MAX_VALUE);
+        CasePlan strip = CasePlanner.plan(spec(withRun.apply("strip")), 1, Long.MAX_VALUE);
+        CasePlan full = CasePlanner.plan(spec(withRun.apply("full")), 1, Long.MAX_VALUE);
+        assertTrue(computed.flux().orElseThrow().computed().isPresent(), "auto computes this pulsed plane wave's");
+        assertEquals(0, item(computed.memory(), MemoryEstimate.INCIDENT_RUN) + item(computed.memory(),
+                MemoryEstimate.INCIDENT_RUN + " (strip)"), computed.memory().breakdown());
+        long whole = item(full.memory(), MemoryEstimate.INCIDENT_RUN);
+        assertTrue(whole > 0, full.memory().breakdown());
+        int columns = strip.flux().orElseThrow().strip().orElseThrow().columns();
+        assertEquals((double) whole * columns / strip.grid().nx(), item(strip.memory(), MemoryEstimate.INCIDENT_RUN + " (strip)"),
+                1.0, strip.memory().breakdown());
+        assertEquals(full.memory().total() - whole, computed.memory().total(), "the rest is the same");
+        long limit = (computed.memory().total() + full.memory().total()) / 2;
+        CasePlanner.plan(spec(withRun.apply("auto")), 1, limit);
+        PlanException e = assertThrows(PlanException.class, () -> CasePlanner.plan(spec(withRun.apply("full")), 1, limit));
+        String message = e.diagnostics().get(0).toString();
+        assertTrue(message.contains("the run needs about") && message.contains("incident-power run"), message);
+    }
+
     /** Heap in use after a full collection, bytes. */
     private static long retained(Runtime rt) throws InterruptedException {
         long used = Long.MAX_VALUE;
