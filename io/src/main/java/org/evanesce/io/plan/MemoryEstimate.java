@@ -48,6 +48,19 @@ public record MemoryEstimate(List<Item> items) {
     /** Heap per smoothed material (record, name, table and map entries): measured 144 to 165 bytes. */
     static final long BYTES_PER_MATERIAL = 200;
     /**
+     * Sites (Ex and Ey) with an off-diagonal inverse permittivity per cell of shape boundary, in p: measured 2.51 for a
+     * disk of 50 cells radius and 2.34 for a tilted triangle (20 nm cells); rounded up.
+     */
+    static final double CROSS_SITES_PER_BOUNDARY_CELL = 3;
+    /**
+     * Bytes held per such site: the material grid's cross terms (an int and a double) and the solver's coupling (an
+     * int, a reference and a double[4] of 48 bytes).
+     */
+    static final long CROSS_BYTES_PER_SITE = 12 + 4 + 4 + 48;
+    /** Bytes per site while the coupling is built (a sorted map's entry and its boxed key), freed once built. */
+    static final long CROSS_BUILD_BYTES_PER_SITE = 40 + 16;
+
+    /**
      * Work of the smoothing per cell of boundary and site: candidate (pixel, shape) keys of 8 bytes, at most
      * 9 per boundary segment of one cell, held while growing and once more sorted.
      */
@@ -166,6 +179,14 @@ public record MemoryEstimate(List<Item> items) {
                 gridAdvice + ", or fewer or smaller curved shapes"));
         passing.add(new Item("shape smoothing", (long) (boundaryCells * SMOOTHING_BYTES_PER_BOUNDARY_CELL)
                 + 4L * tileEntries(spec, grid) + (idBytes == 12 ? 12 * nodes : 0), res, "shapes", "fewer shapes"));
+        if (pol == org.evanesce.solver.grid.Polarization.P) {
+            // the off-diagonal inverse permittivity at faces that are not along the axes (p only)
+            double crossSites = boundaryCells * CROSS_SITES_PER_BOUNDARY_CELL;
+            held.add(new Item("cross terms at faces", (long) (crossSites * CROSS_BYTES_PER_SITE), res, "shapes",
+                    "fewer or smaller tilted or curved shapes, or a larger cell"));
+            passing.add(new Item("building the cross terms", (long) (crossSites * CROSS_BUILD_BYTES_PER_SITE), res, "shapes",
+                    "fewer or smaller tilted or curved shapes"));
+        }
         long[] f = Simulation.footprint(grid.nx(), grid.ny(), pol, precision, sides, lossy);
         held.add(new Item("fields and coefficients", f[0], res, "resolution", gridAdvice + ", or float precision"));
         held.add(new Item("PML", f[1], res, "boundaries", "use thinner PMLs or a larger cell"));

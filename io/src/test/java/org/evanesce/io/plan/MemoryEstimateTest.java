@@ -191,6 +191,36 @@ class MemoryEstimateTest {
         assertTrue(message.contains("the run needs about") && message.contains("incident-power run"), message);
     }
 
+    /**
+     * The p run's cross terms at faces off the axes (the material grid's and the solver's coupling, which
+     * {@link Simulation#bytes()} does not count) are in the estimate, as an upper bound within twice what the sites
+     * need: a disk and a tilted triangle.
+     */
+    @Test
+    void theCrossTermsOfPRunsAreCounted() throws Exception {
+        for (String shape : new String[] {"disk: {centre: [0, 0], radius: 1 um, material: glass}",
+            "polygon: {corners: [[-2 um, -1 um], [2 um, -0.5 um], [1 um, 1.5 um]], material: glass}"}) {
+            for (String pol : new String[] {"p", "s"}) {
+                String text = "design_wavelength: 633 nm\npolarization: " + pol + "\ndomain: {width: 6 um, height: 5 um}\n"
+                        + "grid: {cell: 20 nm}\nmaterials:\n  glass: {index: 1.5}\nshapes:\n  - " + shape + "\n"
+                        + "sources:\n  - point: {at: [0, 2 um], signal: {pulse: {wavelength: 633 nm, bandwidth: 40 nm}}}\n"
+                        + "until: {steps: 10}\n";
+                CasePlan plan = CasePlanner.plan(spec(text), 1, Long.MAX_VALUE);
+                long estimated = item(plan.memory(), "cross terms at faces");
+                if (pol.equals("s")) {
+                    assertEquals(0, estimated, "s has no cross terms");
+                    continue;
+                }
+                var t = plan.materials().crossTerms();
+                long sites = t.cells(org.evanesce.geometry.FieldSite.EX).length + t.cells(org.evanesce.geometry.FieldSite.EY).length;
+                long need = sites * MemoryEstimate.CROSS_BYTES_PER_SITE;
+                assertTrue(sites > 100, shape + ": " + sites + " sites");
+                assertTrue(estimated >= need && estimated <= 2 * need, shape + ": estimated " + estimated + " bytes for "
+                        + sites + " sites (" + need + " bytes)");
+            }
+        }
+    }
+
     /** Heap in use after a full collection, bytes. */
     private static long retained(Runtime rt) throws InterruptedException {
         long used = Long.MAX_VALUE;
