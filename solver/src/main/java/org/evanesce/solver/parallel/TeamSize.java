@@ -84,8 +84,6 @@ final class TeamSize {
     /** Index in {@link #sizes} of the size in use, and of the size the current window runs at (a trial differs). */
     private int level;
     private int running;
-    /** Step rate of the last window run at {@link #level}. */
-    private double levelRate;
     private int since;
     /** Windows at {@link #level} since the team last moved (trials not counted); the start counts as long held. */
     private int held = HELD_LONG;
@@ -150,7 +148,6 @@ final class TeamSize {
             return;
         }
         if (running == level) {
-            levelRate = rate;
             remember(rate, efficiency);
             since++;
             held++;
@@ -163,7 +160,7 @@ final class TeamSize {
                 since = 0;
             }
         } else if (running > level) {
-            if (rate >= SMALLER_WINS * Math.max(levelRate, median(recentRates))) {
+            if (rate >= SMALLER_WINS * Math.max(lastRate(), median(recentRates))) {
                 upGap = held >= HELD_LONG || disturbed ? FIRST_UP_GAP : Math.min(2 * upGap, MAX_GAP);
                 move(rate, efficiency);
             } else {
@@ -183,7 +180,6 @@ final class TeamSize {
     /** Makes the size of the trial just run the size in use; its window starts the new size's history. */
     private void move(double rate, double efficiency) {
         level = running;
-        levelRate = rate;
         downGap = 1;
         held = 0;
         recent = 0;
@@ -196,6 +192,11 @@ final class TeamSize {
         recentEfficiencies[recentNext] = efficiency;
         recentNext = (recentNext + 1) % HISTORY;
         recent = Math.min(recent + 1, HISTORY);
+    }
+
+    /** The rate of the last window at {@link #level} (the newest in its history). */
+    private double lastRate() {
+        return recentRates[(recentNext + HISTORY - 1) % HISTORY];
     }
 
     /** The median of the first {@link #recent} values (the upper middle one of an even count). */
