@@ -17,7 +17,8 @@
 #                      uses the thread count the run reports
 #   --bench-seconds S  timed seconds per bench repeat (default 2; 3 repeats, the median)
 #   --jar JAR          run this build's jar (runs and bench) instead of io/target/evanesce.jar, e.g. an
-#                      older build kept aside, to compare two builds example by example
+#                      older build kept aside, to compare two builds example by example; its class-data
+#                      archive is used where one lies beside it (JAR with .jsa for .jar, copied with it)
 # The figures drift with other work on the machine: compare examples measured in one sitting only,
 # and on a shared machine call them provisional. A bench rate marked * did not settle during its
 # warm-up (the bench's CSV column 'settled'): on a very busy machine the JIT compiler itself gets
@@ -31,7 +32,7 @@ while [[ $# -gt 0 ]]; do
         --bench-seconds) bench_seconds=${2:?--bench-seconds needs S}; shift 2 ;;
         --jar) jar=${2:?--jar needs a file}; [[ -f "$jar" ]] || { echo "example-speeds: jar '$jar' not found" >&2; exit 2; }
                shift 2 ;;
-        -h|--help) sed -n '2,24p' "$0"; exit 0 ;;
+        -h|--help) sed -n '2,25p' "$0"; exit 0 ;;
         -*) echo "example-speeds: unknown option '$1' (see the header of $0)" >&2; exit 2 ;;
         *) [[ -f "$1" ]] || { echo "example-speeds: case file '$1' not found" >&2; exit 2; }; cases+=("$1"); shift ;;
     esac
@@ -41,10 +42,15 @@ if [[ ${#cases[@]} -eq 0 ]]; then
 fi
 [[ -n "$jar" || -f "$here/io/target/evanesce.jar" ]] || { echo "example-speeds: build the jar first (mvn -B -q -DskipTests package)" >&2; exit 2; }
 # the launcher, or the given jar with the launcher's JVM flags
+# (with its class-data archive, JAR's name ending .jsa instead of .jar, where one newer than it lies beside it)
 evanesce() {
     if [[ -n "$jar" ]]; then
+        local cds=()
+        if [[ -f "${jar%.jar}.jsa" && "${jar%.jar}.jsa" -nt "$jar" ]]; then
+            cds=(-XX:SharedArchiveFile="${jar%.jar}.jsa" -Xlog:cds*=off)
+        fi
         # shellcheck disable=SC2086
-        java --add-modules jdk.incubator.vector -XX:+UseParallelGC ${JAVA_OPTS:-} -jar "$jar" "$@"
+        java --add-modules jdk.incubator.vector -XX:+UseParallelGC "${cds[@]}" ${JAVA_OPTS:-} -jar "$jar" "$@"
     else
         "$here/evanesce" "$@"
     fi
