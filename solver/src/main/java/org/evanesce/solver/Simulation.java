@@ -796,6 +796,11 @@ public final class Simulation implements StepView, AutoCloseable {
             return this;
         }
 
+        /** The threads requested (the grid may step on fewer, see {@link #effectiveThreads}). */
+        public int requestedThreads() {
+            return threads;
+        }
+
         /** The threads the built simulation will step on: those requested, fewer for a small grid. */
         public int effectiveThreads() {
             long cells = (long) grid.nx() * grid.ny();

@@ -81,13 +81,13 @@ class IncidentPowerCacheTest {
     private static final String PULSE = "{pulse: {wavelength: 633 nm, bandwidth: bw}}";
     private static final String CW = "{ramped_wave: {wavelength: 633 nm}}";
 
-    private static String text(boolean pulse) {
+    static String text(boolean pulse) {
         return CASE.replace("SIGNAL", pulse ? PULSE : CW)
                 .replace("WAVELENGTHS", pulse ? "[633 nm, 640 nm]" : "633 nm")
                 .replace("STOP", pulse ? "{energy_below: 1e-6, latest: 400 fs}" : "{time: 250 fs}");
     }
 
-    private static CasePlan plan(String text, Map<String, String> set) throws Exception {
+    static CasePlan plan(String text, Map<String, String> set) throws Exception {
         return CasePlanner.plan(CaseLoader.parse(text, "gap.yaml", set, ReadOptions.defaults()).spec(), 1);
     }
 
@@ -96,7 +96,7 @@ class IncidentPowerCacheTest {
     }
 
     /** Every recorder's state of the incident-power run, as bytes (doubles by their bits). */
-    private static List<byte[]> states(CasePlan plan) throws IOException {
+    static List<byte[]> states(CasePlan plan) throws IOException {
         List<byte[]> out = new ArrayList<>();
         for (FluxLine l : plan.flux().orElseThrow().recorders()) {
             ByteArrayOutputStream b = new ByteArrayOutputStream();
@@ -109,7 +109,7 @@ class IncidentPowerCacheTest {
     }
 
     /** Every value of the flux table (and the incident column) by its bits. */
-    private static long[] bits(CasePlan plan) {
+    static long[] bits(CasePlan plan) {
         FluxResults r = FluxResults.of(plan.flux().orElseThrow(), plan.spec().polarization().value());
         List<Long> out = new ArrayList<>();
         for (FluxResults.Row row : r.rows()) {

@@ -1,0 +1,119 @@
+package org.evanesce.io.run;
+
+import java.util.concurrent.CancellationException;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.ExecutionException;
+import org.evanesce.io.plan.CasePlan;
+import org.evanesce.io.plan.FluxPlan;
+
+/**
+ * The flux normalisation's incident-power run stepped on a thread of its own while the case's run steps, where the
+ * number of steps is known before the run (a stop after a given time) and the case's run leaves one of the threads
+ * it was given idle (a small grid steps on one thread: the periodic plasmon sensor's 4-column grid and its 3-column
+ * strip). Its result is the same bit for bit: it is a simulation of its own and its steps do not depend on the case's.
+ * A stop on decay learns its number of steps only at the end, and a run continued from a checkpoint steps its
+ * incident-power run after it, as before.
+ */
+final class IncidentBeside implements AutoCloseable {
+
+    /** The thread the incident-power run steps on; {@link #cancelled} stops it between chunks. */
+    static final class Stepper extends Thread {
+        volatile boolean cancelled;
+
+        Stepper(Runnable r) {
+            super(r, "evanesce incident-power run beside the run");
+        }
+    }
+
+    private final long steps;
+    private final Stepper thread;
+    private final CompletableFuture<IncidentPowerCache.Obtained> done;
+
+    private IncidentBeside(long steps, Stepper thread, CompletableFuture<IncidentPowerCache.Obtained> done) {
+        this.steps = steps;
+        this.thread = thread;
+        this.done = done;
+    }
+
+    /**
+     * Starts the plan's incident-power run beside the case's run, or returns null where it steps after it: no flux
+     * section, a computed incident power, a stop on decay, or no thread to spare (the case's run steps on as many
+     * threads as were asked for, or the machine has no more processors).
+     */
+    static IncidentBeside start(CasePlan plan, IncidentPowerCache incident, double progressSeconds) {
+        if (plan.flux().isEmpty() || !(plan.stop() instanceof CasePlan.Stop.Steps s)) {
+            return null;
+        }
+        FluxPlan f = plan.flux().get();
+        if (f.computed().isPresent()) {
+            return null;
+        }
+        int own = f.strip().isPresent() ? f.strip().get().builder().effectiveThreads() : f.reference().effectiveThreads();
+        int asked = Math.min(plan.builder().requestedThreads(), Runtime.getRuntime().availableProcessors());
+        if (plan.builder().effectiveThreads() + own > asked) {
+            return null;
+        }
+        long steps = s.steps();
+        CompletableFuture<IncidentPowerCache.Obtained> done = new CompletableFuture<>();
+        Stepper t = new Stepper(() -> {
+            try {
+                done.complete(incident.obtain(f, steps, c -> {
+                    double[] m = CaseRunner.measureIncidentPower(plan, steps, null, progressSeconds, c);
+                    return new IncidentPowerCache.Measured(m[0], m[1], m[2]);
+                }));
+            } catch (RuntimeException | Error e) {
+                done.completeExceptionally(e);
+            }
+        });
+        t.setDaemon(true);
+        t.start();
+        return new IncidentBeside(steps, t, done);
+    }
+
+    /** The steps it runs: its result serves a case's run of exactly these. */
+    long steps() {
+        return steps;
+    }
+
+    /** Waits for its result; what it threw is thrown here. */
+    IncidentPowerCache.Obtained join() {
+        try {
+            return done.get();
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new CancellationException("interrupted while waiting for the incident-power run");
+        } catch (ExecutionException e) {
+            if (e.getCause() instanceof RuntimeException r) {
+                throw r;
+            }
+            if (e.getCause() instanceof Error err) {
+                throw err;
+            }
+            throw new IllegalStateException(e.getCause());
+        }
+    }
+
+    /** Stops it (when the case's run failed or its result was not wanted) and waits until its thread has ended. */
+    @Override
+    public void close() {
+        thread.cancelled = true;
+        boolean interrupted = false;
+        while (thread.isAlive()) {
+            try {
+                thread.join();
+            } catch (InterruptedException e) {
+                interrupted = true;
+            }
+        }
+        if (interrupted) {
+            Thread.currentThread().interrupt();
+        }
+    }
+
+    /** Throws when the calling thread is a cancelled {@link Stepper} (checked between chunks of steps). */
+    static void checkCancelled() {
+        if (Thread.currentThread() instanceof Stepper t && t.cancelled) {
+            throw new CancellationException("the incident-power run beside the run was stopped");
+        }
+    }
+}
