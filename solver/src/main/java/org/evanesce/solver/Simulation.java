@@ -59,8 +59,9 @@ public final class Simulation implements StepView, AutoCloseable {
     /** Incident-field sheets (beams), their terms after the plain sources'. */
     private final IncidentSheet[] sheets;
     private final int[] sheetTermStart;
-    /** Per sheet: whether every cell has the same envelope delay. */
-    private final boolean[] sheetUniform;
+    /** The sheets' terms' values, computed per row by the bands where the engine allows ({@link #sheetsByRow}). */
+    private final SheetTerms sheetTerms;
+    private final boolean sheetsByRow;
     /** Tabulated sheets (a total-field box's pulse), their terms after the incident sheets'. */
     private final SampledSheet[] tables;
     private final int[] tableTermStart;
@@ -133,11 +134,6 @@ public final class Simulation implements StepView, AutoCloseable {
         sourceTermStart[sources.length] = n;
         sheets = b.sheets.toArray(new IncidentSheet[0]);
         sheetTermStart = new int[sheets.length];
-        sheetUniform = new boolean[sheets.length];
-        for (int q = 0; q < sheets.length; q++) {
-            double[] d = sheets[q].delays();
-            sheetUniform[q] = java.util.Arrays.stream(d).allMatch(x -> x == d[0]);
-        }
         for (int q = 0; q < sheets.length; q++) {
             sheetTermStart[q] = n;
             n += sheets[q].cells().length;
@@ -176,6 +172,8 @@ public final class Simulation implements StepView, AutoCloseable {
             java.util.Arrays.fill(comps, tableTermStart[q], tableTermStart[q] + c.length, tables[q].component());
         }
         engine.setSources(cells, comps);
+        sheetTerms = new SheetTerms(engine, sheets, sheetTermStart, g.nx(), g.ny());
+        sheetsByRow = sheets.length > 0 && !b.sheetsBeforeStep && engine.rowSources(sheetTerms);
         divergenceLimit = b.divergenceLimit > 0 ? b.divergenceLimit : 1e15 * Math.max(1.0, amplitudeSum);
         team = new BandTeam(RowWork.of(engine.rowWork()), b.effectiveThreads(), "evanesce-band");
         shared = new SharedRecorders(this, team.threads());
@@ -213,21 +211,10 @@ public final class Simulation implements StepView, AutoCloseable {
                 engine.sourceValue(sourceTermStart[q] + t, amp[t] * g, ampIm[t] * g);
             }
         }
-        for (int q = 0; q < sheets.length; q++) {
-            IncidentSheet sh = sheets[q];
-            double time = sh.component().electric ? tE : tH;
-            double phase = 2 * Math.PI * sh.signal().carrierFrequency() * (time - sh.signal().carrierOrigin());
-            double c = Math.cos(phase);
-            double sn = Math.sin(phase);
-            double[] re = sh.re();
-            double[] im = sh.im();
-            double[] delay = sh.delays();
-            int base = sheetTermStart[q];
-            // one envelope for the whole sheet when every cell has the same delay (a continuous wave's)
-            double common = sheetUniform[q] ? sh.signal().envelope(time - delay[0]) : Double.NaN;
-            for (int t = 0; t < re.length; t++) {
-                double env = sheetUniform[q] ? common : sh.signal().envelope(time - delay[t]);
-                engine.sourceValue(base + t, env == 0 ? 0 : env * (re[t] * c + im[t] * sn));
+        if (sheets.length > 0) {
+            sheetTerms.prepare(tH, tE);
+            if (!sheetsByRow) {
+                sheetTerms.fillAll();
             }
         }
         for (int q = 0; q < tables.length; q++) {
@@ -626,6 +613,8 @@ public final class Simulation implements StepView, AutoCloseable {
         private final List<SampledSheet> tables = new ArrayList<>();
         private final List<StepListener> listeners = new ArrayList<>();
         private int flushInterval = 64;
+        /** Tests: the sheets' values set before each step, as engines that cannot call back have them. */
+        boolean sheetsBeforeStep;
         private boolean vectorsFromStart;
         private boolean scalarOnly;
         private Boolean flatRuns;

@@ -152,6 +152,12 @@ final class BlochPair extends Engine {
         sourceValue(t, v, 0.0);
     }
 
+    /** The parts add their sources row by row, each on its own: the values are set before each step. */
+    @Override
+    public boolean rowSources(RowSources r) {
+        return false;
+    }
+
     @Override
     protected void hRow(int j) {
         throw new UnsupportedOperationException("the parts update their rows");

@@ -462,6 +462,28 @@ public abstract class Engine {
         sourceValue(t, re);
     }
 
+    /**
+     * Computes the values of one row's source terms for the coming half step (with {@link #sourceValue}), called by the
+     * band that updates the row, just before they are added: a beam's sheet then costs the caller nothing between
+     * steps, while the other bands wait for it (see {@link #rowSources}).
+     */
+    public interface RowSources {
+        /** Sets the values of row j's terms of one kind (electric or magnetic); other rows' values are left alone. */
+        void fill(boolean electric, int j);
+    }
+
+    /** Called for each row with source terms before they are added; null: the values are set before each step. */
+    private RowSources rowSources;
+
+    /**
+     * Has this engine call {@code r} for each row with source terms of a half step, from the row's band, before they are
+     * added. Returns false where the engine cannot (the values must then be set before each step).
+     */
+    public boolean rowSources(RowSources r) {
+        rowSources = r;
+        return true;
+    }
+
     /** Sets the value of source term t (in the order given to {@link #setSources}) for the coming step. */
     public void sourceValue(int t, double v) {
         int o = termOrder[t];
@@ -568,6 +590,9 @@ public abstract class Engine {
 
     /** Adds the magnetic sources of row j, after its update, and flushes it when asked (see {@link #hRowFull}). */
     protected final double hFinish(int j, boolean flush) {
+        if (rowSources != null && hRowStart[j] < hRowStart[j + 1]) {
+            rowSources.fill(false, j);
+        }
         for (int t = hRowStart[j]; t < hRowStart[j + 1]; t++) {
             addSource(hComp[t], hCell[t], hValue[t]);
         }
@@ -581,6 +606,9 @@ public abstract class Engine {
      * corrections, sources), and reads and writes row j alone, so results stay those of any band split.
      */
     protected final double eFinish(int j, boolean flush) {
+        if (rowSources != null && eRowStart[j] < eRowStart[j + 1]) {
+            rowSources.fill(true, j);
+        }
         for (int t = eRowStart[j]; t < eRowStart[j + 1]; t++) {
             addSource(eComp[t], eCell[t], eValue[t]);
         }
@@ -606,6 +634,9 @@ public abstract class Engine {
             return max;
         }
         for (int j = a; j < b; j++) {
+            if (rowSources != null && eRowStart[j] < eRowStart[j + 1]) {
+                rowSources.fill(true, j);
+            }
             for (int t = eRowStart[j]; t < eRowStart[j + 1]; t++) {
                 addSource(eComp[t], eCell[t], eValue[t]);
             }
