@@ -127,7 +127,7 @@ public final class CaseRunner {
                              IncidentPowerCache incident) {
         JitWarmUp.choose(plan.builder(), plan.stop().maxSteps(), plan.spec().polarization().value(),
                 plan.spec().numerics().precision().value());
-        try (Simulation sim = build(plan)) {
+        try (Simulation sim = build(plan); IncidentBeside beside = new IncidentBeside()) {
             if (progress != null) {
                 sim.addListener(new Progress(plan.stop().maxSteps(), progressSeconds, progress));
             }
@@ -147,90 +147,91 @@ public final class CaseRunner {
                 before = restored.wallSeconds();
             }
             long lastSave = System.nanoTime();
-            try (IncidentBeside beside = restored == null ? IncidentBeside.start(plan, incident, progressSeconds) : null) {
-                if (reason == null && plan.stop() instanceof CasePlan.Stop.Steps s) {
-                    // the energy is measured as in a decay stop (every chunk, at the end) so the result can say whether it settled
-                    while (sim.stepCount() < s.steps()) {
-                        sim.run(Math.min(Checkpoints.CHUNK, s.steps() - sim.stepCount()));
-                        energy = sim.energyOnTeam(r[0], r[1], r[2], r[3]);
-                        peak = Math.max(peak, energy);
-                        if (ck != null && ck.due(lastSave)) {
-                            ck.save(sim, peak, energy, null, before + (System.nanoTime() - t0) * 1e-9);
-                            lastSave = System.nanoTime();
-                        }
-                    }
-                    reason = "ran the requested " + s.steps() + " steps";
-                } else if (reason == null) {
-                    CasePlan.Stop.Decay d = (CasePlan.Stop.Decay) plan.stop();
-                    while (sim.stepCount() < d.limitSteps()) {
-                        long chunk = Math.min(d.checkInterval(), d.limitSteps() - sim.stepCount());
-                        sim.run(chunk);
-                        energy = sim.energyOnTeam(r[0], r[1], r[2], r[3]);
-                        peak = Math.max(peak, energy);
-                        if (sim.stepCount() >= d.fadeSteps() && energy <= d.fraction() * peak) {
-                            reason = String.format("the field energy fell to %.3g of its largest value (asked: below %.3g)",
-                                    peak > 0 ? energy / peak : 0.0, d.fraction());
-                            break;
-                        }
-                        if (ck != null && ck.due(lastSave)) {
-                            ck.save(sim, peak, energy, null, before + (System.nanoTime() - t0) * 1e-9);
-                            lastSave = System.nanoTime();
-                        }
-                    }
-                    if (reason == null && plan.continuous()) {
-                        reason = String.format("ran to the latest time (%d steps): a continuous wave's field energy does not fall", d.limitSteps());
-                    } else if (reason == null) {
-                        byLimit = true;
-                        reason = String.format("reached the latest time (%d steps) before the energy fell below %.3g of its "
-                                + "largest value (now %.3g)", d.limitSteps(), d.fraction(), peak > 0 ? energy / peak : 0.0);
-                    }
-                }
-                double wall = before + (restored != null && restored.reason() != null ? 0 : (System.nanoTime() - t0) * 1e-9);
-                if (ck != null && plan.referenceRun().isPresent() && (restored == null || restored.reason() == null)) {
-                    // the stepping is done and the incident-power run follows: a restart from here repeats only that
-                    ck.save(sim, peak, energy, reason, wall);
-                }
-                if (atEnd != null) {
-                    atEnd.accept(sim);
-                }
-                if (restored != null && restored.reason() != null && (reason.startsWith("reached the latest time") || reason.startsWith("reached the time limit"))) {
-                    byLimit = true;
-                }
-                double[] reference = {0, Double.NaN, Double.NaN};
-                IncidentPowerCache.Obtained obtained = null;
-                if (plan.flux().isPresent()) {
-                    // a surfaces section's incident line is one of its recorders (FluxPlan.surfacesIncident)
-                    long steps = sim.stepCount();
-                    boolean besideRan = beside != null && beside.steps() == steps;
-                    obtained = besideRan ? beside.join() : incident.obtain(plan.flux().get(), steps, c -> {
-                        double[] m = measureIncidentPower(plan, steps, progress, progressSeconds, c);
-                        return new IncidentPowerCache.Measured(m[0], m[1], m[2]);
-                    });
-                    IncidentPowerCache.Measured m = obtained.measured();
-                    reference = new double[] {obtained.reused() ? 0 : m.wallSeconds(), m.finalEnergy(), m.peakEnergy()};
-                    reason += obtained.reused() ? "; the incident power was reused from an incident-power run of the same set-up "
-                            + "and number of steps (" + obtained.origin() + ")" : obtained.computed() ? "; the incident power was "
-                            + "computed from " + obtained.computedFrom() + " (no incident-power run)" : "; the incident-power run took the same number of steps"
-                            + (obtained.continuedFrom() >= 0 ? " (continuing from step " + obtained.continuedFrom()
-                            + " a state kept by an earlier incident-power run of the same set-up in this process)" : "")
-                            + (besideRan && !obtained.reused() && !obtained.computed() ? " (stepped beside the case's run, on a "
-                            + "thread of its own)" : "");
-                } else if (plan.surfaces().flatMap(org.evanesce.io.plan.SurfacePlan::computedIncident).isPresent()) {
-                    // a pulsed beam's incident line in closed form: no incident-power run
-                    var sp = plan.surfaces().get();
-                    long t1 = System.nanoTime();
-                    sp.computedIncident().get().fill(sp.incidentLine().orElseThrow(), sim.stepCount(), plan.dt());
-                    reference = new double[] {(System.nanoTime() - t1) * 1e-9, Double.NaN, Double.NaN};
-                    reason += "; the incident power was computed from the beam's sheets (no incident-power run)";
-                } else if (plan.referenceRun().isPresent()) {
-                    reference = step(plan, plan.referenceRun().get(), sim.stepCount(), progress, progressSeconds, plan.interior());
-                    reason += plan.surfaces().get().incidentLine().isPresent()
-                            ? "; the incident-power run took the same number of steps"
-                            : "; the run measuring the sources' own power took the same number of steps";
-                }
-                return new Result(sim.stepCount(), wall, sim.threads(), reason, energy, peak, sim.bytes(), reference[0],
-                        resumedFrom, byLimit, reference[1], reference[2], obtained);
+            if (restored == null) {
+                beside.start(plan, incident, progressSeconds);
             }
+            if (reason == null && plan.stop() instanceof CasePlan.Stop.Steps s) {
+                // the energy is measured as in a decay stop (every chunk, at the end) so the result can say whether it settled
+                while (sim.stepCount() < s.steps()) {
+                    sim.run(Math.min(Checkpoints.CHUNK, s.steps() - sim.stepCount()));
+                    energy = sim.energyOnTeam(r[0], r[1], r[2], r[3]);
+                    peak = Math.max(peak, energy);
+                    if (ck != null && ck.due(lastSave)) {
+                        ck.save(sim, peak, energy, null, before + (System.nanoTime() - t0) * 1e-9);
+                        lastSave = System.nanoTime();
+                    }
+                }
+                reason = "ran the requested " + s.steps() + " steps";
+            } else if (reason == null) {
+                CasePlan.Stop.Decay d = (CasePlan.Stop.Decay) plan.stop();
+                while (sim.stepCount() < d.limitSteps()) {
+                    long chunk = Math.min(d.checkInterval(), d.limitSteps() - sim.stepCount());
+                    sim.run(chunk);
+                    energy = sim.energyOnTeam(r[0], r[1], r[2], r[3]);
+                    peak = Math.max(peak, energy);
+                    if (sim.stepCount() >= d.fadeSteps() && energy <= d.fraction() * peak) {
+                        reason = String.format("the field energy fell to %.3g of its largest value (asked: below %.3g)",
+                                peak > 0 ? energy / peak : 0.0, d.fraction());
+                        break;
+                    }
+                    if (ck != null && ck.due(lastSave)) {
+                        ck.save(sim, peak, energy, null, before + (System.nanoTime() - t0) * 1e-9);
+                        lastSave = System.nanoTime();
+                    }
+                }
+                if (reason == null && plan.continuous()) {
+                    reason = String.format("ran to the latest time (%d steps): a continuous wave's field energy does not fall", d.limitSteps());
+                } else if (reason == null) {
+                    byLimit = true;
+                    reason = String.format("reached the latest time (%d steps) before the energy fell below %.3g of its "
+                            + "largest value (now %.3g)", d.limitSteps(), d.fraction(), peak > 0 ? energy / peak : 0.0);
+                }
+            }
+            double wall = before + (restored != null && restored.reason() != null ? 0 : (System.nanoTime() - t0) * 1e-9);
+            if (ck != null && plan.referenceRun().isPresent() && (restored == null || restored.reason() == null)) {
+                // the stepping is done and the incident-power run follows: a restart from here repeats only that
+                ck.save(sim, peak, energy, reason, wall);
+            }
+            if (atEnd != null) {
+                atEnd.accept(sim);
+            }
+            if (restored != null && restored.reason() != null && (reason.startsWith("reached the latest time") || reason.startsWith("reached the time limit"))) {
+                byLimit = true;
+            }
+            double[] reference = {0, Double.NaN, Double.NaN};
+            IncidentPowerCache.Obtained obtained = null;
+            if (plan.flux().isPresent()) {
+                // a surfaces section's incident line is one of its recorders (FluxPlan.surfacesIncident)
+                long steps = sim.stepCount();
+                boolean besideRan = beside.steps() == steps;
+                obtained = besideRan ? beside.join() : incident.obtain(plan.flux().get(), steps, c -> {
+                    double[] m = measureIncidentPower(plan, steps, progress, progressSeconds, c);
+                    return new IncidentPowerCache.Measured(m[0], m[1], m[2]);
+                });
+                IncidentPowerCache.Measured m = obtained.measured();
+                reference = new double[] {obtained.reused() ? 0 : m.wallSeconds(), m.finalEnergy(), m.peakEnergy()};
+                reason += obtained.reused() ? "; the incident power was reused from an incident-power run of the same set-up "
+                        + "and number of steps (" + obtained.origin() + ")" : obtained.computed() ? "; the incident power was "
+                        + "computed from " + obtained.computedFrom() + " (no incident-power run)" : "; the incident-power run took the same number of steps"
+                        + (obtained.continuedFrom() >= 0 ? " (continuing from step " + obtained.continuedFrom()
+                        + " a state kept by an earlier incident-power run of the same set-up in this process)" : "")
+                        + (besideRan && !obtained.reused() && !obtained.computed() ? " (stepped beside the case's run, on a "
+                        + "thread of its own)" : "");
+            } else if (plan.surfaces().flatMap(org.evanesce.io.plan.SurfacePlan::computedIncident).isPresent()) {
+                // a pulsed beam's incident line in closed form: no incident-power run
+                var sp = plan.surfaces().get();
+                long t1 = System.nanoTime();
+                sp.computedIncident().get().fill(sp.incidentLine().orElseThrow(), sim.stepCount(), plan.dt());
+                reference = new double[] {(System.nanoTime() - t1) * 1e-9, Double.NaN, Double.NaN};
+                reason += "; the incident power was computed from the beam's sheets (no incident-power run)";
+            } else if (plan.referenceRun().isPresent()) {
+                reference = step(plan, plan.referenceRun().get(), sim.stepCount(), progress, progressSeconds, plan.interior());
+                reason += plan.surfaces().get().incidentLine().isPresent()
+                        ? "; the incident-power run took the same number of steps"
+                        : "; the run measuring the sources' own power took the same number of steps";
+            }
+            return new Result(sim.stepCount(), wall, sim.threads(), reason, energy, peak, sim.bytes(), reference[0],
+                    resumedFrom, byLimit, reference[1], reference[2], obtained);
         }
     }
 

@@ -25,57 +25,52 @@ final class IncidentBeside implements AutoCloseable {
         }
     }
 
-    private final long steps;
-    private final Stepper thread;
-    private final CompletableFuture<IncidentPowerCache.Obtained> done;
-
-    private IncidentBeside(long steps, Stepper thread, CompletableFuture<IncidentPowerCache.Obtained> done) {
-        this.steps = steps;
-        this.thread = thread;
-        this.done = done;
-    }
+    /** The steps it runs, −1 until started. */
+    private long steps = -1;
+    private Stepper thread;
+    private CompletableFuture<IncidentPowerCache.Obtained> done;
 
     /**
-     * Starts the plan's incident-power run beside the case's run, or returns null where it steps after it: no flux
-     * section, a computed incident power, a stop on decay, or no thread to spare (the case's run steps on as many
-     * threads as were asked for, or the machine has no more processors).
+     * Starts the plan's incident-power run beside the case's run, or leaves it to step after it (no flux section, a
+     * computed incident power, a stop on decay, or no thread to spare: the case's run steps on as many threads as were
+     * asked for, or the machine has no more processors).
      */
-    static IncidentBeside start(CasePlan plan, IncidentPowerCache incident, double progressSeconds) {
-        if (plan.flux().isEmpty() || !(plan.stop() instanceof CasePlan.Stop.Steps s)) {
-            return null;
+    void start(CasePlan plan, IncidentPowerCache incident, double progressSeconds) {
+        if (thread != null || plan.flux().isEmpty() || !(plan.stop() instanceof CasePlan.Stop.Steps s)) {
+            return;
         }
         FluxPlan f = plan.flux().get();
         if (f.computed().isPresent()) {
-            return null;
+            return;
         }
         int own = f.strip().isPresent() ? f.strip().get().builder().effectiveThreads() : f.reference().effectiveThreads();
         int asked = Math.min(plan.builder().requestedThreads(), Runtime.getRuntime().availableProcessors());
         if (plan.builder().effectiveThreads() + own > asked) {
-            return null;
+            return;
         }
-        long steps = s.steps();
-        CompletableFuture<IncidentPowerCache.Obtained> done = new CompletableFuture<>();
-        Stepper t = new Stepper(() -> {
+        long n = s.steps();
+        done = new CompletableFuture<>();
+        thread = new Stepper(() -> {
             try {
-                done.complete(incident.obtain(f, steps, c -> {
-                    double[] m = CaseRunner.measureIncidentPower(plan, steps, null, progressSeconds, c);
+                done.complete(incident.obtain(f, n, c -> {
+                    double[] m = CaseRunner.measureIncidentPower(plan, n, null, progressSeconds, c);
                     return new IncidentPowerCache.Measured(m[0], m[1], m[2]);
                 }));
             } catch (RuntimeException | Error e) {
                 done.completeExceptionally(e);
             }
         });
-        t.setDaemon(true);
-        t.start();
-        return new IncidentBeside(steps, t, done);
+        thread.setDaemon(true);
+        thread.start();
+        steps = n;
     }
 
-    /** The steps it runs: its result serves a case's run of exactly these. */
+    /** The steps it runs (its result serves a case's run of exactly these), −1 when not started. */
     long steps() {
         return steps;
     }
 
-    /** Waits for its result; what it threw is thrown here. */
+    /** Waits for its result (once started); what it threw is thrown here. */
     IncidentPowerCache.Obtained join() {
         try {
             return done.get();
@@ -96,6 +91,9 @@ final class IncidentBeside implements AutoCloseable {
     /** Stops it (when the case's run failed or its result was not wanted) and waits until its thread has ended. */
     @Override
     public void close() {
+        if (thread == null) {
+            return;
+        }
         thread.cancelled = true;
         boolean interrupted = false;
         while (thread.isAlive()) {
