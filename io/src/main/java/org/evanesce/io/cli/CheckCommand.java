@@ -76,25 +76,41 @@ public final class CheckCommand implements Callable<Integer> {
                 }
                 long t0 = System.nanoTime();
                 long steps = 0;
+                // the rate of the trial's second half: its first steps run while the JIT compiles (a small grid's
+                // whole first second can), which a long run's steps do not
+                long halfSteps = -1;
+                double halfSec = 0;
                 while ((System.nanoTime() - t0) * 1e-9 < trialSeconds && steps < maxSteps) {
                     sim.run(Math.min(10, maxSteps - steps));
                     steps += Math.min(10, maxSteps - steps);
+                    double now = (System.nanoTime() - t0) * 1e-9;
+                    if (halfSteps < 0 && now >= trialSeconds / 2) {
+                        halfSteps = steps;
+                        halfSec = now;
+                    }
                 }
                 double sec = (System.nanoTime() - t0) * 1e-9;
-                double rate = steps / sec;
+                double rate = halfSteps > 0 && steps > halfSteps && sec > halfSec ? (steps - halfSteps) / (sec - halfSec)
+                        : steps / sec;
                 // a flux case runs an incident-power run of the same grid for as many steps (a plane wave's: a strip
                 // of a few columns, counted at its share of the cells), unless the incident power is computed (a pulsed
                 // beam, a plane wave with periodic sides: no stepping)
                 var strip = plan.flux().flatMap(f -> f.strip());
                 boolean computed = plan.flux().flatMap(f -> f.computed()).isPresent();
-                double runs = plan.flux().isEmpty() || computed ? 1 : 1 + (strip.isPresent()
-                        ? (double) strip.get().columns() / plan.grid().nx() : 1);
-                o.printf(Locale.ROOT, "trial: %d steps in %.2f s (%.0f Mcell/s); estimated run time "
-                        + "%.0f s%s%s%n", steps, sec, rate * cells / 1e6, runs * maxSteps / rate,
+                double incidentShare = plan.flux().isEmpty() || computed ? 0 : strip.isPresent()
+                        ? (double) strip.get().columns() / plan.grid().nx() : 1;
+                // stepped beside the run on a thread of its own, it adds nothing unless it takes longer
+                boolean beside = incidentShare > 0 && org.evanesce.io.run.IncidentBeside.besideTheRun(plan);
+                double runs = beside ? Math.max(1, incidentShare) : 1 + incidentShare;
+                // a trial that made every step timed the run itself, its compiling included
+                double estimate = runs * (steps >= maxSteps ? sec : maxSteps / rate);
+                o.printf(Locale.ROOT, "trial: %d steps in %.2f s (%.0f Mcell/s in its second half); estimated run time "
+                        + "%s s%s%s%n", steps, sec, rate * cells / 1e6,
+                        String.format(Locale.ROOT, estimate < 10 ? "%.1f" : "%.0f", estimate),
                         plan.stop() instanceof CasePlan.Stop.Decay ? " at most" : "",
                         plan.flux().isEmpty() ? "" : computed ? " (the incident power computed, not stepped)"
-                                : strip.isPresent() ? " (with the incident-power run on a strip)"
-                                : " (with the incident-power run)");
+                                : (strip.isPresent() ? " (with the incident-power run on a strip" : " (with the incident-power run")
+                                + (beside ? ", beside the run on a thread of its own)" : ")"));
             }
         }
         Path png = preview != null ? preview : defaultPreview(options.caseFile);

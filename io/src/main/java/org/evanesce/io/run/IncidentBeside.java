@@ -14,7 +14,7 @@ import org.evanesce.io.plan.FluxPlan;
  * A stop on decay learns its number of steps only at the end, and a run continued from a checkpoint steps its
  * incident-power run after it, as before.
  */
-final class IncidentBeside implements AutoCloseable {
+public final class IncidentBeside implements AutoCloseable {
 
     /** The thread the incident-power run steps on; {@link #cancelled} stops it between chunks. */
     static final class Stepper extends Thread {
@@ -36,19 +36,11 @@ final class IncidentBeside implements AutoCloseable {
      * asked for, or the machine has no more processors).
      */
     void start(CasePlan plan, IncidentPowerCache incident, double progressSeconds) {
-        if (thread != null || plan.flux().isEmpty() || !(plan.stop() instanceof CasePlan.Stop.Steps s)) {
+        if (thread != null || !besideTheRun(plan)) {
             return;
         }
-        FluxPlan f = plan.flux().get();
-        if (f.computed().isPresent()) {
-            return;
-        }
-        int own = f.strip().isPresent() ? f.strip().get().builder().effectiveThreads() : f.reference().effectiveThreads();
-        int asked = Math.min(plan.builder().requestedThreads(), Runtime.getRuntime().availableProcessors());
-        if (plan.builder().effectiveThreads() + own > asked) {
-            return;
-        }
-        long n = s.steps();
+        FluxPlan f = plan.flux().orElseThrow();
+        long n = ((CasePlan.Stop.Steps) plan.stop()).steps();
         done = new CompletableFuture<>();
         thread = new Stepper(() -> {
             try {
@@ -63,6 +55,24 @@ final class IncidentBeside implements AutoCloseable {
         thread.setDaemon(true);
         thread.start();
         steps = n;
+    }
+
+    /**
+     * Whether a run of this plan (not continued from a checkpoint) steps its incident-power run beside it: a flux section
+     * whose incident power is stepped, a stop after a given time, and a thread to spare (the case's run and the
+     * incident-power run together on no more threads than were asked for and the machine has).
+     */
+    public static boolean besideTheRun(CasePlan plan) {
+        if (plan.flux().isEmpty() || !(plan.stop() instanceof CasePlan.Stop.Steps)) {
+            return false;
+        }
+        FluxPlan f = plan.flux().get();
+        if (f.computed().isPresent()) {
+            return false;
+        }
+        int own = f.strip().isPresent() ? f.strip().get().builder().effectiveThreads() : f.reference().effectiveThreads();
+        int asked = Math.min(plan.builder().requestedThreads(), Runtime.getRuntime().availableProcessors());
+        return plan.builder().effectiveThreads() + own <= asked;
     }
 
     /** The steps it runs (its result serves a case's run of exactly these), −1 when not started. */

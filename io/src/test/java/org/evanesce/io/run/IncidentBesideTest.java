@@ -61,6 +61,15 @@ class IncidentBesideTest {
     }
 
     @Test
+    void besideTheRunOnlyWithAThreadToSpareAndKnownSteps() throws Exception {
+        String cw = IncidentPowerCacheTest.text(false);
+        assertFalse(IncidentBeside.besideTheRun(plan(cw, 1)), "one thread asked for: the run's");
+        assertFalse(IncidentBeside.besideTheRun(plan(IncidentPowerCacheTest.text(true), 2)), "a stop on decay");
+        assertEquals(Runtime.getRuntime().availableProcessors() >= 2, IncidentBeside.besideTheRun(plan(cw, 2)),
+                "two threads asked for, the grid steps on one");
+    }
+
+    @Test
     void aStopOnDecayStepsItAfterTheRun() throws Exception {
         // the pulse stops when its energy has decayed: its number of steps is known only then
         CaseRunner.Result r = CaseRunner.run(plan(IncidentPowerCacheTest.text(true), 2), null, 1, null, null,
