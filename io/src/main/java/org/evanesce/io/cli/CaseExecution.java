@@ -99,6 +99,7 @@ final class CaseExecution {
                         + " (no incident-power run)"
                         : plan.surfaces().flatMap(org.evanesce.io.plan.SurfacePlan::computedIncident).isPresent()
                         ? ", the incident power computed from the beam's sheets (no incident-power run)"
+                        : org.evanesce.io.run.IncidentBeside.besideTheRun(plan) ? ", an incident-power run beside it on a thread of its own"
                         : plan.referenceRun().isPresent() ? plan.flux().isPresent() || plan.surfaces().orElseThrow().incidentLine()
                         .isPresent() ? ", then an incident-power run" : ", then a run measuring the sources' own power" : "",
                 rf.target());
