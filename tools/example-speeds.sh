@@ -18,7 +18,9 @@
 #   --bench-seconds S  timed seconds per bench repeat (default 2; 3 repeats, the median)
 #   --jar JAR          run this build's jar (runs and bench) instead of io/target/evanesce.jar, e.g. an
 #                      older build kept aside, to compare two builds example by example; its class-data
-#                      archive is used where one lies beside it (JAR with .jsa for .jar, copied with it)
+#                      archive JAR with .jsa for .jar is passed where it lies beside it, but the JVM uses it
+#                      only for the jar at the path it was made for (another checkout's io/target, not a
+#                      copy: a copied jar runs without it, silently)
 # The figures drift with other work on the machine: compare examples measured in one sitting only,
 # and on a shared machine call them provisional. A bench rate marked * did not settle during its
 # warm-up (the bench's CSV column 'settled'): on a very busy machine the JIT compiler itself gets
@@ -32,7 +34,7 @@ while [[ $# -gt 0 ]]; do
         --bench-seconds) bench_seconds=${2:?--bench-seconds needs S}; shift 2 ;;
         --jar) jar=${2:?--jar needs a file}; [[ -f "$jar" ]] || { echo "example-speeds: jar '$jar' not found" >&2; exit 2; }
                shift 2 ;;
-        -h|--help) sed -n '2,25p' "$0"; exit 0 ;;
+        -h|--help) sed -n '2,27p' "$0"; exit 0 ;;
         -*) echo "example-speeds: unknown option '$1' (see the header of $0)" >&2; exit 2 ;;
         *) [[ -f "$1" ]] || { echo "example-speeds: case file '$1' not found" >&2; exit 2; }; cases+=("$1"); shift ;;
     esac
@@ -42,7 +44,8 @@ if [[ ${#cases[@]} -eq 0 ]]; then
 fi
 [[ -n "$jar" || -f "$here/io/target/evanesce.jar" ]] || { echo "example-speeds: build the jar first (mvn -B -q -DskipTests package)" >&2; exit 2; }
 # the launcher, or the given jar with the launcher's JVM flags
-# (with its class-data archive, JAR's name ending .jsa instead of .jar, where one newer than it lies beside it)
+# (with its class-data archive, JAR's name ending .jsa instead of .jar, where one newer than it lies beside it; the
+# JVM ignores it for a jar other than the one it was made for)
 evanesce() {
     if [[ -n "$jar" ]]; then
         local cds=()
