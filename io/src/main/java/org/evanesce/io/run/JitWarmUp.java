@@ -8,7 +8,9 @@ import org.evanesce.solver.Simulation;
 import org.evanesce.solver.boundary.Boundary;
 import org.evanesce.solver.grid.Polarization;
 import org.evanesce.solver.grid.Precision;
+import org.evanesce.solver.grid.Side;
 import org.evanesce.solver.source.GaussianPulse;
+import org.evanesce.solver.source.IncidentSheet;
 import org.evanesce.solver.source.Source;
 
 /**
@@ -35,14 +37,33 @@ public final class JitWarmUp {
     static final int STEPS = 300;
 
     /**
-     * The two warm-up grids: lossless (no ca array) with PMLs of {@link #THICK_PML} cells, lossy with {@link #THIN_PML};
-     * widths that are no multiple of the vector length (the loops' scalar tails), and strips of one, two and three
-     * vectors' width (the PML loops that take two vectors of columns at a time, then one).
+     * The warm-up grids: lossless (no ca array) with PMLs of {@link #THICK_PML} cells on two sides and three fewer on
+     * the others, lossy with {@link #THIN_PML}; each in two widths, one whose nx − 1 and one whose nx − 2 is a
+     * multiple of the vector length (the loops over nx − 1 and nx − 2 columns, each with and without a scalar tail).
+     * The x strips are widened to whole vectors; their loops take two vectors of columns at a time, then one where an
+     * odd number is left: 40 and 12 (or 37) cells give an odd and an even number of vectors at 2, 4 and 8 lanes.
      */
     private static final int THICK_PML = 40;
     private static final int THIN_PML = 12;
-    private static final int THICK_N = 2 * THICK_PML + 33;
-    private static final int THIN_N = 97;
+    private static final int[] THICK_N = {2 * THICK_PML + 33, 2 * THICK_PML + 34};
+    private static final int[] THIN_N = {97, 98};
+
+    private static final java.util.concurrent.atomic.AtomicInteger WARM_UPS = new java.util.concurrent.atomic.AtomicInteger();
+
+    /** Warm-ups done in this process (tests). */
+    static int warmUps() {
+        return WARM_UPS.get();
+    }
+
+    /** The warm-up grids' widths in nodes (tests: the loops' tails they cover). */
+    static int[] widths() {
+        return new int[] {THICK_N[0], THICK_N[1], THIN_N[0], THIN_N[1]};
+    }
+
+    /** The warm-up grids' PML thicknesses in cells (tests: the PML loops' branches they cover). */
+    static int[] pmlThicknesses() {
+        return new int[] {THICK_PML, THICK_PML - 3, THIN_PML};
+    }
 
     /** One polarization and precision's warm-up: done or not, and the lock a second caller waits on. */
     private static final class Once {
@@ -59,11 +80,14 @@ public final class JitWarmUp {
     /**
      * The fewest cell updates (grid cells × the step limit, which for a stop on decay is the latest time's steps:
      * more than are made) for which the warm-up and the vector parts pay. Whole commands on a 2-core machine,
-     * warm-up and vectors against scalar parts alone, updates made (limit): the touch plate 3.8e8 (5.5e8) 1.02–1.10x
-     * the wall time and 1.10x the CPU, the cube splitter 5.7e8 (5.7e8) 0.95–1.05x and 1.02–1.10x, the attenuator
-     * corner 7.5e8 (1.05e9) 0.82–0.84x and 0.80–0.87x, the tail 8.5e8 (1.44e9) 0.86–0.98x and 0.86–0.93x.
+     * paired and alternating, warm-up and vectors against scalar parts alone, updates made (limit): with the
+     * warm-up of two grids, the touch plate 3.8e8 (5.5e8) 1.02–1.10x the wall time, the cube splitter 5.7e8 (5.7e8)
+     * 0.95–1.05x, the attenuator corner 7.5e8 (1.05e9) 0.82–0.84x, the tail 8.5e8 (1.44e9) 0.86–0.98x; with the
+     * warm-up of four grids (fewer kernels compiled again during the run, see {@link #warmUp}) the touch plate
+     * 0.86–0.93x (stepping 0.5–0.6 s against 1.3–1.6 s scalar) and the cube splitter even (stepping 0.7–1.1 s against
+     * 1.7–2.3 s: the warm-up takes what the steps gain), hence 4e8.
      */
-    public static final double WORTH_CELL_UPDATES = 6e8;
+    public static final double WORTH_CELL_UPDATES = 4e8;
 
     /** Whether a run of this plan warms up and steps the vector parts (see {@link #WORTH_CELL_UPDATES}). */
     public static boolean worth(CasePlan plan) {
@@ -98,27 +122,40 @@ public final class JitWarmUp {
             if (!once.done) {
                 warmUp(pol, precision);
                 once.done = true;
+                WARM_UPS.incrementAndGet();
             }
         }
     }
 
     /**
-     * Two grids stepped in turn, so that the JIT's profile has seen both ways of the kernels' branches before it
+     * Four grids stepped in turn, so that the JIT's profile has seen both ways of the kernels' branches before it
      * compiles them; a branch the profile never saw taken is compiled as a trap, and the run that takes it goes back to
-     * the interpreter until the kernel is compiled again (JFR deoptimisation events in the two-prism example's run,
-     * after a warm-up on one lossy 96 x 96 grid with 12-cell PMLs and no source: the lossless update, the PML loops of
-     * its 38-cell strips, the per-row source loops, the flush and the energy sum, each compiled anew during the run).
-     * Whole commands, paired, quiet: two-prism example 0.95x the wall time (stepping 2.98 s against 3.45 s), evanescent
-     * tail and attenuator corner as before (the longer warm-up takes what the steps gain), gold-film beam (p, a
-     * dispersive metal) as before.
+     * the interpreter until the kernel is compiled again. JFR deoptimisation events in the examples' first steps
+     * showed which: after a warm-up on one lossy grid, the lossless update, the PML loops, the per-row source loops,
+     * the flush and the energy sum (two-prism example); after two square grids whose nx − 1 were both multiples of the
+     * vector length, the scalar tails of the p kernels' rows (cube splitter: 431 nodes wide), the lossless Ex tail,
+     * the PML rows' tails, and the beams' per-row sheet values (the lossless grid now carries a pair of sheets with
+     * delays that differ cell by cell, as a tilted beam's do). Each recompiled kernel ran interpreted meanwhile:
+     * the cube splitter's first 35 steps after the warm-up took 0.25 s. Now two widths of each kind, one whose
+     * nx − 1 and one whose nx − 2 is a multiple of the vector length, and PMLs of two thicknesses on the lossless grids
+     * (JitWarmUpTest). Whole commands, paired and alternating, 2-core machine, against the warm-up of two grids:
+     * attenuator corner 2.42/2.57/2.38 s against 2.77/2.75/2.62 (0.91x), tail 4.27/3.71/3.26/3.26 against
+     * 4.65/4.07/3.76/3.54 (0.91x), prism coupler 7.28/7.29/7.37 against 7.90/7.66/7.55 (0.95x), two-prism even
+     * within the machine's drift; same bits (flux and probe tables).
      */
     private static void warmUp(Polarization pol, Precision precision) {
-        try (Simulation thick = grid(pol, precision, false); Simulation thin = grid(pol, precision, true)) {
+        Simulation[] grids = new Simulation[4];
+        try {
+            for (int q = 0; q < 2; q++) {
+                grids[q] = grid(pol, precision, false, THICK_N[q]);
+                grids[2 + q] = grid(pol, precision, true, THIN_N[q]);
+            }
             for (int k = 0; k < STEPS; k += 2) {
-                for (Simulation s : new Simulation[] {thick, thin}) {
+                for (int q = 0; q < grids.length; q++) {
+                    Simulation s = grids[q];
                     s.run(2);
                     int n = s.nx();
-                    int p = n == THICK_N ? THICK_PML : THIN_PML;
+                    int p = q < 2 ? THICK_PML : THIN_PML;
                     // over the interior, as the stopping rule sums it (a sum from column 0 alone left compiled code
                     // whose loop predicates failed on the run's first interior sum), and over the whole grid
                     s.energy(p, p, n - p, n - p);
@@ -127,12 +164,17 @@ public final class JitWarmUp {
                     }
                 }
             }
+        } finally {
+            for (Simulation s : grids) {
+                if (s != null) {
+                    s.close();
+                }
+            }
         }
     }
 
     /** A warm-up grid: a square block in the middle, a point pulse beside it, the flush every fourth step. */
-    private static Simulation grid(Polarization pol, Precision precision, boolean lossy) {
-        int n = lossy ? THIN_N : THICK_N;
+    private static Simulation grid(Polarization pol, Precision precision, boolean lossy, int n) {
         double dx = 50e-9;
         double f = PhysicalConstants.C0 / (20 * dx);
         int c = n / 2;
@@ -140,10 +182,30 @@ public final class JitWarmUp {
                 .paint((x, y) -> Math.abs(x - c) < 10 && Math.abs(y - c) < 10,
                         lossy ? new Material("warm-up", 2.0, 1e5) : new Material("warm-up", 2.25, 0))
                 .build();
-        Simulation s = Simulation.builder(g).polarization(pol).precision(precision).threads(1)
+        GaussianPulse pulse = new GaussianPulse(f, 0.3 * f);
+        Simulation.Builder b = Simulation.builder(g).polarization(pol).precision(precision).threads(1)
                 .boundaries(Boundary.pml(lossy ? THIN_PML : THICK_PML)).vectorsFromStart().flushInterval(4)
-                .source(Source.point(pol.components()[0], n, c - 15, c - 15, 1.0, new GaussianPulse(f, 0.3 * f)))
-                .build();
+                .source(Source.point(pol.components()[0], n, c - 15, c - 15, 1.0, pulse));
+        if (!lossy) {
+            b.boundary(Side.RIGHT, Boundary.pml(THICK_PML - 3)).boundary(Side.TOP, Boundary.pml(THICK_PML - 3));
+            // a beam's pair of sheets on two rows: the bands' per-row source values
+            int from = THICK_PML + 2;
+            int[] cells = new int[n - 2 * from];
+            double[] re = new double[cells.length];
+            double[] delays = new double[cells.length];
+            for (int t = 0; t < cells.length; t++) {
+                re[t] = 1;
+                delays[t] = t * 1e-17;
+            }
+            for (int q = 0; q < 2; q++) {
+                int row = c + 12 + q;
+                for (int t = 0; t < cells.length; t++) {
+                    cells[t] = row * n + from + t;
+                }
+                b.incident(new IncidentSheet(pol.components()[q], cells, re, new double[cells.length], delays, pulse));
+            }
+        }
+        Simulation s = b.build();
         s.setField(pol.components()[0], c, c, 1.0);
         return s;
     }
