@@ -53,7 +53,10 @@ evanesce() {
             cds=(-XX:SharedArchiveFile="${jar%.jar}.jsa" -Xlog:cds*=off)
         fi
         # shellcheck disable=SC2086
-        java --add-modules jdk.incubator.vector -XX:+UseParallelGC "${cds[@]}" ${JAVA_OPTS:-} -jar "$jar" "$@"
+        # the launcher's compiler thresholds (see ./evanesce)
+        java --add-modules jdk.incubator.vector -XX:+UseParallelGC -XX:Tier4InvocationThreshold=15000 \
+            -XX:Tier4MinInvocationThreshold=1800 -XX:Tier4CompileThreshold=45000 -XX:Tier4BackEdgeThreshold=120000 \
+            "${cds[@]}" ${JAVA_OPTS:-} -jar "$jar" "$@"
     else
         "$here/evanesce" "$@"
     fi
