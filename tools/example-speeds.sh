@@ -55,7 +55,7 @@ evanesce() {
         # shellcheck disable=SC2086
         # the launcher's compiler thresholds (see ./evanesce)
         java --add-modules jdk.incubator.vector -XX:+UseParallelGC -XX:Tier4InvocationThreshold=15000 \
-            -XX:Tier4MinInvocationThreshold=1800 -XX:Tier4CompileThreshold=45000 -XX:Tier4BackEdgeThreshold=120000 \
+            -XX:Tier4MinInvocationThreshold=1800 -XX:Tier4CompileThreshold=45000 -XX:Tier4BackEdgeThreshold=4000000 \
             "${cds[@]}" ${JAVA_OPTS:-} -jar "$jar" "$@"
     else
         "$here/evanesce" "$@"
