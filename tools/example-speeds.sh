@@ -52,8 +52,8 @@ evanesce() {
         if [[ -f "${jar%.jar}.jsa" && "${jar%.jar}.jsa" -nt "$jar" ]]; then
             cds=(-XX:SharedArchiveFile="${jar%.jar}.jsa" -Xlog:cds*=off)
         fi
-        # shellcheck disable=SC2086
         # the launcher's compiler thresholds (see ./evanesce)
+        # shellcheck disable=SC2086
         java --add-modules jdk.incubator.vector -XX:+UseParallelGC -XX:Tier4InvocationThreshold=15000 \
             -XX:Tier4MinInvocationThreshold=1800 -XX:Tier4CompileThreshold=45000 -XX:Tier4BackEdgeThreshold=4000000 \
             "${cds[@]}" ${JAVA_OPTS:-} -jar "$jar" "$@"
