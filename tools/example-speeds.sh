@@ -55,8 +55,7 @@ evanesce() {
         # the launcher's compiler thresholds (see ./evanesce)
         # shellcheck disable=SC2086
         java --add-modules jdk.incubator.vector -XX:+UseParallelGC -XX:Tier4InvocationThreshold=15000 \
-            -XX:Tier4MinInvocationThreshold=1800 -XX:Tier4CompileThreshold=45000 -XX:Tier4BackEdgeThreshold=4000000 \
-            "${cds[@]}" ${JAVA_OPTS:-} -jar "$jar" "$@"
+            -XX:Tier4CompileThreshold=45000 -XX:Tier4BackEdgeThreshold=4000000 "${cds[@]}" ${JAVA_OPTS:-} -jar "$jar" "$@"
     else
         "$here/evanesce" "$@"
     fi
