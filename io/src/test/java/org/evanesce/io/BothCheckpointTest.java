@@ -20,7 +20,8 @@ import org.junit.jupiter.api.io.TempDir;
  * run continues from its checkpoint ({@code DIR.checkpoint-s}, kept until the results are in place), the p run from
  * its own ({@code DIR.checkpoint-p}), and the averaged flux.csv and both runs' flux.csv are byte for byte those of an
  * uninterrupted run; nothing is left beside the results. The killed run is a child JVM, killed at a random (seeded,
- * printed) moment after the p checkpoint has appeared.
+ * printed) moment after the p checkpoint has appeared, within the first half of its p run (a delay of up to 1.5 s had
+ * let a faster p run finish first).
  */
 class BothCheckpointTest {
 
@@ -32,7 +33,9 @@ class BothCheckpointTest {
         Path caseFile = tmp.resolve("gap.yaml");
         Files.writeString(caseFile, RunCheckpointTest.CASE.replace("polarization: s", "polarization: both"));
         Path whole = tmp.resolve("whole");
+        long t0 = System.nanoTime();
         Cli.Outcome w = Cli.run("run", caseFile.toString(), "--out", whole.toString(), "--checkpoint-minutes", "0", "--threads", "1");
+        long wholeMillis = (System.nanoTime() - t0) / 1_000_000;
         assertEquals(ExitCode.OK, w.code(), w.err());
         assertFalse(w.out().contains("not checkpointed"), w.out());
 
@@ -52,7 +55,9 @@ class BothCheckpointTest {
         assertTrue(Files.exists(pCheckpoint), "no p checkpoint appeared before the child ended: "
                 + Files.readString(tmp.resolve("child.log")));
         assertTrue(Files.exists(tmp.resolve("killed.checkpoint-s")), "the s run's checkpoint is kept while p runs");
-        Thread.sleep(random.nextInt(1500));
+        // a moment inside the p run: at most a quarter of the uninterrupted s and p runs' time in this JVM (about half
+        // its p run; the child, a fresh JVM, steps slower), so the kill does not land after the results are in place
+        Thread.sleep(random.nextInt((int) Math.max(1, Math.min(1500, wholeMillis / 4))));
         assertTrue(child.isAlive(), "the child finished before it could be killed; lengthen the case");
         child.destroyForcibly().waitFor();
         assertFalse(Files.exists(killed), "a killed run must not leave a results folder");

@@ -58,7 +58,9 @@ class RunCheckpointTest {
         Path caseFile = tmp.resolve("gap.yaml");
         Files.writeString(caseFile, CASE);
         Path whole = tmp.resolve("whole");
+        long t0 = System.nanoTime();
         Cli.Outcome w = Cli.run("run", caseFile.toString(), "--out", whole.toString(), "--checkpoint-minutes", "0", "--threads", "1");
+        long wholeMillis = (System.nanoTime() - t0) / 1_000_000;
         assertEquals(ExitCode.OK, w.code(), w.err());
 
         Path killed = tmp.resolve("killed");
@@ -75,7 +77,9 @@ class RunCheckpointTest {
             Thread.sleep(20);
         }
         assertTrue(Files.exists(checkpoint), "no checkpoint appeared before the child ended: " + Files.readString(tmp.resolve("child.log")));
-        Thread.sleep(random.nextInt(1000));
+        // a moment inside the run: at most half the uninterrupted run's time in this JVM (the child, a fresh JVM, steps
+        // slower), so the kill does not land after the results are in place
+        Thread.sleep(random.nextInt((int) Math.max(1, Math.min(1000, wholeMillis / 2))));
         assertTrue(child.isAlive(), "the child finished before it could be killed; lengthen the case");
         child.destroyForcibly().waitFor();
         assertFalse(Files.exists(killed), "a killed run must not leave a results folder");

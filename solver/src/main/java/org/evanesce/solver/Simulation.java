@@ -761,6 +761,11 @@ public final class Simulation implements StepView, AutoCloseable {
             return (long) grid.nx() * grid.ny();
         }
 
+        /** Whether the run will update its plain rows in flat runs: a narrow grid (Engine.FLAT_BELOW), or as {@link #flatRuns} set. */
+        public boolean flat() {
+            return flatRuns != null ? flatRuns && grid.nx() >= 2 : Engine.flatByDefault(grid.nx());
+        }
+
         /**
          * Whether plain rows are updated in flat runs (see Engine.FLAT_BELOW; same bits either way), rather
          * than as the grid's width decides: for tests that compare both paths, and measurements.

@@ -98,6 +98,11 @@ public abstract class Engine {
      */
     static final int FLAT_BELOW = Integer.getInteger("evanesce.flatBelow", 64);
 
+    /** Whether a grid {@code nx} nodes wide updates its plain rows in flat runs unless told otherwise. */
+    public static boolean flatByDefault(int nx) {
+        return nx >= 2 && nx < FLAT_BELOW;
+    }
+
     /** Whether this engine updates its plain rows in flat runs (see {@link #FLAT_BELOW}); tests switch it. */
     protected boolean flat;
 
@@ -152,7 +157,7 @@ public abstract class Engine {
         pmcBottom = sides.get(Side.BOTTOM) instanceof Boundary.Pmc;
         pmcTop = sides.get(Side.TOP) instanceof Boundary.Pmc;
         blochX = sides.get(Side.LEFT) instanceof Boundary.Bloch;
-        flat = nx >= 2 && nx < FLAT_BELOW; // not flatRuns(..): a subclass overrides it
+        flat = flatByDefault(nx); // not flatRuns(..): a subclass overrides it
         ghostE = new double[blochX ? ny : 0];
         ghostW = new double[blochX ? ny : 0];
         xProfiles = profiles(sides, Side.LEFT, Side.RIGHT, nx, courant);
